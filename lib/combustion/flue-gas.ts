@@ -1,0 +1,82 @@
+/**
+ * Flue gas of complete combustion at an air factor λ ≥ 1: composition wet and dry, amounts and
+ * volumes per kg and per MJ of fuel, CO2max and the water dew point.
+ */
+import type { ResolvedFuel } from "../fuels/resolve";
+import { stoichiometricO2_mol_per_kg } from "../fuels/resolve";
+import { molarMass_g_per_mol } from "../thermo/elements";
+import { SPECIES } from "../thermo/species-data";
+import { saturationTemperatureK } from "../thermo/water";
+import { atmospherePa, kelvinToCelsius, R_J_per_molK, T0CK } from "../units/constants";
+import { DRY_AIR, type Oxidizer } from "./stoichiometry";
+
+export type FlueSpecies = "CO2" | "H2O" | "SO2" | "N2" | "O2" | "Ar";
+export const FLUE_SPECIES: readonly FlueSpecies[] = ["CO2", "H2O", "SO2", "N2", "O2", "Ar"];
+
+export interface FlueGas {
+  lambda: number;
+  /** Moles of each species per kg fuel. */
+  mol_per_kg: Record<FlueSpecies, number>;
+  wet_mol_per_kg: number;
+  dry_mol_per_kg: number;
+  wetMoleFractions: Record<FlueSpecies, number>;
+  dryMoleFractions: Record<Exclude<FlueSpecies, "H2O">, number>;
+  /** Mass of flue gas per kg fuel (fuel + oxidiser − ash). */
+  mass_kg_per_kg: number;
+  /** Volume at 0 °C, 101.325 kPa (ideal gas), per kg fuel. */
+  wet_m3_per_kg: number;
+  dry_m3_per_kg: number;
+}
+
+/** Molar volume of an ideal gas at 0 °C and 101.325 kPa, m³/mol (flue-gas volumes are stated at these conditions). */
+export const NORMAL_MOLAR_VOLUME_m3_per_mol = (R_J_per_molK * T0CK) / atmospherePa;
+
+export function flueGasPerKgFuel(fuel: ResolvedFuel, opts: { lambda: number; oxidizer?: Oxidizer }): FlueGas {
+  const { lambda } = opts;
+  const ox = opts.oxidizer ?? DRY_AIR;
+  if (!(lambda >= 1)) throw new RangeError(`complete-combustion flue gas needs λ ≥ 1 (got ${lambda})`);
+  const el = fuel.elements_mol_per_kg;
+  const nO2 = stoichiometricO2_mol_per_kg(el);
+  const nOx = (lambda * nO2) / (ox.O2 ?? 0);
+  const m: Record<FlueSpecies, number> = {
+    CO2: el.C + nOx * (ox.CO2 ?? 0),
+    H2O: el.H / 2 + nOx * (ox.H2O ?? 0),
+    SO2: el.S,
+    N2: el.N / 2 + nOx * (ox.N2 ?? 0),
+    O2: (lambda - 1) * nO2,
+    Ar: el.Ar + nOx * (ox.Ar ?? 0),
+  };
+  const wet = FLUE_SPECIES.reduce((s, k) => s + m[k], 0);
+  const dry = wet - m.H2O;
+  const wetX = {} as Record<FlueSpecies, number>;
+  for (const k of FLUE_SPECIES) wetX[k] = m[k] / wet;
+  const dryX = {} as Record<Exclude<FlueSpecies, "H2O">, number>;
+  for (const k of FLUE_SPECIES) if (k !== "H2O") dryX[k] = m[k] / dry;
+  const mass = FLUE_SPECIES.reduce((s, k) => s + (m[k] * molarMass_g_per_mol(SPECIES[k].elements)) / 1000, 0);
+  return {
+    lambda,
+    mol_per_kg: m,
+    wet_mol_per_kg: wet,
+    dry_mol_per_kg: dry,
+    wetMoleFractions: wetX,
+    dryMoleFractions: dryX,
+    mass_kg_per_kg: mass,
+    wet_m3_per_kg: wet * NORMAL_MOLAR_VOLUME_m3_per_mol,
+    dry_m3_per_kg: dry * NORMAL_MOLAR_VOLUME_m3_per_mol,
+  };
+}
+
+/** Maximum CO2 in the dry flue gas (stoichiometric combustion), vol %. */
+export function co2MaxDryPercent(fuel: ResolvedFuel, oxidizer: Oxidizer = DRY_AIR): number {
+  return 100 * flueGasPerKgFuel(fuel, { lambda: 1, oxidizer }).dryMoleFractions.CO2;
+}
+
+/**
+ * Water dew point of a flue gas: the saturation temperature (IAPWS-IF97) at the water partial
+ * pressure. Returns null when the partial pressure is below the triple point (no dew above 0 °C).
+ */
+export function waterDewPointC(waterMoleFraction: number, pressurePa = atmospherePa): number | null {
+  const pw = waterMoleFraction * pressurePa;
+  if (pw < 611.213) return null;
+  return kelvinToCelsius(saturationTemperatureK(pw));
+}

@@ -1,0 +1,318 @@
+/**
+ * Resolves a fuel definition (gas composition, compound, ultimate analysis, blend) into one
+ * uniform description per kg of fuel as fired: elements, formation enthalpy, sensible enthalpy,
+ * and, for gases, the species mole fractions that ISO 6976 volumetric figures need.
+ */
+import type { Element } from "../thermo/nasa7";
+import { ELEMENTS, h_J_per_mol, sensibleH_J_per_mol } from "../thermo/nasa7";
+import { SPECIES } from "../thermo/species-data";
+import { ATOMIC_WEIGHT_g_per_mol, molarMass_g_per_mol } from "../thermo/elements";
+import { T298K } from "../units/constants";
+import type { BlendFuelDefinition, FuelDefinition } from "../schemas/fuel";
+import { LIQUID_COMPOUNDS, LIQUID_FUEL_CP_J_per_kgK, SOLID_FUEL_CP_J_per_kgK } from "./compounds";
+
+export type FuelKind = "gas" | "liquid" | "solid";
+export type HeatingValueOrigin = "thermochemistry" | "measured-hhv" | "measured-lhv" | "channiwala-parikh-2002" | "blend";
+
+export type ElementMoles = Record<Element, number>;
+
+export interface ResolvedFuel {
+  kind: FuelKind;
+  label: string;
+  /** Moles of each element per kg of fuel as fired (moisture included). */
+  elements_mol_per_kg: ElementMoles;
+  moisture_kg_per_kg: number;
+  ash_kg_per_kg: number;
+  /** Gases only: species mole fractions (keys of species-data), summing to 1. */
+  gasComposition?: Record<string, number>;
+  /** Gases and pure compounds: molar mass, g/mol. */
+  molarMass_g_per_mol?: number;
+  /** Liquids: density at 15 °C, kg/m³ (given, or from the compound data). */
+  density_kg_per_m3?: number;
+  biogenicCarbonShare: number;
+  upstreamCo2e_kg_per_GJ?: number;
+  /** Standard enthalpy of formation at 298.15 K of the fuel as fed, J/kg. */
+  formationEnthalpy_J_per_kg: number;
+  /** Sensible enthalpy h(T) − h(298.15 K) of the fuel as fed, J/kg. */
+  sensibleEnthalpy_J_per_kg: (temperatureK: number) => number;
+  heatingValueOrigin: HeatingValueOrigin;
+  /** Hydrogen mole fraction of a gas (0 for other fuels). */
+  h2MoleFraction: number;
+  /** Methods and sources behind this description (audit trail). */
+  notes: string[];
+}
+
+export class FuelDefinitionError extends Error {
+  constructor(
+    public readonly field: string,
+    message: string,
+  ) {
+    super(`${field}: ${message}`);
+    this.name = "FuelDefinitionError";
+  }
+}
+
+const ZERO = (): ElementMoles => ({ C: 0, H: 0, O: 0, N: 0, S: 0, Ar: 0 });
+
+/** Channiwala & Parikh (2002), Fuel 81, 1051–1063, eq. (HHV, dry basis, mass %): MJ/kg. */
+export function channiwalaParikhHHV_MJ_per_kg(dryMassPercent: { C: number; H: number; O: number; N: number; S: number; ash: number }): number {
+  const { C, H, O, N, S, ash } = dryMassPercent;
+  return 0.3491 * C + 1.1783 * H + 0.1005 * S - 0.1034 * O - 0.0151 * N - 0.0211 * ash;
+}
+
+/** Enthalpy of the complete-combustion products at 298.15 K, water liquid, per kg fuel (J/kg). */
+export function productsFormationEnthalpy_J_per_kg(el: ElementMoles): number {
+  return (
+    el.C * h_J_per_mol(SPECIES.CO2, T298K) +
+    (el.H / 2) * h_J_per_mol(SPECIES["H2O(L)"], T298K) +
+    el.S * h_J_per_mol(SPECIES.SO2, T298K) +
+    (el.N / 2) * h_J_per_mol(SPECIES.N2, T298K) +
+    el.Ar * h_J_per_mol(SPECIES.Ar, T298K)
+  );
+}
+
+/** Stoichiometric O2 for complete combustion (C→CO2, H→H2O, S→SO2), mol per kg. */
+export function stoichiometricO2_mol_per_kg(el: ElementMoles): number {
+  return el.C + el.H / 4 + el.S - el.O / 2;
+}
+
+/** Latent heat of water at 25 °C from the polynomials, J/mol (H2O(g) − H2O(l)). */
+export function waterLatentHeat_J_per_mol(temperatureK: number): number {
+  return h_J_per_mol(SPECIES.H2O, temperatureK) - h_J_per_mol(SPECIES["H2O(L)"], temperatureK);
+}
+
+function speciesOrThrow(key: string, field: string) {
+  const sp = SPECIES[key];
+  if (!sp || sp.phase !== "gas") {
+    throw new FuelDefinitionError(field, `unknown species "${key}" (known: ${gasSpeciesKeys().join(", ")})`);
+  }
+  return sp;
+}
+
+export function gasSpeciesKeys(): string[] {
+  return Object.values(SPECIES)
+    .filter((s) => s.phase === "gas")
+    .map((s) => s.key);
+}
+
+function resolveGas(composition: Record<string, number>, label: string, field: string): ResolvedFuel {
+  const total = Object.values(composition).reduce((a, b) => a + b, 0);
+  const x: Record<string, number> = {};
+  for (const [k, v] of Object.entries(composition)) {
+    speciesOrThrow(k, `${field}.${k}`);
+    if (v > 0) x[k] = v / total; // normalise within the accepted ±0.001
+  }
+  const perMol = ZERO();
+  let M = 0;
+  let hf = 0;
+  for (const [k, xi] of Object.entries(x)) {
+    const sp = SPECIES[k];
+    for (const e of ELEMENTS) perMol[e] += xi * (sp.elements[e] ?? 0);
+    M += xi * molarMass_g_per_mol(sp.elements);
+    hf += xi * h_J_per_mol(sp, T298K);
+  }
+  const molPerKg = 1000 / M;
+  const el = ZERO();
+  for (const e of ELEMENTS) el[e] = perMol[e] * molPerKg;
+  const keys = Object.keys(x);
+  return {
+    kind: "gas",
+    label,
+    elements_mol_per_kg: el,
+    moisture_kg_per_kg: 0,
+    ash_kg_per_kg: 0,
+    gasComposition: x,
+    molarMass_g_per_mol: M,
+    biogenicCarbonShare: 0,
+    formationEnthalpy_J_per_kg: hf * molPerKg,
+    sensibleEnthalpy_J_per_kg: (T) => {
+      let s = 0;
+      for (const k of keys) s += x[k] * sensibleH_J_per_mol(SPECIES[k], T);
+      return s * molPerKg;
+    },
+    heatingValueOrigin: "thermochemistry",
+    h2MoleFraction: x.H2 ?? 0,
+    notes: ["gas by mole fractions; species enthalpies from NASA 7-coefficient polynomials"],
+  };
+}
+
+function resolveLiquidCompound(key: string, field: string): ResolvedFuel {
+  const c = LIQUID_COMPOUNDS[key];
+  if (!c) throw new FuelDefinitionError(field, `unknown liquid compound "${key}" (known: ${Object.keys(LIQUID_COMPOUNDS).join(", ")})`);
+  const M = molarMass_g_per_mol(c.elements);
+  const molPerKg = 1000 / M;
+  const el = ZERO();
+  for (const e of ELEMENTS) el[e] = (c.elements[e] ?? 0) * molPerKg;
+  return {
+    kind: "liquid",
+    label: c.name,
+    elements_mol_per_kg: el,
+    moisture_kg_per_kg: 0,
+    ash_kg_per_kg: 0,
+    molarMass_g_per_mol: M,
+    density_kg_per_m3: c.density15C_kg_per_m3,
+    biogenicCarbonShare: 0,
+    formationEnthalpy_J_per_kg: c.formationEnthalpyLiquid_J_per_mol * molPerKg,
+    sensibleEnthalpy_J_per_kg: (T) => c.cpLiquid_J_per_molK * (T - T298K) * molPerKg,
+    heatingValueOrigin: "thermochemistry",
+    h2MoleFraction: 0,
+    notes: [`liquid ${c.name} (${c.role}): ${c.source}`, "liquid feed sensible heat with cp at 25 °C (small term)"],
+  };
+}
+
+function resolveUltimate(def: Extract<FuelDefinition, { ultimate: unknown }>, label: string): ResolvedFuel {
+  const u = def.ultimate;
+  const W = ATOMIC_WEIGHT_g_per_mol;
+  const Mw = 2 * W.H + W.O;
+  const moistMol = (u.moisture * 1000) / Mw;
+  const el = ZERO();
+  el.C = (u.C * 1000) / W.C;
+  el.H = (u.H * 1000) / W.H + 2 * moistMol;
+  el.O = (u.O * 1000) / W.O + moistMol;
+  el.N = (u.N * 1000) / W.N;
+  el.S = (u.S * 1000) / W.S;
+  const notes: string[] = ["ultimate analysis as received (mass fractions; H and O exclude moisture)"];
+  let hhv_MJ_per_kg: number;
+  let origin: HeatingValueOrigin;
+  const latent_MJ_per_kg = ((el.H / 2) * waterLatentHeat_J_per_mol(T298K)) / 1e6;
+  if (def.hhv_MJ_per_kg !== undefined) {
+    hhv_MJ_per_kg = def.hhv_MJ_per_kg;
+    origin = "measured-hhv";
+    notes.push("measured gross heating value as received at 25 °C");
+  } else if (def.lhv_MJ_per_kg !== undefined) {
+    hhv_MJ_per_kg = def.lhv_MJ_per_kg + latent_MJ_per_kg;
+    origin = "measured-lhv";
+    notes.push("measured net heating value as received at 25 °C; gross = net + latent heat of all product water");
+  } else {
+    const dry = 1 - u.moisture;
+    if (dry <= 0) throw new FuelDefinitionError("ultimate.moisture", "must be < 1 for a correlation");
+    const pct = (v: number) => (100 * v) / dry;
+    hhv_MJ_per_kg = channiwalaParikhHHV_MJ_per_kg({ C: pct(u.C), H: pct(u.H), O: pct(u.O), N: pct(u.N), S: pct(u.S), ash: pct(u.ash) }) * dry;
+    origin = "channiwala-parikh-2002";
+    notes.push("gross heating value by the Channiwala & Parikh (2002) correlation, Fuel 81:1051–1063, on dry basis, scaled to as received");
+  }
+  if (!(hhv_MJ_per_kg > latent_MJ_per_kg)) {
+    throw new FuelDefinitionError(
+      def.hhv_MJ_per_kg !== undefined ? "hhv_MJ_per_kg" : def.lhv_MJ_per_kg !== undefined ? "lhv_MJ_per_kg" : "ultimate",
+      `gross heating value ${hhv_MJ_per_kg.toFixed(2)} MJ/kg leaves no net heating value for this composition`,
+    );
+  }
+  const cp = (def.kind ?? "solid") === "liquid" ? LIQUID_FUEL_CP_J_per_kgK : SOLID_FUEL_CP_J_per_kgK;
+  return {
+    kind: def.kind ?? "solid",
+    label,
+    elements_mol_per_kg: el,
+    moisture_kg_per_kg: u.moisture,
+    ash_kg_per_kg: u.ash,
+    biogenicCarbonShare: 0,
+    // Hess's law: h_fuel = HHV + Σ h_products (at 298.15 K, water liquid); O2 has zero formation enthalpy.
+    formationEnthalpy_J_per_kg: hhv_MJ_per_kg * 1e6 + productsFormationEnthalpy_J_per_kg(el),
+    sensibleEnthalpy_J_per_kg: (T) => cp * (T - T298K),
+    heatingValueOrigin: origin,
+    h2MoleFraction: 0,
+    notes,
+  };
+}
+
+/** Net heating value at 25 °C of a resolved fuel, MJ/kg (for energy-share blending). */
+function lhv25_MJ_per_kg(f: ResolvedFuel): number {
+  const hhv = (f.formationEnthalpy_J_per_kg - productsFormationEnthalpy_J_per_kg(f.elements_mol_per_kg)) / 1e6;
+  return hhv - ((f.elements_mol_per_kg.H / 2) * waterLatentHeat_J_per_mol(T298K)) / 1e6;
+}
+
+function resolveBlend(def: BlendFuelDefinition, label: string, field: string): ResolvedFuel {
+  const parts = def.blend.map((c, i) => ({ f: resolveFuelAt(c.fuel, `${field}.blend.${i}.fuel`), share: c.share }));
+  const kinds = new Set(parts.map((p) => p.f.kind));
+  if (kinds.size !== 1) throw new FuelDefinitionError(`${field}.blend`, "blend components must all be gases, all liquids or all solids");
+  const kind = parts[0].f.kind;
+  // Mass of each component per unit of the basis share.
+  let massPerShare: number[];
+  if (def.basis === "mass") massPerShare = parts.map(() => 1);
+  else if (def.basis === "energy") massPerShare = parts.map((p) => 1 / lhv25_MJ_per_kg(p.f));
+  else {
+    if (kind === "gas") massPerShare = parts.map((p) => p.f.molarMass_g_per_mol! / 1000);
+    else if (kind === "liquid") {
+      massPerShare = parts.map((p, i) => {
+        const rho = p.f.density_kg_per_m3;
+        if (!rho) throw new FuelDefinitionError(`${field}.blend.${i}.fuel.densityKgPerM3`, "a volume blend of liquids needs each component's density");
+        return rho;
+      });
+    } else throw new FuelDefinitionError(`${field}.basis`, "solids blend by mass or energy, not by volume");
+  }
+  const masses = parts.map((p, i) => p.share * massPerShare[i]);
+  const totalMass = masses.reduce((a, b) => a + b, 0);
+  const w = masses.map((m) => m / totalMass);
+  const el = ZERO();
+  let hf = 0, moist = 0, ash = 0, carbon = 0, bioCarbon = 0;
+  parts.forEach((p, i) => {
+    for (const e of ELEMENTS) el[e] += w[i] * p.f.elements_mol_per_kg[e];
+    hf += w[i] * p.f.formationEnthalpy_J_per_kg;
+    moist += w[i] * p.f.moisture_kg_per_kg;
+    ash += w[i] * p.f.ash_kg_per_kg;
+    carbon += w[i] * p.f.elements_mol_per_kg.C;
+    bioCarbon += w[i] * p.f.elements_mol_per_kg.C * p.f.biogenicCarbonShare;
+  });
+  const out: ResolvedFuel = {
+    kind,
+    label,
+    elements_mol_per_kg: el,
+    moisture_kg_per_kg: moist,
+    ash_kg_per_kg: ash,
+    biogenicCarbonShare: carbon > 0 ? bioCarbon / carbon : 0,
+    formationEnthalpy_J_per_kg: hf,
+    sensibleEnthalpy_J_per_kg: (T) => parts.reduce((s, p, i) => s + w[i] * p.f.sensibleEnthalpy_J_per_kg(T), 0),
+    heatingValueOrigin: parts.every((p) => p.f.heatingValueOrigin === "thermochemistry") ? "thermochemistry" : "blend",
+    h2MoleFraction: 0,
+    notes: [`blend by ${def.basis} share of ${parts.length} components; mass fractions ${w.map((v) => v.toFixed(4)).join(" / ")}`],
+  };
+  const upstream = parts.map((p) => p.f.upstreamCo2e_kg_per_GJ);
+  if (upstream.some((u) => u !== undefined)) {
+    const energy = parts.map((p, i) => w[i] * lhv25_MJ_per_kg(p.f));
+    const e = energy.reduce((a, b) => a + b, 0);
+    out.upstreamCo2e_kg_per_GJ = parts.reduce((s, _p, i) => s + (energy[i] / e) * (upstream[i] ?? 0), 0);
+  }
+  if (kind === "gas") {
+    const molesPerKg = parts.map((p, i) => (w[i] * 1000) / p.f.molarMass_g_per_mol!);
+    const nTot = molesPerKg.reduce((a, b) => a + b, 0);
+    const comp: Record<string, number> = {};
+    parts.forEach((p, i) => {
+      for (const [k, xi] of Object.entries(p.f.gasComposition!)) comp[k] = (comp[k] ?? 0) + (xi * molesPerKg[i]) / nTot;
+    });
+    out.gasComposition = comp;
+    out.molarMass_g_per_mol = 1000 / nTot;
+    out.h2MoleFraction = comp.H2 ?? 0;
+  }
+  if (kind === "liquid" && parts.every((p) => p.f.density_kg_per_m3)) {
+    out.density_kg_per_m3 = 1 / parts.reduce((s, p, i) => s + w[i] / p.f.density_kg_per_m3!, 0);
+  }
+  return out;
+}
+
+function resolveFuelAt(def: FuelDefinition, field: string): ResolvedFuel {
+  const label = def.name ?? "";
+  let f: ResolvedFuel;
+  if ("composition" in def) f = resolveGas(def.composition, label || describeComposition(def.composition), `${field}.composition`);
+  else if ("compound" in def) {
+    if (def.phase === "liquid") f = resolveLiquidCompound(def.compound, `${field}.compound`);
+    else f = resolveGas({ [def.compound]: 1 }, label || def.compound, `${field}.compound`);
+    if (label) f.label = label;
+  } else if ("ultimate" in def) f = resolveUltimate(def, label || `${def.kind ?? "solid"} fuel by ultimate analysis`);
+  else f = resolveBlend(def, label || "blend", field);
+  if (def.biogenicCarbonShare !== undefined) f.biogenicCarbonShare = def.biogenicCarbonShare;
+  if (def.upstreamCo2e_kg_per_GJ !== undefined) f.upstreamCo2e_kg_per_GJ = def.upstreamCo2e_kg_per_GJ;
+  if (def.densityKgPerM3 !== undefined) f.density_kg_per_m3 = def.densityKgPerM3;
+  return f;
+}
+
+function describeComposition(c: Record<string, number>): string {
+  return Object.entries(c)
+    .filter(([, v]) => v > 0)
+    .sort((a, b) => b[1] - a[1])
+    .map(([k, v]) => `${k} ${(100 * v).toFixed(v < 0.1 ? 1 : 0)}%`)
+    .join(" / ");
+}
+
+/** Resolves a (validated) fuel definition. Throws FuelDefinitionError naming the field. */
+export function resolveFuel(def: FuelDefinition, field = "fuel"): ResolvedFuel {
+  return resolveFuelAt(def, field);
+}
