@@ -294,7 +294,13 @@ function resolveFuelAt(def: FuelDefinition, field: string): ResolvedFuel {
   if ("composition" in def) f = resolveGas(def.composition, label || describeComposition(def.composition), `${field}.composition`);
   else if ("compound" in def) {
     if (def.phase === "liquid") f = resolveLiquidCompound(def.compound, `${field}.compound`);
-    else f = resolveGas({ [def.compound]: 1 }, label || def.compound, `${field}.compound`);
+    else {
+      if (SPECIES[def.compound]?.phase !== "gas") {
+        const hint = LIQUID_COMPOUNDS[def.compound] ? ` — ${def.compound} is known as a liquid: set phase "liquid"` : ` (known gases: ${gasSpeciesKeys().join(", ")})`;
+        throw new FuelDefinitionError(`${field}.compound`, `unknown species "${def.compound}"${hint}`);
+      }
+      f = resolveGas({ [def.compound]: 1 }, label || def.compound, `${field}.compound`);
+    }
     if (label) f.label = label;
   } else if ("ultimate" in def) f = resolveUltimate(def, label || `${def.kind ?? "solid"} fuel by ultimate analysis`);
   else f = resolveBlend(def, label || "blend", field);

@@ -150,7 +150,7 @@ export const fuelDefinitionSchema: z.ZodType<FuelDefinition> = z.lazy(() =>
 
 /** Oxidiser by mole fractions (O2, N2, Ar, CO2, H2O). */
 export const oxidizerSchema = z
-  .record(z.enum(["O2", "N2", "Ar", "CO2", "H2O"], { error: "oxidiser species must be one of O2, N2, Ar, CO2, H2O" }), fraction)
+  .partialRecord(z.enum(["O2", "N2", "Ar", "CO2", "H2O"], { error: "oxidiser species must be one of O2, N2, Ar, CO2, H2O" }), fraction)
   .refine((c) => (c.O2 ?? 0) > 0, { message: "the oxidiser needs O2 > 0" })
   .refine((c) => sumsToOne(Object.values(c)), {
     error: (iss) => `oxidiser mole fractions must sum to 1 (±${FRACTION_SUM_TOLERANCE}); they sum to ${sumText(Object.values(iss.input as Record<string, number>))}`,

@@ -1,0 +1,5 @@
+export interface BenchResult {
+  name: string;
+  unit: string;
+  samples: number[];
+}
