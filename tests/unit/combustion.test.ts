@@ -315,3 +315,16 @@ describe("methane dry flue O2 by hand (textbook mass balance, Turns ch. 2)", () 
     }
   });
 });
+
+import { cautionsFor } from "../../lib/fuels/cautions";
+describe("safety cautions follow the fuel's content (brief, Cautions)", () => {
+  const hazards = (d: FuelDefinition) => cautionsFor(d).map((c) => c.hazard);
+  it("hydrogen blends, biogas, ammonia, methanol, LPG each carry their caution; every fuel the burner-change caution", () => {
+    expect(hazards({ blend: [{ fuel: { compound: "CH4" }, share: 0.8 }, { fuel: { compound: "H2" }, share: 0.2 }], basis: "volume" })).toContain("hydrogen");
+    expect(hazards({ composition: { CH4: 0.6, CO2: 0.4 } })).toContain("biogas");
+    expect(hazards({ compound: "NH3" })).toContain("ammonia");
+    expect(hazards({ compound: "CH3OH", phase: "liquid" })).toContain("methanol");
+    expect(hazards({ composition: { C3H8: 0.95, nC4H10: 0.05 } })).toContain("lpg");
+    expect(hazards({ compound: "CH4" })).toEqual(["burner-change"]);
+  });
+});
