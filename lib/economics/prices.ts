@@ -20,6 +20,8 @@ import {
   type MassUnit,
   type VolumeUnit,
 } from "../units/energy";
+import type { ResolvedFuel } from "../fuels/resolve";
+import { realDensity_kg_per_m3 } from "../combustion/iso6976";
 
 export const PRICE_UNITS = ["MWh", "GJ", "kWh", "MMBtu", "therm", "t", "kg", "L", "USgal", "m3"] as const;
 export type PriceUnit = (typeof PRICE_UNITS)[number];
@@ -196,4 +198,27 @@ export function priceUnitLabel(terms: Pick<PriceQuoteTerms, "unit" | "energyBasi
     s += terms.meteringReferenceC === 15.56 ? " at 60 °F" : ` at ${terms.meteringReferenceC} °C`;
   }
   return s;
+}
+
+/**
+ * The energy content of a resolved fuel for pricing: heating values (at the combustion
+ * reference they were computed at) and its density — liquids at 15 °C, solids bulk (when
+ * given), gases real-gas at each metering reference (ISO 6976:2016 compression factor).
+ */
+export function energyContentOf(
+  fuel: ResolvedFuel,
+  hv: { hhv_MJ_per_kg: number; lhv_MJ_per_kg: number },
+): FuelEnergyContent {
+  const content: FuelEnergyContent = {
+    kind: fuel.kind,
+    hhv_MJ_per_kg: hv.hhv_MJ_per_kg,
+    lhv_MJ_per_kg: hv.lhv_MJ_per_kg,
+    density_kg_per_m3: fuel.kind === "gas" ? null : (fuel.density_kg_per_m3 ?? null),
+  };
+  if (fuel.kind === "gas" && fuel.gasComposition && fuel.molarMass_g_per_mol) {
+    const composition = fuel.gasComposition;
+    const M = fuel.molarMass_g_per_mol;
+    content.gasDensity_kg_per_m3 = (meteringReferenceC) => realDensity_kg_per_m3(composition, M, meteringReferenceC);
+  }
+  return content;
 }

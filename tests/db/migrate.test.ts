@@ -1,0 +1,77 @@
+import fs from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import Database from "better-sqlite3";
+import { afterAll, describe, expect, it } from "vitest";
+import { migrateSqlite, readMigrations, sha256Hex } from "../../lib/db/migrate";
+import { databaseTarget } from "../../lib/db/paths";
+import { createClient } from "../../lib/db/client";
+
+const dirs: string[] = [];
+function tmp(): string {
+  const d = fs.mkdtempSync(path.join(os.tmpdir(), "stoke-mig-"));
+  dirs.push(d);
+  return d;
+}
+afterAll(() => dirs.forEach((d) => fs.rmSync(d, { recursive: true, force: true })));
+
+describe("migration runner", () => {
+  it("creates the file and its folder, applies every migration once, records it as Prisma does", () => {
+    const file = path.join(tmp(), "nested", "a.db");
+    const first = migrateSqlite({ databaseUrl: `file:${file}` });
+    const all = readMigrations().map((m) => m.name);
+    expect(all.length).toBeGreaterThan(0);
+    expect(first.applied).toEqual(all);
+    const second = migrateSqlite({ databaseUrl: `file:${file}` });
+    expect(second.applied).toEqual([]);
+    expect(second.alreadyApplied).toEqual(all);
+
+    const db = new Database(file, { readonly: true });
+    const rows = db.prepare(`SELECT * FROM "_prisma_migrations" ORDER BY migration_name`).all() as Record<string, unknown>[];
+    db.close();
+    expect(rows.map((r) => r.migration_name)).toEqual(all);
+    for (const r of rows) {
+      const sql = fs.readFileSync(path.join("prisma", "migrations", String(r.migration_name), "migration.sql"), "utf8");
+      // Prisma's checksum is the SHA-256 of the migration file, hex (common practice of its migrate engine).
+      expect(r.checksum).toBe(sha256Hex(sql));
+      expect(r.finished_at).toMatch(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}\.\d{3}\+00:00$/);
+      expect(r.applied_steps_count).toBe(1);
+      expect(r.rolled_back_at).toBeNull();
+    }
+  });
+
+  it("refuses a migration that was edited after it was applied", () => {
+    const dir = tmp();
+    const migDir = path.join(dir, "migrations");
+    fs.cpSync(path.join("prisma", "migrations"), migDir, { recursive: true });
+    const url = `file:${path.join(dir, "b.db")}`;
+    migrateSqlite({ databaseUrl: url, migrationsDir: migDir });
+    const first = readMigrations(migDir)[0];
+    fs.appendFileSync(path.join(migDir, first.name, "migration.sql"), "\n-- edited\n");
+    expect(() => migrateSqlite({ databaseUrl: url, migrationsDir: migDir })).toThrow(/modified after it was applied/);
+  });
+
+  it("rolls back a failing migration and records nothing for it", () => {
+    const dir = tmp();
+    const migDir = path.join(dir, "migrations");
+    fs.cpSync(path.join("prisma", "migrations"), migDir, { recursive: true });
+    fs.mkdirSync(path.join(migDir, "99990101000000_broken"));
+    fs.writeFileSync(path.join(migDir, "99990101000000_broken", "migration.sql"), 'CREATE TABLE "X" (id INTEGER);\nTHIS IS NOT SQL;\n');
+    const file = path.join(dir, "c.db");
+    expect(() => migrateSqlite({ databaseUrl: `file:${file}`, migrationsDir: migDir })).toThrow(/99990101000000_broken failed/);
+    const db = new Database(file, { readonly: true });
+    const names = (db.prepare(`SELECT migration_name FROM "_prisma_migrations"`).all() as { migration_name: string }[]).map((r) => r.migration_name);
+    const x = db.prepare(`SELECT name FROM sqlite_master WHERE name = 'X'`).get();
+    db.close();
+    expect(names).not.toContain("99990101000000_broken");
+    expect(x).toBeUndefined();
+  });
+
+  it("reads DATABASE_URL forms", () => {
+    expect(databaseTarget("file:./data/x.db")).toMatchObject({ provider: "sqlite", file: path.resolve("data/x.db") });
+    expect(databaseTarget("postgresql://u@h/db").provider).toBe("postgresql");
+    expect(databaseTarget("")).toMatchObject({ provider: "sqlite", file: path.resolve("data/stoke.db") });
+    expect(() => databaseTarget("mysql://x")).toThrow(/neither/);
+    expect(() => createClient("postgresql://u@h/db")).toThrow(/PostgreSQL/);
+  });
+});

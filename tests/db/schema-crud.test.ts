@@ -1,0 +1,133 @@
+/**
+ * The committed migrations must produce the schema that schema.prisma describes: every model
+ * is created, read, updated and deleted through the generated client on a freshly migrated
+ * file, with every column written and read back, and the relations' delete rules checked.
+ */
+import { afterAll, describe, expect, it } from "vitest";
+import { tempDb } from "./temp-db";
+
+const t = tempDb();
+afterAll(() => t.cleanup());
+const db = t.client;
+
+describe("schema matches the migrations", () => {
+  it("Fuel, BlendComponent, PriceQuote", async () => {
+    const a = await db.fuel.create({
+      data: {
+        name: "A",
+        kind: "gas",
+        definition: '{"composition":{"CH4":1}}',
+        densityKgPerM3: null,
+        biogenicCarbonShare: 0.25,
+        upstreamCo2e_kg_per_GJ: 7.5,
+        notes: "n",
+        source: "s",
+        isDemo: true,
+      },
+    });
+    expect(a).toMatchObject({ name: "A", biogenicCarbonShare: 0.25, upstreamCo2e_kg_per_GJ: 7.5, isDemo: true });
+    expect(a.createdAt).toBeInstanceOf(Date);
+    const b = await db.fuel.create({ data: { name: "B", kind: "liquid", definition: "{}", densityKgPerM3: 845.5 } });
+    expect(b.densityKgPerM3).toBe(845.5);
+    expect(b.biogenicCarbonShare).toBe(0);
+    const blend = await db.fuel.create({ data: { name: "AB", kind: "gas", definition: "{}" } });
+    await db.blendComponent.create({ data: { blendFuelId: blend.id, componentFuelId: a.id, share: 0.7, basis: "volume", position: 0 } });
+    const q = await db.priceQuote.create({
+      data: {
+        fuelId: a.id,
+        amount: 38.5,
+        currency: "EUR",
+        unit: "m3",
+        energyBasis: null,
+        meteringReference: "15C",
+        transportAdder: 1.25,
+        handlingAdder: 0.5,
+        validFrom: new Date("2025-03-01T00:00:00Z"),
+        sourceNote: "x",
+        isInvented: true,
+      },
+    });
+    const q2 = await db.priceQuote.findUniqueOrThrow({ where: { id: q.id } });
+    expect(q2.validFrom.toISOString()).toBe("2025-03-01T00:00:00.000Z");
+    expect(q2).toMatchObject({ meteringReference: "15C", transportAdder: 1.25, handlingAdder: 0.5, isInvented: true });
+    await db.priceQuote.update({ where: { id: q.id }, data: { energyBasis: "gross", meteringReference: null } });
+    expect((await db.priceQuote.findUniqueOrThrow({ where: { id: q.id } })).energyBasis).toBe("gross");
+
+    // Unique name.
+    await expect(db.fuel.create({ data: { name: "A", kind: "gas", definition: "{}" } })).rejects.toThrow();
+    // A component cannot be deleted while a blend uses it (Restrict) ...
+    await expect(db.fuel.delete({ where: { id: a.id } })).rejects.toThrow();
+    // ... deleting the blend deletes its component rows (Cascade).
+    await db.fuel.delete({ where: { id: blend.id } });
+    expect(await db.blendComponent.count()).toBe(0);
+    // Deleting a fuel deletes its quotes (Cascade).
+    await db.fuel.delete({ where: { id: a.id } });
+    expect(await db.priceQuote.count()).toBe(0);
+    await db.fuel.update({ where: { id: b.id }, data: { notes: "updated" } });
+    expect((await db.fuel.findUniqueOrThrow({ where: { id: b.id } })).notes).toBe("updated");
+  });
+
+  it("Plant, Study, Scenario", async () => {
+    const fuel = await db.fuel.create({ data: { name: "NG", kind: "gas", definition: "{}" } });
+    const quote = await db.priceQuote.create({ data: { fuelId: fuel.id, amount: 1, currency: "EUR", unit: "MWh", energyBasis: "gross", validFrom: new Date() } });
+    const plant = await db.plant.create({
+      data: {
+        name: "P",
+        site: "S",
+        equipmentType: "steam-boiler",
+        ratedInput_kW: 1000,
+        ratedInputBasis: "gross",
+        annualUsefulHeat_MWh: 5000,
+        operatingHours: 8000,
+        averageLoadFraction: 0.6,
+        baselineFuelId: fuel.id,
+        stackTemperatureC: 150,
+        flueO2DryPercent: 3,
+        combustionAirC: 20,
+        radiationLossPercent: 1,
+        condensing: true,
+        returnWaterC: 40,
+        ambientAirTemperatureC: 10,
+        ambientAirRelativeHumidityPercent: 70,
+        wobbeTolerancePercent: null,
+        wobbeMin_MJ_per_m3: 47.2,
+        wobbeMax_MJ_per_m3: 51.41,
+        wobbeMeteringReference: "15C",
+        wobbeCombustionReferenceC: 15,
+        maxFlameTempRiseK: 50,
+        flueGasCapacity_m3_per_h: 2000,
+        flueGasCapacityBasis: "normal",
+        airCapacity_m3_per_h: 1800,
+        airCapacityBasis: "actual",
+        fuelSupplyCapacity_m3_per_h: 120,
+        fuelSupplyMeteringReference: "0C",
+        maxH2SharePercent: 20,
+        warnAtFractionOfLimit: 0.85,
+        dewPointMarginK: 15,
+        notes: "n",
+        isDemo: false,
+      },
+    });
+    const readPlant = await db.plant.findUniqueOrThrow({ where: { id: plant.id } });
+    expect(readPlant).toMatchObject({ wobbeMin_MJ_per_m3: 47.2, condensing: true, returnWaterC: 40, warnAtFractionOfLimit: 0.85, flueGasCapacityBasis: "normal" });
+    const study = await db.study.create({
+      data: { plantId: plant.id, name: "S1", carbonPrice_per_t: 80, currency: "EUR", discountRatePercent: 8, horizonYears: 15, priceEscalationPercent: 2, rankingMetric: "npv", notes: "" },
+    });
+    const sc = await db.scenario.create({
+      data: { studyId: study.id, name: "base", fuelId: fuel.id, priceQuoteId: quote.id, capex: 1e5, fixedOpexChange: -500, overrides: '{"stackTemperatureC":120}', isBaseline: true, position: 0 },
+    });
+    expect(JSON.parse((await db.scenario.findUniqueOrThrow({ where: { id: sc.id } })).overrides)).toEqual({ stackTemperatureC: 120 });
+    await expect(db.scenario.create({ data: { studyId: study.id, name: "base", fuelId: fuel.id } })).rejects.toThrow();
+    // A fuel used by a scenario cannot be deleted (Restrict).
+    await expect(db.fuel.delete({ where: { id: fuel.id } })).rejects.toThrow();
+    // Deleting a quote leaves the scenario without one (SetNull).
+    await db.priceQuote.delete({ where: { id: quote.id } });
+    expect((await db.scenario.findUniqueOrThrow({ where: { id: sc.id } })).priceQuoteId).toBeNull();
+    await db.study.update({ where: { id: study.id }, data: { rankingMetric: "co2-per-useful-MJ" } });
+    // Deleting the plant deletes its studies and their scenarios (Cascade).
+    await db.plant.delete({ where: { id: plant.id } });
+    expect(await db.study.count()).toBe(0);
+    expect(await db.scenario.count()).toBe(0);
+    await db.fuel.delete({ where: { id: fuel.id } });
+  });
+});
