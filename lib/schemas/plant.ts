@@ -139,9 +139,15 @@ export const plantSchema = z
 export type PlantInput = z.input<typeof plantSchema>;
 export type Plant = z.output<typeof plantSchema>;
 
-/** Per-scenario operating-point overrides (any subset). */
+/**
+ * Per-scenario overrides (any subset): the operating point, and the burner-related limits a
+ * scenario changes (e.g. a new burner rated for more hydrogen).
+ */
 export const operatingOverridesSchema = z
   .object({
+    maxH2SharePercent: plantLimitsShape.maxH2SharePercent,
+    maxFlameTempRiseK: plantLimitsShape.maxFlameTempRiseK,
+    wobbeTolerancePercent: plantLimitsShape.wobbeTolerancePercent,
     stackTemperatureC: operatingPointShape.stackTemperatureC.optional(),
     flueO2DryPercent: operatingPointShape.flueO2DryPercent.optional(),
     combustionAirC: operatingPointShape.combustionAirC.optional(),
@@ -161,6 +167,15 @@ export interface OperatingPoint {
   condensing: boolean;
   returnWaterC: number | null;
   ambientAir: { temperatureC: number; relativeHumidityPercent: number };
+}
+
+/** The plant's limits as a scenario sees them: the plant's, with the scenario's limit overrides applied. */
+export function plantWithOverrides(plant: Plant, overrides: OperatingOverrides = {}): Plant {
+  const out: Plant = { ...plant };
+  if (overrides.maxH2SharePercent !== undefined) out.maxH2SharePercent = overrides.maxH2SharePercent;
+  if (overrides.maxFlameTempRiseK !== undefined) out.maxFlameTempRiseK = overrides.maxFlameTempRiseK;
+  if (overrides.wobbeTolerancePercent !== undefined) out.wobbeTolerancePercent = overrides.wobbeTolerancePercent;
+  return out;
 }
 
 export function operatingPointOf(plant: Plant, overrides: OperatingOverrides = {}): OperatingPoint {

@@ -1,0 +1,270 @@
+/**
+ * Fit checks of a candidate fuel against the plant's limits, each pass / warn / fail with the
+ * number, the limit and a sentence. A check whose limit is not entered is "not-checked" (the
+ * number is still shown); one that does not apply to the fuel is "not-applicable".
+ *
+ * Warning rule (one for all checks): a value warns once it uses at least
+ * `plant.warnAtFractionOfLimit` of its allowance (0.9 = within 10 % of the limit).
+ */
+import { METERING_REFERENCE_C, type Plant } from "../schemas/plant";
+import type { FuelContext } from "./fuel-context";
+import type { FuelPerformance } from "./performance";
+import type { RatedFlows } from "./duty";
+
+export const CHECK_STATUSES = ["pass", "warn", "fail", "not-checked", "not-applicable"] as const;
+export type CheckStatus = (typeof CHECK_STATUSES)[number];
+
+export const FIT_CHECK_IDS = [
+  "wobbe-band",
+  "wobbe-range",
+  "flame-temperature-rise",
+  "flue-gas-fan",
+  "combustion-air-fan",
+  "fuel-supply",
+  "stack-dew-point",
+  "hydrogen-share",
+] as const;
+export type FitCheckId = (typeof FIT_CHECK_IDS)[number];
+
+export const FIT_CHECK_LABELS: Record<FitCheckId, string> = {
+  "wobbe-band": "Wobbe index within ± band of baseline",
+  "wobbe-range": "Wobbe index within absolute range",
+  "flame-temperature-rise": "Flame-temperature rise over baseline (equilibrium)",
+  "flue-gas-fan": "Flue-gas volume vs fan capacity",
+  "combustion-air-fan": "Combustion air vs fan capacity",
+  "fuel-supply": "Fuel volume flow vs supply capacity",
+  "stack-dew-point": "Stack temperature vs water dew point",
+  "hydrogen-share": "Hydrogen share vs burner maker's limit",
+};
+
+export interface FitCheck {
+  id: FitCheckId;
+  label: string;
+  status: CheckStatus;
+  /** The checked number (null if it cannot be computed for this fuel). */
+  value: number | null;
+  /** The limit it is checked against (for two-sided limits, the bound nearest to the value). */
+  limit: number | null;
+  unit: string;
+  /** Share of the allowance used (1 = at the limit), where meaningful. */
+  usage: number | null;
+  message: string;
+  /** Basis / reference conditions of the numbers. */
+  basis: string;
+}
+
+export interface FuelInPlant {
+  ctx: FuelContext;
+  perf: FuelPerformance;
+  /** Flows at rated useful duty. */
+  flows: RatedFlows;
+}
+
+const SEVERITY: Record<CheckStatus, number> = { "not-applicable": 0, "not-checked": 0, pass: 1, warn: 2, fail: 3 };
+
+/** The worst of several statuses (fail > warn > pass > not-checked/not-applicable). */
+export function worstStatus(statuses: readonly CheckStatus[]): CheckStatus {
+  let worst: CheckStatus = "not-checked";
+  for (const s of statuses) if (SEVERITY[s] > SEVERITY[worst]) worst = s;
+  return worst;
+}
+
+/** Relative tolerance for "at the limit": a blend of exactly 20 vol % meets a 20 vol % limit despite rounding. */
+const AT_LIMIT_TOLERANCE = 1e-9;
+
+/** Status of a one-sided "at most" limit. */
+function atMost(value: number, limit: number, warnAt: number): { status: CheckStatus; usage: number } {
+  const usage = limit > 0 ? value / limit : value > AT_LIMIT_TOLERANCE ? Infinity : 0;
+  return { status: value > limit + AT_LIMIT_TOLERANCE * Math.max(1, Math.abs(limit)) ? "fail" : usage >= warnAt - AT_LIMIT_TOLERANCE ? "warn" : "pass", usage };
+}
+
+const fmt = (v: number, d = 1) => (Number.isFinite(v) ? v.toFixed(d) : String(v));
+const refLabel = (c: number) => (c === 15.56 ? "60 °F" : `${c} °C`);
+
+export interface FitCheckOptions {
+  /** Build the message sentences (default true); sweeps that need only statuses and numbers skip them. */
+  messages?: boolean;
+}
+
+export function fitChecks(plant: Plant, baseline: FuelInPlant, cand: FuelInPlant, options: FitCheckOptions = {}): FitCheck[] {
+  const warnAt = plant.warnAtFractionOfLimit;
+  const withText = options.messages !== false;
+  const out: FitCheck[] = [];
+  // Sentences are only built when wanted (sweeps evaluate thousands of checks).
+  const T = withText;
+  const push = (c: Omit<FitCheck, "label">) => out.push({ ...c, label: FIT_CHECK_LABELS[c.id] });
+
+  // --- Wobbe index -------------------------------------------------------------------------
+  const tc = plant.wobbeCombustionReferenceC;
+  const tm = METERING_REFERENCE_C[plant.wobbeMeteringReference];
+  const wBasis = !T ? "" : `gross Wobbe index, combustion ${tc} °C, metering ${refLabel(tm)}, 101.325 kPa (ISO 6976:2016, real gas)`;
+  const w = cand.ctx.wobbe(tc, tm);
+  const wb = baseline.ctx.wobbe(tc, tm);
+  {
+    const tol = plant.wobbeTolerancePercent ?? null;
+    if (!w || !wb) {
+      push({
+        id: "wobbe-band", status: "not-applicable", value: null, limit: tol, unit: "%", usage: null, basis: wBasis,
+        message: !w ? "not a gaseous fuel: the Wobbe index does not apply" : "the baseline is not a gas: no Wobbe band to compare with",
+      });
+    } else {
+      const shift = (100 * (w.gross_MJ_per_m3 - wb.gross_MJ_per_m3)) / wb.gross_MJ_per_m3;
+      if (tol === null) {
+        push({ id: "wobbe-band", status: "not-checked", value: shift, limit: null, unit: "%", usage: null, basis: wBasis, message: T ? `Wobbe shift ${fmt(shift, 2)} % versus baseline; no ± band entered for this plant` : "" });
+      } else {
+        const r = atMost(Math.abs(shift), tol, warnAt);
+        push({
+          id: "wobbe-band", status: r.status, value: shift, limit: shift < 0 ? -tol : tol, unit: "%", usage: r.usage, basis: wBasis,
+          message: T ? `Wobbe ${fmt(w.gross_MJ_per_m3, 2)} MJ/m³, ${fmt(shift, 2)} % versus baseline ${fmt(wb.gross_MJ_per_m3, 2)} MJ/m³; band ±${fmt(tol, 1)} %` : "",
+        });
+      }
+    }
+  }
+  {
+    const lo = plant.wobbeMin_MJ_per_m3 ?? null;
+    const hi = plant.wobbeMax_MJ_per_m3 ?? null;
+    if (!w) {
+      push({ id: "wobbe-range", status: "not-applicable", value: null, limit: null, unit: "MJ/m³", usage: null, basis: wBasis, message: "not a gaseous fuel: the Wobbe index does not apply" });
+    } else if (lo === null || hi === null) {
+      push({ id: "wobbe-range", status: "not-checked", value: w.gross_MJ_per_m3, limit: null, unit: "MJ/m³", usage: null, basis: wBasis, message: T ? `Wobbe ${fmt(w.gross_MJ_per_m3, 2)} MJ/m³; no absolute range entered` : "" });
+    } else {
+      const v = w.gross_MJ_per_m3;
+      const mid = (lo + hi) / 2;
+      const half = (hi - lo) / 2;
+      const usage = Math.abs(v - mid) / half;
+      const status: CheckStatus = usage > 1 + AT_LIMIT_TOLERANCE ? "fail" : usage >= warnAt - AT_LIMIT_TOLERANCE ? "warn" : "pass";
+      push({
+        id: "wobbe-range", status, value: v, limit: v < mid ? lo : hi, unit: "MJ/m³", usage, basis: wBasis,
+        message: T ? `Wobbe ${fmt(v, 2)} MJ/m³; range ${fmt(lo, 2)}–${fmt(hi, 2)} MJ/m³` : "",
+      });
+    }
+  }
+
+  // --- Flame temperature -------------------------------------------------------------------
+  {
+    const rise = cand.perf.flame.temperatureK - baseline.perf.flame.temperatureK;
+    const lim = plant.maxFlameTempRiseK ?? null;
+    const op = cand.perf.operatingPoint;
+    const basis = !T ? "" : `adiabatic flame temperature, chemical equilibrium (NASA RP-1311 method), at ${fmt(op.flueO2DryPercent, 1)} % O2 dry and ${op.combustionAirC} °C combustion air, fuel at 25 °C, 101.325 kPa`;
+    const text = !T ? "" : `flame ${fmt(cand.perf.flame.temperatureC, 0)} °C, ${rise >= 0 ? "+" : ""}${fmt(rise, 0)} K versus baseline ${fmt(baseline.perf.flame.temperatureC, 0)} °C`;
+    if (lim === null) push({ id: "flame-temperature-rise", status: "not-checked", value: rise, limit: null, unit: "K", usage: null, basis, message: T ? `${text}; no maximum rise entered` : "" });
+    else {
+      const r = rise <= 0 ? { status: "pass" as CheckStatus, usage: 0 } : atMost(rise, lim, warnAt);
+      push({ id: "flame-temperature-rise", status: r.status, value: rise, limit: lim, unit: "K", usage: r.usage, basis, message: T ? `${text}; maximum rise ${fmt(lim, 0)} K` : "" });
+    }
+  }
+
+  // --- Fans --------------------------------------------------------------------------------
+  const fan = (
+    id: "flue-gas-fan" | "combustion-air-fan",
+    capacity: number | null | undefined,
+    basisKey: "actual" | "normal",
+    normal: number,
+    actual: number,
+    baseNormal: number,
+    what: string,
+    tempC: number,
+  ) => {
+    const v = basisKey === "actual" ? actual : normal;
+    const change = (100 * (normal - baseNormal)) / baseNormal;
+    const basis = !T ? "" : (basisKey === "actual" ? `m³/h actual at ${tempC} °C, 101.325 kPa (ideal gas)` : "m³/h at 0 °C, 101.325 kPa (ideal gas)");
+    const text = !T ? "" : `${what} ${fmt(v, 0)} m³/h at rated duty (${change >= 0 ? "+" : ""}${fmt(change, 1)} % versus baseline)`;
+    if (capacity === null || capacity === undefined) {
+      push({ id, status: "not-checked", value: v, limit: null, unit: "m³/h", usage: null, basis, message: T ? `${text}; no fan capacity entered` : "" });
+    } else {
+      const r = atMost(v, capacity, warnAt);
+      push({ id, status: r.status, value: v, limit: capacity, unit: "m³/h", usage: r.usage, basis, message: T ? `${text}; fan capacity ${fmt(capacity, 0)} m³/h` : "" });
+    }
+  };
+  fan(
+    "flue-gas-fan", plant.flueGasCapacity_m3_per_h, plant.flueGasCapacityBasis,
+    cand.flows.flueGas_m3_per_h_normal, cand.flows.flueGas_m3_per_h_actual, baseline.flows.flueGas_m3_per_h_normal,
+    "wet flue gas", cand.perf.operatingPoint.stackTemperatureC,
+  );
+  fan(
+    "combustion-air-fan", plant.airCapacity_m3_per_h, plant.airCapacityBasis,
+    cand.flows.air_m3_per_h_normal, cand.flows.air_m3_per_h_actual, baseline.flows.air_m3_per_h_normal,
+    "combustion air", cand.perf.operatingPoint.combustionAirC,
+  );
+
+  // --- Fuel supply -------------------------------------------------------------------------
+  {
+    const cap = plant.fuelSupplyCapacity_m3_per_h ?? null;
+    const v = cand.flows.fuelVolume_per_h;
+    const bv = baseline.flows.fuelVolume_per_h;
+    const candKind = cand.ctx.fuel.kind;
+    const baseKind = baseline.ctx.fuel.kind;
+    if (candKind !== baseKind) {
+      push({
+        id: "fuel-supply", status: "warn", value: v?.value ?? null, limit: null, unit: "m³/h", usage: null, basis: v?.basis ?? "fuel mass flow",
+        message: T ? `a ${candKind} fuel in a plant fed with a ${baseKind}: it needs its own fuel train, storage and burner; the supply capacity does not apply` : "",
+      });
+    } else if (!v) {
+      push({ id: "fuel-supply", status: "not-applicable", value: null, limit: cap, unit: "m³/h", usage: null, basis: "fuel mass flow", message: T ? `fuel ${fmt(cand.flows.fuel_kg_per_h, 0)} kg/h; no volume for this fuel` : "" });
+    } else {
+      const change = bv ? (100 * (v.value - bv.value)) / bv.value : null;
+      const text = !T ? "" : `fuel ${fmt(v.value, 1)} m³/h at rated duty${change === null ? "" : ` (${change >= 0 ? "+" : ""}${fmt(change, 1)} % versus baseline)`}`;
+      if (cap === null) push({ id: "fuel-supply", status: "not-checked", value: v.value, limit: null, unit: "m³/h", usage: null, basis: v.basis, message: T ? `${text}; no supply capacity entered` : "" });
+      else {
+        const r = atMost(v.value, cap, warnAt);
+        push({ id: "fuel-supply", status: r.status, value: v.value, limit: cap, unit: "m³/h", usage: r.usage, basis: v.basis, message: T ? `${text}; supply capacity ${fmt(cap, 1)} m³/h` : "" });
+      }
+    }
+  }
+
+  // --- Stack vs dew point --------------------------------------------------------------------
+  {
+    const eff = cand.perf.efficiency;
+    const op = cand.perf.operatingPoint;
+    const dew = eff.dewPointC;
+    const sulfur = cand.ctx.fuel.elements_mol_per_kg.S > 0;
+    const acid = sulfur ? "; the fuel contains sulfur, so the acid dew point lies well above the water dew point — ask the equipment maker" : "";
+    const basis = "water dew point of the wet flue gas from its water partial pressure (IAPWS-IF97 saturation), 101.325 kPa";
+    if (dew === null) {
+      push({ id: "stack-dew-point", status: "pass", value: null, limit: null, unit: "K", usage: null, basis, message: "the flue gas holds too little water to condense above 0 °C" });
+    } else if (op.condensing) {
+      const margin = op.stackTemperatureC - dew;
+      if (eff.condensed_mol_per_kg > 0) {
+        push({
+          id: "stack-dew-point", status: sulfur ? "warn" : "pass", value: margin, limit: 0, unit: "K", usage: null, basis,
+          message: T ? `condensing unit: dew point ${fmt(dew, 1)} °C, ${fmt(100 * eff.condensedFraction, 0)} % of the flue water condenses (${fmt(eff.condensingTemperatureC ?? 0, 1)} °C condensing surface); condensate drain and neutralisation needed${acid}` : "",
+        });
+      } else {
+        push({
+          id: "stack-dew-point", status: "warn", value: margin, limit: 0, unit: "K", usage: null, basis,
+          message: T ? `condensing unit, but the return water is too warm: dew point ${fmt(dew, 1)} °C is below the condensing surface, so no condensate heat is recovered` : "",
+        });
+      }
+    } else {
+      const margin = op.stackTemperatureC - dew;
+      const need = plant.dewPointMarginK;
+      const status: CheckStatus = margin < 0 ? "fail" : margin < need ? "warn" : "pass";
+      push({
+        id: "stack-dew-point", status, value: margin, limit: need, unit: "K", usage: need > 0 ? Math.max(0, (need - margin) / need) : null, basis,
+        message: !T
+          ? ""
+          : margin < 0
+            ? `stack ${fmt(op.stackTemperatureC, 0)} °C is below the dew point ${fmt(dew, 1)} °C: condensate in a non-condensing unit (corrosion)${acid}`
+            : `stack ${fmt(op.stackTemperatureC, 0)} °C is ${fmt(margin, 1)} K above the dew point ${fmt(dew, 1)} °C (margin wanted ${fmt(need, 0)} K)${acid}`,
+      });
+    }
+  }
+
+  // --- Hydrogen share ----------------------------------------------------------------------
+  {
+    const h2 = cand.ctx.h2SharePercent;
+    const lim = plant.maxH2SharePercent ?? null;
+    const basis = "mole (= volume, ideal gas) % of hydrogen in the fuel gas";
+    if (cand.ctx.fuel.kind !== "gas") {
+      push({ id: "hydrogen-share", status: "not-applicable", value: 0, limit: lim, unit: "vol %", usage: null, basis, message: "not a gaseous fuel" });
+    } else if (h2 <= 0) {
+      push({ id: "hydrogen-share", status: "pass", value: 0, limit: lim, unit: "vol %", usage: 0, basis, message: "no hydrogen in the fuel" });
+    } else if (lim === null) {
+      push({ id: "hydrogen-share", status: "warn", value: h2, limit: null, unit: "vol %", usage: null, basis, message: T ? `${fmt(h2, 1)} vol % hydrogen and no burner limit entered: ask the burner maker` : "" });
+    } else {
+      const r = atMost(h2, lim, warnAt);
+      push({ id: "hydrogen-share", status: r.status, value: h2, limit: lim, unit: "vol %", usage: r.usage, basis, message: T ? `${fmt(h2, 1)} vol % hydrogen; burner maker's limit ${fmt(lim, 1)} vol %` : "" });
+    }
+  }
+  return out;
+}

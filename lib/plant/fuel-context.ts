@@ -1,0 +1,162 @@
+/**
+ * Per-fuel figures a plant evaluation needs, computed once per fuel state and cached:
+ * the resolved fuel, heating values at 25 °C, CO2 factors, and (gases) Wobbe index and real-gas
+ * density at the requested references. Two definitions that resolve to the same state (e.g. a
+ * stored 20 % hydrogen blend and the 20 % point of a sweep) share one entry.
+ */
+import type { FuelDefinition } from "../schemas/fuel";
+import { resolveFuel, type ResolvedFuel } from "../fuels/resolve";
+import { heatingValues, type HeatingValues } from "../combustion/heating-values";
+import { co2Factors, type Co2Factors } from "../combustion/co2";
+import { realDensity_kg_per_m3, realMolarDensity_mol_per_m3, relativeDensity, wobbeIndex } from "../combustion/iso6976";
+import type { FuelEnergyContent } from "../economics/prices";
+import { HEAT_BALANCE_REFERENCE_C } from "./efficiency";
+
+export interface WobbeFigures {
+  combustionReferenceC: number;
+  meteringReferenceC: number;
+  gross_MJ_per_m3: number;
+  net_MJ_per_m3: number;
+  relativeDensity: number;
+}
+
+export interface FuelContext {
+  /** Key of the fuel's state (composition / elements / enthalpy), shared by identical fuels. */
+  key: string;
+  label: string;
+  fuel: ResolvedFuel;
+  /** Heating values at 25 °C (the heat balance's reference). */
+  hv: HeatingValues;
+  co2: Co2Factors;
+  /** Hydrogen share of a gas, vol % (0 otherwise). */
+  h2SharePercent: number;
+  /** Wobbe figures at a combustion and metering reference (gases; null otherwise). */
+  wobbe(combustionReferenceC: number, meteringReferenceC: number): WobbeFigures | null;
+  /** Real-gas density at a metering temperature (gases), kg/m³. */
+  gasDensity_kg_per_m3(meteringReferenceC: number): number;
+  /** What price normalisation needs. */
+  energyContent: FuelEnergyContent;
+}
+
+const fmt = (v: number) => (v === 0 ? "0" : v.toPrecision(12));
+
+/** A key that is equal for fuels in the same state. */
+export function fuelStateKey(f: ResolvedFuel): string {
+  const el = f.elements_mol_per_kg;
+  const comp = f.gasComposition
+    ? Object.entries(f.gasComposition)
+        .filter(([, x]) => x > 1e-14)
+        .sort(([a], [b]) => (a < b ? -1 : 1))
+        .map(([k, x]) => `${k}:${fmt(x)}`)
+        .join(",")
+    : "";
+  return [
+    f.kind,
+    fmt(el.C), fmt(el.H), fmt(el.O), fmt(el.N), fmt(el.S), fmt(el.Ar),
+    fmt(f.moisture_kg_per_kg), fmt(f.ash_kg_per_kg),
+    fmt(f.formationEnthalpy_J_per_kg),
+    fmt(f.biogenicCarbonShare),
+    f.upstreamCo2e_kg_per_GJ === undefined ? "-" : fmt(f.upstreamCo2e_kg_per_GJ),
+    f.density_kg_per_m3 === undefined ? "-" : fmt(f.density_kg_per_m3),
+    comp,
+  ].join("|");
+}
+
+function buildContext(fuel: ResolvedFuel, key: string): FuelContext {
+  const hv = heatingValues(fuel, HEAT_BALANCE_REFERENCE_C);
+  const co2 = co2Factors(fuel, hv);
+  const wobbeMemo = new Map<string, WobbeFigures | null>();
+  const densityMemo = new Map<number, number>();
+  const isGas = fuel.kind === "gas" && fuel.gasComposition !== undefined && fuel.molarMass_g_per_mol !== undefined;
+  const gasDensity = (tm: number): number => {
+    if (!isGas) throw new RangeError(`${fuel.label || "this fuel"} is not a gas: no gas density`);
+    let d = densityMemo.get(tm);
+    if (d === undefined) {
+      d = realDensity_kg_per_m3(fuel.gasComposition!, fuel.molarMass_g_per_mol!, tm);
+      densityMemo.set(tm, d);
+    }
+    return d;
+  };
+  return {
+    key,
+    label: fuel.label,
+    fuel,
+    hv,
+    co2,
+    h2SharePercent: 100 * fuel.h2MoleFraction,
+    wobbe(tc, tm) {
+      if (!isGas) return null;
+      const k = `${tc}/${tm}`;
+      let w = wobbeMemo.get(k);
+      if (w === undefined) {
+        // Volumetric heating value (real gas) = molar heating value × real molar density, as in
+        // the fuel property sheet; Wobbe index and relative density per ISO 6976:2016.
+        const hvT = tc === HEAT_BALANCE_REFERENCE_C ? hv : heatingValues(fuel, tc);
+        const comp = fuel.gasComposition!;
+        const M = fuel.molarMass_g_per_mol!;
+        const molPerM3 = realMolarDensity_mol_per_m3(comp, tm);
+        const d = relativeDensity(comp, M, tm);
+        w = {
+          combustionReferenceC: tc,
+          meteringReferenceC: tm,
+          gross_MJ_per_m3: wobbeIndex((hvT.hhv_kJ_per_mol! * molPerM3) / 1000, d),
+          net_MJ_per_m3: wobbeIndex((hvT.lhv_kJ_per_mol! * molPerM3) / 1000, d),
+          relativeDensity: d,
+        };
+        wobbeMemo.set(k, w);
+      }
+      return w;
+    },
+    gasDensity_kg_per_m3: gasDensity,
+    energyContent: {
+      kind: fuel.kind,
+      hhv_MJ_per_kg: hv.hhv_MJ_per_kg,
+      lhv_MJ_per_kg: hv.lhv_MJ_per_kg,
+      density_kg_per_m3: fuel.density_kg_per_m3 ?? null,
+      ...(isGas ? { gasDensity_kg_per_m3: gasDensity } : {}),
+    },
+  };
+}
+
+/** Cache of fuel contexts for one evaluation (or longer: entries never go stale). */
+export class FuelContextCache {
+  private readonly byState = new Map<string, FuelContext>();
+  private readonly byDefinition = new Map<string, FuelContext>();
+
+  /** Resolves a definition (throws FuelDefinitionError naming `field`) and returns its context. */
+  fromDefinition(def: FuelDefinition, field = "fuel"): FuelContext {
+    const dk = JSON.stringify(def);
+    const hit = this.byDefinition.get(dk);
+    if (hit) return hit;
+    const ctx = this.fromResolved(resolveFuel(def, field));
+    this.byDefinition.set(dk, ctx);
+    return ctx;
+  }
+
+  /**
+   * Like fromDefinition, but keyed by a caller's string (e.g. "sweep:20") so a generated
+   * definition is neither built nor serialised again on a hit.
+   */
+  fromKeyedDefinition(cacheKey: string, def: () => FuelDefinition, field = "fuel"): FuelContext {
+    const dk = `#${cacheKey}`;
+    const hit = this.byDefinition.get(dk);
+    if (hit) return hit;
+    const ctx = this.fromResolved(resolveFuel(def(), field));
+    this.byDefinition.set(dk, ctx);
+    return ctx;
+  }
+
+  fromResolved(fuel: ResolvedFuel): FuelContext {
+    const key = fuelStateKey(fuel);
+    let ctx = this.byState.get(key);
+    if (!ctx) {
+      ctx = buildContext(fuel, key);
+      this.byState.set(key, ctx);
+    }
+    return ctx;
+  }
+
+  get size(): number {
+    return this.byState.size;
+  }
+}

@@ -1,0 +1,171 @@
+/**
+ * A fuel burnt in a plant at one operating point: air factor from the measured flue O2,
+ * efficiency by the heat-loss method, equilibrium flame temperature at the plant's air
+ * temperature, and the flows per unit of heat input. Results are cached per (fuel state,
+ * operating point), so no state is solved twice; the equilibrium solver can be warm-started
+ * from a neighbouring solution (hydrogen sweeps).
+ */
+import { humidAir, lambdaFromFlueO2Dry, excessAirPercentFromLambda, oxidizerDemand, type Oxidizer } from "../combustion/stoichiometry";
+import { flameTemperature, type FlameResult } from "../combustion/flame";
+import { NORMAL_MOLAR_VOLUME_m3_per_mol } from "../combustion/flue-gas";
+import type { EquilibriumResult } from "../combustion/equilibrium";
+import { celsiusToKelvin, kelvinToCelsius, T0CK, T298K } from "../units/constants";
+import type { OperatingPoint } from "../schemas/plant";
+import { heatLossEfficiency, type EfficiencyResult } from "./efficiency";
+import type { FuelContext } from "./fuel-context";
+
+/** Approach of the flue gas to the return water on a condensing heat exchanger, K (common practice, no source). */
+export const CONDENSING_APPROACH_K = 5;
+/** Fuel temperature at the burner for the flame temperature and the heat balance, K (25 °C reference). */
+export const FUEL_TEMPERATURE_K = T298K;
+
+export interface FlameFigures {
+  temperatureK: number;
+  temperatureC: number;
+  method: FlameResult["method"];
+  methodLabel: string;
+  phi: number;
+  /** Solver iterations (equilibrium), for diagnostics. */
+  iterations?: number;
+}
+
+export interface FuelPerformance {
+  fuelKey: string;
+  operatingPoint: OperatingPoint;
+  oxidizer: Oxidizer;
+  lambda: number;
+  excessAirPercent: number;
+  efficiency: EfficiencyResult;
+  flame: FlameFigures;
+  /** Equilibrium solution kept for warm starts of neighbouring states. */
+  equilibrium?: EquilibriumResult;
+  /** Per MJ of fuel heat input on the net basis. */
+  perMJ_net: {
+    fuel_kg: number;
+    /** Combustion air (humid) at 0 °C, 101.325 kPa, ideal gas. */
+    air_m3_normal: number;
+    air_kg: number;
+    /** Wet flue gas leaving (after any condensation) at 0 °C, 101.325 kPa, ideal gas. */
+    flueGasWet_m3_normal: number;
+    flueGasDry_m3_normal: number;
+    flueGas_kg: number;
+    condensate_kg: number;
+  };
+}
+
+/** Oxidiser of a plant: ambient air with its humidity (the absolute humidity is kept through any preheater). */
+export function plantOxidizer(op: OperatingPoint): Oxidizer {
+  return humidAir(op.ambientAir.relativeHumidityPercent / 100, op.ambientAir.temperatureC);
+}
+
+/** Condensing-surface temperature, °C: return water + approach for condensing units, else none. */
+export function condensingSurfaceC(op: OperatingPoint): number | null {
+  if (!op.condensing || op.returnWaterC === null) return null;
+  return op.returnWaterC + CONDENSING_APPROACH_K;
+}
+
+export function operatingPointKey(op: OperatingPoint): string {
+  return [
+    op.stackTemperatureC,
+    op.flueO2DryPercent,
+    op.combustionAirC,
+    op.radiationLossPercent,
+    op.condensing ? 1 : 0,
+    op.returnWaterC ?? "-",
+    op.ambientAir.temperatureC,
+    op.ambientAir.relativeHumidityPercent,
+  ].join("|");
+}
+
+/** Volume of an ideal gas at temperature T (°C) and 101.325 kPa from its volume at 0 °C. */
+export function actualFromNormal_m3(normal_m3: number, temperatureC: number): number {
+  return (normal_m3 * celsiusToKelvin(temperatureC)) / T0CK;
+}
+
+export class PerformanceCache {
+  private readonly memo = new Map<string, FuelPerformance>();
+  private readonly oxidizers = new Map<string, Oxidizer>();
+  hits = 0;
+  misses = 0;
+
+  /**
+   * Performance of a fuel at an operating point. `warmStart` seeds the equilibrium solver with a
+   * neighbouring solution (same element set) when this state is not cached yet.
+   */
+  get(ctx: FuelContext, op: OperatingPoint, warmStart?: EquilibriumResult): FuelPerformance {
+    const key = `${ctx.key}#${operatingPointKey(op)}`;
+    const hit = this.memo.get(key);
+    if (hit) {
+      this.hits++;
+      return hit;
+    }
+    this.misses++;
+    const oxKey = `${op.ambientAir.temperatureC}|${op.ambientAir.relativeHumidityPercent}`;
+    let ox = this.oxidizers.get(oxKey);
+    if (!ox) {
+      ox = plantOxidizer(op);
+      this.oxidizers.set(oxKey, ox);
+    }
+    const perf = computePerformance(ctx, op, ox, warmStart);
+    this.memo.set(key, perf);
+    return perf;
+  }
+
+  get size(): number {
+    return this.memo.size;
+  }
+}
+
+export function computePerformance(ctx: FuelContext, op: OperatingPoint, oxidizer: Oxidizer, warmStart?: EquilibriumResult): FuelPerformance {
+  const fuel = ctx.fuel;
+  const lambda = lambdaFromFlueO2Dry(fuel, op.flueO2DryPercent, oxidizer);
+  const efficiency = heatLossEfficiency(fuel, ctx.hv, {
+    lambda,
+    oxidizer,
+    combustionAirC: op.combustionAirC,
+    stackTemperatureC: op.stackTemperatureC,
+    radiationLossPercent: op.radiationLossPercent,
+    condensingSurfaceC: condensingSurfaceC(op),
+  });
+  const canWarm = warmStart !== undefined && (fuel.elements_mol_per_kg.S > 0) === warmStart.species.includes("SO2");
+  const flame = flameTemperature({
+    fuel,
+    oxidizer,
+    phi: 1 / lambda,
+    fuelTemperatureK: FUEL_TEMPERATURE_K,
+    oxidizerTemperatureK: celsiusToKelvin(op.combustionAirC),
+    method: "equilibrium",
+    ...(canWarm ? { warmStart } : {}),
+  });
+  const demand = oxidizerDemand(fuel, oxidizer);
+  const lhv = ctx.hv.lhv_MJ_per_kg;
+  const fuelKgPerMJ = 1 / lhv;
+  const fg = efficiency.flue;
+  const leavingWet = efficiency.wetLeaving_mol_per_kg;
+  return {
+    fuelKey: ctx.key,
+    operatingPoint: op,
+    oxidizer,
+    lambda,
+    excessAirPercent: excessAirPercentFromLambda(lambda),
+    efficiency,
+    flame: {
+      temperatureK: flame.temperatureK,
+      temperatureC: kelvinToCelsius(flame.temperatureK),
+      method: flame.method,
+      methodLabel: flame.methodLabel,
+      phi: flame.phi,
+      ...(flame.equilibrium ? { iterations: flame.equilibrium.iterations } : {}),
+    },
+    ...(flame.equilibrium ? { equilibrium: flame.equilibrium } : {}),
+    perMJ_net: {
+      fuel_kg: fuelKgPerMJ,
+      air_m3_normal: lambda * demand.oxidizer_mol_per_kg * NORMAL_MOLAR_VOLUME_m3_per_mol * fuelKgPerMJ,
+      air_kg: lambda * demand.oxidizer_kg_per_kg * fuelKgPerMJ,
+      flueGasWet_m3_normal: leavingWet * NORMAL_MOLAR_VOLUME_m3_per_mol * fuelKgPerMJ,
+      flueGasDry_m3_normal: fg.dry_mol_per_kg * NORMAL_MOLAR_VOLUME_m3_per_mol * fuelKgPerMJ,
+      flueGas_kg: (fg.mass_kg_per_kg - efficiency.condensate_kg_per_kg) * fuelKgPerMJ,
+      condensate_kg: efficiency.condensate_kg_per_kg * fuelKgPerMJ,
+    },
+  };
+}
