@@ -1,0 +1,96 @@
+/**
+ * Audit trail of a study evaluation: the methods behind every figure with their sources, the
+ * assumptions the evaluation makes, and (per scenario) the inputs it used.
+ */
+import { SIEGERT_SOURCE } from "../plant/siegert";
+import { CONDENSING_APPROACH_K } from "../plant/performance";
+
+export interface AuditMethod {
+  /** What is computed. */
+  quantity: string;
+  /** How (the method's published name). */
+  method: string;
+  /** Where the method and its data come from. */
+  source: string;
+}
+
+export interface AuditTrail {
+  methods: AuditMethod[];
+  assumptions: string[];
+  /** Free-form notes (fuel descriptions, price conversions, warnings). */
+  notes: string[];
+}
+
+export const STUDY_METHODS: readonly AuditMethod[] = [
+  {
+    quantity: "species enthalpy, heat capacity, entropy",
+    method: "NASA 7-coefficient polynomials, two temperature ranges; standard state 1 bar",
+    source: "McBride, Zehe & Gordon, NASA/TP-2002-211556 (2002); GRI-Mech 3.0 / Burcat tables where stated per species; checked against NIST-JANAF (Chase 1998)",
+  },
+  {
+    quantity: "gross and net heating value (HHV, LHV) at 25 °C",
+    method: "Hess's law from formation enthalpies (measured value or Channiwala & Parikh 2002 correlation for ultimate analyses)",
+    source: "NASA polynomials as above; ISO 6976:2016 for the gas checks; Channiwala & Parikh, Fuel 81 (2002) 1051–1063",
+  },
+  {
+    quantity: "Wobbe index, relative density, gas density, fuel volume",
+    method: "real gas by summation factors, Z = 1 − (Σ xᵢ sᵢ)²",
+    source: "ISO 6976:2016",
+  },
+  {
+    quantity: "air factor λ from the measured flue O2, air and flue-gas amounts",
+    method: "complete-combustion stoichiometry (C→CO2, H→H2O, S→SO2) in humid air",
+    source: "combustion textbooks (common practice)",
+  },
+  {
+    quantity: "water dew point and condensed water",
+    method: "saturation pressure / temperature of water; vapour leaving limited to saturation at the condensing temperature",
+    source: "IAPWS-IF97, IAPWS R7-97(2012), region 4",
+  },
+  {
+    quantity: "efficiency on gross and net basis",
+    method: "heat-loss (indirect) method: dry flue-gas loss, moisture loss (sensible + latent), condensate recovery, radiation/casing loss, combustion-air credit; reference 25 °C",
+    source: "concepts of EN 12952-15 and ASME PTC 4; species enthalpies from the NASA polynomials",
+  },
+  {
+    quantity: "flue-gas loss cross-check",
+    method: "Siegert formula (rule of thumb, shown beside the heat-loss result where its constants apply)",
+    source: SIEGERT_SOURCE,
+  },
+  {
+    quantity: "adiabatic flame temperature and its shift versus the baseline",
+    method: "chemical equilibrium at constant enthalpy and pressure, Gibbs energy minimisation by element potentials",
+    source: "Gordon & McBride, NASA RP-1311 (1994)",
+  },
+  {
+    quantity: "CO2 per GJ of fuel and per useful MJ",
+    method: "carbon content × 44.0095/12.0107, split by the biogenic carbon share, divided by the efficiency",
+    source: "checked against IPCC 2006 Guidelines Vol. 2 Table 1.4 and US EPA 40 CFR 98 Table C-1",
+  },
+  {
+    quantity: "delivered fuel price per MWh (gross, net) and per kg",
+    method: "commodity + transport + handling per quoted unit, converted through cost per kg with the fuel's own heating values and density",
+    source: "unit factors exact or from NIST SP 811 (2008) App. B.8",
+  },
+  {
+    quantity: "NPV, payback, abatement cost, break-even prices, tornado",
+    method: "end-of-year discounted cash flows; levelised abatement cost = present cost without carbon price ÷ present tonnes avoided; break-even by the exact linearity of cost in price; one-at-a-time sensitivity",
+    source: "engineering-economics practice (common practice, no source)",
+  },
+];
+
+export function studyAssumptions(): string[] {
+  return [
+    "Every scenario delivers the same useful heat as the baseline; fuel demand = useful heat ÷ that fuel's efficiency.",
+    "Flows at rated duty: the baseline fires its rated input; a candidate fires the same useful heat ÷ its own efficiency.",
+    "Complete combustion: no unburnt (CO, soot) loss in the efficiency; fuel enters at 25 °C.",
+    "Radiation and casing loss is a fixed percentage of the net heat input.",
+    "Flue gas at atmospheric pressure (101.325 kPa); air and flue-gas volumes as ideal gas.",
+    `Condensing units: flue gas meets a surface ${CONDENSING_APPROACH_K} K above the return-water temperature; the water vapour leaving is limited to saturation there.`,
+    "Combustion air carries the ambient absolute humidity through any preheater.",
+    "The same stack temperature and flue O2 as the plant unless a scenario overrides them.",
+    "Carbon is priced on fossil CO2 only (upstream CO2e too when the study includes it); biogenic CO2 is reported, not priced.",
+    "Price escalation applies to fuel and carbon costs; fixed operating-cost changes stay constant; capex is spent at the start.",
+    "The abatement cost excludes the carbon price itself (the cost of avoiding a tonne before any carbon price).",
+  ];
+}

@@ -1,0 +1,424 @@
+/**
+ * Study evaluation: one plant, its baseline and N candidate scenarios → every scenario's
+ * performance, costs, CO2, fit checks and comparison with the baseline, the ranking by the
+ * chosen metric (infeasible scenarios flagged, never dropped), sensitivity, the hydrogen-share
+ * sweep and the audit trail. Pure: the command line and the pages call the same function.
+ */
+import type { FuelDefinition } from "../schemas/fuel";
+import { operatingPointOf, plantWithOverrides, type OperatingPoint, type Plant, EQUIPMENT_TYPE_LABELS, METERING_REFERENCE_C } from "../schemas/plant";
+import type { Scenario, Study, StudyPrice } from "../schemas/study";
+import type { FuelContext, WobbeFigures } from "../plant/fuel-context";
+import type { FuelPerformance } from "../plant/performance";
+import { createEvaluationCaches, type EvaluationCaches } from "./caches";
+import { blendPriceFromComponents, normaliseStudyPrice, priceTerms } from "./pricing";
+import { annualDemand, flowsForUseful, plantDuty, type AnnualDemand, type PlantDuty, type RatedFlows } from "../plant/duty";
+import { fitChecks, worstStatus, type CheckStatus, type FitCheck, type FuelInPlant } from "../plant/fit-checks";
+import { siegertClassOf, siegertLossPercent, SIEGERT_CONSTANTS } from "../plant/siegert";
+import type { LossTerms } from "../plant/efficiency";
+import { priceUnitLabel, type NormalisedPrice } from "../economics/prices";
+import { compare, scenarioCosts, type Comparison, type CostInputs, type FinanceAssumptions, type ScenarioCosts } from "../economics/costs";
+import { RANKING_METRIC_INFO, tornado, type RankingMetric, type Tornado } from "../economics/sensitivity";
+import { STUDY_METHODS, studyAssumptions, type AuditTrail } from "./audit";
+import { cautionsFor, DEFER, type Caution, type HazardKey } from "../fuels/cautions";
+import { hydrogenSweep, type HydrogenSweepResult } from "./hydrogen-sweep";
+import { StudyInputError } from "./errors";
+
+export { normaliseStudyPrice } from "./pricing";
+export { StudyInputError } from "./errors";
+
+export { createEvaluationCaches, type EvaluationCaches };
+
+export interface EvaluationOptions {
+  /** Run the hydrogen-share sweep (default: the study's hydrogenSweep.enabled). */
+  sweep?: boolean;
+  /** Compute tornado data for every candidate (default true). */
+  tornado?: boolean;
+  /** Caches to reuse across evaluations (e.g. a page re-ranking the same study). */
+  caches?: EvaluationCaches;
+}
+
+export type ScenarioStatus = "feasible" | "feasible-with-warnings" | "infeasible";
+
+export interface ScenarioFuelSummary {
+  label: string;
+  kind: "gas" | "liquid" | "solid";
+  definition: FuelDefinition;
+  hhv_MJ_per_kg: number;
+  lhv_MJ_per_kg: number;
+  /** Basis of the heating values. */
+  heatingValueBasis: string;
+  h2SharePercent: number;
+  biogenicCarbonShare: number;
+  /** Gases: Wobbe at the plant's Wobbe references. */
+  wobbe: WobbeFigures | null;
+  co2_kg_per_GJ: { fossil_net: number; biogenic_net: number; fossil_gross: number; biogenic_gross: number; upstream_net: number | null };
+}
+
+export interface EfficiencySummary {
+  gross: number;
+  net: number;
+  /** Loss terms in % of the input on each basis (credits positive). */
+  lossesGrossPercent: LossTerms;
+  lossesNetPercent: LossTerms;
+  lambda: number;
+  excessAirPercent: number;
+  flueO2DryPercent: number;
+  dewPointC: number | null;
+  condensedFraction: number;
+  condensingTemperatureC: number | null;
+  /** Energy-balance closure: useful + losses − credits − input (gross and net), and the direct-balance residual, kJ/kg. */
+  closure: { gross_kJ_per_kg: number; net_kJ_per_kg: number; directResidual_kJ_per_kg: number };
+  /** Siegert rule-of-thumb flue loss beside the heat-loss method's, % of net input (where its constants apply). */
+  siegert: { fuelClass: string; siegertPercent: number; heatLossMethodPercent: number } | null;
+  basis: string;
+}
+
+export interface ScenarioResult {
+  /** −1 for the baseline, else the index in study.scenarios. */
+  index: number;
+  name: string;
+  isBaseline: boolean;
+  fuel: ScenarioFuelSummary;
+  operatingPoint: OperatingPoint;
+  efficiency: EfficiencySummary;
+  flame: { temperatureC: number; shiftK: number; method: string } | null;
+  flameError?: string;
+  wobbeShiftPercent: number | null;
+  ratedFlows: RatedFlows;
+  /** Change of flows versus the baseline at rated duty, %. */
+  flowChangePercent: { fuelMass: number; fuelVolume: number | null; air: number; flueGas: number };
+  annual: AnnualDemand;
+  /** g CO2 per MJ of useful heat (needs no price). */
+  co2PerUsefulMJ_g: { fossil: number; biogenic: number; upstream: number; ranked: number };
+  /** Delivered price, from the scenario's quote or (blends) from its components' quotes. */
+  price: (NormalisedPrice & { unitLabel: string; currency: string; origin: "quote" | "blend of component quotes"; quote: StudyPrice | null; componentQuotes: StudyPrice[] | null }) | null;
+  costs: ScenarioCosts | null;
+  comparison: Comparison | null;
+  tornado: Tornado | null;
+  checks: FitCheck[];
+  status: ScenarioStatus;
+  worstCheck: CheckStatus;
+  metricValue: number | null;
+  rank: number | null;
+  /** Hazards of this fuel (cautions texts in StudyResult.cautions). */
+  cautions: HazardKey[];
+  audit: {
+    inputs: { fuel: FuelDefinition; price: StudyPrice | null; componentPrices: StudyPrice[] | null; capex: number; fixedOpexChange: number; overrides: Scenario["overrides"] };
+    notes: string[];
+  };
+}
+
+export interface RankingEntry {
+  rank: number;
+  index: number;
+  name: string;
+  isBaseline: boolean;
+  value: number | null;
+  status: ScenarioStatus;
+}
+
+export interface StudyResult {
+  study: {
+    name: string;
+    currency: string;
+    carbonPrice_per_t: number;
+    discountRatePercent: number;
+    horizonYears: number;
+    priceEscalationPercent: number;
+    includeUpstream: boolean;
+    rankingMetric: RankingMetric;
+  };
+  plant: Plant & { equipmentLabel: string };
+  duty: PlantDuty;
+  baseline: ScenarioResult;
+  scenarios: ScenarioResult[];
+  ranking: { metric: RankingMetric; label: string; unit: string; better: "lower" | "higher"; entries: RankingEntry[] };
+  hydrogenSweep: HydrogenSweepResult | null;
+  /** Screening-tool statement and the cautions that apply to the fuels of this study. */
+  cautions: { screening: string; items: Caution[] };
+  audit: AuditTrail;
+  stats: { fuelStates: number; performanceStates: number; performanceCacheHits: number };
+}
+
+const pct = (v: number, b: number) => (b !== 0 ? (100 * (v - b)) / b : 0);
+
+interface Prepared {
+  scenario: Scenario;
+  index: number;
+  field: string;
+  ctx: FuelContext;
+  op: OperatingPoint;
+  perf: FuelPerformance;
+  flameError?: string;
+}
+
+function prepare(sc: Scenario, index: number, field: string, plant: Plant, caches: EvaluationCaches): Prepared {
+  const ctx = caches.fuels.fromDefinition(sc.fuel, `${field}.fuel`);
+  const op = operatingPointOf(plant, sc.overrides);
+  if (op.condensing && op.returnWaterC === null) throw new StudyInputError(`${field}.overrides.returnWaterC`, "a condensing unit needs its return-water temperature");
+  let perf: FuelPerformance;
+  try {
+    perf = caches.performance.get(ctx, op);
+  } catch (e) {
+    if (e instanceof RangeError) throw new StudyInputError(`${field}.fuel`, e.message);
+    throw e;
+  }
+  return { scenario: sc, index, field, ctx, op, perf };
+}
+
+export function evaluateStudy(study: Study, options: EvaluationOptions = {}): StudyResult {
+  const caches = options.caches ?? createEvaluationCaches();
+  const hitsBefore = caches.performance.hits;
+  const plant = study.plant;
+  const fin: FinanceAssumptions = {
+    discountRatePercent: study.discountRatePercent,
+    horizonYears: study.horizonYears,
+    priceEscalationPercent: study.priceEscalationPercent,
+  };
+  const metric = study.rankingMetric;
+  const notes: string[] = [];
+
+  const base = prepare(study.baseline, -1, "baseline", plant, caches);
+  const cands = study.scenarios.map((sc, i) => prepare(sc, i, `scenarios.${i}`, plant, caches));
+  const duty = plantDuty(plant, base.perf);
+  const wobbeRef = (ctx: FuelContext) => ctx.wobbe(plant.wobbeCombustionReferenceC, METERING_REFERENCE_C[plant.wobbeMeteringReference]);
+
+  const fip = (p: Prepared): FuelInPlant => ({ ctx: p.ctx, perf: p.perf, flows: flowsForUseful(plant, p.ctx, p.perf, duty.ratedUseful_kW) });
+  const baseFip = fip(base);
+
+  const costInputs = (p: Prepared, price: NormalisedPrice): CostInputs => ({
+    usefulHeat_MWh: duty.annualUseful_MWh,
+    efficiencyNet: p.perf.efficiency.net.efficiency,
+    grossOverNet: p.ctx.hv.hhv_MJ_per_kg / p.ctx.hv.lhv_MJ_per_kg,
+    deliveredPrice_per_MWh_net: price.perMWh_net,
+    co2Fossil_kg_per_GJ_net: p.ctx.co2.fossil_kg_per_GJ_lhv,
+    co2Biogenic_kg_per_GJ_net: p.ctx.co2.biogenic_kg_per_GJ_lhv,
+    upstreamCo2e_kg_per_GJ_net: p.ctx.co2.upstreamCo2e_kg_per_GJ_lhv ?? 0,
+    carbonPrice_per_t: study.carbonPrice_per_t,
+    includeUpstream: study.includeUpstream,
+    capex: p.scenario.capex,
+    fixedOpexChange: p.scenario.fixedOpexChange,
+  });
+
+  const priceOf = (p: Prepared): NormalisedPrice | null => {
+    const sc = p.scenario;
+    if (sc.price) return normaliseStudyPrice(sc.price, p.ctx, `${p.field}.price`);
+    if (sc.componentPrices && "blend" in sc.fuel) {
+      const def = sc.fuel;
+      const parts = def.blend.map((c, i) => caches.fuels.fromDefinition(c.fuel, `${p.field}.fuel.blend.${i}.fuel`));
+      return blendPriceFromComponents(def, p.ctx, parts, sc.componentPrices, p.field);
+    }
+    return null;
+  };
+  const basePrice = priceOf(base);
+  const baseCI = basePrice ? costInputs(base, basePrice) : null;
+  if (!basePrice) notes.push("The baseline has no price quote: no costs, savings, NPV or break-even prices are computed.");
+
+  const evaluate = (p: Prepared): ScenarioResult => {
+    const isBaseline = p.index === -1;
+    const f = isBaseline ? baseFip : fip(p);
+    const eff = p.perf.efficiency;
+    const ctx = p.ctx;
+    const price = isBaseline ? basePrice : priceOf(p);
+    const ci = price ? costInputs(p, price) : null;
+    const costs = ci ? scenarioCosts(ci) : null;
+    const comparison = !isBaseline && ci && baseCI ? compare(baseCI, ci, fin) : null;
+    const tor = !isBaseline && ci && baseCI && options.tornado !== false ? tornado(metric, baseCI, ci, fin, study.sensitivity) : null;
+    const checks = fitChecks(plantWithOverrides(plant, p.scenario.overrides), baseFip, f);
+    const worst = worstStatus(checks.map((c) => c.status));
+    const status: ScenarioStatus = worst === "fail" ? "infeasible" : worst === "warn" ? "feasible-with-warnings" : "feasible";
+    const w = wobbeRef(ctx);
+    const wb = wobbeRef(base.ctx);
+    const up = ctx.co2.upstreamCo2e_kg_per_GJ_lhv ?? 0;
+    const etaN = eff.net.efficiency;
+    const co2Useful = {
+      fossil: ctx.co2.fossil_kg_per_GJ_lhv / etaN,
+      biogenic: ctx.co2.biogenic_kg_per_GJ_lhv / etaN,
+      upstream: up / etaN,
+      ranked: (ctx.co2.fossil_kg_per_GJ_lhv + (study.includeUpstream ? up : 0)) / etaN,
+    };
+    const sClass = siegertClassOf(ctx.fuel);
+    const op = p.op;
+    const label = p.scenario.fuel.name ?? ctx.label;
+    let metricValue: number | null;
+    switch (metric) {
+      case "cost-per-useful-MWh":
+        metricValue = costs ? costs.costPerUsefulMWh.total : null;
+        break;
+      case "co2-per-useful-MJ":
+        metricValue = co2Useful.ranked;
+        break;
+      case "abatement-cost":
+        metricValue = comparison ? comparison.abatementCost_per_t : null;
+        break;
+      case "npv":
+        metricValue = isBaseline ? (baseCI ? 0 : null) : comparison ? comparison.npv : null;
+        break;
+    }
+    const scenarioNotes = [...ctx.fuel.notes];
+    if (price && !p.scenario.price) {
+      scenarioNotes.push(
+        `blend priced from its components' quotes (mass-weighted delivered price per kg): ${price.perMWh_net.toFixed(2)} per MWh (net) = ${price.perMWh_gross.toFixed(2)} per MWh (gross) = ${price.perKg.toFixed(4)} per kg`,
+      );
+    }
+    if (price && p.scenario.price) {
+      scenarioNotes.push(
+        `price ${p.scenario.price.amount} + ${p.scenario.price.transportAdder} transport + ${p.scenario.price.handlingAdder} handling ${p.scenario.price.currency} per ${priceUnitLabel(priceTerms(p.scenario.price))} = ${price.perMWh_net.toFixed(2)} per MWh (net) = ${price.perMWh_gross.toFixed(2)} per MWh (gross) = ${price.perKg.toFixed(4)} per kg`,
+      );
+    }
+    if (!price) scenarioNotes.push("no price quote: cost figures omitted");
+    return {
+      index: p.index,
+      name: p.scenario.name,
+      isBaseline,
+      fuel: {
+        label,
+        kind: ctx.fuel.kind,
+        definition: p.scenario.fuel,
+        hhv_MJ_per_kg: ctx.hv.hhv_MJ_per_kg,
+        lhv_MJ_per_kg: ctx.hv.lhv_MJ_per_kg,
+        heatingValueBasis: "per kg as fired, combustion reference 25 °C",
+        h2SharePercent: ctx.h2SharePercent,
+        biogenicCarbonShare: ctx.fuel.biogenicCarbonShare,
+        wobbe: w,
+        co2_kg_per_GJ: {
+          fossil_net: ctx.co2.fossil_kg_per_GJ_lhv,
+          biogenic_net: ctx.co2.biogenic_kg_per_GJ_lhv,
+          fossil_gross: ctx.co2.fossil_kg_per_GJ_hhv,
+          biogenic_gross: ctx.co2.biogenic_kg_per_GJ_hhv,
+          upstream_net: ctx.co2.upstreamCo2e_kg_per_GJ_lhv ?? null,
+        },
+      },
+      operatingPoint: op,
+      efficiency: {
+        gross: eff.gross.efficiency,
+        net: etaN,
+        lossesGrossPercent: eff.gross.percent,
+        lossesNetPercent: eff.net.percent,
+        lambda: eff.lambda,
+        excessAirPercent: p.perf.excessAirPercent,
+        flueO2DryPercent: op.flueO2DryPercent,
+        dewPointC: eff.dewPointC,
+        condensedFraction: eff.condensedFraction,
+        condensingTemperatureC: eff.condensingTemperatureC,
+        closure: {
+          gross_kJ_per_kg: eff.gross.useful_kJ_per_kg + (eff.gross.totalLossPercent / 100) * eff.gross.input_kJ_per_kg - eff.gross.input_kJ_per_kg,
+          net_kJ_per_kg: eff.net.useful_kJ_per_kg + (eff.net.totalLossPercent / 100) * eff.net.input_kJ_per_kg - eff.net.input_kJ_per_kg,
+          directResidual_kJ_per_kg: eff.balanceResidual_kJ_per_kg,
+        },
+        siegert: sClass
+          ? {
+              fuelClass: SIEGERT_CONSTANTS[sClass].label,
+              siegertPercent: siegertLossPercent(sClass, op.stackTemperatureC, op.combustionAirC, op.flueO2DryPercent),
+              heatLossMethodPercent: eff.flueLossVsAirNetPercent,
+            }
+          : null,
+        basis: "efficiency = useful heat ÷ fuel heat input at HHV (gross) or LHV (net), 25 °C reference; heat-loss method",
+      },
+      flame: { temperatureC: p.perf.flame.temperatureC, shiftK: p.perf.flame.temperatureK - base.perf.flame.temperatureK, method: p.perf.flame.methodLabel },
+      wobbeShiftPercent: w && wb ? pct(w.gross_MJ_per_m3, wb.gross_MJ_per_m3) : null,
+      ratedFlows: f.flows,
+      flowChangePercent: {
+        fuelMass: pct(f.flows.fuel_kg_per_h, baseFip.flows.fuel_kg_per_h),
+        fuelVolume:
+          f.flows.fuelVolume_per_h && baseFip.flows.fuelVolume_per_h && f.flows.fuelVolume_per_h.kind === baseFip.flows.fuelVolume_per_h.kind
+            ? pct(f.flows.fuelVolume_per_h.value, baseFip.flows.fuelVolume_per_h.value)
+            : null,
+        air: pct(f.flows.air_m3_per_h_normal, baseFip.flows.air_m3_per_h_normal),
+        flueGas: pct(f.flows.flueGas_m3_per_h_normal, baseFip.flows.flueGas_m3_per_h_normal),
+      },
+      annual: annualDemand(plant, ctx, p.perf, duty.annualUseful_MWh),
+      co2PerUsefulMJ_g: co2Useful,
+      price: price
+        ? p.scenario.price
+          ? { ...price, unitLabel: priceUnitLabel(priceTerms(p.scenario.price)), currency: p.scenario.price.currency, origin: "quote", quote: p.scenario.price, componentQuotes: null }
+          : { ...price, unitLabel: "kg", currency: study.currency, origin: "blend of component quotes", quote: null, componentQuotes: p.scenario.componentPrices ?? null }
+        : null,
+      costs,
+      comparison,
+      tornado: tor,
+      checks,
+      status,
+      worstCheck: worst,
+      metricValue,
+      rank: null,
+      cautions: cautionsFor(p.scenario.fuel).map((c) => c.hazard).filter((h) => h !== "burner-change"),
+      audit: {
+        inputs: { fuel: p.scenario.fuel, price: p.scenario.price ?? null, componentPrices: p.scenario.componentPrices ?? null, capex: p.scenario.capex, fixedOpexChange: p.scenario.fixedOpexChange, overrides: p.scenario.overrides },
+        notes: scenarioNotes,
+      },
+    };
+  };
+
+  const baseline = evaluate(base);
+  const scenarios = cands.map(evaluate);
+
+  // Ranking: feasible before infeasible; within each, by the metric (undefined values last).
+  const info = RANKING_METRIC_INFO[metric];
+  const all = [baseline, ...scenarios];
+  const order = [...all].sort((a, b) => {
+    const fa = a.status === "infeasible" ? 1 : 0;
+    const fb = b.status === "infeasible" ? 1 : 0;
+    if (fa !== fb) return fa - fb;
+    if (a.metricValue === null && b.metricValue === null) return a.index - b.index;
+    if (a.metricValue === null) return 1;
+    if (b.metricValue === null) return -1;
+    const d = info.better === "lower" ? a.metricValue - b.metricValue : b.metricValue - a.metricValue;
+    return d !== 0 ? d : a.index - b.index;
+  });
+  const entries: RankingEntry[] = order.map((r, i) => {
+    r.rank = i + 1;
+    return { rank: i + 1, index: r.index, name: r.name, isBaseline: r.isBaseline, value: r.metricValue, status: r.status };
+  });
+
+  // Hydrogen sweep on the baseline gas.
+  const doSweep = options.sweep ?? study.hydrogenSweep.enabled;
+  let sweep: HydrogenSweepResult | null = null;
+  if (doSweep) {
+    sweep = hydrogenSweep({
+      study,
+      plant,
+      duty,
+      caches,
+      baseline: { definition: study.baseline.fuel, fip: baseFip, price: basePrice, costInputs: baseCI },
+      scenarios: cands.map((c, i) => ({ ctx: c.ctx, price: scenarios[i].price })),
+      fin,
+    });
+  }
+
+  // Cautions: every hazard of a fuel considered, the burner change when any candidate differs
+  // from the baseline fuel, hydrogen whenever the sweep runs.
+  const byHazard = new Map<HazardKey, Caution>();
+  const addAll = (def: FuelDefinition) => {
+    for (const c of cautionsFor(def)) if (c.hazard !== "burner-change" && !byHazard.has(c.hazard)) byHazard.set(c.hazard, c);
+  };
+  addAll(study.baseline.fuel);
+  for (const sc of study.scenarios) addAll(sc.fuel);
+  if (sweep && sweep.available) addAll(study.hydrogenSweep.hydrogen);
+  if (cands.some((c) => c.ctx.key !== base.ctx.key) || (sweep && sweep.available)) {
+    const bc = cautionsFor(study.baseline.fuel).find((c) => c.hazard === "burner-change");
+    if (bc) byHazard.set("burner-change", bc);
+  }
+
+  return {
+    study: {
+      name: study.name,
+      currency: study.currency,
+      carbonPrice_per_t: study.carbonPrice_per_t,
+      discountRatePercent: study.discountRatePercent,
+      horizonYears: study.horizonYears,
+      priceEscalationPercent: study.priceEscalationPercent,
+      includeUpstream: study.includeUpstream,
+      rankingMetric: metric,
+    },
+    plant: { ...plant, equipmentLabel: EQUIPMENT_TYPE_LABELS[plant.equipmentType] },
+    duty,
+    baseline,
+    scenarios,
+    ranking: { metric, label: info.label, unit: info.unit.replace("currency", study.currency), better: info.better, entries },
+    hydrogenSweep: sweep,
+    cautions: { screening: DEFER, items: [...byHazard.values()] },
+    audit: { methods: [...STUDY_METHODS], assumptions: studyAssumptions(), notes },
+    stats: { fuelStates: caches.fuels.size, performanceStates: caches.performance.size, performanceCacheHits: caches.performance.hits - hitsBefore },
+  };
+}

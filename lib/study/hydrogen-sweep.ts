@@ -1,0 +1,231 @@
+/**
+ * Hydrogen-share sweep: the baseline gas blended with hydrogen from 0 to 100 vol % in fixed steps,
+ * evaluated in the study's plant at its operating point — Wobbe index, flame temperature
+ * (equilibrium, warm-started from the previous point), efficiency, CO2 per useful MJ, fuel volume
+ * flow, flue-gas and air flow and cost per useful MWh — with the first share at which each plant
+ * limit warns and fails.
+ */
+import type { FuelDefinition } from "../schemas/fuel";
+import { METERING_REFERENCE_C, operatingPointOf, type Plant } from "../schemas/plant";
+import type { Study } from "../schemas/study";
+import type { FuelContext } from "../plant/fuel-context";
+import { flowsForUseful, type PlantDuty } from "../plant/duty";
+import { FIT_CHECK_IDS, FIT_CHECK_LABELS, fitChecks, worstStatus, type CheckStatus, type FitCheckId, type FuelInPlant } from "../plant/fit-checks";
+import { normalisePrice, type NormalisedPrice } from "../economics/prices";
+import { scenarioCosts, type CostInputs, type FinanceAssumptions } from "../economics/costs";
+import type { EquilibriumResult } from "../combustion/equilibrium";
+import type { EvaluationCaches } from "./caches";
+import { StudyInputError } from "./errors";
+import { normaliseStudyPrice } from "./pricing";
+
+export interface SweepPoint {
+  h2Percent: number;
+  /** Hydrogen's share of the fuel energy on the net basis, %. */
+  h2EnergySharePercent: number;
+  wobbeGross_MJ_per_m3: number | null;
+  wobbeShiftPercent: number | null;
+  flameTemperatureC: number;
+  flameShiftK: number;
+  efficiencyNet: number;
+  efficiencyGross: number;
+  dewPointC: number | null;
+  /** g CO2 per useful MJ (fossil, plus upstream when the study includes it). */
+  co2PerUsefulMJ_g: number;
+  co2ChangePercent: number;
+  /** Gas volume flow at rated duty at the plant's supply metering reference, m³/h. */
+  fuelVolume_m3_per_h: number;
+  /** Flue-gas and air flow at rated duty on the plant's fan bases, m³/h. */
+  flueGas_m3_per_h: number;
+  air_m3_per_h: number;
+  costPerUsefulMWh: number | null;
+  statuses: Record<FitCheckId, CheckStatus>;
+  worst: CheckStatus;
+}
+
+export interface SweepCrossing {
+  checkId: FitCheckId;
+  label: string;
+  /** First hydrogen share (vol %) at which the check warns or fails; null if never within 0–100 %. */
+  firstWarnPercent: number | null;
+  firstFailPercent: number | null;
+  /** Status at 0 % hydrogen (a limit may already be exceeded by the baseline gas). */
+  statusAtZero: CheckStatus;
+}
+
+export interface SweepLimitLines {
+  wobbeBand_MJ_per_m3: { min: number; max: number } | null;
+  wobbeRange_MJ_per_m3: { min: number; max: number } | null;
+  maxFlameTemperatureC: number | null;
+  flueGasCapacity_m3_per_h: number | null;
+  airCapacity_m3_per_h: number | null;
+  fuelSupplyCapacity_m3_per_h: number | null;
+  maxH2SharePercent: number | null;
+}
+
+export interface HydrogenSweepResult {
+  available: boolean;
+  /** Why the sweep is not available (e.g. the baseline is not a gas). */
+  reason?: string;
+  baseGasLabel: string;
+  hydrogenLabel: string;
+  stepPercent: number;
+  points: SweepPoint[];
+  crossings: SweepCrossing[];
+  limitLines: SweepLimitLines | null;
+  basis: { wobbe: string; flame: string; volumes: string; cost: string };
+  notes: string[];
+}
+
+export interface SweepEnvironment {
+  study: Study;
+  plant: Plant;
+  duty: PlantDuty;
+  caches: EvaluationCaches;
+  baseline: { definition: FuelDefinition; fip: FuelInPlant; price: NormalisedPrice | null; costInputs: CostInputs | null };
+  scenarios: { ctx: FuelContext; price: NormalisedPrice | null }[];
+  fin: FinanceAssumptions;
+}
+
+export function sweepShares(stepPercent: number): number[] {
+  const n = Math.round(100 / stepPercent);
+  const out: number[] = [];
+  for (let i = 0; i <= n; i++) out.push(Math.min(100, Math.round(i * stepPercent * 1e6) / 1e6));
+  if (out[out.length - 1] !== 100) out.push(100);
+  return out;
+}
+
+export function hydrogenSweep(env: SweepEnvironment): HydrogenSweepResult {
+  const { study, plant, duty, caches } = env;
+  const cfg = study.hydrogenSweep;
+  const baseCtx = env.baseline.fip.ctx;
+  const basis = {
+    wobbe: `gross Wobbe index, combustion ${plant.wobbeCombustionReferenceC} °C, metering ${plant.wobbeMeteringReference}, 101.325 kPa (ISO 6976:2016)`,
+    flame: "adiabatic flame temperature, chemical equilibrium at the plant's flue O2 and combustion-air temperature",
+    volumes: `at rated useful duty: fuel gas at ${plant.fuelSupplyMeteringReference} (real gas); flue gas and air on the fans' ${plant.flueGasCapacityBasis}/${plant.airCapacityBasis} basis`,
+    cost: "fuel + carbon (+ upstream when included) per MWh of useful heat",
+  };
+  const empty = (reason: string): HydrogenSweepResult => ({
+    available: false, reason, baseGasLabel: baseCtx.label, hydrogenLabel: "hydrogen", stepPercent: cfg.stepPercent,
+    points: [], crossings: [], limitLines: null, basis, notes: [],
+  });
+  if (baseCtx.fuel.kind !== "gas" || !baseCtx.fuel.molarMass_g_per_mol) return empty("the baseline fuel is not a gas: no hydrogen blending");
+  const h2Ctx = caches.fuels.fromDefinition(cfg.hydrogen, "hydrogenSweep.hydrogen");
+  if (h2Ctx.fuel.kind !== "gas" || !h2Ctx.fuel.molarMass_g_per_mol) throw new StudyInputError("hydrogenSweep.hydrogen", "must be a gas");
+  const notes: string[] = [];
+
+  // Prices per kg delivered (for mass-weighted blend prices).
+  let h2Price: NormalisedPrice | null = cfg.hydrogenPrice ? normaliseStudyPrice(cfg.hydrogenPrice, h2Ctx, "hydrogenSweep.hydrogenPrice") : null;
+  if (!h2Price) {
+    const s = env.scenarios.find((x) => x.ctx.key === h2Ctx.key && x.price);
+    if (s) {
+      h2Price = s.price;
+      notes.push("hydrogen priced at the quote of the scenario that burns pure hydrogen");
+    }
+  }
+  const basePrice = env.baseline.price;
+  if (!basePrice || !h2Price) notes.push("no cost line: the sweep needs a price for the baseline gas and for hydrogen");
+
+  const op = operatingPointOf(plant, {});
+  const baseFip = env.baseline.fip;
+  const tmW = METERING_REFERENCE_C[plant.wobbeMeteringReference];
+  const wb = baseCtx.wobbe(plant.wobbeCombustionReferenceC, tmW);
+  const Mb = baseCtx.fuel.molarMass_g_per_mol;
+  const Mh = h2Ctx.fuel.molarMass_g_per_mol;
+  const baseCo2 = (baseCtx.co2.fossil_kg_per_GJ_lhv + (study.includeUpstream ? (baseCtx.co2.upstreamCo2e_kg_per_GJ_lhv ?? 0) : 0)) / baseFip.perf.efficiency.net.efficiency;
+
+  const points: SweepPoint[] = [];
+  let warm: EquilibriumResult | undefined = baseFip.perf.equilibrium;
+  for (const share of sweepShares(cfg.stepPercent)) {
+    const x = share / 100;
+    const ctx =
+      share === 0
+        ? baseCtx
+        : share === 100
+          ? h2Ctx
+          : caches.fuels.fromKeyedDefinition(
+              `h2-sweep:${baseCtx.key}:${h2Ctx.key}:${share}`,
+              () => ({ blend: [{ fuel: env.baseline.definition, share: 1 - x }, { fuel: cfg.hydrogen, share: x }], basis: "volume" }),
+              "hydrogenSweep",
+            );
+    const perf = caches.performance.get(ctx, op, warm);
+    if (perf.equilibrium) warm = perf.equilibrium;
+    const fip: FuelInPlant = { ctx, perf, flows: flowsForUseful(plant, ctx, perf, duty.ratedUseful_kW) };
+    const checks = fitChecks(plant, baseFip, fip, { messages: false });
+    const statuses = {} as Record<FitCheckId, CheckStatus>;
+    for (const c of checks) statuses[c.id] = c.status;
+    const w = ctx.wobbe(plant.wobbeCombustionReferenceC, tmW);
+    const wH2 = (x * Mh) / (x * Mh + (1 - x) * Mb); // mass fraction of hydrogen
+    const etaN = perf.efficiency.net.efficiency;
+    const co2 = (ctx.co2.fossil_kg_per_GJ_lhv + (study.includeUpstream ? (ctx.co2.upstreamCo2e_kg_per_GJ_lhv ?? 0) : 0)) / etaN;
+    let cost: number | null = null;
+    if (basePrice && h2Price && env.baseline.costInputs) {
+      const perKg = (1 - wH2) * basePrice.perKg + wH2 * h2Price.perKg;
+      const delivered = normalisePrice({ amount: perKg, unit: "kg" }, ctx.energyContent).perMWh_net;
+      cost = scenarioCosts({
+        ...env.baseline.costInputs,
+        efficiencyNet: etaN,
+        grossOverNet: ctx.hv.hhv_MJ_per_kg / ctx.hv.lhv_MJ_per_kg,
+        deliveredPrice_per_MWh_net: delivered,
+        co2Fossil_kg_per_GJ_net: ctx.co2.fossil_kg_per_GJ_lhv,
+        co2Biogenic_kg_per_GJ_net: ctx.co2.biogenic_kg_per_GJ_lhv,
+        upstreamCo2e_kg_per_GJ_net: ctx.co2.upstreamCo2e_kg_per_GJ_lhv ?? 0,
+      }).costPerUsefulMWh.total;
+    }
+    const flows = fip.flows;
+    points.push({
+      h2Percent: share,
+      h2EnergySharePercent: (100 * wH2 * h2Ctx.hv.lhv_MJ_per_kg) / ctx.hv.lhv_MJ_per_kg,
+      wobbeGross_MJ_per_m3: w ? w.gross_MJ_per_m3 : null,
+      wobbeShiftPercent: w && wb ? (100 * (w.gross_MJ_per_m3 - wb.gross_MJ_per_m3)) / wb.gross_MJ_per_m3 : null,
+      flameTemperatureC: perf.flame.temperatureC,
+      flameShiftK: perf.flame.temperatureK - baseFip.perf.flame.temperatureK,
+      efficiencyNet: etaN,
+      efficiencyGross: perf.efficiency.gross.efficiency,
+      dewPointC: perf.efficiency.dewPointC,
+      co2PerUsefulMJ_g: co2,
+      co2ChangePercent: baseCo2 > 0 ? (100 * (co2 - baseCo2)) / baseCo2 : 0,
+      fuelVolume_m3_per_h: flows.fuelVolume_per_h ? flows.fuelVolume_per_h.value : NaN,
+      flueGas_m3_per_h: plant.flueGasCapacityBasis === "actual" ? flows.flueGas_m3_per_h_actual : flows.flueGas_m3_per_h_normal,
+      air_m3_per_h: plant.airCapacityBasis === "actual" ? flows.air_m3_per_h_actual : flows.air_m3_per_h_normal,
+      costPerUsefulMWh: cost,
+      statuses,
+      worst: worstStatus(checks.map((c) => c.status)),
+    });
+  }
+
+  const crossings: SweepCrossing[] = FIT_CHECK_IDS.map((id) => {
+    const warn = points.find((p) => p.statuses[id] === "warn" || p.statuses[id] === "fail");
+    const fail = points.find((p) => p.statuses[id] === "fail");
+    return {
+      checkId: id,
+      label: FIT_CHECK_LABELS[id],
+      firstWarnPercent: warn ? warn.h2Percent : null,
+      firstFailPercent: fail ? fail.h2Percent : null,
+      statusAtZero: points[0].statuses[id],
+    };
+  });
+
+  const tol = plant.wobbeTolerancePercent ?? null;
+  const limitLines: SweepLimitLines = {
+    wobbeBand_MJ_per_m3: tol !== null && wb ? { min: wb.gross_MJ_per_m3 * (1 - tol / 100), max: wb.gross_MJ_per_m3 * (1 + tol / 100) } : null,
+    wobbeRange_MJ_per_m3:
+      plant.wobbeMin_MJ_per_m3 != null && plant.wobbeMax_MJ_per_m3 != null ? { min: plant.wobbeMin_MJ_per_m3, max: plant.wobbeMax_MJ_per_m3 } : null,
+    maxFlameTemperatureC: plant.maxFlameTempRiseK != null ? baseFip.perf.flame.temperatureC + plant.maxFlameTempRiseK : null,
+    flueGasCapacity_m3_per_h: plant.flueGasCapacity_m3_per_h ?? null,
+    airCapacity_m3_per_h: plant.airCapacity_m3_per_h ?? null,
+    fuelSupplyCapacity_m3_per_h: plant.fuelSupplyCapacity_m3_per_h ?? null,
+    maxH2SharePercent: plant.maxH2SharePercent ?? null,
+  };
+
+  return {
+    available: true,
+    baseGasLabel: env.baseline.definition.name ?? baseCtx.label,
+    hydrogenLabel: cfg.hydrogen.name ?? h2Ctx.label,
+    stepPercent: cfg.stepPercent,
+    points,
+    crossings,
+    limitLines,
+    basis,
+    notes,
+  };
+}
