@@ -1,0 +1,353 @@
+"use client";
+
+import { useRouter } from "next/navigation";
+import { useState } from "react";
+import type { PriceView } from "@/lib/db/views";
+import { fmtUpTo, money } from "../../_ui/format";
+import { ErrorSummary, Field, invalid, toNumber, type Errors } from "./fields";
+
+const ENERGY_UNITS = ["MWh", "GJ", "kWh", "MMBtu", "therm"];
+const UNIT_OPTIONS: { group: string; units: { value: string; label: string }[] }[] = [
+  {
+    group: "Energy",
+    units: [
+      { value: "MWh", label: "MWh" },
+      { value: "GJ", label: "GJ" },
+      { value: "kWh", label: "kWh" },
+      { value: "MMBtu", label: "MMBtu" },
+      { value: "therm", label: "therm" },
+    ],
+  },
+  {
+    group: "Mass",
+    units: [
+      { value: "t", label: "tonne (t)" },
+      { value: "kg", label: "kg" },
+    ],
+  },
+  {
+    group: "Volume",
+    units: [
+      { value: "m3", label: "m³" },
+      { value: "L", label: "litre (L)" },
+      { value: "USgal", label: "US gallon" },
+    ],
+  },
+];
+const METERING = [
+  { value: "0C", label: "0 °C" },
+  { value: "15C", label: "15 °C" },
+  { value: "20C", label: "20 °C" },
+  { value: "60F", label: "60 °F" },
+];
+
+interface Draft {
+  amount: string;
+  currency: string;
+  unit: string;
+  energyBasis: string;
+  meteringReference: string;
+  transportAdder: string;
+  handlingAdder: string;
+  validFrom: string;
+  sourceNote: string;
+  isInvented: boolean;
+}
+
+function today(): string {
+  return new Date().toISOString().slice(0, 10);
+}
+
+function emptyDraft(currency: string, kind: string): Draft {
+  return {
+    amount: "",
+    currency,
+    unit: kind === "gas" ? "MWh" : kind === "liquid" ? "L" : "t",
+    energyBasis: kind === "gas" ? "gross" : "",
+    meteringReference: "",
+    transportAdder: "0",
+    handlingAdder: "0",
+    validFrom: today(),
+    sourceNote: "",
+    isInvented: false,
+  };
+}
+
+const PLACED = new Set(["amount", "currency", "unit", "energyBasis", "meteringReference", "transportAdder", "handlingAdder", "validFrom", "sourceNote", "isInvented"]);
+
+export function PriceHistory({ fuelId, fuelKind, prices }: { fuelId: number; fuelKind: string; prices: PriceView[] }) {
+  const router = useRouter();
+  const lastCurrency = prices[0]?.quote.currency ?? "EUR";
+  const [draft, setDraft] = useState<Draft>(() => emptyDraft(lastCurrency, fuelKind));
+  const [editing, setEditing] = useState<number | null>(null);
+  const [errors, setErrors] = useState<Errors>({});
+  const [message, setMessage] = useState<string | null>(null);
+  const [saved, setSaved] = useState<string | null>(null);
+  const [busy, setBusy] = useState(false);
+  const [formOpen, setFormOpen] = useState(prices.length === 0);
+
+  const isEnergy = ENERGY_UNITS.includes(draft.unit);
+  const showMetering = fuelKind === "gas" && draft.unit === "m3";
+  const set = (k: keyof Draft) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement>) => {
+    const value = e.target.type === "checkbox" ? (e.target as HTMLInputElement).checked : e.target.value;
+    setDraft((d) => ({ ...d, [k]: value }));
+  };
+
+  function startEdit(p: PriceView) {
+    const q = p.quote;
+    setEditing(q.id);
+    setFormOpen(true);
+    setErrors({});
+    setMessage(null);
+    setSaved(null);
+    setDraft({
+      amount: String(q.amount),
+      currency: q.currency,
+      unit: q.unit,
+      energyBasis: q.energyBasis ?? "",
+      meteringReference: q.meteringReference ?? "",
+      transportAdder: String(q.transportAdder),
+      handlingAdder: String(q.handlingAdder),
+      validFrom: q.validFrom,
+      sourceNote: q.sourceNote,
+      isInvented: q.isInvented,
+    });
+  }
+
+  function cancel() {
+    setEditing(null);
+    setErrors({});
+    setMessage(null);
+    setDraft(emptyDraft(lastCurrency, fuelKind));
+    setFormOpen(prices.length === 0);
+  }
+
+  async function submit(e: React.FormEvent) {
+    e.preventDefault();
+    setBusy(true);
+    setSaved(null);
+    const body = {
+      amount: toNumber(draft.amount),
+      currency: draft.currency,
+      unit: draft.unit,
+      energyBasis: isEnergy ? draft.energyBasis || null : null,
+      meteringReference: showMetering ? draft.meteringReference || null : null,
+      transportAdder: toNumber(draft.transportAdder) ?? 0,
+      handlingAdder: toNumber(draft.handlingAdder) ?? 0,
+      validFrom: draft.validFrom,
+      sourceNote: draft.sourceNote,
+      isInvented: draft.isInvented,
+    };
+    const url = editing === null ? `/api/fuels/${fuelId}/prices` : `/api/fuels/${fuelId}/prices/${editing}`;
+    const res = await fetch(url, { method: editing === null ? "POST" : "PUT", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
+    const out = await res.json().catch(() => ({}));
+    setBusy(false);
+    if (!res.ok) {
+      setErrors(out.fieldErrors ?? {});
+      setMessage(out.error ?? `The server answered ${res.status}.`);
+      return;
+    }
+    setErrors({});
+    setMessage(null);
+    setSaved(editing === null ? "Quote added." : "Quote corrected.");
+    setEditing(null);
+    setDraft(emptyDraft(draft.currency, fuelKind));
+    setFormOpen(false);
+    router.refresh();
+  }
+
+  async function remove(p: PriceView) {
+    if (!window.confirm(`Delete the quote of ${p.quote.validFrom} (${fmtUpTo(p.quote.amount, 4)} ${p.quote.currency}/${p.unitLabel})?`)) return;
+    const res = await fetch(`/api/fuels/${fuelId}/prices/${p.quote.id}`, { method: "DELETE" });
+    if (res.ok) {
+      setSaved("Quote deleted.");
+      router.refresh();
+    } else {
+      const out = await res.json().catch(() => ({}));
+      setMessage(out.error ?? `Could not delete (HTTP ${res.status}).`);
+    }
+  }
+
+  const anyInvented = prices.some((p) => p.quote.isInvented);
+  return (
+    <>
+      <p className="basis">
+        Delivered cost = commodity + transport + handling, converted with this fuel&apos;s own heating values (25 °C combustion
+        reference) and density. Newest first; the quote in force today is marked. Currency as quoted.
+      </p>
+      {anyInvented && (
+        <p className="note warn">
+          <span className="badge invented">invented</span> quotes are demo figures, not market prices.
+        </p>
+      )}
+      {saved && <p className="form-ok" role="status">{saved}</p>}
+      {prices.length > 0 ? (
+        <div className="table-wrap">
+          <table>
+            <thead>
+              <tr>
+                <th>Valid from</th>
+                <th>Quoted</th>
+                <th className="num">
+                  Delivered
+                  <span className="unit block">per MWh gross (HHV)</span>
+                </th>
+                <th className="num">
+                  Delivered
+                  <span className="unit block">per MWh net (LHV)</span>
+                </th>
+                <th className="num">
+                  Delivered
+                  <span className="unit block">per kg</span>
+                </th>
+                <th>Source</th>
+                <th className="no-print">
+                  <span className="sr-only">Actions</span>
+                </th>
+              </tr>
+            </thead>
+            <tbody>
+              {prices.map((p) => {
+                const q = p.quote;
+                const n = p.normalised;
+                return (
+                  <tr key={q.id}>
+                    <td style={{ whiteSpace: "nowrap" }}>
+                      {q.validFrom}
+                      {p.current && (
+                        <>
+                          <br />
+                          <span className="badge current">in force</span>
+                        </>
+                      )}
+                    </td>
+                    <td>
+                      <span style={{ whiteSpace: "nowrap" }}>
+                        {fmtUpTo(q.amount, 4)} {q.currency} <span className="unit">per {p.unitLabel}</span>
+                      </span>
+                      {q.transportAdder + q.handlingAdder > 0 && (
+                        <small className="muted" style={{ display: "block" }}>
+                          + transport {fmtUpTo(q.transportAdder, 4)} + handling {fmtUpTo(q.handlingAdder, 4)}
+                        </small>
+                      )}
+                    </td>
+                    {n ? (
+                      <>
+                        <td className="num">{money(n.perMWh_gross, q.currency)}</td>
+                        <td className="num">{money(n.perMWh_net, q.currency)}</td>
+                        <td className="num">{money(n.perKg, q.currency, 4)}</td>
+                      </>
+                    ) : (
+                      <td colSpan={3} className="field-error">
+                        cannot normalise: {p.error}
+                      </td>
+                    )}
+                    <td style={{ minWidth: "12rem" }}>
+                      <small>
+                        {q.isInvented && <span className="badge invented">invented</span>} {q.sourceNote}
+                      </small>
+                    </td>
+                    <td className="no-print" style={{ whiteSpace: "nowrap" }}>
+                      <button type="button" className="secondary small" onClick={() => startEdit(p)}>
+                        Correct
+                      </button>{" "}
+                      <button type="button" className="danger small" onClick={() => remove(p)}>
+                        Delete
+                      </button>
+                    </td>
+                  </tr>
+                );
+              })}
+            </tbody>
+          </table>
+        </div>
+      ) : (
+        <p className="muted">No price quotes yet.</p>
+      )}
+      {prices.length > 0 && prices.every((p) => !p.current) && <p className="note">No quote is in force today (all are dated in the future).</p>}
+
+      {!formOpen ? (
+        <p className="no-print" style={{ marginTop: "0.75rem" }}>
+          <button type="button" onClick={() => setFormOpen(true)}>
+            Add a price quote
+          </button>
+        </p>
+      ) : (
+        <form className="stack no-print" onSubmit={submit} noValidate style={{ marginTop: "1rem" }} aria-label="Price quote">
+          <fieldset>
+            <legend>{editing === null ? "Add a price quote" : "Correct a price quote"}</legend>
+            <ErrorSummary message={message} errors={errors} placed={(k) => PLACED.has(k)} />
+            <div className="row" style={{ marginTop: "0.5rem" }}>
+              <Field label="Price" name="amount" errors={errors} hint="commodity price per unit">
+                <input id="f-amount" name="amount" inputMode="decimal" className="num" value={draft.amount} onChange={set("amount")} {...invalid(errors, "amount")} />
+              </Field>
+              <Field label="Currency" name="currency" errors={errors} hint="ISO code, e.g. EUR">
+                <input id="f-currency" name="currency" value={draft.currency} onChange={set("currency")} maxLength={3} style={{ textTransform: "uppercase" }} {...invalid(errors, "currency")} />
+              </Field>
+              <Field label="Per unit" name="unit" errors={errors}>
+                <select id="f-unit" name="unit" value={draft.unit} onChange={set("unit")} {...invalid(errors, "unit")}>
+                  {UNIT_OPTIONS.map((g) => (
+                    <optgroup key={g.group} label={g.group}>
+                      {g.units.map((u) => (
+                        <option key={u.value} value={u.value}>
+                          {u.label}
+                        </option>
+                      ))}
+                    </optgroup>
+                  ))}
+                </select>
+              </Field>
+              {isEnergy && (
+                <Field label="Energy basis" name="energyBasis" errors={errors}>
+                  <select id="f-energyBasis" name="energyBasis" value={draft.energyBasis} onChange={set("energyBasis")} {...invalid(errors, "energyBasis")}>
+                    <option value="">— choose —</option>
+                    <option value="gross">gross (HHV)</option>
+                    <option value="net">net (LHV)</option>
+                  </select>
+                </Field>
+              )}
+              {showMetering && (
+                <Field label="Metering reference" name="meteringReference" errors={errors} hint="at 101.325 kPa">
+                  <select id="f-meteringReference" name="meteringReference" value={draft.meteringReference} onChange={set("meteringReference")} {...invalid(errors, "meteringReference")}>
+                    <option value="">— choose —</option>
+                    {METERING.map((m) => (
+                      <option key={m.value} value={m.value}>
+                        {m.label}
+                      </option>
+                    ))}
+                  </select>
+                </Field>
+              )}
+            </div>
+            <div className="row">
+              <Field label="Transport / network adder" name="transportAdder" errors={errors} hint="same currency and unit as the price">
+                <input id="f-transportAdder" name="transportAdder" inputMode="decimal" className="num" value={draft.transportAdder} onChange={set("transportAdder")} {...invalid(errors, "transportAdder")} />
+              </Field>
+              <Field label="Handling / storage adder" name="handlingAdder" errors={errors} hint="same currency and unit as the price">
+                <input id="f-handlingAdder" name="handlingAdder" inputMode="decimal" className="num" value={draft.handlingAdder} onChange={set("handlingAdder")} {...invalid(errors, "handlingAdder")} />
+              </Field>
+              <Field label="Valid from" name="validFrom" errors={errors}>
+                <input id="f-validFrom" name="validFrom" type="date" value={draft.validFrom} onChange={set("validFrom")} {...invalid(errors, "validFrom")} />
+              </Field>
+            </div>
+            <Field label="Source" name="sourceNote" errors={errors} hint="supplier, offer reference, index …">
+              <input id="f-sourceNote" name="sourceNote" value={draft.sourceNote} onChange={set("sourceNote")} {...invalid(errors, "sourceNote")} />
+            </Field>
+            <label style={{ display: "inline-flex", gap: "0.4rem", marginTop: "0.5rem", fontWeight: 400 }}>
+              <input type="checkbox" name="isInvented" checked={draft.isInvented} onChange={set("isInvented")} /> Example figure, not a real quote (shown as
+              “invented”)
+            </label>
+            <div className="row" style={{ marginTop: "0.75rem" }}>
+              <button type="submit" disabled={busy}>
+                {busy ? "Saving…" : editing === null ? "Add quote" : "Save correction"}
+              </button>
+              <button type="button" className="secondary" onClick={cancel}>
+                Cancel
+              </button>
+            </div>
+          </fieldset>
+        </form>
+      )}
+    </>
+  );
+}

@@ -1,0 +1,80 @@
+"use client";
+
+/** Form pieces shared by the fuel and price forms: labelled fields with their error message. */
+import type { ReactNode } from "react";
+
+export type Errors = Record<string, string>;
+
+export function FieldError({ errors, name, id }: { errors: Errors; name: string; id?: string }) {
+  const msg = errors[name];
+  if (!msg) return null;
+  return (
+    <span className="field-error" id={id ?? `err-${name}`} role="alert">
+      {msg}
+    </span>
+  );
+}
+
+export function Field({
+  label,
+  name,
+  errors,
+  hint,
+  children,
+  htmlFor,
+}: {
+  label: ReactNode;
+  name: string;
+  errors: Errors;
+  hint?: ReactNode;
+  children: ReactNode;
+  htmlFor?: string;
+}) {
+  return (
+    <div className="field">
+      <label htmlFor={htmlFor ?? `f-${name}`}>{label}</label>
+      {children}
+      {hint && <span className="hint">{hint}</span>}
+      <FieldError errors={errors} name={name} />
+    </div>
+  );
+}
+
+/** Props that mark an input invalid and tie it to its message. */
+export function invalid(errors: Errors, name: string) {
+  return errors[name] ? { "aria-invalid": true as const, "aria-describedby": `err-${name}` } : {};
+}
+
+/** Text from an input → number for the API; unparseable text is sent as is, so the server names the field. */
+export function toNumber(text: string): number | string | null {
+  const t = text.trim().replace(/\u2212/g, "-");
+  if (t === "") return null;
+  const n = Number(t);
+  return Number.isFinite(n) ? n : t;
+}
+
+/** Messages whose field has no place in the form (shown in the summary). */
+export function unplaced(errors: Errors, placed: (key: string) => boolean): [string, string][] {
+  return Object.entries(errors).filter(([k]) => !placed(k));
+}
+
+export function ErrorSummary({ message, errors, placed }: { message: string | null; errors: Errors; placed: (key: string) => boolean }) {
+  if (!message && Object.keys(errors).length === 0) return null;
+  const extra = unplaced(errors, placed);
+  const n = Object.keys(errors).length;
+  return (
+    <div className="form-errors" role="alert" aria-live="assertive">
+      <strong>{message ?? "Nothing was saved."}</strong>
+      {n > 0 && <span> {n === 1 ? "One field needs attention" : `${n} fields need attention`}; see the messages below each field.</span>}
+      {extra.length > 0 && (
+        <ul>
+          {extra.map(([k, v]) => (
+            <li key={k}>
+              {k === "_" ? "" : <code>{k}</code>} {v}
+            </li>
+          ))}
+        </ul>
+      )}
+    </div>
+  );
+}

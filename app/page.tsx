@@ -1,0 +1,80 @@
+import Link from "next/link";
+import { db } from "@/lib/db/client";
+import { EQUIPMENT_TYPE_LABELS, type EquipmentType } from "@/lib/schemas/plant";
+import { fmt } from "./_ui/format";
+
+export const dynamic = "force-dynamic";
+
+export default async function HomePage() {
+  const [fuelCount, quoteCount, plants] = await Promise.all([
+    db().fuel.count(),
+    db().priceQuote.count(),
+    db().plant.findMany({ orderBy: { id: "asc" }, include: { baselineFuel: { select: { id: true, name: true } }, studies: { select: { id: true, name: true } } } }),
+  ]);
+  return (
+    <>
+      <h1>Stoke</h1>
+      <p className="lede" style={{ fontSize: "1.05rem", color: "var(--ink)" }}>
+        Stoke helps plant managers, energy engineers, buyers and consultants decide whether a fired unit — a steam or hot-water
+        boiler, thermal-oil heater, furnace, kiln or dryer — should switch fuel: which fuel or blend, at what share, is feasible
+        for the equipment and cheapest per unit of useful heat, and what it does to CO2.
+      </p>
+
+      <div className="grid2" style={{ marginTop: "1.25rem" }}>
+        <section className="panel">
+          <h2 style={{ marginTop: 0 }}>Fuel library</h2>
+          <p>
+            {fuelCount} fuels and blends with {quoteCount} price quotes. Heating values on every basis, Wobbe index, flue gas,
+            flame temperature, CO2 and delivered cost per MWh from quotes in any unit.
+          </p>
+          <p className="row">
+            <Link className="button" href="/fuels">
+              Open the fuel library
+            </Link>
+            <Link className="button secondary" href="/fuels/new">
+              Add a fuel
+            </Link>
+          </p>
+        </section>
+        <section className="panel">
+          <h2 style={{ marginTop: 0 }}>Plants in this database</h2>
+          {plants.length === 0 ? (
+            <p className="muted">No plant profiles yet.</p>
+          ) : (
+            <table className="kv">
+              <tbody>
+                {plants.map((p) => (
+                  <tr key={p.id}>
+                    <th scope="row">
+                      {p.name}
+                      {p.isDemo && (
+                        <>
+                          {" "}
+                          <span className="badge demo">demo</span>
+                        </>
+                      )}
+                    </th>
+                    <td>
+                      {EQUIPMENT_TYPE_LABELS[p.equipmentType as EquipmentType] ?? p.equipmentType}, {fmt(p.ratedInput_kW / 1000, 1)} MW input
+                      {p.baselineFuel && (
+                        <>
+                          , on <Link href={`/fuels/${p.baselineFuel.id}`}>{p.baselineFuel.name}</Link>
+                        </>
+                      )}
+                      {p.studies.length > 0 && <div className="muted">Studies: {p.studies.map((s) => s.name).join("; ")}</div>}
+                    </td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          )}
+          {plants.some((p) => p.isDemo) && (
+            <p className="basis">
+              The demo site{plants[0]?.site ? ` — ${plants[0].site}` : ""} — and all its prices are invented.
+            </p>
+          )}
+        </section>
+      </div>
+    </>
+  );
+}
