@@ -6,6 +6,7 @@
 import { studySchema } from "../schemas/study";
 import { evaluateStudy } from "../study/evaluate";
 import { StudyInputError } from "../study/errors";
+import { FuelDefinitionError } from "../fuels/resolve";
 import { CSV_TABLES, studyResultToCsv, type CsvTable } from "../study/csv";
 import { ok, parseFlags, readJsonInput, usageFailure, validate, UsageError, type CliResult } from "./io";
 
@@ -25,7 +26,7 @@ export function runEvaluate(argv: readonly string[], stdin: () => string): CliRe
     return ok(result);
   } catch (e) {
     if (e instanceof UsageError) return usageFailure(e.message);
-    if (e instanceof StudyInputError) return usageFailure(e.message);
+    if (e instanceof StudyInputError || e instanceof FuelDefinitionError) return usageFailure(e.message);
     throw e;
   }
 }

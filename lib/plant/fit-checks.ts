@@ -92,7 +92,10 @@ export function fitChecks(plant: Plant, baseline: FuelInPlant, cand: FuelInPlant
   const out: FitCheck[] = [];
   // Sentences are only built when wanted (sweeps evaluate thousands of checks).
   const T = withText;
-  const push = (c: Omit<FitCheck, "label">) => out.push({ ...c, label: FIT_CHECK_LABELS[c.id] });
+  const push = (c: Omit<FitCheck, "label">) => {
+    (c as FitCheck).label = FIT_CHECK_LABELS[c.id];
+    out.push(c as FitCheck);
+  };
 
   // --- Wobbe index -------------------------------------------------------------------------
   const tc = plant.wobbeCombustionReferenceC;

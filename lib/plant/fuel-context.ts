@@ -65,7 +65,7 @@ export function fuelStateKey(f: ResolvedFuel): string {
 function buildContext(fuel: ResolvedFuel, key: string): FuelContext {
   const hv = heatingValues(fuel, HEAT_BALANCE_REFERENCE_C);
   const co2 = co2Factors(fuel, hv);
-  const wobbeMemo = new Map<string, WobbeFigures | null>();
+  const wobbeMemo = new Map<number, WobbeFigures | null>();
   const densityMemo = new Map<number, number>();
   const isGas = fuel.kind === "gas" && fuel.gasComposition !== undefined && fuel.molarMass_g_per_mol !== undefined;
   const gasDensity = (tm: number): number => {
@@ -86,7 +86,7 @@ function buildContext(fuel: ResolvedFuel, key: string): FuelContext {
     h2SharePercent: 100 * fuel.h2MoleFraction,
     wobbe(tc, tm) {
       if (!isGas) return null;
-      const k = `${tc}/${tm}`;
+      const k = tc * 1000 + tm; // references are a handful of small numbers
       let w = wobbeMemo.get(k);
       if (w === undefined) {
         // Volumetric heating value (real gas) = molar heating value × real molar density, as in

@@ -114,7 +114,7 @@ export const plantSchema = z
     ambientAir: ambientAirSchema.default({ temperatureC: 15, relativeHumidityPercent: 60 }),
     ...plantLimitsShape,
     notes: z.string().max(5000).default(""),
-  })
+  }, { error: (iss) => (iss.input === undefined ? "required: the plant (an object)" : "must be an object describing the plant") })
   .strict()
   .superRefine((p, ctx) => {
     if (p.condensing && (p.returnWaterC === undefined || p.returnWaterC === null)) {

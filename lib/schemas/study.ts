@@ -39,7 +39,7 @@ export const scenarioSchema = z
     fixedOpexChange: num().min(-1e11, "must be ≥ −10^11").max(1e11, "must be ≤ 10^11").default(0),
     overrides: operatingOverridesSchema.default({}),
     notes: text(5000).default(""),
-  })
+  }, { error: (iss) => (iss.input === undefined ? "required: a scenario (an object)" : "must be an object describing a scenario") })
   .strict();
 export type ScenarioInput = z.input<typeof scenarioSchema>;
 export type Scenario = z.output<typeof scenarioSchema>;
@@ -86,9 +86,9 @@ export const studySchema = z
     hydrogenSweep: hydrogenSweepSchema.default({ enabled: true, stepPercent: 1, hydrogen: { compound: "H2", phase: "gas" } as FuelDefinition }),
     plant: plantSchema,
     baseline: scenarioSchema,
-    scenarios: z.array(scenarioSchema).max(200, "at most 200 scenarios"),
+    scenarios: z.array(scenarioSchema, { error: (iss) => (iss.input === undefined ? "required: a list of candidate scenarios (may be empty)" : "must be a list of scenarios") }).max(200, "at most 200 scenarios"),
     notes: text(10000).default(""),
-  })
+  }, { error: "a study must be a JSON object" })
   .strict()
   .superRefine((s, ctx) => {
     if (s.baseline.capex !== 0) ctx.addIssue({ code: "custom", path: ["baseline", "capex"], message: "the baseline has no switching capex (must be 0)" });
