@@ -1,0 +1,64 @@
+/** φ sweep: equilibrium and complete-combustion flame temperatures against the equivalence ratio. */
+import { describe, expect, it } from "vitest";
+import { phiSweep } from "../../../lib/study/phi-sweep";
+
+describe("phi sweep", () => {
+  const methane = phiSweep({ fuel: { composition: { CH4: 1 } } });
+
+  it("methane–air at 298 K, 1 atm: equilibrium peak on the rich side near φ ≈ 1.035, about 2236 K", () => {
+    // Turns, An Introduction to Combustion, 3rd ed. (2012), §2 (Fig. 2.14 and text): the equilibrium
+    // adiabatic flame temperature of methane–air peaks slightly rich, at φ ≈ 1.035, about 2236 K
+    // (value from memory).
+    const peak = methane.peak.equilibrium!;
+    expect(peak.method).toBe("golden-section search on the solver");
+    expect(peak.phi).toBeGreaterThan(1.01);
+    expect(peak.phi).toBeLessThan(1.06);
+    expect(peak.temperatureK).toBeGreaterThan(2236 - 15);
+    expect(peak.temperatureK).toBeLessThan(2236 + 15);
+  });
+
+  it("methane–air at φ = 1: equilibrium ≈ 2226 K (Turns 3rd ed., Table 2.1, value from memory)", () => {
+    const p = methane.points.find((x) => Math.abs(x.phi - 1) < 1e-9)!;
+    expect(p.equilibriumK!).toBeGreaterThan(2226 - 15);
+    expect(p.equilibriumK!).toBeLessThan(2226 + 15);
+    // Complete combustion ignores dissociation and is hotter there (common practice, no source).
+    expect(p.completeK!).toBeGreaterThan(p.equilibriumK! + 50);
+  });
+
+  it("complete combustion peaks at stoichiometry; equilibrium never exceeds it", () => {
+    // Without dissociation the heat release per mole of products is largest at φ = 1 (textbook fact, no source).
+    expect(Math.abs(methane.peak.complete!.phi - 1)).toBeLessThan(0.01);
+    for (const p of methane.points) {
+      expect(p.errors).toEqual([]);
+      expect(p.equilibriumK!).toBeLessThanOrEqual(p.completeK! + 1e-6);
+    }
+  });
+
+  it("lean flames converge: at φ = 0.5 dissociation is negligible (within 10 K)", () => {
+    // Common practice, no source: below about 1800 K equilibrium and complete combustion agree closely.
+    const p = methane.points[0];
+    expect(p.phi).toBeCloseTo(0.5, 9);
+    expect(Math.abs(p.equilibriumK! - p.completeK!)).toBeLessThan(10);
+  });
+
+  it("hydrogen–air also peaks rich of stoichiometric, near φ ≈ 1.05–1.1, about 2400 K", () => {
+    // Hydrogen–air flames peak on the rich side, at about 2400 K at 298 K and 1 atm (common textbook
+    // figure, e.g. Glassman & Yetter, Combustion, 4th ed. (2008); value from memory).
+    const h2 = phiSweep({ fuel: { composition: { H2: 1 } }, meanCp: false });
+    expect(h2.peak.equilibrium!.phi).toBeGreaterThan(1.02);
+    expect(h2.peak.equilibrium!.phi).toBeLessThan(1.12);
+    expect(h2.peak.equilibrium!.temperatureK).toBeGreaterThan(2350);
+    expect(h2.peak.equilibrium!.temperatureK).toBeLessThan(2450);
+    expect(h2.points.every((p) => p.meanCpK === null)).toBe(true);
+  });
+
+  it("preheated air raises every point", () => {
+    const hot = phiSweep({ fuel: { composition: { CH4: 1 } }, oxidizerTemperatureK: 573.15, steps: 4, phiMin: 0.8, phiMax: 1.2 });
+    const cold = phiSweep({ fuel: { composition: { CH4: 1 } }, steps: 4, phiMin: 0.8, phiMax: 1.2 });
+    hot.points.forEach((p, i) => expect(p.equilibriumK!).toBeGreaterThan(cold.points[i].equilibriumK! + 100));
+  });
+
+  it("rejects an impossible range", () => {
+    expect(() => phiSweep({ fuel: { composition: { CH4: 1 } }, phiMin: 1.2, phiMax: 1.0 })).toThrow(/phi range/);
+  });
+});
