@@ -1,0 +1,61 @@
+/**
+ * Zod schema of a stored study as the study form and the API send it: the plant, the economic
+ * assumptions, the baseline and the candidate scenarios, each naming a stored fuel (or blend) and
+ * optionally a stored price quote. The constraints are the study schema's own (lib/schemas/study.ts);
+ * this only swaps embedded fuel definitions and quotes for references to the library.
+ */
+import { z } from "zod";
+import { scenarioSchema, studySchema } from "./study";
+
+const id = (what: string) =>
+  z
+    .number({ error: `choose ${what}` })
+    .int(`must be the id of ${what}`)
+    .positive(`must be the id of ${what}`);
+
+const s = studySchema.shape;
+const sc = scenarioSchema.shape;
+
+export const scenarioRecordSchema = z
+  .object({
+    name: sc.name,
+    fuelId: id("a stored fuel"),
+    /** A stored quote of that fuel; null = the quote in force in the study's currency (for a blend without one: its components' quotes). */
+    priceQuoteId: id("a price quote").nullish(),
+    capex: sc.capex,
+    fixedOpexChange: sc.fixedOpexChange,
+    overrides: sc.overrides,
+  })
+  .strict();
+export type ScenarioRecordInput = z.input<typeof scenarioRecordSchema>;
+export type ScenarioRecord = z.output<typeof scenarioRecordSchema>;
+
+export const studyRecordSchema = z
+  .object({
+    plantId: id("a plant"),
+    name: s.name,
+    currency: s.currency,
+    carbonPrice_per_t: s.carbonPrice_per_t,
+    discountRatePercent: s.discountRatePercent,
+    horizonYears: s.horizonYears,
+    priceEscalationPercent: s.priceEscalationPercent,
+    rankingMetric: s.rankingMetric,
+    notes: s.notes,
+    baseline: scenarioRecordSchema,
+    scenarios: z.array(scenarioRecordSchema).max(200, "at most 200 scenarios"),
+  })
+  .strict()
+  .superRefine((r, ctx) => {
+    if (r.baseline.capex !== 0) ctx.addIssue({ code: "custom", path: ["baseline", "capex"], message: "the baseline has no switching capex (must be 0)" });
+    if (r.baseline.fixedOpexChange !== 0) {
+      ctx.addIssue({ code: "custom", path: ["baseline", "fixedOpexChange"], message: "the baseline is the reference for opex changes (must be 0)" });
+    }
+    const seen = new Map<string, string>([[r.baseline.name.toLowerCase(), "the baseline"]]);
+    r.scenarios.forEach((x, i) => {
+      const k = x.name.toLowerCase();
+      if (seen.has(k)) ctx.addIssue({ code: "custom", path: ["scenarios", i, "name"], message: `"${x.name}" is already used by ${seen.get(k)}` });
+      else seen.set(k, `scenario ${i + 1}`);
+    });
+  });
+export type StudyRecordInput = z.input<typeof studyRecordSchema>;
+export type StudyRecord = z.output<typeof studyRecordSchema>;
