@@ -145,15 +145,24 @@ export function fitChecks(plant: Plant, baseline: FuelInPlant, cand: FuelInPlant
 
   // --- Flame temperature -------------------------------------------------------------------
   {
-    const rise = cand.perf.flame.temperatureK - baseline.perf.flame.temperatureK;
+    const cf = cand.perf.flame;
+    const bf = baseline.perf.flame;
     const lim = plant.maxFlameTempRiseK ?? null;
     const op = cand.perf.operatingPoint;
-    const basis = !T ? "" : `adiabatic flame temperature, chemical equilibrium (NASA RP-1311 method), at ${fmt(op.flueO2DryPercent, 1)} % O2 dry and ${op.combustionAirC} °C combustion air, fuel at 25 °C, 101.325 kPa`;
-    const text = !T ? "" : `flame ${fmt(cand.perf.flame.temperatureC, 0)} °C, ${rise >= 0 ? "+" : ""}${fmt(rise, 0)} K versus baseline ${fmt(baseline.perf.flame.temperatureC, 0)} °C`;
-    if (lim === null) push({ id: "flame-temperature-rise", status: "not-checked", value: rise, limit: null, unit: "K", usage: null, basis, message: T ? `${text}; no maximum rise entered` : "" });
-    else {
-      const r = rise <= 0 ? { status: "pass" as CheckStatus, usage: 0 } : atMost(rise, lim, warnAt);
-      push({ id: "flame-temperature-rise", status: r.status, value: rise, limit: lim, unit: "K", usage: r.usage, basis, message: T ? `${text}; maximum rise ${fmt(lim, 0)} K` : "" });
+    if (!cf || !bf) {
+      push({
+        id: "flame-temperature-rise", status: "not-checked", value: null, limit: lim, unit: "K", usage: null, basis: "chemical equilibrium",
+        message: (cand.perf.flameError ?? baseline.perf.flameError) ?? "no flame temperature",
+      });
+    } else {
+      const rise = cf.temperatureK - bf.temperatureK;
+      const basis = !T ? "" : `adiabatic flame temperature, chemical equilibrium (NASA RP-1311 method), at ${fmt(op.flueO2DryPercent, 1)} % O2 dry and ${op.combustionAirC} °C combustion air, fuel at 25 °C, 101.325 kPa`;
+      const text = !T ? "" : `flame ${fmt(cf.temperatureC, 0)} °C, ${rise >= 0 ? "+" : ""}${fmt(rise, 0)} K versus baseline ${fmt(bf.temperatureC, 0)} °C`;
+      if (lim === null) push({ id: "flame-temperature-rise", status: "not-checked", value: rise, limit: null, unit: "K", usage: null, basis, message: T ? `${text}; no maximum rise entered` : "" });
+      else {
+        const r = rise <= 0 ? { status: "pass" as CheckStatus, usage: 0 } : atMost(rise, lim, warnAt);
+        push({ id: "flame-temperature-rise", status: r.status, value: rise, limit: lim, unit: "K", usage: r.usage, basis, message: T ? `${text}; maximum rise ${fmt(lim, 0)} K` : "" });
+      }
     }
   }
 

@@ -8,7 +8,7 @@
 import { humidAir, lambdaFromFlueO2Dry, excessAirPercentFromLambda, oxidizerDemand, type Oxidizer } from "../combustion/stoichiometry";
 import { flameTemperature, type FlameResult } from "../combustion/flame";
 import { NORMAL_MOLAR_VOLUME_m3_per_mol } from "../combustion/flue-gas";
-import type { EquilibriumResult } from "../combustion/equilibrium";
+import { EquilibriumNotConvergedError, type EquilibriumResult } from "../combustion/equilibrium";
 import { celsiusToKelvin, kelvinToCelsius, T0CK, T298K } from "../units/constants";
 import type { OperatingPoint } from "../schemas/plant";
 import { heatLossEfficiency, type EfficiencyResult } from "./efficiency";
@@ -36,7 +36,9 @@ export interface FuelPerformance {
   lambda: number;
   excessAirPercent: number;
   efficiency: EfficiencyResult;
-  flame: FlameFigures;
+  /** Equilibrium flame temperature; null when the solver did not converge (see flameError). */
+  flame: FlameFigures | null;
+  flameError?: string;
   /** Equilibrium solution kept for warm starts of neighbouring states. */
   equilibrium?: EquilibriumResult;
   /** Per MJ of fuel heat input on the net basis. */
@@ -128,15 +130,23 @@ export function computePerformance(ctx: FuelContext, op: OperatingPoint, oxidize
     condensingSurfaceC: condensingSurfaceC(op),
   });
   const canWarm = warmStart !== undefined && (fuel.elements_mol_per_kg.S > 0) === warmStart.species.includes("SO2");
-  const flame = flameTemperature({
-    fuel,
-    oxidizer,
-    phi: 1 / lambda,
-    fuelTemperatureK: FUEL_TEMPERATURE_K,
-    oxidizerTemperatureK: celsiusToKelvin(op.combustionAirC),
-    method: "equilibrium",
-    ...(canWarm ? { warmStart } : {}),
-  });
+  let flame: FlameResult | null = null;
+  let flameError: string | undefined;
+  try {
+    flame = flameTemperature({
+      fuel,
+      oxidizer,
+      phi: 1 / lambda,
+      fuelTemperatureK: FUEL_TEMPERATURE_K,
+      oxidizerTemperatureK: celsiusToKelvin(op.combustionAirC),
+      method: "equilibrium",
+      ...(canWarm ? { warmStart } : {}),
+    });
+  } catch (e) {
+    // Reported, never replaced by a guess: the flame check becomes "not-checked" with this message.
+    if (!(e instanceof EquilibriumNotConvergedError)) throw e;
+    flameError = `equilibrium flame temperature did not converge: ${e.message}`;
+  }
   const demand = oxidizerDemand(fuel, oxidizer);
   const lhv = ctx.hv.lhv_MJ_per_kg;
   const fuelKgPerMJ = 1 / lhv;
@@ -149,15 +159,18 @@ export function computePerformance(ctx: FuelContext, op: OperatingPoint, oxidize
     lambda,
     excessAirPercent: excessAirPercentFromLambda(lambda),
     efficiency,
-    flame: {
-      temperatureK: flame.temperatureK,
-      temperatureC: kelvinToCelsius(flame.temperatureK),
-      method: flame.method,
-      methodLabel: flame.methodLabel,
-      phi: flame.phi,
-      ...(flame.equilibrium ? { iterations: flame.equilibrium.iterations } : {}),
-    },
-    ...(flame.equilibrium ? { equilibrium: flame.equilibrium } : {}),
+    flame: flame
+      ? {
+          temperatureK: flame.temperatureK,
+          temperatureC: kelvinToCelsius(flame.temperatureK),
+          method: flame.method,
+          methodLabel: flame.methodLabel,
+          phi: flame.phi,
+          ...(flame.equilibrium ? { iterations: flame.equilibrium.iterations } : {}),
+        }
+      : null,
+    ...(flameError ? { flameError } : {}),
+    ...(flame?.equilibrium ? { equilibrium: flame.equilibrium } : {}),
     perMJ_net: {
       fuel_kg: fuelKgPerMJ,
       air_m3_normal: lambda * demand.oxidizer_mol_per_kg * NORMAL_MOLAR_VOLUME_m3_per_mol * fuelKgPerMJ,

@@ -315,7 +315,11 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
           : null,
         basis: "efficiency = useful heat ÷ fuel heat input at HHV (gross) or LHV (net), 25 °C reference; heat-loss method",
       },
-      flame: { temperatureC: p.perf.flame.temperatureC, shiftK: p.perf.flame.temperatureK - base.perf.flame.temperatureK, method: p.perf.flame.methodLabel },
+      flame:
+        p.perf.flame && base.perf.flame
+          ? { temperatureC: p.perf.flame.temperatureC, shiftK: p.perf.flame.temperatureK - base.perf.flame.temperatureK, method: p.perf.flame.methodLabel }
+          : null,
+      ...(p.perf.flameError ? { flameError: p.perf.flameError } : {}),
       wobbeShiftPercent: w && wb ? pct(w.gross_MJ_per_m3, wb.gross_MJ_per_m3) : null,
       ratedFlows: f.flows,
       flowChangePercent: {

@@ -24,8 +24,9 @@ export interface SweepPoint {
   h2EnergySharePercent: number;
   wobbeGross_MJ_per_m3: number | null;
   wobbeShiftPercent: number | null;
-  flameTemperatureC: number;
-  flameShiftK: number;
+  /** null where the equilibrium solver did not converge (never a guessed number). */
+  flameTemperatureC: number | null;
+  flameShiftK: number | null;
   efficiencyNet: number;
   efficiencyGross: number;
   dewPointC: number | null;
@@ -177,8 +178,8 @@ export function hydrogenSweep(env: SweepEnvironment): HydrogenSweepResult {
       h2EnergySharePercent: (100 * wH2 * h2Ctx.hv.lhv_MJ_per_kg) / ctx.hv.lhv_MJ_per_kg,
       wobbeGross_MJ_per_m3: w ? w.gross_MJ_per_m3 : null,
       wobbeShiftPercent: w && wb ? (100 * (w.gross_MJ_per_m3 - wb.gross_MJ_per_m3)) / wb.gross_MJ_per_m3 : null,
-      flameTemperatureC: perf.flame.temperatureC,
-      flameShiftK: perf.flame.temperatureK - baseFip.perf.flame.temperatureK,
+      flameTemperatureC: perf.flame ? perf.flame.temperatureC : null,
+      flameShiftK: perf.flame && baseFip.perf.flame ? perf.flame.temperatureK - baseFip.perf.flame.temperatureK : null,
       efficiencyNet: etaN,
       efficiencyGross: perf.efficiency.gross.efficiency,
       dewPointC: perf.efficiency.dewPointC,
@@ -210,7 +211,7 @@ export function hydrogenSweep(env: SweepEnvironment): HydrogenSweepResult {
     wobbeBand_MJ_per_m3: tol !== null && wb ? { min: wb.gross_MJ_per_m3 * (1 - tol / 100), max: wb.gross_MJ_per_m3 * (1 + tol / 100) } : null,
     wobbeRange_MJ_per_m3:
       plant.wobbeMin_MJ_per_m3 != null && plant.wobbeMax_MJ_per_m3 != null ? { min: plant.wobbeMin_MJ_per_m3, max: plant.wobbeMax_MJ_per_m3 } : null,
-    maxFlameTemperatureC: plant.maxFlameTempRiseK != null ? baseFip.perf.flame.temperatureC + plant.maxFlameTempRiseK : null,
+    maxFlameTemperatureC: plant.maxFlameTempRiseK != null && baseFip.perf.flame ? baseFip.perf.flame.temperatureC + plant.maxFlameTempRiseK : null,
     flueGasCapacity_m3_per_h: plant.flueGasCapacity_m3_per_h ?? null,
     airCapacity_m3_per_h: plant.airCapacity_m3_per_h ?? null,
     fuelSupplyCapacity_m3_per_h: plant.fuelSupplyCapacity_m3_per_h ?? null,

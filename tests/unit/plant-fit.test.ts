@@ -1,7 +1,11 @@
 import { describe, expect, it } from "vitest";
 import { studySchema, type StudyInput } from "../../lib/schemas/study";
 import { evaluateStudy } from "../../lib/study/evaluate";
-import { worstStatus } from "../../lib/plant/fit-checks";
+import { fitChecks, worstStatus, type FuelInPlant } from "../../lib/plant/fit-checks";
+import { FuelContextCache } from "../../lib/plant/fuel-context";
+import { PerformanceCache } from "../../lib/plant/performance";
+import { flowsForUseful } from "../../lib/plant/duty";
+import { operatingPointOf } from "../../lib/schemas/plant";
 
 const METHANE = { composition: { CH4: 1 } };
 const blend = (x: number) => ({ blend: [{ fuel: METHANE, share: 1 - x }, { fuel: { compound: "H2", phase: "gas" as const }, share: x }], basis: "volume" as const });
@@ -118,6 +122,23 @@ describe("fit checks: pass / warn / fail against the plant's limits", () => {
     expect(check(r, -1, "fuel-supply").status).toBe("pass");
     expect(check(r, 0, "fuel-supply").status).toBe("fail");
     expect(r.scenarios[0].status).toBe("infeasible");
+  });
+
+  it("a flame temperature that did not converge is reported as not-checked with the solver's message, never guessed", () => {
+    const study = studySchema.parse({
+      name: "x", currency: "EUR", discountRatePercent: 5, horizonYears: 5,
+      plant: { name: "u", equipmentType: "kiln", ratedInput_kW: 1000, operatingHours: 1000, averageLoadFraction: 1, stackTemperatureC: 200, flueO2DryPercent: 3, combustionAirC: 20, radiationLossPercent: 1, condensing: false, maxFlameTempRiseK: 50 },
+      baseline: { name: "m", fuel: METHANE },
+      scenarios: [],
+    });
+    const ctx = new FuelContextCache().fromDefinition(METHANE);
+    const perf = new PerformanceCache().get(ctx, operatingPointOf(study.plant));
+    const ok: FuelInPlant = { ctx, perf, flows: flowsForUseful(study.plant, ctx, perf, 900) };
+    const failed: FuelInPlant = { ...ok, perf: { ...perf, flame: null, flameError: "equilibrium flame temperature did not converge: test" } };
+    const c = fitChecks(study.plant, ok, failed).find((x) => x.id === "flame-temperature-rise")!;
+    expect(c.status).toBe("not-checked");
+    expect(c.value).toBeNull();
+    expect(c.message).toMatch(/did not converge/);
   });
 
   it("worst status ordering", () => {
