@@ -1,0 +1,466 @@
+import fc from "fast-check";
+import { describe, expect, it } from "vitest";
+import {
+  createEquilibriumSolver,
+  DEFAULT_PRODUCT_SPECIES,
+  EquilibriumInfeasibleError,
+  EquilibriumNotConvergedError,
+  solveEquilibriumHP,
+  solveEquilibriumTP,
+  type EquilibriumProblem,
+  type EquilibriumResult,
+} from "../../lib/combustion/equilibrium";
+import { cp_J_per_molK, ELEMENTS, g_J_per_mol, h_J_per_mol, type Element } from "../../lib/thermo/nasa7";
+import { SPECIES } from "../../lib/thermo/species-data";
+import { atmospherePa, R_J_per_molK, standardPressurePa } from "../../lib/units/constants";
+
+// ---- test helpers -------------------------------------------------------------------------------
+
+type Mix = Record<string, number>;
+
+/** Textbook air: 1 O2 + 3.76 N2 (Turns, An Introduction to Combustion, ch. 2 convention). */
+const TEXTBOOK_AIR: Mix = { O2: 1 / 4.76, N2: 3.76 / 4.76 };
+/** Dry air with argon and CO2 (rounded standard composition; common practice, no source). */
+const DRY_AIR: Mix = { O2: 0.2095, N2: 0.7809, Ar: 0.0093, CO2: 0.0003 };
+const OXYGEN: Mix = { O2: 1 };
+
+function elementsOf(mix: Mix): Record<Element, number> {
+  const out = { C: 0, H: 0, O: 0, N: 0, S: 0, Ar: 0 } as Record<Element, number>;
+  for (const [key, x] of Object.entries(mix)) {
+    for (const [el, c] of Object.entries(SPECIES[key].elements)) out[el as Element] += x * (c ?? 0);
+  }
+  return out;
+}
+
+/**
+ * Reactant charge of 1 mol of fuel with oxidiser at equivalence ratio φ (oxygen demand for CO2, H2O,
+ * SO2 and N2 as products), each stream at its own temperature; enthalpy from the NASA polynomials.
+ */
+function charge(fuel: Mix, phi: number, oxidizer: Mix, fuelTemperatureK = 298.15, oxidizerTemperatureK = 298.15) {
+  const f = elementsOf(fuel);
+  const ox = elementsOf(oxidizer);
+  const o2Demand = f.C + f.H / 4 + f.S - f.O / 2;
+  const oxidizerMoles = o2Demand / phi / (ox.O / 2 - ox.C - ox.H / 4 - ox.S);
+  const elementMoles: Partial<Record<Element, number>> = {};
+  for (const el of ELEMENTS) {
+    const v = f[el] + oxidizerMoles * ox[el];
+    if (v > 0) elementMoles[el] = v;
+  }
+  let enthalpyJ = 0;
+  for (const [key, x] of Object.entries(fuel)) enthalpyJ += x * h_J_per_mol(SPECIES[key], fuelTemperatureK);
+  for (const [key, x] of Object.entries(oxidizer)) {
+    enthalpyJ += oxidizerMoles * x * h_J_per_mol(SPECIES[key], oxidizerTemperatureK);
+  }
+  return { elementMoles, enthalpyJ };
+}
+
+function hp(fuel: Mix, phi: number, oxidizer: Mix, pressurePa = atmospherePa): EquilibriumResult {
+  return solveEquilibriumHP({ ...charge(fuel, phi, oxidizer), pressurePa });
+}
+
+/**
+ * Complete-combustion adiabatic temperature (products CO2, H2O, SO2, N2, Ar, excess O2 only; φ ≤ 1),
+ * by a 1-D Newton iteration on the enthalpy with temperature-dependent cp. Test-local on purpose.
+ */
+function completeCombustionTemperatureK(elementMoles: Partial<Record<Element, number>>, enthalpyJ: number): number {
+  const C = elementMoles.C ?? 0, H = elementMoles.H ?? 0, O = elementMoles.O ?? 0;
+  const N = elementMoles.N ?? 0, S = elementMoles.S ?? 0, Ar = elementMoles.Ar ?? 0;
+  const products: Mix = { CO2: C, H2O: H / 2, SO2: S, N2: N / 2, Ar, O2: O / 2 - C - H / 4 - S };
+  if (products.O2 < -1e-12) throw new Error("complete combustion needs φ ≤ 1");
+  let T = 2000;
+  for (let i = 0; i < 50; i++) {
+    let h = 0;
+    let cp = 0;
+    for (const [key, n] of Object.entries(products)) {
+      if (n <= 0) continue;
+      h += n * h_J_per_mol(SPECIES[key], T);
+      cp += n * cp_J_per_molK(SPECIES[key], T);
+    }
+    const dT = (enthalpyJ - h) / cp;
+    T += dT;
+    if (Math.abs(dT) < 1e-9) return T;
+  }
+  throw new Error("complete-combustion temperature did not converge");
+}
+
+/** Element balance recomputed from the returned moles and the species formulas (not from the solver). */
+function elementBalanceError(p: { elementMoles: Partial<Record<Element, number>> }, r: EquilibriumResult): number {
+  let worst = 0;
+  for (const el of ELEMENTS) {
+    const b0 = p.elementMoles[el] ?? 0;
+    if (b0 === 0) continue;
+    let b = 0;
+    r.species.forEach((key, k) => (b += (SPECIES[key].elements[el] ?? 0) * r.moles[k]));
+    worst = Math.max(worst, Math.abs(b - b0) / b0);
+  }
+  return worst;
+}
+
+/** Enthalpy balance recomputed with the scalar NASA-polynomial functions. */
+function enthalpyBalanceError(p: { enthalpyJ: number }, r: EquilibriumResult): number {
+  let h = 0;
+  let hAbs = 0;
+  r.species.forEach((key, k) => {
+    const hk = h_J_per_mol(SPECIES[key], r.temperatureK);
+    h += r.moles[k] * hk;
+    hAbs += r.moles[k] * Math.abs(hk);
+  });
+  return Math.abs(h - p.enthalpyJ) / Math.max(hAbs, R_J_per_molK * r.temperatureK * r.totalMoles);
+}
+
+/** ln K° of a reaction Σ ν_j A_j = 0 (products positive) from the NASA g°. */
+function lnK(nu: Mix, T: number): number {
+  let dG = 0;
+  for (const [key, v] of Object.entries(nu)) dG += v * g_J_per_mol(SPECIES[key], T);
+  return -dG / (R_J_per_molK * T);
+}
+
+/** ln of Π (x_j P/P°)^ν_j for the reaction, from a solution's mole fractions. */
+function lnQ(nu: Mix, r: EquilibriumResult): number {
+  let q = 0;
+  for (const [key, v] of Object.entries(nu)) q += v * Math.log((r.moleFractions[key] * r.pressurePa) / standardPressurePa);
+  return q;
+}
+
+// ---- published adiabatic flame temperatures ---------------------------------------------------------
+
+describe("equilibrium adiabatic flame temperature against published values (298.15 K, 1 atm, φ = 1)", () => {
+  it("methane–air: 2226 K", () => {
+    // Turns, An Introduction to Combustion, 2nd ed., ch. 2: equilibrium T_ad of stoichiometric CH4–air
+    // at 1 atm, 298 K = 2226 K (value from memory; the chapter, not a table number, is cited).
+    expect(hp({ CH4: 1 }, 1, TEXTBOOK_AIR).temperatureK).toBeGreaterThan(2226 - 15);
+    expect(hp({ CH4: 1 }, 1, TEXTBOOK_AIR).temperatureK).toBeLessThan(2226 + 15);
+  });
+
+  it("hydrogen–air: about 2390 K", () => {
+    // Glassman & Yetter, Combustion, 4th ed., ch. 1, table of approximate flame temperatures of
+    // stoichiometric mixtures: H2–air 2400 K, rounded (value from memory); ±20 K.
+    const T = hp({ H2: 1 }, 1, TEXTBOOK_AIR).temperatureK;
+    expect(Math.abs(T - 2390)).toBeLessThan(20);
+  });
+
+  it("methane–oxygen: about 3050 K", () => {
+    // Glassman & Yetter, Combustion, 4th ed., ch. 1, same table: CH4–O2 3030 K (value from memory);
+    // 3050 K ± 40 K covers the textbook spread.
+    const T = hp({ CH4: 1 }, 1, OXYGEN).temperatureK;
+    expect(Math.abs(T - 3050)).toBeLessThan(40);
+  });
+
+  it("hydrogen–oxygen about 3080 K, propane–air about 2267 K, CO–air about 2400 K", () => {
+    // Glassman & Yetter, Combustion, 4th ed., ch. 1 table: H2–O2 3080 K, CO–air 2400 K (values from
+    // memory). Turns, An Introduction to Combustion, 2nd ed., app. B fuel table: propane 2267 K
+    // (value from memory).
+    expect(Math.abs(hp({ H2: 1 }, 1, OXYGEN).temperatureK - 3080)).toBeLessThan(30);
+    expect(Math.abs(hp({ C3H8: 1 }, 1, TEXTBOOK_AIR).temperatureK - 2267)).toBeLessThan(15);
+    expect(Math.abs(hp({ CO: 1 }, 1, TEXTBOOK_AIR).temperatureK - 2400)).toBeLessThan(30);
+  });
+
+  it("the CH4–air curve over φ peaks slightly on the rich side (1.0 < φ_max < 1.1)", () => {
+    // Turns, An Introduction to Combustion, 2nd ed., Fig. 2.14 / common practice: the equilibrium
+    // maximum lies slightly rich of stoichiometric because of dissociation and the lower product cp.
+    const solver = createEquilibriumSolver(DEFAULT_PRODUCT_SPECIES);
+    let prev: EquilibriumResult | undefined;
+    let best = { phi: 0, T: 0 };
+    for (let i = 0; i <= 60; i++) {
+      const phi = 0.85 + i * 0.005;
+      const p: EquilibriumProblem = { ...charge({ CH4: 1 }, phi, TEXTBOOK_AIR), pressurePa: atmospherePa };
+      prev = solver.solveHP(prev ? { ...p, warmStart: prev } : p);
+      if (prev.temperatureK > best.T) best = { phi, T: prev.temperatureK };
+    }
+    expect(best.phi).toBeGreaterThan(1.0);
+    expect(best.phi).toBeLessThan(1.1);
+    expect(hp({ CH4: 1 }, 1, TEXTBOOK_AIR).temperatureK).toBeLessThan(best.T);
+  });
+
+  it("equilibrium T_ad lies below the complete-combustion T_ad, by far more near φ = 1 than lean", () => {
+    // Common practice, no source: dissociation (CO, H2, OH, H, O, NO) absorbs heat, strongly near φ = 1.
+    for (const fuel of [{ CH4: 1 }, { H2: 1 }, { C3H8: 1 }]) {
+      for (const phi of [0.5, 0.7, 0.9, 1.0]) {
+        const c = charge(fuel, phi, TEXTBOOK_AIR);
+        const Teq = solveEquilibriumHP({ ...c, pressurePa: atmospherePa }).temperatureK;
+        expect(Teq).toBeLessThan(completeCombustionTemperatureK(c.elementMoles, c.enthalpyJ));
+      }
+    }
+    const lean = charge({ CH4: 1 }, 0.5, TEXTBOOK_AIR);
+    const stoich = charge({ CH4: 1 }, 1, TEXTBOOK_AIR);
+    const gapLean = completeCombustionTemperatureK(lean.elementMoles, lean.enthalpyJ) -
+      solveEquilibriumHP({ ...lean, pressurePa: atmospherePa }).temperatureK;
+    const gapStoich = completeCombustionTemperatureK(stoich.elementMoles, stoich.enthalpyJ) -
+      solveEquilibriumHP({ ...stoich, pressurePa: atmospherePa }).temperatureK;
+    expect(gapLean).toBeLessThan(5);
+    expect(gapStoich).toBeGreaterThan(60);
+  });
+
+  it("T_ad in oxygen exceeds T_ad in air; higher pressure suppresses dissociation and raises T_ad", () => {
+    // Common practice, no source (no nitrogen ballast; Le Chatelier's principle for dissociation).
+    for (const fuel of [{ CH4: 1 }, { H2: 1 }, { NH3: 1 }]) {
+      expect(hp(fuel, 1, OXYGEN).temperatureK).toBeGreaterThan(hp(fuel, 1, TEXTBOOK_AIR).temperatureK + 400);
+    }
+    expect(hp({ CH4: 1 }, 1, OXYGEN, 20 * atmospherePa).temperatureK).toBeGreaterThan(
+      hp({ CH4: 1 }, 1, OXYGEN).temperatureK + 100,
+    );
+  });
+
+  it("preheating the air raises T_ad", () => {
+    // Common practice, no source.
+    const cold = solveEquilibriumHP({ ...charge({ CH4: 1 }, 1, DRY_AIR, 298.15, 298.15), pressurePa: atmospherePa });
+    const warm = solveEquilibriumHP({ ...charge({ CH4: 1 }, 1, DRY_AIR, 298.15, 700), pressurePa: atmospherePa });
+    expect(warm.temperatureK).toBeGreaterThan(cold.temperatureK + 150);
+  });
+});
+
+// ---- fixed temperature and pressure -----------------------------------------------------------------
+
+describe("equilibrium at fixed temperature and pressure", () => {
+  it("stoichiometric H2/O2 at 3000 K, 1 atm is strongly dissociated", () => {
+    // Common practice, no source: at 3000 K and 1 atm water is roughly a quarter to a third
+    // dissociated, with OH the largest radical (value from memory).
+    const r = solveEquilibriumTP({ ...charge({ H2: 1 }, 1, OXYGEN), pressurePa: atmospherePa, temperatureK: 3000 });
+    expect(r.moleFractions.OH).toBeGreaterThan(0.05);
+    expect(r.moleFractions.H).toBeGreaterThan(0.02);
+    expect(r.moleFractions.O).toBeGreaterThan(0.01);
+    expect(r.moleFractions.H2O).toBeLessThan(0.75);
+    expect(r.moleFractions.H2O).toBeGreaterThan(0.5);
+    // Le Chatelier: at 10 atm less dissociation
+    const r10 = solveEquilibriumTP({ ...charge({ H2: 1 }, 1, OXYGEN), pressurePa: 10 * atmospherePa, temperatureK: 3000 });
+    expect(r10.moleFractions.OH).toBeLessThan(r.moleFractions.OH);
+    expect(r10.moleFractions.H2O).toBeGreaterThan(r.moleFractions.H2O);
+  });
+
+  it("lean CH4/air products at 1000 K are essentially CO2, H2O, O2 and N2 (CO < 1e-10)", () => {
+    // Common practice, no source: below about 1200 K the equilibrium of lean products is complete
+    // combustion; the only other species of note is a trace of NO from N2 + O2.
+    const c = charge({ CH4: 1 }, 0.8, TEXTBOOK_AIR);
+    const r = solveEquilibriumTP({ ...c, pressurePa: atmospherePa, temperatureK: 1000 });
+    const x = r.moleFractions;
+    expect(x.CO).toBeLessThan(1e-10);
+    expect(x.H2).toBeLessThan(1e-9);
+    expect(x.CO2 + x.H2O + x.O2 + x.N2).toBeGreaterThan(1 - 1e-4);
+    // complete-combustion composition: per mol CH4, 1 CO2 + 2 H2O + 0.5 O2 + 2.5 × 3.76 N2
+    const total = 1 + 2 + 0.5 + 2.5 * 3.76;
+    expect(x.CO2).toBeCloseTo(1 / total, 5);
+    expect(x.H2O).toBeCloseTo(2 / total, 5);
+  });
+
+  it("mole fractions satisfy the equilibrium constants from the NASA g° to 1e-8 (internal consistency)", () => {
+    // Definition of K° (ideal gases): Π (x_j P/P°)^ν_j = exp(−Δ_r G°/RT); no external value.
+    const reactions: Mix[] = [
+      { CO2: 1, CO: -1, O2: -0.5 }, // CO + ½ O2 = CO2
+      { H2O: 1, H2: -1, O2: -0.5 }, // H2 + ½ O2 = H2O
+      { NO: 1, N2: -0.5, O2: -0.5 }, // ½ N2 + ½ O2 = NO
+      { OH: 1, H: 1, H2O: -1 }, // H2O = H + OH
+      { O: 2, O2: -1 }, // O2 = 2 O
+    ];
+    for (const [T, P] of [[2500, atmospherePa], [2000, 1e4], [1800, 5e6], [3200, atmospherePa]] as const) {
+      const r = solveEquilibriumTP({ ...charge({ CH4: 1 }, 1, DRY_AIR), pressurePa: P, temperatureK: T });
+      for (const nu of reactions) {
+        const rel = Math.abs(Math.expm1(lnQ(nu, r) - lnK(nu, T)));
+        expect(rel).toBeLessThan(1e-8);
+      }
+    }
+    // and in an HP solution, at its own temperature
+    const rHP = hp({ CH4: 1 }, 1.2, DRY_AIR);
+    for (const nu of reactions) {
+      expect(Math.abs(Math.expm1(lnQ(nu, rHP) - lnK(nu, rHP.temperatureK)))).toBeLessThan(1e-8);
+    }
+  });
+
+  it("is a Gibbs-energy minimum: shifting CO + ½ O2 ⇌ CO2 either way raises G", () => {
+    // Definition of equilibrium at fixed T and P; G/RT = Σ n_j (g°_j/RT + ln(x_j P/P°)).
+    const T = 2600;
+    const r = solveEquilibriumTP({ ...charge({ CH4: 1 }, 1, DRY_AIR), pressurePa: atmospherePa, temperatureK: T });
+    const G = (moles: Float64Array) => {
+      const total = moles.reduce((a, b) => a + b, 0);
+      let g = 0;
+      r.species.forEach((key, k) => {
+        g += moles[k] * (g_J_per_mol(SPECIES[key], T) / (R_J_per_molK * T) + Math.log((moles[k] / total) * (atmospherePa / standardPressurePa)));
+      });
+      return g;
+    };
+    const iCO2 = r.species.indexOf("CO2"), iCO = r.species.indexOf("CO"), iO2 = r.species.indexOf("O2");
+    const g0 = G(r.moles);
+    for (const eps of [1e-4, -1e-4]) {
+      const m = Float64Array.from(r.moles);
+      m[iCO2] += eps * m[iCO];
+      m[iCO] -= eps * m[iCO];
+      m[iO2] -= 0.5 * eps * r.moles[iCO];
+      expect(G(m)).toBeGreaterThan(g0);
+    }
+  });
+});
+
+// ---- balances over the whole operating range (property-based) ----------------------------------------
+
+const FUEL_KEYS = ["CH4", "C2H6", "C3H8", "H2", "CO", "CO2", "N2", "NH3", "H2S"] as const;
+const COMBUSTIBLE = new Set(["CH4", "C2H6", "C3H8", "H2", "CO", "NH3", "H2S"]);
+
+const fuelArb = fc
+  .tuple(
+    ...FUEL_KEYS.map((key) =>
+      key === "H2S" ? fc.double({ min: 0, max: 0.05, noNaN: true }) : fc.oneof(fc.constant(0), fc.double({ min: 0, max: 1, noNaN: true })),
+    ),
+  )
+  .filter((w) => FUEL_KEYS.some((key, i) => COMBUSTIBLE.has(key) && key !== "H2S" && w[i] > 0.01))
+  .map((w) => {
+    // hydrogen sulfide up to 5 % of the other combustibles (biogas-like): with SO2 the only sulfur
+    // product a sulfur-rich, fuel-rich charge has no all-gas equilibrium (tested separately below)
+    let others = 0;
+    let combustible = 0;
+    FUEL_KEYS.forEach((key, i) => {
+      if (key !== "H2S" && w[i] > 1e-12) others += w[i]; // analyses do not go below ppm
+      if (key !== "H2S" && COMBUSTIBLE.has(key) && w[i] > 1e-12) combustible += w[i];
+    });
+    const h2s = (w[FUEL_KEYS.indexOf("H2S")] * combustible) / others;
+    const fuel: Mix = {};
+    FUEL_KEYS.forEach((key, i) => {
+      if (key === "H2S") {
+        if (h2s > 1e-12) fuel.H2S = h2s;
+      } else if (w[i] > 1e-12) {
+        fuel[key] = ((1 - h2s) * w[i]) / others;
+      }
+    });
+    return fuel;
+  });
+
+const oxidizerArb = fc.oneof(
+  fc.constant(DRY_AIR),
+  fc.double({ min: 0.21, max: 0.9, noNaN: true }).map((o2): Mix => ({ O2: o2, N2: 1 - o2 })), // O2-enriched air
+  fc.constant(OXYGEN),
+  fc.double({ min: 0.001, max: 0.06, noNaN: true }).map((w): Mix => {
+    // humid air: 0.1 to 6 mol % water vapour (saturation near 36 °C)
+    const out: Mix = { H2O: w };
+    for (const [k, x] of Object.entries(DRY_AIR)) out[k] = x * (1 - w);
+    return out;
+  }),
+);
+
+describe("property-based: converges with verified balances over the operating range", () => {
+  it("HP from a cold start: φ 0.3–3, reactants 250–1200 K, 0.1–50 bar, air / enriched / O2 / humid air", () => {
+    fc.assert(
+      fc.property(
+        fuelArb,
+        oxidizerArb,
+        fc.double({ min: 0.3, max: 3, noNaN: true }),
+        fc.double({ min: 250, max: 1200, noNaN: true }),
+        fc.double({ min: 250, max: 1200, noNaN: true }),
+        fc.double({ min: Math.log(1e4), max: Math.log(5e6), noNaN: true }),
+        (fuel, oxidizer, phi, fuelT, oxT, lnP) => {
+          const c = charge(fuel, phi, oxidizer, fuelT, oxT);
+          const p = { ...c, pressurePa: Math.exp(lnP) };
+          const r = solveEquilibriumHP(p);
+          expect(r.elementBalanceRelError).toBeLessThanOrEqual(1e-10);
+          expect(r.enthalpyBalanceRelError).toBeLessThanOrEqual(1e-6);
+          expect(elementBalanceError(p, r)).toBeLessThanOrEqual(1e-10);
+          expect(enthalpyBalanceError(p, r)).toBeLessThanOrEqual(1e-6);
+          let sum = 0;
+          for (const key of r.species) {
+            expect(r.moleFractions[key]).toBeGreaterThanOrEqual(0);
+            sum += r.moleFractions[key];
+          }
+          expect(Math.abs(sum - 1)).toBeLessThan(1e-12);
+          expect(r.temperatureK).toBeGreaterThan(250);
+          expect(r.temperatureK).toBeLessThan(4500);
+          if (!(c.elementMoles.S! > 0)) expect(r.species).not.toContain("SO2");
+        },
+      ),
+      { numRuns: 300, seed: 20240611 },
+    );
+  });
+
+  it("TP from a cold start: 600–3500 K, same mixtures and pressures", () => {
+    fc.assert(
+      fc.property(
+        fuelArb,
+        oxidizerArb,
+        fc.double({ min: 0.3, max: 3, noNaN: true }),
+        fc.double({ min: 600, max: 3500, noNaN: true }),
+        fc.double({ min: Math.log(1e4), max: Math.log(5e6), noNaN: true }),
+        (fuel, oxidizer, phi, T, lnP) => {
+          const c = charge(fuel, phi, oxidizer);
+          const p = { elementMoles: c.elementMoles, pressurePa: Math.exp(lnP), temperatureK: T };
+          const r = solveEquilibriumTP(p);
+          expect(r.temperatureK).toBe(T);
+          expect(elementBalanceError(p, r)).toBeLessThanOrEqual(1e-10);
+          const sum = r.species.reduce((a, key) => a + r.moleFractions[key], 0);
+          expect(Math.abs(sum - 1)).toBeLessThan(1e-12);
+          const co = { CO2: 1, CO: -1, O2: -0.5 };
+          if (r.species.includes("CO")) expect(Math.abs(Math.expm1(lnQ(co, r) - lnK(co, T)))).toBeLessThan(1e-8);
+        },
+      ),
+      { numRuns: 150, seed: 7 },
+    );
+  });
+});
+
+// ---- API behaviour ----------------------------------------------------------------------------------
+
+describe("solver API", () => {
+  it("a reused solver, warm starts and the one-shot functions agree", () => {
+    const solver = createEquilibriumSolver(DEFAULT_PRODUCT_SPECIES);
+    const p1 = { ...charge({ CH4: 0.9, C2H6: 0.05, N2: 0.05 }, 0.95, DRY_AIR), pressurePa: atmospherePa };
+    const p2 = { ...charge({ CH4: 0.9, C2H6: 0.05, N2: 0.05 }, 1.15, DRY_AIR), pressurePa: atmospherePa };
+    const a = solver.solveHP(p1);
+    const b = solveEquilibriumHP(p1);
+    expect(a.temperatureK).toBeCloseTo(b.temperatureK, 9);
+    const coldP2 = solver.solveHP(p2);
+    const warmP2 = solver.solveHP({ ...p2, warmStart: a });
+    const hintP2 = solver.solveHP({ ...p2, initialTemperatureK: 1500 });
+    expect(warmP2.temperatureK).toBeCloseTo(coldP2.temperatureK, 7);
+    expect(hintP2.temperatureK).toBeCloseTo(coldP2.temperatureK, 7);
+    // the earlier result is not disturbed by later solves
+    expect(a.temperatureK).toBeCloseTo(b.temperatureK, 9);
+    expect(a.moles[a.species.indexOf("N2")]).toBeCloseTo(b.moles[b.species.indexOf("N2")], 12);
+  });
+
+  it("drops species whose elements are absent and adds SO2 only with sulfur", () => {
+    const h2o2 = hp({ H2: 1 }, 1, OXYGEN);
+    expect([...h2o2.species].sort()).toEqual(["H", "H2", "H2O", "O", "O2", "OH"]);
+    const ch4air = hp({ CH4: 1 }, 1, DRY_AIR);
+    expect([...ch4air.species]).toEqual([...DEFAULT_PRODUCT_SPECIES]);
+    const sour = hp({ CH4: 0.98, H2S: 0.02 }, 0.9, DRY_AIR);
+    expect(sour.species).toContain("SO2");
+    // lean: essentially all sulfur leaves as SO2
+    expect(sour.moles[sour.species.indexOf("SO2")]).toBeCloseTo(0.02, 12);
+  });
+
+  it("refuses a charge that has no all-gas equilibrium instead of returning a number", () => {
+    // rich hydrogen sulfide: with SO2 the only sulfur product, O is short of 2 S
+    expect(() => hp({ H2S: 1 }, 2, TEXTBOOK_AIR)).toThrow(EquilibriumInfeasibleError);
+    expect(() => hp({ H2S: 1 }, 2, TEXTBOOK_AIR)).toThrow(EquilibriumNotConvergedError);
+    // very rich propane: not enough oxygen even for CO (soot would form)
+    expect(() => hp({ C3H8: 1 }, 3.5, TEXTBOOK_AIR)).toThrow(/too little oxygen/);
+    // with H2S among the products the sulfur-rich charge has a gaseous equilibrium
+    const r = solveEquilibriumHP({
+      ...charge({ H2S: 1 }, 2, TEXTBOOK_AIR),
+      pressurePa: atmospherePa,
+      productSpecies: [...DEFAULT_PRODUCT_SPECIES, "SO2", "H2S"],
+    });
+    expect(r.moleFractions.H2S).toBeGreaterThan(0.01);
+    expect(r.elementBalanceRelError).toBeLessThanOrEqual(1e-10);
+  });
+
+  it("reports non-convergence when the product species cannot hold the charge", () => {
+    // lean methane with no species for the surplus oxygen (no O2, O, OH, NO)
+    const p = { ...charge({ CH4: 1 }, 0.8, TEXTBOOK_AIR), pressurePa: atmospherePa, productSpecies: ["CO2", "H2O", "N2"] };
+    expect(() => solveEquilibriumHP(p)).toThrow(EquilibriumNotConvergedError);
+  });
+
+  it("rejects bad input naming the field", () => {
+    const c = charge({ CH4: 1 }, 1, DRY_AIR);
+    expect(() => solveEquilibriumHP({ ...c, pressurePa: -1 })).toThrow(/pressurePa/);
+    expect(() => solveEquilibriumHP({ ...c, pressurePa: atmospherePa, enthalpyJ: NaN })).toThrow(/enthalpyJ/);
+    expect(() =>
+      solveEquilibriumHP({ elementMoles: { C: 1, Xe: 1 } as never, enthalpyJ: 0, pressurePa: atmospherePa }),
+    ).toThrow(/elementMoles.*Xe/);
+    expect(() => solveEquilibriumHP({ elementMoles: { C: -1 }, enthalpyJ: 0, pressurePa: atmospherePa })).toThrow(
+      /elementMoles\.C/,
+    );
+    expect(() => solveEquilibriumTP({ ...c, pressurePa: atmospherePa, temperatureK: 100 })).toThrow(/temperatureK/);
+    expect(() => solveEquilibriumHP({ ...c, pressurePa: atmospherePa, productSpecies: ["CO2", "Unobtainium"] })).toThrow(
+      /productSpecies.*Unobtainium/,
+    );
+    expect(() => createEquilibriumSolver(["H2O", "H2O(L)"])).toThrow(/not a gas/);
+    const solver = createEquilibriumSolver(DEFAULT_PRODUCT_SPECIES);
+    expect(() => solver.solveHP({ ...c, pressurePa: atmospherePa, productSpecies: ["CO2"] })).toThrow(/productSpecies/);
+  });
+});
