@@ -2,6 +2,7 @@
  * The Prisma client, one per process, on the better-sqlite3 driver adapter (no native
  * Prisma engine). `DATABASE_URL` chooses the file (see paths.ts).
  */
+import { createRequire } from "node:module";
 import { PrismaBetterSqlite3 } from "@prisma/adapter-better-sqlite3";
 import { PrismaClient } from "./generated/client";
 import { databaseTarget } from "./paths";
@@ -10,10 +11,17 @@ export type Db = PrismaClient;
 
 export function createClient(databaseUrl?: string): PrismaClient {
   const target = databaseTarget(databaseUrl);
-  if (target.provider !== "sqlite") {
-    throw new Error(
-      "DATABASE_URL points at PostgreSQL, but this build of Stoke is generated for SQLite. Follow README.md, section PostgreSQL.",
-    );
+  if (target.provider === "postgresql") {
+    // Optional: present only on a team server set up as README.md (section PostgreSQL) says.
+    let PrismaPg: new (opts: { connectionString: string }) => unknown;
+    try {
+      ({ PrismaPg } = createRequire(import.meta.url)("@prisma/adapter-pg"));
+    } catch {
+      throw new Error(
+        "DATABASE_URL points at PostgreSQL, but @prisma/adapter-pg is not installed and the client is generated for SQLite. Follow README.md, section PostgreSQL.",
+      );
+    }
+    return new PrismaClient({ adapter: new PrismaPg({ connectionString: target.url }) as never });
   }
   const adapter = new PrismaBetterSqlite3({ url: target.file });
   return new PrismaClient({ adapter });
