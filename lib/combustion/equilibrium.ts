@@ -42,7 +42,7 @@ export interface EquilibriumProblem {
   pressurePa: number;
   /**
    * Product species (keys of SPECIES, gases). Default: CO2, CO, H2O, H2, O2, N2, OH, H, O, NO, Ar, and
-   * SO2 when sulfur is present. Species containing an element absent from the charge are dropped.
+   * SO2 and H2S when sulfur is present. Species containing an element absent from the charge are dropped.
    */
   productSpecies?: readonly string[];
   /** Starting temperature for the iteration, K (HP). */
@@ -103,7 +103,7 @@ export class EquilibriumInfeasibleError extends EquilibriumNotConvergedError {
 export const DEFAULT_PRODUCT_SPECIES: readonly string[] = Object.freeze([
   "CO2", "CO", "H2O", "H2", "O2", "N2", "OH", "H", "O", "NO", "Ar",
 ]);
-const DEFAULT_WITH_SULFUR: readonly string[] = Object.freeze([...DEFAULT_PRODUCT_SPECIES, "SO2"]);
+const DEFAULT_WITH_SULFUR: readonly string[] = Object.freeze([...DEFAULT_PRODUCT_SPECIES, "SO2", "H2S"]);
 
 // ---- numerical settings ---------------------------------------------------------------------------
 
