@@ -40,25 +40,32 @@ export interface FuelContext {
 
 const fmt = (v: number) => (v === 0 ? "0" : v.toPrecision(12));
 
-/** A key that is equal for fuels in the same state. */
+/**
+ * A key that is equal for fuels in the same state. A gas is fully described by its composition
+ * (elements and formation enthalpy follow from it); other fuels by elements, moisture, ash and
+ * formation enthalpy (which carries the heating value).
+ */
 export function fuelStateKey(f: ResolvedFuel): string {
+  const attrs = [
+    fmt(f.biogenicCarbonShare),
+    f.upstreamCo2e_kg_per_GJ === undefined ? "-" : fmt(f.upstreamCo2e_kg_per_GJ),
+    f.density_kg_per_m3 === undefined ? "-" : fmt(f.density_kg_per_m3),
+  ].join("|");
+  if (f.kind === "gas" && f.gasComposition) {
+    let comp = "";
+    for (const k of Object.keys(f.gasComposition).sort()) {
+      const x = f.gasComposition[k];
+      if (x > 1e-14) comp += `${k}:${fmt(x)},`;
+    }
+    return `gas|${comp}|${attrs}`;
+  }
   const el = f.elements_mol_per_kg;
-  const comp = f.gasComposition
-    ? Object.entries(f.gasComposition)
-        .filter(([, x]) => x > 1e-14)
-        .sort(([a], [b]) => (a < b ? -1 : 1))
-        .map(([k, x]) => `${k}:${fmt(x)}`)
-        .join(",")
-    : "";
   return [
     f.kind,
     fmt(el.C), fmt(el.H), fmt(el.O), fmt(el.N), fmt(el.S), fmt(el.Ar),
     fmt(f.moisture_kg_per_kg), fmt(f.ash_kg_per_kg),
     fmt(f.formationEnthalpy_J_per_kg),
-    fmt(f.biogenicCarbonShare),
-    f.upstreamCo2e_kg_per_GJ === undefined ? "-" : fmt(f.upstreamCo2e_kg_per_GJ),
-    f.density_kg_per_m3 === undefined ? "-" : fmt(f.density_kg_per_m3),
-    comp,
+    attrs,
   ].join("|");
 }
 

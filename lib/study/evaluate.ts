@@ -17,7 +17,7 @@ import { siegertClassOf, siegertLossPercent, SIEGERT_CONSTANTS } from "../plant/
 import type { LossTerms } from "../plant/efficiency";
 import { priceUnitLabel, type NormalisedPrice } from "../economics/prices";
 import { compare, scenarioCosts, type Comparison, type CostInputs, type FinanceAssumptions, type ScenarioCosts } from "../economics/costs";
-import { RANKING_METRIC_INFO, tornado, type RankingMetric, type Tornado } from "../economics/sensitivity";
+import { RANKING_METRIC_INFO, tornado, type RankingMetric, type SensitivityRanges, type Tornado } from "../economics/sensitivity";
 import { STUDY_METHODS, studyAssumptions, type AuditTrail } from "./audit";
 import { cautionsFor, DEFER, type Caution, type HazardKey } from "../fuels/cautions";
 import { hydrogenSweep, type HydrogenSweepResult } from "./hydrogen-sweep";
@@ -92,6 +92,8 @@ export interface ScenarioResult {
   co2PerUsefulMJ_g: { fossil: number; biogenic: number; upstream: number; ranked: number };
   /** Delivered price, from the scenario's quote or (blends) from its components' quotes. */
   price: (NormalisedPrice & { unitLabel: string; currency: string; origin: "quote" | "blend of component quotes"; quote: StudyPrice | null; componentQuotes: StudyPrice[] | null }) | null;
+  /** The numbers the economics ran on (for other metrics' tornadoes or what-ifs via lib/economics). */
+  costInputs: CostInputs | null;
   costs: ScenarioCosts | null;
   comparison: Comparison | null;
   tornado: Tornado | null;
@@ -127,6 +129,8 @@ export interface StudyResult {
     priceEscalationPercent: number;
     includeUpstream: boolean;
     rankingMetric: RankingMetric;
+    finance: FinanceAssumptions;
+    sensitivity: SensitivityRanges;
   };
   plant: Plant & { equipmentLabel: string };
   duty: PlantDuty;
@@ -338,6 +342,7 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
           ? { ...price, unitLabel: priceUnitLabel(priceTerms(p.scenario.price)), currency: p.scenario.price.currency, origin: "quote", quote: p.scenario.price, componentQuotes: null }
           : { ...price, unitLabel: "kg", currency: study.currency, origin: "blend of component quotes", quote: null, componentQuotes: p.scenario.componentPrices ?? null }
         : null,
+      costInputs: ci,
       costs,
       comparison,
       tornado: tor,
@@ -414,6 +419,8 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
       priceEscalationPercent: study.priceEscalationPercent,
       includeUpstream: study.includeUpstream,
       rankingMetric: metric,
+      finance: fin,
+      sensitivity: study.sensitivity,
     },
     plant: { ...plant, equipmentLabel: EQUIPMENT_TYPE_LABELS[plant.equipmentType] },
     duty,
