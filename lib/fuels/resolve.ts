@@ -161,7 +161,8 @@ function resolveLiquidCompound(key: string, field: string): ResolvedFuel {
 }
 
 function resolveUltimate(def: Extract<FuelDefinition, { ultimate: unknown }>, label: string): ResolvedFuel {
-  const u = def.ultimate;
+  const given = def.ultimate;
+  const u = { C: given.C, H: given.H, O: given.O ?? 0, N: given.N ?? 0, S: given.S ?? 0, moisture: given.moisture ?? 0, ash: given.ash ?? 0 };
   const W = ATOMIC_WEIGHT_g_per_mol;
   const Mw = 2 * W.H + W.O;
   const moistMol = (u.moisture * 1000) / Mw;

@@ -78,10 +78,14 @@ export const ultimateFuelSchema = z
 export const BLEND_BASES = ["volume", "mass", "energy"] as const;
 export type BlendBasis = (typeof BLEND_BASES)[number];
 
+/**
+ * A fuel definition as accepted (defaults not yet applied: compound phase defaults to gas,
+ * ultimate kind to solid, absent ultimate-analysis fractions to 0). lib/ handles both forms.
+ */
 export type FuelDefinition =
-  | z.infer<typeof compositionFuelSchema>
-  | z.infer<typeof compoundFuelSchema>
-  | z.infer<typeof ultimateFuelSchema>
+  | z.input<typeof compositionFuelSchema>
+  | z.input<typeof compoundFuelSchema>
+  | z.input<typeof ultimateFuelSchema>
   | BlendFuelDefinition;
 
 export interface BlendFuelDefinition {

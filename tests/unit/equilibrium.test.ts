@@ -174,7 +174,7 @@ describe("equilibrium adiabatic flame temperature against published values (298.
 
   it("equilibrium T_ad lies below the complete-combustion T_ad, by far more near φ = 1 than lean", () => {
     // Common practice, no source: dissociation (CO, H2, OH, H, O, NO) absorbs heat, strongly near φ = 1.
-    for (const fuel of [{ CH4: 1 }, { H2: 1 }, { C3H8: 1 }]) {
+    for (const fuel of [{ CH4: 1 }, { H2: 1 }, { C3H8: 1 }] as Mix[]) {
       for (const phi of [0.5, 0.7, 0.9, 1.0]) {
         const c = charge(fuel, phi, TEXTBOOK_AIR);
         const Teq = solveEquilibriumHP({ ...c, pressurePa: atmospherePa }).temperatureK;
@@ -193,7 +193,7 @@ describe("equilibrium adiabatic flame temperature against published values (298.
 
   it("T_ad in oxygen exceeds T_ad in air; higher pressure suppresses dissociation and raises T_ad", () => {
     // Common practice, no source (no nitrogen ballast; Le Chatelier's principle for dissociation).
-    for (const fuel of [{ CH4: 1 }, { H2: 1 }, { NH3: 1 }]) {
+    for (const fuel of [{ CH4: 1 }, { H2: 1 }, { NH3: 1 }] as Mix[]) {
       expect(hp(fuel, 1, OXYGEN).temperatureK).toBeGreaterThan(hp(fuel, 1, TEXTBOOK_AIR).temperatureK + 400);
     }
     expect(hp({ CH4: 1 }, 1, OXYGEN, 20 * atmospherePa).temperatureK).toBeGreaterThan(
