@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import "./globals.css";
+import { NavLink } from "./_ui/NavLink";
 
 export const metadata: Metadata = {
   title: { default: "Stoke", template: "%s · Stoke" },
@@ -17,8 +18,12 @@ export default function RootLayout({ children }: { children: React.ReactNode }) 
               Stoke<span>.</span>
             </Link>
             <nav aria-label="Main">
-              <Link href="/fuels">Fuel library</Link>
-              <Link href="/fuels/transfer">Import / export</Link>
+              <NavLink href="/fuels" not={["/fuels/transfer"]}>
+                Fuel library
+              </NavLink>
+              <NavLink href="/fuels/transfer" exact>
+                Import / export
+              </NavLink>
             </nav>
             <span className="tagline">fuel switching for fired plant</span>
           </div>

@@ -219,10 +219,31 @@ async function nameTaken(tx: Tx, name: string, exceptId?: number): Promise<Fuel 
   return hit ? await tx.fuel.findUnique({ where: { id: hit.id } }) : null;
 }
 
+/** zod's built-in type messages, reworded for people filling in a form. */
+export function friendlyMessages(errs: FieldErrors): FieldErrors {
+  const out: FieldErrors = {};
+  for (const [k, v] of Object.entries(errs)) {
+    const m = /^Invalid input: expected (\w+), received (\w+)$/.exec(v);
+    if (!m) out[k] = v;
+    else if (m[2] === "null" || m[2] === "undefined") out[k] = m[1] === "number" ? "enter a number" : "required";
+    else out[k] = m[1] === "number" ? "must be a number" : m[1] === "string" ? "must be text" : `must be a ${m[1]}`;
+  }
+  return out;
+}
+
 function parseFuelInput(raw: unknown): Result<FuelInputParsed> {
   const parsed = fuelInputSchema.safeParse(raw);
-  if (!parsed.success) return fail(400, "The fuel has errors; nothing was saved.", fieldErrors(parsed.error));
+  if (!parsed.success) return fail(400, "The fuel has errors; nothing was saved.", friendlyMessages(fieldErrors(parsed.error)));
   return { ok: true, value: parsed.data };
+}
+
+/** A rejected input also learns whether its name is taken, so that one round trip shows every problem. */
+async function withNameCheck(tx: Tx, failure: Failure, raw: unknown, exceptId?: number): Promise<Failure> {
+  const name = typeof raw === "object" && raw !== null ? (raw as { name?: unknown }).name : undefined;
+  if (typeof name !== "string" || name.trim() === "" || failure.fieldErrors.name) return failure;
+  const taken = await nameTaken(tx, name.trim(), exceptId);
+  if (!taken) return failure;
+  return { ...failure, fieldErrors: { name: `a fuel named "${taken.name}" already exists`, ...failure.fieldErrors } };
 }
 
 /** Re-derives every blend that depends on `fuelId` (after an edit of that fuel). */
@@ -273,7 +294,7 @@ export async function inTransaction<T>(db: PrismaClient, fn: (tx: Tx) => Promise
 /** Creates a fuel inside an open transaction (used by the API and by imports). */
 export async function createFuelIn(tx: Tx, raw: unknown): Promise<Result<Fuel>> {
   const input = parseFuelInput(raw);
-  if (!input.ok) return input;
+  if (!input.ok) return withNameCheck(tx, input, raw);
   const taken = await nameTaken(tx, input.value.name);
   if (taken) return fail(409, `A fuel named "${taken.name}" already exists.`, { name: `a fuel named "${taken.name}" already exists` });
   const prepared = await prepareFuel(tx, input.value);
@@ -291,7 +312,7 @@ export async function updateFuel(db: PrismaClient, id: number, raw: unknown): Pr
   const existing = await db.fuel.findUnique({ where: { id } });
   if (!existing) return fail(404, `No fuel with id ${id}.`);
   const input = parseFuelInput(raw);
-  if (!input.ok) return input;
+  if (!input.ok) return withNameCheck(db, input, raw, id);
   return inTransaction(db, async (tx) => {
     const taken = await nameTaken(tx, input.value.name, id);
     if (taken) return fail(409, `A fuel named "${taken.name}" already exists.`, { name: `a fuel named "${taken.name}" already exists` });
@@ -365,7 +386,7 @@ function quoteColumns(q: PriceQuoteInputParsed) {
 /** Validates a quote against its fuel (unit, basis, metering reference, density). */
 export function checkQuoteForFuel(fuel: Fuel, raw: unknown): Result<PriceQuoteInputParsed> {
   const parsed = priceQuoteInputSchema.safeParse(raw);
-  if (!parsed.success) return fail(400, "The price quote has errors; nothing was saved.", fieldErrors(parsed.error));
+  if (!parsed.success) return fail(400, "The price quote has errors; nothing was saved.", friendlyMessages(fieldErrors(parsed.error)));
   const q = parsed.data;
   let hasDensity = false;
   if (fuel.kind !== "gas") {

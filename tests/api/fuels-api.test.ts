@@ -93,6 +93,18 @@ describe("POST /api/fuels and GET /api/fuels/{id}", () => {
     expect((await res.json()).fieldErrors.name).toMatch(/already exists/);
   });
 
+  it("a rejected fuel names every problem at once, including a taken name and missing numbers", async () => {
+    const res = await routes.fuels.POST(
+      post(base, { name: "methane", kind: "liquid", definition: { ultimate: { C: 0.86, H: "abc" }, kind: "liquid", lhv_MJ_per_kg: null }, densityKgPerM3: -3 }),
+    );
+    expect(res.status).toBe(400);
+    const errs = (await res.json()).fieldErrors;
+    expect(errs.name).toMatch(/already exists/);
+    expect(errs["definition.ultimate.H"]).toBe("must be a number");
+    expect(errs["definition.lhv_MJ_per_kg"]).toBe("enter a number");
+    expect(errs.densityKgPerM3).toMatch(/> 0/);
+  });
+
   it("404 for a missing or malformed id", async () => {
     expect((await routes.fuel.GET(new Request(`${base}/99999`), ctx(99999))).status).toBe(404);
     expect((await routes.fuel.GET(new Request(`${base}/abc`), ctx("abc"))).status).toBe(404);
