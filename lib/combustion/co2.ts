@@ -3,8 +3,7 @@
  * split into fossil and biogenic parts by the fuel's biogenic carbon share.
  */
 import type { ResolvedFuel } from "../fuels/resolve";
-import { molarMass_g_per_mol } from "../thermo/elements";
-import { SPECIES } from "../thermo/species-data";
+import { MOLAR_MASS_g_per_mol } from "../thermo/species-data";
 
 export interface Co2Factors {
   /** kg CO2 per kg fuel. */
@@ -20,7 +19,7 @@ export interface Co2Factors {
 }
 
 export function co2Factors(fuel: ResolvedFuel, hv: { hhv_MJ_per_kg: number; lhv_MJ_per_kg: number }): Co2Factors {
-  const kgPerKg = (fuel.elements_mol_per_kg.C * molarMass_g_per_mol(SPECIES.CO2.elements)) / 1000;
+  const kgPerKg = (fuel.elements_mol_per_kg.C * MOLAR_MASS_g_per_mol.CO2) / 1000;
   const hhv = (kgPerKg / hv.hhv_MJ_per_kg) * 1000;
   const lhv = (kgPerKg / hv.lhv_MJ_per_kg) * 1000;
   const b = fuel.biogenicCarbonShare;

@@ -4,8 +4,7 @@
  */
 import type { ResolvedFuel } from "../fuels/resolve";
 import { stoichiometricO2_mol_per_kg } from "../fuels/resolve";
-import { molarMass_g_per_mol } from "../thermo/elements";
-import { SPECIES } from "../thermo/species-data";
+import { MOLAR_MASS_g_per_mol } from "../thermo/species-data";
 import { saturationTemperatureK } from "../thermo/water";
 import { atmospherePa, kelvinToCelsius, R_J_per_molK, T0CK } from "../units/constants";
 import { DRY_AIR, type Oxidizer } from "./stoichiometry";
@@ -52,7 +51,7 @@ export function flueGasPerKgFuel(fuel: ResolvedFuel, opts: { lambda: number; oxi
   for (const k of FLUE_SPECIES) wetX[k] = m[k] / wet;
   const dryX = {} as Record<Exclude<FlueSpecies, "H2O">, number>;
   for (const k of FLUE_SPECIES) if (k !== "H2O") dryX[k] = m[k] / dry;
-  const mass = FLUE_SPECIES.reduce((s, k) => s + (m[k] * molarMass_g_per_mol(SPECIES[k].elements)) / 1000, 0);
+  const mass = FLUE_SPECIES.reduce((s, k) => s + (m[k] * MOLAR_MASS_g_per_mol[k]) / 1000, 0);
   return {
     lambda,
     mol_per_kg: m,

@@ -5,7 +5,9 @@
  * from the NASA polynomials; fuel enthalpy from its resolved description.
  */
 import { h_J_per_mol } from "../thermo/nasa7";
-import { SPECIES } from "../thermo/species-data";
+import { MOLAR_MASS_g_per_mol, SPECIES } from "../thermo/species-data";
+
+const O2_MOLAR_MASS_kg_per_mol = MOLAR_MASS_g_per_mol.O2 / 1000;
 import { celsiusToKelvin } from "../units/constants";
 import type { ResolvedFuel } from "../fuels/resolve";
 import { stoichiometricO2_mol_per_kg } from "../fuels/resolve";
@@ -26,7 +28,6 @@ export interface HeatingValues {
   productWater_mol_per_kg: number;
 }
 
-const O2_MOLAR_MASS_kg_per_mol = 0.0319988; // 2 × 15.9994 g/mol
 
 export function heatingValues(fuel: ResolvedFuel, combustionReferenceC = 25): HeatingValues {
   const T = celsiusToKelvin(combustionReferenceC);

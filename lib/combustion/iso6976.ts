@@ -95,3 +95,42 @@ export function relativeDensity(composition: Record<string, number>, molarMass_g
 export function wobbeIndex(volumetricHeatingValue: number, relDensity: number): number {
   return volumetricHeatingValue / Math.sqrt(relDensity);
 }
+
+export interface VolumetricFigures {
+  combustionReferenceC: number;
+  meteringReferenceC: number;
+  /** Real-gas gross and net heating value per m³ at the metering reference. */
+  hhv_MJ_per_m3: number;
+  lhv_MJ_per_m3: number;
+  compressionFactor: number;
+  density_kg_per_m3: number;
+  relativeDensity: number;
+  wobbe: { gross_MJ_per_m3: number; net_MJ_per_m3: number };
+}
+
+/**
+ * Volumetric heating values, relative density and Wobbe index of a gas (ISO 6976:2016):
+ * molar heating value × real molar density, d = (M/M_air)(Z_air/Z), W = H_v/√d.
+ */
+export function volumetricFigures(
+  composition: Record<string, number>,
+  molarMass_g_per_mol: number,
+  molarHeatingValues: { hhv_kJ_per_mol: number; lhv_kJ_per_mol: number; combustionReferenceC: number },
+  meteringC: number,
+): VolumetricFigures {
+  const Z = compressionFactor(composition, meteringC);
+  const molPerM3 = 1 / (Z * idealMolarVolume_m3_per_mol(meteringC));
+  const d = (molarMass_g_per_mol / AIR_MOLAR_MASS_g_per_mol) * (airCompressionFactor(meteringC) / Z);
+  const hhv = (molarHeatingValues.hhv_kJ_per_mol * molPerM3) / 1000;
+  const lhv = (molarHeatingValues.lhv_kJ_per_mol * molPerM3) / 1000;
+  return {
+    combustionReferenceC: molarHeatingValues.combustionReferenceC,
+    meteringReferenceC: meteringC,
+    hhv_MJ_per_m3: hhv,
+    lhv_MJ_per_m3: lhv,
+    compressionFactor: Z,
+    density_kg_per_m3: (molPerM3 * molarMass_g_per_mol) / 1000,
+    relativeDensity: d,
+    wobbe: { gross_MJ_per_m3: wobbeIndex(hhv, d), net_MJ_per_m3: wobbeIndex(lhv, d) },
+  };
+}

@@ -8,14 +8,7 @@ import { heatingValues } from "./heating-values";
 import { DRY_AIR, oxidizerDemand } from "./stoichiometry";
 import { co2MaxDryPercent, flueGasPerKgFuel, waterDewPointC } from "./flue-gas";
 import { co2Factors, type Co2Factors } from "./co2";
-import {
-  airDensity_kg_per_m3,
-  compressionFactor,
-  realDensity_kg_per_m3,
-  realMolarDensity_mol_per_m3,
-  relativeDensity,
-  wobbeIndex,
-} from "./iso6976";
+import { airDensity_kg_per_m3, volumetricFigures } from "./iso6976";
 
 export interface PropertyOptions {
   /** Combustion reference temperature, °C (25 default; 0, 15, 15.55, 20 selectable). */
@@ -137,15 +130,13 @@ export function fuelPropertiesFromResolved(fuel: ResolvedFuel, opts: PropertyOpt
   if (demand.O2_mol_per_mol !== undefined) out.stoichiometricO2.mol_per_mol = demand.O2_mol_per_mol;
   if (fuel.molarMass_g_per_mol !== undefined) out.molarMass_g_per_mol = fuel.molarMass_g_per_mol;
   if (fuel.kind === "gas" && fuel.gasComposition && fuel.molarMass_g_per_mol) {
-    const comp = fuel.gasComposition;
-    const molPerM3 = realMolarDensity_mol_per_m3(comp, tm);
-    hhv.MJ_per_m3 = (hv.hhv_kJ_per_mol! * molPerM3) / 1000;
-    lhv.MJ_per_m3 = (hv.lhv_kJ_per_mol! * molPerM3) / 1000;
-    const d = relativeDensity(comp, fuel.molarMass_g_per_mol, tm);
-    out.relativeDensity = d;
-    out.compressionFactor = compressionFactor(comp, tm);
-    out.gasDensity_kg_per_m3 = realDensity_kg_per_m3(comp, fuel.molarMass_g_per_mol, tm);
-    out.wobbe = { gross_MJ_per_m3: wobbeIndex(hhv.MJ_per_m3, d), net_MJ_per_m3: wobbeIndex(lhv.MJ_per_m3, d) };
+    const v = volumetricFigures(fuel.gasComposition, fuel.molarMass_g_per_mol, { hhv_kJ_per_mol: hv.hhv_kJ_per_mol!, lhv_kJ_per_mol: hv.lhv_kJ_per_mol!, combustionReferenceC: tc }, tm);
+    hhv.MJ_per_m3 = v.hhv_MJ_per_m3;
+    lhv.MJ_per_m3 = v.lhv_MJ_per_m3;
+    out.relativeDensity = v.relativeDensity;
+    out.compressionFactor = v.compressionFactor;
+    out.gasDensity_kg_per_m3 = v.density_kg_per_m3;
+    out.wobbe = v.wobbe;
     out.stoichiometricAir.m3_per_m3 = airM3PerKg * out.gasDensity_kg_per_m3;
   }
   if (fuel.density_kg_per_m3 !== undefined) {

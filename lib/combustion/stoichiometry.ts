@@ -5,8 +5,7 @@
  */
 import type { ResolvedFuel } from "../fuels/resolve";
 import { stoichiometricO2_mol_per_kg } from "../fuels/resolve";
-import { molarMass_g_per_mol } from "../thermo/elements";
-import { SPECIES } from "../thermo/species-data";
+import { MOLAR_MASS_g_per_mol } from "../thermo/species-data";
 import { saturationPressurePa } from "../thermo/water";
 import { atmospherePa, celsiusToKelvin } from "../units/constants";
 import type { OxidizerComposition } from "../schemas/fuel";
@@ -42,7 +41,7 @@ export function normaliseOxidizer(ox: OxidizerComposition | Oxidizer | undefined
 }
 
 export function oxidizerMolarMass_g_per_mol(ox: Oxidizer): number {
-  return OXIDIZER_SPECIES.reduce((s, k) => s + (ox[k] ?? 0) * molarMass_g_per_mol(SPECIES[k].elements), 0);
+  return OXIDIZER_SPECIES.reduce((s, k) => s + (ox[k] ?? 0) * MOLAR_MASS_g_per_mol[k], 0);
 }
 
 export interface OxidizerDemand {
@@ -63,7 +62,7 @@ export function oxidizerDemand(fuel: ResolvedFuel, oxidizer: Oxidizer = DRY_AIR)
   const nOx = nO2 / xO2;
   const out: OxidizerDemand = {
     O2_mol_per_kg: nO2,
-    O2_kg_per_kg: (nO2 * molarMass_g_per_mol(SPECIES.O2.elements)) / 1000,
+    O2_kg_per_kg: (nO2 * MOLAR_MASS_g_per_mol.O2) / 1000,
     oxidizer_mol_per_kg: nOx,
     oxidizer_kg_per_kg: (nOx * oxidizerMolarMass_g_per_mol(oxidizer)) / 1000,
   };

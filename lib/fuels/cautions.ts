@@ -61,12 +61,10 @@ interface Found {
   species: Set<string>;
   compounds: Set<string>;
   ultimate: { kind: string } | null;
-  biogenic: boolean;
   co2Rich: boolean;
 }
 
 function walk(def: FuelDefinition, f: Found): void {
-  if ((def.biogenicCarbonShare ?? 0) > 0) f.biogenic = true;
   if ("composition" in def) {
     for (const [k, v] of Object.entries(def.composition)) if (v > 0) f.species.add(k);
     if ((def.composition.CO2 ?? 0) >= 0.2) f.co2Rich = true;
@@ -79,11 +77,12 @@ function walk(def: FuelDefinition, f: Found): void {
 
 /** The cautions for a fuel definition (always ends with the burner-change caution). */
 export function cautionsFor(def: FuelDefinition): Caution[] {
-  const f: Found = { species: new Set(), compounds: new Set(), ultimate: null, biogenic: false, co2Rich: false };
+  const f: Found = { species: new Set(), compounds: new Set(), ultimate: null, co2Rich: false };
   walk(def, f);
   const keys: HazardKey[] = [];
   if (f.species.has("H2")) keys.push("hydrogen");
-  if (f.species.has("H2S") || (f.co2Rich && f.species.has("CH4")) || (f.biogenic && f.species.has("CH4") && f.species.has("CO2"))) keys.push("biogas");
+  // Raw biogas or landfill gas (H2S, or CH4 with ≥ 20 % CO2); upgraded biomethane is not flagged.
+  if (f.species.has("H2S") || (f.co2Rich && f.species.has("CH4"))) keys.push("biogas");
   if (f.species.has("NH3")) keys.push("ammonia");
   if (f.species.has("CH3OH") || f.compounds.has("CH3OH")) keys.push("methanol");
   if (f.species.has("C3H8") || f.species.has("nC4H10") || f.species.has("iC4H10")) {

@@ -5,7 +5,7 @@
  */
 import type { Element } from "../thermo/nasa7";
 import { ELEMENTS, h_J_per_mol, sensibleH_J_per_mol } from "../thermo/nasa7";
-import { SPECIES } from "../thermo/species-data";
+import { MOLAR_MASS_g_per_mol, SPECIES } from "../thermo/species-data";
 import { ATOMIC_WEIGHT_g_per_mol, molarMass_g_per_mol } from "../thermo/elements";
 import { T298K } from "../units/constants";
 import type { BlendFuelDefinition, FuelDefinition } from "../schemas/fuel";
@@ -36,6 +36,8 @@ export interface ResolvedFuel {
   /** Sensible enthalpy h(T) − h(298.15 K) of the fuel as fed, J/kg. */
   sensibleEnthalpy_J_per_kg: (temperatureK: number) => number;
   heatingValueOrigin: HeatingValueOrigin;
+  /** Blends: mass fraction of each component, in the order of the definition (the one blend rule). */
+  componentMassFractions?: number[];
   /** Hydrogen mole fraction of a gas (0 for other fuels). */
   h2MoleFraction: number;
   /** Methods and sources behind this description (audit trail). */
@@ -108,7 +110,7 @@ function resolveGas(composition: Record<string, number>, label: string, field: s
   for (const [k, xi] of Object.entries(x)) {
     const sp = SPECIES[k];
     for (const e of ELEMENTS) perMol[e] += xi * (sp.elements[e] ?? 0);
-    M += xi * molarMass_g_per_mol(sp.elements);
+    M += xi * MOLAR_MASS_g_per_mol[k];
     hf += xi * h_J_per_mol(sp, T298K);
   }
   const molPerKg = 1000 / M;
@@ -264,6 +266,7 @@ function resolveBlend(def: BlendFuelDefinition, label: string, field: string): R
     sensibleEnthalpy_J_per_kg: (T) => parts.reduce((s, p, i) => s + w[i] * p.f.sensibleEnthalpy_J_per_kg(T), 0),
     heatingValueOrigin: parts.every((p) => p.f.heatingValueOrigin === "thermochemistry") ? "thermochemistry" : "blend",
     h2MoleFraction: 0,
+    componentMassFractions: w,
     notes: [`blend by ${def.basis} share of ${parts.length} components; mass fractions ${w.map((v) => v.toFixed(4)).join(" / ")}`],
   };
   const upstream = parts.map((p) => p.f.upstreamCo2e_kg_per_GJ);

@@ -8,7 +8,7 @@ import type { FuelDefinition } from "../schemas/fuel";
 import { resolveFuel, type ResolvedFuel } from "../fuels/resolve";
 import { heatingValues, type HeatingValues } from "../combustion/heating-values";
 import { co2Factors, type Co2Factors } from "../combustion/co2";
-import { realDensity_kg_per_m3, realMolarDensity_mol_per_m3, relativeDensity, wobbeIndex } from "../combustion/iso6976";
+import { realDensity_kg_per_m3, volumetricFigures } from "../combustion/iso6976";
 import type { FuelEnergyContent } from "../economics/prices";
 import { HEAT_BALANCE_REFERENCE_C } from "./efficiency";
 
@@ -96,19 +96,15 @@ function buildContext(fuel: ResolvedFuel, key: string): FuelContext {
       const k = tc * 1000 + tm; // references are a handful of small numbers
       let w = wobbeMemo.get(k);
       if (w === undefined) {
-        // Volumetric heating value (real gas) = molar heating value × real molar density, as in
-        // the fuel property sheet; Wobbe index and relative density per ISO 6976:2016.
+        // Wobbe index and relative density per ISO 6976:2016, by the same function as the property sheet.
         const hvT = tc === HEAT_BALANCE_REFERENCE_C ? hv : heatingValues(fuel, tc);
-        const comp = fuel.gasComposition!;
-        const M = fuel.molarMass_g_per_mol!;
-        const molPerM3 = realMolarDensity_mol_per_m3(comp, tm);
-        const d = relativeDensity(comp, M, tm);
+        const v = volumetricFigures(fuel.gasComposition!, fuel.molarMass_g_per_mol!, { hhv_kJ_per_mol: hvT.hhv_kJ_per_mol!, lhv_kJ_per_mol: hvT.lhv_kJ_per_mol!, combustionReferenceC: tc }, tm);
         w = {
           combustionReferenceC: tc,
           meteringReferenceC: tm,
-          gross_MJ_per_m3: wobbeIndex((hvT.hhv_kJ_per_mol! * molPerM3) / 1000, d),
-          net_MJ_per_m3: wobbeIndex((hvT.lhv_kJ_per_mol! * molPerM3) / 1000, d),
-          relativeDensity: d,
+          gross_MJ_per_m3: v.wobbe.gross_MJ_per_m3,
+          net_MJ_per_m3: v.wobbe.net_MJ_per_m3,
+          relativeDensity: v.relativeDensity,
         };
         wobbeMemo.set(k, w);
       }

@@ -32,24 +32,6 @@ export function normaliseStudyPrice(p: StudyPrice, ctx: FuelContext, field: stri
 }
 
 /**
- * Mass fractions of a blend's components, by the blend rule of lib/fuels/resolve.ts: a volume
- * share weighs by molar mass (gases) or density (liquids), an energy share by 1/LHV at 25 °C,
- * a mass share by 1.
- */
-export function blendMassFractions(def: BlendFuelDefinition, parts: readonly FuelContext[], field: string): number[] {
-  const perShare = parts.map((c, i) => {
-    if (def.basis === "mass") return 1;
-    if (def.basis === "energy") return 1 / c.hv.lhv_MJ_per_kg;
-    if (c.fuel.kind === "gas" && c.fuel.molarMass_g_per_mol) return c.fuel.molarMass_g_per_mol;
-    if (c.fuel.kind === "liquid" && c.fuel.density_kg_per_m3) return c.fuel.density_kg_per_m3;
-    throw new StudyInputError(`${field}.blend.${i}.fuel`, "a volume share needs a gas or a liquid with its density");
-  });
-  const m = def.blend.map((c, i) => c.share * perShare[i]);
-  const total = m.reduce((a, b) => a + b, 0);
-  return m.map((v) => v / total);
-}
-
-/**
  * Delivered price of a blend from one quote per component: the mass-weighted mix of the
  * components' delivered prices per kg (commodity, transport and handling kept apart), stated
  * for the blend through the same normalisation.
@@ -61,7 +43,8 @@ export function blendPriceFromComponents(
   prices: readonly StudyPrice[],
   field: string,
 ): NormalisedPrice {
-  const w = blendMassFractions(def, parts, `${field}.fuel`);
+  const w = blend.fuel.componentMassFractions;
+  if (!w || w.length !== parts.length) throw new StudyInputError(`${field}.componentPrices`, "component prices need a blend with one price per component");
   let commodity = 0, transport = 0, handling = 0;
   parts.forEach((c, i) => {
     const n = normaliseStudyPrice(prices[i], c, `${field}.componentPrices.${i}`);

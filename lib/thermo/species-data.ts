@@ -26,6 +26,7 @@
  * reproduce the ISO 6976:2016 gross calorific values within 0.01 % (H2S 0.03 %; see the unit test);
  * where a heating value is published in ISO 6976, that standard remains the reference.
  */
+import { molarMass_g_per_mol } from "./elements";
 import { standardPressurePa } from "../units/constants";
 import type { Nasa7Species } from "./nasa7";
 
@@ -333,6 +334,11 @@ const species: Nasa7Species[] = [
 /** All species by key. */
 export const SPECIES: Readonly<Record<string, Nasa7Species>> = Object.freeze(
   Object.fromEntries(species.map((sp) => [sp.key, sp])),
+);
+
+/** Molar mass of every species, g/mol, computed once from its atoms (hot paths use this table). */
+export const MOLAR_MASS_g_per_mol: Readonly<Record<string, number>> = Object.freeze(
+  Object.fromEntries(species.map((sp) => [sp.key, molarMass_g_per_mol(sp.elements)])),
 );
 
 /** Species keys in a fixed order (fuel gases first, then oxidiser/products, minor species, liquid water). */

@@ -328,3 +328,9 @@ describe("safety cautions follow the fuel's content (brief, Cautions)", () => {
     expect(hazards({ compound: "CH4" })).toEqual(["burner-change"]);
   });
 });
+
+describe("biomethane is not raw biogas", () => {
+  it("upgraded biomethane (97 % CH4, biogenic) carries no biogas H2S caution (common practice, no source)", () => {
+    expect(cautionsFor({ composition: { CH4: 0.97, CO2: 0.02, N2: 0.01 }, biogenicCarbonShare: 1 }).map((c) => c.hazard)).not.toContain("biogas");
+  });
+});
