@@ -43,6 +43,11 @@ export async function runCli(argv: readonly string[], stdin: () => string): Prom
 
 const isMain = process.argv[1] && /cli[\\/]main\.ts$/.test(process.argv[1]);
 if (isMain) {
+  // A closed pipe (e.g. `| head`) ends the output quietly.
+  process.stdout.on("error", (e: NodeJS.ErrnoException) => {
+    if (e.code === "EPIPE") process.exit(0);
+    throw e;
+  });
   const r = await runCli(process.argv.slice(2), () => readFileSync(0, "utf8"));
   if (r.stdout) process.stdout.write(r.stdout);
   if (r.stderr) process.stderr.write(r.stderr);
