@@ -15,7 +15,8 @@ export function createClient(databaseUrl?: string): PrismaClient {
     // Optional: present only on a team server set up as README.md (section PostgreSQL) says.
     let PrismaPg: new (opts: { connectionString: string }) => unknown;
     try {
-      ({ PrismaPg } = createRequire(import.meta.url)("@prisma/adapter-pg"));
+      const adapterPackage = ["@prisma", "adapter-pg"].join("/"); // resolved at run time only, when installed
+      ({ PrismaPg } = createRequire(import.meta.url)(/* turbopackIgnore: true */ adapterPackage));
     } catch {
       throw new Error(
         "DATABASE_URL points at PostgreSQL, but @prisma/adapter-pg is not installed and the client is generated for SQLite. Follow README.md, section PostgreSQL.",
