@@ -456,7 +456,7 @@ export default async function FuelSheetPage({ params, searchParams }: Props) {
                   <tr key={i}>
                     <td>{i % 3 === 0 ? r.condition : ""}</td>
                     <td>
-                      <strong>{r.method}</strong> <small className="muted">— {r.methodLabel}</small>
+                      <strong>{r.method}</strong> <small className="muted method-label">— {r.methodLabel}</small>
                     </td>
                     {r.temperatureK === null ? (
                       <td colSpan={2} className="field-error">
