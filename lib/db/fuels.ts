@@ -19,7 +19,7 @@ import {
 } from "../schemas/library";
 import { FuelDefinitionError, resolveFuel, type ResolvedFuel } from "../fuels/resolve";
 import { heatingValues } from "../combustion/heating-values";
-import { priceQuoteIssues, type PriceQuoteTerms, type PriceUnit, type EnergyBasis } from "../economics/prices";
+import { PRICE_UNITS, priceQuoteIssues, type PriceQuoteTerms, type PriceUnit, type EnergyBasis } from "../economics/prices";
 
 export type Tx = Omit<PrismaClient, "$connect" | "$disconnect" | "$on" | "$transaction" | "$extends">;
 
@@ -386,8 +386,30 @@ function quoteColumns(q: PriceQuoteInputParsed) {
 /** Validates a quote against its fuel (unit, basis, metering reference, density). */
 export function checkQuoteForFuel(fuel: Fuel, raw: unknown): Result<PriceQuoteInputParsed> {
   const parsed = priceQuoteInputSchema.safeParse(raw);
-  if (!parsed.success) return fail(400, "The price quote has errors; nothing was saved.", friendlyMessages(fieldErrors(parsed.error)));
+  if (!parsed.success) {
+    // Also say what is wrong with the unit, basis and reference, so that one answer lists every problem.
+    const errs = friendlyMessages(fieldErrors(parsed.error));
+    const r = (typeof raw === "object" && raw !== null ? raw : {}) as Record<string, unknown>;
+    if ((PRICE_UNITS as readonly unknown[]).includes(r.unit) && !errs.energyBasis && !errs.meteringReference) {
+      const fit = quoteFitErrors(fuel, {
+        unit: r.unit as PriceUnit,
+        energyBasis: (r.energyBasis as EnergyBasis | null | undefined) ?? null,
+        meteringReference: (r.meteringReference as MeteringReferenceKey | null | undefined) ?? null,
+      });
+      for (const [k, v] of Object.entries(fit)) if (!(k in errs)) errs[k] = v;
+    }
+    return fail(400, "The price quote has errors; nothing was saved.", errs);
+  }
   const q = parsed.data;
+  const errs = quoteFitErrors(fuel, q);
+  if (Object.keys(errs).length) return fail(400, "The price quote does not fit this fuel; nothing was saved.", errs);
+  return { ok: true, value: q };
+}
+
+function quoteFitErrors(
+  fuel: Fuel,
+  q: { unit: PriceUnit; energyBasis?: EnergyBasis | null; meteringReference?: MeteringReferenceKey | null },
+): FieldErrors {
   let hasDensity = false;
   if (fuel.kind !== "gas") {
     try {
@@ -400,15 +422,12 @@ export function checkQuoteForFuel(fuel: Fuel, raw: unknown): Result<PriceQuoteIn
     { unit: q.unit, energyBasis: q.energyBasis ?? null, meteringReferenceC: q.meteringReference ? METERING_REFERENCE_C[q.meteringReference] : null },
     { kind: fuel.kind as FuelKind, hasDensity },
   );
-  if (issues.length) {
-    const errs: FieldErrors = {};
-    for (const i of issues) {
-      const field = i.field === "density" ? "unit" : i.field === "meteringReferenceC" ? "meteringReference" : i.field;
-      if (!(field in errs)) errs[field] = i.message;
-    }
-    return fail(400, "The price quote does not fit this fuel; nothing was saved.", errs);
+  const errs: FieldErrors = {};
+  for (const i of issues) {
+    const field = i.field === "density" ? "unit" : i.field === "meteringReferenceC" ? "meteringReference" : i.field;
+    if (!(field in errs)) errs[field] = i.message;
   }
-  return { ok: true, value: q };
+  return errs;
 }
 
 /** Adds a quote inside an open transaction (used by the API and by imports). */

@@ -169,6 +169,9 @@ describe("prices", () => {
     expect((await litre.json()).fieldErrors.unit).toMatch(/not priced per L/);
     const negative = await routes.prices.POST(post(url, { amount: -1, currency: "EUR", unit: "t", validFrom: "2025-01-01" }), ctx(gas.id));
     expect((await negative.json()).fieldErrors.amount).toMatch(/≥ 0/);
+    const both = await (await routes.prices.POST(post(url, { amount: -1, currency: "EUR", unit: "MWh", validFrom: "2025-01-01" }), ctx(gas.id))).json();
+    expect(both.fieldErrors.amount).toMatch(/≥ 0/);
+    expect(both.fieldErrors.energyBasis).toMatch(/needs a basis/);
     const badDate = await routes.prices.POST(post(url, { amount: 1, currency: "EUR", unit: "t", validFrom: "2025-02-30" }), ctx(gas.id));
     expect((await badDate.json()).fieldErrors.validFrom).toBeDefined();
     expect(await t.client.priceQuote.count({ where: { fuelId: gas.id } })).toBe(0);
