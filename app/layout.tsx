@@ -18,6 +18,8 @@ export default function RootLayout({ children }: { children: React.ReactNode }) 
               Stoke<span>.</span>
             </Link>
             <nav aria-label="Main">
+              <NavLink href="/studies">Studies</NavLink>
+              <NavLink href="/plants">Plants</NavLink>
               <NavLink href="/fuels" not={["/fuels/transfer"]}>
                 Fuel library
               </NavLink>
