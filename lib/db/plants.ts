@@ -6,7 +6,11 @@
 import type { Plant as PlantRow, PrismaClient } from "./generated/client";
 import { fieldErrors } from "../schemas/fuel";
 import { plantSchema, type Plant, type PlantInput } from "../schemas/plant";
-import { fail, inTransaction, type FieldErrors, type Result, type Tx } from "./fuels";
+import { effectiveDefinition, fail, inTransaction, type FieldErrors, type Result, type Tx } from "./fuels";
+import type { FuelDefinition } from "../schemas/fuel";
+import { evaluateStudy, StudyInputError, type ScenarioResult } from "../study/evaluate";
+import type { PlantDuty } from "../plant/duty";
+import { sharedCaches } from "./eval-cache";
 
 /** What a plant form or the API sends: the plant schema's fields plus the baseline fuel's id. */
 export type PlantRecordInput = PlantInput & { baselineFuelId: number | null };
@@ -194,4 +198,43 @@ export async function deletePlant(db: PrismaClient, id: number): Promise<Result<
 /** The JSON form of a plant for the API. */
 export function plantJson(r: PlantRecord) {
   return { id: r.id, ...r.plant, baselineFuelId: r.baselineFuelId, baselineFuelName: r.baselineFuelName, isDemo: r.isDemo, url: `/plants/${r.id}` };
+}
+
+export interface PlantBaseline {
+  duty: PlantDuty;
+  baseline: ScenarioResult;
+}
+
+/**
+ * What the plant does today on its baseline fuel: duty, efficiency, flows at rated duty and the fit
+ * checks against its own limits (a baseline-only evaluation, no prices). Null without a baseline fuel.
+ */
+export async function plantBaseline(db: PrismaClient, id: number): Promise<{ ok: true; value: PlantBaseline } | { ok: false; message: string } | null> {
+  const row = await db.plant.findUnique({ where: { id }, include: { baselineFuel: true } });
+  if (!row || !row.baselineFuel) return null;
+  try {
+    const r = evaluateStudy(
+      {
+        name: row.name,
+        currency: "EUR",
+        carbonPrice_per_t: 0,
+        discountRatePercent: 0,
+        horizonYears: 1,
+        priceEscalationPercent: 0,
+        rankingMetric: "co2-per-useful-MJ",
+        includeUpstream: false,
+        sensitivity: { fuelPricePercent: 20, carbonPricePercent: 50, efficiencyPoints: 2, capexPercent: 30 },
+        hydrogenSweep: { enabled: false, stepPercent: 1, hydrogen: { compound: "H2", phase: "gas" } as FuelDefinition },
+        plant: plantFromRow(row),
+        baseline: { name: row.baselineFuel.name, fuel: effectiveDefinition(row.baselineFuel), capex: 0, fixedOpexChange: 0, overrides: {}, notes: "" },
+        scenarios: [],
+        notes: "",
+      },
+      { sweep: false, tornado: false, caches: sharedCaches() },
+    );
+    return { ok: true, value: { duty: r.duty, baseline: r.baseline } };
+  } catch (e) {
+    if (e instanceof StudyInputError || e instanceof RangeError) return { ok: false, message: e.message };
+    throw e;
+  }
 }

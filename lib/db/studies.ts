@@ -11,7 +11,8 @@ import { studySchema, type Study, type StudyInput, type StudyPriceInput } from "
 import { studyRecordSchema, type StudyRecord, type StudyRecordInput, type ScenarioRecord } from "../schemas/study-record";
 import { operatingOverridesSchema } from "../schemas/plant";
 import { RANKING_METRICS, type RankingMetric, type SensitivityRanges } from "../economics/sensitivity";
-import { createEvaluationCaches, evaluateStudy, StudyInputError, type EvaluationCaches, type StudyResult } from "../study/evaluate";
+import { evaluateStudy, StudyInputError, type StudyResult } from "../study/evaluate";
+import { sharedCaches } from "./eval-cache";
 import { currentQuote, effectiveDefinition, fail, inTransaction, quoteJson, type FieldErrors, type Result, type Tx } from "./fuels";
 import { plantInputFromRow } from "./plants";
 
@@ -96,7 +97,7 @@ function priceFor(
       return {
         price: null,
         componentPrices: qs.map(studyPrice),
-        source: { kind: "components", quoteIds: qs.map((q) => q.id), invented: qs.some((q) => q.isInvented), label: "mix of the components' quotes in force (mass-weighted per kg)" },
+        source: { kind: "components", quoteIds: qs.map((q) => q.id), invented: qs.some((q) => q.isInvented), label: "components' quotes in force, mixed per kg" },
       };
     }
   }
@@ -297,15 +298,7 @@ export async function studyBundle(db: PrismaClient, id: number, settings: ViewSe
 
 /* ---------------------------------------------------------------- evaluation */
 
-const globalCaches = globalThis as unknown as { __stokeStudyCaches?: EvaluationCaches };
-
-/** Caches shared by every evaluation in this process (per fuel state and operating point). */
-export function sharedCaches(): EvaluationCaches {
-  let c = globalCaches.__stokeStudyCaches;
-  // Sweeps add about a hundred fuel states each; start afresh before the cache grows without bound.
-  if (!c || c.fuels.size > 20000) c = globalCaches.__stokeStudyCaches = createEvaluationCaches();
-  return c;
-}
+export { sharedCaches };
 
 export type Evaluated = { ok: true; bundle: StudyBundle; result: StudyResult } | { ok: false; status: 404 | 422; message: string; fieldErrors: FieldErrors };
 

@@ -10,10 +10,12 @@
  */
 import type { FuelDefinition } from "../schemas/fuel";
 import { resolveFuel, type ResolvedFuel } from "../fuels/resolve";
-import { flameTemperature, FLAME_METHOD_LABELS, type FlameMethod } from "../combustion/flame";
+import { flameTemperature, lambdaOf, FLAME_METHOD_LABELS, type FlameMethod } from "../combustion/flame";
 import type { Oxidizer } from "../combustion/stoichiometry";
 import type { EquilibriumResult } from "../combustion/equilibrium";
-import { T298K, atmospherePa, kelvinToCelsius } from "../units/constants";
+import { T298K, atmospherePa, celsiusToKelvin, kelvinToCelsius } from "../units/constants";
+import { operatingPointOf, type OperatingOverrides, type Plant } from "../schemas/plant";
+import { plantOxidizer } from "../plant/performance";
 
 export interface PhiSweepOptions {
   fuel: FuelDefinition | ResolvedFuel;
@@ -153,5 +155,31 @@ export function phiSweep(opts: PhiSweepOptions): PhiSweepResult {
     peak: { equilibrium: peakOf("equilibriumK", "equilibrium"), complete: peakOf("completeK", "complete") },
     methods: { equilibrium: FLAME_METHOD_LABELS.equilibrium, complete: FLAME_METHOD_LABELS.complete, "mean-cp": FLAME_METHOD_LABELS["mean-cp"] },
     basis: `adiabatic, at ${(common.pressurePa / 1000).toFixed(3)} kPa; fuel at ${kelvinToCelsius(common.fuelTemperatureK).toFixed(0)} °C, oxidiser at ${kelvinToCelsius(common.oxidizerTemperatureK).toFixed(0)} °C`,
+  };
+}
+
+/** The sweep in a plant's conditions: its humid combustion air at the air temperature, fuel at 25 °C, 1 atm. */
+export interface PlantPhiSweep extends PhiSweepResult {
+  /** φ at the plant's flue O2 (the operating point), or null when it cannot be computed. */
+  operatingPhi: number | null;
+  conditions: { combustionAirC: number; flueO2DryPercent: number; ambientAir: { temperatureC: number; relativeHumidityPercent: number } };
+}
+
+export function phiSweepInPlant(fuel: FuelDefinition, plant: Plant, overrides: OperatingOverrides = {}, opts: Pick<PhiSweepOptions, "phiMin" | "phiMax" | "steps"> = {}): PlantPhiSweep {
+  const op = operatingPointOf(plant, overrides);
+  const oxidizer = plantOxidizer(op);
+  const resolved = resolveFuel(fuel);
+  const r = phiSweep({ ...opts, fuel: resolved, oxidizer, oxidizerTemperatureK: celsiusToKelvin(op.combustionAirC) });
+  let operatingPhi: number | null = null;
+  try {
+    operatingPhi = 1 / lambdaOf(resolved, { flueO2DryPercent: op.flueO2DryPercent }, oxidizer);
+  } catch {
+    operatingPhi = null;
+  }
+  return {
+    ...r,
+    operatingPhi,
+    conditions: { combustionAirC: op.combustionAirC, flueO2DryPercent: op.flueO2DryPercent, ambientAir: op.ambientAir },
+    basis: `${r.basis}; humid combustion air (ambient ${op.ambientAir.temperatureC} °C, ${op.ambientAir.relativeHumidityPercent} % RH)`,
   };
 }

@@ -62,3 +62,24 @@ describe("phi sweep", () => {
     expect(() => phiSweep({ fuel: { composition: { CH4: 1 } }, phiMin: 1.2, phiMax: 1.0 })).toThrow(/phi range/);
   });
 });
+
+describe("phi sweep in a plant", () => {
+  it("uses the plant's preheated humid air and reports its operating φ from the flue O2", async () => {
+    const { plantSchema } = await import("../../../lib/schemas/plant");
+    // Invented plant (common practice, no source): 3 % O2 dry, air preheated to 200 °C.
+    const plant = plantSchema.parse({
+      name: "p", equipmentType: "steam-boiler", ratedInput_kW: 1000, operatingHours: 1000, averageLoadFraction: 0.5,
+      stackTemperatureC: 150, flueO2DryPercent: 3, combustionAirC: 200, radiationLossPercent: 1, condensing: false,
+    });
+    const { phiSweepInPlant } = await import("../../../lib/study/phi-sweep");
+    const r = phiSweepInPlant({ composition: { CH4: 1 } }, plant, {}, { steps: 10, phiMin: 0.6, phiMax: 1.4 });
+    // 3 % O2 dry in methane flue gas ≈ 15 % excess air, φ ≈ 0.87 (common practice, e.g. λ = 21/(21 − O2) ≈ 1.17).
+    expect(r.operatingPhi!).toBeGreaterThan(0.84);
+    expect(r.operatingPhi!).toBeLessThan(0.88);
+    // Preheating the air by 175 K raises the peak well above the 298 K dry-air value of about 2236 K,
+    // by less than 175 K because dissociation grows (common practice, no source).
+    expect(r.peak.equilibrium!.temperatureK).toBeGreaterThan(2236 + 30);
+    expect(r.peak.equilibrium!.temperatureK).toBeLessThan(2236 + 175);
+    expect(r.conditions.combustionAirC).toBe(200);
+  });
+});
