@@ -1,0 +1,350 @@
+"use client";
+
+/** Create or edit a plant: duty, operating point and the limits candidate fuels are checked against. */
+import Link from "next/link";
+import { useRouter } from "next/navigation";
+import { useState } from "react";
+import { ErrorSummary, Field, FieldError, invalid, toNumber, type Errors } from "../../fuels/_components/fields";
+
+export interface PlantFormOptions {
+  fuels: { id: number; name: string; kind: string }[];
+  equipmentTypes: { value: string; label: string }[];
+  meteringReferences: { value: string; label: string }[];
+  wobbeCombustionReferences: number[];
+}
+
+/** Plant values as the API returns them (GET /api/plants/{id}). */
+export type PlantFormInitial = Record<string, unknown> & { id: number; baselineFuelId: number | null };
+
+const NUMBER_FIELDS = [
+  "ratedInput_kW",
+  "annualUsefulHeat_MWh",
+  "operatingHours",
+  "averageLoadFraction",
+  "stackTemperatureC",
+  "flueO2DryPercent",
+  "combustionAirC",
+  "radiationLossPercent",
+  "returnWaterC",
+  "ambientAir.temperatureC",
+  "ambientAir.relativeHumidityPercent",
+  "wobbeTolerancePercent",
+  "wobbeMin_MJ_per_m3",
+  "wobbeMax_MJ_per_m3",
+  "maxFlameTempRiseK",
+  "flueGasCapacity_m3_per_h",
+  "airCapacity_m3_per_h",
+  "fuelSupplyCapacity_m3_per_h",
+  "maxH2SharePercent",
+  "warnAtFractionOfLimit",
+  "dewPointMarginK",
+] as const;
+type NumField = (typeof NUMBER_FIELDS)[number];
+
+/** Defaults for a new plant: a typical gas-fired steam boiler (common practice, to be overwritten). */
+const NEW_DEFAULTS: Record<NumField, string> = {
+  ratedInput_kW: "",
+  annualUsefulHeat_MWh: "",
+  operatingHours: "6000",
+  averageLoadFraction: "0.6",
+  stackTemperatureC: "150",
+  flueO2DryPercent: "3",
+  combustionAirC: "25",
+  radiationLossPercent: "1",
+  returnWaterC: "",
+  "ambientAir.temperatureC": "15",
+  "ambientAir.relativeHumidityPercent": "60",
+  wobbeTolerancePercent: "5",
+  wobbeMin_MJ_per_m3: "",
+  wobbeMax_MJ_per_m3: "",
+  maxFlameTempRiseK: "",
+  flueGasCapacity_m3_per_h: "",
+  airCapacity_m3_per_h: "",
+  fuelSupplyCapacity_m3_per_h: "",
+  maxH2SharePercent: "",
+  warnAtFractionOfLimit: "0.9",
+  dewPointMarginK: "10",
+};
+
+function get(o: Record<string, unknown>, path: string): unknown {
+  return path.split(".").reduce<unknown>((v, k) => (v && typeof v === "object" ? (v as Record<string, unknown>)[k] : undefined), o);
+}
+const str = (v: unknown) => (v === null || v === undefined ? "" : String(v));
+
+export function PlantForm({ options, initial }: { options: PlantFormOptions; initial?: PlantFormInitial }) {
+  const router = useRouter();
+  const [nums, setNums] = useState<Record<NumField, string>>(() => {
+    if (!initial) return { ...NEW_DEFAULTS };
+    const o = {} as Record<NumField, string>;
+    for (const k of NUMBER_FIELDS) o[k] = str(get(initial, k));
+    return o;
+  });
+  const [text, setText] = useState({
+    name: str(initial?.name),
+    site: str(initial?.site),
+    notes: str(initial?.notes),
+    equipmentType: str(initial?.equipmentType ?? "steam-boiler"),
+    ratedInputBasis: str(initial?.ratedInputBasis ?? "net"),
+    baselineFuelId: str(initial?.baselineFuelId ?? ""),
+    wobbeMeteringReference: str(initial?.wobbeMeteringReference ?? "15C"),
+    wobbeCombustionReferenceC: str(initial?.wobbeCombustionReferenceC ?? 15),
+    flueGasCapacityBasis: str(initial?.flueGasCapacityBasis ?? "actual"),
+    airCapacityBasis: str(initial?.airCapacityBasis ?? "actual"),
+    fuelSupplyMeteringReference: str(initial?.fuelSupplyMeteringReference ?? "0C"),
+  });
+  const [condensing, setCondensing] = useState(Boolean(initial?.condensing));
+  const [dutyMode, setDutyMode] = useState<"annual" | "hours">(initial && initial.annualUsefulHeat_MWh != null ? "annual" : "hours");
+  const [wobbeMode, setWobbeMode] = useState<"band" | "range" | "none">(
+    initial ? (initial.wobbeMin_MJ_per_m3 != null ? "range" : initial.wobbeTolerancePercent != null ? "band" : "none") : "band",
+  );
+  const [errors, setErrors] = useState<Errors>({});
+  const [message, setMessage] = useState<string | null>(null);
+  const [busy, setBusy] = useState(false);
+
+  const setNum = (k: NumField) => (e: React.ChangeEvent<HTMLInputElement>) => setNums((s) => ({ ...s, [k]: e.target.value }));
+  const setTxt = (k: keyof typeof text) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement | HTMLTextAreaElement>) => setText((s) => ({ ...s, [k]: e.target.value }));
+
+  const numInput = (k: NumField, label: React.ReactNode, hint?: React.ReactNode, step = "any") => (
+    <Field label={label} name={k} errors={errors} hint={hint}>
+      <input id={`f-${k}`} name={k} inputMode="decimal" type="text" className="num" value={nums[k]} onChange={setNum(k)} data-step={step} {...invalid(errors, k)} />
+    </Field>
+  );
+  const select = (k: keyof typeof text, label: React.ReactNode, opts: { value: string; label: string }[]) => (
+    <Field label={label} name={k} errors={errors}>
+      <select id={`f-${k}`} name={k} value={text[k]} onChange={setTxt(k)} {...invalid(errors, k)}>
+        {opts.map((o) => (
+          <option key={o.value} value={o.value}>
+            {o.label}
+          </option>
+        ))}
+      </select>
+    </Field>
+  );
+
+  const placed = (key: string) =>
+    [...NUMBER_FIELDS, ...Object.keys(text), "condensing", "ambientAir"].includes(key) || key.startsWith("ambientAir.");
+
+  function body(): Record<string, unknown> {
+    const n = (k: NumField) => toNumber(nums[k]);
+    const b: Record<string, unknown> = {
+      name: text.name,
+      site: text.site,
+      equipmentType: text.equipmentType,
+      ratedInput_kW: n("ratedInput_kW"),
+      ratedInputBasis: text.ratedInputBasis,
+      annualUsefulHeat_MWh: dutyMode === "annual" ? n("annualUsefulHeat_MWh") : null,
+      operatingHours: n("operatingHours"),
+      averageLoadFraction: n("averageLoadFraction"),
+      stackTemperatureC: n("stackTemperatureC"),
+      flueO2DryPercent: n("flueO2DryPercent"),
+      combustionAirC: n("combustionAirC"),
+      radiationLossPercent: n("radiationLossPercent"),
+      condensing,
+      returnWaterC: condensing ? n("returnWaterC") : null,
+      ambientAir: { temperatureC: n("ambientAir.temperatureC"), relativeHumidityPercent: n("ambientAir.relativeHumidityPercent") },
+      wobbeTolerancePercent: wobbeMode === "band" ? n("wobbeTolerancePercent") : null,
+      wobbeMin_MJ_per_m3: wobbeMode === "range" ? n("wobbeMin_MJ_per_m3") : null,
+      wobbeMax_MJ_per_m3: wobbeMode === "range" ? n("wobbeMax_MJ_per_m3") : null,
+      wobbeMeteringReference: text.wobbeMeteringReference,
+      wobbeCombustionReferenceC: Number(text.wobbeCombustionReferenceC),
+      maxFlameTempRiseK: n("maxFlameTempRiseK"),
+      flueGasCapacity_m3_per_h: n("flueGasCapacity_m3_per_h"),
+      flueGasCapacityBasis: text.flueGasCapacityBasis,
+      airCapacity_m3_per_h: n("airCapacity_m3_per_h"),
+      airCapacityBasis: text.airCapacityBasis,
+      fuelSupplyCapacity_m3_per_h: n("fuelSupplyCapacity_m3_per_h"),
+      fuelSupplyMeteringReference: text.fuelSupplyMeteringReference,
+      maxH2SharePercent: n("maxH2SharePercent"),
+      warnAtFractionOfLimit: n("warnAtFractionOfLimit"),
+      dewPointMarginK: n("dewPointMarginK"),
+      notes: text.notes,
+      baselineFuelId: text.baselineFuelId === "" ? null : Number(text.baselineFuelId),
+    };
+    // The annual demand then follows from hours × load; both are still required by the schema.
+    if (dutyMode === "annual") {
+      if (b.operatingHours === null) b.operatingHours = 0;
+      if (b.averageLoadFraction === null) b.averageLoadFraction = 0;
+    }
+    return b;
+  }
+
+  async function submit(e: React.FormEvent) {
+    e.preventDefault();
+    setBusy(true);
+    setMessage(null);
+    const res = await fetch(initial ? `/api/plants/${initial.id}` : "/api/plants", {
+      method: initial ? "PUT" : "POST",
+      headers: { "content-type": "application/json" },
+      body: JSON.stringify(body()),
+    });
+    const out = await res.json().catch(() => ({}));
+    if (!res.ok) {
+      setBusy(false);
+      setErrors(out.fieldErrors ?? {});
+      setMessage(out.error ?? `The server answered ${res.status}.`);
+      window.scrollTo({ top: 0, behavior: "smooth" });
+      return;
+    }
+    router.push(`/plants/${out.id}`);
+    router.refresh();
+  }
+
+  const refOpts = options.meteringReferences;
+  const fanBasis = [
+    { value: "actual", label: "actual m³/h (at the gas temperature)" },
+    { value: "normal", label: "normal m³/h (0 °C, 101.325 kPa)" },
+  ];
+
+  return (
+    <form className="stack" onSubmit={submit} noValidate aria-label={initial ? "Edit plant" : "New plant"}>
+      <ErrorSummary message={message} errors={errors} placed={placed} />
+
+      <fieldset>
+        <legend>Plant</legend>
+        <div className="row">
+          <Field label="Name" name="name" errors={errors}>
+            <input id="f-name" name="name" value={text.name} onChange={setTxt("name")} maxLength={120} {...invalid(errors, "name")} />
+          </Field>
+          <Field label="Site" name="site" errors={errors}>
+            <input id="f-site" name="site" value={text.site} onChange={setTxt("site")} maxLength={200} />
+          </Field>
+        </div>
+        <div className="row">
+          {select("equipmentType", "Equipment", options.equipmentTypes)}
+          <Field label="Fuel burnt today (baseline)" name="baselineFuelId" errors={errors}>
+            <select id="f-baselineFuelId" name="baselineFuelId" value={text.baselineFuelId} onChange={setTxt("baselineFuelId")} {...invalid(errors, "baselineFuelId")}>
+              <option value="">— choose a fuel —</option>
+              {options.fuels.map((f) => (
+                <option key={f.id} value={f.id}>
+                  {f.name} ({f.kind})
+                </option>
+              ))}
+            </select>
+          </Field>
+        </div>
+      </fieldset>
+
+      <fieldset>
+        <legend>Duty</legend>
+        <div className="row">
+          {numInput("ratedInput_kW", "Rated heat input, kW")}
+          {select("ratedInputBasis", "Basis of the rated input", [
+            { value: "net", label: "net (LHV)" },
+            { value: "gross", label: "gross (HHV)" },
+          ])}
+        </div>
+        <div className="radio-row" role="radiogroup" aria-label="Annual useful heat">
+          <label>
+            <input type="radio" name="dutyMode" checked={dutyMode === "hours"} onChange={() => setDutyMode("hours")} /> from operating hours × average load
+          </label>
+          <label>
+            <input type="radio" name="dutyMode" checked={dutyMode === "annual"} onChange={() => setDutyMode("annual")} /> annual useful heat known
+          </label>
+        </div>
+        <div className="row">
+          {dutyMode === "annual"
+            ? numInput("annualUsefulHeat_MWh", "Annual useful heat, MWh", "heat delivered to the process or network per year")
+            : (
+              <>
+                {numInput("operatingHours", "Operating hours per year, h")}
+                {numInput("averageLoadFraction", "Average load, fraction of rated input", "e.g. 0.6")}
+              </>
+            )}
+        </div>
+        {dutyMode === "hours" && <FieldError errors={errors} name="annualUsefulHeat_MWh" />}
+      </fieldset>
+
+      <fieldset>
+        <legend>Operating point</legend>
+        <div className="row">
+          {numInput("stackTemperatureC", "Stack temperature, °C", "flue gas leaving the unit")}
+          {numInput("flueO2DryPercent", "Flue-gas O2, vol % dry")}
+          {numInput("combustionAirC", "Combustion-air temperature, °C", "at the burner, after any preheater")}
+          {numInput("radiationLossPercent", "Radiation and casing loss, % of input")}
+        </div>
+        <div className="row">
+          <div className="field">
+            <span className="label">Condensing</span>
+            <label style={{ fontWeight: 400 }}>
+              <input type="checkbox" name="condensing" checked={condensing} onChange={(e) => setCondensing(e.target.checked)} /> condensing heat exchanger fitted
+            </label>
+          </div>
+          {condensing && numInput("returnWaterC", "Return-water temperature, °C")}
+          {numInput("ambientAir.temperatureC", "Ambient air, °C")}
+          {numInput("ambientAir.relativeHumidityPercent", "Ambient relative humidity, %")}
+        </div>
+      </fieldset>
+
+      <fieldset>
+        <legend>Limits a new fuel must respect</legend>
+        <p className="basis">Leave a limit empty when it is not known: the check then shows the number without pass or fail.</p>
+        <div className="radio-row" role="radiogroup" aria-label="Wobbe limit">
+          <label>
+            <input type="radio" name="wobbeMode" checked={wobbeMode === "band"} onChange={() => setWobbeMode("band")} /> Wobbe band ± % of the baseline gas
+          </label>
+          <label>
+            <input type="radio" name="wobbeMode" checked={wobbeMode === "range"} onChange={() => setWobbeMode("range")} /> absolute Wobbe range
+          </label>
+          <label>
+            <input type="radio" name="wobbeMode" checked={wobbeMode === "none"} onChange={() => setWobbeMode("none")} /> none
+          </label>
+        </div>
+        <div className="row">
+          {wobbeMode === "band" && numInput("wobbeTolerancePercent", "Wobbe tolerance, ± %")}
+          {wobbeMode === "range" && (
+            <>
+              {numInput("wobbeMin_MJ_per_m3", "Wobbe minimum, MJ/m³ (gross)")}
+              {numInput("wobbeMax_MJ_per_m3", "Wobbe maximum, MJ/m³ (gross)")}
+            </>
+          )}
+          {wobbeMode !== "none" &&
+            select(
+              "wobbeMeteringReference",
+              "Wobbe metering reference",
+              refOpts,
+            )}
+          {wobbeMode !== "none" &&
+            select(
+              "wobbeCombustionReferenceC",
+              "Wobbe combustion reference",
+              options.wobbeCombustionReferences.map((c) => ({ value: String(c), label: `${c} °C` })),
+            )}
+        </div>
+        <div className="row">
+          {numInput("maxFlameTempRiseK", "Maximum flame-temperature rise, K", "over the baseline fuel (equilibrium method)")}
+          {numInput("maxH2SharePercent", "Burner maker's maximum H2, vol %")}
+        </div>
+        <div className="row">
+          {numInput("flueGasCapacity_m3_per_h", "Flue-gas fan capacity, m³/h")}
+          {select("flueGasCapacityBasis", "Flue-gas fan basis", fanBasis)}
+          {numInput("airCapacity_m3_per_h", "Combustion-air fan capacity, m³/h")}
+          {select("airCapacityBasis", "Air fan basis", fanBasis)}
+        </div>
+        <div className="row">
+          {numInput("fuelSupplyCapacity_m3_per_h", "Fuel supply / meter capacity, m³/h", "gases at the reference below; liquids m³/h of liquid")}
+          {select("fuelSupplyMeteringReference", "Supply metering reference", refOpts)}
+        </div>
+        <div className="row">
+          {numInput("warnAtFractionOfLimit", "Warn at this fraction of a limit", "0.9 = warn within 10 % of the limit")}
+          {numInput("dewPointMarginK", "Dew-point margin, K", "a stack closer than this above the water dew point warns")}
+        </div>
+      </fieldset>
+
+      <fieldset>
+        <legend>Notes</legend>
+        <Field label="Notes" name="notes" errors={errors}>
+          <textarea id="f-notes" name="notes" value={text.notes} onChange={setTxt("notes")} maxLength={5000} />
+        </Field>
+      </fieldset>
+
+      <div className="form-actions">
+        <button type="submit" disabled={busy}>
+          {busy ? "Saving…" : initial ? "Save plant" : "Create plant"}
+        </button>
+        <Link className="button secondary" href={initial ? `/plants/${initial.id}` : "/plants"}>
+          Cancel
+        </Link>
+      </div>
+    </form>
+  );
+}

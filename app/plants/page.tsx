@@ -1,0 +1,92 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { db } from "@/lib/db/client";
+import { listPlants } from "@/lib/db/plants";
+import { EQUIPMENT_TYPE_LABELS } from "@/lib/schemas/plant";
+import { fmt } from "../_ui/format";
+import { displayUnits } from "../studies/_components/units-server";
+import { makeDisplay } from "../studies/_components/display";
+import { UnitSwitch } from "../studies/_components/UnitSwitch";
+
+export const dynamic = "force-dynamic";
+export const metadata: Metadata = { title: "Plants" };
+
+export default async function PlantsPage() {
+  const [plants, units] = await Promise.all([listPlants(db()), displayUnits()]);
+  const d = makeDisplay(units, "");
+  return (
+    <>
+      <div className="page-head">
+        <div>
+          <h1>Plants</h1>
+          <p className="lede">
+            The fired units a fuel must suit: their duty, operating point and the limits every candidate fuel is checked against —
+            Wobbe band, flame-temperature rise, fan and supply capacities, the burner maker&apos;s hydrogen limit.
+          </p>
+        </div>
+        <div className="actions">
+          <Link className="button" href="/plants/new">
+            New plant
+          </Link>
+        </div>
+      </div>
+      <UnitSwitch units={units} />
+      {plants.length === 0 ? (
+        <p className="note">
+          No plants yet. <Link href="/plants/new">Describe your first plant</Link>.
+        </p>
+      ) : (
+        <div className="table-wrap" style={{ marginTop: "0.75rem" }}>
+          <table>
+            <thead>
+              <tr>
+                <th>Plant</th>
+                <th>Equipment</th>
+                <th>Fuel today</th>
+                <th className="num">
+                  Rated input <span className="unit">kW</span>
+                </th>
+                <th className="num">
+                  Stack <span className="unit">{d.tempUnit}</span>
+                </th>
+                <th className="num">
+                  Max H2 <span className="unit">vol %</span>
+                </th>
+                <th>Studies</th>
+              </tr>
+            </thead>
+            <tbody>
+              {plants.map((p) => (
+                <tr key={p.id}>
+                  <td>
+                    <Link href={`/plants/${p.id}`}>{p.plant.name}</Link> {p.isDemo && <span className="badge demo">demo</span>}
+                    {p.plant.site && <div className="muted" style={{ fontSize: "0.85rem" }}>{p.plant.site}</div>}
+                  </td>
+                  <td>{EQUIPMENT_TYPE_LABELS[p.plant.equipmentType]}</td>
+                  <td>{p.baselineFuelName ?? <span className="na">–</span>}</td>
+                  <td className="num">
+                    {fmt(p.plant.ratedInput_kW, 0)} <span className="unit">({p.plant.ratedInputBasis})</span>
+                  </td>
+                  <td className="num">{d.temp(p.plant.stackTemperatureC)}</td>
+                  <td className="num">{p.plant.maxH2SharePercent != null ? fmt(p.plant.maxH2SharePercent, 0) : <span className="na">not set</span>}</td>
+                  <td>
+                    {p.studies.length === 0 ? (
+                      <Link href={`/studies/new?plant=${p.id}`}>start a study</Link>
+                    ) : (
+                      p.studies.map((s, i) => (
+                        <span key={s.id}>
+                          {i > 0 && ", "}
+                          <Link href={`/studies/${s.id}`}>{s.name}</Link>
+                        </span>
+                      ))
+                    )}
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      )}
+    </>
+  );
+}

@@ -1,0 +1,34 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { db } from "@/lib/db/client";
+import { studyFormOptions, studyRecord } from "@/lib/db/studies";
+import { StudyForm } from "../../_components/StudyForm";
+import { METRIC_OPTIONS } from "../../_components/form-options";
+
+export const dynamic = "force-dynamic";
+export const metadata: Metadata = { title: "Edit study" };
+
+export default async function EditStudyPage({ params }: { params: Promise<{ id: string }> }) {
+  const id = Number((await params).id);
+  const rec = Number.isInteger(id) && id > 0 ? await studyRecord(db(), id) : null;
+  if (!rec) notFound();
+  const options = await studyFormOptions(db());
+  return (
+    <>
+      <h2 style={{ marginTop: 0 }}>Edit the study</h2>
+      <StudyForm
+        options={options}
+        metrics={METRIC_OPTIONS}
+        initial={{
+          ...rec,
+          carbonPrice_per_t: rec.carbonPrice_per_t ?? 0,
+          priceEscalationPercent: rec.priceEscalationPercent ?? 0,
+          rankingMetric: rec.rankingMetric ?? "cost-per-useful-MWh",
+          notes: rec.notes ?? "",
+          baseline: { ...rec.baseline, overrides: rec.baseline.overrides as Record<string, unknown> },
+          scenarios: rec.scenarios.map((x) => ({ ...x, overrides: x.overrides as Record<string, unknown> })),
+        }}
+      />
+    </>
+  );
+}

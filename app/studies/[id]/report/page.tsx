@@ -1,0 +1,462 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { db } from "@/lib/db/client";
+import { evaluateStoredStudy } from "@/lib/db/studies";
+import { fmt, fmtUpTo, money, pct } from "../../../_ui/format";
+import { CostStackChart, Co2Chart, CostCo2Scatter } from "../../../_charts/ScenarioCharts";
+import { displayUnits } from "../../_components/units-server";
+import { makeDisplay, signed } from "../../_components/display";
+import { Cautions } from "../../_components/Cautions";
+import { Status } from "../../_components/Checks";
+import { CheckMatrix, RankTable, RankTableNotes } from "../../_components/Tables";
+import { EvaluationProblem } from "../../_components/EvaluationProblem";
+import { PrintButton } from "../../_components/PrintButton";
+import { co2Rows, costRows, failingChecks, headline, metricText, ranked, scatterPoints } from "../../_components/results";
+import { METRIC_SHORT, viewChoice, viewQuery, type SearchParams } from "../../_components/settings";
+import { METERING_REFERENCE_LABELS } from "../../../plants/_components/options";
+
+export const dynamic = "force-dynamic";
+
+type Props = { params: Promise<{ id: string }>; searchParams: Promise<SearchParams> };
+
+export async function generateMetadata({ params }: Props): Promise<Metadata> {
+  const id = Number((await params).id);
+  const row = Number.isInteger(id) && id > 0 ? await db().study.findUnique({ where: { id }, select: { name: true } }) : null;
+  return { title: row ? `${row.name} — report` : "Report" };
+}
+
+const PAPER = { a4: "A4", letter: "Letter" } as const;
+
+export default async function ReportPage({ params, searchParams }: Props) {
+  const id = Number((await params).id);
+  if (!Number.isInteger(id) || id <= 0) notFound();
+  const sp = await searchParams;
+  const view = viewChoice(sp);
+  const paper = sp.paper === "letter" ? "letter" : "a4";
+  const [ev, units] = await Promise.all([evaluateStoredStudy(db(), id, { metric: view.metric, includeUpstream: view.includeUpstream, sweep: true, tornado: false }), displayUnits()]);
+  if (!ev.ok) {
+    if (ev.status === 404) notFound();
+    return <EvaluationProblem id={id} message={ev.message} fieldErrors={ev.fieldErrors} />;
+  }
+  const { result, bundle } = ev;
+  const d = makeDisplay(units, result.study.currency);
+  const metric = result.ranking.metric;
+  const list = ranked(result, bundle);
+  const h = headline(list);
+  const p = result.plant;
+  const sw = result.hydrogenSweep && result.hydrogenSweep.available ? result.hydrogenSweep : null;
+  const swFails = sw ? sw.crossings.filter((c) => c.firstFailPercent !== null && c.statusAtZero !== "fail").sort((a, b) => a.firstFailPercent! - b.firstFailPercent!) : [];
+  const today = new Date().toISOString().slice(0, 10);
+  const na = <span className="na">not set</span>;
+
+  return (
+    <>
+      {/* Paper size for printing: A4 (210 × 297 mm) or US Letter (8.5 × 11 in). */}
+      <style>{`@page { size: ${PAPER[paper]}; margin: ${paper === "a4" ? "16mm 14mm" : "0.6in 0.55in"}; }`}</style>
+      <div className="report-toolbar no-print">
+        <PrintButton />
+        <span className="segmented" role="group" aria-label="Paper">
+          {(["a4", "letter"] as const).map((k) => (
+            <Link key={k} href={`/studies/${id}/report${viewQuery(view, { paper: k === "a4" ? undefined : k })}`} aria-current={paper === k ? "true" : undefined} scroll={false}>
+              {PAPER[k]}
+            </Link>
+          ))}
+        </span>
+        <a className="button secondary" href={`/api/studies/${id}/export?format=csv&table=scenarios${view.metric ? `&metric=${view.metric}` : ""}${view.includeUpstream ? "&upstream=1" : ""}`} download>
+          Scenarios CSV
+        </a>
+        <a className="button secondary" href={`/api/studies/${id}/export?format=csv&table=checks`} download>
+          Fit checks CSV
+        </a>
+        <a className="button secondary" href={`/api/studies/${id}/export?format=csv&table=sweep`} download>
+          Sweep CSV
+        </a>
+        <a className="button secondary" href={`/api/studies/${id}/export?format=json${view.metric ? `&metric=${view.metric}` : ""}${view.includeUpstream ? "&upstream=1" : ""}`} download>
+          Everything as JSON
+        </a>
+        <span className="muted small-note">Units on this report follow the unit switch; the print stylesheet drops the controls.</span>
+      </div>
+
+      <article className="report" data-testid="report">
+        <header className="title-block">
+          <div>
+            <div className="muted" style={{ fontSize: "0.85rem", letterSpacing: "0.04em", textTransform: "uppercase" }}>
+              Fuel-switching feasibility study
+            </div>
+            <h1 style={{ margin: "0.15rem 0" }}>{result.study.name}</h1>
+            <div>
+              {p.name}
+              {p.site ? `, ${p.site}` : ""} — {p.equipmentLabel}
+            </div>
+          </div>
+          <div style={{ textAlign: "right", fontSize: "0.88rem" }}>
+            <div>Prepared {today} with Stoke</div>
+            <div>Ranked by {METRIC_SHORT[metric].toLowerCase()}</div>
+            <div>Screening study — not a design</div>
+          </div>
+        </header>
+
+        {bundle.meta.anyInventedPrice && (
+          <p className="note warn">This report uses invented demo prices (marked “invented”): the costs illustrate the method, not the market.</p>
+        )}
+
+        <section className="keep">
+          <h2>Summary</h2>
+          <ul>
+            {h.best && (
+              <li>
+                <b>Best by {METRIC_SHORT[metric].toLowerCase()}:</b> {h.best.r.name} — {metricText(metric, h.best.r.metricValue, d)}
+                {h.best.r.comparison && (
+                  <>
+                    ; {signed(h.best.r.comparison.annualNetSaving, 0)} {d.currency}/yr against {result.baseline.name},{" "}
+                    {fmt(h.best.r.comparison.annualCo2Avoided_t, 0)} t CO2/yr avoided
+                  </>
+                )}
+                {h.bestIsBaseline && h.bestCandidate && <>; best feasible candidate {h.bestCandidate.r.name} ({metricText(metric, h.bestCandidate.r.metricValue, d)})</>}.
+              </li>
+            )}
+            {h.lowestCo2 && (
+              <li>
+                <b>Lowest CO2 among feasible options:</b> {h.lowestCo2.r.name}, {fmt(h.lowestCo2.r.co2PerUsefulMJ_g.ranked, 1)} g/MJ useful
+                {h.lowestCo2.r.comparison?.abatementCost_per_t != null && <> at {money(h.lowestCo2.r.comparison.abatementCost_per_t, d.currency, 0)}/t abated</>}.
+              </li>
+            )}
+            <li>
+              <b>Infeasible in this plant:</b>{" "}
+              {h.infeasible.length === 0 ? "none." : h.infeasible.map((x) => `${x.r.name} (fails ${failingChecks(x.r).join("; ").toLowerCase()})`).join("; ") + "."}
+            </li>
+            {sw && (
+              <li>
+                <b>Hydrogen blending:</b>{" "}
+                {swFails.length
+                  ? `the first limit to fail is ${swFails[0].label.toLowerCase()} at ${fmt(swFails[0].firstFailPercent, 0)} vol % H2.`
+                  : "no entered limit fails between 0 and 100 vol % H2."}
+              </li>
+            )}
+          </ul>
+        </section>
+
+        <section className="keep">
+          <h2>Plant</h2>
+          <div className="kv-grid">
+            <table className="kv">
+              <tbody>
+                <tr>
+                  <th>Equipment</th>
+                  <td>{p.equipmentLabel}</td>
+                </tr>
+                <tr>
+                  <th>Rated heat input</th>
+                  <td className="num">
+                    {fmt(p.ratedInput_kW, 0)} kW ({p.ratedInputBasis})
+                  </td>
+                </tr>
+                <tr>
+                  <th>Annual useful heat</th>
+                  <td className="num">
+                    {d.energy(result.duty.annualUseful_MWh)} {d.energyUnit} ({result.duty.annualUsefulOrigin})
+                  </td>
+                </tr>
+                <tr>
+                  <th>Stack / flue O2</th>
+                  <td className="num">
+                    {d.temp(p.stackTemperatureC)} {d.tempUnit} / {fmt(p.flueO2DryPercent, 1)} % dry
+                  </td>
+                </tr>
+                <tr>
+                  <th>Combustion air</th>
+                  <td className="num">
+                    {d.temp(p.combustionAirC)} {d.tempUnit}; ambient {d.temp(p.ambientAir.temperatureC)} {d.tempUnit}, {fmt(p.ambientAir.relativeHumidityPercent, 0)} % RH
+                  </td>
+                </tr>
+                <tr>
+                  <th>Radiation loss / condensing</th>
+                  <td className="num">
+                    {fmt(p.radiationLossPercent, 1)} % / {p.condensing ? `yes, return water ${d.temp(p.returnWaterC)} ${d.tempUnit}` : "no"}
+                  </td>
+                </tr>
+              </tbody>
+            </table>
+            <table className="kv">
+              <tbody>
+                <tr>
+                  <th>Wobbe limit</th>
+                  <td className="num">
+                    {p.wobbeTolerancePercent != null
+                      ? `± ${fmt(p.wobbeTolerancePercent, 1)} % of baseline`
+                      : p.wobbeMin_MJ_per_m3 != null
+                        ? `${d.wobbe(p.wobbeMin_MJ_per_m3)}–${d.wobbe(p.wobbeMax_MJ_per_m3)} ${d.wobbeUnit}`
+                        : na}{" "}
+                    <span className="unit">
+                      ({p.wobbeCombustionReferenceC} °C / {METERING_REFERENCE_LABELS[p.wobbeMeteringReference]})
+                    </span>
+                  </td>
+                </tr>
+                <tr>
+                  <th>Flame-temperature rise</th>
+                  <td className="num">{p.maxFlameTempRiseK != null ? `≤ ${d.dT(p.maxFlameTempRiseK, 0, false)} ${d.dTUnit}` : na}</td>
+                </tr>
+                <tr>
+                  <th>Flue-gas / air fan</th>
+                  <td className="num">
+                    {p.flueGasCapacity_m3_per_h != null ? `${d.vol(p.flueGasCapacity_m3_per_h)} ${d.volUnit}/h ${p.flueGasCapacityBasis}` : na} /{" "}
+                    {p.airCapacity_m3_per_h != null ? `${d.vol(p.airCapacity_m3_per_h)} ${d.volUnit}/h ${p.airCapacityBasis}` : na}
+                  </td>
+                </tr>
+                <tr>
+                  <th>Fuel supply</th>
+                  <td className="num">
+                    {p.fuelSupplyCapacity_m3_per_h != null ? `${d.vol(p.fuelSupplyCapacity_m3_per_h, p.fuelSupplyCapacity_m3_per_h < 10 ? 2 : 0)} ${d.volUnit}/h (${METERING_REFERENCE_LABELS[p.fuelSupplyMeteringReference]})` : na}
+                  </td>
+                </tr>
+                <tr>
+                  <th>Burner H2 limit</th>
+                  <td className="num">{p.maxH2SharePercent != null ? `${fmt(p.maxH2SharePercent, 0)} vol %` : na}</td>
+                </tr>
+                <tr>
+                  <th>Warning margin</th>
+                  <td className="num">
+                    {pct(p.warnAtFractionOfLimit, 0)} of a limit; dew-point margin {d.dT(p.dewPointMarginK, 0, false)} {d.dTUnit}
+                  </td>
+                </tr>
+              </tbody>
+            </table>
+          </div>
+        </section>
+
+        <section>
+          <h2>Assumptions</h2>
+          <p>
+            Currency {d.currency}; carbon price {money(result.study.carbonPrice_per_t, d.currency, 0)}/t fossil CO2; discount rate{" "}
+            {fmt(result.study.discountRatePercent, 1)} %; horizon {result.study.horizonYears} years; fuel and carbon prices escalating{" "}
+            {fmt(result.study.priceEscalationPercent, 1)} %/yr; upstream CO2e {result.study.includeUpstream ? "counted and priced" : "reported, not counted"}.
+          </p>
+          <ul>
+            {result.audit.assumptions.map((a) => (
+              <li key={a}>{a}</li>
+            ))}
+          </ul>
+          <h3>Scenarios as entered</h3>
+          <div className="table-wrap">
+            <table>
+              <thead>
+                <tr>
+                  <th>Scenario</th>
+                  <th>Fuel</th>
+                  <th>Price quote</th>
+                  <th className="num">Delivered, {d.costPerEnergyUnit}</th>
+                  <th className="num">Capex {d.currency}</th>
+                  <th className="num">Opex change {d.currency}/yr</th>
+                  <th>Overrides</th>
+                </tr>
+              </thead>
+              <tbody>
+                {list.map(({ r, meta }) => {
+                  const q = r.audit.inputs.price;
+                  const ov = Object.entries(r.audit.inputs.overrides ?? {});
+                  return (
+                    <tr key={r.index}>
+                      <td>
+                        {r.name}
+                        {r.isBaseline && " (baseline)"}
+                      </td>
+                      <td>{meta.fuelName}</td>
+                      <td>
+                        {q ? (
+                          <>
+                            {fmtUpTo(q.amount, 4)} + {fmtUpTo(q.transportAdder, 4)} + {fmtUpTo(q.handlingAdder, 4)} {q.currency}/{r.price?.unitLabel ?? q.unit}
+                            {q.isInvented && <> <span className="badge invented">invented</span></>}
+                          </>
+                        ) : (
+                          meta.price.label
+                        )}
+                      </td>
+                      <td className="num">{r.price ? `${d.costPerEnergy(r.price.perMWh_net)} net / ${d.costPerEnergy(r.price.perMWh_gross)} gross` : "–"}</td>
+                      <td className="num">{r.isBaseline ? "—" : fmt(r.audit.inputs.capex, 0)}</td>
+                      <td className="num">{r.isBaseline ? "—" : fmt(r.audit.inputs.fixedOpexChange, 0)}</td>
+                      <td>{ov.length ? ov.map(([k, v]) => `${k} = ${String(v)}`).join(", ") : "none"}</td>
+                    </tr>
+                  );
+                })}
+              </tbody>
+            </table>
+          </div>
+        </section>
+
+        <section>
+          <h2>Ranked scenarios</h2>
+          <h3>Cost and CO2</h3>
+          <RankTable list={list} result={result} d={d} metric={metric} links={false} part="economics" />
+          <h3>What changes in the plant</h3>
+          <RankTable list={list} result={result} d={d} metric={metric} links={false} part="technical" />
+          <RankTableNotes result={result} d={d} />
+        </section>
+
+        <section>
+          <h2>Charts</h2>
+          <div className="charts-grid">
+            <div className="chart-box">
+              <h3 className="chart-title">
+                Cost per useful {d.energyUnit} <span className="unit">({d.costPerEnergyUnit})</span>
+              </h3>
+              <CostStackChart rows={costRows(list, d)} unit={`${d.costPerEnergyUnit} useful`} includeUpstream={result.study.includeUpstream} isStatic />
+            </div>
+            <div className="chart-box">
+              <h3 className="chart-title">
+                CO2 per useful MJ <span className="unit">(g/MJ)</span>
+              </h3>
+              <Co2Chart rows={co2Rows(list)} includeUpstream={result.study.includeUpstream} isStatic />
+            </div>
+          </div>
+          <div className="chart-box keep">
+            <h3 className="chart-title">Cost against CO2</h3>
+            <CostCo2Scatter points={scatterPoints(list, d)} costUnit={`${d.costPerEnergyUnit} useful`} isStatic />
+          </div>
+        </section>
+
+        <section>
+          <h2>Fit checks</h2>
+          <CheckMatrix list={list} d={d} />
+          <h3>Warnings and failures explained</h3>
+          <ul>
+            {list.flatMap(({ r }) =>
+              r.checks
+                .filter((c) => c.status === "warn" || c.status === "fail")
+                .map((c) => (
+                  <li key={`${r.index}-${c.id}`}>
+                    <Status status={c.status} /> <b>{r.name}</b> — {c.label}: {c.message} <span className="muted">({c.basis})</span>
+                  </li>
+                )),
+            )}
+          </ul>
+        </section>
+
+        <section className="keep">
+          <h2>Efficiency and flue gas</h2>
+          <div className="table-wrap">
+            <table>
+              <thead>
+                <tr>
+                  <th>Scenario</th>
+                  <th className="num">Efficiency % net</th>
+                  <th className="num">Efficiency % gross</th>
+                  <th className="num">Dry flue-gas loss % net</th>
+                  <th className="num">Excess air %</th>
+                  <th className="num">Dew point {d.tempUnit}</th>
+                  <th className="num">Flame {d.tempUnit}</th>
+                  <th className="num">Siegert check % / heat-loss %</th>
+                </tr>
+              </thead>
+              <tbody>
+                {list.map(({ r }) => (
+                  <tr key={r.index}>
+                    <td>{r.name}</td>
+                    <td className="num">{fmt(r.efficiency.net * 100, 1)}</td>
+                    <td className="num">{fmt(r.efficiency.gross * 100, 1)}</td>
+                    <td className="num">{fmt(r.efficiency.lossesNetPercent.dryFlueGas, 2)}</td>
+                    <td className="num">{fmt(r.efficiency.excessAirPercent, 0)}</td>
+                    <td className="num">{d.temp(r.efficiency.dewPointC, 1)}</td>
+                    <td className="num">{r.flame ? d.temp(r.flame.temperatureC) : "–"}</td>
+                    <td className="num">{r.efficiency.siegert ? `${fmt(r.efficiency.siegert.siegertPercent, 2)} / ${fmt(r.efficiency.siegert.heatLossMethodPercent, 2)}` : "n/a"}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+          <p className="table-note">{result.baseline.efficiency.basis}. Siegert: rule-of-thumb flue loss (German 1. BImSchV) beside the heat-loss method&apos;s, where its constants apply.</p>
+        </section>
+
+        {sw && (
+          <section className="keep">
+            <h2>Hydrogen blending: where each limit is crossed</h2>
+            <p className="basis">
+              {sw.baseGasLabel} with {sw.hydrogenLabel}, 0–100 vol % in {fmt(sw.stepPercent, 0)} % steps, at the plant&apos;s operating point. {sw.basis.wobbe}.
+            </p>
+            <div className="table-wrap">
+              <table>
+                <thead>
+                  <tr>
+                    <th>Check</th>
+                    <th>At 0 % H2</th>
+                    <th className="num">First warning, vol % H2</th>
+                    <th className="num">First failure, vol % H2</th>
+                  </tr>
+                </thead>
+                <tbody>
+                  {sw.crossings.map((c) => (
+                    <tr key={c.checkId}>
+                      <td>{c.label}</td>
+                      <td>
+                        <Status status={c.statusAtZero} />
+                      </td>
+                      <td className="num">{c.statusAtZero === "not-checked" ? "–" : c.firstWarnPercent === null ? "none" : fmt(c.firstWarnPercent, 0)}</td>
+                      <td className="num">{c.statusAtZero === "not-checked" ? "–" : c.firstFailPercent === null ? "none" : fmt(c.firstFailPercent, 0)}</td>
+                    </tr>
+                  ))}
+                </tbody>
+              </table>
+            </div>
+            <div className="table-wrap" style={{ marginTop: "0.6rem" }}>
+              <table>
+                <thead>
+                  <tr>
+                    <th className="num">H2 vol %</th>
+                    <th className="num">H2 energy % (net)</th>
+                    <th className="num">Wobbe {d.wobbeUnit}</th>
+                    <th className="num">Flame {d.tempUnit}</th>
+                    <th className="num">CO2 g/MJ useful</th>
+                    <th className="num">CO2 change %</th>
+                    <th className="num">Fuel {d.volUnit}/h</th>
+                    <th className="num">Cost {d.costPerEnergyUnit}</th>
+                  </tr>
+                </thead>
+                <tbody>
+                  {sw.points
+                    .filter((x) => Math.abs(x.h2Percent / 10 - Math.round(x.h2Percent / 10)) < 1e-9)
+                    .map((x) => (
+                      <tr key={x.h2Percent}>
+                        <td className="num">{fmt(x.h2Percent, 0)}</td>
+                        <td className="num">{fmt(x.h2EnergySharePercent, 1)}</td>
+                        <td className="num">{d.wobbe(x.wobbeGross_MJ_per_m3)}</td>
+                        <td className="num">{d.temp(x.flameTemperatureC)}</td>
+                        <td className="num">{fmt(x.co2PerUsefulMJ_g, 1)}</td>
+                        <td className="num">{signed(x.co2ChangePercent, 1)}</td>
+                        <td className="num">{d.vol(x.fuelVolume_m3_per_h)}</td>
+                        <td className="num">{d.costPerEnergy(x.costPerUsefulMWh)}</td>
+                      </tr>
+                    ))}
+                </tbody>
+              </table>
+            </div>
+          </section>
+        )}
+
+        <section>
+          <h2>Methods and sources</h2>
+          <ol className="sources">
+            {result.audit.methods.map((m) => (
+              <li key={m.quantity}>
+                <b>{m.quantity}</b> — {m.method}. <i>Source:</i> {m.source}.
+              </li>
+            ))}
+          </ol>
+          <h3>Notes on the inputs</h3>
+          <ul>
+            {result.audit.notes.map((n) => (
+              <li key={n}>{n}</li>
+            ))}
+            {list.map(({ r }) => (
+              <li key={r.index}>
+                <b>{r.name}:</b> {r.audit.notes.join("; ")}
+              </li>
+            ))}
+            {sw && <li>Hydrogen sweep: {bundle.meta.hydrogen.price.label}{sw.notes.length ? `; ${sw.notes.join("; ")}` : ""}.</li>}
+          </ul>
+        </section>
+
+        <Cautions items={result.cautions.items} screening={result.cautions.screening} />
+      </article>
+    </>
+  );
+}

@@ -1,0 +1,5 @@
+import { LoadingState } from "../../_components/Loading";
+
+export default function Loading() {
+  return <LoadingState what="Computing the sensitivity of the ranking metric…" />;
+}

@@ -1,0 +1,5 @@
+import "./decision.css";
+
+export default function StudiesLayout({ children }: { children: React.ReactNode }) {
+  return children;
+}
