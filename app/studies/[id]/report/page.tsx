@@ -90,7 +90,7 @@ export default async function ReportPage({ params, searchParams }: Props) {
               {p.site ? `, ${p.site}` : ""} — {p.equipmentLabel}
             </div>
           </div>
-          <div style={{ textAlign: "right", fontSize: "0.88rem" }}>
+          <div className="tb-meta">
             <div>Prepared {today} with Stoke</div>
             <div>Ranked by {METRIC_SHORT[metric].toLowerCase()}</div>
             <div>Screening study — not a design</div>
