@@ -137,7 +137,7 @@ describe("decision pages in the browser", () => {
 
   it("switches display units without changing the stored study", async () => {
     await page.goto(`${base}/studies/${studyId}`);
-    const costCell = page.locator("[data-testid=rank-table] tbody tr[data-scenario='Biomethane'] td:nth-child(3)");
+    const costCell = page.locator("[data-testid=rank-table] tbody tr[data-scenario='Biomethane'] td[data-col=cost]");
     const perMWh = Number((await costCell.textContent())!.replace(/,/g, ""));
     await page.getByRole("group", { name: "Energy" }).getByRole("button", { name: "GJ" }).click();
     await page.locator("[data-testid=rank-table] th", { hasText: "EUR/GJ" }).first().waitFor();

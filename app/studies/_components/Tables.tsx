@@ -35,15 +35,14 @@ export function RankTable({ list, result, d, metric, links = true, part = "all" 
       <table className={`rank-table rank-${part}`} data-testid={part === "all" ? "rank-table" : `rank-table-${part}`}>
         <thead>
           <tr>
-            <th className="sticky">Scenario, ranked</th>
-            <th>Fit</th>
+            <th className="sticky">Scenario, ranked · fit</th>
             {eco && (
               <>
                 <th className={hi("cost")}>
                   Cost{mark("cost")} <span className="unit">{d.costPerEnergyUnit} useful</span>
                 </th>
                 <th className={hi("co2")}>
-                  CO2{mark("co2")} <span className="unit">g/MJ useful{up ? " incl. upstream" : ", fossil"}</span>
+                  CO2{mark("co2")} <span className="unit">g/MJ useful{up ? " + upstream" : ""}</span>
                 </th>
                 <th className="num">
                   Annual cost <span className="unit">{cur}/yr</span>
@@ -99,6 +98,9 @@ export function RankTable({ list, result, d, metric, links = true, part = "all" 
               <tr key={r.index} className={`${r.status === "infeasible" ? "infeasible" : ""}${r.isBaseline ? " baseline-row" : ""}`} data-scenario={r.name} data-status={r.status}>
                 <td className="sticky scen-name">
                   <span className="rank-no">{r.rank}.</span> {r.name} {r.isBaseline && <span className="badge demo">baseline</span>}
+                  <div className="scen-status">
+                    <Status status={r.status} />
+                  </div>
                   {part !== "technical" && (
                     <div className="scen-fuel">
                       {links ? <Link href={`/fuels/${meta.fuelId}`}>{meta.fuelName}</Link> : meta.fuelName}
@@ -113,13 +115,14 @@ export function RankTable({ list, result, d, metric, links = true, part = "all" 
                     </div>
                   )}
                 </td>
-                <td>
-                  <Status status={r.status} />
-                </td>
                 {eco && (
                   <>
-                    <td className={hi("cost")}>{c ? d.costPerEnergy(c.costPerUsefulMWh.total) : "–"}</td>
-                    <td className={hi("co2")}>{fmt(co2Ranked(r), 1)}</td>
+                    <td className={hi("cost")} data-col="cost">
+                      {c ? d.costPerEnergy(c.costPerUsefulMWh.total) : "–"}
+                    </td>
+                    <td className={hi("co2")} data-col="co2">
+                      {fmt(co2Ranked(r), 1)}
+                    </td>
                     <td className="num">{c ? fmt(c.annualTotalCost, 0) : "–"}</td>
                     <td className="num">{c ? fmt(c.annualCo2Fossil_t, 0) : "–"}</td>
                     <td className="num">{k ? signed(k.annualNetSaving, 0) : r.isBaseline ? "—" : "–"}</td>

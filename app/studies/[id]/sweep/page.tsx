@@ -53,7 +53,10 @@ export default async function SweepPage({ params, searchParams }: Props) {
     return (
       <>
         <h2 style={{ marginTop: 0 }}>Hydrogen-share sweep</h2>
-        <p className="note">No hydrogen sweep for this study: {sw?.reason ?? "the sweep is not available"}.</p>
+        <p className="note">
+          No hydrogen sweep for this study: {sw?.reason ?? "the sweep is not available"}. The sweep blends hydrogen into the baseline gas of a gas-fired
+          plant; compare liquid or solid candidates on the <Link href={`/studies/${id}`}>comparison</Link>.
+        </p>
       </>
     );
   }
