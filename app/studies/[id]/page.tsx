@@ -6,7 +6,7 @@ import { evaluateStoredStudy } from "@/lib/db/studies";
 import { fmt, money } from "../../_ui/format";
 import { CostStackChart, Co2Chart, CostCo2Scatter } from "../../_charts/ScenarioCharts";
 import { displayUnits } from "../_components/units-server";
-import { makeDisplay, signed } from "../_components/display";
+import { makeDisplay, savingText, signed } from "../_components/display";
 import { UnitSwitch } from "../_components/UnitSwitch";
 import { Cautions } from "../_components/Cautions";
 import { CheckMatrix, RankCards, RankTable, RankTableNotes } from "../_components/Tables";
@@ -120,9 +120,9 @@ export default async function ComparisonPage({ params, searchParams }: Props) {
             ) : (
               h.best.r.comparison && (
                 <p>
-                  vs {base.name}: {signed(h.best.r.comparison.annualNetSaving, 0)} {d.currency}/yr,{" "}
-                  {fmt(h.best.r.comparison.annualCo2Avoided_t, 0)} t CO2/yr avoided, payback{" "}
-                  {h.best.r.comparison.simplePaybackYears === null ? "never" : `${fmt(h.best.r.comparison.simplePaybackYears, 1)} yr`}.
+                  Against {base.name} it {savingText(h.best.r.comparison.annualNetSaving, d.currency)},{" "}
+                  avoids {fmt(h.best.r.comparison.annualCo2Avoided_t, 0)} t CO2/yr; payback{" "}
+                  {h.best.r.comparison.simplePaybackYears === null ? "never (no saving)" : `${fmt(h.best.r.comparison.simplePaybackYears, 1)} yr`}.
                 </p>
               )
             )}

@@ -3,7 +3,7 @@ import Link from "next/link";
 import type { StudyResult } from "@/lib/study/evaluate";
 import type { RankingMetric } from "@/lib/economics/sensitivity";
 import { fmt, money } from "../../_ui/format";
-import { signed, type Display } from "./display";
+import { savingText, signed, type Display } from "./display";
 import { Status } from "./Checks";
 import { co2Ranked, type Ranked } from "./results";
 
@@ -238,7 +238,7 @@ export function RankCards({ list, d, metric }: { list: Ranked[]; d: Display; met
               </span>
               {k && (
                 <span>
-                  saves {signed(k.annualNetSaving, 0)} {d.currency}/yr
+                  {savingText(k.annualNetSaving, d.currency)}
                 </span>
               )}
               {k && metric === "npv" && <span>NPV {signed(k.npv, 0)} ▲</span>}

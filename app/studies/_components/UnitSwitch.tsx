@@ -26,8 +26,8 @@ export function UnitSwitch({ units, groups = ["energy", "temperature", "volume"]
     document.cookie = `${UNITS_COOKIE}=${encodeURIComponent(formatDisplayUnits(next))}; path=/; max-age=31536000; samesite=lax`;
     start(() => router.refresh());
   };
-  const group = <K extends keyof DisplayUnits>(key: K, label: string, options: readonly DisplayUnits[K][], labels: Record<string, string>) => (
-    <span className="unit-group" role="group" aria-label={label}>
+  const group = <K extends keyof DisplayUnits>(key: K, label: string, options: readonly DisplayUnits[K][], labels: Record<string, string>, title?: string) => (
+    <span className="unit-group" role="group" aria-label={label} title={title}>
       <span className="unit-group-label">{label}</span>
       {options.map((o) => (
         <button
@@ -46,7 +46,14 @@ export function UnitSwitch({ units, groups = ["energy", "temperature", "volume"]
     <div className="unit-switch no-print" aria-busy={pending}>
       {groups.includes("energy") && group("energy", "Energy", DISPLAY_ENERGY_UNITS, ENERGY_UNIT_LABEL)}
       {groups.includes("temperature") && group("temperature", "Temperature", DISPLAY_TEMPERATURE_UNITS, TEMPERATURE_UNIT_LABEL)}
-      {groups.includes("volume") && group("volume", "Volume", DISPLAY_VOLUME_UNITS, VOLUME_UNIT_LABEL)}
+      {groups.includes("volume") &&
+        group(
+          "volume",
+          "Volume",
+          DISPLAY_VOLUME_UNITS,
+          VOLUME_UNIT_LABEL,
+          "Cubic feet at the same reference conditions as stated beside each figure (standard cubic feet where the reference is 60 °F, as a plant's metering reference can be set).",
+        )}
       {pending && <span className="muted small-note">updating…</span>}
     </div>
   );

@@ -96,3 +96,9 @@ export function makeDisplay(units: DisplayUnits, currency: string): Display {
   };
   return d;
 }
+
+/** A yearly saving in words: "saves 12,000 EUR/yr" or "costs 3,500 EUR/yr more". */
+export function savingText(v: number | null | undefined, currency: string): string {
+  if (v === null || v === undefined || !Number.isFinite(v)) return "–";
+  return v >= 0 ? `saves ${fmt(v, 0)} ${currency}/yr` : `costs ${fmt(-v, 0)} ${currency}/yr more`;
+}

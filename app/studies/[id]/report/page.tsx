@@ -6,7 +6,7 @@ import { evaluateStoredStudy } from "@/lib/db/studies";
 import { fmt, fmtUpTo, money, pct } from "../../../_ui/format";
 import { CostStackChart, Co2Chart, CostCo2Scatter } from "../../../_charts/ScenarioCharts";
 import { displayUnits } from "../../_components/units-server";
-import { makeDisplay, signed } from "../../_components/display";
+import { makeDisplay, savingText, signed } from "../../_components/display";
 import { Cautions } from "../../_components/Cautions";
 import { Status } from "../../_components/Checks";
 import { CheckMatrix, RankTable, RankTableNotes } from "../../_components/Tables";
@@ -109,8 +109,8 @@ export default async function ReportPage({ params, searchParams }: Props) {
                 <b>Best by {METRIC_SHORT[metric].toLowerCase()}:</b> {h.best.r.name} — {metricText(metric, h.best.r.metricValue, d)}
                 {h.best.r.comparison && (
                   <>
-                    ; {signed(h.best.r.comparison.annualNetSaving, 0)} {d.currency}/yr against {result.baseline.name},{" "}
-                    {fmt(h.best.r.comparison.annualCo2Avoided_t, 0)} t CO2/yr avoided
+                    ; against {result.baseline.name} it {savingText(h.best.r.comparison.annualNetSaving, d.currency)} and avoids{" "}
+                    {fmt(h.best.r.comparison.annualCo2Avoided_t, 0)} t CO2/yr
                   </>
                 )}
                 {h.bestIsBaseline && h.bestCandidate && <>; best feasible candidate {h.bestCandidate.r.name} ({metricText(metric, h.bestCandidate.r.metricValue, d)})</>}.
