@@ -124,8 +124,8 @@ export default async function FuelListPage({ searchParams }: { searchParams: Pro
                   .filter((f) => f.kind === g.kind)
                   .map((f) => {
                     const p = f.properties;
-                    const n = f.price?.normalised;
-                    const cur = f.price?.quote.currency ?? "";
+                    const n = f.price?.normalised ?? f.estimatedPrice?.normalised;
+                    const cur = f.price?.quote.currency ?? f.estimatedPrice?.currency ?? "";
                     return (
                       <tr key={f.id}>
                         <td className="fuel-name">
@@ -147,6 +147,11 @@ export default async function FuelListPage({ searchParams }: { searchParams: Pro
                               {f.price.quote.transportAdder + f.price.quote.handlingAdder > 0 && " + adders"} · {f.price.quote.validFrom}{" "}
                               {f.price.quote.isInvented && <span className="badge invented">invented</span>}
                               {f.price.error && <span className="field-error"> {f.price.error}</span>}
+                            </small>
+                          ) : f.estimatedPrice ? (
+                            <small>
+                              estimated from the components&apos; quotes (mass-weighted){" "}
+                              {f.estimatedPrice.isInvented && <span className="badge invented">invented</span>}
                             </small>
                           ) : (
                             <small className="na">no quote</small>

@@ -7,7 +7,7 @@ import type { BlendComponent, Fuel, PriceQuote, PrismaClient } from "./generated
 import { currentQuote, effectiveDefinition, isBlendRow, listPriceQuotes, quoteJson, quoteTerms, resolveRow, storedDefinition } from "./fuels";
 import { fuelPropertiesFromResolved, type FuelProperties } from "../combustion/properties";
 import { flameTemperature, FLAME_METHODS, FLAME_METHOD_LABELS, type FlameMethod } from "../combustion/flame";
-import { energyContentOf, normalisePrice, priceUnitLabel, type NormalisedPrice } from "../economics/prices";
+import { energyContentOf, mixPrices, normalisePrice, priceUnitLabel, type NormalisedPrice } from "../economics/prices";
 import type { ResolvedFuel } from "../fuels/resolve";
 import { heatingValues } from "../combustion/heating-values";
 import type { FuelDefinition } from "../schemas/fuel";
@@ -32,6 +32,11 @@ export interface FuelListItem {
   properties: FuelProperties | null;
   error: string | null;
   price: PriceView | null;
+  /**
+   * A blend with no quote of its own: the price estimated from its components' quotes in force
+   * (mass-weighted delivered price per kg), when every component has one in the same currency.
+   */
+  estimatedPrice: { normalised: NormalisedPrice; currency: string; isInvented: boolean } | null;
 }
 
 export interface FlameRow {
@@ -104,15 +109,41 @@ export async function fuelList(db: PrismaClient, opts: ViewOptions & { kind?: st
   const rows = await db.fuel.findMany({
     where: opts.kind ? { kind: opts.kind } : undefined,
     orderBy: [{ kind: "asc" }, { name: "asc" }],
-    include: { priceQuotes: { orderBy: [{ validFrom: "desc" }, { createdAt: "desc" }, { id: "desc" }] } },
+    include: {
+      priceQuotes: { orderBy: [{ validFrom: "desc" }, { createdAt: "desc" }, { id: "desc" }] },
+      components: { orderBy: { position: "asc" }, include: { component: { include: { priceQuotes: { orderBy: [{ validFrom: "desc" }, { createdAt: "desc" }, { id: "desc" }] } } } } },
+    },
   });
   const asOf = opts.asOf ?? new Date();
   return rows.map((row) => {
     const { resolved, properties, error } = propertiesOf(row, opts);
     const cur = currentQuote(row.priceQuotes, asOf);
     const price = cur ? priceViews([cur], resolved, asOf)[0] : null;
-    return { id: row.id, name: row.name, kind: row.kind, isDemo: row.isDemo, isBlend: isBlendRow(row), properties, error, price };
+    const estimatedPrice = !price && resolved ? estimateBlendPrice(resolved, row.components, asOf) : null;
+    return { id: row.id, name: row.name, kind: row.kind, isDemo: row.isDemo, isBlend: isBlendRow(row), properties, error, price, estimatedPrice };
   });
+}
+
+function estimateBlendPrice(
+  blend: ResolvedFuel,
+  components: { component: Fuel & { priceQuotes: PriceQuote[] } }[],
+  asOf: Date,
+): FuelListItem["estimatedPrice"] {
+  const w = blend.componentMassFractions;
+  if (!w || components.length === 0 || w.length !== components.length) return null;
+  try {
+    const parts = components.map((c, i) => {
+      const q = currentQuote(c.component.priceQuotes, asOf);
+      if (!q) throw new Error("a component has no quote in force");
+      const r = resolveRow(c.component);
+      return { massFraction: w[i], price: normalisePrice(quoteTerms(q), energyContentOf(r, heatingValues(r, 25))), currency: q.currency, isInvented: q.isInvented };
+    });
+    if (new Set(parts.map((p) => p.currency)).size !== 1) return null;
+    const normalised = mixPrices(parts, energyContentOf(blend, heatingValues(blend, 25)));
+    return { normalised, currency: parts[0].currency, isInvented: parts.some((p) => p.isInvented) };
+  } catch {
+    return null;
+  }
 }
 
 /** Flame-temperature conditions shown on a fuel sheet: in dry air at 25 °C, 101.325 kPa. */

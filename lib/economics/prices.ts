@@ -190,6 +190,20 @@ export function normalisePrice(terms: PriceQuoteTerms, fuel: FuelEnergyContent):
   };
 }
 
+/**
+ * Delivered price of a blend from its components' normalised prices: per kg, the mass-weighted
+ * mix of each part (commodity, transport, handling), restated for the blend's own energy content.
+ */
+export function mixPrices(parts: readonly { massFraction: number; price: NormalisedPrice }[], blend: FuelEnergyContent): NormalisedPrice {
+  let commodity = 0, transport = 0, handling = 0;
+  for (const { massFraction: w, price } of parts) {
+    commodity += w * price.parts.commodity.perKg;
+    transport += w * price.parts.transport.perKg;
+    handling += w * price.parts.handling.perKg;
+  }
+  return normalisePrice({ amount: commodity, unit: "kg", transportAdder: transport, handlingAdder: handling }, blend);
+}
+
 /** Label for a quote's unit, e.g. "MWh (gross)", "m³ (15 °C)", "US gal". */
 export function priceUnitLabel(terms: Pick<PriceQuoteTerms, "unit" | "energyBasis" | "meteringReferenceC">): string {
   let s: string = UNIT_LABELS[terms.unit] ?? terms.unit;

@@ -2,7 +2,7 @@
 import { METERING_REFERENCE_C } from "../schemas/plant";
 import type { StudyPrice } from "../schemas/study";
 import type { BlendFuelDefinition } from "../schemas/fuel";
-import { normalisePrice, PriceNormalisationError, type NormalisedPrice, type PriceQuoteTerms } from "../economics/prices";
+import { mixPrices, normalisePrice, PriceNormalisationError, type NormalisedPrice, type PriceQuoteTerms } from "../economics/prices";
 import type { FuelContext } from "../plant/fuel-context";
 import { StudyInputError } from "./errors";
 
@@ -45,12 +45,8 @@ export function blendPriceFromComponents(
 ): NormalisedPrice {
   const w = blend.fuel.componentMassFractions;
   if (!w || w.length !== parts.length) throw new StudyInputError(`${field}.componentPrices`, "component prices need a blend with one price per component");
-  let commodity = 0, transport = 0, handling = 0;
-  parts.forEach((c, i) => {
-    const n = normaliseStudyPrice(prices[i], c, `${field}.componentPrices.${i}`);
-    commodity += w[i] * n.parts.commodity.perKg;
-    transport += w[i] * n.parts.transport.perKg;
-    handling += w[i] * n.parts.handling.perKg;
-  });
-  return normalisePrice({ amount: commodity, unit: "kg", transportAdder: transport, handlingAdder: handling }, blend.energyContent);
+  return mixPrices(
+    parts.map((c, i) => ({ massFraction: w[i], price: normaliseStudyPrice(prices[i], c, `${field}.componentPrices.${i}`) })),
+    blend.energyContent,
+  );
 }

@@ -45,6 +45,21 @@ describe("demo seed", () => {
     expect(list.find((f) => f.name === "Biomethane")!.properties!.co2.fossil_kg_per_GJ_lhv).toBe(0);
   });
 
+  it("a blend without a quote of its own is priced from its components' quotes, mass-weighted per kg", async () => {
+    const list = await fuelList(t.client);
+    const blend = list.find((f) => f.name === "Natural gas + 10 % H2")!;
+    expect(blend.price).toBeNull();
+    const est = blend.estimatedPrice!;
+    expect(est).not.toBeNull();
+    // By hand: 10 vol % H2 in the pipeline gas → mass fractions from the molar masses.
+    const ng = list.find((f) => f.name === "Pipeline natural gas")!;
+    const h2 = list.find((f) => f.name === "Hydrogen")!;
+    const mNg = 0.9 * ng.properties!.molarMass_g_per_mol!, mH2 = 0.1 * h2.properties!.molarMass_g_per_mol!;
+    const perKg = (mNg * ng.price!.normalised!.perKg + mH2 * h2.price!.normalised!.perKg) / (mNg + mH2);
+    expect(est.normalised.perKg).toBeCloseTo(perKg, 10);
+    expect(est.normalised.perMWh_net).toBeCloseTo((perKg * 3600) / blend.properties!.lhv.MJ_per_kg, 8);
+  });
+
   it("plants and studies refer to stored fuels; the sheet of a seeded fuel shows flame temperatures", async () => {
     const plants = await t.client.plant.findMany({ include: { baselineFuel: true, studies: { include: { scenarios: true } } } });
     expect(plants.every((p) => p.baselineFuel !== null)).toBe(true);
