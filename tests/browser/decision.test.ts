@@ -108,7 +108,7 @@ describe("decision pages in the browser", () => {
     expect(statuses).toContain("fail");
     const failCell = cells.locator("xpath=self::*[@data-status='fail']");
     expect(await failCell.textContent()).toMatch(/30\.0 vol %.*limit 20\.0 vol %/);
-    expect(await page.getByTestId("verdict-infeasible").textContent()).toMatch(/Natural gas \+ 30 % H2.*hydrogen share/i);
+    expect(await page.getByTestId("verdict-infeasible").textContent()).toMatch(/Natural gas \+ 30 % H2.*Hydrogen share/);
   });
 
   it("opens the hydrogen sweep and sees the burner limit and the first-failure markers", async () => {

@@ -155,7 +155,7 @@ export default async function ComparisonPage({ params, searchParams }: Props) {
               </div>
               {h.infeasible.map((x) => (
                 <p key={x.r.index}>
-                  <b>{x.r.name}</b>: fails {failingChecks(x.r).join("; ").toLowerCase()}
+                  <b>{x.r.name}</b>: fails {failingChecks(x.r).join("; ")}
                 </p>
               ))}
             </>

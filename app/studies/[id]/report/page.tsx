@@ -124,13 +124,13 @@ export default async function ReportPage({ params, searchParams }: Props) {
             )}
             <li>
               <b>Infeasible in this plant:</b>{" "}
-              {h.infeasible.length === 0 ? "none." : h.infeasible.map((x) => `${x.r.name} (fails ${failingChecks(x.r).join("; ").toLowerCase()})`).join("; ") + "."}
+              {h.infeasible.length === 0 ? "none." : h.infeasible.map((x) => `${x.r.name} (fails ${failingChecks(x.r).join("; ")})`).join("; ") + "."}
             </li>
             {sw && (
               <li>
                 <b>Hydrogen blending:</b>{" "}
                 {swFails.length
-                  ? `the first limit to fail is ${swFails[0].label.toLowerCase()} at ${fmt(swFails[0].firstFailPercent, 0)} vol % H2.`
+                  ? `the first limit to fail is “${swFails[0].label}” at ${fmt(swFails[0].firstFailPercent, 0)} vol % H2.`
                   : "no entered limit fails between 0 and 100 vol % H2."}
               </li>
             )}

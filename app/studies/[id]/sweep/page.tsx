@@ -101,8 +101,8 @@ export default async function SweepPage({ params, searchParams }: Props) {
           <p>
             {firstFail ? (
               <>
-                First failure at {shareText(firstFail.firstFailPercent)}: <b>{firstFail.label.toLowerCase()}</b>.
-                {fails.length > 1 && <> Then {fails.slice(1, 3).map((c) => `${c.label.toLowerCase()} at ${shareText(c.firstFailPercent)}`).join("; ")}.</>}
+                First failure at {shareText(firstFail.firstFailPercent)}: <b>{firstFail.label}</b>.
+                {fails.length > 1 && <> Then {fails.slice(1, 3).map((c) => `${c.label} at ${shareText(c.firstFailPercent)}`).join("; ")}.</>}
               </>
             ) : (
               "No limit entered for this plant fails anywhere between 0 and 100 vol %."
@@ -129,7 +129,7 @@ export default async function SweepPage({ params, searchParams }: Props) {
           <h3>First warning</h3>
           <div className="big">{warns.length ? shareText(warns[0].firstWarnPercent) : "none"}</div>
           <p>{warns.length ? warns[0].label : "No limit comes within the warning margin."}</p>
-          {atZero.length > 0 && <p className="muted">Already at 0 % H2: {atZero.map((c) => `${c.label.toLowerCase()} (${c.statusAtZero})`).join("; ")}.</p>}
+          {atZero.length > 0 && <p className="muted">Already at 0 % H2: {atZero.map((c) => `${c.label} (${c.statusAtZero})`).join("; ")}.</p>}
         </div>
       </section>
 
