@@ -30,7 +30,7 @@ export default async function PlantsPage() {
           </Link>
         </div>
       </div>
-      <UnitSwitch units={units} />
+      <UnitSwitch units={units} groups={["temperature"]} />
       {plants.length === 0 ? (
         <p className="note">
           No plants yet. <Link href="/plants/new">Describe your first plant</Link>.

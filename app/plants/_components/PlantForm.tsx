@@ -191,12 +191,12 @@ export function PlantForm({ options, initial }: { options: PlantFormOptions; ini
 
   const refOpts = options.meteringReferences;
   const fanBasis = [
-    { value: "actual", label: "actual m³/h (at the gas temperature)" },
-    { value: "normal", label: "normal m³/h (0 °C, 101.325 kPa)" },
+    { value: "actual", label: "actual m³/h" },
+    { value: "normal", label: "normal m³/h (0 °C)" },
   ];
 
   return (
-    <form className="stack" onSubmit={submit} noValidate aria-label={initial ? "Edit plant" : "New plant"}>
+    <form className="stack decision-form" onSubmit={submit} noValidate aria-label={initial ? "Edit plant" : "New plant"}>
       <ErrorSummary message={message} errors={errors} placed={placed} />
 
       <fieldset>

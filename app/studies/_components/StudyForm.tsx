@@ -348,7 +348,7 @@ export function StudyForm({
   }
 
   return (
-    <form className="stack" onSubmit={submit} noValidate aria-label={initial?.id ? "Edit study" : "New study"} style={{ maxWidth: 1000 }}>
+    <form className="stack decision-form" onSubmit={submit} noValidate aria-label={initial?.id ? "Edit study" : "New study"} style={{ maxWidth: 1000 }}>
       <ErrorSummary message={message} errors={errors} placed={placed} />
 
       <fieldset>
