@@ -123,14 +123,14 @@ export async function benchPages(): Promise<BenchResult[]> {
     child.stdout!.on("data", (d) => (output += d));
     child.stderr!.on("data", (d) => (output += d));
     const page = `http://127.0.0.1:${port}/studies/${studyId}`;
-    await waitFor(page, child, () => output);
+    await waitFor(`http://127.0.0.1:${port}/api/fuels`, child, () => output);
 
     const get = async () => {
       const t0 = performance.now();
       const res = await fetch(page);
       const html = await res.text();
       const ms = performance.now() - t0;
-      if (!res.ok) throw new Error(`comparison page answered ${res.status}`);
+      if (!res.ok) throw new Error(`comparison page answered ${res.status}${res.status === 404 ? " (is the build older than the study pages? run `npm run build`)" : ""}`);
       // The streamed page must hold the ranked table with all 21 scenarios, not just the loading state.
       const rows = html.match(/data-scenario="/g)?.length ?? 0;
       if (rows < 21) throw new Error(`comparison page shows ${rows} scenario rows, expected at least 21`);
