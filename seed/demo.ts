@@ -288,7 +288,8 @@ export const DEMO_STUDIES: DemoStudy[] = [
       { name: "Natural gas (today)", fuel: NG, isBaseline: true },
       { name: "10 % hydrogen", fuel: "Natural gas + 10 % H2", capex: 60000, fixedOpexChange: 4000 },
       { name: "20 % hydrogen", fuel: "Natural gas + 20 % H2", capex: 180000, fixedOpexChange: 6000 },
-      { name: "30 % hydrogen, new burner", fuel: "Natural gas + 30 % H2", capex: 420000, fixedOpexChange: 8000 },
+      // The new burner is rated for 30 % H2 by its (invented) maker; the existing gas train's Wobbe band still applies.
+      { name: "30 % hydrogen, new burner", fuel: "Natural gas + 30 % H2", capex: 420000, fixedOpexChange: 8000, overrides: { maxH2SharePercent: 30 } },
       { name: "Biomethane", fuel: "Biomethane" },
     ],
   },
