@@ -5,7 +5,7 @@
  * transaction; the first error names the record and the field.
  */
 import type { PrismaClient } from "./generated/client";
-import { addPriceQuoteIn, createFuelIn, fail, inTransaction, isBlendRow, storedDefinition, type Result, type Tx } from "./fuels";
+import { addPriceQuoteIn, createFuelIn, fail, inTransaction, isBlendRow, quoteJson, storedDefinition, type Result, type Tx } from "./fuels";
 import { parseCsv, toCsv, CsvSyntaxError } from "./csv";
 
 export const LIBRARY_FORMAT = "stoke-fuel-library";
@@ -85,18 +85,11 @@ export async function exportLibrary(db: PrismaClient | Tx): Promise<LibraryDocum
         notes: r.notes,
         source: r.source,
         isDemo: r.isDemo,
-        prices: r.priceQuotes.map((q) => ({
-          amount: q.amount,
-          currency: q.currency,
-          unit: q.unit,
-          energyBasis: q.energyBasis,
-          meteringReference: q.meteringReference,
-          transportAdder: q.transportAdder,
-          handlingAdder: q.handlingAdder,
-          validFrom: q.validFrom.toISOString().slice(0, 10),
-          sourceNote: q.sourceNote,
-          isInvented: q.isInvented,
-        })),
+        prices: r.priceQuotes.map((q) => {
+          // The quote as the API shows it, without the database's own ids and timestamps.
+          const { id: _id, fuelId: _fuelId, createdAt: _createdAt, ...portable } = quoteJson(q);
+          return portable;
+        }),
       };
     }),
   };

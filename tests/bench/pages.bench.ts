@@ -8,9 +8,7 @@
  *
  * Needs a production build (`npm run build`); it does not build one.
  */
-import { spawn, type ChildProcess } from "node:child_process";
 import fs from "node:fs";
-import net from "node:net";
 import os from "node:os";
 import path from "node:path";
 import { migrateSqlite } from "../../lib/db/migrate";
@@ -18,21 +16,10 @@ import { createClient } from "../../lib/db/client";
 import { createStudy } from "../../lib/db/studies";
 import { seedIfEmpty } from "../../seed/index";
 import type { BenchResult } from "./bench-types";
+import { projectRoot, startNextServer, type NextServer } from "../support/next-server";
 
-const root = path.resolve(import.meta.dirname, "../..");
+const root = projectRoot;
 
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const s = net.createServer();
-    s.once("error", reject);
-    s.listen(0, "127.0.0.1", () => {
-      const port = (s.address() as net.AddressInfo).port;
-      s.close(() => resolve(port));
-    });
-  });
-}
-
-/** The demo database plus a study of Boiler 1 with 20 candidates (every other library fuel, hydrogen blends at several capex levels). */
 async function seedTwentyScenarioStudy(url: string): Promise<number> {
   migrateSqlite({ databaseUrl: url });
   const db = createClient(url);
@@ -75,55 +62,17 @@ async function seedTwentyScenarioStudy(url: string): Promise<number> {
   }
 }
 
-async function waitFor(url: string, child: ChildProcess, log: () => string, timeoutMs = 60_000): Promise<void> {
-  const t0 = Date.now();
-  while (Date.now() - t0 < timeoutMs) {
-    if (child.exitCode !== null) throw new Error(`next start exited with ${child.exitCode}:\n${log()}`);
-    try {
-      if ((await fetch(url)).ok) return;
-    } catch {
-      // not listening yet
-    }
-    await new Promise((r) => setTimeout(r, 200));
-  }
-  throw new Error(`next start did not answer ${url} within ${timeoutMs} ms:\n${log()}`);
-}
-
-async function stop(child: ChildProcess): Promise<void> {
-  if (child.exitCode !== null) return;
-  child.kill("SIGTERM");
-  await new Promise<void>((resolve) => {
-    const timer = setTimeout(() => {
-      if (child.exitCode === null) child.kill("SIGKILL");
-      resolve();
-    }, 5000);
-    child.once("exit", () => {
-      clearTimeout(timer);
-      resolve();
-    });
-  });
-}
-
 export async function benchPages(): Promise<BenchResult[]> {
   if (!fs.existsSync(path.join(root, ".next", "BUILD_ID"))) {
     throw new Error("compare_page_ms needs a production build: run `npm run build` first.");
   }
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), "stoke-bench-"));
   const url = `file:${path.join(dir, "bench.db")}`;
-  let child: ChildProcess | null = null;
+  let server: NextServer | null = null;
   try {
     const studyId = await seedTwentyScenarioStudy(url);
-    const port = await freePort();
-    let output = "";
-    child = spawn(path.join(root, "node_modules", ".bin", "next"), ["start", "-H", "127.0.0.1", "-p", String(port)], {
-      cwd: root,
-      env: { ...process.env, DATABASE_URL: url, NEXT_TELEMETRY_DISABLED: "1", STOKE_SEED: "off", NODE_ENV: "production" },
-      stdio: ["ignore", "pipe", "pipe"],
-    });
-    child.stdout!.on("data", (d) => (output += d));
-    child.stderr!.on("data", (d) => (output += d));
-    const page = `http://127.0.0.1:${port}/studies/${studyId}`;
-    await waitFor(`http://127.0.0.1:${port}/api/fuels`, child, () => output);
+    server = await startNextServer({ DATABASE_URL: url, STOKE_SEED: "off", NODE_ENV: "production" });
+    const page = `${server.baseURL}/studies/${studyId}`;
 
     const get = async () => {
       const t0 = performance.now();
@@ -141,7 +90,7 @@ export async function benchPages(): Promise<BenchResult[]> {
     for (let i = 0; i < 40; i++) samples.push(await get());
     return [{ name: "compare_page_ms", unit: "ms", samples }];
   } finally {
-    if (child) await stop(child);
+    if (server) await server.stop();
     fs.rmSync(dir, { recursive: true, force: true });
   }
 }

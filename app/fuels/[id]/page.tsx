@@ -8,7 +8,7 @@ import { LIQUID_COMPOUNDS } from "@/lib/fuels/compounds";
 import { SPECIES } from "@/lib/thermo/species-data";
 import { kelvinToCelsius } from "@/lib/units/constants";
 import { fmt, fmtUpTo, pct } from "../../_ui/format";
-import { DeleteFuelButton } from "../_components/DeleteFuelButton";
+import { DeleteButton } from "@/app/_ui/DeleteButton";
 import { PriceHistory } from "../_components/PriceHistory";
 
 export const dynamic = "force-dynamic";
@@ -193,7 +193,7 @@ export default async function FuelSheetPage({ params, searchParams }: Props) {
           <Link className="button secondary" href={`/fuels/${fuel.id}/edit`}>
             Edit fuel
           </Link>
-          <DeleteFuelButton id={fuel.id} name={fuel.name} />
+          <DeleteButton url={`/api/fuels/${fuel.id}`} after="/fuels" label="Delete fuel" confirmText={`Delete “${fuel.name}” and its price history? This cannot be undone.`} />
         </div>
       </div>
 

@@ -12,7 +12,7 @@ import { makeDisplay } from "../../studies/_components/display";
 import { UnitSwitch } from "../../studies/_components/UnitSwitch";
 import { CheckTable } from "../../studies/_components/Checks";
 import { Cautions } from "../../studies/_components/Cautions";
-import { DeleteButton } from "../_components/DeleteButton";
+import { DeleteButton } from "@/app/_ui/DeleteButton";
 import { METERING_REFERENCE_LABELS } from "../_components/options";
 
 export const dynamic = "force-dynamic";

@@ -3,7 +3,7 @@ import { notFound } from "next/navigation";
 import { db } from "@/lib/db/client";
 import { StudyTabs } from "../_components/StudyTabs";
 import { DuplicateButton } from "../_components/DuplicateButton";
-import { DeleteButton } from "../../plants/_components/DeleteButton";
+import { DeleteButton } from "@/app/_ui/DeleteButton";
 
 export const dynamic = "force-dynamic";
 
