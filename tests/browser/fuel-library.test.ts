@@ -52,6 +52,19 @@ describe("fuel library in the browser", () => {
     expect(await page.locator("#prices ~ .table-wrap .badge.invented").count()).toBeGreaterThan(0);
   });
 
+  it("opens the fuel's φ sweep from its sheet and sees the equilibrium peak on the rich side", async () => {
+    await page.goto(`${base}/fuels`);
+    await page.locator("table.library").getByRole("link", { name: "Pipeline natural gas" }).click();
+    await page.getByRole("link", { name: /Flame temperature against φ/ }).click();
+    await page.waitForURL(/\/phi$/);
+    const peaks = await page.getByTestId("fuel-phi-peaks").textContent();
+    // Equilibrium peak of natural gas in air lies slightly rich, φ ≈ 1.03–1.05 (Turns, ch. 2; common practice).
+    const phi = Number(/Equilibrium peak: .*? at φ = ([0-9.]+)/.exec(peaks ?? "")?.[1]);
+    expect(phi).toBeGreaterThan(1.0);
+    expect(phi).toBeLessThan(1.1);
+    expect(await page.locator("figure.chart svg").count()).toBeGreaterThan(0);
+  });
+
   it("creates a gas fuel and shows its computed properties", async () => {
     await page.goto(`${base}/fuels/new`);
     await page.getByLabel("Name").fill("Browser test gas 85/15");

@@ -436,7 +436,10 @@ export default async function FuelSheetPage({ params, searchParams }: Props) {
           </div>
 
           <h2>Adiabatic flame temperature in air</h2>
-          <p className="basis">Fuel and dry air at 25 °C, 101.325 kPa. Three methods, each labelled; they differ by design (dissociation lowers the equilibrium value).</p>
+          <p className="basis">
+            Fuel and dry air at 25 °C, 101.325 kPa. Three methods, each labelled; they differ by design (dissociation lowers the equilibrium value).{" "}
+            <Link href={`/fuels/${fuel.id}/phi`}>Flame temperature against φ (lean to rich) →</Link>
+          </p>
           <div className="table-wrap">
             <table>
               <thead>
