@@ -7,7 +7,7 @@
 import type { BlendComponent, Fuel, Plant as PlantRow, PriceQuote, PrismaClient, Scenario as ScenarioRow, Study as StudyRow } from "./generated/client";
 import { fieldErrors } from "../schemas/fuel";
 import type { FuelDefinition } from "../schemas/fuel";
-import { studySchema, type Study, type StudyInput, type StudyPriceInput } from "../schemas/study";
+import { sensitivitySchema, studySchema, type Study, type StudyInput, type StudyPriceInput } from "../schemas/study";
 import { studyRecordSchema, type StudyRecord, type StudyRecordInput, type ScenarioRecord } from "../schemas/study-record";
 import { operatingOverridesSchema } from "../schemas/plant";
 import { RANKING_METRICS, type RankingMetric, type SensitivityRanges } from "../economics/sensitivity";
@@ -170,6 +170,18 @@ interface ScenarioSource {
   overrides: unknown;
 }
 
+/** Tornado ranges when a study stores none (the study schema's defaults). */
+const SENSITIVITY_DEFAULTS: SensitivityRanges = sensitivitySchema.parse({});
+
+/** The stored sensitivity ranges (JSON text); unreadable or absent values fall back to the defaults. */
+function storedSensitivity(text: string): SensitivityRanges {
+  try {
+    return sensitivitySchema.safeParse(JSON.parse(text)).data ?? SENSITIVITY_DEFAULTS;
+  } catch {
+    return SENSITIVITY_DEFAULTS;
+  }
+}
+
 function parseOverrides(text: string): unknown {
   try {
     return JSON.parse(text);
@@ -179,7 +191,9 @@ function parseOverrides(text: string): unknown {
 }
 
 function build(
-  fields: Pick<StudyRow, "name" | "currency" | "carbonPrice_per_t" | "discountRatePercent" | "horizonYears" | "priceEscalationPercent" | "rankingMetric" | "notes">,
+  fields: Pick<StudyRow, "name" | "currency" | "carbonPrice_per_t" | "discountRatePercent" | "horizonYears" | "priceEscalationPercent" | "rankingMetric" | "notes" | "includeUpstream"> & {
+    sensitivity: Partial<SensitivityRanges>;
+  },
   plant: PlantRow,
   baseline: ScenarioSource,
   scenarios: ScenarioSource[],
@@ -225,8 +239,8 @@ function build(
     horizonYears: fields.horizonYears,
     priceEscalationPercent: fields.priceEscalationPercent,
     rankingMetric: metric,
-    includeUpstream: settings.includeUpstream ?? false,
-    sensitivity: { fuelPricePercent: 20, carbonPricePercent: 50, efficiencyPoints: 2, capexPercent: 30, ...settings.sensitivity },
+    includeUpstream: settings.includeUpstream ?? fields.includeUpstream,
+    sensitivity: { ...SENSITIVITY_DEFAULTS, ...fields.sensitivity, ...settings.sensitivity },
     hydrogenSweep: {
       enabled: true,
       stepPercent: settings.sweepStepPercent ?? 1,
@@ -269,7 +283,7 @@ export async function studyBundle(db: PrismaClient, id: number, settings: ViewSe
     overrides: parseOverrides(s.overrides),
   });
   const cands = row.scenarios.filter((s) => !s.isBaseline);
-  const built = build(row, row.plant, src(base), cands.map(src), await libraryHydrogen(db), settings);
+  const built = build({ ...row, sensitivity: storedSensitivity(row.sensitivityRanges) }, row.plant, src(base), cands.map(src), await libraryHydrogen(db), settings);
   const parsed = studySchema.safeParse(built.input);
   if (!parsed.success) {
     const errs = fieldErrors(parsed.error);
@@ -384,6 +398,8 @@ export async function studyRecord(db: PrismaClient, id: number): Promise<(StudyR
     horizonYears: row.horizonYears,
     priceEscalationPercent: row.priceEscalationPercent,
     rankingMetric: row.rankingMetric as RankingMetric,
+    includeUpstream: row.includeUpstream,
+    sensitivity: storedSensitivity(row.sensitivityRanges),
     notes: row.notes,
     baseline: base ? sc(base) : { name: "Baseline", fuelId: 0, priceQuoteId: null, capex: 0, fixedOpexChange: 0, overrides: {} },
     scenarios: row.scenarios.filter((s) => !s.isBaseline).map(sc),
@@ -471,6 +487,8 @@ function studyColumns(r: StudyRecord) {
     horizonYears: r.horizonYears,
     priceEscalationPercent: r.priceEscalationPercent,
     rankingMetric: r.rankingMetric,
+    includeUpstream: r.includeUpstream,
+    sensitivityRanges: JSON.stringify(r.sensitivity),
     notes: r.notes,
   };
 }
@@ -558,6 +576,8 @@ export async function duplicateStudy(db: PrismaClient, id: number, name?: string
         horizonYears: src.horizonYears,
         priceEscalationPercent: src.priceEscalationPercent,
         rankingMetric: src.rankingMetric,
+        includeUpstream: src.includeUpstream,
+        sensitivityRanges: src.sensitivityRanges,
         notes: src.notes,
         isDemo: false,
       },

@@ -40,6 +40,8 @@ export const studyRecordSchema = z
     horizonYears: s.horizonYears,
     priceEscalationPercent: s.priceEscalationPercent,
     rankingMetric: s.rankingMetric,
+    includeUpstream: s.includeUpstream,
+    sensitivity: s.sensitivity,
     notes: s.notes,
     baseline: scenarioRecordSchema,
     scenarios: z.array(scenarioRecordSchema).max(200, "at most 200 scenarios"),

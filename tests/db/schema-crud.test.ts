@@ -111,8 +111,9 @@ describe("schema matches the migrations", () => {
     const readPlant = await db.plant.findUniqueOrThrow({ where: { id: plant.id } });
     expect(readPlant).toMatchObject({ wobbeMin_MJ_per_m3: 47.2, condensing: true, returnWaterC: 40, warnAtFractionOfLimit: 0.85, flueGasCapacityBasis: "normal" });
     const study = await db.study.create({
-      data: { plantId: plant.id, name: "S1", carbonPrice_per_t: 80, currency: "EUR", discountRatePercent: 8, horizonYears: 15, priceEscalationPercent: 2, rankingMetric: "npv", notes: "" },
+      data: { plantId: plant.id, name: "S1", carbonPrice_per_t: 80, currency: "EUR", discountRatePercent: 8, horizonYears: 15, priceEscalationPercent: 2, rankingMetric: "npv", includeUpstream: true, sensitivityRanges: '{"fuelPricePercent":25}', notes: "" },
     });
+    expect(await db.study.findUniqueOrThrow({ where: { id: study.id } })).toMatchObject({ includeUpstream: true, sensitivityRanges: '{"fuelPricePercent":25}' });
     const sc = await db.scenario.create({
       data: { studyId: study.id, name: "base", fuelId: fuel.id, priceQuoteId: quote.id, capex: 1e5, fixedOpexChange: -500, overrides: '{"stackTemperatureC":120}', isBaseline: true, position: 0 },
     });

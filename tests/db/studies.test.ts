@@ -127,15 +127,27 @@ describe("studies", () => {
     const { id: _id, isDemo: _d, ...body } = rec;
     body.scenarios = body.scenarios.slice(0, 2);
     body.carbonPrice_per_t = 120;
+    body.includeUpstream = true;
+    body.sensitivity = { fuelPricePercent: 35, carbonPricePercent: 50, efficiencyPoints: 1, capexPercent: 30 };
     const up = await updateStudy(t.client, id, body);
     expect(up.ok, JSON.stringify(up)).toBe(true);
-    expect((await studyRecord(t.client, id))!.scenarios).toHaveLength(2);
+    const after = (await studyRecord(t.client, id))!;
+    expect(after.scenarios).toHaveLength(2);
+    expect(after.includeUpstream).toBe(true);
+    expect(after.sensitivity).toMatchObject({ fuelPricePercent: 35, efficiencyPoints: 1 });
+    // The stored settings are what an evaluation uses unless a view overrides them.
+    const stored = await evaluateStoredStudy(t.client, id);
+    expect(stored.ok && stored.result.study.includeUpstream).toBe(true);
+    expect(stored.ok && stored.result.study.sensitivity.fuelPricePercent).toBe(35);
+    const viewed = await evaluateStoredStudy(t.client, id, { includeUpstream: false });
+    expect(viewed.ok && viewed.result.study.includeUpstream).toBe(false);
 
     const dup = await duplicateStudy(t.client, id);
     expect(dup.ok).toBe(true);
     if (!dup.ok) return;
     expect(dup.value.name).toBe("Three options (copy)");
     expect((await studyRecord(t.client, dup.value.id))!.scenarios).toHaveLength(2);
+    expect((await studyRecord(t.client, dup.value.id))!.includeUpstream).toBe(true);
     const dup2 = await duplicateStudy(t.client, id);
     expect(dup2.ok && dup2.value.name).toBe("Three options (copy 2)");
 

@@ -57,10 +57,10 @@ export default async function ComparisonPage({ params, searchParams }: Props) {
         <span>
           <span className="choice-label">Upstream CO2e</span>
           <span className="segmented" role="group" aria-label="Upstream CO2e">
-            <Link href={`/studies/${id}${viewQuery({ ...view, includeUpstream: false })}`} aria-current={!view.includeUpstream ? "true" : undefined} scroll={false}>
+            <Link href={`/studies/${id}${viewQuery({ ...view, includeUpstream: false })}`} aria-current={!result.study.includeUpstream ? "true" : undefined} scroll={false}>
               not counted
             </Link>
-            <Link href={`/studies/${id}${viewQuery({ ...view, includeUpstream: true })}`} aria-current={view.includeUpstream ? "true" : undefined} scroll={false}>
+            <Link href={`/studies/${id}${viewQuery({ ...view, includeUpstream: true })}`} aria-current={result.study.includeUpstream ? "true" : undefined} scroll={false}>
               counted and priced
             </Link>
           </span>
@@ -213,16 +213,16 @@ export default async function ComparisonPage({ params, searchParams }: Props) {
       <div className="charts-grid">
         <section className="panel">
           <h3 className="chart-title">
-            Cost per useful {d.energyUnit} <span className="unit">({d.costPerEnergyUnit}, fuel + carbon{view.includeUpstream ? " + upstream" : ""})</span>
+            Cost per useful {d.energyUnit} <span className="unit">({d.costPerEnergyUnit}, fuel + carbon{result.study.includeUpstream ? " + upstream" : ""})</span>
           </h3>
-          <CostStackChart rows={costRows(list, d)} unit={`${d.costPerEnergyUnit} useful`} includeUpstream={view.includeUpstream} />
+          <CostStackChart rows={costRows(list, d)} unit={`${d.costPerEnergyUnit} useful`} includeUpstream={result.study.includeUpstream} />
           <p className="basis">Delivered fuel price ÷ efficiency (net basis); carbon on fossil CO2. Faded bars and ✕: infeasible in this plant.</p>
         </section>
         <section className="panel">
           <h3 className="chart-title">
             CO2 per useful MJ <span className="unit">(g/MJ)</span>
           </h3>
-          <Co2Chart rows={co2Rows(list)} includeUpstream={view.includeUpstream} />
+          <Co2Chart rows={co2Rows(list)} includeUpstream={result.study.includeUpstream} />
           <p className="basis">Per MJ of useful heat: fuel CO2 per MJ (net basis) ÷ efficiency. Biogenic CO2 is shown, not counted or priced.</p>
         </section>
       </div>

@@ -21,6 +21,8 @@ export interface StudyFormInitial {
   horizonYears: number;
   priceEscalationPercent: number;
   rankingMetric: string;
+  includeUpstream?: boolean;
+  sensitivity?: Partial<Record<SensitivityKey, number>>;
   notes: string;
   baseline: ScenarioInitial;
   scenarios: ScenarioInitial[];
@@ -34,6 +36,16 @@ interface ScenarioInitial {
   fixedOpexChange?: number;
   overrides?: Record<string, unknown>;
 }
+
+const SENSITIVITY_KEYS = ["fuelPricePercent", "carbonPricePercent", "efficiencyPoints", "capexPercent"] as const;
+type SensitivityKey = (typeof SENSITIVITY_KEYS)[number];
+const SENSITIVITY_LABELS: Record<SensitivityKey, string> = {
+  fuelPricePercent: "Fuel prices ± %",
+  carbonPricePercent: "Carbon price ± %",
+  efficiencyPoints: "Efficiency ± points",
+  capexPercent: "Capex ± %",
+};
+const SENSITIVITY_DEFAULTS: Record<SensitivityKey, number> = { fuelPricePercent: 20, carbonPricePercent: 50, efficiencyPoints: 2, capexPercent: 30 };
 
 const OVERRIDE_KEYS = ["stackTemperatureC", "flueO2DryPercent", "combustionAirC", "radiationLossPercent", "returnWaterC"] as const;
 type OverrideKey = (typeof OVERRIDE_KEYS)[number];
@@ -99,6 +111,11 @@ export function StudyForm({
     horizonYears: s(initial?.horizonYears ?? 15),
     priceEscalationPercent: s(initial?.priceEscalationPercent ?? 0),
     rankingMetric: initial?.rankingMetric ?? "cost-per-useful-MWh",
+    includeUpstream: initial?.includeUpstream ? "yes" : "no",
+    fuelPricePercent: s(initial?.sensitivity?.fuelPricePercent ?? SENSITIVITY_DEFAULTS.fuelPricePercent),
+    carbonPricePercent: s(initial?.sensitivity?.carbonPricePercent ?? SENSITIVITY_DEFAULTS.carbonPricePercent),
+    efficiencyPoints: s(initial?.sensitivity?.efficiencyPoints ?? SENSITIVITY_DEFAULTS.efficiencyPoints),
+    capexPercent: s(initial?.sensitivity?.capexPercent ?? SENSITIVITY_DEFAULTS.capexPercent),
     notes: initial?.notes ?? "",
   });
   const baselineFuelName = (id: number | null | undefined) => options.fuels.find((f) => f.id === id)?.name ?? "";
@@ -187,6 +204,8 @@ export function StudyForm({
       horizonYears: toNumber(head.horizonYears),
       priceEscalationPercent: toNumber(head.priceEscalationPercent) ?? 0,
       rankingMetric: head.rankingMetric,
+      includeUpstream: head.includeUpstream === "yes",
+      sensitivity: Object.fromEntries(SENSITIVITY_KEYS.map((k) => [k, toNumber(head[k])])),
       notes: head.notes,
       baseline: scenarioBody(baseline, true),
       scenarios: scenarios.map((x) => scenarioBody(x, false)),
@@ -401,6 +420,19 @@ export function StudyForm({
               ))}
             </select>
           </Field>
+          <Field label="Upstream CO2e" name="includeUpstream" errors={errors} hint="well-to-tank emissions of each fuel, where the library states them">
+            <select id="f-includeUpstream" value={head.includeUpstream} onChange={setH("includeUpstream")}>
+              <option value="no">reported, not counted</option>
+              <option value="yes">counted and priced</option>
+            </select>
+          </Field>
+        </div>
+        <div className="row">
+          {SENSITIVITY_KEYS.map((k) => (
+            <Field key={k} label={SENSITIVITY_LABELS[k]} name={`sensitivity.${k}`} errors={errors} hint={k === "fuelPricePercent" ? "ranges of the sensitivity (tornado) page" : undefined}>
+              <input id={`f-sensitivity.${k}`} className="num" inputMode="decimal" value={head[k]} onChange={setH(k)} {...invalid(errors, `sensitivity.${k}`)} />
+            </Field>
+          ))}
         </div>
         <Field label="Notes" name="notes" errors={errors}>
           <textarea id="f-notes" value={head.notes} onChange={setH("notes")} maxLength={10000} />

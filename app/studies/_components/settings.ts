@@ -1,4 +1,4 @@
-/** View settings of the study pages, from the address (display choices, never stored). */
+/** View settings of the study pages, from the address (choices for this view; absent = the study's stored setting). */
 import { RANKING_METRICS, RANKING_METRIC_INFO, type RankingMetric } from "@/lib/economics/sensitivity";
 
 export type SearchParams = Record<string, string | string[] | undefined>;
@@ -6,7 +6,8 @@ export type SearchParams = Record<string, string | string[] | undefined>;
 export interface ViewChoice {
   /** Metric chosen in the address, if any (else the study's own). */
   metric?: RankingMetric;
-  includeUpstream: boolean;
+  /** Upstream CO2e counted (true) or not (false) in this view; undefined = as the study stores it. */
+  includeUpstream?: boolean;
 }
 
 const one = (v: string | string[] | undefined) => (Array.isArray(v) ? v[0] : v);
@@ -15,7 +16,7 @@ export function viewChoice(sp: SearchParams): ViewChoice {
   const m = one(sp.metric);
   return {
     metric: m && (RANKING_METRICS as readonly string[]).includes(m) ? (m as RankingMetric) : undefined,
-    includeUpstream: one(sp.upstream) === "1",
+    includeUpstream: upstreamParam(one(sp.upstream) ?? null),
   };
 }
 
@@ -23,10 +24,15 @@ export function viewChoice(sp: SearchParams): ViewChoice {
 export function viewQuery(v: ViewChoice, extra: Record<string, string | number | undefined> = {}): string {
   const q = new URLSearchParams();
   if (v.metric) q.set("metric", v.metric);
-  if (v.includeUpstream) q.set("upstream", "1");
+  if (v.includeUpstream !== undefined) q.set("upstream", v.includeUpstream ? "1" : "0");
   for (const [k, val] of Object.entries(extra)) if (val !== undefined) q.set(k, String(val));
   const s = q.toString();
   return s ? `?${s}` : "";
+}
+
+/** `upstream=1` counts upstream CO2e, `upstream=0` does not; anything else leaves the study's setting. */
+export function upstreamParam(v: string | null): boolean | undefined {
+  return v === "1" ? true : v === "0" ? false : undefined;
 }
 
 export function intParam(sp: SearchParams, key: string): number | null {

@@ -63,7 +63,7 @@ export default async function ReportPage({ params, searchParams }: Props) {
             </Link>
           ))}
         </span>
-        <a className="button secondary" href={`/api/studies/${id}/export?format=csv&table=scenarios${view.metric ? `&metric=${view.metric}` : ""}${view.includeUpstream ? "&upstream=1" : ""}`} download>
+        <a className="button secondary" href={`/api/studies/${id}/export?format=csv&table=scenarios${view.metric ? `&metric=${view.metric}` : ""}${view.includeUpstream !== undefined ? `&upstream=${view.includeUpstream ? 1 : 0}` : ""}`} download>
           Scenarios CSV
         </a>
         <a className="button secondary" href={`/api/studies/${id}/export?format=csv&table=checks`} download>
@@ -72,7 +72,7 @@ export default async function ReportPage({ params, searchParams }: Props) {
         <a className="button secondary" href={`/api/studies/${id}/export?format=csv&table=sweep`} download>
           Sweep CSV
         </a>
-        <a className="button secondary" href={`/api/studies/${id}/export?format=json${view.metric ? `&metric=${view.metric}` : ""}${view.includeUpstream ? "&upstream=1" : ""}`} download>
+        <a className="button secondary" href={`/api/studies/${id}/export?format=json${view.metric ? `&metric=${view.metric}` : ""}${view.includeUpstream !== undefined ? `&upstream=${view.includeUpstream ? 1 : 0}` : ""}`} download>
           Everything as JSON
         </a>
         <span className="muted small-note">Units on this report follow the unit switch; the print stylesheet drops the controls.</span>

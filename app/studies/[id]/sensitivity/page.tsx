@@ -124,12 +124,12 @@ export default async function SensitivityPage({ params, searchParams }: Props) {
       </div>
       <form method="get" className="row no-print" style={{ alignItems: "flex-end", marginBottom: "0.75rem" }} aria-label="Sensitivity ranges">
         {view.metric && <input type="hidden" name="metric" value={view.metric} />}
-        {view.includeUpstream && <input type="hidden" name="upstream" value="1" />}
+        {view.includeUpstream !== undefined && <input type="hidden" name="upstream" value={view.includeUpstream ? "1" : "0"} />}
         <input type="hidden" name="scenario" value={idx} />
         {RANGE_KEYS.map((r) => (
           <div className="field" key={r.q} style={{ flex: "0 1 150px" }}>
             <label htmlFor={`r-${r.q}`}>{r.label}</label>
-            <input id={`r-${r.q}`} name={r.q} className="num" inputMode="decimal" defaultValue={String(ranges[r.key] ?? r.def)} />
+            <input id={`r-${r.q}`} name={r.q} className="num" inputMode="decimal" defaultValue={String(ranges[r.key] ?? result.study.sensitivity[r.key as keyof typeof result.study.sensitivity] ?? r.def)} />
           </div>
         ))}
         <button type="submit" className="secondary">

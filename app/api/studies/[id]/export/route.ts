@@ -3,6 +3,7 @@ import { evaluateStoredStudy } from "@/lib/db/studies";
 import { studyResultToCsv, CSV_TABLES, type CsvTable } from "@/lib/study/csv";
 import { RANKING_METRICS, type RankingMetric } from "@/lib/economics/sensitivity";
 import { json, notFound, parseId } from "../../../_http";
+import { upstreamParam } from "@/app/studies/_components/settings";
 
 export const dynamic = "force-dynamic";
 
@@ -14,7 +15,7 @@ function fileName(name: string, ext: string, table?: string): string {
 }
 
 /**
- * GET /api/studies/{id}/export?format=csv|json[&table=scenarios|checks|sweep][&metric=…][&upstream=1]
+ * GET /api/studies/{id}/export?format=csv|json[&table=scenarios|checks|sweep][&metric=…][&upstream=1|0]
  * CSV: one table of the results (column names carry unit and basis). JSON: the study as a
  * self-contained study file (runs with `stoke evaluate`) and its full evaluated results.
  */
@@ -29,7 +30,7 @@ export async function GET(req: Request, { params }: { params: Promise<{ id: stri
   const m = q.get("metric");
   if (m && !(RANKING_METRICS as readonly string[]).includes(m)) return json({ error: `metric must be one of ${RANKING_METRICS.join(", ")}`, fieldErrors: { metric: "unknown metric" } }, 400);
   const needSweep = format === "json" || table === "sweep";
-  const ev = await evaluateStoredStudy(db(), id, { metric: (m as RankingMetric) ?? undefined, includeUpstream: q.get("upstream") === "1", sweep: needSweep });
+  const ev = await evaluateStoredStudy(db(), id, { metric: (m as RankingMetric) ?? undefined, includeUpstream: upstreamParam(q.get("upstream")), sweep: needSweep });
   if (!ev.ok) return ev.status === 404 ? notFound("Study") : json({ error: ev.message, fieldErrors: ev.fieldErrors }, 422);
   const name = ev.result.study.name;
   if (format === "csv") {

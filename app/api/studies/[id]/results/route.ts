@@ -2,11 +2,12 @@ import { db } from "@/lib/db/client";
 import { evaluateStoredStudy } from "@/lib/db/studies";
 import { RANKING_METRICS, type RankingMetric } from "@/lib/economics/sensitivity";
 import { json, notFound, parseId } from "../../../_http";
+import { upstreamParam } from "@/app/studies/_components/settings";
 
 export const dynamic = "force-dynamic";
 
 /**
- * GET /api/studies/{id}/results[?metric=…&upstream=1&sweep=1]: the evaluated study — every
+ * GET /api/studies/{id}/results[?metric=…&upstream=1|0&sweep=1]: the evaluated study — every
  * scenario's figures, fit checks, ranking, cautions and audit trail (and the hydrogen sweep).
  * 422 with the field when the stored study cannot be evaluated.
  */
@@ -18,7 +19,7 @@ export async function GET(req: Request, { params }: { params: Promise<{ id: stri
   if (m && !(RANKING_METRICS as readonly string[]).includes(m)) {
     return json({ error: `metric must be one of ${RANKING_METRICS.join(", ")}`, fieldErrors: { metric: "unknown metric" } }, 400);
   }
-  const ev = await evaluateStoredStudy(db(), id, { metric: (m as RankingMetric) ?? undefined, includeUpstream: q.get("upstream") === "1", sweep: q.get("sweep") === "1" });
+  const ev = await evaluateStoredStudy(db(), id, { metric: (m as RankingMetric) ?? undefined, includeUpstream: upstreamParam(q.get("upstream")), sweep: q.get("sweep") === "1" });
   if (!ev.ok) return ev.status === 404 ? notFound("Study") : json({ error: ev.message, fieldErrors: ev.fieldErrors }, 422);
   return json({ studyId: id, priceSources: { baseline: ev.bundle.meta.baseline.price, scenarios: ev.bundle.meta.scenarios.map((s) => s.price) }, result: ev.result });
 }
