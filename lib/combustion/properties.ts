@@ -52,6 +52,8 @@ export interface FuelProperties {
     wet_m3_per_MJ_hhv: number;
     dry_m3_per_MJ_lhv: number;
     mass_kg_per_MJ_lhv: number;
+    mass_kg_per_MJ_hhv: number;
+    dry_m3_per_MJ_hhv: number;
     wet_m3_per_kg: number;
     co2max_dry_percent: number;
     water_wet_percent: number;
@@ -101,6 +103,8 @@ export function fuelPropertiesFromResolved(fuel: ResolvedFuel, opts: PropertyOpt
       wet_m3_per_MJ_hhv: fg.wet_m3_per_kg / hv.hhv_MJ_per_kg,
       dry_m3_per_MJ_lhv: fg.dry_m3_per_kg / hv.lhv_MJ_per_kg,
       mass_kg_per_MJ_lhv: fg.mass_kg_per_kg / hv.lhv_MJ_per_kg,
+      mass_kg_per_MJ_hhv: fg.mass_kg_per_kg / hv.hhv_MJ_per_kg,
+      dry_m3_per_MJ_hhv: fg.dry_m3_per_kg / hv.hhv_MJ_per_kg,
       wet_m3_per_kg: fg.wet_m3_per_kg,
       co2max_dry_percent: co2MaxDryPercent(fuel, DRY_AIR),
       water_wet_percent: 100 * fg.wetMoleFractions.H2O,
