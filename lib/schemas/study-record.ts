@@ -25,7 +25,7 @@ export const scenarioRecordSchema = z
     capex: sc.capex,
     fixedOpexChange: sc.fixedOpexChange,
     overrides: sc.overrides,
-  })
+  }, { error: (iss) => (iss.input === undefined ? "required: a scenario (an object naming a fuelId)" : "must be an object describing a scenario") })
   .strict();
 export type ScenarioRecordInput = z.input<typeof scenarioRecordSchema>;
 export type ScenarioRecord = z.output<typeof scenarioRecordSchema>;
@@ -44,7 +44,7 @@ export const studyRecordSchema = z
     sensitivity: s.sensitivity,
     notes: s.notes,
     baseline: scenarioRecordSchema,
-    scenarios: z.array(scenarioRecordSchema).max(200, "at most 200 scenarios"),
+    scenarios: z.array(scenarioRecordSchema, { error: "required: a list of candidate scenarios (may be empty)" }).max(200, "at most 200 scenarios"),
   })
   .strict()
   .superRefine((r, ctx) => {
