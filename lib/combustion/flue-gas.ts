@@ -79,3 +79,28 @@ export function waterDewPointC(waterMoleFraction: number, pressurePa = atmospher
   if (pw < 611.213) return null;
   return kelvinToCelsius(saturationTemperatureK(pw));
 }
+
+/**
+ * Share of the fuel's sulfur leaving as SO3 (the rest as SO2) assumed for the acid dew point:
+ * 1–5 % is usual in boilers; 2 % is taken (common practice, no source).
+ */
+export const SO3_CONVERSION_DEFAULT = 0.02;
+
+const MMHG_PER_PA = 760 / 101325;
+
+/**
+ * Sulfuric-acid dew point by the correlation of Verhoff & Banchero (1974), Chem. Eng. Prog.
+ * 70(8):71–72: 1000/T = 2.276 − 0.0294 ln p_H2O − 0.0858 ln p_SO3 + 0.0062 ln p_H2O · ln p_SO3,
+ * T in K, partial pressures in mmHg. Returns null without SO3 or water.
+ */
+export function acidDewPointC(waterMoleFraction: number, so3MoleFraction: number, pressurePa = atmospherePa): number | null {
+  if (!(waterMoleFraction > 0) || !(so3MoleFraction > 0)) return null;
+  const lw = Math.log(waterMoleFraction * pressurePa * MMHG_PER_PA);
+  const ls = Math.log(so3MoleFraction * pressurePa * MMHG_PER_PA);
+  return kelvinToCelsius(1000 / (2.276 - 0.0294 * lw - 0.0858 * ls + 0.0062 * lw * ls));
+}
+
+/** Acid dew point of a flue gas whose SO2 partly oxidises to SO3 (null for sulfur-free fuels). */
+export function flueAcidDewPointC(fg: FlueGas, so3Conversion = SO3_CONVERSION_DEFAULT, pressurePa = atmospherePa): number | null {
+  return acidDewPointC(fg.wetMoleFractions.H2O, so3Conversion * fg.wetMoleFractions.SO2, pressurePa);
+}

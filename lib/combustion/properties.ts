@@ -6,7 +6,7 @@ import type { FuelDefinition } from "../schemas/fuel";
 import { resolveFuel, type ResolvedFuel } from "../fuels/resolve";
 import { heatingValues } from "./heating-values";
 import { DRY_AIR, oxidizerDemand } from "./stoichiometry";
-import { co2MaxDryPercent, flueGasPerKgFuel, waterDewPointC } from "./flue-gas";
+import { co2MaxDryPercent, flueAcidDewPointC, flueGasPerKgFuel, SO3_CONVERSION_DEFAULT, waterDewPointC } from "./flue-gas";
 import { co2Factors, type Co2Factors } from "./co2";
 import { airDensity_kg_per_m3, volumetricFigures } from "./iso6976";
 
@@ -58,6 +58,8 @@ export interface FuelProperties {
     co2max_dry_percent: number;
     water_wet_percent: number;
     dewPoint_C: number | null;
+    /** Sulfur fuels: sulfuric-acid dew point (Verhoff & Banchero 1974) with 2 % of SO2 as SO3; null otherwise. */
+    acidDewPoint_C: number | null;
   };
   elements_mol_per_kg: ResolvedFuel["elements_mol_per_kg"];
   biogenicCarbonShare: number;
@@ -109,6 +111,7 @@ export function fuelPropertiesFromResolved(fuel: ResolvedFuel, opts: PropertyOpt
       co2max_dry_percent: co2MaxDryPercent(fuel, DRY_AIR),
       water_wet_percent: 100 * fg.wetMoleFractions.H2O,
       dewPoint_C: waterDewPointC(fg.wetMoleFractions.H2O),
+      acidDewPoint_C: flueAcidDewPointC(fg),
     },
     elements_mol_per_kg: fuel.elements_mol_per_kg,
     biogenicCarbonShare: fuel.biogenicCarbonShare,
@@ -124,7 +127,7 @@ export function fuelPropertiesFromResolved(fuel: ResolvedFuel, opts: PropertyOpt
           : fuel.kind === "liquid"
             ? "per litre at the liquid's density (15 °C)"
             : "solid: per kg as received",
-      flueGasVolumeBasis: "ideal gas at 0 °C, 101.325 kPa; stoichiometric complete combustion in dry air",
+      flueGasVolumeBasis: `ideal gas at 0 °C, 101.325 kPa; stoichiometric complete combustion in dry air; acid dew point (sulfur fuels) by Verhoff & Banchero (1974) with ${100 * SO3_CONVERSION_DEFAULT} % of SO2 as SO3`,
       airBasis: `dry air (O2 20.946 %, N2 78.084 %, Ar 0.934 %, CO2 0.036 %); volumes at ${tm} °C, 101.325 kPa`,
       standardStatePressure_kPa: 100,
     },

@@ -10,6 +10,7 @@ import { METERING_REFERENCE_C, type Plant } from "../schemas/plant";
 import type { FuelContext } from "./fuel-context";
 import type { FuelPerformance } from "./performance";
 import type { RatedFlows } from "./duty";
+import { flueAcidDewPointC, SO3_CONVERSION_DEFAULT } from "../combustion/flue-gas";
 
 export const CHECK_STATUSES = ["pass", "warn", "fail", "not-checked", "not-applicable"] as const;
 export type CheckStatus = (typeof CHECK_STATUSES)[number];
@@ -33,7 +34,7 @@ export const FIT_CHECK_LABELS: Record<FitCheckId, string> = {
   "flue-gas-fan": "Flue-gas volume vs fan capacity",
   "combustion-air-fan": "Combustion air vs fan capacity",
   "fuel-supply": "Fuel volume flow vs supply capacity",
-  "stack-dew-point": "Stack temperature vs water dew point",
+  "stack-dew-point": "Stack temperature vs dew point (water; acid for sulfur fuels)",
   "hydrogen-share": "Hydrogen share vs burner maker's limit",
 };
 
@@ -228,10 +229,19 @@ export function fitChecks(plant: Plant, baseline: FuelInPlant, cand: FuelInPlant
   {
     const eff = cand.perf.efficiency;
     const op = cand.perf.operatingPoint;
-    const dew = eff.dewPointC;
+    const waterDew = eff.dewPointC;
     const sulfur = cand.ctx.fuel.elements_mol_per_kg.S > 0;
-    const acid = sulfur ? "; the fuel contains sulfur, so the acid dew point lies well above the water dew point — ask the equipment maker" : "";
-    const basis = "water dew point of the wet flue gas from its water partial pressure (IAPWS-IF97 saturation), 101.325 kPa";
+    const acidDew = sulfur ? flueAcidDewPointC(eff.flue) : null;
+    // A non-condensing unit must stay above the higher of the two dew points.
+    const dew = !op.condensing && acidDew !== null && (waterDew === null || acidDew > waterDew) ? acidDew : waterDew;
+    const dewName = acidDew !== null && dew === acidDew ? "sulfuric-acid dew point" : "dew point";
+    const acid =
+      sulfur && dew !== acidDew
+        ? `; the fuel contains sulfur: acid dew point about ${acidDew === null ? "–" : fmt(acidDew, 0)} °C, acid condensate where the water condenses`
+        : "";
+    const basis = sulfur
+      ? `water dew point from the water partial pressure (IAPWS-IF97), acid dew point by Verhoff & Banchero (1974) with ${100 * SO3_CONVERSION_DEFAULT} % of SO2 as SO3; 101.325 kPa`
+      : "water dew point of the wet flue gas from its water partial pressure (IAPWS-IF97 saturation), 101.325 kPa";
     if (dew === null) {
       push({ id: "stack-dew-point", status: "pass", value: null, limit: null, unit: "K", usage: null, basis, message: "the flue gas holds too little water to condense above 0 °C" });
     } else if (op.condensing) {
@@ -256,8 +266,8 @@ export function fitChecks(plant: Plant, baseline: FuelInPlant, cand: FuelInPlant
         message: !T
           ? ""
           : margin < 0
-            ? `stack ${fmt(op.stackTemperatureC, 0)} °C is below the dew point ${fmt(dew, 1)} °C: condensate in a non-condensing unit (corrosion)${acid}`
-            : `stack ${fmt(op.stackTemperatureC, 0)} °C is ${fmt(margin, 1)} K above the dew point ${fmt(dew, 1)} °C (margin wanted ${fmt(need, 0)} K)${acid}`,
+            ? `stack ${fmt(op.stackTemperatureC, 0)} °C is below the ${dewName} ${fmt(dew, 1)} °C: condensate in a non-condensing unit (corrosion)${acid}`
+            : `stack ${fmt(op.stackTemperatureC, 0)} °C is ${fmt(margin, 1)} K above the ${dewName} ${fmt(dew, 1)} °C (margin wanted ${fmt(need, 0)} K)${acid}`,
       });
     }
   }

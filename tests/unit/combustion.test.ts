@@ -334,3 +334,23 @@ describe("biomethane is not raw biogas", () => {
     expect(cautionsFor({ composition: { CH4: 0.97, CO2: 0.02, N2: 0.01 }, biogenicCarbonShare: 1 }).map((c) => c.hazard)).not.toContain("biogas");
   });
 });
+
+import { acidDewPointC } from "../../lib/combustion/flue-gas";
+describe("sulfuric-acid dew point (Verhoff & Banchero 1974, Chem. Eng. Prog. 70(8):71–72)", () => {
+  it("evaluates the published correlation: 10 % H2O, 10 ppm SO3 at 1 atm", () => {
+    // By hand: p_H2O = 76 mmHg, p_SO3 = 0.0076 mmHg; 1000/T = 2.276 − 0.0294 ln 76 − 0.0858 ln 0.0076 + 0.0062 ln 76 ln 0.0076
+    const lw = Math.log(76), ls = Math.log(0.0076);
+    const byHand = 1000 / (2.276 - 0.0294 * lw - 0.0858 * ls + 0.0062 * lw * ls) - 273.15;
+    expect(acidDewPointC(0.1, 10e-6)).toBeCloseTo(byHand, 6);
+    // Acid dew points of oil-fired flue gas lie around 120–160 °C (common practice, no source).
+    expect(byHand).toBeGreaterThan(120);
+    expect(byHand).toBeLessThan(160);
+  });
+  it("heavy fuel oil with 1 % S: acid dew point far above the water dew point; sulfur-free fuels have none", () => {
+    const hfo = computeFuelProperties({ ultimate: { C: 0.87, H: 0.11, S: 0.01, O: 0.005, N: 0.004, moisture: 0.0005, ash: 0.0005 }, kind: "liquid", lhv_MJ_per_kg: 40.4 });
+    expect(hfo.flueGas.acidDewPoint_C!).toBeGreaterThan(hfo.flueGas.dewPoint_C! + 60);
+    expect(hfo.flueGas.acidDewPoint_C!).toBeGreaterThan(120);
+    expect(hfo.flueGas.acidDewPoint_C!).toBeLessThan(160);
+    expect(computeFuelProperties({ compound: "CH4" }).flueGas.acidDewPoint_C).toBeNull();
+  });
+});
