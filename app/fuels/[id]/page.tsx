@@ -387,6 +387,9 @@ export default async function FuelSheetPage({ params, searchParams }: Props) {
                   ["CO2max, dry", p.flueGas.co2max_dry_percent, "vol %", 2],
                   ["Water vapour, wet", p.flueGas.water_wet_percent, "vol %", 2],
                   ["Water dew point", p.flueGas.dewPoint_C, "°C", 1],
+                  ...(p.flueGas.acidDewPoint_C !== null
+                    ? [["Acid dew point (2 % of SO2 as SO3; Verhoff & Banchero)", p.flueGas.acidDewPoint_C, "°C", 0] as [string, number, string, number]]
+                    : []),
                 ]}
               />
             </section>
