@@ -57,7 +57,12 @@ export default async function StudiesPage() {
                   <td className="num">{s.scenarioCount}</td>
                   <td>{METRIC_SHORT[s.rankingMetric as RankingMetric] ?? s.rankingMetric}</td>
                   <td>
-                    <Link href={`/studies/${s.id}/sweep`}>H2 sweep</Link> · <Link href={`/studies/${s.id}/report`}>report</Link>
+                    {s.baselineFuelKind === "gas" && (
+                      <>
+                        <Link href={`/studies/${s.id}/sweep`}>H2 sweep</Link> ·{" "}
+                      </>
+                    )}
+                    <Link href={`/studies/${s.id}/report`}>report</Link>
                   </td>
                 </tr>
               ))}

@@ -350,6 +350,8 @@ export interface StudyListItem {
   rankingMetric: string;
   scenarioCount: number;
   baselineName: string | null;
+  /** Kind of the baseline fuel (a hydrogen sweep needs a gas). */
+  baselineFuelKind: string | null;
   isDemo: boolean;
   updatedAt: Date;
 }
@@ -358,7 +360,7 @@ export async function listStudies(db: PrismaClient, where: { plantId?: number } 
   const rows = await db.study.findMany({
     where: where.plantId ? { plantId: where.plantId } : undefined,
     orderBy: [{ plant: { name: "asc" } }, { name: "asc" }],
-    include: { plant: { select: { name: true } }, scenarios: { select: { name: true, isBaseline: true } } },
+    include: { plant: { select: { name: true } }, scenarios: { select: { name: true, isBaseline: true, fuel: { select: { kind: true } } } } },
   });
   return rows.map((r) => ({
     id: r.id,
@@ -369,6 +371,7 @@ export async function listStudies(db: PrismaClient, where: { plantId?: number } 
     rankingMetric: r.rankingMetric,
     scenarioCount: r.scenarios.filter((s) => !s.isBaseline).length,
     baselineName: r.scenarios.find((s) => s.isBaseline)?.name ?? null,
+    baselineFuelKind: r.scenarios.find((s) => s.isBaseline)?.fuel.kind ?? null,
     isDemo: r.isDemo,
     updatedAt: r.updatedAt,
   }));

@@ -245,7 +245,12 @@ export default async function ComparisonPage({ params, searchParams }: Props) {
       )}
 
       <p className="no-print" style={{ marginTop: "1.25rem" }}>
-        Next: <Link href={`/studies/${id}/sweep${viewQuery(view)}`}>how much hydrogen can the plant take?</Link> ·{" "}
+        Next:{" "}
+        {bundle.meta.baseline.fuelKind === "gas" && (
+          <>
+            <Link href={`/studies/${id}/sweep${viewQuery(view)}`}>how much hydrogen can the plant take?</Link> ·{" "}
+          </>
+        )}
         <Link href={`/studies/${id}/sensitivity${viewQuery(view)}`}>how robust is the ranking?</Link> ·{" "}
         <Link href={`/studies/${id}/report${viewQuery(view)}`}>print the report</Link>
       </p>
