@@ -5,7 +5,7 @@
  *
  * Summation factors sᵢ at the metering temperatures 0, 15 and 20 °C (101.325 kPa). The 15 °C
  * values of methane, ethane, propane, n-/isobutane, hydrogen, CO, H2S, N2 and CO2 are ISO 6976:2016
- * Table 2 values confirmed in a faithful transcription; the rest are values from memory
+ * Table 2 values (confirmed); the rest are values from memory
  * (ISO 6976:2016 Table 2, or derived from the same table's compression factors of the pure
  * component, √(1 − Z)). 15.56 °C (60 °F) is linearly interpolated between 15 and 20 °C.
  */

