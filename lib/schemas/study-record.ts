@@ -5,7 +5,7 @@
  * this only swaps embedded fuel definitions and quotes for references to the library.
  */
 import { z } from "zod";
-import { scenarioSchema, studySchema } from "./study";
+import { checkScenarioSet, scenarioSchema, studySchema } from "./study";
 
 const id = (what: string) =>
   z
@@ -47,17 +47,6 @@ export const studyRecordSchema = z
     scenarios: z.array(scenarioRecordSchema, { error: "required: a list of candidate scenarios (may be empty)" }).max(200, "at most 200 scenarios"),
   })
   .strict()
-  .superRefine((r, ctx) => {
-    if (r.baseline.capex !== 0) ctx.addIssue({ code: "custom", path: ["baseline", "capex"], message: "the baseline has no switching capex (must be 0)" });
-    if (r.baseline.fixedOpexChange !== 0) {
-      ctx.addIssue({ code: "custom", path: ["baseline", "fixedOpexChange"], message: "the baseline is the reference for opex changes (must be 0)" });
-    }
-    const seen = new Map<string, string>([[r.baseline.name.toLowerCase(), "the baseline"]]);
-    r.scenarios.forEach((x, i) => {
-      const k = x.name.toLowerCase();
-      if (seen.has(k)) ctx.addIssue({ code: "custom", path: ["scenarios", i, "name"], message: `"${x.name}" is already used by ${seen.get(k)}` });
-      else seen.set(k, `scenario ${i + 1}`);
-    });
-  });
+  .superRefine(checkScenarioSet);
 export type StudyRecordInput = z.input<typeof studyRecordSchema>;
 export type StudyRecord = z.output<typeof studyRecordSchema>;

@@ -44,6 +44,25 @@ export const scenarioSchema = z
 export type ScenarioInput = z.input<typeof scenarioSchema>;
 export type Scenario = z.output<typeof scenarioSchema>;
 
+type ScenarioSetCore = { name: string; capex: number; fixedOpexChange: number };
+
+/**
+ * Rules every scenario set obeys (study files and stored studies alike): the baseline carries no
+ * capex or opex change, and scenario names are unique (case-insensitive).
+ */
+export function checkScenarioSet(s: { baseline: ScenarioSetCore; scenarios: readonly ScenarioSetCore[] }, ctx: z.RefinementCtx): void {
+  if (s.baseline.capex !== 0) ctx.addIssue({ code: "custom", path: ["baseline", "capex"], message: "the baseline has no switching capex (must be 0)" });
+  if (s.baseline.fixedOpexChange !== 0) {
+    ctx.addIssue({ code: "custom", path: ["baseline", "fixedOpexChange"], message: "the baseline is the reference for opex changes (must be 0)" });
+  }
+  const seen = new Map<string, string>([[s.baseline.name.toLowerCase(), "the baseline"]]);
+  s.scenarios.forEach((sc, i) => {
+    const k = sc.name.toLowerCase();
+    if (seen.has(k)) ctx.addIssue({ code: "custom", path: ["scenarios", i, "name"], message: `"${sc.name}" is already used by ${seen.get(k)}` });
+    else seen.set(k, `scenario ${i + 1}`);
+  });
+}
+
 export const sensitivitySchema = z
   .object({
     fuelPricePercent: num().min(0, "must be ≥ 0 %").max(200, "must be ≤ 200 %").default(20),
@@ -91,16 +110,7 @@ export const studySchema = z
   }, { error: "a study must be a JSON object" })
   .strict()
   .superRefine((s, ctx) => {
-    if (s.baseline.capex !== 0) ctx.addIssue({ code: "custom", path: ["baseline", "capex"], message: "the baseline has no switching capex (must be 0)" });
-    if (s.baseline.fixedOpexChange !== 0) {
-      ctx.addIssue({ code: "custom", path: ["baseline", "fixedOpexChange"], message: "the baseline is the reference for opex changes (must be 0)" });
-    }
-    const seen = new Map<string, string>([[s.baseline.name.toLowerCase(), "baseline"]]);
-    s.scenarios.forEach((sc, i) => {
-      const k = sc.name.toLowerCase();
-      if (seen.has(k)) ctx.addIssue({ code: "custom", path: ["scenarios", i, "name"], message: `"${sc.name}" is already used by ${seen.get(k)}` });
-      else seen.set(k, `scenarios.${i}`);
-    });
+    checkScenarioSet(s, ctx);
     const checkComponents = (sc: z.output<typeof scenarioSchema>, path: (string | number)[]) => {
       if (!sc.componentPrices) return;
       if (!("blend" in sc.fuel)) {

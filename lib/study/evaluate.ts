@@ -210,7 +210,7 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
     if (sc.componentPrices && "blend" in sc.fuel) {
       const def = sc.fuel;
       const parts = def.blend.map((c, i) => caches.fuels.fromDefinition(c.fuel, `${p.field}.fuel.blend.${i}.fuel`));
-      return blendPriceFromComponents(def, p.ctx, parts, sc.componentPrices, p.field);
+      return blendPriceFromComponents(p.ctx, parts, sc.componentPrices, p.field);
     }
     return null;
   };

@@ -1,7 +1,6 @@
 /** Study prices through the one normalisation module (lib/economics/prices); errors name the field. */
 import { METERING_REFERENCE_C } from "../schemas/plant";
 import type { StudyPrice } from "../schemas/study";
-import type { BlendFuelDefinition } from "../schemas/fuel";
 import { mixPrices, normalisePrice, PriceNormalisationError, type NormalisedPrice, type PriceQuoteTerms } from "../economics/prices";
 import type { FuelContext } from "../plant/fuel-context";
 import { StudyInputError } from "./errors";
@@ -37,7 +36,6 @@ export function normaliseStudyPrice(p: StudyPrice, ctx: FuelContext, field: stri
  * for the blend through the same normalisation.
  */
 export function blendPriceFromComponents(
-  def: BlendFuelDefinition,
   blend: FuelContext,
   parts: readonly FuelContext[],
   prices: readonly StudyPrice[],

@@ -1,6 +1,7 @@
 "use client";
 
 import Link from "next/link";
+import { saveAndOpen } from "@/app/_ui/save";
 import { useRouter } from "next/navigation";
 import { useMemo, useState } from "react";
 import { ErrorSummary, Field, FieldError, invalid, toNumber, type Errors } from "./fields";
@@ -202,22 +203,7 @@ export function FuelForm({ options, initial }: { options: FuelFormOptions; initi
       setMessage("Nothing was saved.");
       return;
     }
-    setBusy(true);
-    const res = await fetch(initial ? `/api/fuels/${initial.id}` : "/api/fuels", {
-      method: initial ? "PUT" : "POST",
-      headers: { "content-type": "application/json" },
-      body: JSON.stringify(built.body),
-    });
-    const out = await res.json().catch(() => ({}));
-    if (!res.ok) {
-      setBusy(false);
-      setErrors(out.fieldErrors ?? {});
-      setMessage(out.error ?? `The server answered ${res.status}.`);
-      window.scrollTo({ top: 0, behavior: "smooth" });
-      return;
-    }
-    router.push(`/fuels/${out.id}`);
-    router.refresh();
+    await saveAndOpen("/api/fuels", initial?.id, built.body, (id) => `/fuels/${id}`, { setBusy, setErrors, setMessage, router });
   }
 
   const compSumValues = rows.map((r) => r.value);

@@ -2,6 +2,7 @@
 
 /** Create or edit a plant: duty, operating point and the limits candidate fuels are checked against. */
 import Link from "next/link";
+import { saveAndOpen } from "@/app/_ui/save";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { ErrorSummary, Field, FieldError, invalid, toNumber, type Errors } from "../../fuels/_components/fields";
@@ -172,21 +173,7 @@ export function PlantForm({ options, initial }: { options: PlantFormOptions; ini
     e.preventDefault();
     setBusy(true);
     setMessage(null);
-    const res = await fetch(initial ? `/api/plants/${initial.id}` : "/api/plants", {
-      method: initial ? "PUT" : "POST",
-      headers: { "content-type": "application/json" },
-      body: JSON.stringify(body()),
-    });
-    const out = await res.json().catch(() => ({}));
-    if (!res.ok) {
-      setBusy(false);
-      setErrors(out.fieldErrors ?? {});
-      setMessage(out.error ?? `The server answered ${res.status}.`);
-      window.scrollTo({ top: 0, behavior: "smooth" });
-      return;
-    }
-    router.push(`/plants/${out.id}`);
-    router.refresh();
+    await saveAndOpen("/api/plants", initial?.id, body(), (id) => `/plants/${id}`, { setBusy, setErrors, setMessage, router });
   }
 
   const refOpts = options.meteringReferences;

@@ -6,6 +6,7 @@
  * overrides). The server validates everything and names the field of each problem.
  */
 import Link from "next/link";
+import { saveAndOpen } from "@/app/_ui/save";
 import { useRouter } from "next/navigation";
 import { useMemo, useRef, useState } from "react";
 import { ErrorSummary, Field, invalid, toNumber, type Errors } from "../../fuels/_components/fields";
@@ -210,21 +211,7 @@ export function StudyForm({
       baseline: scenarioBody(baseline, true),
       scenarios: scenarios.map((x) => scenarioBody(x, false)),
     };
-    const res = await fetch(initial?.id ? `/api/studies/${initial.id}` : "/api/studies", {
-      method: initial?.id ? "PUT" : "POST",
-      headers: { "content-type": "application/json" },
-      body: JSON.stringify(body),
-    });
-    const out = await res.json().catch(() => ({}));
-    if (!res.ok) {
-      setBusy(false);
-      setErrors(out.fieldErrors ?? {});
-      setMessage(out.error ?? `The server answered ${res.status}.`);
-      window.scrollTo({ top: 0, behavior: "smooth" });
-      return;
-    }
-    router.push(`/studies/${out.id}`);
-    router.refresh();
+    await saveAndOpen("/api/studies", initial?.id, body, (id) => `/studies/${id}`, { setBusy, setErrors, setMessage, router });
   }
 
   const placed = (key: string) =>

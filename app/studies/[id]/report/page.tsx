@@ -3,18 +3,19 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/lib/db/client";
 import { evaluateStoredStudy } from "@/lib/db/studies";
-import { fmt, fmtUpTo, money, pct } from "../../../_ui/format";
+import { fmt, fmtUpTo, money } from "../../../_ui/format";
 import { CostStackChart, Co2Chart, CostCo2Scatter } from "../../../_charts/ScenarioCharts";
 import { displayUnits } from "../../_components/units-server";
 import { makeDisplay, savingText, signed } from "../../_components/display";
 import { Cautions } from "../../_components/Cautions";
 import { Status } from "../../_components/Checks";
+import { CrossingTable, firstFailures } from "../../_components/Crossings";
 import { CheckMatrix, RankTable, RankTableNotes } from "../../_components/Tables";
 import { EvaluationProblem } from "../../_components/EvaluationProblem";
 import { PrintButton } from "../../_components/PrintButton";
 import { co2Rows, costRows, failingChecks, headline, metricText, ranked, scatterPoints } from "../../_components/results";
 import { METRIC_SHORT, viewChoice, viewQuery, type SearchParams } from "../../_components/settings";
-import { METERING_REFERENCE_LABELS } from "../../../plants/_components/options";
+import { PlantLimitsTable } from "../../../plants/_components/PlantLimits";
 
 export const dynamic = "force-dynamic";
 
@@ -46,9 +47,8 @@ export default async function ReportPage({ params, searchParams }: Props) {
   const h = headline(list);
   const p = result.plant;
   const sw = result.hydrogenSweep && result.hydrogenSweep.available ? result.hydrogenSweep : null;
-  const swFails = sw ? sw.crossings.filter((c) => c.firstFailPercent !== null && c.statusAtZero !== "fail").sort((a, b) => a.firstFailPercent! - b.firstFailPercent!) : [];
+  const swFails = sw ? firstFailures(sw.crossings) : [];
   const today = new Date().toISOString().slice(0, 10);
-  const na = <span className="na">not set</span>;
 
   return (
     <>
@@ -178,50 +178,7 @@ export default async function ReportPage({ params, searchParams }: Props) {
                 </tr>
               </tbody>
             </table>
-            <table className="kv">
-              <tbody>
-                <tr>
-                  <th>Wobbe limit</th>
-                  <td className="num">
-                    {p.wobbeTolerancePercent != null
-                      ? `± ${fmt(p.wobbeTolerancePercent, 1)} % of baseline`
-                      : p.wobbeMin_MJ_per_m3 != null
-                        ? `${d.wobbe(p.wobbeMin_MJ_per_m3)}–${d.wobbe(p.wobbeMax_MJ_per_m3)} ${d.wobbeUnit}`
-                        : na}{" "}
-                    <span className="unit">
-                      ({p.wobbeCombustionReferenceC} °C / {METERING_REFERENCE_LABELS[p.wobbeMeteringReference]})
-                    </span>
-                  </td>
-                </tr>
-                <tr>
-                  <th>Flame-temperature rise</th>
-                  <td className="num">{p.maxFlameTempRiseK != null ? `≤ ${d.dT(p.maxFlameTempRiseK, 0, false)} ${d.dTUnit}` : na}</td>
-                </tr>
-                <tr>
-                  <th>Flue-gas / air fan</th>
-                  <td className="num">
-                    {p.flueGasCapacity_m3_per_h != null ? `${d.vol(p.flueGasCapacity_m3_per_h)} ${d.volUnit}/h ${p.flueGasCapacityBasis}` : na} /{" "}
-                    {p.airCapacity_m3_per_h != null ? `${d.vol(p.airCapacity_m3_per_h)} ${d.volUnit}/h ${p.airCapacityBasis}` : na}
-                  </td>
-                </tr>
-                <tr>
-                  <th>Fuel supply</th>
-                  <td className="num">
-                    {p.fuelSupplyCapacity_m3_per_h != null ? `${d.vol(p.fuelSupplyCapacity_m3_per_h, p.fuelSupplyCapacity_m3_per_h < 10 ? 2 : 0)} ${d.volUnit}/h (${METERING_REFERENCE_LABELS[p.fuelSupplyMeteringReference]})` : na}
-                  </td>
-                </tr>
-                <tr>
-                  <th>Burner H2 limit</th>
-                  <td className="num">{p.maxH2SharePercent != null ? `${fmt(p.maxH2SharePercent, 0)} vol %` : na}</td>
-                </tr>
-                <tr>
-                  <th>Warning margin</th>
-                  <td className="num">
-                    {pct(p.warnAtFractionOfLimit, 0)} of a limit; dew-point margin {d.dT(p.dewPointMarginK, 0, false)} {d.dTUnit}
-                  </td>
-                </tr>
-              </tbody>
-            </table>
+            <PlantLimitsTable p={p} d={d} />
           </div>
         </section>
 
@@ -373,30 +330,7 @@ export default async function ReportPage({ params, searchParams }: Props) {
             <p className="basis">
               {sw.baseGasLabel} with {sw.hydrogenLabel}, 0–100 vol % in {fmt(sw.stepPercent, 0)} % steps, at the plant&apos;s operating point. {sw.basis.wobbe}.
             </p>
-            <div className="table-wrap">
-              <table>
-                <thead>
-                  <tr>
-                    <th>Check</th>
-                    <th>At 0 % H2</th>
-                    <th className="num">First warning, vol % H2</th>
-                    <th className="num">First failure, vol % H2</th>
-                  </tr>
-                </thead>
-                <tbody>
-                  {sw.crossings.map((c) => (
-                    <tr key={c.checkId}>
-                      <td>{c.label}</td>
-                      <td>
-                        <Status status={c.statusAtZero} />
-                      </td>
-                      <td className="num">{c.statusAtZero === "not-checked" ? "–" : c.firstWarnPercent === null ? "none" : fmt(c.firstWarnPercent, 0)}</td>
-                      <td className="num">{c.statusAtZero === "not-checked" ? "–" : c.firstFailPercent === null ? "none" : fmt(c.firstFailPercent, 0)}</td>
-                    </tr>
-                  ))}
-                </tbody>
-              </table>
-            </div>
+            <CrossingTable crossings={sw.crossings} />
             <div className="table-wrap" style={{ marginTop: "0.6rem" }}>
               <table>
                 <thead>

@@ -12,6 +12,7 @@ import { makeDisplay, signed, type Display } from "../../_components/display";
 import { UnitSwitch } from "../../_components/UnitSwitch";
 import { Cautions } from "../../_components/Cautions";
 import { Status } from "../../_components/Checks";
+import { CrossingTable, firstFailures, shareText } from "../../_components/Crossings";
 import { EvaluationProblem } from "../../_components/EvaluationProblem";
 import { viewChoice, type SearchParams } from "../../_components/settings";
 
@@ -33,9 +34,6 @@ function markersFor(points: SweepPoint[], crossings: SweepCrossing[], ids: FitCh
   return out;
 }
 
-function shareText(v: number | null): string {
-  return v === null ? "not within 0–100 %" : `${fmt(v, v % 1 ? 1 : 0)} vol %`;
-}
 
 export default async function SweepPage({ params, searchParams }: Props) {
   const id = Number((await params).id);
@@ -66,7 +64,7 @@ export default async function SweepPage({ params, searchParams }: Props) {
   const vLines = lim.maxH2SharePercent !== null ? [{ x: lim.maxH2SharePercent, label: `burner limit ${fmt(lim.maxH2SharePercent, 0)} %` }] : [];
 
   // First failure at a share above 0 % (checks already failing on the baseline gas are listed apart).
-  const fails = sw.crossings.filter((c) => c.firstFailPercent !== null && c.statusAtZero !== "fail").sort((a, b) => a.firstFailPercent! - b.firstFailPercent!);
+  const fails = firstFailures(sw.crossings);
   const warns = sw.crossings.filter((c) => c.firstWarnPercent !== null && c.statusAtZero !== "warn" && c.statusAtZero !== "fail").sort((a, b) => a.firstWarnPercent! - b.firstWarnPercent!);
   const atZero = sw.crossings.filter((c) => c.statusAtZero === "fail" || c.statusAtZero === "warn");
   const firstFail = fails[0] ?? null;
@@ -220,30 +218,7 @@ export default async function SweepPage({ params, searchParams }: Props) {
       </div>
 
       <h2>Where each limit is crossed</h2>
-      <div className="table-wrap">
-        <table data-testid="crossings">
-          <thead>
-            <tr>
-              <th>Check</th>
-              <th>At 0 % H2</th>
-              <th className="num">First warning</th>
-              <th className="num">First failure</th>
-            </tr>
-          </thead>
-          <tbody>
-            {sw.crossings.map((c) => (
-              <tr key={c.checkId}>
-                <td>{c.label}</td>
-                <td>
-                  <Status status={c.statusAtZero} />
-                </td>
-                <td className="num">{c.statusAtZero === "not-checked" ? <span className="na">no limit entered</span> : shareText(c.firstWarnPercent)}</td>
-                <td className="num">{c.statusAtZero === "not-checked" ? <span className="na">–</span> : shareText(c.firstFailPercent)}</td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </div>
+      <CrossingTable crossings={sw.crossings} testId="crossings" />
 
       <details style={{ marginTop: "1rem" }}>
         <summary>Figures every 10 vol %</summary>

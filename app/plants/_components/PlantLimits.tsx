@@ -1,0 +1,62 @@
+/** The limits a plant sets for every candidate fuel, as one table (plant page and study report). */
+import type { Plant } from "@/lib/schemas/plant";
+import { fmt, pct } from "@/app/_ui/format";
+import type { Display } from "@/app/studies/_components/display";
+import { METERING_REFERENCE_LABELS } from "./options";
+
+const na = <span className="na">not set</span>;
+const fanBasis = (k: "actual" | "normal") => (k === "actual" ? "actual" : "normal, 0 °C");
+
+export function PlantLimitsTable({ p, d }: { p: Plant; d: Display }) {
+  return (
+    <table className="kv">
+      <tbody>
+        <tr>
+          <th>Wobbe index</th>
+          <td className="num">
+            {p.wobbeTolerancePercent != null
+              ? `± ${fmt(p.wobbeTolerancePercent, 1)} % of the baseline`
+              : p.wobbeMin_MJ_per_m3 != null
+                ? `${d.wobbe(p.wobbeMin_MJ_per_m3)}–${d.wobbe(p.wobbeMax_MJ_per_m3)} ${d.wobbeUnit} gross`
+                : na}
+            {(p.wobbeTolerancePercent != null || p.wobbeMin_MJ_per_m3 != null) && (
+              <div className="unit">
+                combustion {p.wobbeCombustionReferenceC} °C, metering {METERING_REFERENCE_LABELS[p.wobbeMeteringReference]}
+              </div>
+            )}
+          </td>
+        </tr>
+        <tr>
+          <th>Flame-temperature rise</th>
+          <td className="num">{p.maxFlameTempRiseK != null ? `≤ ${d.dT(p.maxFlameTempRiseK, 0, false)} ${d.dTUnit}` : na}</td>
+        </tr>
+        <tr>
+          <th>Flue-gas fan</th>
+          <td className="num">{p.flueGasCapacity_m3_per_h != null ? `${d.vol(p.flueGasCapacity_m3_per_h)} ${d.volUnit}/h (${fanBasis(p.flueGasCapacityBasis)})` : na}</td>
+        </tr>
+        <tr>
+          <th>Combustion-air fan</th>
+          <td className="num">{p.airCapacity_m3_per_h != null ? `${d.vol(p.airCapacity_m3_per_h)} ${d.volUnit}/h (${fanBasis(p.airCapacityBasis)})` : na}</td>
+        </tr>
+        <tr>
+          <th>Fuel supply / meter</th>
+          <td className="num">
+            {p.fuelSupplyCapacity_m3_per_h != null
+              ? `${d.vol(p.fuelSupplyCapacity_m3_per_h, p.fuelSupplyCapacity_m3_per_h < 10 ? 2 : 0)} ${d.volUnit}/h (gas at ${METERING_REFERENCE_LABELS[p.fuelSupplyMeteringReference]}; liquid as liquid)`
+              : na}
+          </td>
+        </tr>
+        <tr>
+          <th>Burner maker&apos;s H2 limit</th>
+          <td className="num">{p.maxH2SharePercent != null ? `${fmt(p.maxH2SharePercent, 0)} vol %` : na}</td>
+        </tr>
+        <tr>
+          <th>Warnings</th>
+          <td className="num">
+            at {pct(p.warnAtFractionOfLimit, 0)} of a limit; stack within {d.dT(p.dewPointMarginK, 0, false)} {d.dTUnit} of the dew point
+          </td>
+        </tr>
+      </tbody>
+    </table>
+  );
+}
