@@ -7,7 +7,8 @@ import type { BlendComponent, Fuel, PriceQuote, PrismaClient } from "./generated
 import { currentQuote, effectiveDefinition, isBlendRow, listPriceQuotes, quoteJson, quoteTerms, resolveRow, storedDefinition } from "./fuels";
 import { fuelPropertiesFromResolved, type FuelProperties } from "../combustion/properties";
 import { flameTemperature, FLAME_METHODS, FLAME_METHOD_LABELS, type FlameMethod } from "../combustion/flame";
-import { energyContentOf, mixPrices, normalisePrice, priceUnitLabel, type NormalisedPrice } from "../economics/prices";
+import { mixPrices, normalisePrice, priceUnitLabel, type NormalisedPrice } from "../economics/prices";
+import { energyContentOf } from "../combustion/energy-content";
 import type { ResolvedFuel } from "../fuels/resolve";
 import { heatingValues } from "../combustion/heating-values";
 import type { FuelDefinition } from "../schemas/fuel";

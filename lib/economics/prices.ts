@@ -20,14 +20,12 @@ import {
   type MassUnit,
   type VolumeUnit,
 } from "../units/energy";
-import type { ResolvedFuel } from "../fuels/resolve";
-import { realDensity_kg_per_m3 } from "../combustion/iso6976";
+import type { FuelEnergyContent } from "../combustion/energy-content";
 
-export const PRICE_UNITS = ["MWh", "GJ", "kWh", "MMBtu", "therm", "t", "kg", "L", "USgal", "m3"] as const;
-export type PriceUnit = (typeof PRICE_UNITS)[number];
-export const ENERGY_BASES = ["gross", "net"] as const;
-export type EnergyBasis = (typeof ENERGY_BASES)[number];
-export type FuelKindForPrice = "gas" | "liquid" | "solid";
+import { PRICE_UNITS, type EnergyBasis, type PriceUnit } from "../schemas/price-units";
+
+export { ENERGY_BASES, PRICE_UNITS, type EnergyBasis, type PriceUnit } from "../schemas/price-units";
+export type { FuelEnergyContent } from "../combustion/energy-content";
 
 export function isEnergyUnit(unit: PriceUnit): unit is EnergyUnit {
   return unit in ENERGY_UNITS_MJ;
@@ -49,19 +47,6 @@ export interface PriceQuoteTerms {
   meteringReferenceC?: number | null;
   transportAdder?: number | null;
   handlingAdder?: number | null;
-}
-
-/** The fuel data the conversion needs. */
-export interface FuelEnergyContent {
-  kind: FuelKindForPrice;
-  /** Gross (higher) heating value, MJ per kg as fired. */
-  hhv_MJ_per_kg: number;
-  /** Net (lower) heating value, MJ per kg as fired. */
-  lhv_MJ_per_kg: number;
-  /** Liquids: density at 15 °C; solids: bulk density. kg/m³. */
-  density_kg_per_m3?: number | null;
-  /** Gases: density (real gas) at a metering temperature (°C, 101.325 kPa), kg/m³. */
-  gasDensity_kg_per_m3?: (meteringReferenceC: number) => number;
 }
 
 export interface CostPerBasis {
@@ -92,7 +77,7 @@ export interface PriceIssue {
  */
 export function priceQuoteIssues(
   terms: Pick<PriceQuoteTerms, "unit" | "energyBasis" | "meteringReferenceC">,
-  fuel: { kind: FuelKindForPrice; hasDensity: boolean },
+  fuel: { kind: FuelEnergyContent["kind"]; hasDensity: boolean },
 ): PriceIssue[] {
   const issues: PriceIssue[] = [];
   const { unit } = terms;
@@ -212,27 +197,4 @@ export function priceUnitLabel(terms: Pick<PriceQuoteTerms, "unit" | "energyBasi
     s += terms.meteringReferenceC === 15.56 ? " at 60 °F" : ` at ${terms.meteringReferenceC} °C`;
   }
   return s;
-}
-
-/**
- * The energy content of a resolved fuel for pricing: heating values (at the combustion
- * reference they were computed at) and its density — liquids at 15 °C, solids bulk (when
- * given), gases real-gas at each metering reference (ISO 6976:2016 compression factor).
- */
-export function energyContentOf(
-  fuel: ResolvedFuel,
-  hv: { hhv_MJ_per_kg: number; lhv_MJ_per_kg: number },
-): FuelEnergyContent {
-  const content: FuelEnergyContent = {
-    kind: fuel.kind,
-    hhv_MJ_per_kg: hv.hhv_MJ_per_kg,
-    lhv_MJ_per_kg: hv.lhv_MJ_per_kg,
-    density_kg_per_m3: fuel.kind === "gas" ? null : (fuel.density_kg_per_m3 ?? null),
-  };
-  if (fuel.kind === "gas" && fuel.gasComposition && fuel.molarMass_g_per_mol) {
-    const composition = fuel.gasComposition;
-    const M = fuel.molarMass_g_per_mol;
-    content.gasDensity_kg_per_m3 = (meteringReferenceC) => realDensity_kg_per_m3(composition, M, meteringReferenceC);
-  }
-  return content;
 }

@@ -4,8 +4,9 @@
  */
 import { compare, scenarioCosts, type CostInputs, type FinanceAssumptions } from "./costs";
 
-export const RANKING_METRICS = ["cost-per-useful-MWh", "co2-per-useful-MJ", "abatement-cost", "npv"] as const;
-export type RankingMetric = (typeof RANKING_METRICS)[number];
+import type { RankingMetric } from "../schemas/study";
+
+export { RANKING_METRICS, type RankingMetric } from "../schemas/study";
 
 export const RANKING_METRIC_INFO: Record<RankingMetric, { label: string; unit: string; better: "lower" | "higher" }> = {
   "cost-per-useful-MWh": { label: "energy cost per useful MWh (fuel + carbon)", unit: "currency/MWh useful", better: "lower" },

@@ -9,7 +9,7 @@ import { resolveFuel, type ResolvedFuel } from "../fuels/resolve";
 import { heatingValues, type HeatingValues } from "../combustion/heating-values";
 import { co2Factors, type Co2Factors } from "../combustion/co2";
 import { realDensity_kg_per_m3, volumetricFigures } from "../combustion/iso6976";
-import type { FuelEnergyContent } from "../economics/prices";
+import type { FuelEnergyContent } from "../combustion/energy-content";
 import { HEAT_BALANCE_REFERENCE_C } from "./efficiency";
 
 export interface WobbeFigures {

@@ -6,7 +6,7 @@
 import { z } from "zod";
 import { BLEND_BASES, fuelDefinitionSchema, type FuelDefinition } from "./fuel";
 import { METERING_REFERENCE_KEYS } from "./plant";
-import { ENERGY_BASES, PRICE_UNITS } from "../economics/prices";
+import { ENERGY_BASES, PRICE_UNITS } from "./price-units";
 
 export const FUEL_KINDS = ["gas", "liquid", "solid"] as const;
 export type FuelKind = (typeof FUEL_KINDS)[number];

@@ -8,7 +8,10 @@ import { z } from "zod";
 import { fuelDefinitionSchema, type FuelDefinition } from "./fuel";
 import { operatingOverridesSchema, plantSchema } from "./plant";
 import { isoDateSchema, priceQuoteInputSchema } from "./library";
-import { RANKING_METRICS } from "../economics/sensitivity";
+
+/** What a study ranks its scenarios by. */
+export const RANKING_METRICS = ["cost-per-useful-MWh", "co2-per-useful-MJ", "abatement-cost", "npv"] as const;
+export type RankingMetric = (typeof RANKING_METRICS)[number];
 
 export const STUDY_FORMAT = "stoke-study" as const;
 export const STUDY_FORMAT_VERSION = 1;
