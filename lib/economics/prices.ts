@@ -21,6 +21,7 @@ import {
   type VolumeUnit,
 } from "../units/energy";
 import type { FuelEnergyContent } from "../combustion/energy-content";
+import { meteringLabel } from "../units/metering";
 
 import { PRICE_UNITS, type EnergyBasis, type PriceUnit } from "../schemas/price-units";
 
@@ -194,7 +195,7 @@ export function priceUnitLabel(terms: Pick<PriceQuoteTerms, "unit" | "energyBasi
   let s: string = UNIT_LABELS[terms.unit] ?? terms.unit;
   if (terms.energyBasis) s += ` ${terms.energyBasis === "gross" ? "gross (HHV)" : "net (LHV)"}`;
   if (terms.meteringReferenceC !== null && terms.meteringReferenceC !== undefined) {
-    s += terms.meteringReferenceC === 15.56 ? " at 60 °F" : ` at ${terms.meteringReferenceC} °C`;
+    s += ` at ${meteringLabel(terms.meteringReferenceC)}`;
   }
   return s;
 }

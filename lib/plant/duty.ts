@@ -10,6 +10,7 @@ import { MJ_per_MWh, m3_per_L } from "../units/energy";
 import { METERING_REFERENCE_C, type Plant } from "../schemas/plant";
 import type { FuelContext } from "./fuel-context";
 import { actualFromNormal_m3, type FuelPerformance } from "./performance";
+import { meteringLabelWithPressure } from "../units/metering";
 
 const s_per_h = 3600;
 
@@ -66,7 +67,7 @@ export function fuelVolume(ctx: FuelContext, mass_kg: number, meteringReferenceC
   if (f.kind === "gas") {
     return {
       value: mass_kg / ctx.gasDensity_kg_per_m3(meteringReferenceC),
-      basis: `gas at ${meteringReferenceC === 15.56 ? "60 °F" : `${meteringReferenceC} °C`}, 101.325 kPa (real gas, ISO 6976)`,
+      basis: `gas at ${meteringLabelWithPressure(meteringReferenceC)} (real gas, ISO 6976)`,
       kind: "gas",
     };
   }

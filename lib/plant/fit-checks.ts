@@ -11,6 +11,7 @@ import type { FuelContext } from "./fuel-context";
 import type { FuelPerformance } from "./performance";
 import type { RatedFlows } from "./duty";
 import { flueAcidDewPointC, SO3_CONVERSION_DEFAULT } from "../combustion/flue-gas";
+import { meteringLabel } from "../units/metering";
 
 export const CHECK_STATUSES = ["pass", "warn", "fail", "not-checked", "not-applicable"] as const;
 export type CheckStatus = (typeof CHECK_STATUSES)[number];
@@ -80,7 +81,7 @@ function atMost(value: number, limit: number, warnAt: number): { status: CheckSt
 }
 
 const fmt = (v: number, d = 1) => (Number.isFinite(v) ? v.toFixed(d) : String(v));
-const refLabel = (c: number) => (c === 15.56 ? "60 °F" : `${c} °C`);
+const refLabel = meteringLabel;
 
 export interface FitCheckOptions {
   /** Build the message sentences (default true); sweeps that need only statuses and numbers skip them. */

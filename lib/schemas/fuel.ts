@@ -4,6 +4,7 @@
  * plus optional fuel-level attributes.
  */
 import { z } from "zod";
+import { METERING_REFERENCE_TEMPERATURES_C } from "../units/metering";
 
 /** Tolerance on "fractions sum to 1". */
 export const FRACTION_SUM_TOLERANCE = 0.001;
@@ -163,8 +164,8 @@ export type OxidizerComposition = z.infer<typeof oxidizerSchema>;
 
 /** Combustion reference temperatures (°C) for heating values, as tabulated in ISO 6976:2016. */
 export const COMBUSTION_REFERENCES_C = [0, 15, 15.55, 20, 25] as const;
-/** Metering reference temperatures (°C) at 101.325 kPa: 0 °C, 15 °C, 15.56 °C (60 °F), 20 °C. */
-export const METERING_REFERENCES_C = [0, 15, 15.56, 20] as const;
+/** Metering reference temperatures (°C) at 101.325 kPa: 0 °C, 15 °C, 15.56 °C (60 °F), 20 °C (lib/units/metering.ts). */
+export const METERING_REFERENCES_C = METERING_REFERENCE_TEMPERATURES_C;
 
 export const combustionReferenceSchema = z
   .number()
@@ -173,7 +174,7 @@ export const combustionReferenceSchema = z
   });
 export const meteringReferenceSchema = z
   .number()
-  .refine((v) => (METERING_REFERENCES_C as readonly number[]).includes(v), {
+  .refine((v) => METERING_REFERENCES_C.includes(v), {
     message: `must be one of ${METERING_REFERENCES_C.join(", ")} °C (15.56 °C = 60 °F)`,
   });
 

@@ -133,7 +133,7 @@ export const priceQuoteInputSchema = z
       .regex(/^[A-Z]{3}$/, "must be a three-letter currency code, e.g. EUR"),
     unit: z.enum(PRICE_UNITS, { error: `must be one of ${PRICE_UNITS.join(", ")}` }),
     energyBasis: z.enum(ENERGY_BASES, { error: 'must be "gross" or "net"' }).nullish(),
-    meteringReference: z.enum(METERING_REFERENCE_KEYS, { error: 'must be one of "0C", "15C", "20C", "60F"' }).nullish(),
+    meteringReference: z.enum(METERING_REFERENCE_KEYS, { error: `must be one of ${METERING_REFERENCE_KEYS.map((k) => `"${k}"`).join(", ")}` }).nullish(),
     transportAdder: finite().min(0, "must be ≥ 0").default(0),
     handlingAdder: finite().min(0, "must be ≥ 0").default(0),
     validFrom: isoDateSchema,

@@ -4,6 +4,7 @@
  * same object from a stored row and the command line from a study file.
  */
 import { z } from "zod";
+import { METERING_REFERENCE_KEYS, METERING_REFERENCES, type MeteringReferenceKey } from "../units/metering";
 
 export const EQUIPMENT_TYPES = [
   "steam-boiler",
@@ -24,11 +25,12 @@ export const EQUIPMENT_TYPE_LABELS: Record<EquipmentType, string> = {
   dryer: "dryer",
 };
 
-/** Metering references for gas volumes, all at 101.325 kPa. */
-export const METERING_REFERENCE_KEYS = ["0C", "15C", "20C", "60F"] as const;
-export type MeteringReferenceKey = (typeof METERING_REFERENCE_KEYS)[number];
-/** Metering reference temperature in °C for each key (60 °F = 15.56 °C, as ISO 6976 tabulates it). */
-export const METERING_REFERENCE_C: Record<MeteringReferenceKey, number> = { "0C": 0, "15C": 15, "20C": 20, "60F": 15.56 };
+export { METERING_REFERENCE_KEYS, type MeteringReferenceKey } from "../units/metering";
+/** Metering reference temperature in °C for each key (lib/units/metering.ts holds the records). */
+export const METERING_REFERENCE_C: Record<MeteringReferenceKey, number> = Object.fromEntries(
+  METERING_REFERENCE_KEYS.map((k) => [k, METERING_REFERENCES[k].temperatureC]),
+) as Record<MeteringReferenceKey, number>;
+const METERING_KEY_MESSAGE = `must be one of ${METERING_REFERENCE_KEYS.map((k) => `"${k}"`).join(", ")}`;
 
 /** Combustion reference temperatures accepted for an absolute Wobbe range (ISO 6976:2016 tables). */
 export const WOBBE_COMBUSTION_REFERENCES_C = [0, 15, 15.55, 20, 25] as const;
@@ -72,7 +74,7 @@ export const plantLimitsShape = {
   /** Absolute Wobbe range, MJ/m³ on the gross basis at the two references below. */
   wobbeMin_MJ_per_m3: num().positive("must be > 0").max(100, "must be ≤ 100 MJ/m³").nullish(),
   wobbeMax_MJ_per_m3: num().positive("must be > 0").max(100, "must be ≤ 100 MJ/m³").nullish(),
-  wobbeMeteringReference: z.enum(METERING_REFERENCE_KEYS, { error: 'must be one of "0C", "15C", "20C", "60F"' }).default("15C"),
+  wobbeMeteringReference: z.enum(METERING_REFERENCE_KEYS, { error: METERING_KEY_MESSAGE }).default("15C"),
   wobbeCombustionReferenceC: num()
     .refine((v) => (WOBBE_COMBUSTION_REFERENCES_C as readonly number[]).includes(v), {
       message: `must be one of ${WOBBE_COMBUSTION_REFERENCES_C.join(", ")} °C`,
@@ -88,7 +90,7 @@ export const plantLimitsShape = {
   airCapacityBasis: z.enum(FAN_CAPACITY_BASES, { error: 'must be "actual" or "normal"' }).default("actual"),
   /** Fuel supply / meter capacity: gases m³/h at the metering reference below; liquids m³/h of liquid at 15 °C. */
   fuelSupplyCapacity_m3_per_h: optionalPositive(1e8, "m³/h"),
-  fuelSupplyMeteringReference: z.enum(METERING_REFERENCE_KEYS, { error: 'must be one of "0C", "15C", "20C", "60F"' }).default("0C"),
+  fuelSupplyMeteringReference: z.enum(METERING_REFERENCE_KEYS, { error: METERING_KEY_MESSAGE }).default("0C"),
   /** Burner maker's stated maximum hydrogen share, vol % of the fuel gas. */
   maxH2SharePercent: num().min(0, "must be ≥ 0 %").max(100, "must be ≤ 100 %").nullish(),
   /** A check warns when a value uses at least this fraction of its allowance (0.9 = within 10 % of the limit). */

@@ -10,6 +10,7 @@ import { kelvinToCelsius } from "@/lib/units/constants";
 import { fmt, fmtUpTo, pct } from "../../_ui/format";
 import { DeleteButton } from "@/app/_ui/DeleteButton";
 import { PriceHistory } from "../_components/PriceHistory";
+import { meteringLabel, meteringReferenceAtC } from "@/lib/units/metering";
 
 export const dynamic = "force-dynamic";
 
@@ -273,7 +274,7 @@ export default async function FuelSheetPage({ params, searchParams }: Props) {
                 <select id="tm" name="tm" defaultValue={String(tm)}>
                   {METERING_REFERENCES_C.map((t) => (
                     <option key={t} value={t}>
-                      {t === 15.56 ? "15.56 °C (60 °F)" : `${t} °C`}
+                      {meteringReferenceAtC(t)?.key === "60F" ? `${t} °C (60 °F)` : meteringLabel(t)}
                     </option>
                   ))}
                 </select>
@@ -305,7 +306,7 @@ export default async function FuelSheetPage({ params, searchParams }: Props) {
                   )}
                   {gas && (
                     <th className="num">
-                      <span className="unit">MJ/m³ at {tm === 15.56 ? "60 °F" : `${tm} °C`}</span>
+                      <span className="unit">MJ/m³ at {meteringLabel(tm)}</span>
                     </th>
                   )}
                   {p.hhv.MJ_per_L !== undefined && (
@@ -345,7 +346,7 @@ export default async function FuelSheetPage({ params, searchParams }: Props) {
           <div className="grid2">
             <section>
               <h2>{gas ? "Interchangeability" : "Physical data"}</h2>
-              {gas && <p className="basis">Real gas at {tm === 15.56 ? "60 °F" : `${tm} °C`}, 101.325 kPa (ISO 6976:2016); Wobbe index at the combustion reference above.</p>}
+              {gas && <p className="basis">Real gas at {meteringLabel(tm)}, 101.325 kPa (ISO 6976:2016); Wobbe index at the combustion reference above.</p>}
               <KV
                 rows={[
                   ["Molar mass", p.molarMass_g_per_mol, "g/mol", 3],
@@ -360,7 +361,7 @@ export default async function FuelSheetPage({ params, searchParams }: Props) {
             </section>
             <section>
               <h2>Stoichiometry</h2>
-              <p className="basis">Complete combustion in dry air; air volumes at {tm === 15.56 ? "60 °F" : `${tm} °C`}, 101.325 kPa.</p>
+              <p className="basis">Complete combustion in dry air; air volumes at {meteringLabel(tm)}, 101.325 kPa.</p>
               <KV
                 rows={[
                   ["Air, mass per kg fuel", p.stoichiometricAir.kg_per_kg, "kg/kg", 3],

@@ -5,6 +5,7 @@ import { useState } from "react";
 import type { PriceView } from "@/lib/db/views";
 import { fmtUpTo, money } from "../../_ui/format";
 import { ErrorSummary, Field, invalid, toNumber, type Errors } from "./fields";
+import { METERING_REFERENCE_KEYS, METERING_REFERENCES } from "@/lib/units/metering";
 
 const ENERGY_UNITS = ["MWh", "GJ", "kWh", "MMBtu", "therm"];
 const UNIT_OPTIONS: { group: string; units: { value: string; label: string }[] }[] = [
@@ -34,12 +35,7 @@ const UNIT_OPTIONS: { group: string; units: { value: string; label: string }[] }
     ],
   },
 ];
-const METERING = [
-  { value: "0C", label: "0 °C" },
-  { value: "15C", label: "15 °C" },
-  { value: "20C", label: "20 °C" },
-  { value: "60F", label: "60 °F" },
-];
+const METERING = METERING_REFERENCE_KEYS.map((k) => ({ value: k, label: METERING_REFERENCES[k].label }));
 
 interface Draft {
   amount: string;

@@ -2,7 +2,7 @@
 import type { Plant } from "@/lib/schemas/plant";
 import { fmt, pct } from "@/app/_ui/format";
 import type { Display } from "@/app/studies/_components/display";
-import { METERING_REFERENCE_LABELS } from "./options";
+import { METERING_REFERENCES, meteringLabelWithPressure } from "@/lib/units/metering";
 
 const na = <span className="na">not set</span>;
 const fanBasis = (k: "actual" | "normal") => (k === "actual" ? "actual" : "normal, 0 °C");
@@ -21,7 +21,7 @@ export function PlantLimitsTable({ p, d }: { p: Plant; d: Display }) {
                 : na}
             {(p.wobbeTolerancePercent != null || p.wobbeMin_MJ_per_m3 != null) && (
               <div className="unit">
-                combustion {p.wobbeCombustionReferenceC} °C, metering {METERING_REFERENCE_LABELS[p.wobbeMeteringReference]}
+                combustion {p.wobbeCombustionReferenceC} °C, metering {meteringLabelWithPressure(METERING_REFERENCES[p.wobbeMeteringReference].temperatureC)}
               </div>
             )}
           </td>
@@ -42,7 +42,7 @@ export function PlantLimitsTable({ p, d }: { p: Plant; d: Display }) {
           <th>Fuel supply / meter</th>
           <td className="num">
             {p.fuelSupplyCapacity_m3_per_h != null
-              ? `${d.vol(p.fuelSupplyCapacity_m3_per_h, p.fuelSupplyCapacity_m3_per_h < 10 ? 2 : 0)} ${d.volUnit}/h (gas at ${METERING_REFERENCE_LABELS[p.fuelSupplyMeteringReference]}; liquid as liquid)`
+              ? `${d.vol(p.fuelSupplyCapacity_m3_per_h, p.fuelSupplyCapacity_m3_per_h < 10 ? 2 : 0)} ${d.volUnit}/h (gas at ${meteringLabelWithPressure(METERING_REFERENCES[p.fuelSupplyMeteringReference].temperatureC)}; liquid as liquid)`
               : na}
           </td>
         </tr>

@@ -2,20 +2,15 @@
 import { db } from "@/lib/db/client";
 import { EQUIPMENT_TYPES, EQUIPMENT_TYPE_LABELS, METERING_REFERENCE_KEYS, WOBBE_COMBUSTION_REFERENCES_C } from "@/lib/schemas/plant";
 import type { PlantFormOptions } from "./PlantForm";
+import { METERING_REFERENCES, meteringLabelWithPressure } from "@/lib/units/metering";
 
-export const METERING_REFERENCE_LABELS: Record<string, string> = {
-  "0C": "0 °C, 101.325 kPa",
-  "15C": "15 °C, 101.325 kPa",
-  "20C": "20 °C, 101.325 kPa",
-  "60F": "60 °F, 101.325 kPa",
-};
 
 export async function plantFormOptions(): Promise<PlantFormOptions> {
   const fuels = await db().fuel.findMany({ orderBy: [{ kind: "asc" }, { name: "asc" }], select: { id: true, name: true, kind: true } });
   return {
     fuels,
     equipmentTypes: EQUIPMENT_TYPES.map((t) => ({ value: t, label: EQUIPMENT_TYPE_LABELS[t] })),
-    meteringReferences: METERING_REFERENCE_KEYS.map((k) => ({ value: k, label: METERING_REFERENCE_LABELS[k] })),
+    meteringReferences: METERING_REFERENCE_KEYS.map((k) => ({ value: k, label: meteringLabelWithPressure(METERING_REFERENCES[k].temperatureC) })),
     wobbeCombustionReferences: [...WOBBE_COMBUSTION_REFERENCES_C],
   };
 }
