@@ -4,9 +4,9 @@
  */
 import { compare, scenarioCosts, type CostInputs, type FinanceAssumptions } from "./costs";
 
-import type { RankingMetric } from "../schemas/study";
+import { SENSITIVITY_DEFAULTS, type RankingMetric, type SensitivityRanges } from "../schemas/study";
 
-export { RANKING_METRICS, type RankingMetric } from "../schemas/study";
+export { RANKING_METRICS, type RankingMetric, type SensitivityRanges } from "../schemas/study";
 
 export const RANKING_METRIC_INFO: Record<RankingMetric, { label: string; unit: string; better: "lower" | "higher" }> = {
   "cost-per-useful-MWh": { label: "energy cost per useful MWh (fuel + carbon)", unit: "currency/MWh useful", better: "lower" },
@@ -31,18 +31,6 @@ export function metricValue(metric: RankingMetric, base: CostInputs, cand: CostI
   }
 }
 
-export interface SensitivityRanges {
-  /** ± percent on the delivered fuel prices (candidate and baseline separately). */
-  fuelPricePercent: number;
-  /** ± percent on the carbon price. */
-  carbonPricePercent: number;
-  /** ± percentage points on the net-basis efficiency (candidate and baseline separately). */
-  efficiencyPoints: number;
-  /** ± percent on the switching capex. */
-  capexPercent: number;
-}
-
-export const DEFAULT_SENSITIVITY: SensitivityRanges = { fuelPricePercent: 20, carbonPricePercent: 50, efficiencyPoints: 2, capexPercent: 30 };
 
 export type TornadoParameter =
   | "candidate-fuel-price"
@@ -79,7 +67,7 @@ export function tornado(
   base: CostInputs,
   cand: CostInputs,
   fin: FinanceAssumptions,
-  ranges: SensitivityRanges = DEFAULT_SENSITIVITY,
+  ranges: SensitivityRanges = SENSITIVITY_DEFAULTS,
 ): Tornado {
   const notes: string[] = [];
   const pct = (v: number, p: number, sign: -1 | 1) => v * (1 + (sign * p) / 100);

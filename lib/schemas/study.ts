@@ -66,14 +66,25 @@ export function checkScenarioSet(s: { baseline: ScenarioSetCore; scenarios: read
   });
 }
 
+/**
+ * Default ranges of the one-at-a-time sensitivity (tornado): ± % on fuel prices, ± % on the carbon
+ * price, ± points on efficiency, ± % on capex (common practice for screening studies, no source).
+ */
+export const SENSITIVITY_DEFAULTS = Object.freeze({ fuelPricePercent: 20, carbonPricePercent: 50, efficiencyPoints: 2, capexPercent: 30 });
+
 export const sensitivitySchema = z
   .object({
-    fuelPricePercent: num().min(0, "must be ≥ 0 %").max(200, "must be ≤ 200 %").default(20),
-    carbonPricePercent: num().min(0, "must be ≥ 0 %").max(200, "must be ≤ 200 %").default(50),
-    efficiencyPoints: num().min(0, "must be ≥ 0 points").max(20, "must be ≤ 20 points").default(2),
-    capexPercent: num().min(0, "must be ≥ 0 %").max(200, "must be ≤ 200 %").default(30),
+    /** ± percent on the delivered fuel prices (candidate and baseline separately). */
+    fuelPricePercent: num().min(0, "must be ≥ 0 %").max(200, "must be ≤ 200 %").default(SENSITIVITY_DEFAULTS.fuelPricePercent),
+    /** ± percent on the carbon price. */
+    carbonPricePercent: num().min(0, "must be ≥ 0 %").max(200, "must be ≤ 200 %").default(SENSITIVITY_DEFAULTS.carbonPricePercent),
+    /** ± percentage points on the net-basis efficiency (candidate and baseline separately). */
+    efficiencyPoints: num().min(0, "must be ≥ 0 points").max(20, "must be ≤ 20 points").default(SENSITIVITY_DEFAULTS.efficiencyPoints),
+    /** ± percent on the switching capex. */
+    capexPercent: num().min(0, "must be ≥ 0 %").max(200, "must be ≤ 200 %").default(SENSITIVITY_DEFAULTS.capexPercent),
   })
   .strict();
+export type SensitivityRanges = z.infer<typeof sensitivitySchema>;
 
 export const hydrogenSweepSchema = z
   .object({
@@ -104,7 +115,7 @@ export const studySchema = z
     rankingMetric: z.enum(RANKING_METRICS, { error: `must be one of ${RANKING_METRICS.join(", ")}` }).default("cost-per-useful-MWh"),
     /** Count upstream (well-to-tank) CO2e in CO2 avoided and price it at the carbon price. */
     includeUpstream: z.boolean({ error: "must be true or false" }).default(false),
-    sensitivity: sensitivitySchema.default({ fuelPricePercent: 20, carbonPricePercent: 50, efficiencyPoints: 2, capexPercent: 30 }),
+    sensitivity: sensitivitySchema.default({ ...SENSITIVITY_DEFAULTS }),
     hydrogenSweep: hydrogenSweepSchema.default({ enabled: true, stepPercent: 1, hydrogen: { compound: "H2", phase: "gas" } as FuelDefinition }),
     plant: plantSchema,
     baseline: scenarioSchema,

@@ -11,6 +11,7 @@ import { useRouter } from "next/navigation";
 import { useMemo, useRef, useState } from "react";
 import { ErrorSummary, Field, invalid, toNumber, type Errors } from "../../fuels/_components/fields";
 import type { StudyFormOptions } from "@/lib/db/studies";
+import { SENSITIVITY_DEFAULTS, type SensitivityRanges } from "@/lib/schemas/study";
 
 export interface StudyFormInitial {
   id?: number;
@@ -38,15 +39,14 @@ interface ScenarioInitial {
   overrides?: Record<string, unknown>;
 }
 
-const SENSITIVITY_KEYS = ["fuelPricePercent", "carbonPricePercent", "efficiencyPoints", "capexPercent"] as const;
-type SensitivityKey = (typeof SENSITIVITY_KEYS)[number];
+type SensitivityKey = keyof SensitivityRanges;
+const SENSITIVITY_KEYS = Object.keys(SENSITIVITY_DEFAULTS) as SensitivityKey[];
 const SENSITIVITY_LABELS: Record<SensitivityKey, string> = {
   fuelPricePercent: "Fuel prices ± %",
   carbonPricePercent: "Carbon price ± %",
   efficiencyPoints: "Efficiency ± points",
   capexPercent: "Capex ± %",
 };
-const SENSITIVITY_DEFAULTS: Record<SensitivityKey, number> = { fuelPricePercent: 20, carbonPricePercent: 50, efficiencyPoints: 2, capexPercent: 30 };
 
 const OVERRIDE_KEYS = ["stackTemperatureC", "flueO2DryPercent", "combustionAirC", "radiationLossPercent", "returnWaterC"] as const;
 type OverrideKey = (typeof OVERRIDE_KEYS)[number];
