@@ -230,3 +230,29 @@ export function hydrogenSweep(env: SweepEnvironment): HydrogenSweepResult {
     notes,
   };
 }
+
+/** What a sweep means for the decision: which limits bind first and the largest share that passes them all. */
+export interface SweepVerdict {
+  /** Checks that fail at some share above 0 %, by the share at which they first fail. */
+  firstFailures: SweepCrossing[];
+  /** Checks that warn at some share above 0 % (and pass at 0 %), by the share at which they first warn. */
+  firstWarnings: SweepCrossing[];
+  /** Checks that already warn or fail on the baseline gas (0 % hydrogen). */
+  failingOrWarningAtZero: SweepCrossing[];
+  /** The largest swept share below the first failure (the last point when nothing fails); null when even the first point fails. */
+  largestPassingPoint: SweepPoint | null;
+}
+
+export function sweepVerdict(points: readonly SweepPoint[], crossings: readonly SweepCrossing[]): SweepVerdict {
+  const firstFailures = crossings
+    .filter((c) => c.firstFailPercent !== null && c.statusAtZero !== "fail")
+    .sort((a, b) => (a.firstFailPercent ?? 0) - (b.firstFailPercent ?? 0));
+  const firstWarnings = crossings
+    .filter((c) => c.firstWarnPercent !== null && c.statusAtZero !== "warn" && c.statusAtZero !== "fail")
+    .sort((a, b) => (a.firstWarnPercent ?? 0) - (b.firstWarnPercent ?? 0));
+  const failingOrWarningAtZero = crossings.filter((c) => c.statusAtZero === "fail" || c.statusAtZero === "warn");
+  const firstFail = firstFailures[0]?.firstFailPercent ?? null;
+  const largestPassingPoint =
+    firstFail === null ? (points[points.length - 1] ?? null) : ([...points].reverse().find((p) => p.h2Percent < firstFail) ?? null);
+  return { firstFailures, firstWarnings, failingOrWarningAtZero, largestPassingPoint };
+}

@@ -16,6 +16,7 @@ import type { EquilibriumResult } from "../combustion/equilibrium";
 import { T298K, atmospherePa, celsiusToKelvin, kelvinToCelsius } from "../units/constants";
 import { operatingPointOf, type OperatingOverrides, type Plant } from "../schemas/plant";
 import { plantOxidizer } from "../plant/performance";
+import { InfeasibleChargeError, InputError, NotConvergedError } from "../errors";
 
 export interface PhiSweepOptions {
   fuel: FuelDefinition | ResolvedFuel;
@@ -58,8 +59,13 @@ export interface PhiSweepResult {
 
 export const PHI_SWEEP_DEFAULTS = { phiMin: 0.5, phiMax: 1.6, steps: 44 } as const;
 
-function message(e: unknown): string {
-  return e instanceof Error ? e.message : String(e);
+/**
+ * A point that cannot be computed (too rich for a gas-phase product model, or a solve that did not
+ * converge) is reported on that point; any other error is a bug and escapes.
+ */
+function pointProblem(e: unknown): string {
+  if (e instanceof InfeasibleChargeError || e instanceof NotConvergedError) return e.detail;
+  throw e;
 }
 
 /** Maximum of a unimodal function on [a, b] by golden-section search (tolerance in φ). */
@@ -92,7 +98,8 @@ export function phiSweep(opts: PhiSweepOptions): PhiSweepResult {
   const phiMin = opts.phiMin ?? PHI_SWEEP_DEFAULTS.phiMin;
   const phiMax = opts.phiMax ?? PHI_SWEEP_DEFAULTS.phiMax;
   const steps = Math.max(2, Math.round(opts.steps ?? PHI_SWEEP_DEFAULTS.steps));
-  if (!(phiMin > 0) || !(phiMax > phiMin)) throw new RangeError("phi range: need 0 < phiMin < phiMax");
+  if (!(phiMin > 0)) throw new InputError("phiMin", "must be > 0");
+  if (!(phiMax > phiMin)) throw new InputError("phiMax", "must be greater than phiMin");
   const common = {
     fuel,
     oxidizer: opts.oxidizer,
@@ -114,19 +121,19 @@ export function phiSweep(opts: PhiSweepOptions): PhiSweepResult {
       p.equilibriumH2 = r.products.H2 ?? 0;
       if (r.equilibrium) warm = r.equilibrium;
     } catch (e) {
-      p.errors.push(`equilibrium: ${message(e)}`);
+      p.errors.push(`equilibrium: ${pointProblem(e)}`);
       warm = undefined;
     }
     try {
       p.completeK = solve(phi, "complete").temperatureK;
     } catch (e) {
-      p.errors.push(`complete combustion: ${message(e)}`);
+      p.errors.push(`complete combustion: ${pointProblem(e)}`);
     }
     if (opts.meanCp !== false) {
       try {
         p.meanCpK = solve(phi, "mean-cp").temperatureK;
       } catch (e) {
-        p.errors.push(`mean-cp estimate: ${message(e)}`);
+        p.errors.push(`mean-cp estimate: ${pointProblem(e)}`);
       }
     }
     points.push(p);

@@ -9,10 +9,6 @@ export function shareText(v: number | null): string {
 }
 
 /** Checks that pass at 0 % H2 but fail somewhere along the sweep, earliest failure first. */
-export function firstFailures(crossings: readonly SweepCrossing[]): SweepCrossing[] {
-  return crossings.filter((c) => c.firstFailPercent !== null && c.statusAtZero !== "fail").sort((a, b) => a.firstFailPercent! - b.firstFailPercent!);
-}
-
 export function CrossingTable({ crossings, testId }: { crossings: readonly SweepCrossing[]; testId?: string }) {
   return (
     <div className="table-wrap">

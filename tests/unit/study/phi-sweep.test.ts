@@ -58,8 +58,9 @@ describe("phi sweep", () => {
     hot.points.forEach((p, i) => expect(p.equilibriumK!).toBeGreaterThan(cold.points[i].equilibriumK! + 100));
   });
 
-  it("rejects an impossible range", () => {
-    expect(() => phiSweep({ fuel: { composition: { CH4: 1 } }, phiMin: 1.2, phiMax: 1.0 })).toThrow(/phi range/);
+  it("rejects an impossible range with an input error naming the field", () => {
+    expect(() => phiSweep({ fuel: { composition: { CH4: 1 } }, phiMin: 1.2, phiMax: 1.0 })).toThrow(expect.objectContaining({ kind: "input", field: "phiMax" }));
+    expect(() => phiSweep({ fuel: { composition: { CH4: 1 } }, phiMin: 0, phiMax: 1.0 })).toThrow(expect.objectContaining({ kind: "input", field: "phiMin" }));
   });
 });
 

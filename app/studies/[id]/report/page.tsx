@@ -9,7 +9,8 @@ import { displayUnits } from "../../_components/units-server";
 import { makeDisplay, savingText, signed } from "../../_components/display";
 import { Cautions } from "../../_components/Cautions";
 import { Status } from "../../_components/Checks";
-import { CrossingTable, firstFailures } from "../../_components/Crossings";
+import { CrossingTable } from "../../_components/Crossings";
+import { sweepVerdict } from "@/lib/study/hydrogen-sweep";
 import { CheckMatrix, RankTable, RankTableNotes } from "../../_components/Tables";
 import { EvaluationProblem } from "../../_components/EvaluationProblem";
 import { PrintButton } from "../../_components/PrintButton";
@@ -47,7 +48,7 @@ export default async function ReportPage({ params, searchParams }: Props) {
   const h = headline(list);
   const p = result.plant;
   const sw = result.hydrogenSweep && result.hydrogenSweep.available ? result.hydrogenSweep : null;
-  const swFails = sw ? firstFailures(sw.crossings) : [];
+  const swFails = sw ? sweepVerdict(sw.points, sw.crossings).firstFailures : [];
   const today = new Date().toISOString().slice(0, 10);
 
   return (

@@ -3,7 +3,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/lib/db/client";
 import { evaluateStoredStudy } from "@/lib/db/studies";
-import type { SweepPoint, SweepCrossing } from "@/lib/study/hydrogen-sweep";
+import { sweepVerdict, type SweepPoint, type SweepCrossing } from "@/lib/study/hydrogen-sweep";
 import type { FitCheckId } from "@/lib/plant/fit-checks";
 import { fmt } from "../../../_ui/format";
 import { SweepChart, type SweepMarker } from "../../../_charts/SweepChart";
@@ -12,7 +12,7 @@ import { makeDisplay, signed, type Display } from "../../_components/display";
 import { UnitSwitch } from "../../_components/UnitSwitch";
 import { Cautions } from "../../_components/Cautions";
 import { Status } from "../../_components/Checks";
-import { CrossingTable, firstFailures, shareText } from "../../_components/Crossings";
+import { CrossingTable, shareText } from "../../_components/Crossings";
 import { EvaluationProblem } from "../../_components/EvaluationProblem";
 import { viewChoice, type SearchParams } from "../../_components/settings";
 
@@ -64,11 +64,12 @@ export default async function SweepPage({ params, searchParams }: Props) {
   const vLines = lim.maxH2SharePercent !== null ? [{ x: lim.maxH2SharePercent, label: `burner limit ${fmt(lim.maxH2SharePercent, 0)} %` }] : [];
 
   // First failure at a share above 0 % (checks already failing on the baseline gas are listed apart).
-  const fails = firstFailures(sw.crossings);
-  const warns = sw.crossings.filter((c) => c.firstWarnPercent !== null && c.statusAtZero !== "warn" && c.statusAtZero !== "fail").sort((a, b) => a.firstWarnPercent! - b.firstWarnPercent!);
-  const atZero = sw.crossings.filter((c) => c.statusAtZero === "fail" || c.statusAtZero === "warn");
+  const verdict = sweepVerdict(pts, sw.crossings);
+  const fails = verdict.firstFailures;
+  const warns = verdict.firstWarnings;
+  const atZero = verdict.failingOrWarningAtZero;
   const firstFail = fails[0] ?? null;
-  const lastOk = firstFail ? [...pts].reverse().find((p) => p.h2Percent < firstFail.firstFailPercent!) ?? null : pts[pts.length - 1];
+  const lastOk = verdict.largestPassingPoint;
   const p0 = pts[0];
 
   const series = (f: (p: SweepPoint) => number | null) => pts.map((p) => ({ x: p.h2Percent, y: f(p) }));
