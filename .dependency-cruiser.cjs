@@ -1,12 +1,12 @@
 /**
  * Stoke's layer check (npm run lint:layers). lib/ reads top-down:
- *   units, errors → schemas → thermo → fuels → combustion → flame → plant → economics → study → services
+ *   units, errors, csv → schemas → thermo → fuels → combustion → flame → plant → economics → study → services
  * with lib/db beside (database access and row mapping only) and lib/cli on top.
  * A module may import its own layer and the layers listed before it, never one after it; with
  * lib/db, lib/cli and app/ held to their own rules below, no two folders of lib/ can form a cycle.
  */
-const LAYERS = ["units", "errors", "schemas", "thermo", "fuels", "combustion", "flame", "plant", "economics", "study", "services", "cli"];
-const layerPath = (name) => (name === "errors" ? "^lib/errors\\.ts$" : `^lib/${name}/`);
+const LAYERS = ["units", "errors", "csv", "schemas", "thermo", "fuels", "combustion", "flame", "plant", "economics", "study", "services", "cli"];
+const layerPath = (name) => (name === "errors" || name === "csv" ? `^lib/${name}\\.ts$` : `^lib/${name}/`);
 
 const higherThan = (i) => LAYERS.slice(i + 1).map(layerPath).join("|");
 

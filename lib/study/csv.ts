@@ -4,22 +4,21 @@
  * (rounded to 6 significant digits), empty where a figure does not exist.
  */
 import type { StudyResult, ScenarioResult } from "./evaluate";
+import { writeCsv, type CsvCell } from "../csv";
 
 export const CSV_TABLES = ["scenarios", "checks", "sweep"] as const;
 export type CsvTable = (typeof CSV_TABLES)[number];
 
-function cell(v: unknown): string {
-  if (v === null || v === undefined) return "";
-  if (typeof v === "number") {
-    if (!Number.isFinite(v)) return "";
-    return String(Number(v.toPrecision(6)));
-  }
-  const s = String(v);
-  return /[",\n\r]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+/** Numbers to 6 significant digits; a figure that does not exist stays an empty cell. */
+function cell(v: unknown): CsvCell {
+  if (v === null || v === undefined) return null;
+  if (typeof v === "number") return Number.isFinite(v) ? Number(v.toPrecision(6)) : null;
+  if (typeof v === "boolean") return v;
+  return String(v);
 }
 
 function table(header: string[], rows: unknown[][]): string {
-  return [header.map(cell).join(","), ...rows.map((r) => r.map(cell).join(","))].join("\n") + "\n";
+  return writeCsv(header, rows.map((r) => r.map(cell)));
 }
 
 function scenarioRow(r: ScenarioResult): unknown[] {
