@@ -127,7 +127,7 @@ const formSchemas = {
  * A fuel definition: dispatches on which of composition / compound / ultimate / blend is present,
  * so that an error names the field of the form the user meant.
  */
-export const fuelDefinitionSchema: z.ZodType<FuelDefinition> = z.lazy(() =>
+export const fuelDefinitionSchema: z.ZodType<FuelDefinition, unknown> = z.lazy(() =>
   z.unknown().transform((input, ctx) => {
     if (typeof input !== "object" || input === null || Array.isArray(input)) {
       ctx.addIssue({ code: "custom", message: "a fuel must be an object with one of: composition, compound, ultimate, blend" });
@@ -151,7 +151,7 @@ export const fuelDefinitionSchema: z.ZodType<FuelDefinition> = z.lazy(() =>
     }
     return parsed.data as FuelDefinition;
   }),
-) as unknown as z.ZodType<FuelDefinition>;
+);
 
 /** Oxidiser by mole fractions (O2, N2, Ar, CO2, H2O). */
 export const oxidizerSchema = z

@@ -8,6 +8,7 @@ import { cautionsFor, DEFER } from "@/lib/fuels/cautions";
 import { kelvinToCelsius } from "@/lib/units/constants";
 import { fmt } from "@/app/_ui/format";
 import { PhiChart } from "@/app/_charts/PhiChart";
+import { isStokeError } from "@/lib/errors";
 
 export const dynamic = "force-dynamic";
 export const metadata: Metadata = { title: "Flame temperature against φ" };
@@ -25,7 +26,9 @@ export default async function FuelPhiPage({ params }: Props) {
   try {
     sweep = phiSweep({ fuel: resolveRow(row) });
   } catch (e) {
-    error = e instanceof Error ? e.message : String(e);
+    // A stored fuel that cannot be swept is shown as a problem; anything else is a bug.
+    if (!isStokeError(e)) throw e;
+    error = e.message;
   }
   const eq = sweep?.peak.equilibrium ?? null;
   const co = sweep?.peak.complete ?? null;

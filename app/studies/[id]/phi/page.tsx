@@ -14,6 +14,7 @@ import { UnitSwitch } from "../../_components/UnitSwitch";
 import { Cautions } from "../../_components/Cautions";
 import { EvaluationProblem } from "../../_components/EvaluationProblem";
 import { intParam, viewChoice, viewQuery, type SearchParams } from "../../_components/settings";
+import { isStokeError } from "@/lib/errors";
 
 export const dynamic = "force-dynamic";
 export const metadata: Metadata = { title: "Flame temperature against φ" };
@@ -21,9 +22,11 @@ export const metadata: Metadata = { title: "Flame temperature against φ" };
 type Props = { params: Promise<{ id: string }>; searchParams: Promise<SearchParams> };
 
 // Sweeps are pure functions of fuel and conditions: keep the recent ones.
-const memo = globalThis as unknown as { __stokePhiSweeps?: Map<string, PlantPhiSweep> };
+declare global {
+  var __stokePhiSweeps: Map<string, PlantPhiSweep> | undefined;
+}
 function cached(key: string, compute: () => PlantPhiSweep): PlantPhiSweep {
-  const m = (memo.__stokePhiSweeps ??= new Map());
+  const m = (globalThis.__stokePhiSweeps ??= new Map());
   const hit = m.get(key);
   if (hit) return hit;
   const v = compute();
@@ -52,7 +55,9 @@ export default async function PhiPage({ params, searchParams }: Props) {
   try {
     sweep = cached(JSON.stringify([sc.fuel, study.plant, sc.overrides]), () => phiSweepInPlant(sc.fuel, study.plant, sc.overrides));
   } catch (e) {
-    error = e instanceof Error ? e.message : String(e);
+    // A fuel that cannot be swept in these conditions is shown as a problem; anything else is a bug.
+    if (!isStokeError(e)) throw e;
+    error = e.message;
   }
   const toC = (K: number | null) => (K === null ? null : d.tempValue(kelvinToCelsius(K)));
   const cautions = cautionsFor(sc.fuel).filter((c) => c.hazard !== "burner-change");
