@@ -3,6 +3,7 @@
 /** Charts of the comparison page: cost per useful energy (stacked), CO2 per useful MJ, cost against CO2. */
 import { Bar, BarChart, CartesianGrid, Cell, Legend, ReferenceLine, Scatter, ScatterChart, Tooltip, XAxis, YAxis, ZAxis, LabelList } from "recharts";
 import { CHART_COLOURS, axisTick, shortNumber, useChartAnimation } from "./animation";
+import { niceAxisFor } from "./ticks";
 
 export type ScenarioStatus = "feasible" | "feasible-with-warnings" | "infeasible";
 
@@ -41,11 +42,12 @@ export function CostStackChart({ rows, unit, includeUpstream, isStatic }: { rows
   // A hair-thin end segment carries the total's label, whatever the last non-zero segment is.
   const data = rowsWithCost.map((r) => ({ ...r, label: label(r), end: maxTotal * 1e-3 }));
   if (!data.length) return <p className="muted">No scenario has a price: nothing to chart.</p>;
+  const xAxis = niceAxisFor(rowsWithCost.map((r) => r.total), [0, maxTotal * 1.002]);
   return (
     <figure className="chart" aria-label={`Cost per useful energy, ${unit}`}>
       <BarChart layout="vertical" data={data} responsive style={{ width: "100%", height: height(data.length) }} margin={{ top: 4, right: 56, bottom: 18, left: 8 }}>
         <CartesianGrid stroke={CHART_COLOURS.grid} horizontal={false} />
-        <XAxis type="number" tick={axisTick} tickFormatter={shortNumber} label={{ value: unit, position: "insideBottomRight", offset: -10, fontSize: 12 }} />
+        <XAxis type="number" domain={xAxis.domain} ticks={xAxis.ticks} tick={axisTick} tickFormatter={xAxis.format} label={{ value: unit, position: "insideBottomRight", offset: -10, fontSize: 12 }} />
         <YAxis type="category" dataKey="label" width={170} tick={axisTick} interval={0} />
         <Tooltip formatter={tooltipNumber} isAnimationActive={false} />
         <Legend verticalAlign="top" height={26} wrapperStyle={{ fontSize: 12 }} itemSorter={null} />
@@ -72,11 +74,12 @@ export function Co2Chart({ rows, includeUpstream, isStatic }: { rows: Co2Row[]; 
   const animate = useChartAnimation(isStatic);
   const maxRanked = Math.max(...rows.map((r) => r.fossil + (includeUpstream ? r.upstream : 0)), 1);
   const data = rows.map((r) => ({ ...r, label: label(r), ranked: r.fossil + (includeUpstream ? r.upstream : 0), end: maxRanked * 1e-3 }));
+  const xAxis = niceAxisFor([...data.map((r) => r.ranked), ...rows.map((r) => r.biogenic)], [0, maxRanked * 1.002]);
   return (
     <figure className="chart" aria-label="CO2 per useful MJ">
       <BarChart layout="vertical" data={data} responsive style={{ width: "100%", height: height(data.length) }} margin={{ top: 4, right: 56, bottom: 18, left: 8 }}>
         <CartesianGrid stroke={CHART_COLOURS.grid} horizontal={false} />
-        <XAxis type="number" tick={axisTick} tickFormatter={shortNumber} label={{ value: "g CO2 per MJ useful", position: "insideBottomRight", offset: -10, fontSize: 12 }} />
+        <XAxis type="number" domain={xAxis.domain} ticks={xAxis.ticks} tick={axisTick} tickFormatter={xAxis.format} label={{ value: "g CO2 per MJ useful", position: "insideBottomRight", offset: -10, fontSize: 12 }} />
         <YAxis type="category" dataKey="label" width={170} tick={axisTick} interval={0} />
         <Tooltip formatter={tooltipNumber} isAnimationActive={false} />
         <Legend verticalAlign="top" height={26} wrapperStyle={{ fontSize: 12 }} itemSorter={null} />
@@ -123,12 +126,14 @@ export function CostCo2Scatter({ points, costUnit, isStatic }: { points: Scatter
   const animate = useChartAnimation(isStatic);
   if (!points.length) return <p className="muted">No scenario has a price: nothing to chart.</p>;
   const base = points.find((p) => p.isBaseline);
+  const xAxis = niceAxisFor(points.map((p) => p.co2), [0]);
+  const yAxis = niceAxisFor(points.map((p) => p.cost));
   return (
     <figure className="chart" aria-label="Cost against CO2">
       <ScatterChart responsive style={{ width: "100%", height: 320 }} margin={{ top: 24, right: 110, bottom: 28, left: 18 }}>
         <CartesianGrid stroke={CHART_COLOURS.grid} />
-        <XAxis type="number" dataKey="co2" name="CO2" tick={axisTick} tickFormatter={shortNumber} domain={[0, "auto"]} label={{ value: "g fossil CO2 per MJ useful", position: "insideBottom", offset: -16, fontSize: 12 }} />
-        <YAxis type="number" dataKey="cost" name="cost" tick={axisTick} tickFormatter={shortNumber} domain={["auto", "auto"]} width={52} label={{ value: costUnit, angle: -90, position: "left", fontSize: 12, offset: 6, style: { textAnchor: "middle" } }} />
+        <XAxis type="number" dataKey="co2" name="CO2" tick={axisTick} domain={xAxis.domain} ticks={xAxis.ticks} tickFormatter={xAxis.format} label={{ value: "g fossil CO2 per MJ useful", position: "insideBottom", offset: -16, fontSize: 12 }} />
+        <YAxis type="number" dataKey="cost" name="cost" tick={axisTick} domain={yAxis.domain} ticks={yAxis.ticks} tickFormatter={yAxis.format} width={52} label={{ value: costUnit, angle: -90, position: "left", fontSize: 12, offset: 6, style: { textAnchor: "middle" } }} />
         <ZAxis range={[80, 80]} />
         {base && <ReferenceLine y={base.cost} stroke="#8a8f94" strokeDasharray="4 4" />}
         {base && <ReferenceLine x={base.co2} stroke="#8a8f94" strokeDasharray="4 4" />}

@@ -2,7 +2,8 @@
 
 /** One panel of the hydrogen-share sweep: a quantity against H2 vol %, the plant's limits and the first crossings. */
 import { CartesianGrid, Line, LineChart, ReferenceArea, ReferenceDot, ReferenceLine, Tooltip, XAxis, YAxis } from "recharts";
-import { CHART_COLOURS, axisTick, shortNumber, useChartAnimation } from "./animation";
+import { CHART_COLOURS, axisTick, useChartAnimation } from "./animation";
+import { niceAxisFor } from "./ticks";
 
 export interface SweepMarker {
   x: number;
@@ -30,6 +31,11 @@ export interface SweepChartProps {
 export function SweepChart({ title, yUnit, data, limits = [], band, markers = [], vLines = [], decimals = 1, isStatic }: SweepChartProps) {
   const animate = useChartAnimation(isStatic);
   const fmt = (v: unknown) => (typeof v === "number" ? v.toFixed(decimals) : String(v ?? ""));
+  const yAxis = niceAxisFor(
+    data.map((d) => d.y),
+    [...limits.map((l) => l.y), ...(band ? [band.min, band.max] : [])],
+  );
+  const shownMarkers = markers.filter((m) => m.y !== null);
   return (
     <figure className="chart sweep-chart" aria-label={`${title} against hydrogen share`}>
       <figcaption className="chart-title">
@@ -38,7 +44,7 @@ export function SweepChart({ title, yUnit, data, limits = [], band, markers = []
       <LineChart data={data} responsive style={{ width: "100%", height: 250 }} margin={{ top: 22, right: 16, bottom: 22, left: 4 }}>
         <CartesianGrid stroke={CHART_COLOURS.grid} />
         <XAxis type="number" dataKey="x" domain={[0, 100]} ticks={[0, 20, 40, 60, 80, 100]} tick={axisTick} label={{ value: "H2 vol %", position: "insideBottom", offset: -12, fontSize: 12 }} />
-        <YAxis type="number" domain={["auto", "auto"]} tick={axisTick} tickFormatter={shortNumber} width={58} />
+        <YAxis type="number" domain={yAxis.domain} ticks={yAxis.ticks} tick={axisTick} tickFormatter={yAxis.format} width={58} allowDataOverflow={false} />
         {band && <ReferenceArea y1={band.min} y2={band.max} ifOverflow="extendDomain" fill={CHART_COLOURS.pass} fillOpacity={0.08} stroke="none" label={{ value: band.label, position: "insideTopRight", fontSize: 11, fill: CHART_COLOURS.pass }} />}
         {band && <ReferenceLine y={band.min} ifOverflow="extendDomain" stroke={CHART_COLOURS.limit} strokeDasharray="6 3" />}
         {band && <ReferenceLine y={band.max} ifOverflow="extendDomain" stroke={CHART_COLOURS.limit} strokeDasharray="6 3" />}
@@ -50,21 +56,28 @@ export function SweepChart({ title, yUnit, data, limits = [], band, markers = []
         ))}
         <Tooltip formatter={fmt} labelFormatter={(x) => `${x} vol % H2`} isAnimationActive={false} />
         <Line type="monotone" dataKey="y" name={title} stroke={CHART_COLOURS.line} strokeWidth={2} dot={false} isAnimationActive={animate} connectNulls={false} />
-        {markers.map((m) =>
-          m.y === null ? null : (
-            <ReferenceDot
-              key={`${m.kind}-${m.x}-${m.label}`}
-              x={m.x}
-              y={m.y}
-              r={5.5}
-              fill={m.kind === "fail" ? CHART_COLOURS.fail : CHART_COLOURS.warn}
-              stroke="#fff"
-              className={`sweep-marker sweep-marker-${m.kind}`}
-              label={{ value: `${m.kind === "fail" ? "fails" : "warns"} at ${m.x} %`, position: m.kind === "fail" ? "right" : "left", fontSize: 11, fill: m.kind === "fail" ? CHART_COLOURS.fail : CHART_COLOURS.warn }}
-            />
-          ),
-        )}
+        {shownMarkers.map((m) => (
+          <ReferenceDot
+            key={`${m.kind}-${m.x}-${m.label}`}
+            x={m.x}
+            y={m.y as number}
+            r={5.5}
+            fill={m.kind === "fail" ? CHART_COLOURS.fail : CHART_COLOURS.warn}
+            stroke="#fff"
+            className={`sweep-marker sweep-marker-${m.kind}`}
+          />
+        ))}
       </LineChart>
+      {shownMarkers.length > 0 && (
+        <ul className="sweep-marker-list">
+          {shownMarkers.map((m) => (
+            <li key={`${m.kind}-${m.x}-${m.label}`} className={`sweep-marker-note-${m.kind}`}>
+              <span className="dot" aria-hidden="true" style={{ background: m.kind === "fail" ? CHART_COLOURS.fail : CHART_COLOURS.warn }} />
+              {m.label} {m.kind === "fail" ? "fails" : "warns"} from {m.x} vol % H2
+            </li>
+          ))}
+        </ul>
+      )}
     </figure>
   );
 }

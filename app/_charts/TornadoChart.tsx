@@ -3,6 +3,7 @@
 /** Tornado chart: how far the ranking metric moves when one input goes to its low and high value. */
 import { Bar, BarChart, CartesianGrid, Cell, ReferenceLine, Tooltip, XAxis, YAxis } from "recharts";
 import { CHART_COLOURS, axisTick, shortNumber, useChartAnimation } from "./animation";
+import { niceAxisFor } from "./ticks";
 
 export interface TornadoBar {
   label: string;
@@ -32,6 +33,9 @@ function segments(r: TornadoBar, base: number) {
 export function TornadoChart({ rows, base, unit, isStatic }: { rows: TornadoBar[]; base: number; unit: string; isStatic?: boolean }) {
   const animate = useChartAnimation(isStatic);
   const data = rows.map((r) => ({ label: r.label, atLow: r.atLow, atHigh: r.atHigh, ...segments(r, base) }));
+  // Ticks in metric values around the base; the bars are drawn as offsets from it.
+  const valueAxis = niceAxisFor(rows.flatMap((r) => [r.atLow, r.atHigh]), [base]);
+  const offsetTicks = valueAxis.ticks.map((t) => t - base);
   const tip = (_v: unknown, _n: unknown, item: { payload?: (typeof data)[number] }) => {
     const p = item?.payload;
     if (!p) return "";
@@ -42,7 +46,7 @@ export function TornadoChart({ rows, base, unit, isStatic }: { rows: TornadoBar[
     <figure className="chart" aria-label="Tornado chart">
       <BarChart layout="vertical" data={data} stackOffset="sign" responsive style={{ width: "100%", height: Math.max(180, 44 * data.length + 60) }} margin={{ top: 18, right: 30, bottom: 22, left: 8 }}>
         <CartesianGrid stroke={CHART_COLOURS.grid} horizontal={false} />
-        <XAxis type="number" tick={axisTick} tickFormatter={(v: number) => shortNumber(v + base)} label={{ value: unit, position: "insideBottom", offset: -14, fontSize: 12 }} />
+        <XAxis type="number" domain={[offsetTicks[0], offsetTicks[offsetTicks.length - 1]]} ticks={offsetTicks} tick={axisTick} tickFormatter={(v: number) => valueAxis.format(v + base)} label={{ value: unit, position: "insideBottom", offset: -14, fontSize: 12 }} />
         <YAxis type="category" dataKey="label" width={190} tick={axisTick} interval={0} />
         <ReferenceLine x={0} stroke="#1f2428" label={{ value: `base ${shortNumber(base)}`, position: "top", fontSize: 11 }} />
         <Tooltip formatter={tip as never} isAnimationActive={false} />

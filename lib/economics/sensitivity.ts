@@ -57,7 +57,10 @@ export interface TornadoRow {
 export interface Tornado {
   metric: RankingMetric;
   baseValue: number | null;
+  /** Inputs that move the metric, largest swing first. */
   rows: TornadoRow[];
+  /** Inputs that cannot move this metric (no swing at either end); listed, not drawn. */
+  noEffect: { parameter: TornadoParameter; label: string }[];
   notes: string[];
 }
 
@@ -74,7 +77,6 @@ export function tornado(
   const effClamp = (e: number) => Math.min(1.2, Math.max(0.05, e));
   type Variation = { parameter: TornadoParameter; label: string; unit: string; value: number; apply: (v: number) => [CostInputs, CostInputs]; lo: number; hi: number };
   const carbon = base.carbonPrice_per_t;
-  if (carbon === 0) notes.push("the carbon price is zero, so the carbon-price row has no swing");
   const variations: Variation[] = [
     {
       parameter: "candidate-fuel-price",
@@ -146,6 +148,17 @@ export function tornado(
       swing: low === null || high === null ? 0 : Math.abs(high - low),
     };
   });
-  rows.sort((a, b) => b.swing - a.swing);
-  return { metric, baseValue: metricValue(metric, base, cand, fin), rows, notes };
+  const baseValue = metricValue(metric, base, cand, fin);
+  // An input moves the metric when either end differs from the base value by more than rounding.
+  const tolerance = 1e-9 * Math.max(1, Math.abs(baseValue ?? 0));
+  const moves = (r: TornadoRow) =>
+    baseValue === null ||
+    r.metricAtLow === null ||
+    r.metricAtHigh === null ||
+    Math.abs(r.metricAtLow - baseValue) > tolerance ||
+    Math.abs(r.metricAtHigh - baseValue) > tolerance;
+  const moving = rows.filter(moves).sort((a, b) => b.swing - a.swing);
+  const noEffect = rows.filter((r) => !moves(r)).map((r) => ({ parameter: r.parameter, label: r.label }));
+  if (noEffect.length) notes.push(`cannot move this metric, so not drawn: ${noEffect.map((r) => r.label).join(", ")}`);
+  return { metric, baseValue, rows: moving, noEffect, notes };
 }

@@ -122,8 +122,10 @@ describe("tornado", () => {
     expect(t.rows[0].parameter).toBe("candidate-fuel-price");
     expect(t.rows[0].swing).toBeCloseTo((2 * 0.2 * 45) / 0.9, 8);
     for (let i = 1; i < t.rows.length; i++) expect(t.rows[i - 1].swing).toBeGreaterThanOrEqual(t.rows[i].swing);
-    const baseline = t.rows.find((r) => r.parameter === "baseline-fuel-price")!;
-    expect(baseline.swing).toBe(0); // candidate cost does not depend on the baseline's price
+    // The candidate's cost does not depend on the baseline's price, capex or the baseline's efficiency,
+    // and biomethane's CO2 is biogenic, so the carbon price cannot move it either: listed, not drawn.
+    expect(t.rows.map((r) => r.parameter)).not.toContain("baseline-fuel-price");
+    expect(t.noEffect.map((r) => r.parameter).sort()).toEqual(["baseline-efficiency", "baseline-fuel-price", "capex", "carbon-price"]);
     expect(t.baseValue).toBeCloseTo(metricValue("cost-per-useful-MWh", gas, cand, fin)!, 12);
   });
   it("NPV tornado responds to carbon price and capex", () => {

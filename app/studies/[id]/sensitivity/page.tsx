@@ -14,6 +14,7 @@ import { EvaluationProblem } from "../../_components/EvaluationProblem";
 import { metricText } from "../../_components/results";
 import { intParam, METRIC_SHORT, numParam, RANKING_METRICS, viewChoice, viewQuery, type SearchParams } from "../../_components/settings";
 import type { RankingMetric } from "@/lib/economics/sensitivity";
+import { SENSITIVITY_DEFAULTS } from "@/lib/schemas/study";
 
 export const dynamic = "force-dynamic";
 export const metadata: Metadata = { title: "Sensitivity and break-even" };
@@ -21,10 +22,10 @@ export const metadata: Metadata = { title: "Sensitivity and break-even" };
 type Props = { params: Promise<{ id: string }>; searchParams: Promise<SearchParams> };
 
 const RANGE_KEYS = [
-  { q: "fp", key: "fuelPricePercent", label: "Fuel prices ± %", def: 20 },
-  { q: "cp", key: "carbonPricePercent", label: "Carbon price ± %", def: 50 },
-  { q: "ep", key: "efficiencyPoints", label: "Efficiency ± points", def: 2 },
-  { q: "xp", key: "capexPercent", label: "Capex ± %", def: 30 },
+  { q: "fp", key: "fuelPricePercent" as const, label: "Fuel prices ± %" },
+  { q: "cp", key: "carbonPricePercent" as const, label: "Carbon price ± %" },
+  { q: "ep", key: "efficiencyPoints" as const, label: "Efficiency ± points" },
+  { q: "xp", key: "capexPercent" as const, label: "Capex ± %" },
 ] as const;
 
 /** A metric value in display units (cost per energy follows the energy switch). */
@@ -129,7 +130,7 @@ export default async function SensitivityPage({ params, searchParams }: Props) {
         {RANGE_KEYS.map((r) => (
           <div className="field" key={r.q} style={{ flex: "0 1 150px" }}>
             <label htmlFor={`r-${r.q}`}>{r.label}</label>
-            <input id={`r-${r.q}`} name={r.q} className="num" inputMode="decimal" defaultValue={String(ranges[r.key] ?? result.study.sensitivity[r.key as keyof typeof result.study.sensitivity] ?? r.def)} />
+            <input id={`r-${r.q}`} name={r.q} className="num" inputMode="decimal" defaultValue={String(ranges[r.key] ?? result.study.sensitivity[r.key] ?? SENSITIVITY_DEFAULTS[r.key])} />
           </div>
         ))}
         <button type="submit" className="secondary">
