@@ -2,6 +2,7 @@
 
 /** Form pieces shared by the fuel and price forms: labelled fields with their error message. */
 import type { ReactNode } from "react";
+import { decimalSeparatorOf, parseNumberEntry, type DecimalSeparator } from "@/lib/units/number-entry";
 
 export type Errors = Record<string, string>;
 
@@ -45,12 +46,20 @@ export function invalid(errors: Errors, name: string) {
   return errors[name] ? { "aria-invalid": true as const, "aria-describedby": `err-${name}` } : {};
 }
 
-/** Text from an input → number for the API; unparseable text is sent as is, so the server names the field. */
+/** The decimal separator of this browser's locale (CLDR data through Intl). */
+function browserDecimalSeparator(): DecimalSeparator {
+  return decimalSeparatorOf(typeof navigator === "undefined" ? undefined : navigator.language);
+}
+
+/**
+ * Text from an input → number for the API, read with the browser locale's separators ("0,92",
+ * "8,500", "5 000"); unparseable text is sent as is, so the server names the field.
+ */
 export function toNumber(text: string): number | string | null {
-  const t = text.trim().replace(/\u2212/g, "-");
+  const t = text.trim();
   if (t === "") return null;
-  const n = Number(t);
-  return Number.isFinite(n) ? n : t;
+  const r = parseNumberEntry(t, browserDecimalSeparator());
+  return r.ok ? r.value : t;
 }
 
 /** Messages whose field has no place in the form (shown in the summary). */

@@ -6,6 +6,7 @@ import { saveAndOpen } from "@/app/_ui/save";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { ErrorSummary, Field, FieldError, invalid, toNumber, type Errors } from "../../fuels/_components/fields";
+import { CAPACITY_UNITS_KW, capacityToKW, type CapacityUnit } from "@/lib/units/number-entry";
 
 export interface PlantFormOptions {
   fuels: { id: number; name: string; kind: string }[];
@@ -101,6 +102,7 @@ export function PlantForm({ options, initial }: { options: PlantFormOptions; ini
   const [errors, setErrors] = useState<Errors>({});
   const [message, setMessage] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
+  const [capacityUnit, setCapacityUnit] = useState<CapacityUnit>("kW");
 
   const setNum = (k: NumField) => (e: React.ChangeEvent<HTMLInputElement>) => setNums((s) => ({ ...s, [k]: e.target.value }));
   const setTxt = (k: keyof typeof text) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement | HTMLTextAreaElement>) => setText((s) => ({ ...s, [k]: e.target.value }));
@@ -125,13 +127,19 @@ export function PlantForm({ options, initial }: { options: PlantFormOptions; ini
   const placed = (key: string) =>
     [...NUMBER_FIELDS, ...Object.keys(text), "condensing", "ambientAir"].includes(key) || key.startsWith("ambientAir.");
 
+  /** The rated input in kW, converted from the unit the user chose; unparseable text goes to the server as is. */
+  function ratedInputKW(): number | string | null {
+    const v = toNumber(nums.ratedInput_kW);
+    return typeof v === "number" ? capacityToKW(v, capacityUnit) : v;
+  }
+
   function body(): Record<string, unknown> {
     const n = (k: NumField) => toNumber(nums[k]);
     const b: Record<string, unknown> = {
       name: text.name,
       site: text.site,
       equipmentType: text.equipmentType,
-      ratedInput_kW: n("ratedInput_kW"),
+      ratedInput_kW: ratedInputKW(),
       ratedInputBasis: text.ratedInputBasis,
       annualUsefulHeat_MWh: dutyMode === "annual" ? n("annualUsefulHeat_MWh") : null,
       operatingHours: n("operatingHours"),
@@ -214,7 +222,18 @@ export function PlantForm({ options, initial }: { options: PlantFormOptions; ini
       <fieldset>
         <legend>Duty</legend>
         <div className="row">
-          {numInput("ratedInput_kW", "Rated heat input, kW")}
+          <Field label="Rated heat input" name="ratedInput_kW" errors={errors} hint={capacityUnit === "kW" ? undefined : "stored in kW"}>
+            <span className="input-with-unit">
+              <input id="f-ratedInput_kW" name="ratedInput_kW" inputMode="decimal" type="text" className="num" value={nums.ratedInput_kW} onChange={setNum("ratedInput_kW")} {...invalid(errors, "ratedInput_kW")} />
+              <select aria-label="Unit of the rated heat input" value={capacityUnit} onChange={(e) => setCapacityUnit(e.target.value as CapacityUnit)}>
+                {(Object.keys(CAPACITY_UNITS_KW) as CapacityUnit[]).map((u) => (
+                  <option key={u} value={u}>
+                    {u}
+                  </option>
+                ))}
+              </select>
+            </span>
+          </Field>
           {select("ratedInputBasis", "Basis of the rated input", [
             { value: "net", label: "net (LHV)" },
             { value: "gross", label: "gross (HHV)" },
