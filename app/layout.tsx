@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import "./globals.css";
+import "./studies/decision.css";
 import { NavLink } from "./_ui/NavLink";
 
 export const metadata: Metadata = {

@@ -1,4 +1,3 @@
-import "../studies/decision.css";
 
 export default function PlantsLayout({ children }: { children: React.ReactNode }) {
   return children;

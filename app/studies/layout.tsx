@@ -1,4 +1,3 @@
-import "./decision.css";
 
 export default function StudiesLayout({ children }: { children: React.ReactNode }) {
   return children;

@@ -5,6 +5,7 @@ import { saveAndOpen } from "@/app/_ui/save";
 import { useRouter } from "next/navigation";
 import { useMemo, useState } from "react";
 import { ErrorSummary, Field, FieldError, invalid, toNumber, type Errors } from "./fields";
+import { COMPOSITION_SCALES, NORMALISE_TOLERANCE_PERCENT, checkSum, normaliseComposition, scaleFactor, type CompositionScale } from "@/lib/schemas/composition-entry";
 
 export interface FuelFormOptions {
   species: { key: string; name: string }[];
@@ -60,11 +61,47 @@ function sumOf(values: string[]): number | null {
   let s = 0;
   for (const v of values) {
     if (v.trim() === "") continue;
-    const n = Number(v);
-    if (!Number.isFinite(n)) return null;
+    const n = toNumber(v);
+    if (typeof n !== "number") return null;
     s += n;
   }
   return s;
+}
+
+/** The total of a composition on its scale, with the offer to normalise or to switch scale. */
+function CompositionSum({
+  values,
+  scale,
+  onNormalise,
+  onSwitchScale,
+}: {
+  values: string[];
+  scale: CompositionScale;
+  onNormalise: () => void;
+  onSwitchScale: (s: CompositionScale) => void;
+}) {
+  const s = sumOf(values);
+  const unit = scale === "percent" ? "mol %" : "mole fractions";
+  if (values.every((v) => v.trim() === "")) return <span className="sum muted">Sum of {unit}: –</span>;
+  if (s === null) return <span className="sum off">Sum: not all entries are numbers</span>;
+  const nums = values.map((v) => toNumber(v)).filter((v): v is number => typeof v === "number");
+  const c = checkSum(nums, scale);
+  const target = scale === "percent" ? "100" : "1";
+  return (
+    <span className={`sum${c.exact ? "" : " off"}`} aria-live="polite">
+      Sum of {unit}: {scale === "percent" ? s.toFixed(3) : s.toFixed(4)} {c.exact ? "✓" : `— must be ${target}`}
+      {c.normalisable && (
+        <button type="button" className="secondary small" onClick={onNormalise}>
+          Normalise to {target} (residual {(100 - c.totalPercent).toFixed(3)} mol %)
+        </button>
+      )}
+      {c.looksLike && !c.exact && (
+        <button type="button" className="secondary small" onClick={() => onSwitchScale(c.looksLike as CompositionScale)}>
+          These look like {c.looksLike === "percent" ? "mol %" : "fractions"}: read them so
+        </button>
+      )}
+    </span>
+  );
 }
 
 function Sum({ values, what }: { values: string[]; what: string }) {
@@ -127,6 +164,7 @@ export function FuelForm({ options, initial }: { options: FuelFormOptions; initi
   const [biogenic, setBiogenic] = useState(initial ? String(initial.biogenicCarbonShare) : "0");
   const [upstream, setUpstream] = useState(str(initial?.upstreamCo2e_kg_per_GJ));
   const [notes, setNotes] = useState(initial?.notes ?? "");
+  const [scale, setScale] = useState<CompositionScale>("fraction");
   const [source, setSource] = useState(initial?.source ?? "");
   const [errors, setErrors] = useState<Errors>({});
   const [message, setMessage] = useState<string | null>(null);
@@ -171,7 +209,8 @@ export function FuelForm({ options, initial }: { options: FuelFormOptions; initi
           return;
         }
         if (r.key in comp) local[`definition.composition.${r.key}`] = "listed twice; give each component once";
-        comp[r.key] = toNumber(r.value);
+        const v = toNumber(r.value);
+        comp[r.key] = typeof v === "number" ? v / scaleFactor(scale) : v;
       });
       if (Object.keys(local).length) return { local };
       body.definition = { composition: comp };
@@ -207,6 +246,19 @@ export function FuelForm({ options, initial }: { options: FuelFormOptions; initi
   }
 
   const compSumValues = rows.map((r) => r.value);
+
+  /** Rescales the composition rows to sum to 1 (100 %) and records the residual in the notes. */
+  function normaliseRows() {
+    const entry: Record<string, number> = {};
+    rows.forEach((r, i) => {
+      const v = toNumber(r.value);
+      if (typeof v === "number") entry[String(i)] = v;
+    });
+    const n = normaliseComposition(entry, scale, new Date().toISOString().slice(0, 10));
+    if (!n) return;
+    setRows(rows.map((r, i) => (String(i) in n.values ? { ...r, value: String(Number(n.values[String(i)].toPrecision(8))) } : r)));
+    setNotes((old) => (old.trim() ? `${old.trim()}\n${n.note}` : n.note));
+  }
   const ultSumValues = ULTIMATE_KEYS.map((k) => ultimate[k]);
 
   return (
@@ -246,14 +298,24 @@ export function FuelForm({ options, initial }: { options: FuelFormOptions; initi
       {form === "composition" && (
         <fieldset>
           <legend>Composition</legend>
-          <p className="hint muted" style={{ marginTop: 0 }}>
-            Mole (= volume, ideal gas) fractions; they must sum to 1 within 0.001.
-          </p>
+          <div className="row" style={{ alignItems: "center", marginTop: 0 }}>
+            <p className="hint muted" style={{ margin: 0 }}>
+              Mole (= volume, ideal gas) shares, as fractions summing to 1 or in mol % summing to 100 (within 0.1 %); a certificate a little off
+              (up to ±{NORMALISE_TOLERANCE_PERCENT} mol %) can be normalised, and the residual is recorded in the notes.
+            </p>
+            <span className="segmented" role="group" aria-label="Composition entered as">
+              {COMPOSITION_SCALES.map((sc) => (
+                <button key={sc} type="button" aria-pressed={scale === sc} className={`seg${scale === sc ? " on" : ""}`} onClick={() => setScale(sc)}>
+                  {sc === "percent" ? "mol %" : "fraction"}
+                </button>
+              ))}
+            </span>
+          </div>
           <table className="entry">
             <thead>
               <tr>
                 <th style={{ width: "60%" }}>Component</th>
-                <th>Mole fraction</th>
+                <th>{scale === "percent" ? "mol %" : "Mole fraction"}</th>
                 <th></th>
               </tr>
             </thead>
@@ -280,7 +342,7 @@ export function FuelForm({ options, initial }: { options: FuelFormOptions; initi
                     </td>
                     <td>
                       <input
-                        aria-label={`Mole fraction ${i + 1}`}
+                        aria-label={`${scale === "percent" ? "Mol %" : "Mole fraction"} ${i + 1}`}
                         name={`fraction-${i}`}
                         inputMode="decimal"
                         className="num"
@@ -303,7 +365,7 @@ export function FuelForm({ options, initial }: { options: FuelFormOptions; initi
             <button type="button" className="secondary small" onClick={() => setRows([...rows, { key: "", value: "" }])}>
               Add component
             </button>
-            <Sum values={compSumValues} what="mole fractions" />
+            <CompositionSum values={compSumValues} scale={scale} onNormalise={normaliseRows} onSwitchScale={setScale} />
           </div>
           <FieldError errors={errors} name="definition.composition" />
         </fieldset>
