@@ -1,4 +1,0 @@
-
-export default function PlantsLayout({ children }: { children: React.ReactNode }) {
-  return children;
-}

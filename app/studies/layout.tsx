@@ -1,4 +1,0 @@
-
-export default function StudiesLayout({ children }: { children: React.ReactNode }) {
-  return children;
-}
