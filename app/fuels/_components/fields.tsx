@@ -2,6 +2,7 @@
 
 /** Form pieces shared by the fuel and price forms: labelled fields with their error message. */
 import type { ReactNode } from "react";
+import { capitalised, labelOfPath } from "@/lib/schemas/labels";
 import { decimalSeparatorOf, parseNumberEntry, type DecimalSeparator } from "@/lib/units/number-entry";
 
 export type Errors = Record<string, string>;
@@ -79,7 +80,7 @@ export function ErrorSummary({ message, errors, placed }: { message: string | nu
         <ul>
           {extra.map(([k, v]) => (
             <li key={k}>
-              {k === "_" ? "" : <code>{k}</code>} {v}
+              {k === "_" ? "" : <b>{capitalised(labelOfPath(k))}:</b>} {v}
             </li>
           ))}
         </ul>

@@ -12,6 +12,7 @@ import { useMemo, useRef, useState } from "react";
 import { ErrorSummary, Field, invalid, toNumber, type Errors } from "../../fuels/_components/fields";
 import type { StudyFormOptions } from "@/lib/db/studies";
 import { SENSITIVITY_DEFAULTS, type SensitivityRanges } from "@/lib/schemas/study";
+import { capitalised, fieldLabel } from "@/lib/schemas/labels";
 
 export interface StudyFormInitial {
   id?: number;
@@ -41,22 +42,11 @@ interface ScenarioInitial {
 
 type SensitivityKey = keyof SensitivityRanges;
 const SENSITIVITY_KEYS = Object.keys(SENSITIVITY_DEFAULTS) as SensitivityKey[];
-const SENSITIVITY_LABELS: Record<SensitivityKey, string> = {
-  fuelPricePercent: "Fuel prices ± %",
-  carbonPricePercent: "Carbon price ± %",
-  efficiencyPoints: "Efficiency ± points",
-  capexPercent: "Capex ± %",
-};
+const SENSITIVITY_LABELS = Object.fromEntries(SENSITIVITY_KEYS.map((k) => [k, capitalised(fieldLabel(k))])) as Record<SensitivityKey, string>;
 
 const OVERRIDE_KEYS = ["stackTemperatureC", "flueO2DryPercent", "combustionAirC", "radiationLossPercent", "returnWaterC"] as const;
 type OverrideKey = (typeof OVERRIDE_KEYS)[number];
-const OVERRIDE_LABELS: Record<OverrideKey, string> = {
-  stackTemperatureC: "Stack temperature, °C",
-  flueO2DryPercent: "Flue-gas O2, vol % dry",
-  combustionAirC: "Combustion air, °C",
-  radiationLossPercent: "Radiation loss, % of input",
-  returnWaterC: "Return water, °C",
-};
+const OVERRIDE_LABELS = Object.fromEntries(OVERRIDE_KEYS.map((k) => [k, capitalised(fieldLabel(k))])) as Record<OverrideKey, string>;
 
 interface ScenarioState {
   key: number;

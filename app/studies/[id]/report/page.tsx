@@ -17,6 +17,7 @@ import { PrintButton } from "../../_components/PrintButton";
 import { co2Rows, costRows, failingChecks, headline, metricText, ranked, scatterPoints } from "../../_components/results";
 import { METRIC_SHORT, viewChoice, viewQuery, type SearchParams } from "../../_components/settings";
 import { PlantLimitsTable } from "../../../plants/_components/PlantLimits";
+import { fieldValueText } from "@/lib/schemas/labels";
 
 export const dynamic = "force-dynamic";
 
@@ -233,7 +234,7 @@ export default async function ReportPage({ params, searchParams }: Props) {
                       <td className="num">{r.price ? `${d.costPerEnergy(r.price.perMWh_net)} net / ${d.costPerEnergy(r.price.perMWh_gross)} gross` : "–"}</td>
                       <td className="num">{r.isBaseline ? "—" : fmt(r.audit.inputs.capex, 0)}</td>
                       <td className="num">{r.isBaseline ? "—" : fmt(r.audit.inputs.fixedOpexChange, 0)}</td>
-                      <td>{ov.length ? ov.map(([k, v]) => `${k} = ${String(v)}`).join(", ") : "none"}</td>
+                      <td>{ov.length ? ov.map(([k, v]) => fieldValueText(k, v)).join("; ") : "none"}</td>
                     </tr>
                   );
                 })}

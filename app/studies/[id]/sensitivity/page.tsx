@@ -15,6 +15,7 @@ import { metricText } from "../../_components/results";
 import { intParam, METRIC_SHORT, numParam, RANKING_METRICS, viewChoice, viewQuery, type SearchParams } from "../../_components/settings";
 import type { RankingMetric } from "@/lib/economics/sensitivity";
 import { SENSITIVITY_DEFAULTS } from "@/lib/schemas/study";
+import { capitalised, fieldLabel } from "@/lib/schemas/labels";
 
 export const dynamic = "force-dynamic";
 export const metadata: Metadata = { title: "Sensitivity and break-even" };
@@ -22,10 +23,10 @@ export const metadata: Metadata = { title: "Sensitivity and break-even" };
 type Props = { params: Promise<{ id: string }>; searchParams: Promise<SearchParams> };
 
 const RANGE_KEYS = [
-  { q: "fp", key: "fuelPricePercent" as const, label: "Fuel prices ± %" },
-  { q: "cp", key: "carbonPricePercent" as const, label: "Carbon price ± %" },
-  { q: "ep", key: "efficiencyPoints" as const, label: "Efficiency ± points" },
-  { q: "xp", key: "capexPercent" as const, label: "Capex ± %" },
+  { q: "fp", key: "fuelPricePercent" as const, label: capitalised(fieldLabel("fuelPricePercent")) },
+  { q: "cp", key: "carbonPricePercent" as const, label: capitalised(fieldLabel("carbonPricePercent")) },
+  { q: "ep", key: "efficiencyPoints" as const, label: capitalised(fieldLabel("efficiencyPoints")) },
+  { q: "xp", key: "capexPercent" as const, label: capitalised(fieldLabel("capexPercent")) },
 ] as const;
 
 /** A metric value in display units (cost per energy follows the energy switch). */
