@@ -5,6 +5,7 @@
  */
 import type { StudyResult, ScenarioResult } from "./evaluate";
 import { writeCsv, type CsvCell } from "../csv";
+import { METERING_REFERENCES } from "../units/metering";
 
 export const CSV_TABLES = ["scenarios", "checks", "sweep"] as const;
 export type CsvTable = (typeof CSV_TABLES)[number];
@@ -104,7 +105,7 @@ export function studyResultToCsv(result: StudyResult, which: CsvTable = "scenari
         `break-even carbon price ${cur}/t`,
         "flame temperature °C (equilibrium)",
         "flame shift K",
-        `Wobbe gross MJ/m3 (combustion ${result.plant.wobbeCombustionReferenceC} °C, metering ${result.plant.wobbeMeteringReference})`,
+        `Wobbe gross MJ/m3 (combustion ${result.plant.wobbeCombustionReferenceC} °C, metering ${METERING_REFERENCES[result.plant.wobbeMeteringReference].label})`,
         "Wobbe shift %",
         "flue-gas volume change %",
         "fuel volume change %",

@@ -17,6 +17,7 @@ import type { EquilibriumResult } from "../combustion/equilibrium";
 import type { EvaluationCaches } from "./caches";
 import { StudyInputError } from "./errors";
 import { normaliseStudyPrice } from "./pricing";
+import { METERING_REFERENCES, meteringLabelWithPressure } from "../units/metering";
 
 export interface SweepPoint {
   h2Percent: number;
@@ -100,9 +101,9 @@ export function hydrogenSweep(env: SweepEnvironment): HydrogenSweepResult {
   const cfg = study.hydrogenSweep;
   const baseCtx = env.baseline.fip.ctx;
   const basis = {
-    wobbe: `gross Wobbe index, combustion ${plant.wobbeCombustionReferenceC} °C, metering ${plant.wobbeMeteringReference}, 101.325 kPa (ISO 6976:2016)`,
+    wobbe: `gross Wobbe index, combustion ${plant.wobbeCombustionReferenceC} °C, metering ${meteringLabelWithPressure(METERING_REFERENCES[plant.wobbeMeteringReference].temperatureC)} (ISO 6976:2016)`,
     flame: "adiabatic flame temperature, chemical equilibrium at the plant's flue O2 and combustion-air temperature",
-    volumes: `at rated useful duty: fuel gas at ${plant.fuelSupplyMeteringReference} (real gas); flue gas and air on the fans' ${plant.flueGasCapacityBasis}/${plant.airCapacityBasis} basis`,
+    volumes: `at rated useful duty: fuel gas at ${meteringLabelWithPressure(METERING_REFERENCES[plant.fuelSupplyMeteringReference].temperatureC)} (real gas); flue gas and air on the fans' ${plant.flueGasCapacityBasis}/${plant.airCapacityBasis} basis`,
     cost: "fuel + carbon (+ upstream when included) per MWh of useful heat",
   };
   const empty = (reason: string): HydrogenSweepResult => ({

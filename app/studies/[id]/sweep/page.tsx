@@ -15,6 +15,7 @@ import { Status } from "../../_components/Checks";
 import { CrossingTable, shareText } from "../../_components/Crossings";
 import { EvaluationProblem } from "../../_components/EvaluationProblem";
 import { viewChoice, type SearchParams } from "../../_components/settings";
+import { METERING_REFERENCES, meteringLabelWithPressure } from "@/lib/units/metering";
 
 export const dynamic = "force-dynamic";
 export const metadata: Metadata = { title: "Hydrogen-share sweep" };
@@ -178,7 +179,7 @@ export default async function SweepPage({ params, searchParams }: Props) {
             markers={markersFor(pts, sw.crossings, ["fuel-supply"], (p) => d.volValue(p.fuelVolume_m3_per_h))}
             vLines={vLines}
           />
-          <p className="basis">At rated useful duty; gas at the supply metering reference ({plant.fuelSupplyMeteringReference}, 101.325 kPa), real gas.</p>
+          <p className="basis">At rated useful duty; gas at the supply metering reference ({meteringLabelWithPressure(METERING_REFERENCES[plant.fuelSupplyMeteringReference].temperatureC)}), real gas.</p>
         </section>
         <section className="panel">
           <SweepChart
