@@ -5,6 +5,7 @@ import { studySchema, type StudyInput } from "../../lib/schemas/study";
 import { evaluateStudy, createEvaluationCaches } from "../../lib/study/evaluate";
 import { presentValueFactor } from "../../lib/economics/finance";
 import { runEvaluate } from "../../lib/cli/evaluate";
+import { sweepAgreement } from "../../lib/study/sweep-agreement";
 import { DEMO_FUELS, DEMO_PLANTS, DEMO_STUDIES } from "../../seed/demo";
 
 const EXAMPLE_PATH = join(__dirname, "../../seed/example-study.json");
@@ -275,5 +276,32 @@ describe("bad input: exit 2, one line naming the field", () => {
     expect(runEvaluate(["--input", "-"], () => "{").exitCode).toBe(2);
     expect(runEvaluate(["--input", EXAMPLE_PATH, "--format", "xml"], () => "").stderr).toMatch(/--format/);
     expect(runEvaluate([], () => "").stderr).toMatch(/--input is required/);
+  });
+});
+
+describe("the hydrogen sweep and the comparison agree for the same blend, or say why not", () => {
+  const h2Price = { amount: 5, currency: "EUR", unit: "kg" as const };
+  it("a blend priced from the baseline gas and hydrogen prices agrees with the sweep at its share", () => {
+    const study = studySchema.parse(
+      baseStudy({ hydrogenSweep: { enabled: true, stepPercent: 5, hydrogenPrice: h2Price }, scenarios: [{ name: "20 %", fuel: blend(0.2), componentPrices: [perMWh(40), h2Price] }] }),
+    );
+    const [a] = sweepAgreement(evaluateStudy(study));
+    expect(a.h2Percent).toBeCloseTo(20, 9);
+    expect(a.exactPoint).toBe(true);
+    expect(a.agrees).toBe(true);
+    expect(a.reasons).toEqual([]);
+  });
+
+  it("a blend with its own quote and a changed stack temperature differs, and both reasons are given", () => {
+    const study = studySchema.parse(
+      baseStudy({
+        hydrogenSweep: { enabled: true, stepPercent: 5, hydrogenPrice: h2Price },
+        scenarios: [{ name: "20 %, own quote", fuel: blend(0.2), price: perMWh(55), overrides: { stackTemperatureC: 120 } }],
+      }),
+    );
+    const [a] = sweepAgreement(evaluateStudy(study));
+    expect(a.agrees).toBe(false);
+    expect(a.reasons.join(" ")).toMatch(/own quote/);
+    expect(a.reasons.join(" ")).toMatch(/stack temperature/);
   });
 });

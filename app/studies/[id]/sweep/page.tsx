@@ -16,6 +16,7 @@ import { CrossingTable, shareText } from "../../_components/Crossings";
 import { EvaluationProblem } from "../../_components/EvaluationProblem";
 import { viewChoice, type SearchParams } from "../../_components/settings";
 import { METERING_REFERENCES, meteringLabelWithPressure } from "@/lib/units/metering";
+import { sweepAgreement } from "@/lib/study/sweep-agreement";
 
 export const dynamic = "force-dynamic";
 export const metadata: Metadata = { title: "Hydrogen-share sweep" };
@@ -66,6 +67,7 @@ export default async function SweepPage({ params, searchParams }: Props) {
 
   // First failure at a share above 0 % (checks already failing on the baseline gas are listed apart).
   const verdict = sweepVerdict(pts, sw.crossings);
+  const agreement = sweepAgreement(result);
   const fails = verdict.firstFailures;
   const warns = verdict.firstWarnings;
   const atZero = verdict.failingOrWarningAtZero;
@@ -139,6 +141,20 @@ export default async function SweepPage({ params, searchParams }: Props) {
           {n}
         </p>
       ))}
+
+      {agreement.length > 0 && (
+        <section className="panel" data-testid="sweep-agreement">
+          <h3 className="chart-title">This study&apos;s hydrogen blends on the sweep</h3>
+          <ul className="plain">
+            {agreement.map((a) => (
+              <li key={a.scenario}>
+                <b>{a.scenario}</b> ({fmt(a.h2Percent, 0)} vol % H2): {d.costPerEnergy(a.comparisonCost)} {d.costPerEnergyUnit} useful on the comparison,{" "}
+                {d.costPerEnergy(a.sweepCost)} on the sweep{a.exactPoint ? "" : " (interpolated)"} — {a.agrees ? "the same figure." : `they differ because ${a.reasons.join("; ")}.`}
+              </li>
+            ))}
+          </ul>
+        </section>
+      )}
 
       <div className="sweep-grid">
         <section className="panel">
