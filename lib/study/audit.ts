@@ -54,6 +54,16 @@ export const STUDY_METHODS: readonly AuditMethod[] = [
     source: "concepts of EN 12952-15 and ASME PTC 4; species enthalpies from the NASA polynomials; unburnt carbon at 14 500 Btu/lbm (ASME PTC 4, value from memory)",
   },
   {
+    quantity: "CO and unburnt-carbon losses",
+    method: "CO: moles in the dry flue gas × heat of combustion of CO at 25 °C; carbon: residue carbon share → kg unburnt carbon per kg fuel × heating value of carbon in residue; flue gas and air of the carbon burnt",
+    source: "loss terms of ASME PTC 4 and EN 12952-15; CO heat of combustion from the NASA polynomials (NIST-JANAF formation enthalpies); carbon in residue 14 500 Btu/lbm (ASME PTC 4, value from memory)",
+  },
+  {
+    quantity: "radiation and casing loss at part load",
+    method: "constant heat flow = rated-load % × the baseline's rated net input; share of a fuel's input = Q_rad·η₀/(U + Q_rad) at useful heat U",
+    source: "rated-load radiation loss as boiler makers and ABMA-type charts state it (common practice, no source)",
+  },
+  {
     quantity: "flue-gas loss cross-check",
     method: "Siegert formula (rule of thumb), shown where its constants apply beside the flue-gas loss computed by the regulation's definition (sensible heat of the dry and wet flue gas from combustion-air to flue-gas temperature, net basis, no latent heat) — not beside the efficiency's loss terms",
     source: SIEGERT_SOURCE,
