@@ -75,6 +75,12 @@ export function plantDuty(plant: Plant, baseCtx: FuelContext, baseline: FuelPerf
       // Useful heat per hour → load: U = ratedNet · (L · η₀ − r).
       load = ((given * 1000) / plant.operatingHours / ratedNet + rShare) / eta0;
       loadOrigin = "annual useful heat ÷ operating hours";
+      if (load > 1) {
+        throw new InputError(
+          "annualUsefulHeat_MWh",
+          `${given} MWh in ${plant.operatingHours} h needs ${(100 * load).toFixed(0)} % of the rated input: more than the unit delivers at rated input`,
+        );
+      }
     } else {
       load = 1;
       loadOrigin = "rated load (no hours or load given)";

@@ -13,7 +13,7 @@ import { createEvaluationCaches, type EvaluationCaches } from "./caches";
 import { blendPriceFromComponents, normaliseStudyPrice, priceTerms } from "./pricing";
 import { annualDemand, efficiencyAtUseful, flowsForUseful, plantDuty, type AnnualDemand, type PlantDuty, type RatedFlows } from "../plant/duty";
 import { checkOperatingPoint, type FuelPerformance as Perf } from "../plant/performance";
-import { InputError, rethrowUnder } from "../errors";
+import { InputError } from "../errors";
 import { fitChecks, worstStatus, type CheckStatus, type FitCheck, type FuelInPlant } from "../plant/fit-checks";
 import { siegertClassOf, siegertLossPercent, SIEGERT_COMPARISON_DEFINITION, SIEGERT_CONSTANTS } from "../plant/siegert";
 import { coHeatOfCombustion_MJ_per_m3, UNBURNT_CARBON_HEATING_VALUE_J_per_kg, type EfficiencyResult, type LossTerms } from "../plant/efficiency";
@@ -180,7 +180,7 @@ function prepare(sc: Scenario, index: number, field: string, plant: Plant, cache
     checkOperatingPoint(op);
     perf = caches.performance.get(ctx, op);
   } catch (e) {
-    if (e instanceof InputError && OPERATING_POINT_FIELDS.has(e.field)) throw new InputError(opField(e.field), e.detail);
+    if (e instanceof InputError && OPERATING_POINT_FIELDS.has(e.field)) throw new StudyInputError(opField(e.field), e.detail);
     if (e instanceof RangeError) throw new StudyInputError(`${field}.fuel`, e.message);
     throw e;
   }
@@ -192,7 +192,8 @@ function atLoads(perf: Perf, duty: PlantDuty): { rated: EfficiencyResult; annual
   try {
     return { rated: efficiencyAtUseful(perf, duty, duty.ratedUseful_kW), annual: efficiencyAtUseful(perf, duty, duty.averageUseful_kW) };
   } catch (e) {
-    return rethrowUnder("plant", e);
+    if (e instanceof InputError) throw new StudyInputError(`plant.${e.field}`, e.detail);
+    throw e;
   }
 }
 
@@ -214,7 +215,8 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
   try {
     duty = plantDuty(plant, base.ctx, base.perf);
   } catch (e) {
-    rethrowUnder("plant", e);
+    if (e instanceof InputError) throw new StudyInputError(`plant.${e.field}`, e.detail);
+    throw e;
   }
   const loads = new Map<Prepared, { rated: EfficiencyResult; annual: EfficiencyResult }>();
   const loadsOf = (p: Prepared) => {

@@ -231,6 +231,15 @@ describe("radiation and casing loss at part load", () => {
     expect(half.baseline.efficiency.net).toBeCloseTo(full.baseline.efficiency.net - 0.02, 9);
     expect(half.audit.assumptions.some((a) => /constant heat flow/.test(a) && /average load/.test(a))).toBe(true);
   });
+  it("without a load, the load follows from the annual useful heat and the hours; beyond rated input it is refused naming plant.annualUsefulHeat_MWh", () => {
+    const base = baseStudy();
+    const withAnnual = (annualUsefulHeat_MWh: number) =>
+      evaluateStudy(studySchema.parse({ ...base, plant: { ...base.plant, averageLoadFraction: 0, annualUsefulHeat_MWh } }), { sweep: false });
+    const r = withAnnual(4000);
+    expect(r.duty.averageLoadOrigin).toBe("annual useful heat ÷ operating hours");
+    expect(r.duty.averageUseful_kW).toBeCloseTo((4000 * 1000) / 5000, 9);
+    expect(() => withAnnual(20_000)).toThrow(/^plant\.annualUsefulHeat_MWh: /);
+  });
   it("a load at which the radiation loss takes all the heat is refused naming plant.averageLoadFraction", () => {
     expect(() => at(0.02)).toThrow(/^plant\.averageLoadFraction: /);
   });
