@@ -185,11 +185,13 @@ describe("condensing: the flue gas leaves saturated at the stack temperature", (
 });
 
 describe("unburnt losses", () => {
-  it("CO and unburnt carbon lower the efficiency by their charged heat", () => {
+  it("1000 ppm CO in the dry flue gas costs 1000 ppm of the dry flue-gas volume at 12.63 MJ/m³", () => {
+    // Gross calorific value of CO on a volume basis, 0 °C / 101.325 kPa: 12.63 MJ/m³ (ISO 6976:2016
+    // Table 5, value from memory); the ideal-gas figure from 283.0 kJ/mol ÷ 22.414 L/mol is 12.626 MJ/m³.
     const clean = run(PELLETS, 6, { stackTemperatureC: 160 }).r;
     const co = run(PELLETS, 6, { stackTemperatureC: 160, coDryPpm: 1000 }).r;
-    // 1000 ppm CO: n_CO = 1e-3 × dry flue gas moles, each at 283.0 kJ/mol (NIST-JANAF as above).
-    expect(co.terms_kJ_per_kg.unburntCO).toBeCloseTo((1e-3 * co.flue.dry_mol_per_kg * (393.52 - 110.53)), 0);
+    const dry_m3_per_kg = co.flue.dry_mol_per_kg * 0.022414; // molar volume of an ideal gas at 0 °C, 101.325 kPa (CODATA)
+    expect(co.terms_kJ_per_kg.unburntCO / 1000 / (1e-3 * dry_m3_per_kg)).toBeCloseTo(12.63, 1);
     expect(co.net.efficiency).toBeLessThan(clean.net.efficiency);
   });
 
