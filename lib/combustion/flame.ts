@@ -9,7 +9,7 @@
  * All work per kg of fuel: the reactant charge is 1 kg of fuel and its oxidiser.
  */
 import type { FuelDefinition } from "../schemas/fuel";
-import { resolveFuel, stoichiometricO2_mol_per_kg, type ResolvedFuel } from "../fuels/resolve";
+import { checkLiquidFeed, resolveFuel, stoichiometricO2_mol_per_kg, type ResolvedFuel } from "../fuels/resolve";
 import { cp_J_per_molK, h_J_per_mol, ELEMENTS, type Element, type Nasa7Species } from "../thermo/nasa7";
 import { SPECIES } from "../thermo/species-data";
 import { R_J_per_molK, T298K, atmospherePa } from "../units/constants";
@@ -202,6 +202,7 @@ export function flameTemperature(input: FlameInput): FlameResult {
   const Tf = input.fuelTemperatureK ?? T298K;
   const Tox = input.oxidizerTemperatureK ?? T298K;
   const P = input.pressurePa ?? atmospherePa;
+  checkLiquidFeed(fuel, Tf, P);
   const charge = reactantCharge(fuel, lambda, oxidizer, Tf, Tox);
   const base = { method: input.method, methodLabel: FLAME_METHOD_LABELS[input.method], phi, lambda, pressurePa: P };
 

@@ -7,9 +7,10 @@ import type { Element } from "../thermo/nasa7";
 import { ELEMENTS, h_J_per_mol, sensibleH_J_per_mol } from "../thermo/nasa7";
 import { MOLAR_MASS_g_per_mol, SPECIES } from "../thermo/species-data";
 import { ATOMIC_WEIGHT_g_per_mol, molarMass_g_per_mol } from "../thermo/elements";
-import { T298K } from "../units/constants";
+import { kelvinToCelsius, T298K } from "../units/constants";
 import type { BlendFuelDefinition, FuelDefinition } from "../schemas/fuel";
-import { LIQUID_COMPOUNDS, LIQUID_FUEL_CP_J_per_kgK, SOLID_FUEL_CP_J_per_kgK } from "./compounds";
+import { compoundVapourPressurePa, LIQUID_COMPOUNDS, LIQUID_FUEL_CP_J_per_kgK, SOLID_FUEL_CP_J_per_kgK } from "./compounds";
+import { InputError } from "../errors";
 
 export type FuelKind = "gas" | "liquid" | "solid";
 export type HeatingValueOrigin = "thermochemistry" | "measured-hhv" | "measured-lhv" | "channiwala-parikh-2002" | "blend";
@@ -36,6 +37,11 @@ export interface ResolvedFuel {
   /** Sensible enthalpy h(T) − h(298.15 K) of the fuel as fed, J/kg. */
   sensibleEnthalpy_J_per_kg: (temperatureK: number) => number;
   heatingValueOrigin: HeatingValueOrigin;
+  /**
+   * Liquids whose boiling data are known (compounds and blends of compounds): vapour pressure of
+   * the liquid as fed at a temperature (ideal solution, Raoult's law for blends), Pa.
+   */
+  vapourPressurePa?: (temperatureK: number) => number;
   /** Blends: mass fraction of each component, in the order of the definition (the one blend rule). */
   componentMassFractions?: number[];
   /** Hydrogen mole fraction of a gas (0 for other fuels). */
@@ -156,6 +162,7 @@ function resolveLiquidCompound(key: string, field: string): ResolvedFuel {
     biogenicCarbonShare: 0,
     formationEnthalpy_J_per_kg: c.formationEnthalpyLiquid_J_per_mol * molPerKg,
     sensibleEnthalpy_J_per_kg: (T) => c.cpLiquid_J_per_molK * (T - T298K) * molPerKg,
+    vapourPressurePa: (T) => compoundVapourPressurePa(c, T),
     heatingValueOrigin: "thermochemistry",
     h2MoleFraction: 0,
     notes: [`liquid ${c.name} (${c.role}): ${c.source}`, "liquid feed sensible heat with cp at 25 °C (small term)"],
@@ -213,7 +220,7 @@ function resolveUltimate(def: Extract<FuelDefinition, { ultimate: unknown }>, la
     sensibleEnthalpy_J_per_kg: (T) => cp * (T - T298K),
     heatingValueOrigin: origin,
     h2MoleFraction: 0,
-    notes,
+    notes: (def.kind ?? "solid") === "liquid" ? [...notes, "no boiling data for a liquid by ultimate analysis: it is taken as liquid at the feed temperature given"] : notes,
   };
 }
 
@@ -286,6 +293,12 @@ function resolveBlend(def: BlendFuelDefinition, label: string, field: string): R
     out.molarMass_g_per_mol = 1000 / nTot;
     out.h2MoleFraction = comp.H2 ?? 0;
   }
+  if (kind === "liquid" && parts.every((p) => p.f.vapourPressurePa && p.f.molarMass_g_per_mol)) {
+    // Raoult's law over the components: mole fractions from the mass fractions.
+    const n = parts.map((p, i) => w[i] / p.f.molarMass_g_per_mol!);
+    const nTot = n.reduce((a, b) => a + b, 0);
+    out.vapourPressurePa = (T) => parts.reduce((sum, p, i) => sum + (n[i] / nTot) * p.f.vapourPressurePa!(T), 0);
+  }
   if (kind === "liquid" && parts.every((p) => p.f.density_kg_per_m3)) {
     out.density_kg_per_m3 = 1 / parts.reduce((s, p, i) => s + w[i] / p.f.density_kg_per_m3!, 0);
   }
@@ -325,4 +338,33 @@ function describeComposition(c: Record<string, number>): string {
 /** Resolves a (validated) fuel definition. Throws FuelDefinitionError naming the field. */
 export function resolveFuel(def: FuelDefinition, field = "fuel"): ResolvedFuel {
   return resolveFuelAt(def, field);
+}
+
+/** Bubble point of a liquid at pressure p, K: p^sat(T) = p, by bisection (p^sat rises with T). */
+export function bubblePointK(vapourPressurePa: (temperatureK: number) => number, pressurePa: number): number {
+  let lo = 150;
+  let hi = 1500;
+  for (let i = 0; i < 80 && hi - lo > 1e-6; i++) {
+    const mid = 0.5 * (lo + hi);
+    if (vapourPressurePa(mid) > pressurePa) hi = mid;
+    else lo = mid;
+  }
+  return 0.5 * (lo + hi);
+}
+
+/**
+ * A liquid fuel must be fed below its boiling point at the stated pressure: otherwise it would be
+ * vapour, and treating it as liquid would be silently wrong. Throws InputError naming `field`.
+ * Liquids without boiling data (ultimate analyses) are taken as liquid at the temperature given
+ * (their resolved notes say so).
+ */
+export function checkLiquidFeed(fuel: ResolvedFuel, temperatureK: number, pressurePa: number, field = "fuelTemperatureK"): void {
+  if (fuel.kind !== "liquid" || !fuel.vapourPressurePa) return;
+  const tb = bubblePointK(fuel.vapourPressurePa, pressurePa);
+  if (temperatureK >= tb) {
+    throw new InputError(
+      field,
+      `${fuel.label || "the liquid fuel"} boils at ${tb.toFixed(1)} K (${kelvinToCelsius(tb).toFixed(1)} °C) at ${(pressurePa / 1000).toFixed(1)} kPa: fed at ${temperatureK.toFixed(1)} K it would be vapour, not liquid — feed it colder, or describe it as a gas (compound with phase "gas")`,
+    );
+  }
 }

@@ -9,6 +9,7 @@
 import { METERING_REFERENCE_C, type Plant } from "../schemas/plant";
 import type { FuelContext } from "./fuel-context";
 import type { FuelPerformance } from "./performance";
+import type { EfficiencyResult } from "./efficiency";
 import type { RatedFlows } from "./duty";
 import { flueAcidDewPointC, SO3_CONVERSION_DEFAULT } from "../combustion/flue-gas";
 import { meteringLabel } from "../units/metering";
@@ -58,6 +59,8 @@ export interface FitCheck {
 export interface FuelInPlant {
   ctx: FuelContext;
   perf: FuelPerformance;
+  /** Heat-loss balance at rated useful duty (radiation share of that firing rate). */
+  rated: EfficiencyResult;
   /** Flows at rated useful duty. */
   flows: RatedFlows;
 }
@@ -228,7 +231,7 @@ export function fitChecks(plant: Plant, baseline: FuelInPlant, cand: FuelInPlant
 
   // --- Stack vs dew point --------------------------------------------------------------------
   {
-    const eff = cand.perf.efficiency;
+    const eff = cand.perf.balance;
     const op = cand.perf.operatingPoint;
     const waterDew = eff.dewPointC;
     const sulfur = cand.ctx.fuel.elements_mol_per_kg.S > 0;
@@ -250,12 +253,12 @@ export function fitChecks(plant: Plant, baseline: FuelInPlant, cand: FuelInPlant
       if (eff.condensed_mol_per_kg > 0) {
         push({
           id: "stack-dew-point", status: sulfur ? "warn" : "pass", value: margin, limit: 0, unit: "K", usage: null, basis,
-          message: T ? `condensing unit: dew point ${fmt(dew, 1)} °C, ${fmt(100 * eff.condensedFraction, 0)} % of the flue water condenses (${fmt(eff.condensingTemperatureC ?? 0, 1)} °C condensing surface); condensate drain and neutralisation needed${acid}` : "",
+          message: T ? `condensing unit: dew point ${fmt(dew, 1)} °C, ${fmt(100 * eff.condensedFraction, 0)} % of the flue water condenses (flue gas leaving saturated at the ${fmt(eff.condensingTemperatureC ?? 0, 1)} °C stack); condensate drain and neutralisation needed${acid}` : "",
         });
       } else {
         push({
           id: "stack-dew-point", status: "warn", value: margin, limit: 0, unit: "K", usage: null, basis,
-          message: T ? `condensing unit, but the return water is too warm: dew point ${fmt(dew, 1)} °C is below the condensing surface, so no condensate heat is recovered` : "",
+          message: T ? `condensing unit, but the stack is too warm: dew point ${fmt(dew, 1)} °C is below the ${fmt(op.stackTemperatureC, 1)} °C stack, so no condensate heat is recovered` : "",
         });
       }
     } else {

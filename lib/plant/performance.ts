@@ -10,12 +10,10 @@ import { flameTemperature, type FlameResult } from "../combustion/flame";
 import { NORMAL_MOLAR_VOLUME_m3_per_mol } from "../combustion/flue-gas";
 import { EquilibriumNotConvergedError, type EquilibriumResult } from "../combustion/equilibrium";
 import { celsiusToKelvin, kelvinToCelsius, T0CK, T298K } from "../units/constants";
-import type { OperatingPoint } from "../schemas/plant";
-import { heatLossEfficiency, type EfficiencyResult } from "./efficiency";
+import { condensingStackFloorC, stackBelowFloorMessage, type OperatingPoint } from "../schemas/plant";
+import { InputError } from "../errors";
+import { burntFuel, heatLossEfficiency, unburntCarbon_kg_per_kg, type EfficiencyResult } from "./efficiency";
 import type { FuelContext } from "./fuel-context";
-
-/** Approach of the flue gas to the return water on a condensing heat exchanger, K (common practice, no source). */
-export const CONDENSING_APPROACH_K = 5;
 /** Fuel temperature at the burner for the flame temperature and the heat balance, K (25 °C reference). */
 export const FUEL_TEMPERATURE_K = T298K;
 
@@ -35,7 +33,11 @@ export interface FuelPerformance {
   oxidizer: Oxidizer;
   lambda: number;
   excessAirPercent: number;
-  efficiency: EfficiencyResult;
+  /**
+   * Heat-loss balance per kg of fuel with every term except radiation and casing (that loss is a
+   * constant heat flow, so its share depends on the firing rate: see `efficiencyAtUseful` in duty.ts).
+   */
+  balance: EfficiencyResult;
   /** Equilibrium flame temperature; null when the solver did not converge (see flameError). */
   flame: FlameFigures | null;
   flameError?: string;
@@ -60,10 +62,17 @@ export function plantOxidizer(op: OperatingPoint): Oxidizer {
   return humidAir(op.ambientAir.relativeHumidityPercent / 100, op.ambientAir.temperatureC);
 }
 
-/** Condensing-surface temperature, °C: return water + approach for condensing units, else none. */
-export function condensingSurfaceC(op: OperatingPoint): number | null {
-  if (!op.condensing || op.returnWaterC === null) return null;
-  return op.returnWaterC + CONDENSING_APPROACH_K;
+/**
+ * Refuses an operating point the model cannot honour, naming the operating-point field: a
+ * condensing unit without its return-water temperature, or with a stack colder than the return
+ * water plus the approach.
+ */
+export function checkOperatingPoint(op: OperatingPoint): void {
+  if (!op.condensing) return;
+  if (op.returnWaterC === null) throw new InputError("returnWaterC", "a condensing unit needs its return-water temperature");
+  if (op.stackTemperatureC < condensingStackFloorC(op.returnWaterC, op.condensingApproachK)) {
+    throw new InputError("stackTemperatureC", stackBelowFloorMessage(op.returnWaterC, op.condensingApproachK));
+  }
 }
 
 export function operatingPointKey(op: OperatingPoint): string {
@@ -74,6 +83,9 @@ export function operatingPointKey(op: OperatingPoint): string {
     op.radiationLossPercent,
     op.condensing ? 1 : 0,
     op.returnWaterC ?? "-",
+    op.condensingApproachK,
+    op.flueCODryPpm,
+    op.unburntCarbonInAshPercent,
     op.ambientAir.temperatureC,
     op.ambientAir.relativeHumidityPercent,
   ].join("|");
@@ -119,22 +131,26 @@ export class PerformanceCache {
 }
 
 export function computePerformance(ctx: FuelContext, op: OperatingPoint, oxidizer: Oxidizer, warmStart?: EquilibriumResult): FuelPerformance {
+  checkOperatingPoint(op);
   const fuel = ctx.fuel;
-  const lambda = lambdaFromFlueO2Dry(fuel, op.flueO2DryPercent, oxidizer);
-  const efficiency = heatLossEfficiency(fuel, ctx.hv, {
+  // The measured flue O2 belongs to the carbon actually burnt.
+  const burnt = burntFuel(fuel, unburntCarbon_kg_per_kg(fuel, op.unburntCarbonInAshPercent));
+  const lambda = lambdaFromFlueO2Dry(burnt, op.flueO2DryPercent, oxidizer);
+  const balance = heatLossEfficiency(fuel, ctx.hv, {
     lambda,
     oxidizer,
     combustionAirC: op.combustionAirC,
     stackTemperatureC: op.stackTemperatureC,
-    radiationLossPercent: op.radiationLossPercent,
-    condensingSurfaceC: condensingSurfaceC(op),
+    radiationLossPercent: 0,
+    coDryPpm: op.flueCODryPpm,
+    unburntCarbonInAshPercent: op.unburntCarbonInAshPercent,
   });
   const canWarm = warmStart !== undefined && (fuel.elements_mol_per_kg.S > 0) === warmStart.species.includes("SO2");
   let flame: FlameResult | null = null;
   let flameError: string | undefined;
   try {
     flame = flameTemperature({
-      fuel,
+      fuel: burnt,
       oxidizer,
       phi: 1 / lambda,
       fuelTemperatureK: FUEL_TEMPERATURE_K,
@@ -148,17 +164,18 @@ export function computePerformance(ctx: FuelContext, op: OperatingPoint, oxidize
     flameError = `equilibrium flame temperature did not converge: ${e.message}`;
   }
   const demand = oxidizerDemand(fuel, oxidizer);
+  const oxidizerKgPerMol = demand.oxidizer_kg_per_kg / demand.oxidizer_mol_per_kg;
   const lhv = ctx.hv.lhv_MJ_per_kg;
   const fuelKgPerMJ = 1 / lhv;
-  const fg = efficiency.flue;
-  const leavingWet = efficiency.wetLeaving_mol_per_kg;
+  const fg = balance.flue;
+  const leavingWet = balance.wetLeaving_mol_per_kg;
   return {
     fuelKey: ctx.key,
     operatingPoint: op,
     oxidizer,
     lambda,
     excessAirPercent: excessAirPercentFromLambda(lambda),
-    efficiency,
+    balance,
     flame: flame
       ? {
           temperatureK: flame.temperatureK,
@@ -173,12 +190,12 @@ export function computePerformance(ctx: FuelContext, op: OperatingPoint, oxidize
     ...(flame?.equilibrium ? { equilibrium: flame.equilibrium } : {}),
     perMJ_net: {
       fuel_kg: fuelKgPerMJ,
-      air_m3_normal: lambda * demand.oxidizer_mol_per_kg * NORMAL_MOLAR_VOLUME_m3_per_mol * fuelKgPerMJ,
-      air_kg: lambda * demand.oxidizer_kg_per_kg * fuelKgPerMJ,
+      air_m3_normal: balance.oxidizer_mol_per_kg * NORMAL_MOLAR_VOLUME_m3_per_mol * fuelKgPerMJ,
+      air_kg: balance.oxidizer_mol_per_kg * oxidizerKgPerMol * fuelKgPerMJ,
       flueGasWet_m3_normal: leavingWet * NORMAL_MOLAR_VOLUME_m3_per_mol * fuelKgPerMJ,
       flueGasDry_m3_normal: fg.dry_mol_per_kg * NORMAL_MOLAR_VOLUME_m3_per_mol * fuelKgPerMJ,
-      flueGas_kg: (fg.mass_kg_per_kg - efficiency.condensate_kg_per_kg) * fuelKgPerMJ,
-      condensate_kg: efficiency.condensate_kg_per_kg * fuelKgPerMJ,
+      flueGas_kg: (fg.mass_kg_per_kg - balance.condensate_kg_per_kg) * fuelKgPerMJ,
+      condensate_kg: balance.condensate_kg_per_kg * fuelKgPerMJ,
     },
   };
 }

@@ -9,6 +9,7 @@
  * fuel oil A2 0.68, B 0.007; natural gas A2 0.66, B 0.009; LPG A2 0.63, B 0.008.
  */
 import type { ResolvedFuel } from "../fuels/resolve";
+import { InputError } from "../errors";
 
 export const SIEGERT_FUEL_CLASSES = ["natural-gas", "fuel-oil", "lpg"] as const;
 export type SiegertFuelClass = (typeof SIEGERT_FUEL_CLASSES)[number];
@@ -22,9 +23,16 @@ export const SIEGERT_CONSTANTS: Record<SiegertFuelClass, { A2: number; B: number
 export const SIEGERT_SOURCE =
   "Siegert formula, German 1. BImSchV (small firing installations ordinance), Annex III; constants A2/B as commonly quoted (value from memory)";
 
+/**
+ * What the heat-loss figure set beside the Siegert result is: the regulation's definition of the
+ * flue-gas loss, computed separately from the efficiency terms.
+ */
+export const SIEGERT_COMPARISON_DEFINITION =
+  "flue-gas loss as 1. BImSchV defines it: sensible heat of the dry flue gas and of all its water as vapour, from the combustion-air to the flue-gas temperature, % of the net heat input; no latent heat, no condensate credit, no unburnt or radiation loss";
+
 /** Flue-gas loss by the Siegert formula, % of net heat input. */
 export function siegertLossPercent(fuelClass: SiegertFuelClass, flueC: number, airC: number, o2DryPercent: number): number {
-  if (!(o2DryPercent < 21)) throw new RangeError("O2 must be below 21 vol %");
+  if (!(o2DryPercent < 21)) throw new InputError("flueO2DryPercent", "must be below 21 vol %");
   const { A2, B } = SIEGERT_CONSTANTS[fuelClass];
   return (flueC - airC) * (A2 / (21 - o2DryPercent) + B);
 }

@@ -27,6 +27,9 @@ export const FIELD_LABELS: Readonly<Record<string, string>> = Object.freeze({
   radiationLossPercent: "radiation and casing loss at rated load, % of input",
   condensing: "condensing unit",
   returnWaterC: "return-water (heat sink) temperature, °C",
+  condensingApproachK: "approach of the stack to the heat sink, K",
+  flueCODryPpm: "CO in the dry flue gas, ppm",
+  unburntCarbonInAshPercent: "unburnt carbon in the ash, % of residue",
   // limits
   wobbeTolerancePercent: "Wobbe index tolerance, ± % of the baseline",
   wobbeMin_MJ_per_m3: "lowest Wobbe index, MJ/m³",

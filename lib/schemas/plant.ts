@@ -57,7 +57,24 @@ export const operatingPointShape = {
   condensing: z.boolean({ error: "must be true or false" }),
   /** Return-water (or coldest heat-sink) temperature for a condensing unit, °C. */
   returnWaterC: num().min(5, "must be ≥ 5 °C").max(200, "must be ≤ 200 °C").nullish(),
+  /** Condensing units: how far the flue gas leaving stays above the return water at best, K. */
+  condensingApproachK: num().min(0, "must be ≥ 0 K").max(50, "must be ≤ 50 K"),
+  /** CO in the dry flue gas, ppm by volume (charged as an unburnt loss). */
+  flueCODryPpm: num().min(0, "must be ≥ 0 ppm").max(50_000, "must be ≤ 50 000 ppm"),
+  /** Unburnt carbon in the ash (residue) of a solid fuel, % by mass of the residue. */
+  unburntCarbonInAshPercent: num().min(0, "must be ≥ 0 %").max(90, "must be ≤ 90 % of the residue"),
 };
+
+/**
+ * Default approach of the flue gas leaving a condensing unit to its return water, K
+ * (common practice, no source).
+ */
+export const DEFAULT_CONDENSING_APPROACH_K = 5;
+
+/** Lowest stack temperature a condensing unit can reach: return water + approach, °C. */
+export function condensingStackFloorC(returnWaterC: number, condensingApproachK: number): number {
+  return returnWaterC + condensingApproachK;
+}
 
 export const ambientAirSchema = z
   .object({
@@ -113,6 +130,9 @@ export const plantSchema = z
     operatingHours: num().min(0, "must be ≥ 0 h").max(8784, "must be ≤ 8784 h"),
     averageLoadFraction: num().min(0, "must be ≥ 0").max(1, "must be ≤ 1 (a fraction of rated input)"),
     ...operatingPointShape,
+    condensingApproachK: operatingPointShape.condensingApproachK.default(DEFAULT_CONDENSING_APPROACH_K),
+    flueCODryPpm: operatingPointShape.flueCODryPpm.default(0),
+    unburntCarbonInAshPercent: operatingPointShape.unburntCarbonInAshPercent.default(0),
     ambientAir: ambientAirSchema.default({ temperatureC: 15, relativeHumidityPercent: 60 }),
     ...plantLimitsShape,
     notes: z.string().max(5000).default(""),
@@ -121,6 +141,8 @@ export const plantSchema = z
   .superRefine((p, ctx) => {
     if (p.condensing && (p.returnWaterC === undefined || p.returnWaterC === null)) {
       ctx.addIssue({ code: "custom", path: ["returnWaterC"], message: "a condensing unit needs its return-water temperature" });
+    } else if (p.condensing && p.returnWaterC != null && p.stackTemperatureC < condensingStackFloorC(p.returnWaterC, p.condensingApproachK)) {
+      ctx.addIssue({ code: "custom", path: ["stackTemperatureC"], message: stackBelowFloorMessage(p.returnWaterC, p.condensingApproachK) });
     }
     if ((p.annualUsefulHeat_MWh ?? null) === null && p.operatingHours * p.averageLoadFraction <= 0) {
       ctx.addIssue({
@@ -137,6 +159,11 @@ export const plantSchema = z
       ctx.addIssue({ code: "custom", path: ["wobbeMax_MJ_per_m3"], message: "must be greater than wobbeMin_MJ_per_m3" });
     }
   });
+
+/** Why a condensing unit's stack temperature is refused (one wording for the schema and lib/plant). */
+export function stackBelowFloorMessage(returnWaterC: number, condensingApproachK: number): string {
+  return `a condensing unit's flue gas cannot leave colder than the return water (${returnWaterC} °C) plus the approach (${condensingApproachK} K): must be ≥ ${condensingStackFloorC(returnWaterC, condensingApproachK)} °C`;
+}
 
 export type PlantInput = z.input<typeof plantSchema>;
 export type Plant = z.output<typeof plantSchema>;
@@ -156,6 +183,9 @@ export const operatingOverridesSchema = z
     radiationLossPercent: operatingPointShape.radiationLossPercent.optional(),
     condensing: operatingPointShape.condensing.optional(),
     returnWaterC: operatingPointShape.returnWaterC,
+    condensingApproachK: operatingPointShape.condensingApproachK.optional(),
+    flueCODryPpm: operatingPointShape.flueCODryPpm.optional(),
+    unburntCarbonInAshPercent: operatingPointShape.unburntCarbonInAshPercent.optional(),
   })
   .strict();
 export type OperatingOverrides = z.output<typeof operatingOverridesSchema>;
@@ -168,6 +198,9 @@ export interface OperatingPoint {
   radiationLossPercent: number;
   condensing: boolean;
   returnWaterC: number | null;
+  condensingApproachK: number;
+  flueCODryPpm: number;
+  unburntCarbonInAshPercent: number;
   ambientAir: { temperatureC: number; relativeHumidityPercent: number };
 }
 
@@ -189,6 +222,9 @@ export function operatingPointOf(plant: Plant, overrides: OperatingOverrides = {
     radiationLossPercent: overrides.radiationLossPercent ?? plant.radiationLossPercent,
     condensing,
     returnWaterC: overrides.returnWaterC ?? plant.returnWaterC ?? null,
+    condensingApproachK: overrides.condensingApproachK ?? plant.condensingApproachK,
+    flueCODryPpm: overrides.flueCODryPpm ?? plant.flueCODryPpm,
+    unburntCarbonInAshPercent: overrides.unburntCarbonInAshPercent ?? plant.unburntCarbonInAshPercent,
     ambientAir: plant.ambientAir,
   };
 }

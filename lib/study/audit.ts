@@ -3,7 +3,8 @@
  * assumptions the evaluation makes, and (per scenario) the inputs it used.
  */
 import { SIEGERT_SOURCE } from "../plant/siegert";
-import { CONDENSING_APPROACH_K } from "../plant/performance";
+import { DEFAULT_CONDENSING_APPROACH_K } from "../schemas/plant";
+import { coHeatOfCombustion_MJ_per_m3, UNBURNT_CARBON_HEATING_VALUE_J_per_kg } from "../plant/efficiency";
 
 export interface AuditMethod {
   /** What is computed. */
@@ -44,17 +45,27 @@ export const STUDY_METHODS: readonly AuditMethod[] = [
   },
   {
     quantity: "water dew point and condensed water",
-    method: "saturation pressure / temperature of water; vapour leaving limited to saturation at the condensing temperature",
+    method: "saturation pressure / temperature of water; below its dew point the flue gas leaves saturated at the stack temperature, the rest of its water condensed",
     source: "IAPWS-IF97, IAPWS R7-97(2012), region 4",
   },
   {
     quantity: "efficiency on gross and net basis",
-    method: "heat-loss (indirect) method: dry flue-gas loss, moisture loss (sensible + latent), condensate recovery, radiation/casing loss, combustion-air credit; reference 25 °C",
-    source: "concepts of EN 12952-15 and ASME PTC 4; species enthalpies from the NASA polynomials",
+    method: "heat-loss (indirect) method: dry flue-gas loss, moisture loss (sensible + latent), CO and unburnt-carbon losses, condensate recovery, radiation/casing loss, combustion-air credit; reference 25 °C",
+    source: "concepts of EN 12952-15 and ASME PTC 4; species enthalpies from the NASA polynomials; unburnt carbon at 14 500 Btu/lbm (ASME PTC 4, value from memory)",
+  },
+  {
+    quantity: "CO and unburnt-carbon losses",
+    method: "CO: moles in the dry flue gas × heat of combustion of CO at 25 °C; carbon: residue carbon share → kg unburnt carbon per kg fuel × heating value of carbon in residue; flue gas and air of the carbon burnt",
+    source: "loss terms of ASME PTC 4 and EN 12952-15; CO heat of combustion from the NASA polynomials (NIST-JANAF formation enthalpies); carbon in residue 14 500 Btu/lbm (ASME PTC 4, value from memory)",
+  },
+  {
+    quantity: "radiation and casing loss at part load",
+    method: "constant heat flow = rated-load % × the baseline's rated net input; share of a fuel's input = Q_rad·η₀/(U + Q_rad) at useful heat U",
+    source: "rated-load radiation loss as boiler makers and ABMA-type charts state it (common practice, no source)",
   },
   {
     quantity: "flue-gas loss cross-check",
-    method: "Siegert formula (rule of thumb, shown beside the heat-loss result where its constants apply)",
+    method: "Siegert formula (rule of thumb), shown where its constants apply beside the flue-gas loss computed by the regulation's definition (sensible heat of the dry and wet flue gas from combustion-air to flue-gas temperature, net basis, no latent heat) — not beside the efficiency's loss terms",
     source: SIEGERT_SOURCE,
   },
   {
@@ -83,10 +94,10 @@ export function studyAssumptions(): string[] {
   return [
     "Every scenario delivers the same useful heat as the baseline; fuel demand = useful heat ÷ that fuel's efficiency.",
     "Flows at rated duty: the baseline fires its rated input; a candidate fires the same useful heat ÷ its own efficiency.",
-    "Complete combustion: no unburnt (CO, soot) loss in the efficiency; fuel enters at 25 °C.",
-    "Radiation and casing loss is a fixed percentage of the net heat input.",
+    `Unburnt losses only as stated: CO in the dry flue gas charged at its heat of combustion (${coHeatOfCombustion_MJ_per_m3().toFixed(2)} MJ per m³ of CO at 0 °C), its effect on the flue-gas amount neglected; unburnt carbon stated as % of the residue (ash + carbon), charged at ${(UNBURNT_CARBON_HEATING_VALUE_J_per_kg / 1e6).toFixed(2)} MJ/kg, with the flue gas and air of the carbon actually burnt; sensible heat of the residue neglected. Fuel enters at 25 °C.`,
+    "Radiation and casing loss is a constant heat flow: the plant's figure (% of the net input at rated load) times the baseline's rated net input, so its share of the input grows about as 1/load; rated flows use the efficiency at rated duty, the annual fuel demand, costs and CO2 the efficiency at the average load.",
     "Flue gas at atmospheric pressure (101.325 kPa); air and flue-gas volumes as ideal gas.",
-    `Condensing units: flue gas meets a surface ${CONDENSING_APPROACH_K} K above the return-water temperature; the water vapour leaving is limited to saturation there.`,
+    `Condensing: the flue gas leaves at the stack temperature, saturated when that is below its dew point (the water condensed is what saturation at the stack temperature leaves behind; condensate drains at the stack temperature); the sensible loss is charged at the same temperature. A condensing unit's stack cannot be set below the return water plus the approach (plant field, default ${DEFAULT_CONDENSING_APPROACH_K} K, common practice, no source).`,
     "Combustion air carries the ambient absolute humidity through any preheater.",
     "The same stack temperature and flue O2 as the plant unless a scenario overrides them.",
     "Carbon is priced on fossil CO2 only (upstream CO2e too when the study includes it); biogenic CO2 is reported, not priced.",

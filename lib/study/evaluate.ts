@@ -11,10 +11,12 @@ import type { FuelContext, WobbeFigures } from "../plant/fuel-context";
 import type { FuelPerformance } from "../plant/performance";
 import { createEvaluationCaches, type EvaluationCaches } from "./caches";
 import { blendPriceFromComponents, normaliseStudyPrice, priceTerms } from "./pricing";
-import { annualDemand, flowsForUseful, plantDuty, type AnnualDemand, type PlantDuty, type RatedFlows } from "../plant/duty";
+import { annualDemand, efficiencyAtUseful, flowsForUseful, plantDuty, type AnnualDemand, type PlantDuty, type RatedFlows } from "../plant/duty";
+import { checkOperatingPoint, type FuelPerformance as Perf } from "../plant/performance";
+import { InputError } from "../errors";
 import { fitChecks, worstStatus, type CheckStatus, type FitCheck, type FuelInPlant } from "../plant/fit-checks";
-import { siegertClassOf, siegertLossPercent, SIEGERT_CONSTANTS } from "../plant/siegert";
-import type { LossTerms } from "../plant/efficiency";
+import { siegertClassOf, siegertLossPercent, SIEGERT_COMPARISON_DEFINITION, SIEGERT_CONSTANTS } from "../plant/siegert";
+import { coHeatOfCombustion_MJ_per_m3, UNBURNT_CARBON_HEATING_VALUE_J_per_kg, type EfficiencyResult, type LossTerms } from "../plant/efficiency";
 import { priceUnitLabel, type NormalisedPrice } from "../economics/prices";
 import { compare, scenarioCosts, type Comparison, type CostInputs, type FinanceAssumptions, type ScenarioCosts } from "../economics/costs";
 import { RANKING_METRIC_INFO, tornado, type RankingMetric, type SensitivityRanges, type Tornado } from "../economics/sensitivity";
@@ -55,9 +57,15 @@ export interface ScenarioFuelSummary {
 }
 
 export interface EfficiencySummary {
+  /** Efficiency at the average load (what the annual fuel demand, costs and CO2 use), gross basis. */
   gross: number;
+  /** The same on the net basis. */
   net: number;
-  /** Loss terms in % of the input on each basis (credits positive). */
+  /** Efficiency at rated duty (what the rated flows use). */
+  ratedLoad: { gross: number; net: number };
+  /** Average load of these figures, fraction of the rated input. */
+  averageLoadFraction: number;
+  /** Loss terms at the average load in % of the input on each basis (credits positive). */
   lossesGrossPercent: LossTerms;
   lossesNetPercent: LossTerms;
   lambda: number;
@@ -66,10 +74,13 @@ export interface EfficiencySummary {
   dewPointC: number | null;
   condensedFraction: number;
   condensingTemperatureC: number | null;
-  /** Energy-balance closure: useful + losses − credits − input (gross and net), and the direct-balance residual, kJ/kg. */
-  closure: { gross_kJ_per_kg: number; net_kJ_per_kg: number; directResidual_kJ_per_kg: number };
-  /** Siegert rule-of-thumb flue loss beside the heat-loss method's, % of net input (where its constants apply). */
-  siegert: { fuelClass: string; siegertPercent: number; heatLossMethodPercent: number } | null;
+  /** Unburnt carbon leaving in the residue, kg per kg fuel (0 without ash or without a stated carbon share). */
+  unburntCarbon_kg_per_kg: number;
+  /**
+   * Siegert rule-of-thumb flue loss beside the flue-gas loss computed by the regulation's own
+   * definition (not the heat-loss method's efficiency terms), % of net input, where its constants apply.
+   */
+  siegert: { fuelClass: string; siegertPercent: number; heatLossMethodPercent: number; heatLossMethodDefinition: string } | null;
   basis: string;
 }
 
@@ -156,18 +167,34 @@ interface Prepared {
   flameError?: string;
 }
 
+/** Operating-point fields whose errors are blamed on the scenario override or on the plant, wherever the value came from. */
+const OPERATING_POINT_FIELDS = new Set(["stackTemperatureC", "returnWaterC", "condensingApproachK", "flueCODryPpm", "unburntCarbonInAshPercent", "radiationLossPercent", "combustionAirC", "flueO2DryPercent"]);
+
 function prepare(sc: Scenario, index: number, field: string, plant: Plant, caches: EvaluationCaches): Prepared {
   const ctx = caches.fuels.fromDefinition(sc.fuel, `${field}.fuel`);
   const op = operatingPointOf(plant, sc.overrides);
   if (op.condensing && op.returnWaterC === null) throw new StudyInputError(`${field}.overrides.returnWaterC`, "a condensing unit needs its return-water temperature");
+  const opField = (k: string) => (sc.overrides && k in sc.overrides ? `${field}.overrides.${k}` : `plant.${k}`);
   let perf: FuelPerformance;
   try {
+    checkOperatingPoint(op);
     perf = caches.performance.get(ctx, op);
   } catch (e) {
+    if (e instanceof InputError && OPERATING_POINT_FIELDS.has(e.field)) throw new StudyInputError(opField(e.field), e.detail);
     if (e instanceof RangeError) throw new StudyInputError(`${field}.fuel`, e.message);
     throw e;
   }
   return { scenario: sc, index, field, ctx, op, perf };
+}
+
+/** A fuel's balance at rated duty and at the average load (radiation share of each firing rate). */
+function atLoads(perf: Perf, duty: PlantDuty): { rated: EfficiencyResult; annual: EfficiencyResult } {
+  try {
+    return { rated: efficiencyAtUseful(perf, duty, duty.ratedUseful_kW), annual: efficiencyAtUseful(perf, duty, duty.averageUseful_kW) };
+  } catch (e) {
+    if (e instanceof InputError) throw new StudyInputError(`plant.${e.field}`, e.detail);
+    throw e;
+  }
 }
 
 export function evaluateStudy(study: Study, options: EvaluationOptions = {}): StudyResult {
@@ -184,15 +211,33 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
 
   const base = prepare(study.baseline, -1, "baseline", plant, caches);
   const cands = study.scenarios.map((sc, i) => prepare(sc, i, `scenarios.${i}`, plant, caches));
-  const duty = plantDuty(plant, base.perf);
+  let duty: PlantDuty;
+  try {
+    duty = plantDuty(plant, base.ctx, base.perf);
+  } catch (e) {
+    if (e instanceof InputError) throw new StudyInputError(`plant.${e.field}`, e.detail);
+    throw e;
+  }
+  const loads = new Map<Prepared, { rated: EfficiencyResult; annual: EfficiencyResult }>();
+  const loadsOf = (p: Prepared) => {
+    let l = loads.get(p);
+    if (!l) {
+      l = atLoads(p.perf, duty);
+      loads.set(p, l);
+    }
+    return l;
+  };
   const wobbeRef = (ctx: FuelContext) => ctx.wobbe(plant.wobbeCombustionReferenceC, METERING_REFERENCE_C[plant.wobbeMeteringReference]);
 
-  const fip = (p: Prepared): FuelInPlant => ({ ctx: p.ctx, perf: p.perf, flows: flowsForUseful(plant, p.ctx, p.perf, duty.ratedUseful_kW) });
+  const fip = (p: Prepared): FuelInPlant => {
+    const rated = loadsOf(p).rated;
+    return { ctx: p.ctx, perf: p.perf, rated, flows: flowsForUseful(plant, p.ctx, p.perf, rated, duty.ratedUseful_kW) };
+  };
   const baseFip = fip(base);
 
   const costInputs = (p: Prepared, price: NormalisedPrice): CostInputs => ({
     usefulHeat_MWh: duty.annualUseful_MWh,
-    efficiencyNet: p.perf.efficiency.net.efficiency,
+    efficiencyNet: loadsOf(p).annual.net.efficiency,
     grossOverNet: p.ctx.hv.hhv_MJ_per_kg / p.ctx.hv.lhv_MJ_per_kg,
     deliveredPrice_per_MWh_net: price.perMWh_net,
     co2Fossil_kg_per_GJ_net: p.ctx.co2.fossil_kg_per_GJ_lhv,
@@ -221,7 +266,7 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
   const evaluate = (p: Prepared): ScenarioResult => {
     const isBaseline = p.index === -1;
     const f = isBaseline ? baseFip : fip(p);
-    const eff = p.perf.efficiency;
+    const eff = loadsOf(p).annual;
     const ctx = p.ctx;
     const price = isBaseline ? basePrice : priceOf(p);
     const ci = price ? costInputs(p, price) : null;
@@ -271,6 +316,18 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
       );
     }
     if (!price) scenarioNotes.push("no price quote: cost figures omitted");
+    if (op.flueCODryPpm > 0) {
+      scenarioNotes.push(
+        `${op.flueCODryPpm} ppm CO in the dry flue gas, charged at its heat of combustion (${coHeatOfCombustion_MJ_per_m3().toFixed(2)} MJ per m³ of CO at 0 °C): ${eff.net.percent.unburntCO.toFixed(3)} % of the net input`,
+      );
+    }
+    if (op.unburntCarbonInAshPercent > 0) {
+      scenarioNotes.push(
+        ctx.fuel.ash_kg_per_kg > 0
+          ? `${op.unburntCarbonInAshPercent} % carbon in the residue = ${(1000 * eff.unburntCarbon_kg_per_kg).toFixed(2)} g unburnt carbon per kg fuel, charged at ${(UNBURNT_CARBON_HEATING_VALUE_J_per_kg / 1e6).toFixed(2)} MJ/kg (ASME PTC 4): ${eff.net.percent.unburntCarbon.toFixed(2)} % of the net input`
+          : `unburnt carbon in the ash (${op.unburntCarbonInAshPercent} %) does not apply: this fuel has no ash`,
+      );
+    }
     return {
       index: p.index,
       name: p.scenario.name,
@@ -297,6 +354,8 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
       efficiency: {
         gross: eff.gross.efficiency,
         net: etaN,
+        ratedLoad: { gross: f.rated.gross.efficiency, net: f.rated.net.efficiency },
+        averageLoadFraction: duty.averageLoadFraction,
         lossesGrossPercent: eff.gross.percent,
         lossesNetPercent: eff.net.percent,
         lambda: eff.lambda,
@@ -305,19 +364,16 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
         dewPointC: eff.dewPointC,
         condensedFraction: eff.condensedFraction,
         condensingTemperatureC: eff.condensingTemperatureC,
-        closure: {
-          gross_kJ_per_kg: eff.gross.useful_kJ_per_kg + (eff.gross.totalLossPercent / 100) * eff.gross.input_kJ_per_kg - eff.gross.input_kJ_per_kg,
-          net_kJ_per_kg: eff.net.useful_kJ_per_kg + (eff.net.totalLossPercent / 100) * eff.net.input_kJ_per_kg - eff.net.input_kJ_per_kg,
-          directResidual_kJ_per_kg: eff.balanceResidual_kJ_per_kg,
-        },
+        unburntCarbon_kg_per_kg: eff.unburntCarbon_kg_per_kg,
         siegert: sClass
           ? {
               fuelClass: SIEGERT_CONSTANTS[sClass].label,
               siegertPercent: siegertLossPercent(sClass, op.stackTemperatureC, op.combustionAirC, op.flueO2DryPercent),
-              heatLossMethodPercent: eff.flueLossVsAirNetPercent,
+              heatLossMethodPercent: eff.siegertDefinitionLossPercent,
+              heatLossMethodDefinition: SIEGERT_COMPARISON_DEFINITION,
             }
           : null,
-        basis: "efficiency = useful heat ÷ fuel heat input at HHV (gross) or LHV (net), 25 °C reference; heat-loss method",
+        basis: `efficiency = useful heat ÷ fuel heat input at HHV (gross) or LHV (net), 25 °C reference; heat-loss method; at the average load (${(100 * duty.averageLoadFraction).toFixed(0)} % of rated input; radiation and casing loss a constant heat flow)`,
       },
       flame:
         p.perf.flame && base.perf.flame
@@ -335,7 +391,7 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
         air: pct(f.flows.air_m3_per_h_normal, baseFip.flows.air_m3_per_h_normal),
         flueGas: pct(f.flows.flueGas_m3_per_h_normal, baseFip.flows.flueGas_m3_per_h_normal),
       },
-      annual: annualDemand(plant, ctx, p.perf, duty.annualUseful_MWh),
+      annual: annualDemand(plant, ctx, p.perf, eff, duty.annualUseful_MWh),
       co2PerUsefulMJ_g: co2Useful,
       price: price
         ? p.scenario.price

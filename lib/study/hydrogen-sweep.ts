@@ -9,7 +9,7 @@ import type { FuelDefinition } from "../schemas/fuel";
 import { METERING_REFERENCE_C, operatingPointOf, type Plant } from "../schemas/plant";
 import type { Study } from "../schemas/study";
 import type { FuelContext } from "../plant/fuel-context";
-import { flowsForUseful, type PlantDuty } from "../plant/duty";
+import { efficiencyAtUseful, flowsForUseful, type PlantDuty } from "../plant/duty";
 import { FIT_CHECK_IDS, FIT_CHECK_LABELS, fitChecks, worstStatus, type CheckStatus, type FitCheckId, type FuelInPlant } from "../plant/fit-checks";
 import { normalisePrice, type NormalisedPrice } from "../economics/prices";
 import { scenarioCosts, type CostInputs, type FinanceAssumptions } from "../economics/costs";
@@ -133,7 +133,7 @@ export function hydrogenSweep(env: SweepEnvironment): HydrogenSweepResult {
   const wb = baseCtx.wobbe(plant.wobbeCombustionReferenceC, tmW);
   const Mb = baseCtx.fuel.molarMass_g_per_mol;
   const Mh = h2Ctx.fuel.molarMass_g_per_mol;
-  const baseCo2 = (baseCtx.co2.fossil_kg_per_GJ_lhv + (study.includeUpstream ? (baseCtx.co2.upstreamCo2e_kg_per_GJ_lhv ?? 0) : 0)) / baseFip.perf.efficiency.net.efficiency;
+  const baseCo2 = (baseCtx.co2.fossil_kg_per_GJ_lhv + (study.includeUpstream ? (baseCtx.co2.upstreamCo2e_kg_per_GJ_lhv ?? 0) : 0)) / efficiencyAtUseful(baseFip.perf, duty, duty.averageUseful_kW).net.efficiency;
 
   const points: SweepPoint[] = [];
   let warm: EquilibriumResult | undefined = baseFip.perf.equilibrium;
@@ -151,13 +151,15 @@ export function hydrogenSweep(env: SweepEnvironment): HydrogenSweepResult {
             );
     const perf = caches.performance.get(ctx, op, warm);
     if (perf.equilibrium) warm = perf.equilibrium;
-    const fip: FuelInPlant = { ctx, perf, flows: flowsForUseful(plant, ctx, perf, duty.ratedUseful_kW) };
+    const rated = efficiencyAtUseful(perf, duty, duty.ratedUseful_kW);
+    const annual = efficiencyAtUseful(perf, duty, duty.averageUseful_kW);
+    const fip: FuelInPlant = { ctx, perf, rated, flows: flowsForUseful(plant, ctx, perf, rated, duty.ratedUseful_kW) };
     const checks = fitChecks(plant, baseFip, fip, { messages: false });
     const statuses = {} as Record<FitCheckId, CheckStatus>;
     for (const c of checks) statuses[c.id] = c.status;
     const w = ctx.wobbe(plant.wobbeCombustionReferenceC, tmW);
     const wH2 = (x * Mh) / (x * Mh + (1 - x) * Mb); // mass fraction of hydrogen
-    const etaN = perf.efficiency.net.efficiency;
+    const etaN = annual.net.efficiency;
     const co2 = (ctx.co2.fossil_kg_per_GJ_lhv + (study.includeUpstream ? (ctx.co2.upstreamCo2e_kg_per_GJ_lhv ?? 0) : 0)) / etaN;
     let cost: number | null = null;
     if (basePrice && h2Price && env.baseline.costInputs) {
@@ -182,8 +184,8 @@ export function hydrogenSweep(env: SweepEnvironment): HydrogenSweepResult {
       flameTemperatureC: perf.flame ? perf.flame.temperatureC : null,
       flameShiftK: perf.flame && baseFip.perf.flame ? perf.flame.temperatureK - baseFip.perf.flame.temperatureK : null,
       efficiencyNet: etaN,
-      efficiencyGross: perf.efficiency.gross.efficiency,
-      dewPointC: perf.efficiency.dewPointC,
+      efficiencyGross: annual.gross.efficiency,
+      dewPointC: perf.balance.dewPointC,
       co2PerUsefulMJ_g: co2,
       co2ChangePercent: baseCo2 > 0 ? (100 * (co2 - baseCo2)) / baseCo2 : 0,
       fuelVolume_m3_per_h: flows.fuelVolume_per_h ? flows.fuelVolume_per_h.value : NaN,

@@ -9,7 +9,7 @@
  * converge is reported with its error, never with a number.
  */
 import type { FuelDefinition } from "../schemas/fuel";
-import { resolveFuel, type ResolvedFuel } from "../fuels/resolve";
+import { checkLiquidFeed, resolveFuel, type ResolvedFuel } from "../fuels/resolve";
 import { flameTemperature, lambdaOf, FLAME_METHOD_LABELS, type FlameMethod } from "../combustion/flame";
 import type { Oxidizer } from "../combustion/stoichiometry";
 import type { EquilibriumResult } from "../combustion/equilibrium";
@@ -107,6 +107,8 @@ export function phiSweep(opts: PhiSweepOptions): PhiSweepResult {
     oxidizerTemperatureK: opts.oxidizerTemperatureK ?? T298K,
     pressurePa: opts.pressurePa ?? atmospherePa,
   };
+  // One input error for the whole sweep, not the same refusal at every point.
+  checkLiquidFeed(fuel, common.fuelTemperatureK, common.pressurePa);
   let warm: EquilibriumResult | undefined;
   const solve = (phi: number, method: FlameMethod) => flameTemperature({ ...common, phi, method, warmStart: method === "equilibrium" ? warm : undefined });
 

@@ -87,6 +87,9 @@ describe("schema matches the migrations", () => {
         radiationLossPercent: 1,
         condensing: true,
         returnWaterC: 40,
+        condensingApproachK: 4,
+        flueCODryPpm: 120,
+        unburntCarbonInAshPercent: 8,
         ambientAirTemperatureC: 10,
         ambientAirRelativeHumidityPercent: 70,
         wobbeTolerancePercent: null,
@@ -109,7 +112,7 @@ describe("schema matches the migrations", () => {
       },
     });
     const readPlant = await db.plant.findUniqueOrThrow({ where: { id: plant.id } });
-    expect(readPlant).toMatchObject({ wobbeMin_MJ_per_m3: 47.2, condensing: true, returnWaterC: 40, warnAtFractionOfLimit: 0.85, flueGasCapacityBasis: "normal" });
+    expect(readPlant).toMatchObject({ wobbeMin_MJ_per_m3: 47.2, condensing: true, returnWaterC: 40, condensingApproachK: 4, flueCODryPpm: 120, unburntCarbonInAshPercent: 8, warnAtFractionOfLimit: 0.85, flueGasCapacityBasis: "normal" });
     const study = await db.study.create({
       data: { plantId: plant.id, name: "S1", carbonPrice_per_t: 80, currency: "EUR", discountRatePercent: 8, horizonYears: 15, priceEscalationPercent: 2, rankingMetric: "npv", includeUpstream: true, sensitivityRanges: '{"fuelPricePercent":25}', notes: "" },
     });

@@ -4,7 +4,7 @@ import { evaluateStudy } from "../../lib/study/evaluate";
 import { fitChecks, worstStatus, type FuelInPlant } from "../../lib/plant/fit-checks";
 import { FuelContextCache } from "../../lib/plant/fuel-context";
 import { PerformanceCache } from "../../lib/plant/performance";
-import { flowsForUseful } from "../../lib/plant/duty";
+import { efficiencyAtUseful, flowsForUseful, plantDuty } from "../../lib/plant/duty";
 import { operatingPointOf } from "../../lib/schemas/plant";
 
 const METHANE = { composition: { CH4: 1 } };
@@ -133,7 +133,9 @@ describe("fit checks: pass / warn / fail against the plant's limits", () => {
     });
     const ctx = new FuelContextCache().fromDefinition(METHANE);
     const perf = new PerformanceCache().get(ctx, operatingPointOf(study.plant));
-    const ok: FuelInPlant = { ctx, perf, flows: flowsForUseful(study.plant, ctx, perf, 900) };
+    const duty = plantDuty(study.plant, ctx, perf);
+    const rated = efficiencyAtUseful(perf, duty, duty.ratedUseful_kW);
+    const ok: FuelInPlant = { ctx, perf, rated, flows: flowsForUseful(study.plant, ctx, perf, rated, duty.ratedUseful_kW) };
     const failed: FuelInPlant = { ...ok, perf: { ...perf, flame: null, flameError: "equilibrium flame temperature did not converge: test" } };
     const c = fitChecks(study.plant, ok, failed).find((x) => x.id === "flame-temperature-rise")!;
     expect(c.status).toBe("not-checked");

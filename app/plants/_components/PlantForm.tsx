@@ -7,6 +7,7 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { ErrorSummary, Field, FieldError, invalid, toNumber, type Errors } from "../../fuels/_components/fields";
 import { CAPACITY_UNITS_KW, capacityToKW, type CapacityUnit } from "@/lib/units/number-entry";
+import { DEFAULT_CONDENSING_APPROACH_K } from "@/lib/schemas/plant";
 
 export interface PlantFormOptions {
   fuels: { id: number; name: string; kind: string }[];
@@ -28,6 +29,9 @@ const NUMBER_FIELDS = [
   "combustionAirC",
   "radiationLossPercent",
   "returnWaterC",
+  "condensingApproachK",
+  "flueCODryPpm",
+  "unburntCarbonInAshPercent",
   "ambientAir.temperatureC",
   "ambientAir.relativeHumidityPercent",
   "wobbeTolerancePercent",
@@ -54,6 +58,9 @@ const NEW_DEFAULTS: Record<NumField, string> = {
   combustionAirC: "25",
   radiationLossPercent: "1",
   returnWaterC: "",
+  condensingApproachK: String(DEFAULT_CONDENSING_APPROACH_K),
+  flueCODryPpm: "0",
+  unburntCarbonInAshPercent: "0",
   "ambientAir.temperatureC": "15",
   "ambientAir.relativeHumidityPercent": "60",
   wobbeTolerancePercent: "5",
@@ -150,6 +157,9 @@ export function PlantForm({ options, initial }: { options: PlantFormOptions; ini
       radiationLossPercent: n("radiationLossPercent"),
       condensing,
       returnWaterC: condensing ? n("returnWaterC") : null,
+      ...(condensing ? { condensingApproachK: n("condensingApproachK") } : {}),
+      flueCODryPpm: n("flueCODryPpm"),
+      unburntCarbonInAshPercent: n("unburntCarbonInAshPercent"),
       ambientAir: { temperatureC: n("ambientAir.temperatureC"), relativeHumidityPercent: n("ambientAir.relativeHumidityPercent") },
       wobbeTolerancePercent: wobbeMode === "band" ? n("wobbeTolerancePercent") : null,
       wobbeMin_MJ_per_m3: wobbeMode === "range" ? n("wobbeMin_MJ_per_m3") : null,
@@ -266,7 +276,11 @@ export function PlantForm({ options, initial }: { options: PlantFormOptions; ini
           {numInput("stackTemperatureC", "Stack temperature, °C", "flue gas leaving the unit")}
           {numInput("flueO2DryPercent", "Flue-gas O2, vol % dry")}
           {numInput("combustionAirC", "Combustion-air temperature, °C", "at the burner, after any preheater")}
-          {numInput("radiationLossPercent", "Radiation and casing loss, % of input")}
+          {numInput("radiationLossPercent", "Radiation and casing loss, % of input at rated load", "a constant heat flow: its share grows at part load")}
+        </div>
+        <div className="row">
+          {numInput("flueCODryPpm", "CO in the flue gas, ppm dry", "charged as an unburnt loss; 0 if not measured")}
+          {numInput("unburntCarbonInAshPercent", "Unburnt carbon in the ash, % of the residue", "solid fuels; 0 if not measured")}
         </div>
         <div className="row">
           <div className="field">
@@ -276,6 +290,7 @@ export function PlantForm({ options, initial }: { options: PlantFormOptions; ini
             </label>
           </div>
           {condensing && numInput("returnWaterC", "Return-water temperature, °C")}
+          {condensing && numInput("condensingApproachK", "Approach to the return water, K", "the stack cannot be colder than return water + approach")}
           {numInput("ambientAir.temperatureC", "Ambient air, °C")}
           {numInput("ambientAir.relativeHumidityPercent", "Ambient relative humidity, %")}
         </div>

@@ -1,6 +1,7 @@
 /** φ sweep: equilibrium and complete-combustion flame temperatures against the equivalence ratio. */
 import { describe, expect, it } from "vitest";
 import { phiSweep } from "../../../lib/study/phi-sweep";
+import { InputError } from "../../../lib/errors";
 
 describe("phi sweep", () => {
   const methane = phiSweep({ fuel: { composition: { CH4: 1 } } });
@@ -56,6 +57,16 @@ describe("phi sweep", () => {
     const hot = phiSweep({ fuel: { composition: { CH4: 1 } }, oxidizerTemperatureK: 573.15, steps: 4, phiMin: 0.8, phiMax: 1.2 });
     const cold = phiSweep({ fuel: { composition: { CH4: 1 } }, steps: 4, phiMin: 0.8, phiMax: 1.2 });
     hot.points.forEach((p, i) => expect(p.equilibriumK!).toBeGreaterThan(cold.points[i].equilibriumK! + 100));
+  });
+
+  it("a liquid fed above its boiling point is refused once, naming fuelTemperatureK; below it the sweep runs", () => {
+    // Methanol boils at 64.7 °C at 101.325 kPa and at about 112 °C at 5 bar (NIST Chemistry WebBook,
+    // methanol phase-change data, value from memory); the model's Clausius–Clapeyron estimate must be within 3 K.
+    const fuel = { compound: "CH3OH", phase: "liquid" as const };
+    expect(() => phiSweep({ fuel, fuelTemperatureK: 273.15 + 66, steps: 2 })).toThrow(/^fuelTemperatureK: methanol boils at 337\.8 K/);
+    expect(() => phiSweep({ fuel, fuelTemperatureK: 273.15 + 63, steps: 2, meanCp: false })).not.toThrow();
+    expect(() => phiSweep({ fuel, fuelTemperatureK: 273.15 + 109, pressurePa: 5e5, steps: 2, meanCp: false })).not.toThrow();
+    expect(() => phiSweep({ fuel, fuelTemperatureK: 273.15 + 115, pressurePa: 5e5, steps: 2 })).toThrow(InputError);
   });
 
   it("rejects an impossible range with an input error naming the field", () => {

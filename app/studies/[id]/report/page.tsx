@@ -18,6 +18,7 @@ import { co2Rows, costRows, failingChecks, headline, metricText, ranked, scatter
 import { METRIC_SHORT, viewChoice, viewQuery, type SearchParams } from "../../_components/settings";
 import { PlantLimitsTable } from "../../../plants/_components/PlantLimits";
 import { fieldValueText } from "@/lib/schemas/labels";
+import { SIEGERT_COMPARISON_DEFINITION } from "@/lib/plant/siegert";
 
 export const dynamic = "force-dynamic";
 
@@ -304,7 +305,7 @@ export default async function ReportPage({ params, searchParams }: Props) {
                   <th className="num">Excess air %</th>
                   <th className="num">Dew point {d.tempUnit}</th>
                   <th className="num">Flame {d.tempUnit}</th>
-                  <th className="num">Siegert check % / heat-loss %</th>
+                  <th className="num">Siegert % / flue-gas loss by its definition %</th>
                 </tr>
               </thead>
               <tbody>
@@ -323,7 +324,7 @@ export default async function ReportPage({ params, searchParams }: Props) {
               </tbody>
             </table>
           </div>
-          <p className="table-note">{result.baseline.efficiency.basis}. Siegert: rule-of-thumb flue loss (German 1. BImSchV) beside the heat-loss method&apos;s, where its constants apply.</p>
+          <p className="table-note">{result.baseline.efficiency.basis}. Siegert: rule-of-thumb flue loss (German 1. BImSchV), where its constants apply, beside the {SIEGERT_COMPARISON_DEFINITION}.</p>
         </section>
 
         {sw && (

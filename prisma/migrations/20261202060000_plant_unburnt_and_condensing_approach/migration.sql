@@ -1,0 +1,4 @@
+-- AlterTable
+ALTER TABLE "Plant" ADD COLUMN "condensingApproachK" REAL NOT NULL DEFAULT 5;
+ALTER TABLE "Plant" ADD COLUMN "flueCODryPpm" REAL NOT NULL DEFAULT 0;
+ALTER TABLE "Plant" ADD COLUMN "unburntCarbonInAshPercent" REAL NOT NULL DEFAULT 0;
