@@ -5,6 +5,7 @@
 import type { FuelDefinition } from "../schemas/fuel";
 import { resolveFuel, type ResolvedFuel } from "../fuels/resolve";
 import { heatingValues } from "./heating-values";
+import { MJ_per_kWh } from "../units/energy";
 import { DRY_AIR, oxidizerDemand } from "./stoichiometry";
 import { co2MaxDryPercent, flueAcidDewPointC, flueGasPerKgFuel, SO3_CONVERSION_DEFAULT, waterDewPointC } from "./flue-gas";
 import { co2Factors, type Co2Factors } from "./co2";
@@ -86,7 +87,7 @@ export function fuelPropertiesFromResolved(fuel: ResolvedFuel, opts: PropertyOpt
   const airM3PerKg = demand.oxidizer_kg_per_kg / rhoAir;
   const fg = flueGasPerKgFuel(fuel, { lambda: 1, oxidizer: DRY_AIR });
   const figures = (MJ_per_kg: number, kJ_per_mol: number | undefined, kJ_per_mol_O2: number, MJ_per_kg_O2: number): HeatingValueFigures => {
-    const f: HeatingValueFigures = { MJ_per_kg, kJ_per_mol_O2, MJ_per_kg_O2, MJ_per_m3_air: MJ_per_kg / airM3PerKg, kWh_per_kg: MJ_per_kg / 3.6 };
+    const f: HeatingValueFigures = { MJ_per_kg, kJ_per_mol_O2, MJ_per_kg_O2, MJ_per_m3_air: MJ_per_kg / airM3PerKg, kWh_per_kg: MJ_per_kg / MJ_per_kWh };
     if (kJ_per_mol !== undefined) f.kJ_per_mol = kJ_per_mol;
     return f;
   };

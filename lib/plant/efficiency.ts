@@ -11,7 +11,8 @@
  * from the IAPWS-IF97 saturation pressure. The same bookkeeping closes exactly:
  *   useful + Σ losses − Σ credits = fuel heat input (HHV or LHV at 25 °C).
  */
-import { stoichiometricO2_mol_per_kg, type ResolvedFuel } from "../fuels/resolve";
+import type { ResolvedFuel } from "../fuels/resolve";
+import { stoichiometricO2_mol_per_kg } from "../combustion/stoichiometry";
 import type { HeatingValues } from "../combustion/heating-values";
 import { flueGasPerKgFuel, waterDewPointC, FLUE_SPECIES, type FlueGas, type FlueSpecies } from "../combustion/flue-gas";
 import { OXIDIZER_SPECIES, type Oxidizer } from "../combustion/stoichiometry";
