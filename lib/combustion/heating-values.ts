@@ -30,7 +30,10 @@ export interface HeatingValues {
 }
 
 
-export function heatingValues(fuel: ResolvedFuel, combustionReferenceC = 25): HeatingValues {
+/** Combustion reference temperature of heating values unless another is asked for, °C (ISO 6976:2016 lists 25 °C first). */
+export const DEFAULT_COMBUSTION_REFERENCE_C = 25;
+
+export function heatingValues(fuel: ResolvedFuel, combustionReferenceC = DEFAULT_COMBUSTION_REFERENCE_C): HeatingValues {
   const T = celsiusToKelvin(combustionReferenceC);
   const el = fuel.elements_mol_per_kg;
   const nO2 = assertCombustible(fuel);

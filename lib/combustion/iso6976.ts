@@ -37,6 +37,9 @@ export const SUMMATION_FACTORS: Record<string, Triple> = {
   NO: [0.0237, 0.0224, 0.0219],
 };
 
+/** Metering reference temperature of volumetric figures unless another is asked for, °C (at 101.325 kPa). */
+export const DEFAULT_METERING_REFERENCE_C = 15;
+
 /** Molar mass of ISO 6976:2016 standard dry air, g/mol (value from memory, medium-high confidence). */
 export const AIR_MOLAR_MASS_g_per_mol = 28.96546;
 /** Compression factor of dry air at 0, 15, 20 °C and 101.325 kPa (ISO 6976:2016; value from memory). */
