@@ -6,7 +6,7 @@
 import { InputError } from "../../errors";
 import { evalInto } from "../../thermo/nasa7";
 import { R_J_per_molK } from "../../units/constants";
-import { MATRIX_STRIDE as S, solveDense } from "./linear";
+import { MATRIX_STRIDE, solveDense } from "./linear";
 import {
   LIMIT_ELEMENT_BALANCE,
   LIMIT_ENTHALPY_BALANCE,
@@ -46,6 +46,7 @@ function allocMoles(length: number): Float64Array {
 }
 
 export function solveEquilibrium(ws: Workspace, p: Omit<EquilibriumProblem, "enthalpyJ">, hp: boolean, H0_J: number, Tgiven: number): EquilibriumResult {
+  const S = MATRIX_STRIDE; // row stride of M (a local constant for the inner loops)
   ws.setup(p);
   if (!hp && (Tgiven < ws.tLow || Tgiven > ws.tHigh)) {
     fail("temperatureK", `${Tgiven} K is outside the range of the species data (${ws.tLow}–${ws.tHigh} K)`);
