@@ -201,7 +201,9 @@ export function solveEquilibrium(ws: Workspace, p: Omit<EquilibriumProblem, "ent
 
     if (!solveDense(M, rhs, x, m, S)) {
       throw new EquilibriumNotConvergedError(
-        `chemical equilibrium iteration matrix became singular at iteration ${iter}`,
+        `the equilibrium composition cannot be resolved at ${T.toFixed(0)} K: the charge is (nearly) a single ` +
+          `product species, so the amounts of the others are below what double precision can separate ` +
+          `(Newton matrix singular at iteration ${iter})`,
         iter,
         lastResidual,
       );
