@@ -10,7 +10,7 @@ import { InputError, joinPath } from "../errors";
 import { MOLAR_MASS_g_per_mol, SPECIES } from "../thermo/species-data";
 import { ATOMIC_WEIGHT_g_per_mol, molarMass_g_per_mol } from "../thermo/elements";
 import { T298K } from "../units/constants";
-import type { BlendFuelDefinition, FuelDefinition } from "../schemas/fuel";
+import { MAX_BLEND_NESTING, type BlendFuelDefinition, type FuelDefinition } from "../schemas/fuel";
 import { LIQUID_COMPOUNDS, LIQUID_FUEL_CP_J_per_kgK, SOLID_FUEL_CP_J_per_kgK } from "./compounds";
 
 export type FuelKind = "gas" | "liquid" | "solid";
@@ -53,11 +53,7 @@ export interface ResolvedFuel {
 export const FuelDefinitionError = InputError;
 export type FuelDefinitionError = InputError;
 
-/**
- * Deepest nesting of blends accepted (a blend of blends … counts one level per `blend`). Real
- * blending needs two or three levels; the limit keeps a malformed definition from exhausting the stack.
- */
-export const MAX_BLEND_NESTING = 16;
+export { MAX_BLEND_NESTING };
 
 const ZERO = (): ElementMoles => ({ C: 0, H: 0, O: 0, N: 0, S: 0, Ar: 0 });
 
