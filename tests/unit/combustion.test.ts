@@ -49,6 +49,11 @@ describe("heating values against the ISO 6976:2016 component table (molar, ideal
       expect(rel(b.lhv_kJ_per_mol!, n15)).toBeLessThan(2e-4);
     });
   }
+  it("n-pentane 3535.77 and n-hexane 4194.95 kJ/mol: GCV at 25 °C within 0.01 %", () => {
+    // ISO 6976:2016 Table 3, molar GCV at 25 °C (values from memory)
+    expect(rel(hv({ compound: "nC5H12", phase: "gas" }).hhv_kJ_per_mol!, 3535.77)).toBeLessThan(1e-4);
+    expect(rel(hv({ compound: "nC6H14", phase: "gas" }).hhv_kJ_per_mol!, 4194.95)).toBeLessThan(1e-4);
+  });
   it("H2S: GCV within 0.05 % (ISO 6976:2016 Table 3: 562.01 kJ/mol at 25 °C; sulfur thermochemistry differs slightly between databases)", () => {
     expect(rel(hv({ compound: "H2S" }).hhv_kJ_per_mol!, 562.01)).toBeLessThan(5e-4);
   });

@@ -155,44 +155,8 @@ describe("standard enthalpies of formation at 298.15 K (h at 298.15 K includes �
   });
 });
 
-describe("formation enthalpies reproduce ISO 6976:2016 gross calorific values at 25 °C", () => {
-  // GCV(25 °C) = −ΔcH° with CO2(g), H2O(l) and, for sulfur, SO2(g) as products.
-  const hf = (key: string) => h_J_per_mol(SPECIES[key], 298.15);
-  function gcv_kJ_per_mol(key: string): number {
-    const e = SPECIES[key].elements;
-    const C = e.C ?? 0, H = e.H ?? 0, S = e.S ?? 0;
-    const products = C * hf("CO2") + (H / 2) * hf("H2O(L)") + S * hf("SO2");
-    return -kJ(products - hf(key)); // O2 has zero enthalpy of formation
-  }
-  // ISO 6976:2016 component table, molar GCV at 25 °C (confirmed),
-  // except n-pentane and n-hexane (ISO 6976 values from memory).
-  const iso: [string, number, number][] = [
-    ["CH4", 890.58, 1e-4],
-    ["C2H6", 1560.69, 1e-4],
-    ["C3H8", 2219.17, 1e-4],
-    ["nC4H10", 2877.4, 1e-4],
-    ["iC4H10", 2868.2, 1e-4],
-    ["nC5H12", 3535.77, 1e-4], // value from memory
-    ["nC6H14", 4194.95, 1e-4], // value from memory
-    ["H2", 285.83, 1e-4],
-    ["CO", 282.98, 1e-4],
-    // The H2S record is an older fit (300–5000 K); with it GCV comes out 0.15 kJ/mol (0.03 %) above
-    // ISO 6976: tolerance 0.05 %.
-    ["H2S", 562.01, 5e-4],
-  ];
-  for (const [key, ref, tol] of iso) {
-    it(`${key}: ${ref} kJ/mol`, () => {
-      expect(relErr(gcv_kJ_per_mol(key), ref)).toBeLessThan(tol);
-    });
-  }
-
-  it("CH4 net value: 802.60 kJ/mol in the table, about 802.55 self-consistent", () => {
-    // ISO 6976:2016 NCV(25 °C) 802.60 (confirmed; a self-consistent value is
-    // about 0.05 kJ/mol lower): allow 0.02 %.
-    const ncv = -kJ(hf("CO2") + 2 * hf("H2O") - hf("CH4"));
-    expect(relErr(ncv, 802.6)).toBeLessThan(2e-4);
-  });
-});
+// The formation enthalpies are checked against ISO 6976:2016 heating values once, through the heating-value
+// code itself (tests/unit/combustion.test.ts).
 
 describe("liquid water and standard entropies", () => {
   it("H2O(g) − H2O(l) at 298.15 K gives the enthalpy of vaporisation 44.004 kJ/mol", () => {
