@@ -218,7 +218,13 @@ function resolveBlend(def: BlendFuelDefinition, label: string, field: string, de
   // Mass of each component per unit of the basis share.
   let massPerShare: number[];
   if (def.basis === "mass") massPerShare = parts.map(() => 1);
-  else if (def.basis === "energy") massPerShare = parts.map((p) => 1 / energyShareWeight_MJ_per_kg(p.f));
+  else if (def.basis === "energy") {
+    massPerShare = parts.map((p, i) => {
+      const e = energyShareWeight_MJ_per_kg(p.f);
+      if (!(e > 0)) throw new InputError(`${field}.blend.${i}.share`, "this component releases no heat, so it cannot carry a share of the energy; blend it by volume or mass");
+      return 1 / e;
+    });
+  }
   else {
     if (kind === "gas") massPerShare = parts.map((p) => p.f.molarMass_g_per_mol! / 1000);
     else if (kind === "liquid") {

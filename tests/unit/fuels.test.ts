@@ -130,3 +130,11 @@ describe("input errors name the field as the user wrote it", () => {
     }
   });
 });
+
+describe("energy-share blends need components that release heat", () => {
+  it("nitrogen in a blend by energy share is an InputError naming its share", () => {
+    const def: FuelDefinition = { blend: [{ fuel: CH4, share: 0.9 }, { fuel: { compound: "N2" }, share: 0.1 }], basis: "energy" };
+    expect(() => resolveFuel(def)).toThrow(InputError);
+    expect(() => resolveFuel(def)).toThrow(/^fuel\.blend\.1\.share: /);
+  });
+});
