@@ -138,12 +138,13 @@ describe("equilibrium adiabatic flame temperature against published values (298.
   });
 
   // Glassman & Yetter, Combustion, 4th ed., ch. 1, Table 1.1 "Approximate flame temperatures of various
-  // stoichiometric mixtures, initial temperature 298 K": H2–air 2400 K, H2–O2 3080 K, CH4–O2 3030 K,
-  // CO–air 2400 K (values from memory). The table rounds to 10 K and calls its values approximate
+  // stoichiometric mixtures, initial temperature 298 K": H2–air 2400 K, H2–O2 3080 K, CH4–air 2210 K,
+  // CH4–O2 3030 K, CO–air 2400 K (values from memory). The table rounds to 10 K and calls its values approximate
   // (older thermochemical data); the comparison supports agreement within 1 % of the temperature.
   const glassman: [string, Mix, Mix, number][] = [
     ["hydrogen–air", { H2: 1 }, TEXTBOOK_AIR, 2400],
     ["hydrogen–oxygen", { H2: 1 }, OXYGEN, 3080],
+    ["methane–air", { CH4: 1 }, TEXTBOOK_AIR, 2210],
     ["methane–oxygen", { CH4: 1 }, OXYGEN, 3030],
     ["carbon monoxide–air", { CO: 1 }, TEXTBOOK_AIR, 2400],
   ];
