@@ -61,8 +61,12 @@ let defaultSulfurSolver: EquilibriumSolver | undefined;
 function solverFor(p: { elementMoles: Partial<Record<Element, number>>; productSpecies?: readonly string[] }): EquilibriumSolver {
   const list = p.productSpecies;
   if (list === undefined) {
-    if ((p.elementMoles?.S ?? 0) > 0) return (defaultSulfurSolver ??= new EquilibriumSolver(DEFAULT_WITH_SULFUR));
-    return (defaultSolver ??= new EquilibriumSolver(DEFAULT_PRODUCT_SPECIES));
+    if ((p.elementMoles?.S ?? 0) > 0) {
+      if (defaultSulfurSolver === undefined) defaultSulfurSolver = new EquilibriumSolver(DEFAULT_WITH_SULFUR);
+      return defaultSulfurSolver;
+    }
+    if (defaultSolver === undefined) defaultSolver = new EquilibriumSolver(DEFAULT_PRODUCT_SPECIES);
+    return defaultSolver;
   }
   if (!Array.isArray(list)) fail("productSpecies", "must be an array of species keys");
   const key = list.join(",");

@@ -99,7 +99,7 @@ export class Workspace {
     const seen = new Set<string>();
     const data: Nasa7Species[] = [];
     for (const key of productSpecies) {
-      const sp = Object.prototype.hasOwnProperty.call(SPECIES, key) ? SPECIES[key] : undefined;
+      const sp = Object.hasOwn(SPECIES, key) ? SPECIES[key] : undefined;
       if (!sp) fail("productSpecies", `unknown species "${key}"`);
       if (sp.phase !== "gas") fail("productSpecies", `"${key}" is not a gas; only gaseous products are modelled`);
       if (seen.has(key)) fail("productSpecies", `"${key}" is listed twice`);
