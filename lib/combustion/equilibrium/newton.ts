@@ -7,21 +7,7 @@ import { InputError } from "../../errors";
 import { evalInto } from "../../thermo/nasa7";
 import { R_J_per_molK } from "../../units/constants";
 import { MATRIX_STRIDE, solveDense } from "./linear";
-import {
-  LIMIT_ELEMENT_BALANCE,
-  LIMIT_ENTHALPY_BALANCE,
-  LN_1E4,
-  LN_FLOOR,
-  MAX_ITERATIONS,
-  MAX_POLISH_ITERATIONS,
-  SIZE,
-  T_ITER_MAX,
-  T_ITER_MIN,
-  TOL_ELEMENT_RP1311,
-  TOL_FINAL_STEP,
-  TOL_LNT,
-  TOL_MOLES,
-} from "./settings";
+import * as settings from "./settings";
 import { coldGuess, seedNearStoichiometric, temperatureGuess, traceEstimate, warmStart } from "./start";
 import { EquilibriumNotConvergedError, type EquilibriumProblem, type EquilibriumResult } from "./types";
 import type { Workspace } from "./workspace";
@@ -46,7 +32,10 @@ function allocMoles(length: number): Float64Array {
 }
 
 export function solveEquilibrium(ws: Workspace, p: Omit<EquilibriumProblem, "enthalpyJ">, hp: boolean, H0_J: number, Tgiven: number): EquilibriumResult {
-  const S = MATRIX_STRIDE; // row stride of M (a local constant for the inner loops)
+  // the settings and the row stride of M as local constants for the inner loops
+  const S = MATRIX_STRIDE;
+  const { LIMIT_ELEMENT_BALANCE, LIMIT_ENTHALPY_BALANCE, LN_1E4, LN_FLOOR, MAX_ITERATIONS, MAX_POLISH_ITERATIONS } = settings;
+  const { SIZE, T_ITER_MAX, T_ITER_MIN, TOL_ELEMENT_RP1311, TOL_FINAL_STEP, TOL_LNT, TOL_MOLES } = settings;
   ws.setup(p);
   if (!hp && (Tgiven < ws.tLow || Tgiven > ws.tHigh)) {
     fail("temperatureK", `${Tgiven} K is outside the range of the species data (${ws.tLow}–${ws.tHigh} K)`);

@@ -7,9 +7,12 @@ import { InputError } from "../../errors";
 import { evalInto } from "../../thermo/nasa7";
 import { R_J_per_molK } from "../../units/constants";
 import { MATRIX_STRIDE, solveDense } from "./linear";
-import { E_AR, E_C, E_H, E_N, E_O, E_S, LN_FLOOR, SEED_NEAR_STOICH, T_GUESS_MAX, T_GUESS_MIN, T_SEED_MIN, TRACE_START } from "./settings";
+import * as settings from "./settings";
 import type { EquilibriumResult } from "./types";
 import type { Workspace } from "./workspace";
+
+// Settings as module-level constants (plain locals in the hot loops, not live import bindings).
+const { E_AR, E_C, E_H, E_N, E_O, E_S, LN_FLOOR, SEED_NEAR_STOICH, T_GUESS_MAX, T_GUESS_MIN, T_SEED_MIN, TRACE_START } = settings;
 
 function fail(field: string, msg: string): never {
   throw new InputError(field, msg);
@@ -144,6 +147,7 @@ export function temperatureGuess(ws: Workspace, H0_J: number): number {
  * Returns ln(total moles). Leaves the estimate unchanged if the fit is singular.
  */
 export function traceEstimate(ws: Workspace, T: number, lnP: number, lnNtot: number): number {
+  const S = MATRIX_STRIDE;
   const nS = ws.nS;
   const nE = ws.nE;
   const ns = ws.ns;
@@ -154,7 +158,7 @@ export function traceEstimate(ws: Workspace, T: number, lnP: number, lnNtot: num
   evalInto(ws.data, T, ws.cpR, ws.hRT, ws.sR);
   for (let i = 0; i < nE; i++) {
     r[i] = 0;
-    for (let c = 0; c < nE; c++) M[i * MATRIX_STRIDE + c] = 0;
+    for (let c = 0; c < nE; c++) M[i * S + c] = 0;
   }
   const N = Math.exp(lnNtot);
   for (let k = 0; k < nS; k++) {
@@ -166,11 +170,11 @@ export function traceEstimate(ws: Workspace, T: number, lnP: number, lnNtot: num
       const aik = a[i * ns + k];
       if (aik === 0) continue;
       const t = w * aik;
-      for (let i2 = 0; i2 < nE; i2++) M[i * MATRIX_STRIDE + i2] += t * a[i2 * ns + k];
+      for (let i2 = 0; i2 < nE; i2++) M[i * S + i2] += t * a[i2 * ns + k];
       r[i] += t * muk;
     }
   }
-  if (!solveDense(M, r, x, nE, MATRIX_STRIDE)) return lnNtot;
+  if (!solveDense(M, r, x, nE, S)) return lnNtot;
   const lnCap = Math.log(0.05);
   let sum = 0;
   for (let k = 0; k < nS; k++) {

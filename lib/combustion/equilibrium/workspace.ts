@@ -7,8 +7,11 @@ import { InputError } from "../../errors";
 import { ELEMENTS, type Nasa7Species } from "../../thermo/nasa7";
 import { SPECIES } from "../../thermo/species-data";
 import { MATRIX_STRIDE } from "./linear";
-import { E_O, MIN_ELEMENT_RATIO, NE_ALL, T_EXTRAPOLATE_DOWN_TO } from "./settings";
+import * as settings from "./settings";
 import { EquilibriumInfeasibleError, type EquilibriumProblem } from "./types";
+
+// Settings as module-level constants (plain locals in the hot loops, not live import bindings).
+const { E_O, MIN_ELEMENT_RATIO, NE_ALL, T_EXTRAPOLATE_DOWN_TO } = settings;
 
 function fail(field: string, msg: string): never {
   throw new InputError(field, msg);
