@@ -9,13 +9,16 @@
  * All work per kg of fuel: the reactant charge is 1 kg of fuel and its oxidiser.
  */
 import type { FuelDefinition } from "../schemas/fuel";
-import { checkLiquidFeed, resolveFuel, stoichiometricO2_mol_per_kg, type ResolvedFuel } from "../fuels/resolve";
-import { cp_J_per_molK, h_J_per_mol, ELEMENTS, type Element, type Nasa7Species } from "../thermo/nasa7";
+import { checkLiquidFeed, resolveFuel, type ResolvedFuel } from "../fuels/resolve";
+import { InfeasibleChargeError, InputError, NotConvergedError } from "../errors";
+import { cp_J_per_molK, g_J_per_mol, h_J_per_mol, ELEMENTS, type Element } from "../thermo/nasa7";
 import { SPECIES } from "../thermo/species-data";
 import { R_J_per_molK, T298K, atmospherePa } from "../units/constants";
 import {
   DRY_AIR,
   OXIDIZER_SPECIES,
+  assertCombustible,
+  stoichiometricO2_mol_per_kg,
   lambdaFromExcessAirPercent,
   lambdaFromFlueO2Dry,
   type Oxidizer,
@@ -67,13 +70,30 @@ function isResolved(f: FuelDefinition | ResolvedFuel): f is ResolvedFuel {
   return (f as ResolvedFuel).elements_mol_per_kg !== undefined;
 }
 
-/** Oxidiser supply λ from whichever of φ / excess air / flue O2 is given. */
-export function lambdaOf(fuel: ResolvedFuel, input: Pick<FlameInput, "phi" | "excessAirPercent" | "flueO2DryPercent">, oxidizer: Oxidizer): number {
-  const given = [input.phi, input.excessAirPercent, input.flueO2DryPercent].filter((v) => v !== undefined).length;
-  if (given > 1) throw new RangeError("give only one of phi, excessAirPercent, flueO2DryPercent");
-  if (input.excessAirPercent !== undefined) return lambdaFromExcessAirPercent(input.excessAirPercent);
-  if (input.flueO2DryPercent !== undefined) return lambdaFromFlueO2Dry(fuel, input.flueO2DryPercent, oxidizer);
-  return 1 / (input.phi ?? 1);
+type SupplyField = "phi" | "excessAirPercent" | "flueO2DryPercent";
+
+/** The field the user stated the oxidiser supply with (φ when none: the default φ = 1). */
+export function supplyFieldOf(input: Pick<FlameInput, SupplyField>): SupplyField {
+  if (input.excessAirPercent !== undefined) return "excessAirPercent";
+  if (input.flueO2DryPercent !== undefined) return "flueO2DryPercent";
+  return "phi";
+}
+
+/** Oxidiser supply λ from whichever of φ / excess air / flue O2 is given. Throws InputError naming it. */
+export function lambdaOf(fuel: ResolvedFuel, input: Pick<FlameInput, SupplyField>, oxidizer: Oxidizer): number {
+  const given = (["phi", "excessAirPercent", "flueO2DryPercent"] as const).filter((k) => input[k] !== undefined);
+  if (given.length > 1) throw new InputError(given[1], `give only one of phi, excessAirPercent, flueO2DryPercent (got ${given.join(", ")})`);
+  const field = supplyFieldOf(input);
+  const value = input[field];
+  if (value !== undefined && !Number.isFinite(value)) throw new InputError(field, `must be a finite number, got ${String(value)}`);
+  let lambda: number;
+  if (input.excessAirPercent !== undefined) lambda = lambdaFromExcessAirPercent(input.excessAirPercent);
+  else if (input.flueO2DryPercent !== undefined) lambda = lambdaFromFlueO2Dry(fuel, input.flueO2DryPercent, oxidizer);
+  else lambda = 1 / (input.phi ?? 1);
+  if (!(lambda > 0) || !Number.isFinite(lambda)) {
+    throw new InputError(field, field === "excessAirPercent" ? `must be above −100 %, got ${String(value)}` : `must be > 0, got ${String(value)}`);
+  }
+  return lambda;
 }
 
 interface Charge {
@@ -119,14 +139,33 @@ function fractions(p: Products): Products {
   return out;
 }
 
-/** Rich-side element bookkeeping: C, H, O (after SO2), N, Ar of the charge. */
+/** Rich-side element bookkeeping: C, H, O (after SO2), N, Ar of a charge that passed assertGasPhaseCharge. */
 function richBudget(c: Charge) {
   const { C, H, O, N, S, Ar } = c.elements;
-  const Oav = O - 2 * S;
-  if (Oav < C - 1e-12 * Math.max(C, 1)) {
-    throw new RangeError("mixture too rich for a gas-phase product model: not enough oxygen to turn all carbon into CO (soot would form)");
-  }
-  return { C, H, Oav, N, S, Ar };
+  return { C, H, Oav: O - 2 * S, N, S, Ar };
+}
+
+/**
+ * The one feasibility rule of all three methods: a gas-phase product model needs at least the oxygen
+ * that turns all carbon into CO and all sulfur into SO2; with less, soot would form. Names the field
+ * the user stated the supply with, and the richest φ that can be computed.
+ */
+function assertGasPhaseCharge(fuel: ResolvedFuel, oxidizer: Oxidizer, lambda: number, field: SupplyField, value: number | undefined): void {
+  const f = fuel.elements_mol_per_kg;
+  const need = f.C + 2 * f.S; // O atoms for C → CO, S → SO2
+  if (!(need > 0)) return;
+  // O atoms the oxidiser brings per unit λ, and the fuel's own
+  const perLambda = reactantCharge(fuel, 1, oxidizer, T298K, T298K).elements.O - f.O;
+  const have = f.O + lambda * perLambda;
+  if (have > need * (1 + 1e-9)) return;
+  const phiMax = need > f.O ? perLambda / (need - f.O) : Infinity;
+  const stated = value === undefined ? "φ = 1" : field === "phi" ? `φ = ${value}` : `${value} (φ = ${(1 / lambda).toPrecision(3)})`;
+  throw new InfeasibleChargeError(
+    field,
+    `${stated} is too rich for a gas-phase product model: the oxygen cannot turn all ` +
+      `carbon into CO, so soot would form; the richest mixture that can be computed is φ ≈ ${phiMax.toPrecision(3)}`,
+    "soot",
+  );
 }
 
 /** Hand rule for rich products: oxygen first to CO, then to H2O, any rest turns CO into CO2. */
@@ -142,8 +181,8 @@ function richHandProducts(c: Charge): Products {
 /** Rich products in water-gas-shift equilibrium CO + H2O ⇌ CO2 + H2 at T (K from NASA g°). */
 function richShiftProducts(c: Charge, T: number): Products {
   const { C, H, Oav, N, S, Ar } = richBudget(c);
-  const g = (sp: Nasa7Species) => h_J_per_mol(sp, T) - T * sEntropy(sp, T);
-  const dG = g(SPECIES.CO2) + g(SPECIES.H2) - g(SPECIES.CO) - g(SPECIES.H2O);
+  // Δn = 0: the standard-state pressure drops out of K
+  const dG = g_J_per_mol(SPECIES.CO2, T) + g_J_per_mol(SPECIES.H2, T) - g_J_per_mol(SPECIES.CO, T) - g_J_per_mol(SPECIES.H2O, T);
   const K = Math.exp(-dG / (R_J_per_molK * T));
   // a = CO2; CO = C − a; H2O = Oav − C − a; H2 = H/2 − (Oav − C − a)
   const lo = Math.max(0, Oav - C - H / 2);
@@ -163,12 +202,6 @@ function richShiftProducts(c: Charge, T: number): Products {
   return { CO2: a, CO: C - a, H2O: Oav - C - a, H2: H / 2 - (Oav - C - a), N2: N / 2, SO2: S, Ar };
 }
 
-function sEntropy(sp: Nasa7Species, T: number): number {
-  // s° at the species' standard pressure; the shift reaction has Δn = 0, so pressure drops out.
-  const a = T < sp.rangesK[1] ? sp.lowCoeffs : sp.highCoeffs;
-  return R_J_per_molK * (a[0] * Math.log(T) + T * (a[1] + T * (a[2] / 2 + T * (a[3] / 3 + T * (a[4] / 4)))) + a[6]);
-}
-
 function leanProducts(fuel: ResolvedFuel, lambda: number, oxidizer: Oxidizer): Products {
   const fg = flueGasPerKgFuel(fuel, { lambda, oxidizer });
   const p: Products = {};
@@ -176,28 +209,40 @@ function leanProducts(fuel: ResolvedFuel, lambda: number, oxidizer: Oxidizer): P
   return p;
 }
 
+const ENERGY_BALANCE_MAX_ITERATIONS = 100;
+
 /** Solves H_products(T) = H for fixed products (or products that depend on T). */
 function solveEnergyBalance(products: (T: number) => Products, H: number): number {
   let T = 2000;
-  for (let i = 0; i < 100; i++) {
+  let step = NaN;
+  let residual = NaN;
+  for (let i = 0; i < ENERGY_BALANCE_MAX_ITERATIONS; i++) {
     const p = products(T);
     const f = enthalpyOf(p, T) - H;
     const dT = -f / cpOf(p, T);
-    const step = Math.max(-800, Math.min(800, dT));
+    step = Math.max(-800, Math.min(800, dT));
     T = Math.max(200, T + step);
     if (Math.abs(step) < 1e-8 * T) {
       const pf = products(T);
-      if (Math.abs(enthalpyOf(pf, T) - H) <= 1e-9 * Math.abs(H) + 1e-6) return T;
+      residual = Math.abs(enthalpyOf(pf, T) - H);
+      if (residual <= 1e-9 * Math.abs(H) + 1e-6) return T;
     }
   }
-  throw new RangeError("flame temperature: energy balance did not converge");
+  throw new NotConvergedError(
+    "flame-temperature",
+    `the energy balance of the products did not converge in ${ENERGY_BALANCE_MAX_ITERATIONS} Newton steps`,
+    { iterations: ENERGY_BALANCE_MAX_ITERATIONS, lastTemperatureK: T, lastStepK: step, enthalpyResidualJ: residual },
+  );
 }
 
 export function flameTemperature(input: FlameInput): FlameResult {
   const fuel = isResolved(input.fuel) ? input.fuel : resolveFuel(input.fuel);
   const oxidizer = input.oxidizer ?? DRY_AIR;
+  if (!((oxidizer.O2 ?? 0) > 0)) throw new InputError("oxidizer.O2", "the oxidiser must contain oxygen");
+  assertCombustible(fuel);
   const lambda = lambdaOf(fuel, input, oxidizer);
-  if (!(lambda > 0) || !Number.isFinite(lambda)) throw new RangeError("phi must be > 0");
+  const supplyField = supplyFieldOf(input);
+  assertGasPhaseCharge(fuel, oxidizer, lambda, supplyField, input[supplyField]);
   const phi = 1 / lambda;
   const Tf = input.fuelTemperatureK ?? T298K;
   const Tox = input.oxidizerTemperatureK ?? T298K;

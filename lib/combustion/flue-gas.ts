@@ -3,11 +3,11 @@
  * volumes per kg and per MJ of fuel, CO2max and the water dew point.
  */
 import type { ResolvedFuel } from "../fuels/resolve";
-import { stoichiometricO2_mol_per_kg } from "../fuels/resolve";
+import { InfeasibleChargeError } from "../errors";
 import { MOLAR_MASS_g_per_mol } from "../thermo/species-data";
-import { saturationTemperatureK } from "../thermo/water";
+import { saturationTemperatureK, WATER_SATURATION_MIN_PA } from "../thermo/water";
 import { atmospherePa, kelvinToCelsius, R_J_per_molK, T0CK } from "../units/constants";
-import { DRY_AIR, type Oxidizer } from "./stoichiometry";
+import { DRY_AIR, stoichiometricO2_mol_per_kg, type Oxidizer } from "./stoichiometry";
 
 export type FlueSpecies = "CO2" | "H2O" | "SO2" | "N2" | "O2" | "Ar";
 export const FLUE_SPECIES: readonly FlueSpecies[] = ["CO2", "H2O", "SO2", "N2", "O2", "Ar"];
@@ -33,7 +33,9 @@ export const NORMAL_MOLAR_VOLUME_m3_per_mol = (R_J_per_molK * T0CK) / atmosphere
 export function flueGasPerKgFuel(fuel: ResolvedFuel, opts: { lambda: number; oxidizer?: Oxidizer }): FlueGas {
   const { lambda } = opts;
   const ox = opts.oxidizer ?? DRY_AIR;
-  if (!(lambda >= 1)) throw new RangeError(`complete-combustion flue gas needs λ ≥ 1 (got ${lambda})`);
+  if (!(lambda >= 1)) {
+    throw new InfeasibleChargeError("lambda", `complete-combustion flue gas needs λ ≥ 1 (got ${lambda}): too little oxygen`, "too-little-oxygen");
+  }
   const el = fuel.elements_mol_per_kg;
   const nO2 = stoichiometricO2_mol_per_kg(el);
   const nOx = (lambda * nO2) / (ox.O2 ?? 0);
@@ -76,7 +78,7 @@ export function co2MaxDryPercent(fuel: ResolvedFuel, oxidizer: Oxidizer = DRY_AI
  */
 export function waterDewPointC(waterMoleFraction: number, pressurePa = atmospherePa): number | null {
   const pw = waterMoleFraction * pressurePa;
-  if (pw < 611.213) return null;
+  if (pw < WATER_SATURATION_MIN_PA) return null;
   return kelvinToCelsius(saturationTemperatureK(pw));
 }
 
@@ -86,7 +88,8 @@ export function waterDewPointC(waterMoleFraction: number, pressurePa = atmospher
  */
 export const SO3_CONVERSION_DEFAULT = 0.02;
 
-const MMHG_PER_PA = 760 / 101325;
+/** 1 atm = 760 mmHg (exact, by definition of the torr). */
+const MMHG_PER_PA = 760 / atmospherePa;
 
 /**
  * Sulfuric-acid dew point by the correlation of Verhoff & Banchero (1974), Chem. Eng. Prog.

@@ -6,11 +6,12 @@
  */
 import { h_J_per_mol } from "../thermo/nasa7";
 import { MOLAR_MASS_g_per_mol, SPECIES } from "../thermo/species-data";
-
-const O2_MOLAR_MASS_kg_per_mol = MOLAR_MASS_g_per_mol.O2 / 1000;
+import { completeProductsEnthalpy_J } from "../thermo/combustion-products";
 import { celsiusToKelvin } from "../units/constants";
 import type { ResolvedFuel } from "../fuels/resolve";
-import { stoichiometricO2_mol_per_kg } from "../fuels/resolve";
+import { assertCombustible } from "./stoichiometry";
+
+const O2_MOLAR_MASS_kg_per_mol = MOLAR_MASS_g_per_mol.O2 / 1000;
 
 export interface HeatingValues {
   combustionReferenceC: number;
@@ -29,20 +30,18 @@ export interface HeatingValues {
 }
 
 
-export function heatingValues(fuel: ResolvedFuel, combustionReferenceC = 25): HeatingValues {
+/** Combustion reference temperature of heating values unless another is asked for, °C (ISO 6976:2016 lists 25 °C first). */
+export const DEFAULT_COMBUSTION_REFERENCE_C = 25;
+
+export function heatingValues(fuel: ResolvedFuel, combustionReferenceC = DEFAULT_COMBUSTION_REFERENCE_C): HeatingValues {
   const T = celsiusToKelvin(combustionReferenceC);
   const el = fuel.elements_mol_per_kg;
-  const nO2 = stoichiometricO2_mol_per_kg(el);
+  const nO2 = assertCombustible(fuel);
   const hFuel = fuel.formationEnthalpy_J_per_kg + fuel.sensibleEnthalpy_J_per_kg(T);
   const hReactants = hFuel + nO2 * h_J_per_mol(SPECIES.O2, T);
   const water = el.H / 2;
-  const hProductsDry =
-    el.C * h_J_per_mol(SPECIES.CO2, T) +
-    el.S * h_J_per_mol(SPECIES.SO2, T) +
-    (el.N / 2) * h_J_per_mol(SPECIES.N2, T) +
-    el.Ar * h_J_per_mol(SPECIES.Ar, T);
-  const hhv = hReactants - hProductsDry - water * h_J_per_mol(SPECIES["H2O(L)"], T);
-  const lhv = hReactants - hProductsDry - water * h_J_per_mol(SPECIES.H2O, T);
+  const hhv = hReactants - completeProductsEnthalpy_J(el, T, "liquid");
+  const lhv = hReactants - completeProductsEnthalpy_J(el, T, "vapour");
   const out: HeatingValues = {
     combustionReferenceC,
     hhv_MJ_per_kg: hhv / 1e6,

@@ -9,6 +9,7 @@
  * (ISO 6976:2016 Table 2, or derived from the same table's compression factors of the pure
  * component, √(1 − Z)). 15.56 °C (60 °F) is linearly interpolated between 15 and 20 °C.
  */
+import { InputError } from "../errors";
 import { R_ISO6976_J_per_molK, atmospherePa, celsiusToKelvin } from "../units/constants";
 
 type Triple = readonly [number, number, number]; // at 0, 15, 20 °C
@@ -36,6 +37,9 @@ export const SUMMATION_FACTORS: Record<string, Triple> = {
   NO: [0.0237, 0.0224, 0.0219],
 };
 
+/** Metering reference temperature of volumetric figures unless another is asked for, °C (at 101.325 kPa). */
+export const DEFAULT_METERING_REFERENCE_C = 15;
+
 /** Molar mass of ISO 6976:2016 standard dry air, g/mol (value from memory, medium-high confidence). */
 export const AIR_MOLAR_MASS_g_per_mol = 28.96546;
 /** Compression factor of dry air at 0, 15, 20 °C and 101.325 kPa (ISO 6976:2016; value from memory). */
@@ -46,7 +50,7 @@ function atMetering(t: Triple, meteringC: number): number {
   if (meteringC === 15) return t[1];
   if (meteringC === 20) return t[2];
   if (meteringC > 15 && meteringC < 20) return t[1] + ((t[2] - t[1]) * (meteringC - 15)) / 5;
-  throw new RangeError(`metering temperature ${meteringC} °C not tabulated (0, 15, 15.56, 20 °C)`);
+  throw new InputError("meteringReferenceC", `${meteringC} °C is not tabulated (0, 15, 15.56, 20 °C)`);
 }
 
 /** Summation factor of one species at the metering temperature. Species not in the table count as ideal (0). */

@@ -4,11 +4,13 @@
  */
 import type { FuelDefinition } from "../schemas/fuel";
 import { resolveFuel, type ResolvedFuel } from "../fuels/resolve";
-import { heatingValues } from "./heating-values";
+import { DEFAULT_COMBUSTION_REFERENCE_C, heatingValues } from "./heating-values";
+import { MJ_per_kWh } from "../units/energy";
+import { atmospherePa, standardPressurePa } from "../units/constants";
 import { DRY_AIR, oxidizerDemand } from "./stoichiometry";
 import { co2MaxDryPercent, flueAcidDewPointC, flueGasPerKgFuel, SO3_CONVERSION_DEFAULT, waterDewPointC } from "./flue-gas";
 import { co2Factors, type Co2Factors } from "./co2";
-import { airDensity_kg_per_m3, volumetricFigures } from "./iso6976";
+import { airDensity_kg_per_m3, DEFAULT_METERING_REFERENCE_C, volumetricFigures } from "./iso6976";
 
 export interface PropertyOptions {
   /** Combustion reference temperature, °C (25 default; 0, 15, 15.55, 20 selectable). */
@@ -78,15 +80,15 @@ export interface FuelProperties {
 }
 
 export function fuelPropertiesFromResolved(fuel: ResolvedFuel, opts: PropertyOptions = {}): FuelProperties {
-  const tc = opts.combustionReferenceC ?? 25;
-  const tm = opts.meteringReferenceC ?? 15;
+  const tc = opts.combustionReferenceC ?? DEFAULT_COMBUSTION_REFERENCE_C;
+  const tm = opts.meteringReferenceC ?? DEFAULT_METERING_REFERENCE_C;
   const hv = heatingValues(fuel, tc);
   const demand = oxidizerDemand(fuel, DRY_AIR);
   const rhoAir = airDensity_kg_per_m3(tm);
   const airM3PerKg = demand.oxidizer_kg_per_kg / rhoAir;
   const fg = flueGasPerKgFuel(fuel, { lambda: 1, oxidizer: DRY_AIR });
   const figures = (MJ_per_kg: number, kJ_per_mol: number | undefined, kJ_per_mol_O2: number, MJ_per_kg_O2: number): HeatingValueFigures => {
-    const f: HeatingValueFigures = { MJ_per_kg, kJ_per_mol_O2, MJ_per_kg_O2, MJ_per_m3_air: MJ_per_kg / airM3PerKg, kWh_per_kg: MJ_per_kg / 3.6 };
+    const f: HeatingValueFigures = { MJ_per_kg, kJ_per_mol_O2, MJ_per_kg_O2, MJ_per_m3_air: MJ_per_kg / airM3PerKg, kWh_per_kg: MJ_per_kg / MJ_per_kWh };
     if (kJ_per_mol !== undefined) f.kJ_per_mol = kJ_per_mol;
     return f;
   };
@@ -120,16 +122,16 @@ export function fuelPropertiesFromResolved(fuel: ResolvedFuel, opts: PropertyOpt
     reference: {
       combustionReferenceC: tc,
       meteringReferenceC: tm,
-      meteringPressure_kPa: 101.325,
+      meteringPressure_kPa: atmospherePa / 1000,
       volumetricBasis:
         fuel.kind === "gas"
-          ? `real gas at ${tm} °C, 101.325 kPa (ISO 6976:2016 compression factor); combustion at ${tc} °C`
+          ? `real gas at ${tm} °C, ${atmospherePa / 1000} kPa (ISO 6976:2016 compression factor); combustion at ${tc} °C`
           : fuel.kind === "liquid"
             ? "per litre at the liquid's density (15 °C)"
             : "solid: per kg as received",
-      flueGasVolumeBasis: `ideal gas at 0 °C, 101.325 kPa; stoichiometric complete combustion in dry air; acid dew point (sulfur fuels) by Verhoff & Banchero (1974) with ${100 * SO3_CONVERSION_DEFAULT} % of SO2 as SO3`,
-      airBasis: `dry air (O2 20.946 %, N2 78.084 %, Ar 0.934 %, CO2 0.036 %); volumes at ${tm} °C, 101.325 kPa`,
-      standardStatePressure_kPa: 100,
+      flueGasVolumeBasis: `ideal gas at 0 °C, ${atmospherePa / 1000} kPa; stoichiometric complete combustion in dry air; acid dew point (sulfur fuels) by Verhoff & Banchero (1974) with ${100 * SO3_CONVERSION_DEFAULT} % of SO2 as SO3`,
+      airBasis: `dry air (O2 20.946 %, N2 78.084 %, Ar 0.934 %, CO2 0.036 %); volumes at ${tm} °C, ${atmospherePa / 1000} kPa`,
+      standardStatePressure_kPa: standardPressurePa / 1000,
     },
     notes: [...fuel.notes],
   };

@@ -3,12 +3,36 @@
  * equivalence ratio φ, air factor λ = 1/φ, excess air (λ − 1)·100 %, and the measured O2 in the
  * dry flue gas (complete combustion, λ ≥ 1).
  */
-import type { ResolvedFuel } from "../fuels/resolve";
-import { stoichiometricO2_mol_per_kg } from "../fuels/resolve";
+import type { ElementMoles, ResolvedFuel } from "../fuels/resolve";
+import { InfeasibleChargeError, InputError } from "../errors";
 import { MOLAR_MASS_g_per_mol } from "../thermo/species-data";
 import { saturationPressurePa } from "../thermo/water";
 import { atmospherePa, celsiusToKelvin } from "../units/constants";
 import type { OxidizerComposition } from "../schemas/fuel";
+
+/** Stoichiometric O2 for complete combustion (C→CO2, H→H2O, S→SO2), mol per kg (or per any amount of `el`). */
+export function stoichiometricO2_mol_per_kg(el: ElementMoles): number {
+  return el.C + el.H / 4 + el.S - el.O / 2;
+}
+
+/**
+ * Refuses a "fuel" that needs no oxygen (pure N2, O2, CO2, …): nothing in it burns. `field` names the
+ * fuel as the user wrote it; the message names the fuel by its label. Returns the stoichiometric O2.
+ */
+export function assertCombustible(fuel: ResolvedFuel, field = "fuel"): number {
+  const nO2 = stoichiometricO2_mol_per_kg(fuel.elements_mol_per_kg);
+  if (!(nO2 > 0)) {
+    const name = fuel.label ? `"${fuel.label}"` : "this fuel";
+    throw new InfeasibleChargeError(
+      field,
+      nO2 < 0
+        ? `${name} holds more oxygen than its combustible part needs: it is an oxidiser, not a fuel`
+        : `${name} contains nothing that burns: any carbon, hydrogen or sulfur in it is already fully oxidised`,
+      "no-combustible",
+    );
+  }
+  return nO2;
+}
 
 export type OxidizerSpecies = "O2" | "N2" | "Ar" | "CO2" | "H2O";
 export const OXIDIZER_SPECIES: readonly OxidizerSpecies[] = ["O2", "N2", "Ar", "CO2", "H2O"];
@@ -56,8 +80,7 @@ export interface OxidizerDemand {
 
 /** Stoichiometric oxidiser demand (complete combustion: C→CO2, H→H2O, S→SO2). */
 export function oxidizerDemand(fuel: ResolvedFuel, oxidizer: Oxidizer = DRY_AIR): OxidizerDemand {
-  const nO2 = stoichiometricO2_mol_per_kg(fuel.elements_mol_per_kg);
-  if (!(nO2 > 0)) throw new RangeError("this fuel needs no oxygen to burn (no combustible content)");
+  const nO2 = assertCombustible(fuel);
   const xO2 = oxidizer.O2 ?? 0;
   const nOx = nO2 / xO2;
   const out: OxidizerDemand = {
@@ -105,7 +128,7 @@ export function lambdaFromFlueO2Dry(fuel: ResolvedFuel, o2DryPercent: number, ox
   const y = o2DryPercent / 100;
   const yMax = nO2 / b; // O2 share of the dry oxidiser
   if (!(y >= 0 && y < yMax)) {
-    throw new RangeError(`dry flue-gas O2 must be ≥ 0 and below the oxidiser's ${(100 * yMax).toFixed(1)} % O2 (dry)`);
+    throw new InputError("flueO2DryPercent", `must be ≥ 0 and below the oxidiser's ${(100 * yMax).toFixed(1)} % O2 (dry), got ${o2DryPercent}`);
   }
   return (y * a + nO2) / (nO2 - y * b);
 }

@@ -5,12 +5,13 @@
  */
 import type { Element } from "../thermo/nasa7";
 import { ELEMENTS, h_J_per_mol, sensibleH_J_per_mol } from "../thermo/nasa7";
+import { completeProductsEnthalpy_J, waterLatentHeat_J_per_mol } from "../thermo/combustion-products";
+import { InputError, joinPath } from "../errors";
 import { MOLAR_MASS_g_per_mol, SPECIES } from "../thermo/species-data";
 import { ATOMIC_WEIGHT_g_per_mol, molarMass_g_per_mol } from "../thermo/elements";
 import { kelvinToCelsius, T298K } from "../units/constants";
-import type { BlendFuelDefinition, FuelDefinition } from "../schemas/fuel";
+import { MAX_BLEND_NESTING, type BlendFuelDefinition, type FuelDefinition } from "../schemas/fuel";
 import { compoundVapourPressurePa, LIQUID_COMPOUNDS, LIQUID_FUEL_CP_J_per_kgK, SOLID_FUEL_CP_J_per_kgK } from "./compounds";
-import { InputError } from "../errors";
 
 export type FuelKind = "gas" | "liquid" | "solid";
 export type HeatingValueOrigin = "thermochemistry" | "measured-hhv" | "measured-lhv" | "channiwala-parikh-2002" | "blend";
@@ -50,15 +51,14 @@ export interface ResolvedFuel {
   notes: string[];
 }
 
-export class FuelDefinitionError extends Error {
-  constructor(
-    public readonly field: string,
-    message: string,
-  ) {
-    super(`${field}: ${message}`);
-    this.name = "FuelDefinitionError";
-  }
-}
+/**
+ * Former name of the error a bad fuel definition raises; it is now the common InputError (field path
+ * as the user wrote it, e.g. `fuel.composition.CH4`). Kept so that existing imports keep working.
+ */
+export const FuelDefinitionError = InputError;
+export type FuelDefinitionError = InputError;
+
+export { MAX_BLEND_NESTING };
 
 const ZERO = (): ElementMoles => ({ C: 0, H: 0, O: 0, N: 0, S: 0, Ar: 0 });
 
@@ -68,31 +68,10 @@ export function channiwalaParikhHHV_MJ_per_kg(dryMassPercent: { C: number; H: nu
   return 0.3491 * C + 1.1783 * H + 0.1005 * S - 0.1034 * O - 0.0151 * N - 0.0211 * ash;
 }
 
-/** Enthalpy of the complete-combustion products at 298.15 K, water liquid, per kg fuel (J/kg). */
-export function productsFormationEnthalpy_J_per_kg(el: ElementMoles): number {
-  return (
-    el.C * h_J_per_mol(SPECIES.CO2, T298K) +
-    (el.H / 2) * h_J_per_mol(SPECIES["H2O(L)"], T298K) +
-    el.S * h_J_per_mol(SPECIES.SO2, T298K) +
-    (el.N / 2) * h_J_per_mol(SPECIES.N2, T298K) +
-    el.Ar * h_J_per_mol(SPECIES.Ar, T298K)
-  );
-}
-
-/** Stoichiometric O2 for complete combustion (C→CO2, H→H2O, S→SO2), mol per kg. */
-export function stoichiometricO2_mol_per_kg(el: ElementMoles): number {
-  return el.C + el.H / 4 + el.S - el.O / 2;
-}
-
-/** Latent heat of water at 25 °C from the polynomials, J/mol (H2O(g) − H2O(l)). */
-export function waterLatentHeat_J_per_mol(temperatureK: number): number {
-  return h_J_per_mol(SPECIES.H2O, temperatureK) - h_J_per_mol(SPECIES["H2O(L)"], temperatureK);
-}
-
 function speciesOrThrow(key: string, field: string) {
   const sp = SPECIES[key];
   if (!sp || sp.phase !== "gas") {
-    throw new FuelDefinitionError(field, `unknown species "${key}" (known: ${gasSpeciesKeys().join(", ")})`);
+    throw new InputError(field, `unknown species "${key}" (known: ${gasSpeciesKeys().join(", ")})`);
   }
   return sp;
 }
@@ -103,11 +82,12 @@ export function gasSpeciesKeys(): string[] {
     .map((s) => s.key);
 }
 
-function resolveGas(composition: Record<string, number>, label: string, field: string): ResolvedFuel {
+/** `speciesField(key)`: the field to blame for an unknown species key. */
+function resolveGas(composition: Record<string, number>, label: string, speciesField: (key: string) => string): ResolvedFuel {
   const total = Object.values(composition).reduce((a, b) => a + b, 0);
   const x: Record<string, number> = {};
   for (const [k, v] of Object.entries(composition)) {
-    speciesOrThrow(k, `${field}.${k}`);
+    speciesOrThrow(k, speciesField(k));
     if (v > 0) x[k] = v / total; // normalise within the accepted ±0.001
   }
   const perMol = ZERO();
@@ -146,7 +126,7 @@ function resolveGas(composition: Record<string, number>, label: string, field: s
 
 function resolveLiquidCompound(key: string, field: string): ResolvedFuel {
   const c = LIQUID_COMPOUNDS[key];
-  if (!c) throw new FuelDefinitionError(field, `unknown liquid compound "${key}" (known: ${Object.keys(LIQUID_COMPOUNDS).join(", ")})`);
+  if (!c) throw new InputError(field, `unknown liquid compound "${key}" (known: ${Object.keys(LIQUID_COMPOUNDS).join(", ")})`);
   const M = molarMass_g_per_mol(c.elements);
   const molPerKg = 1000 / M;
   const el = ZERO();
@@ -169,7 +149,7 @@ function resolveLiquidCompound(key: string, field: string): ResolvedFuel {
   };
 }
 
-function resolveUltimate(def: Extract<FuelDefinition, { ultimate: unknown }>, label: string): ResolvedFuel {
+function resolveUltimate(def: Extract<FuelDefinition, { ultimate: unknown }>, label: string, field: string): ResolvedFuel {
   const given = def.ultimate;
   const u = { C: given.C, H: given.H, O: given.O ?? 0, N: given.N ?? 0, S: given.S ?? 0, moisture: given.moisture ?? 0, ash: given.ash ?? 0 };
   const W = ATOMIC_WEIGHT_g_per_mol;
@@ -195,15 +175,15 @@ function resolveUltimate(def: Extract<FuelDefinition, { ultimate: unknown }>, la
     notes.push("measured net heating value as received at 25 °C; gross = net + latent heat of all product water");
   } else {
     const dry = 1 - u.moisture;
-    if (dry <= 0) throw new FuelDefinitionError("ultimate.moisture", "must be < 1 for a correlation");
+    if (dry <= 0) throw new InputError(joinPath(field, "ultimate", "moisture"), "must be < 1 for a correlation");
     const pct = (v: number) => (100 * v) / dry;
     hhv_MJ_per_kg = channiwalaParikhHHV_MJ_per_kg({ C: pct(u.C), H: pct(u.H), O: pct(u.O), N: pct(u.N), S: pct(u.S), ash: pct(u.ash) }) * dry;
     origin = "channiwala-parikh-2002";
     notes.push("gross heating value by the Channiwala & Parikh (2002) correlation, Fuel 81:1051–1063, on dry basis, scaled to as received");
   }
   if (!(hhv_MJ_per_kg > latent_MJ_per_kg)) {
-    throw new FuelDefinitionError(
-      def.hhv_MJ_per_kg !== undefined ? "hhv_MJ_per_kg" : def.lhv_MJ_per_kg !== undefined ? "lhv_MJ_per_kg" : "ultimate",
+    throw new InputError(
+      joinPath(field, def.hhv_MJ_per_kg !== undefined ? "hhv_MJ_per_kg" : def.lhv_MJ_per_kg !== undefined ? "lhv_MJ_per_kg" : "ultimate"),
       `gross heating value ${hhv_MJ_per_kg.toFixed(2)} MJ/kg leaves no net heating value for this composition`,
     );
   }
@@ -216,7 +196,7 @@ function resolveUltimate(def: Extract<FuelDefinition, { ultimate: unknown }>, la
     ash_kg_per_kg: u.ash,
     biogenicCarbonShare: 0,
     // Hess's law: h_fuel = HHV + Σ h_products (at 298.15 K, water liquid); O2 has zero formation enthalpy.
-    formationEnthalpy_J_per_kg: hhv_MJ_per_kg * 1e6 + productsFormationEnthalpy_J_per_kg(el),
+    formationEnthalpy_J_per_kg: hhv_MJ_per_kg * 1e6 + completeProductsEnthalpy_J(el, T298K, "liquid"),
     sensibleEnthalpy_J_per_kg: (T) => cp * (T - T298K),
     heatingValueOrigin: origin,
     h2MoleFraction: 0,
@@ -224,30 +204,42 @@ function resolveUltimate(def: Extract<FuelDefinition, { ultimate: unknown }>, la
   };
 }
 
-/** Net heating value at 25 °C of a resolved fuel, MJ/kg (for energy-share blending). */
-function lhv25_MJ_per_kg(f: ResolvedFuel): number {
-  const hhv = (f.formationEnthalpy_J_per_kg - productsFormationEnthalpy_J_per_kg(f.elements_mol_per_kg)) / 1e6;
-  return hhv - ((f.elements_mol_per_kg.H / 2) * waterLatentHeat_J_per_mol(T298K)) / 1e6;
+/**
+ * Energy per kg that the energy-share blend rule weighs components by: the standard net enthalpy of
+ * complete combustion at 298.15 K (fuel as fed at 298.15 K; O2 in its reference state has h = 0),
+ * MJ/kg. It equals the net heating value at a 25 °C combustion reference.
+ */
+function energyShareWeight_MJ_per_kg(f: ResolvedFuel): number {
+  return (f.formationEnthalpy_J_per_kg - completeProductsEnthalpy_J(f.elements_mol_per_kg, T298K, "vapour")) / 1e6;
 }
 
-function resolveBlend(def: BlendFuelDefinition, label: string, field: string): ResolvedFuel {
-  const parts = def.blend.map((c, i) => ({ f: resolveFuelAt(c.fuel, `${field}.blend.${i}.fuel`), share: c.share }));
+function resolveBlend(def: BlendFuelDefinition, label: string, field: string, depth: number): ResolvedFuel {
+  if (depth > MAX_BLEND_NESTING) {
+    throw new InputError(joinPath(field, "blend"), `blends nest at most ${MAX_BLEND_NESTING} levels deep`);
+  }
+  const parts = def.blend.map((c, i) => ({ f: resolveFuelAt(c.fuel, `${field}.blend.${i}.fuel`, depth), share: c.share }));
   const kinds = new Set(parts.map((p) => p.f.kind));
-  if (kinds.size !== 1) throw new FuelDefinitionError(`${field}.blend`, "blend components must all be gases, all liquids or all solids");
+  if (kinds.size !== 1) throw new InputError(`${field}.blend`, "blend components must all be gases, all liquids or all solids");
   const kind = parts[0].f.kind;
   // Mass of each component per unit of the basis share.
   let massPerShare: number[];
   if (def.basis === "mass") massPerShare = parts.map(() => 1);
-  else if (def.basis === "energy") massPerShare = parts.map((p) => 1 / lhv25_MJ_per_kg(p.f));
+  else if (def.basis === "energy") {
+    massPerShare = parts.map((p, i) => {
+      const e = energyShareWeight_MJ_per_kg(p.f);
+      if (!(e > 0)) throw new InputError(`${field}.blend.${i}.share`, "this component releases no heat, so it cannot carry a share of the energy; blend it by volume or mass");
+      return 1 / e;
+    });
+  }
   else {
     if (kind === "gas") massPerShare = parts.map((p) => p.f.molarMass_g_per_mol! / 1000);
     else if (kind === "liquid") {
       massPerShare = parts.map((p, i) => {
         const rho = p.f.density_kg_per_m3;
-        if (!rho) throw new FuelDefinitionError(`${field}.blend.${i}.fuel.densityKgPerM3`, "a volume blend of liquids needs each component's density");
+        if (!rho) throw new InputError(`${field}.blend.${i}.fuel.densityKgPerM3`, "a volume blend of liquids needs each component's density");
         return rho;
       });
-    } else throw new FuelDefinitionError(`${field}.basis`, "solids blend by mass or energy, not by volume");
+    } else throw new InputError(`${field}.basis`, "solids blend by mass or energy, not by volume");
   }
   const masses = parts.map((p, i) => p.share * massPerShare[i]);
   const totalMass = masses.reduce((a, b) => a + b, 0);
@@ -276,11 +268,16 @@ function resolveBlend(def: BlendFuelDefinition, label: string, field: string): R
     componentMassFractions: w,
     notes: [`blend by ${def.basis} share of ${parts.length} components; mass fractions ${w.map((v) => v.toFixed(4)).join(" / ")}`],
   };
+  // Upstream CO2e of the blend: energy-weighted over the components, known only when every component
+  // states one (a component without a stated factor makes the blend's figure unknown, never 0).
   const upstream = parts.map((p) => p.f.upstreamCo2e_kg_per_GJ);
-  if (upstream.some((u) => u !== undefined)) {
-    const energy = parts.map((p, i) => w[i] * lhv25_MJ_per_kg(p.f));
+  const missing = upstream.flatMap((u, i) => (u === undefined ? [i] : []));
+  if (missing.length === 0) {
+    const energy = parts.map((p, i) => w[i] * energyShareWeight_MJ_per_kg(p.f));
     const e = energy.reduce((a, b) => a + b, 0);
-    out.upstreamCo2e_kg_per_GJ = parts.reduce((s, _p, i) => s + (energy[i] / e) * (upstream[i] ?? 0), 0);
+    out.upstreamCo2e_kg_per_GJ = parts.reduce((s, _p, i) => s + (energy[i] / e) * (upstream[i] as number), 0);
+  } else if (missing.length < parts.length) {
+    out.notes.push(`upstream CO2e unknown: component${missing.length > 1 ? "s" : ""} ${missing.join(", ")} state${missing.length > 1 ? "" : "s"} no factor`);
   }
   if (kind === "gas") {
     const molesPerKg = parts.map((p, i) => (w[i] * 1000) / p.f.molarMass_g_per_mol!);
@@ -305,22 +302,22 @@ function resolveBlend(def: BlendFuelDefinition, label: string, field: string): R
   return out;
 }
 
-function resolveFuelAt(def: FuelDefinition, field: string): ResolvedFuel {
+function resolveFuelAt(def: FuelDefinition, field: string, depth: number): ResolvedFuel {
   const label = def.name ?? "";
   let f: ResolvedFuel;
-  if ("composition" in def) f = resolveGas(def.composition, label || describeComposition(def.composition), `${field}.composition`);
+  if ("composition" in def) f = resolveGas(def.composition, label || describeComposition(def.composition), (k) => joinPath(field, "composition", k));
   else if ("compound" in def) {
     if (def.phase === "liquid") f = resolveLiquidCompound(def.compound, `${field}.compound`);
     else {
       if (SPECIES[def.compound]?.phase !== "gas") {
         const hint = LIQUID_COMPOUNDS[def.compound] ? ` — ${def.compound} is known as a liquid: set phase "liquid"` : ` (known gases: ${gasSpeciesKeys().join(", ")})`;
-        throw new FuelDefinitionError(`${field}.compound`, `unknown species "${def.compound}"${hint}`);
+        throw new InputError(`${field}.compound`, `unknown species "${def.compound}"${hint}`);
       }
-      f = resolveGas({ [def.compound]: 1 }, label || def.compound, `${field}.compound`);
+      f = resolveGas({ [def.compound]: 1 }, label || def.compound, () => joinPath(field, "compound"));
     }
     if (label) f.label = label;
-  } else if ("ultimate" in def) f = resolveUltimate(def, label || `${def.kind ?? "solid"} fuel by ultimate analysis`);
-  else f = resolveBlend(def, label || "blend", field);
+  } else if ("ultimate" in def) f = resolveUltimate(def, label || `${def.kind ?? "solid"} fuel by ultimate analysis`, field);
+  else f = resolveBlend(def, label || "blend", field, depth + 1);
   if (def.biogenicCarbonShare !== undefined) f.biogenicCarbonShare = def.biogenicCarbonShare;
   if (def.upstreamCo2e_kg_per_GJ !== undefined) f.upstreamCo2e_kg_per_GJ = def.upstreamCo2e_kg_per_GJ;
   if (def.densityKgPerM3 !== undefined) f.density_kg_per_m3 = def.densityKgPerM3;
@@ -335,9 +332,9 @@ function describeComposition(c: Record<string, number>): string {
     .join(" / ");
 }
 
-/** Resolves a (validated) fuel definition. Throws FuelDefinitionError naming the field. */
+/** Resolves a (validated) fuel definition. Throws InputError naming the field under `field`. */
 export function resolveFuel(def: FuelDefinition, field = "fuel"): ResolvedFuel {
-  return resolveFuelAt(def, field);
+  return resolveFuelAt(def, field, 0);
 }
 
 /** Bubble point of a liquid at pressure p, K: p^sat(T) = p, by bisection (p^sat rises with T). */

@@ -23,7 +23,8 @@
  * heating value of carbon in residue that ASME PTC 4 uses, and the flue gas and air are those of
  * the carbon actually burnt.
  */
-import { stoichiometricO2_mol_per_kg, type ResolvedFuel } from "../fuels/resolve";
+import type { ResolvedFuel } from "../fuels/resolve";
+import { stoichiometricO2_mol_per_kg } from "../combustion/stoichiometry";
 import type { HeatingValues } from "../combustion/heating-values";
 import { flueGasPerKgFuel, waterDewPointC, FLUE_SPECIES, NORMAL_MOLAR_VOLUME_m3_per_mol, type FlueGas, type FlueSpecies } from "../combustion/flue-gas";
 import { OXIDIZER_SPECIES, type Oxidizer } from "../combustion/stoichiometry";

@@ -98,6 +98,12 @@ export interface BlendFuelDefinition {
   name?: string;
 }
 
+/**
+ * Deepest nesting of blends accepted (a blend of blends … counts one level per `blend`). Real
+ * blending needs two or three levels; the limit keeps a malformed definition from exhausting the stack.
+ */
+export const MAX_BLEND_NESTING = 16;
+
 export const blendFuelSchema: z.ZodType<BlendFuelDefinition> = z.lazy(() =>
   z
     .object({

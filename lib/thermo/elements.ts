@@ -7,6 +7,7 @@
  * 2 × 14.0067 = 28.0134 g/mol, carbon dioxide 44.0095 g/mol, exactly as in the ISO 6976:2016
  * component table.
  */
+import { InputError } from "../errors";
 import { ELEMENTS, type Element } from "./nasa7";
 
 /** Atomic weights, g/mol (IUPAC 2005 standard atomic weights, as used in ISO 6976:2016). */
@@ -32,10 +33,10 @@ export function molarMass_g_per_mol(elements: Partial<Record<Element, number>>):
   for (const [symbol, count] of Object.entries(elements)) {
     if (count === undefined) continue;
     if (!isElement(symbol)) {
-      throw new Error(`Unknown element "${symbol}" (known: ${ELEMENTS.join(", ")})`);
+      throw new InputError(`elements.${symbol}`, `unknown element "${symbol}" (known: ${ELEMENTS.join(", ")})`);
     }
     if (!Number.isFinite(count) || count < 0) {
-      throw new Error(`Atom count of element "${symbol}" must be a finite number ≥ 0, got ${count}`);
+      throw new InputError(`elements.${symbol}`, `atom count must be a finite number ≥ 0, got ${count}`);
     }
     sum += count * ATOMIC_WEIGHT_g_per_mol[symbol];
   }

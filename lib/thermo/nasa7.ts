@@ -6,7 +6,7 @@
  * h includes the enthalpy of formation at 298.15 K (the NASA convention), s is the absolute
  * entropy at the polynomials' standard-state pressure (1 bar for NASA Glenn data).
  */
-import { R_J_per_molK } from "../units/constants";
+import { R_J_per_molK, T298K } from "../units/constants";
 
 export type Element = "C" | "H" | "O" | "N" | "S" | "Ar";
 export const ELEMENTS: readonly Element[] = ["C", "H", "O", "N", "S", "Ar"];
@@ -70,7 +70,7 @@ export function g_J_per_mol(sp: Nasa7Species, temperatureK: number): number {
 }
 /** Sensible enthalpy h(T) − h(298.15 K), J/mol. */
 export function sensibleH_J_per_mol(sp: Nasa7Species, temperatureK: number): number {
-  return h_J_per_mol(sp, temperatureK) - h_J_per_mol(sp, 298.15);
+  return h_J_per_mol(sp, temperatureK) - h_J_per_mol(sp, T298K);
 }
 
 /**

@@ -26,6 +26,7 @@
  * reproduce the ISO 6976:2016 gross calorific values within 0.01 % (H2S 0.03 %; see the unit test);
  * where a heating value is published in ISO 6976, that standard remains the reference.
  */
+import { InputError } from "../errors";
 import { molarMass_g_per_mol } from "./elements";
 import { standardPressurePa } from "../units/constants";
 import type { Nasa7Species } from "./nasa7";
@@ -344,9 +345,9 @@ export const MOLAR_MASS_g_per_mol: Readonly<Record<string, number>> = Object.fre
 /** Species keys in a fixed order (fuel gases first, then oxidiser/products, minor species, liquid water). */
 export const SPECIES_KEYS: readonly string[] = Object.freeze(species.map((sp) => sp.key));
 
-/** The species with this key; throws `Unknown species "X"` for a key Stoke does not carry. */
+/** The species with this key; throws InputError `species: unknown species "X"` for a key Stoke does not carry. */
 export function speciesByKey(key: string): Nasa7Species {
   const sp = Object.prototype.hasOwnProperty.call(SPECIES, key) ? SPECIES[key] : undefined;
-  if (!sp) throw new Error(`Unknown species "${key}"`);
+  if (!sp) throw new InputError("species", `unknown species "${key}"`);
   return sp;
 }

@@ -3,6 +3,9 @@
  * IAPWS R7-97(2012)), region 4: eq. 30 (saturation pressure) and eq. 31 (saturation temperature).
  * Valid 273.15 K … 647.096 K (611.213 Pa … 22.064 MPa).
  */
+import { InputError } from "../errors";
+import { T0CK } from "../units/constants";
+
 const n = [
   0.11670521452767e4, -0.72421316598162e6, -0.17073846940092e2, 0.12020824702470e5, -0.32325550322333e7,
   0.14915108613530e2, -0.48232657361591e4, 0.40511340542057e6, -0.23855557567849, 0.65017534844798e3,
@@ -10,11 +13,15 @@ const n = [
 
 export const WATER_TRIPLE_POINT_K = 273.16;
 export const WATER_CRITICAL_K = 647.096;
+/** Lower end of IAPWS-IF97 region 4: saturation pressure at 273.15 K, Pa (IF97 eq. 30). */
+export const WATER_SATURATION_MIN_PA = 611.213;
+/** Critical pressure of water, Pa (IAPWS-IF97). */
+export const WATER_CRITICAL_PA = 22.064e6;
 
 /** Saturation pressure of water at T, Pa (IAPWS-IF97 eq. 30). */
 export function saturationPressurePa(temperatureK: number): number {
-  if (!(temperatureK >= 273.15 && temperatureK <= WATER_CRITICAL_K)) {
-    throw new RangeError(`temperature ${temperatureK} K is outside the saturation line (273.15–647.096 K)`);
+  if (!(temperatureK >= T0CK && temperatureK <= WATER_CRITICAL_K)) {
+    throw new InputError("temperatureK", `${temperatureK} K is outside the saturation line of water (${T0CK}–${WATER_CRITICAL_K} K)`);
   }
   const T = temperatureK;
   const th = T + n[8] / (T - n[9]);
@@ -31,8 +38,8 @@ export function saturationPressurePa(temperatureK: number): number {
  * by throwing, so callers must handle "no dew point above 0 °C".
  */
 export function saturationTemperatureK(pressurePa: number): number {
-  if (!(pressurePa >= 611.213 && pressurePa <= 22.064e6)) {
-    throw new RangeError(`pressure ${pressurePa} Pa is outside the saturation line (611.213 Pa – 22.064 MPa)`);
+  if (!(pressurePa >= WATER_SATURATION_MIN_PA && pressurePa <= WATER_CRITICAL_PA)) {
+    throw new InputError("pressurePa", `${pressurePa} Pa is outside the saturation line of water (${WATER_SATURATION_MIN_PA} Pa – ${WATER_CRITICAL_PA / 1e6} MPa)`);
   }
   const beta = Math.pow(pressurePa / 1e6, 0.25);
   const E = beta * beta + n[2] * beta + n[5];

@@ -5,7 +5,8 @@ import { describe, expect, it } from "vitest";
 import { computeFuelProperties } from "../../lib/combustion/properties";
 import { resolveFuel } from "../../lib/fuels/resolve";
 import { heatingValues } from "../../lib/combustion/heating-values";
-import { flameTemperature } from "../../lib/combustion/flame";
+import { FLAME_METHODS, flameTemperature, type FlameMethod } from "../../lib/combustion/flame";
+import { InfeasibleChargeError, InputError } from "../../lib/errors";
 import {
   DRY_AIR,
   enrichedAir,
@@ -48,13 +49,20 @@ describe("heating values against the ISO 6976:2016 component table (molar, ideal
       expect(rel(b.lhv_kJ_per_mol!, n15)).toBeLessThan(2e-4);
     });
   }
+  it("n-pentane 3535.77 and n-hexane 4194.95 kJ/mol: GCV at 25 °C within 0.01 %", () => {
+    // ISO 6976:2016 Table 3, molar GCV at 25 °C (values from memory)
+    expect(rel(hv({ compound: "nC5H12", phase: "gas" }).hhv_kJ_per_mol!, 3535.77)).toBeLessThan(1e-4);
+    expect(rel(hv({ compound: "nC6H14", phase: "gas" }).hhv_kJ_per_mol!, 4194.95)).toBeLessThan(1e-4);
+  });
   it("H2S: GCV within 0.05 % (ISO 6976:2016 Table 3: 562.01 kJ/mol at 25 °C; sulfur thermochemistry differs slightly between databases)", () => {
     expect(rel(hv({ compound: "H2S" }).hhv_kJ_per_mol!, 562.01)).toBeLessThan(5e-4);
   });
-  it("hydrogen per kg: LHV 119.95 and HHV 141.79 MJ/kg (derived from ISO 6976:2016 molar values and molar mass)", () => {
+  it("hydrogen per kg: NCV 119.95 and GCV 141.79 MJ/kg at 25 °C within 0.02 %", () => {
+    // ISO 6976:2016 Table 3 molar values at 25 °C (GCV 285.83, NCV 241.81 kJ/mol) divided by the
+    // molar mass of Table 1 (2.01588 g/mol, value from memory): 141.79 and 119.95 MJ/kg.
     const h = hv({ compound: "H2" });
-    expect(h.lhv_MJ_per_kg).toBeCloseTo(119.95, 0);
-    expect(h.hhv_MJ_per_kg).toBeCloseTo(141.79, 0);
+    expect(rel(h.lhv_MJ_per_kg, 119.95)).toBeLessThan(2e-4);
+    expect(rel(h.hhv_MJ_per_kg, 141.79)).toBeLessThan(2e-4);
   });
 });
 
@@ -248,36 +256,10 @@ describe("water saturation line, IAPWS-IF97 (R7-97(2012), verification tables 35
 });
 
 describe("adiabatic flame temperature, three methods", () => {
-  const T = (def: FuelDefinition, method: "mean-cp" | "complete" | "equilibrium", extra: object = {}) =>
+  // Published flame temperatures and compositions are checked once, on the equilibrium solver itself
+  // (tests/unit/equilibrium.test.ts); here: what the three methods of the flame module do.
+  const T = (def: FuelDefinition, method: FlameMethod, extra: object = {}) =>
     flameTemperature({ fuel: def, method, ...extra }).temperatureK;
-  it("stoichiometric CH4/air at 298 K, 1 atm: equilibrium ≈ 2226 K (Turns, An Introduction to Combustion, 3rd ed., Table B/ch. 2; ±15 K)", () => {
-    expect(Math.abs(T({ compound: "CH4" }, "equilibrium") - 2226)).toBeLessThan(15);
-  });
-  it("stoichiometric H2/air: equilibrium ≈ 2390 K (Glassman, Combustion, Table 1.x; ±20 K, value from memory)", () => {
-    expect(Math.abs(T({ compound: "H2" }, "equilibrium") - 2390)).toBeLessThan(20);
-  });
-  it("stoichiometric CH4/O2: equilibrium ≈ 3050 K (Glassman; Turns; ±40 K)", () => {
-    expect(Math.abs(T({ compound: "CH4" }, "equilibrium", { oxidizer: { O2: 1 } }) - 3050)).toBeLessThan(40);
-  });
-  it("equilibrium < complete-combustion temperature near stoichiometric (dissociation; common practice)", () => {
-    for (const def of [{ compound: "CH4" }, { compound: "H2" }, { compound: "C3H8" }] as FuelDefinition[]) {
-      expect(T(def, "equilibrium")).toBeLessThan(T(def, "complete"));
-    }
-  });
-  it("flame in O2 is hotter than in air, and preheated air raises it (common practice)", () => {
-    const air = T({ compound: "CH4" }, "equilibrium");
-    expect(T({ compound: "CH4" }, "equilibrium", { oxidizer: enrichedAir(0.3) })).toBeGreaterThan(air);
-    expect(T({ compound: "CH4" }, "equilibrium", { oxidizerTemperatureK: 600 })).toBeGreaterThan(air);
-  });
-  it("the CH4/air equilibrium maximum lies slightly on the rich side, φ between 1.0 and 1.1 (Turns, Fig. 2.14)", () => {
-    let best = 0, bestPhi = 0;
-    for (let phi = 0.9; phi <= 1.2; phi += 0.005) {
-      const t = T({ compound: "CH4" }, "equilibrium", { phi });
-      if (t > best) [best, bestPhi] = [t, phi];
-    }
-    expect(bestPhi).toBeGreaterThan(1.0);
-    expect(bestPhi).toBeLessThan(1.1);
-  });
   it("the mean-cp hand estimate is within 5 % of the complete-combustion method for lean flames (common practice)", () => {
     for (const phi of [0.6, 0.8, 1.0]) {
       const a = T({ compound: "CH4" }, "mean-cp", { phi });
@@ -299,8 +281,34 @@ describe("adiabatic flame temperature, three methods", () => {
     const c = flameTemperature({ fuel: ng, flueO2DryPercent: flueO2DryFromLambda(ng, 1.15), method: "complete" });
     expect(c.temperatureK).toBeCloseTo(b.temperatureK, 6);
   });
-  it("too rich for a gas-phase model (soot) is an error, not a number", () => {
-    expect(() => flameTemperature({ fuel: { compound: "CH4" }, phi: 4.5, method: "complete" })).toThrow(/soot|rich/);
+  it("propane at φ = 10 is refused by every method with the same InfeasibleChargeError naming phi", () => {
+    for (const method of FLAME_METHODS) {
+      const run = () => flameTemperature({ fuel: { compound: "C3H8" }, phi: 10, method });
+      expect(run, method).toThrow(InfeasibleChargeError);
+      expect(run, method).toThrow(/^phi: .*soot/);
+      try {
+        run();
+      } catch (e) {
+        expect((e as InfeasibleChargeError).field).toBe("phi");
+        expect((e as InfeasibleChargeError).reason).toBe("soot");
+      }
+    }
+  });
+  it("a rich limit stated as excess air names excessAirPercent", () => {
+    expect(() => flameTemperature({ fuel: { compound: "CH4" }, excessAirPercent: -80, method: "equilibrium" })).toThrow(/^excessAirPercent: /);
+  });
+  it("pure N2, O2 or CO2 as the fuel is refused by every method, naming the fuel", () => {
+    for (const compound of ["N2", "O2", "CO2"]) {
+      for (const method of FLAME_METHODS) {
+        const run = () => flameTemperature({ fuel: { compound }, method });
+        expect(run, `${compound} ${method}`).toThrow(InfeasibleChargeError);
+        expect(run, `${compound} ${method}`).toThrow(new RegExp(`^fuel: "${compound}" `));
+      }
+    }
+  });
+  it("φ ≤ 0 and two supply fields at once are input errors naming the field", () => {
+    expect(() => flameTemperature({ fuel: { compound: "CH4" }, phi: 0, method: "complete" })).toThrow(/^phi: /);
+    expect(() => flameTemperature({ fuel: { compound: "CH4" }, phi: 1, excessAirPercent: 10, method: "complete" })).toThrow(InputError);
   });
 });
 
@@ -337,14 +345,24 @@ describe("biomethane is not raw biogas", () => {
 
 import { acidDewPointC } from "../../lib/combustion/flue-gas";
 describe("sulfuric-acid dew point (Verhoff & Banchero 1974, Chem. Eng. Prog. 70(8):71–72)", () => {
-  it("evaluates the published correlation: 10 % H2O, 10 ppm SO3 at 1 atm", () => {
-    // By hand: p_H2O = 76 mmHg, p_SO3 = 0.0076 mmHg; 1000/T = 2.276 − 0.0294 ln 76 − 0.0858 ln 0.0076 + 0.0062 ln 76 ln 0.0076
-    const lw = Math.log(76), ls = Math.log(0.0076);
-    const byHand = 1000 / (2.276 - 0.0294 * lw - 0.0858 * ls + 0.0062 * lw * ls) - 273.15;
-    expect(acidDewPointC(0.1, 10e-6)).toBeCloseTo(byHand, 6);
-    // Acid dew points of oil-fired flue gas lie around 120–160 °C (common practice, no source).
-    expect(byHand).toBeGreaterThan(120);
-    expect(byHand).toBeLessThan(160);
+  it("10 vol % water at 1 atm: 110–120 °C at 1 ppm SO3, 130–140 °C at 10 ppm, 145–160 °C at 50 ppm", () => {
+    // Measured sulfuric-acid dew points of flue gas with about 10 vol % water vapour lie in these bands
+    // (value from memory of the published measured curves; the data table of Verhoff & Banchero 1974
+    // was not at hand, so the bands are wide).
+    const bands: [number, number, number][] = [
+      [1e-6, 110, 120],
+      [10e-6, 130, 140],
+      [50e-6, 145, 160],
+    ];
+    for (const [so3, lo, hi] of bands) {
+      const t = acidDewPointC(0.1, so3)!;
+      expect(t, `${so3}`).toBeGreaterThan(lo);
+      expect(t, `${so3}`).toBeLessThan(hi);
+    }
+  });
+  it("no SO3 or no water: no acid dew point", () => {
+    expect(acidDewPointC(0.1, 0)).toBeNull();
+    expect(acidDewPointC(0, 10e-6)).toBeNull();
   });
   it("heavy fuel oil with 1 % S: acid dew point far above the water dew point; sulfur-free fuels have none", () => {
     const hfo = computeFuelProperties({ ultimate: { C: 0.87, H: 0.11, S: 0.01, O: 0.005, N: 0.004, moisture: 0.0005, ash: 0.0005 }, kind: "liquid", lhv_MJ_per_kg: 40.4 });

@@ -12,6 +12,7 @@ import {
 } from "../../lib/combustion/equilibrium";
 import { cp_J_per_molK, ELEMENTS, g_J_per_mol, h_J_per_mol, type Element } from "../../lib/thermo/nasa7";
 import { SPECIES } from "../../lib/thermo/species-data";
+import { InfeasibleChargeError, NotConvergedError } from "../../lib/errors";
 import { atmospherePa, R_J_per_molK, standardPressurePa } from "../../lib/units/constants";
 
 // ---- test helpers -------------------------------------------------------------------------------
@@ -125,35 +126,33 @@ function lnQ(nu: Mix, r: EquilibriumResult): number {
 // ---- published adiabatic flame temperatures ---------------------------------------------------------
 
 describe("equilibrium adiabatic flame temperature against published values (298.15 K, 1 atm, φ = 1)", () => {
-  it("methane–air: 2226 K", () => {
-    // Turns, An Introduction to Combustion, 2nd ed., ch. 2: equilibrium T_ad of stoichiometric CH4–air
-    // at 1 atm, 298 K = 2226 K (value from memory; the chapter, not a table number, is cited).
-    expect(hp({ CH4: 1 }, 1, TEXTBOOK_AIR).temperatureK).toBeGreaterThan(2226 - 15);
-    expect(hp({ CH4: 1 }, 1, TEXTBOOK_AIR).temperatureK).toBeLessThan(2226 + 15);
+  // Turns, An Introduction to Combustion, 2nd ed., App. B, Table B.1 (fuel properties; T_ad of the
+  // stoichiometric fuel–air mixture at 298 K, 1 atm, computed with equilibrium products): methane 2226 K,
+  // propane 2267 K (values from memory). Turns' values are computed the same way with JANAF data;
+  // the NASA Glenn data differ by a few kelvin, so ±10 K.
+  it("methane–air: 2226 K ± 10 K (Turns, Table B.1)", () => {
+    expect(Math.abs(hp({ CH4: 1 }, 1, TEXTBOOK_AIR).temperatureK - 2226)).toBeLessThan(10);
+  });
+  it("propane–air: 2267 K ± 10 K (Turns, Table B.1)", () => {
+    expect(Math.abs(hp({ C3H8: 1 }, 1, TEXTBOOK_AIR).temperatureK - 2267)).toBeLessThan(10);
   });
 
-  it("hydrogen–air: about 2390 K", () => {
-    // Glassman & Yetter, Combustion, 4th ed., ch. 1, table of approximate flame temperatures of
-    // stoichiometric mixtures: H2–air 2400 K, rounded (value from memory); ±20 K.
-    const T = hp({ H2: 1 }, 1, TEXTBOOK_AIR).temperatureK;
-    expect(Math.abs(T - 2390)).toBeLessThan(20);
-  });
-
-  it("methane–oxygen: about 3050 K", () => {
-    // Glassman & Yetter, Combustion, 4th ed., ch. 1, same table: CH4–O2 3030 K (value from memory);
-    // 3050 K ± 40 K covers the textbook spread.
-    const T = hp({ CH4: 1 }, 1, OXYGEN).temperatureK;
-    expect(Math.abs(T - 3050)).toBeLessThan(40);
-  });
-
-  it("hydrogen–oxygen about 3080 K, propane–air about 2267 K, CO–air about 2400 K", () => {
-    // Glassman & Yetter, Combustion, 4th ed., ch. 1 table: H2–O2 3080 K, CO–air 2400 K (values from
-    // memory). Turns, An Introduction to Combustion, 2nd ed., app. B fuel table: propane 2267 K
-    // (value from memory).
-    expect(Math.abs(hp({ H2: 1 }, 1, OXYGEN).temperatureK - 3080)).toBeLessThan(30);
-    expect(Math.abs(hp({ C3H8: 1 }, 1, TEXTBOOK_AIR).temperatureK - 2267)).toBeLessThan(15);
-    expect(Math.abs(hp({ CO: 1 }, 1, TEXTBOOK_AIR).temperatureK - 2400)).toBeLessThan(30);
-  });
+  // Glassman & Yetter, Combustion, 4th ed., ch. 1, Table 1.1 "Approximate flame temperatures of various
+  // stoichiometric mixtures, initial temperature 298 K": H2–air 2400 K, H2–O2 3080 K, CH4–air 2210 K,
+  // CH4–O2 3030 K, CO–air 2400 K (values from memory). The table rounds to 10 K and calls its values approximate
+  // (older thermochemical data); the comparison supports agreement within 1 % of the temperature.
+  const glassman: [string, Mix, Mix, number][] = [
+    ["hydrogen–air", { H2: 1 }, TEXTBOOK_AIR, 2400],
+    ["hydrogen–oxygen", { H2: 1 }, OXYGEN, 3080],
+    ["methane–air", { CH4: 1 }, TEXTBOOK_AIR, 2210],
+    ["methane–oxygen", { CH4: 1 }, OXYGEN, 3030],
+    ["carbon monoxide–air", { CO: 1 }, TEXTBOOK_AIR, 2400],
+  ];
+  for (const [name, fuel, oxidizer, published] of glassman) {
+    it(`${name}: ${published} K within 1 % (Glassman & Yetter, Table 1.1)`, () => {
+      expect(Math.abs(hp(fuel, 1, oxidizer).temperatureK - published)).toBeLessThan(0.01 * published);
+    });
+  }
 
   it("the CH4–air curve over φ peaks slightly on the rich side (1.0 < φ_max < 1.1)", () => {
     // Turns, An Introduction to Combustion, 2nd ed., Fig. 2.14 / common practice: the equilibrium
@@ -206,6 +205,47 @@ describe("equilibrium adiabatic flame temperature against published values (298.
     const cold = solveEquilibriumHP({ ...charge({ CH4: 1 }, 1, DRY_AIR, 298.15, 298.15), pressurePa: atmospherePa });
     const warm = solveEquilibriumHP({ ...charge({ CH4: 1 }, 1, DRY_AIR, 298.15, 700), pressurePa: atmospherePa });
     expect(warm.temperatureK).toBeGreaterThan(cold.temperatureK + 150);
+  });
+});
+
+// ---- published equilibrium compositions --------------------------------------------------------------
+
+describe("equilibrium compositions against published values", () => {
+  it("stoichiometric CH4–air at 298 K, 1 atm (adiabatic): major and minor product mole fractions", () => {
+    // Equilibrium products of stoichiometric methane–air (O2 + 3.76 N2) at 298 K, 1 atm, as tabulated in
+    // combustion course material from NASA-type equilibrium calculations (T_ad ≈ 2226 K): CO2 0.0853,
+    // H2O 0.1834, N2 0.7085, CO 0.0089, O2 0.0045, H2 0.0036, OH 0.0030, NO 0.0020 (values from memory;
+    // the original table is not at hand). Majors within 1 %, minors within 10 % (the minor species carry
+    // the differences between thermochemical databases, and the values are given to two figures).
+    const x = hp({ CH4: 1 }, 1, TEXTBOOK_AIR).moleFractions;
+    const majors: [string, number][] = [["CO2", 0.0853], ["H2O", 0.1834], ["N2", 0.7085]];
+    const minors: [string, number][] = [["CO", 0.0089], ["O2", 0.0045], ["H2", 0.0036], ["OH", 0.003], ["NO", 0.002]];
+    for (const [k, v] of majors) expect(Math.abs(x[k] / v - 1), k).toBeLessThan(0.01);
+    for (const [k, v] of minors) expect(Math.abs(x[k] / v - 1), k).toBeLessThan(0.1);
+  });
+
+  it("pure CO2 at 2500 K, 1 atm (CO2, CO, O2): CO mole fraction from the JANAF equilibrium constant", () => {
+    // NIST-JANAF Thermochemical Tables (as reproduced in Turns, An Introduction to Combustion, 2nd ed.,
+    // App. A, Tables A.1 and A.2): Δf G°(2500 K) of CO = −327.245 kJ/mol, of CO2 = −396.152 kJ/mol
+    // (values from memory). CO2 ⇌ CO + ½ O2: K° = exp(−(−327.245 + 396.152) kJ/mol / (R · 2500 K)).
+    // By hand: from 1 mol CO2, α mol dissociate: CO2 1 − α, CO α, O2 α/2, total 1 + α/2, and
+    // K° = α (α/2)^½ / (1 − α) · (p/p° / (1 + α/2))^½ with p/p° = 1.01325 (p° = 1 bar); solved for α
+    // by bisection below. The NASA Glenn data put Δ_r G° 0.3 kJ/mol lower (K° 1.5 % higher), so the
+    // CO mole fraction agrees within 3 %.
+    const K = Math.exp(-((-327.245 + 396.152) * 1000) / (R_J_per_molK * 2500));
+    const pr = atmospherePa / standardPressurePa;
+    const f = (a: number) => ((a * Math.sqrt(a / 2)) / (1 - a)) * Math.sqrt(pr / (1 + a / 2)) - K;
+    let lo = 0, hi = 0.999;
+    for (let i = 0; i < 100; i++) {
+      const m = (lo + hi) / 2;
+      if (f(m) > 0) hi = m;
+      else lo = m;
+    }
+    const alpha = (lo + hi) / 2;
+    const xCO = alpha / (1 + alpha / 2);
+    const r = solveEquilibriumTP({ elementMoles: { C: 1, O: 2 }, pressurePa: atmospherePa, temperatureK: 2500, productSpecies: ["CO2", "CO", "O2"] });
+    expect(Math.abs(r.moleFractions.CO / xCO - 1)).toBeLessThan(0.03);
+    expect(Math.abs(r.moleFractions.O2 / (xCO / 2) - 1)).toBeLessThan(0.03);
   });
 });
 
@@ -429,7 +469,7 @@ describe("solver API", () => {
     const soOnly = [...DEFAULT_PRODUCT_SPECIES, "SO2"];
     const rich = () => solveEquilibriumHP({ ...charge({ H2S: 1 }, 2, TEXTBOOK_AIR), pressurePa: atmospherePa, productSpecies: soOnly });
     expect(rich).toThrow(EquilibriumInfeasibleError);
-    expect(rich).toThrow(EquilibriumNotConvergedError);
+    expect(rich).toThrow(InfeasibleChargeError);
     // very rich propane: not enough oxygen even for CO (soot would form)
     expect(() => hp({ C3H8: 1 }, 3.5, TEXTBOOK_AIR)).toThrow(/too little oxygen/);
     // with H2S among the products (the default when sulfur is present) the sulfur-rich charge has a gaseous equilibrium
@@ -446,6 +486,7 @@ describe("solver API", () => {
     // lean methane with no species for the surplus oxygen (no O2, O, OH, NO)
     const p = { ...charge({ CH4: 1 }, 0.8, TEXTBOOK_AIR), pressurePa: atmospherePa, productSpecies: ["CO2", "H2O", "N2"] };
     expect(() => solveEquilibriumHP(p)).toThrow(EquilibriumNotConvergedError);
+    expect(() => solveEquilibriumHP(p)).toThrow(NotConvergedError);
   });
 
   it("rejects bad input naming the field", () => {
