@@ -22,7 +22,8 @@ export interface Co2Row {
   status: ScenarioStatus;
   isBaseline: boolean;
   fossil: number;
-  upstream: number;
+  /** null where the fuel states no upstream factor (unknown). */
+  upstream: number | null;
   biogenic: number;
 }
 
@@ -72,9 +73,11 @@ export function CostStackChart({ rows, unit, includeUpstream, isStatic }: { rows
 
 export function Co2Chart({ rows, includeUpstream, isStatic }: { rows: Co2Row[]; includeUpstream: boolean; isStatic?: boolean }) {
   const animate = useChartAnimation(isStatic);
-  const maxRanked = Math.max(...rows.map((r) => r.fossil + (includeUpstream ? r.upstream : 0)), 1);
-  const data = rows.map((r) => ({ ...r, label: label(r), ranked: r.fossil + (includeUpstream ? r.upstream : 0), end: maxRanked * 1e-3 }));
-  const xAxis = niceAxisFor([...data.map((r) => r.ranked), ...rows.map((r) => r.biogenic)], [0, maxRanked * 1.002]);
+  // A scenario whose counted upstream CO2e is unknown has no ranked figure: it is left out of the chart (the table says "unknown").
+  const known = includeUpstream ? rows.filter((r) => r.upstream !== null) : rows;
+  const maxRanked = Math.max(...known.map((r) => r.fossil + (includeUpstream ? (r.upstream as number) : 0)), 1);
+  const data = known.map((r) => ({ ...r, label: label(r), ranked: r.fossil + (includeUpstream ? (r.upstream as number) : 0), end: maxRanked * 1e-3 }));
+  const xAxis = niceAxisFor([...data.map((r) => r.ranked), ...known.map((r) => r.biogenic)], [0, maxRanked * 1.002]);
   return (
     <figure className="chart" aria-label="CO2 per useful MJ">
       <BarChart layout="vertical" data={data} responsive style={{ width: "100%", height: height(data.length) }} margin={{ top: 4, right: 56, bottom: 18, left: 8 }}>

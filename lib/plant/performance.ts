@@ -8,10 +8,10 @@
 import { humidAir, lambdaFromFlueO2Dry, excessAirPercentFromLambda, oxidizerDemand, type Oxidizer } from "../combustion/stoichiometry";
 import { flameTemperature, type FlameResult } from "../combustion/flame";
 import { NORMAL_MOLAR_VOLUME_m3_per_mol } from "../combustion/flue-gas";
-import { EquilibriumNotConvergedError, type EquilibriumResult } from "../combustion/equilibrium";
+import type { EquilibriumResult } from "../combustion/equilibrium";
 import { celsiusToKelvin, kelvinToCelsius, T0CK, T298K } from "../units/constants";
 import { condensingStackFloorC, stackBelowFloorMessage, type OperatingPoint } from "../schemas/plant";
-import { InputError } from "../errors";
+import { InfeasibleChargeError, InputError, NotConvergedError } from "../errors";
 import { burntFuel, heatLossEfficiency, unburntCarbon_kg_per_kg, type EfficiencyResult } from "./efficiency";
 import type { FuelContext } from "./fuel-context";
 /** Fuel temperature at the burner for the flame temperature and the heat balance, K (25 °C reference). */
@@ -160,8 +160,9 @@ export function computePerformance(ctx: FuelContext, op: OperatingPoint, oxidize
     });
   } catch (e) {
     // Reported, never replaced by a guess: the flame check becomes "not-checked" with this message.
-    if (!(e instanceof EquilibriumNotConvergedError)) throw e;
-    flameError = `equilibrium flame temperature did not converge: ${e.message}`;
+    if (e instanceof NotConvergedError) flameError = `equilibrium flame temperature did not converge: ${e.detail}`;
+    else if (e instanceof InfeasibleChargeError) flameError = `no equilibrium flame temperature at this operating point: ${e.detail}`;
+    else throw e;
   }
   const demand = oxidizerDemand(fuel, oxidizer);
   const oxidizerKgPerMol = demand.oxidizer_kg_per_kg / demand.oxidizer_mol_per_kg;

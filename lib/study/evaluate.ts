@@ -13,7 +13,7 @@ import { createEvaluationCaches, type EvaluationCaches } from "./caches";
 import { blendPriceFromComponents, normaliseStudyPrice, priceTerms } from "./pricing";
 import { annualDemand, efficiencyAtUseful, flowsForUseful, plantDuty, type AnnualDemand, type PlantDuty, type RatedFlows } from "../plant/duty";
 import { checkOperatingPoint, type FuelPerformance as Perf } from "../plant/performance";
-import { InputError } from "../errors";
+import { InputError, rethrowUnder } from "../errors";
 import { fitChecks, worstStatus, type CheckStatus, type FitCheck, type FuelInPlant } from "../plant/fit-checks";
 import { siegertClassOf, siegertLossPercent, SIEGERT_COMPARISON_DEFINITION, SIEGERT_CONSTANTS } from "../plant/siegert";
 import { coHeatOfCombustion_MJ_per_m3, UNBURNT_CARBON_HEATING_VALUE_J_per_kg, type EfficiencyResult, type LossTerms } from "../plant/efficiency";
@@ -100,7 +100,8 @@ export interface ScenarioResult {
   flowChangePercent: { fuelMass: number; fuelVolume: number | null; air: number; flueGas: number };
   annual: AnnualDemand;
   /** g CO2 per MJ of useful heat (needs no price). */
-  co2PerUsefulMJ_g: { fossil: number; biogenic: number; upstream: number; ranked: number };
+  /** Upstream and (when the study counts upstream) ranked are null where the fuel states no upstream factor: unknown. */
+  co2PerUsefulMJ_g: { fossil: number; biogenic: number; upstream: number | null; ranked: number | null };
   /** Delivered price, from the scenario's quote or (blends) from its components' quotes. */
   price: (NormalisedPrice & { unitLabel: string; currency: string; origin: "quote" | "blend of component quotes"; quote: StudyPrice | null; componentQuotes: StudyPrice[] | null }) | null;
   /** The numbers the economics ran on (for other metrics' tornadoes or what-ifs via lib/economics). */
@@ -181,8 +182,8 @@ function prepare(sc: Scenario, index: number, field: string, plant: Plant, cache
     perf = caches.performance.get(ctx, op);
   } catch (e) {
     if (e instanceof InputError && OPERATING_POINT_FIELDS.has(e.field)) throw new StudyInputError(opField(e.field), e.detail);
-    if (e instanceof RangeError) throw new StudyInputError(`${field}.fuel`, e.message);
-    throw e;
+    // Any other Stoke error belongs to this scenario (its fuel or its conditions); anything else is a bug.
+    rethrowUnder(field, e);
   }
   return { scenario: sc, index, field, ctx, op, perf };
 }
@@ -235,14 +236,21 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
   };
   const baseFip = fip(base);
 
-  const costInputs = (p: Prepared, price: NormalisedPrice): CostInputs => ({
+  /** Upstream CO2e per GJ (net), or null when the fuel (or a blend component) states no factor: unknown, never 0. */
+  const upstreamOf = (p: Prepared): number | null => p.ctx.co2.upstreamCo2e_kg_per_GJ_lhv ?? null;
+  /** Costs need the upstream factor only when the study counts upstream emissions. */
+  const costable = (p: Prepared) => !study.includeUpstream || upstreamOf(p) !== null;
+  const costInputs = (p: Prepared, price: NormalisedPrice): CostInputs | null =>
+    costable(p) ? costInputsKnown(p, price) : null;
+  const costInputsKnown = (p: Prepared, price: NormalisedPrice): CostInputs => ({
     usefulHeat_MWh: duty.annualUseful_MWh,
     efficiencyNet: loadsOf(p).annual.net.efficiency,
     grossOverNet: p.ctx.hv.hhv_MJ_per_kg / p.ctx.hv.lhv_MJ_per_kg,
     deliveredPrice_per_MWh_net: price.perMWh_net,
     co2Fossil_kg_per_GJ_net: p.ctx.co2.fossil_kg_per_GJ_lhv,
     co2Biogenic_kg_per_GJ_net: p.ctx.co2.biogenic_kg_per_GJ_lhv,
-    upstreamCo2e_kg_per_GJ_net: p.ctx.co2.upstreamCo2e_kg_per_GJ_lhv ?? 0,
+    // Not counted when the study leaves upstream out (costs.ts then ignores it); known whenever it is counted.
+    upstreamCo2e_kg_per_GJ_net: upstreamOf(p) ?? 0,
     carbonPrice_per_t: study.carbonPrice_per_t,
     includeUpstream: study.includeUpstream,
     capex: p.scenario.capex,
@@ -262,6 +270,7 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
   const basePrice = priceOf(base);
   const baseCI = basePrice ? costInputs(base, basePrice) : null;
   if (!basePrice) notes.push("The baseline has no price quote: no costs, savings, NPV or break-even prices are computed.");
+  else if (!baseCI) notes.push("The baseline's upstream CO2e is unknown (no factor stated) and the study counts upstream emissions: its costs, savings, NPV and break-even prices are unknown.");
 
   const evaluate = (p: Prepared): ScenarioResult => {
     const isBaseline = p.index === -1;
@@ -278,13 +287,13 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
     const status: ScenarioStatus = worst === "fail" ? "infeasible" : worst === "warn" ? "feasible-with-warnings" : "feasible";
     const w = wobbeRef(ctx);
     const wb = wobbeRef(base.ctx);
-    const up = ctx.co2.upstreamCo2e_kg_per_GJ_lhv ?? 0;
+    const up = upstreamOf(p);
     const etaN = eff.net.efficiency;
     const co2Useful = {
       fossil: ctx.co2.fossil_kg_per_GJ_lhv / etaN,
       biogenic: ctx.co2.biogenic_kg_per_GJ_lhv / etaN,
-      upstream: up / etaN,
-      ranked: (ctx.co2.fossil_kg_per_GJ_lhv + (study.includeUpstream ? up : 0)) / etaN,
+      upstream: up === null ? null : up / etaN,
+      ranked: study.includeUpstream ? (up === null ? null : (ctx.co2.fossil_kg_per_GJ_lhv + up) / etaN) : ctx.co2.fossil_kg_per_GJ_lhv / etaN,
     };
     const sClass = siegertClassOf(ctx.fuel);
     const op = p.op;

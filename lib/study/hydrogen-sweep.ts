@@ -31,11 +31,12 @@ export interface SweepPoint {
   efficiencyNet: number;
   efficiencyGross: number;
   dewPointC: number | null;
-  /** g CO2 per useful MJ (fossil, plus upstream when the study includes it). */
-  co2PerUsefulMJ_g: number;
-  co2ChangePercent: number;
-  /** Gas volume flow at rated duty at the plant's supply metering reference, m³/h. */
-  fuelVolume_m3_per_h: number;
+  /** g CO2 per useful MJ (fossil, plus upstream when the study includes it); null when counted upstream CO2e is unknown. */
+  co2PerUsefulMJ_g: number | null;
+  /** Change against the baseline gas, %; null where either figure is unknown or the baseline emits none. */
+  co2ChangePercent: number | null;
+  /** Gas volume flow at rated duty at the plant's supply metering reference, m³/h; null where it has no gas volume. */
+  fuelVolume_m3_per_h: number | null;
   /** Flue-gas and air flow at rated duty on the plant's fan bases, m³/h. */
   flueGas_m3_per_h: number;
   air_m3_per_h: number;
@@ -133,7 +134,14 @@ export function hydrogenSweep(env: SweepEnvironment): HydrogenSweepResult {
   const wb = baseCtx.wobbe(plant.wobbeCombustionReferenceC, tmW);
   const Mb = baseCtx.fuel.molarMass_g_per_mol;
   const Mh = h2Ctx.fuel.molarMass_g_per_mol;
-  const baseCo2 = (baseCtx.co2.fossil_kg_per_GJ_lhv + (study.includeUpstream ? (baseCtx.co2.upstreamCo2e_kg_per_GJ_lhv ?? 0) : 0)) / efficiencyAtUseful(baseFip.perf, duty, duty.averageUseful_kW).net.efficiency;
+  /** Ranked CO2 per GJ of fuel (net): fossil, plus upstream when counted; null when counted but unknown (no factor stated). */
+  const rankedCo2PerGJ = (c: FuelContext): number | null => {
+    if (!study.includeUpstream) return c.co2.fossil_kg_per_GJ_lhv;
+    const up = c.co2.upstreamCo2e_kg_per_GJ_lhv;
+    return up === undefined || up === null ? null : c.co2.fossil_kg_per_GJ_lhv + up;
+  };
+  const baseRanked = rankedCo2PerGJ(baseCtx);
+  const baseCo2 = baseRanked === null ? null : baseRanked / efficiencyAtUseful(baseFip.perf, duty, duty.averageUseful_kW).net.efficiency;
 
   const points: SweepPoint[] = [];
   let warm: EquilibriumResult | undefined = baseFip.perf.equilibrium;
@@ -160,9 +168,10 @@ export function hydrogenSweep(env: SweepEnvironment): HydrogenSweepResult {
     const w = ctx.wobbe(plant.wobbeCombustionReferenceC, tmW);
     const wH2 = (x * Mh) / (x * Mh + (1 - x) * Mb); // mass fraction of hydrogen
     const etaN = annual.net.efficiency;
-    const co2 = (ctx.co2.fossil_kg_per_GJ_lhv + (study.includeUpstream ? (ctx.co2.upstreamCo2e_kg_per_GJ_lhv ?? 0) : 0)) / etaN;
+    const ranked = rankedCo2PerGJ(ctx);
+    const co2 = ranked === null ? null : ranked / etaN;
     let cost: number | null = null;
-    if (basePrice && h2Price && env.baseline.costInputs) {
+    if (basePrice && h2Price && env.baseline.costInputs && ranked !== null) {
       const perKg = (1 - wH2) * basePrice.perKg + wH2 * h2Price.perKg;
       const delivered = normalisePrice({ amount: perKg, unit: "kg" }, ctx.energyContent).perMWh_net;
       cost = scenarioCosts({
@@ -172,6 +181,7 @@ export function hydrogenSweep(env: SweepEnvironment): HydrogenSweepResult {
         deliveredPrice_per_MWh_net: delivered,
         co2Fossil_kg_per_GJ_net: ctx.co2.fossil_kg_per_GJ_lhv,
         co2Biogenic_kg_per_GJ_net: ctx.co2.biogenic_kg_per_GJ_lhv,
+        // Known whenever the study counts it (ranked is not null); ignored by the costs otherwise.
         upstreamCo2e_kg_per_GJ_net: ctx.co2.upstreamCo2e_kg_per_GJ_lhv ?? 0,
       }).costPerUsefulMWh.total;
     }
@@ -187,8 +197,8 @@ export function hydrogenSweep(env: SweepEnvironment): HydrogenSweepResult {
       efficiencyGross: annual.gross.efficiency,
       dewPointC: perf.balance.dewPointC,
       co2PerUsefulMJ_g: co2,
-      co2ChangePercent: baseCo2 > 0 ? (100 * (co2 - baseCo2)) / baseCo2 : 0,
-      fuelVolume_m3_per_h: flows.fuelVolume_per_h ? flows.fuelVolume_per_h.value : NaN,
+      co2ChangePercent: co2 !== null && baseCo2 !== null && baseCo2 > 0 ? (100 * (co2 - baseCo2)) / baseCo2 : null,
+      fuelVolume_m3_per_h: flows.fuelVolume_per_h ? flows.fuelVolume_per_h.value : null,
       flueGas_m3_per_h: plant.flueGasCapacityBasis === "actual" ? flows.flueGas_m3_per_h_actual : flows.flueGas_m3_per_h_normal,
       air_m3_per_h: plant.airCapacityBasis === "actual" ? flows.air_m3_per_h_actual : flows.air_m3_per_h_normal,
       costPerUsefulMWh: cost,

@@ -141,7 +141,7 @@ describe("study evaluation", () => {
     expect(sw.points[20].flameShiftK).toBeGreaterThan(0);
     expect(sw.limitLines!.maxH2SharePercent).toBe(20);
     // Volume flow of fuel gas rises with hydrogen (lower volumetric heating value).
-    for (let i = 1; i < sw.points.length; i++) expect(sw.points[i].fuelVolume_m3_per_h).toBeGreaterThan(sw.points[i - 1].fuelVolume_m3_per_h);
+    for (let i = 1; i < sw.points.length; i++) expect(sw.points[i].fuelVolume_m3_per_h!).toBeGreaterThan(sw.points[i - 1].fuelVolume_m3_per_h!);
   });
 
   it("audit trail: methods with sources, assumptions, and each scenario's inputs", () => {
@@ -333,5 +333,24 @@ describe("the hydrogen sweep and the comparison agree for the same blend, or say
     expect(a.agrees).toBe(false);
     expect(a.reasons.join(" ")).toMatch(/own quote/);
     expect(a.reasons.join(" ")).toMatch(/stack temperature/);
+  });
+});
+
+describe("upstream CO2e that no one stated is unknown, never 0", () => {
+  it("a study counting upstream emissions leaves cost and ranked CO2 unknown for a fuel without a factor", () => {
+    const withFactor = { ...METHANE, upstreamCo2e_kg_per_GJ: 10 };
+    const r = evaluateStudy(
+      studySchema.parse(baseStudy({ includeUpstream: true, baseline: { name: "methane", fuel: withFactor, price: perMWh(40) }, scenarios: [{ name: "no factor", fuel: METHANE, price: perMWh(40) }] })),
+      { sweep: false },
+    );
+    expect(r.baseline.costs).not.toBeNull();
+    const s = r.scenarios[0];
+    expect(s.co2PerUsefulMJ_g.upstream).toBeNull();
+    expect(s.co2PerUsefulMJ_g.ranked).toBeNull();
+    expect(s.costs).toBeNull();
+    // Left out of the count, the same fuel's fossil CO2 is still known.
+    const r2 = evaluateStudy(studySchema.parse(baseStudy({ scenarios: [{ name: "no factor", fuel: METHANE, price: perMWh(40) }] })), { sweep: false });
+    expect(r2.scenarios[0].co2PerUsefulMJ_g.ranked).toBeCloseTo(r2.scenarios[0].co2PerUsefulMJ_g.fossil, 12);
+    expect(r2.scenarios[0].co2PerUsefulMJ_g.upstream).toBeNull();
   });
 });

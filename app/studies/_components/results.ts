@@ -22,8 +22,8 @@ export function ranked(result: StudyResult, bundle: StudyBundle): Ranked[] {
   return all.sort((a, b) => (a.r.rank ?? 1e9) - (b.r.rank ?? 1e9));
 }
 
-/** CO2 per useful MJ as ranked (fossil, plus upstream when included). */
-export function co2Ranked(r: ScenarioResult): number {
+/** CO2 per useful MJ as ranked (fossil, plus upstream when included); null where upstream is counted but unknown. */
+export function co2Ranked(r: ScenarioResult): number | null {
   return r.co2PerUsefulMJ_g.ranked;
 }
 
@@ -53,7 +53,8 @@ export function co2Rows(list: Ranked[]): Co2Row[] {
 export function scatterPoints(list: Ranked[], d: Display): ScatterPoint[] {
   return list
     .filter(({ r }) => r.costs)
-    .map(({ r }) => ({ name: r.name, status: r.status, isBaseline: r.isBaseline, cost: d.costPerEnergyValue(r.costs!.costPerUsefulMWh.total), co2: co2Ranked(r) }));
+    .filter(({ r }) => co2Ranked(r) !== null)
+    .map(({ r }) => ({ name: r.name, status: r.status, isBaseline: r.isBaseline, cost: d.costPerEnergyValue(r.costs!.costPerUsefulMWh.total), co2: co2Ranked(r) as number }));
 }
 
 /** The ranking metric's value of a scenario, formatted with its unit, in display units. */
@@ -83,7 +84,7 @@ export function headline(list: Ranked[]): Headline {
   const feasible = list.filter((x) => x.r.status !== "infeasible" && x.r.metricValue !== null);
   const best = feasible[0] ?? null;
   const bestCandidate = feasible.find((x) => !x.r.isBaseline) ?? null;
-  const lowestCo2 = [...list.filter((x) => x.r.status !== "infeasible")].sort((a, b) => co2Ranked(a.r) - co2Ranked(b.r))[0] ?? null;
+  const lowestCo2 = [...list.filter((x) => x.r.status !== "infeasible" && co2Ranked(x.r) !== null)].sort((a, b) => (co2Ranked(a.r) as number) - (co2Ranked(b.r) as number))[0] ?? null;
   return { best, bestIsBaseline: best?.r.isBaseline ?? false, bestCandidate, lowestCo2, infeasible: list.filter((x) => x.r.status === "infeasible") };
 }
 

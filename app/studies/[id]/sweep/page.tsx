@@ -190,9 +190,9 @@ export default async function SweepPage({ params, searchParams }: Props) {
             title="Fuel gas volume flow"
             yUnit={`${d.volUnit}/h`}
             decimals={0}
-            data={series((p) => (Number.isFinite(p.fuelVolume_m3_per_h) ? d.volValue(p.fuelVolume_m3_per_h) : null))}
+            data={series((p) => (p.fuelVolume_m3_per_h === null ? null : d.volValue(p.fuelVolume_m3_per_h)))}
             limits={lim.fuelSupplyCapacity_m3_per_h !== null ? [{ y: d.volValue(lim.fuelSupplyCapacity_m3_per_h), label: "supply capacity" }] : []}
-            markers={markersFor(pts, sw.crossings, ["fuel-supply"], (p) => d.volValue(p.fuelVolume_m3_per_h))}
+            markers={markersFor(pts, sw.crossings, ["fuel-supply"], (p) => (p.fuelVolume_m3_per_h === null ? null : d.volValue(p.fuelVolume_m3_per_h)))}
             vLines={vLines}
           />
           <p className="basis">At rated useful duty; gas at the supply metering reference ({meteringLabelWithPressure(METERING_REFERENCES[plant.fuelSupplyMeteringReference].temperatureC)}), real gas.</p>
