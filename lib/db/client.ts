@@ -8,6 +8,10 @@ import { PrismaClient } from "./generated/client";
 import { databaseTarget } from "./paths";
 
 export type Db = PrismaClient;
+/** A client inside an open transaction (what `inTransaction` hands its callback). */
+export type Tx = Omit<PrismaClient, "$connect" | "$disconnect" | "$on" | "$transaction" | "$extends">;
+/** Either: queries take a plain client or one inside a transaction. */
+export type DbOrTx = Db | Tx;
 
 export function createClient(databaseUrl?: string): PrismaClient {
   const target = databaseTarget(databaseUrl);
@@ -39,4 +43,27 @@ export function db(): PrismaClient {
   const client = createClient(url || undefined);
   globalForDb.__stokeDb = { url, client };
   return client;
+}
+
+class Rollback<R> extends Error {
+  constructor(public readonly outcome: R) {
+    super("rolled back");
+  }
+}
+
+/**
+ * Runs `fn` in one transaction. An outcome with `ok: false` rolls everything back and is returned
+ * as it is; an exception rolls back and propagates.
+ */
+export async function inTransaction<R extends { ok: boolean }>(client: Db, fn: (tx: Tx) => Promise<R>): Promise<R> {
+  try {
+    return await client.$transaction(async (tx) => {
+      const r = await fn(tx);
+      if (!r.ok) throw new Rollback(r);
+      return r;
+    });
+  } catch (e) {
+    if (e instanceof Rollback) return e.outcome as R;
+    throw e;
+  }
 }

@@ -4,6 +4,7 @@
  * (rounded to 6 significant digits), empty where a figure does not exist.
  */
 import type { StudyResult, ScenarioResult } from "./evaluate";
+import { writeCsv } from "../formats/csv";
 
 export const CSV_TABLES = ["scenarios", "checks", "sweep"] as const;
 export type CsvTable = (typeof CSV_TABLES)[number];
@@ -14,12 +15,11 @@ function cell(v: unknown): string {
     if (!Number.isFinite(v)) return "";
     return String(Number(v.toPrecision(6)));
   }
-  const s = String(v);
-  return /[",\n\r]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+  return String(v);
 }
 
 function table(header: string[], rows: unknown[][]): string {
-  return [header.map(cell).join(","), ...rows.map((r) => r.map(cell).join(","))].join("\n") + "\n";
+  return writeCsv([header.map(cell), ...rows.map((r) => r.map(cell))]);
 }
 
 function scenarioRow(r: ScenarioResult): unknown[] {

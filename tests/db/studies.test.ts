@@ -2,7 +2,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { tempDb } from "./temp-db";
 import { seedIfEmpty } from "../../seed/index";
-import { createStudy, deleteStudy, duplicateStudy, evaluateStoredStudy, listStudies, recordFieldOf, studyRecord, updateStudy } from "../../lib/db/studies";
+import { createStudy, deleteStudy, duplicateStudy, evaluateStoredStudy, listStudies, recordFieldOf, studyRecord, updateStudy } from "../../lib/services/studies";
 
 const t = tempDb();
 const fuel: Record<string, number> = {};
@@ -118,7 +118,7 @@ describe("studies", () => {
   it("a duplicate name on the same plant is a 409", async () => {
     const r = await createStudy(t.client, { ...record(), name: "three OPTIONS" });
     expect(r.ok).toBe(false);
-    if (!r.ok) expect(r.status).toBe(409);
+    if (!r.ok) expect(r.kind).toBe("conflict");
   });
 
   it("edits, duplicates and deletes", async () => {

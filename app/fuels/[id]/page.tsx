@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/lib/db/client";
-import { fuelSheet, type FuelSheet } from "@/lib/db/views";
+import { fuelSheet, type FuelSheet } from "@/lib/services/fuel-views";
 import { COMBUSTION_REFERENCES_C, METERING_REFERENCES_C, type FuelDefinition } from "@/lib/schemas/fuel";
 import { LIQUID_COMPOUNDS } from "@/lib/fuels/compounds";
 import { SPECIES } from "@/lib/thermo/species-data";

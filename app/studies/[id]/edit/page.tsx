@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { db } from "@/lib/db/client";
-import { studyFormOptions, studyRecord } from "@/lib/db/studies";
+import { studyFormOptions, studyRecord } from "@/lib/services/studies";
 import { StudyForm } from "../../_components/StudyForm";
 import { METRIC_OPTIONS } from "../../_components/form-options";
 
