@@ -21,7 +21,8 @@ export function createClient(databaseUrl?: string): PrismaClient {
     try {
       const adapterPackage = ["@prisma", "adapter-pg"].join("/"); // resolved at run time only, when installed
       ({ PrismaPg } = createRequire(import.meta.url)(/* turbopackIgnore: true */ adapterPackage));
-    } catch {
+    } catch (e) {
+      if (!(e instanceof Error && "code" in e && e.code === "MODULE_NOT_FOUND")) throw e;
       throw new Error(
         "DATABASE_URL points at PostgreSQL, but @prisma/adapter-pg is not installed and the client is generated for SQLite. Follow README.md, section PostgreSQL.",
       );
@@ -32,16 +33,19 @@ export function createClient(databaseUrl?: string): PrismaClient {
   return new PrismaClient({ adapter });
 }
 
-const globalForDb = globalThis as unknown as { __stokeDb?: { url: string; client: PrismaClient } };
+declare global {
+  // One client per process, kept across hot reloads in development.
+  var __stokeDb: { url: string; client: PrismaClient } | undefined;
+}
 
 /** The shared client for the current DATABASE_URL. */
 export function db(): PrismaClient {
   const url = process.env.DATABASE_URL ?? "";
-  const cached = globalForDb.__stokeDb;
+  const cached = globalThis.__stokeDb;
   if (cached && cached.url === url) return cached.client;
   if (cached) void cached.client.$disconnect();
   const client = createClient(url || undefined);
-  globalForDb.__stokeDb = { url, client };
+  globalThis.__stokeDb = { url, client };
   return client;
 }
 

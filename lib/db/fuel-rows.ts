@@ -52,7 +52,10 @@ export function fuelJson(row: Fuel, components: (BlendComponent & { component: P
     kind: row.kind,
     definition: storedDefinition(row),
     blend: blend
-      ? { basis: components[0]?.basis ?? null, components: components.map((c) => ({ fuelId: c.componentFuelId, name: c.component.name, share: c.share })) }
+      ? {
+          basis: components[0]?.basis ?? null,
+          components: components.map((c) => ({ fuelId: c.componentFuelId, name: c.component.name, share: c.share })),
+        }
       : null,
     densityKgPerM3: row.densityKgPerM3,
     biogenicCarbonShare: row.biogenicCarbonShare,
@@ -173,7 +176,10 @@ export function deleteFuelRow(tx: Tx, id: number): Promise<Fuel> {
 }
 
 /** What refers to a fuel: blends that contain it, plants that burn it, scenarios that use it. */
-export async function fuelUsers(db: DbOrTx, id: number): Promise<{ blends: string[]; plants: string[]; scenarios: { scenario: string; study: string }[] }> {
+export async function fuelUsers(
+  db: DbOrTx,
+  id: number,
+): Promise<{ blends: string[]; plants: string[]; scenarios: { scenario: string; study: string }[] }> {
   const [blends, plants, scenarios] = await Promise.all([
     db.blendComponent.findMany({ where: { componentFuelId: id }, include: { blend: { select: { name: true } } } }),
     db.plant.findMany({ where: { baselineFuelId: id }, select: { name: true } }),
@@ -189,7 +195,10 @@ export async function fuelUsers(db: DbOrTx, id: number): Promise<{ blends: strin
 /** Include clause: a fuel's quotes newest first and its components' quotes. */
 export const WITH_QUOTES = {
   priceQuotes: { orderBy: QUOTES_NEWEST_FIRST },
-  components: { orderBy: { position: "asc" as const }, include: { component: { include: { priceQuotes: { orderBy: QUOTES_NEWEST_FIRST } } } } },
+  components: {
+    orderBy: { position: "asc" as const },
+    include: { component: { include: { priceQuotes: { orderBy: QUOTES_NEWEST_FIRST } } } },
+  },
 };
 
 /** Fuels (optionally of one kind) by kind and name, with their quotes and their components' quotes. */
@@ -223,7 +232,11 @@ export function findFuelWithComponents(db: DbOrTx, id: number) {
 
 /** Gases whose stored definition mentions H2, oldest first, with their quotes. */
 export function gasesMentioningHydrogen(db: DbOrTx): Promise<(Fuel & { priceQuotes: PriceQuote[] })[]> {
-  return db.fuel.findMany({ where: { kind: "gas", definition: { contains: '"H2"' } }, include: { priceQuotes: { orderBy: QUOTES_NEWEST_FIRST } }, orderBy: { id: "asc" } });
+  return db.fuel.findMany({
+    where: { kind: "gas", definition: { contains: '"H2"' } },
+    include: { priceQuotes: { orderBy: QUOTES_NEWEST_FIRST } },
+    orderBy: { id: "asc" },
+  });
 }
 
 /** Every fuel with its components' names and its quotes oldest first (the library export). */

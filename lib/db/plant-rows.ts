@@ -96,13 +96,14 @@ function recordOf(row: PlantRow & { baselineFuel: { name: string } | null }): Pl
   };
 }
 
-
 const WITH_STUDIES = {
   baselineFuel: { select: { name: true } },
   studies: { orderBy: { name: "asc" as const }, select: { id: true, name: true, _count: { select: { scenarios: true } } } },
 };
 
-function listItemOf(r: PlantRow & { baselineFuel: { name: string } | null; studies: { id: number; name: string; _count: { scenarios: number } }[] }): PlantListItem {
+function listItemOf(
+  r: PlantRow & { baselineFuel: { name: string } | null; studies: { id: number; name: string; _count: { scenarios: number } }[] },
+): PlantListItem {
   return { ...recordOf(r), studies: r.studies.map((s) => ({ id: s.id, name: s.name, scenarioCount: s._count.scenarios })) };
 }
 
@@ -142,7 +143,10 @@ export function plantChoices(db: DbOrTx): Promise<{ id: number; name: string; ba
 
 /** Every plant with its baseline fuel and studies (ids and names), oldest first (the home page). */
 export function plantsOverview(db: DbOrTx) {
-  return db.plant.findMany({ orderBy: { id: "asc" }, include: { baselineFuel: { select: { id: true, name: true } }, studies: { select: { id: true, name: true } } } });
+  return db.plant.findMany({
+    orderBy: { id: "asc" },
+    include: { baselineFuel: { select: { id: true, name: true } }, studies: { select: { id: true, name: true } } },
+  });
 }
 
 export function insertPlant(tx: Tx, plant: Plant, baselineFuelId: number): Promise<PlantRow> {

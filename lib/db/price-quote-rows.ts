@@ -41,7 +41,7 @@ export function quoteColumns(q: PriceQuoteInputParsed) {
     meteringReference: q.meteringReference ?? null,
     transportAdder: q.transportAdder,
     handlingAdder: q.handlingAdder,
-    validFrom: new Date(q.validFrom + "T00:00:00Z"),
+    validFrom: new Date(`${q.validFrom}T00:00:00Z`),
     sourceNote: q.sourceNote,
     isInvented: q.isInvented,
   };

@@ -60,7 +60,8 @@ function readJson<S extends z.ZodType>(text: string, schema: S): { value: z.outp
   let raw: unknown;
   try {
     raw = JSON.parse(text);
-  } catch {
+  } catch (e) {
+    if (!(e instanceof SyntaxError)) throw e;
     return { error: "the stored value is not valid JSON" };
   }
   const parsed = schema.safeParse(raw);
@@ -77,11 +78,13 @@ export function studyFromRows(row: StudyRow, scenarioRows: ScenarioRow[]): Store
   const unreadable: Record<string, string> = {};
   const sensitivity = readJson(row.sensitivityRanges, sensitivitySchema);
   if ("error" in sensitivity) unreadable.sensitivity = `${sensitivity.error}; edit the study to set the ranges again`;
-  if (!isRankingMetric(row.rankingMetric)) unreadable.rankingMetric = `"${row.rankingMetric}" is not a ranking metric; choose one and save the study`;
+  if (!isRankingMetric(row.rankingMetric))
+    unreadable.rankingMetric = `"${row.rankingMetric}" is not a ranking metric; choose one and save the study`;
   const ordered = [...scenarioRows].sort((a, b) => Number(b.isBaseline) - Number(a.isBaseline) || a.position - b.position || a.id - b.id);
   const scenario = (s: ScenarioRow, field: string): StoredScenario => {
     const overrides = readJson(s.overrides, operatingOverridesSchema);
-    if ("error" in overrides) unreadable[`${field}.overrides`] = `${overrides.error}; edit the scenario's operating changes and save the study`;
+    if ("error" in overrides)
+      unreadable[`${field}.overrides`] = `${overrides.error}; edit the scenario's operating changes and save the study`;
     return {
       id: s.id,
       name: s.name,
@@ -174,7 +177,14 @@ export function findStudy(db: DbOrTx, id: number): Promise<StudyRow | null> {
 export function studyHeader(db: DbOrTx, id: number) {
   return db.study.findUnique({
     where: { id },
-    select: { id: true, name: true, isDemo: true, currency: true, plant: { select: { id: true, name: true } }, _count: { select: { scenarios: true } } },
+    select: {
+      id: true,
+      name: true,
+      isDemo: true,
+      currency: true,
+      plant: { select: { id: true, name: true } },
+      _count: { select: { scenarios: true } },
+    },
   });
 }
 
@@ -183,7 +193,10 @@ export function listStudyRows(db: DbOrTx, plantId?: number) {
   return db.study.findMany({
     where: plantId ? { plantId } : undefined,
     orderBy: [{ plant: { name: "asc" } }, { name: "asc" }],
-    include: { plant: { select: { name: true } }, scenarios: { select: { name: true, isBaseline: true, fuel: { select: { kind: true } } } } },
+    include: {
+      plant: { select: { name: true } },
+      scenarios: { select: { name: true, isBaseline: true, fuel: { select: { kind: true } } } },
+    },
   });
 }
 

@@ -5,7 +5,15 @@
  * and propagates.
  */
 import type { Db } from "../db/client";
-import { findFuelForSheet, isBlendRow, listFuelsWithQuotes, storedDefinition, type BlendComponentRow, type FuelRow, type FuelWithQuotesRow } from "../db/fuel-rows";
+import {
+  findFuelForSheet,
+  isBlendRow,
+  listFuelsWithQuotes,
+  storedDefinition,
+  type BlendComponentRow,
+  type FuelRow,
+  type FuelWithQuotesRow,
+} from "../db/fuel-rows";
 import { listQuotes, quoteJson, type PriceQuoteRow, type QuoteJson } from "../db/price-quote-rows";
 import { fuelPropertiesFromResolved, type FuelProperties } from "../combustion/properties";
 import { flameTemperature, FLAME_METHODS, FLAME_METHOD_LABELS, type FlameMethod } from "../combustion/flame";
@@ -97,7 +105,10 @@ function priceViews(quotes: PriceQuoteRow[], resolved: ResolvedFuel | null, asOf
   });
 }
 
-function propertiesOf(row: FuelRow, opts: ViewOptions): { resolved: ResolvedFuel | null; properties: FuelProperties | null; error: string | null } {
+function propertiesOf(
+  row: FuelRow,
+  opts: ViewOptions,
+): { resolved: ResolvedFuel | null; properties: FuelProperties | null; error: string | null } {
   try {
     const resolved = resolveRow(row);
     const properties = fuelPropertiesFromResolved(resolved, {
@@ -119,7 +130,17 @@ export async function fuelList(db: Db, opts: ViewOptions & { kind?: string } = {
     const cur = currentQuote(row.priceQuotes, asOf);
     const price = cur ? priceViews([cur], resolved, asOf)[0] : null;
     const estimatedPrice = !price && resolved ? estimateBlendPrice(resolved, row.components, asOf) : null;
-    return { id: row.id, name: row.name, kind: row.kind, isDemo: row.isDemo, isBlend: isBlendRow(row), properties, error, price, estimatedPrice };
+    return {
+      id: row.id,
+      name: row.name,
+      kind: row.kind,
+      isDemo: row.isDemo,
+      isBlend: isBlendRow(row),
+      properties,
+      error,
+      price,
+      estimatedPrice,
+    };
   });
 }
 

@@ -98,7 +98,10 @@ async function prepareFuel(tx: DbOrTx, input: FuelInputParsed, selfId?: number):
   // A blend of stored fuels (the schema requires a definition or a blend).
   const blend = input.blend;
   if (!blend) return problem("invalid", "Give a definition or a blend.", { definition: "give a definition or a blend" });
-  const rows = await findFuels(tx, blend.components.map((c) => c.fuelId));
+  const rows = await findFuels(
+    tx,
+    blend.components.map((c) => c.fuelId),
+  );
   const byId = new Map(rows.map((r) => [r.id, r]));
   const errs: FieldErrors = {};
   blend.components.forEach((c, i) => {
@@ -123,7 +126,9 @@ async function prepareFuel(tx: DbOrTx, input: FuelInputParsed, selfId?: number):
   }
   const [kind] = kinds;
   if (input.kind !== undefined && input.kind !== kind) {
-    return problem("invalid", "The kind does not match the components.", { kind: `the components are ${kind === "gas" ? "gases" : kind + "s"}` });
+    return problem("invalid", "The kind does not match the components.", {
+      kind: `the components are ${kind === "gas" ? "gases" : `${kind}s`}`,
+    });
   }
   const def: FuelDefinition = {
     blend: blend.components.map((c) => ({ fuel: effectiveDefinition(component(c.fuelId)), share: c.share })),
@@ -178,7 +183,8 @@ async function withNameCheck(tx: DbOrTx, failure: Problem, raw: unknown, exceptI
   return { ...failure, fieldErrors: { name: `a fuel named "${taken}" already exists`, ...failure.fieldErrors } };
 }
 
-const nameConflict = (taken: string) => problem("conflict", `A fuel named "${taken}" already exists.`, { name: `a fuel named "${taken}" already exists` });
+const nameConflict = (taken: string) =>
+  problem("conflict", `A fuel named "${taken}" already exists.`, { name: `a fuel named "${taken}" already exists` });
 
 /** Re-derives every blend that depends on `fuelId` (after an edit of that fuel). */
 async function refreshDependentBlends(tx: Tx, fuelId: number): Promise<Result<null>> {
@@ -258,7 +264,9 @@ export function deleteFuel(db: Db, id: number): Promise<Result<FuelRow>> {
     if (!existing) return problem("not-found", `No fuel with id ${id}.`);
     const usage = await fuelUsage(tx, id);
     if (usage.length) {
-      return problem("conflict", `"${existing.name}" is in use: ${usage.join("; ")}. Change or delete those first.`, { _: `in use: ${usage.join("; ")}` });
+      return problem("conflict", `"${existing.name}" is in use: ${usage.join("; ")}. Change or delete those first.`, {
+        _: `in use: ${usage.join("; ")}`,
+      });
     }
     await deleteFuelRow(tx, id);
     return ok(existing);
@@ -268,7 +276,9 @@ export function deleteFuel(db: Db, id: number): Promise<Result<FuelRow>> {
 /* ---------------------------------------------------------------- price quotes */
 
 /** The quote's terms in the form lib/economics/prices.ts takes them. */
-export function quoteTerms(q: Pick<PriceQuoteRow, "amount" | "unit" | "energyBasis" | "meteringReference" | "transportAdder" | "handlingAdder">): PriceQuoteTerms {
+export function quoteTerms(
+  q: Pick<PriceQuoteRow, "amount" | "unit" | "energyBasis" | "meteringReference" | "transportAdder" | "handlingAdder">,
+): PriceQuoteTerms {
   return {
     amount: q.amount,
     unit: q.unit as PriceUnit,
@@ -311,7 +321,10 @@ export function checkQuoteForFuel(fuel: FuelRow, raw: unknown): Result<PriceQuot
   return ok(q);
 }
 
-function quoteFitErrors(fuel: FuelRow, q: { unit: PriceUnit; energyBasis?: EnergyBasis | null; meteringReference?: MeteringReferenceKey | null }): FieldErrors {
+function quoteFitErrors(
+  fuel: FuelRow,
+  q: { unit: PriceUnit; energyBasis?: EnergyBasis | null; meteringReference?: MeteringReferenceKey | null },
+): FieldErrors {
   let hasDensity = false;
   if (fuel.kind !== "gas") {
     try {
@@ -323,7 +336,11 @@ function quoteFitErrors(fuel: FuelRow, q: { unit: PriceUnit; energyBasis?: Energ
     }
   }
   const issues = priceQuoteIssues(
-    { unit: q.unit, energyBasis: q.energyBasis ?? null, meteringReferenceC: q.meteringReference ? METERING_REFERENCE_C[q.meteringReference] : null },
+    {
+      unit: q.unit,
+      energyBasis: q.energyBasis ?? null,
+      meteringReferenceC: q.meteringReference ? METERING_REFERENCE_C[q.meteringReference] : null,
+    },
     { kind: fuel.kind as FuelKind, hasDensity },
   );
   const errs: FieldErrors = {};

@@ -10,6 +10,10 @@ import { findStudy, studyHeader } from "../db/study-rows";
 
 export { countFuelsAndQuotes, findFuel, fuelChoices, plantsOverview, studyHeader };
 
+export async function fuelName(db: Db, id: number): Promise<string | null> {
+  return (await findFuel(db, id))?.name ?? null;
+}
+
 export async function plantName(db: Db, id: number): Promise<string | null> {
   return (await findPlant(db, id))?.name ?? null;
 }

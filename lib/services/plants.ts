@@ -35,7 +35,8 @@ export type PlantRecordInput = PlantInput & { baselineFuelId: number | null };
 
 /** Validates a plant form / API body. Both parts are checked so every field error shows at once. */
 async function parsePlant(tx: DbOrTx, raw: unknown): Promise<Result<{ plant: Plant; baselineFuelId: number }>> {
-  if (typeof raw !== "object" || raw === null || Array.isArray(raw)) return problem("invalid", "The plant must be an object.", { _: "expected an object" });
+  if (typeof raw !== "object" || raw === null || Array.isArray(raw))
+    return problem("invalid", "The plant must be an object.", { _: "expected an object" });
   const { baselineFuelId, isDemo: _ignored, ...rest } = raw as Record<string, unknown>;
   const errs: FieldErrors = {};
   const parsed = plantSchema.safeParse(rest);
@@ -50,7 +51,8 @@ async function parsePlant(tx: DbOrTx, raw: unknown): Promise<Result<{ plant: Pla
     if (!fuel) errs.baselineFuelId = `no stored fuel with id ${baselineFuelId}`;
     else fuelId = fuel.id;
   }
-  if (Object.keys(errs).length || !parsed.success || fuelId === null) return problem("invalid", "The plant has errors; nothing was saved.", errs);
+  if (Object.keys(errs).length || !parsed.success || fuelId === null)
+    return problem("invalid", "The plant has errors; nothing was saved.", errs);
   return ok({ plant: parsed.data, baselineFuelId: fuelId });
 }
 
@@ -59,7 +61,8 @@ async function nameTaken(tx: DbOrTx, name: string, exceptId?: number): Promise<s
   return (await plantNames(tx)).find((p) => p.name.toLowerCase() === lower && p.id !== exceptId)?.name ?? null;
 }
 
-const nameConflict = (taken: string) => problem("conflict", `A plant named "${taken}" already exists.`, { name: `a plant named "${taken}" already exists` });
+const nameConflict = (taken: string) =>
+  problem("conflict", `A plant named "${taken}" already exists.`, { name: `a plant named "${taken}" already exists` });
 
 export function createPlant(db: Db, raw: unknown): Promise<Result<PlantRow>> {
   return inTransaction(db, async (tx): Promise<Result<PlantRow>> => {
@@ -89,7 +92,9 @@ export function deletePlant(db: Db, id: number): Promise<Result<PlantRow>> {
     if (!existing) return problem("not-found", `No plant with id ${id}.`);
     if (existing.studies.length) {
       const names = existing.studies.map((s) => `"${s.name}"`).join(", ");
-      return problem("conflict", `"${existing.name}" has studies (${names}). Delete those studies first.`, { _: `used by studies ${names}` });
+      return problem("conflict", `"${existing.name}" has studies (${names}). Delete those studies first.`, {
+        _: `used by studies ${names}`,
+      });
     }
     const { studies: _s, ...row } = existing;
     await deletePlantRow(tx, id);
@@ -99,7 +104,14 @@ export function deletePlant(db: Db, id: number): Promise<Result<PlantRow>> {
 
 /** The JSON form of a plant for the API. */
 export function plantJson(r: PlantRecord) {
-  return { id: r.id, ...r.plant, baselineFuelId: r.baselineFuelId, baselineFuelName: r.baselineFuelName, isDemo: r.isDemo, url: `/plants/${r.id}` };
+  return {
+    id: r.id,
+    ...r.plant,
+    baselineFuelId: r.baselineFuelId,
+    baselineFuelName: r.baselineFuelName,
+    isDemo: r.isDemo,
+    url: `/plants/${r.id}`,
+  };
 }
 
 export interface PlantBaseline {
@@ -114,7 +126,7 @@ export interface PlantBaseline {
  */
 export async function plantBaseline(db: Db, id: number): Promise<Result<PlantBaseline> | null> {
   const row = await findPlantWithBaselineFuel(db, id);
-  if (!row || !row.baselineFuel) return null;
+  if (!row?.baselineFuel) return null;
   const study = studySchema.parse({
     name: row.name,
     currency: "EUR",

@@ -5,7 +5,15 @@
  * scenario, and assembles the self-contained study object that lib/study/evaluate.ts evaluates.
  */
 import { inTransaction, type Db, type DbOrTx, type Tx } from "../db/client";
-import { effectiveDefinition, fuelsWithQuotes, gasesMentioningHydrogen, listFuelsWithQuotes, storedDefinition, type FuelRow, type FuelWithQuotesRow } from "../db/fuel-rows";
+import {
+  effectiveDefinition,
+  fuelsWithQuotes,
+  gasesMentioningHydrogen,
+  listFuelsWithQuotes,
+  storedDefinition,
+  type FuelRow,
+  type FuelWithQuotesRow,
+} from "../db/fuel-rows";
 import { findQuotes, quoteJson, type PriceQuoteRow } from "../db/price-quote-rows";
 import { findPlant, plantChoices, plantInputFromRow, type PlantRow } from "../db/plant-rows";
 import {
@@ -76,14 +84,24 @@ function priceFor(
   asOf: Date,
 ): { price: StudyPriceInput | null; componentPrices: StudyPriceInput[] | null; source: PriceSource } {
   if (chosen) {
-    return { price: studyPrice(chosen), componentPrices: null, source: { kind: "quote", quoteId: chosen.id, invented: chosen.isInvented, validFrom: day(chosen.validFrom) } };
+    return {
+      price: studyPrice(chosen),
+      componentPrices: null,
+      source: { kind: "quote", quoteId: chosen.id, invented: chosen.isInvented, validFrom: day(chosen.validFrom) },
+    };
   }
   const cur = quoteInCurrency(fuel.priceQuotes, currency, asOf);
   if (cur) {
-    return { price: studyPrice(cur), componentPrices: null, source: { kind: "current", quoteId: cur.id, invented: cur.isInvented, validFrom: day(cur.validFrom) } };
+    return {
+      price: studyPrice(cur),
+      componentPrices: null,
+      source: { kind: "current", quoteId: cur.id, invented: cur.isInvented, validFrom: day(cur.validFrom) },
+    };
   }
   if (fuel.components.length) {
-    const qs = fuel.components.map((c) => quoteInCurrency(c.component.priceQuotes, currency, asOf)).filter((q): q is PriceQuoteRow => q !== undefined);
+    const qs = fuel.components
+      .map((c) => quoteInCurrency(c.component.priceQuotes, currency, asOf))
+      .filter((q): q is PriceQuoteRow => q !== undefined);
     if (qs.length === fuel.components.length) {
       return {
         price: null,
@@ -175,7 +193,16 @@ interface ScenarioSource {
 
 type StudyFields = Pick<
   StoredStudy,
-  "name" | "currency" | "carbonPrice_per_t" | "discountRatePercent" | "horizonYears" | "priceEscalationPercent" | "rankingMetric" | "includeUpstream" | "sensitivity" | "notes"
+  | "name"
+  | "currency"
+  | "carbonPrice_per_t"
+  | "discountRatePercent"
+  | "horizonYears"
+  | "priceEscalationPercent"
+  | "rankingMetric"
+  | "includeUpstream"
+  | "sensitivity"
+  | "notes"
 >;
 
 function build(
@@ -266,12 +293,23 @@ export async function studyBundle(db: Db, id: number, settings: ViewSettings = {
   if (!row) return problem("not-found", `No study with id ${id}.`);
   const stored = studyFromRows(row, row.scenarios);
   if (Object.keys(stored.unreadable).length) return unreadableProblem(row.name, stored.unreadable);
-  if (!stored.baseline) return problem("unprocessable", `Study "${row.name}" has no baseline scenario; edit the study and choose one.`, { baseline: "missing" });
+  if (!stored.baseline)
+    return problem("unprocessable", `Study "${row.name}" has no baseline scenario; edit the study and choose one.`, {
+      baseline: "missing",
+    });
   const rowOf = new Map(row.scenarios.map((s) => [s.id, s]));
   const src = (s: StoredScenario): ScenarioSource => {
     const r = rowOf.get(s.id);
     if (!r) throw new Error(`scenario ${s.id} vanished while the study was read`);
-    return { id: s.id, name: s.name, fuel: r.fuel, quote: r.priceQuote, capex: s.capex, fixedOpexChange: s.fixedOpexChange, overrides: s.overrides };
+    return {
+      id: s.id,
+      name: s.name,
+      fuel: r.fuel,
+      quote: r.priceQuote,
+      capex: s.capex,
+      fixedOpexChange: s.fixedOpexChange,
+      overrides: s.overrides,
+    };
   };
   const built = build(stored, row.plant, src(stored.baseline), stored.scenarios.map(src), await libraryHydrogen(db), settings);
   const parsed = studySchema.safeParse(built.input);
@@ -319,7 +357,11 @@ export async function evaluateStoredStudy(db: Db, id: number, opts: EvaluateStor
   const loaded = await studyBundle(db, id, opts);
   if (!loaded.ok) return loaded;
   try {
-    const result = evaluateStudy(loaded.bundle.study, { sweep: opts.sweep ?? false, tornado: opts.tornado ?? true, caches: sharedCaches() });
+    const result = evaluateStudy(loaded.bundle.study, {
+      sweep: opts.sweep ?? false,
+      tornado: opts.tornado ?? true,
+      caches: sharedCaches(),
+    });
     return { ok: true, bundle: loaded.bundle, result };
   } catch (e) {
     return problemFromError(e, {
@@ -388,7 +430,9 @@ export async function studyRecord(db: Db, id: number): Promise<StudyRecordView |
     includeUpstream: s.includeUpstream,
     sensitivity: s.sensitivity,
     notes: s.notes,
-    baseline: s.baseline ? sc(s.baseline) : { name: "Baseline", fuelId: 0, priceQuoteId: null, capex: 0, fixedOpexChange: 0, overrides: {} },
+    baseline: s.baseline
+      ? sc(s.baseline)
+      : { name: "Baseline", fuelId: 0, priceQuoteId: null, capex: 0, fixedOpexChange: 0, overrides: {} },
     scenarios: s.scenarios.map(sc),
     storedProblems: s.unreadable,
   };
@@ -418,7 +462,10 @@ async function prepare(tx: Tx, raw: unknown, selfId?: number): Promise<Result<St
   const errs: FieldErrors = {};
   const plant = await findPlant(tx, r.plantId);
   if (!plant) errs.plantId = `no plant with id ${r.plantId}`;
-  const all: [string, ScenarioRecord][] = [["baseline", r.baseline], ...r.scenarios.map((s, i): [string, ScenarioRecord] => [`scenarios.${i}`, s])];
+  const all: [string, ScenarioRecord][] = [
+    ["baseline", r.baseline],
+    ...r.scenarios.map((s, i): [string, ScenarioRecord] => [`scenarios.${i}`, s]),
+  ];
   const fuels = new Map((await fuelsWithQuotes(tx, [...new Set(all.map(([, s]) => s.fuelId))])).map((f) => [f.id, f]));
   const quoteIds = all.map(([, s]) => s.priceQuoteId).filter((q): q is number => typeof q === "number");
   const quotes = new Map((await findQuotes(tx, quoteIds)).map((q) => [q.id, q]));
@@ -427,18 +474,30 @@ async function prepare(tx: Tx, raw: unknown, selfId?: number): Promise<Result<St
     if (s.priceQuoteId != null) {
       const q = quotes.get(s.priceQuoteId);
       if (!q || q.fuelId !== s.fuelId) errs[`${path}.priceQuoteId`] = "is not a price quote of the chosen fuel";
-      else if (q.currency !== r.currency) errs[`${path}.priceQuoteId`] = `is in ${q.currency}; the study is in ${r.currency} (no exchange rates are applied)`;
+      else if (q.currency !== r.currency)
+        errs[`${path}.priceQuoteId`] = `is in ${q.currency}; the study is in ${r.currency} (no exchange rates are applied)`;
     }
   }
   if (Object.keys(errs).length || !plant) return problem("invalid", "The study has errors; nothing was saved.", errs);
   const clash = (await studyNamesOfPlant(tx, r.plantId)).find((o) => o.name.toLowerCase() === r.name.toLowerCase() && o.id !== selfId);
-  if (clash) return problem("conflict", `This plant already has a study named "${clash.name}".`, { name: `this plant already has a study named "${clash.name}"` });
+  if (clash)
+    return problem("conflict", `This plant already has a study named "${clash.name}".`, {
+      name: `this plant already has a study named "${clash.name}"`,
+    });
 
   // Evaluate once, so that a study that cannot be evaluated is never stored.
   const src = (s: ScenarioRecord): ScenarioSource => {
     const fuel = fuels.get(s.fuelId);
     if (!fuel) throw new Error(`fuel ${s.fuelId} vanished while the study was checked`);
-    return { id: null, name: s.name, fuel, quote: s.priceQuoteId != null ? (quotes.get(s.priceQuoteId) ?? null) : null, capex: s.capex, fixedOpexChange: s.fixedOpexChange, overrides: s.overrides };
+    return {
+      id: null,
+      name: s.name,
+      fuel,
+      quote: s.priceQuoteId != null ? (quotes.get(s.priceQuoteId) ?? null) : null,
+      capex: s.capex,
+      fixedOpexChange: s.fixedOpexChange,
+      overrides: s.overrides,
+    };
   };
   const built = build(r, plant, src(r.baseline), r.scenarios.map(src), await libraryHydrogen(tx), { metric: r.rankingMetric });
   const study = studySchema.safeParse(built.input);
@@ -490,7 +549,10 @@ export function duplicateStudy(db: Db, id: number, name?: string): Promise<Resul
     let newName = name?.trim() ?? "";
     if (newName) {
       if (newName.length > 200) return problem("invalid", "The name is too long.", { name: "must be ≤ 200 characters" });
-      if (taken.has(newName.toLowerCase())) return problem("conflict", `This plant already has a study named "${newName}".`, { name: `this plant already has a study named "${newName}"` });
+      if (taken.has(newName.toLowerCase()))
+        return problem("conflict", `This plant already has a study named "${newName}".`, {
+          name: `this plant already has a study named "${newName}"`,
+        });
     } else {
       for (let i = 1; ; i++) {
         const n = `${src.name} (copy${i > 1 ? ` ${i}` : ""})`.slice(0, 200);

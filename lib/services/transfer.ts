@@ -18,7 +18,10 @@ export const LIBRARY_FORMAT = "stoke-fuel-library";
 export const LIBRARY_FORMAT_VERSION = 1;
 
 const text = z.string({ error: "must be text" });
-const numberOrNull = z.number({ error: "must be a number" }).nullish().transform((v) => v ?? null);
+const numberOrNull = z
+  .number({ error: "must be a number" })
+  .nullish()
+  .transform((v) => v ?? null);
 
 const libraryPriceSchema = z.object({
   amount: z.number({ error: "must be a number" }),
@@ -41,7 +44,10 @@ const libraryFuelSchema = z.object(
     definition: z.unknown().transform((v) => v ?? null),
     /** Components by fuel name. Null for a fuel that is not a blend. */
     blend: z
-      .object({ basis: text, components: z.array(z.object({ fuel: text, share: z.number({ error: "must be a number" }) }), { error: "must be a list" }) })
+      .object({
+        basis: text,
+        components: z.array(z.object({ fuel: text, share: z.number({ error: "must be a number" }) }), { error: "must be a list" }),
+      })
       .nullish()
       .transform((v) => v ?? null),
     densityKgPerM3: numberOrNull,
@@ -116,7 +122,7 @@ export async function exportLibrary(db: DbOrTx): Promise<LibraryDocument> {
 }
 
 export function libraryToJson(doc: LibraryDocument): string {
-  return JSON.stringify(doc, null, 2) + "\n";
+  return `${JSON.stringify(doc, null, 2)}\n`;
 }
 
 export const CSV_COLUMNS = [
@@ -224,7 +230,8 @@ function csvBool(where: string, column: string, cell: string): boolean {
 function csvJson(where: string, column: string, cell: string): unknown {
   try {
     return JSON.parse(cell);
-  } catch {
+  } catch (e) {
+    if (!(e instanceof SyntaxError)) throw e;
     throw new InputError(where, `${column}: not valid JSON`);
   }
 }
@@ -294,7 +301,8 @@ export function libraryFromCsv(text: string): LibraryDocument {
   return doc.data;
 }
 
-const refused = (where: string, detail: string) => problem("invalid", `Import refused, nothing was stored. ${where}: ${detail}`, { [where]: detail });
+const refused = (where: string, detail: string) =>
+  problem("invalid", `Import refused, nothing was stored. ${where}: ${detail}`, { [where]: detail });
 
 /** Parses an import file's text into a library document; a malformed file gives a located problem. */
 export function parseLibrary(text: string, format: ImportFormat): Result<LibraryDocument> {
@@ -343,23 +351,34 @@ export function importLibrary(db: Db, doc: LibraryDocument, opts: ImportOptions 
       if (idx < 0) {
         const { f, i } = pending[0];
         const missing = (f.blend?.components ?? []).map((c) => c.fuel).filter((n) => !idByName.has(n.toLowerCase()));
-        return problem("invalid", `Import refused, nothing was stored. fuels[${i}] "${f.name}": blend component(s) ${missing.map((m) => `"${m}"`).join(", ")} not found`, {
-          [`fuels.${i}.blend.components`]: `not found: ${missing.join(", ")}`,
-        });
+        return problem(
+          "invalid",
+          `Import refused, nothing was stored. fuels[${i}] "${f.name}": blend component(s) ${missing.map((m) => `"${m}"`).join(", ")} not found`,
+          {
+            [`fuels.${i}.blend.components`]: `not found: ${missing.join(", ")}`,
+          },
+        );
       }
       const { f, i } = pending.splice(idx, 1)[0];
       const where = `fuels.${i}`;
       const key = f.name.trim().toLowerCase();
-      if (seen.has(key)) return problem("invalid", `Import refused, nothing was stored. ${where}: "${f.name}" appears twice in the file`, { [`${where}.name`]: "appears twice in the file" });
+      if (seen.has(key))
+        return problem("invalid", `Import refused, nothing was stored. ${where}: "${f.name}" appears twice in the file`, {
+          [`${where}.name`]: "appears twice in the file",
+        });
       seen.add(key);
       if (existing.has(key)) {
         if (opts.onExisting === "skip") {
           summary.skipped.push(f.name);
           continue;
         }
-        return problem("conflict", `Import refused, nothing was stored. A fuel named "${f.name}" already exists (choose "skip existing" to leave it as it is).`, {
-          [`${where}.name`]: `a fuel named "${f.name}" already exists`,
-        });
+        return problem(
+          "conflict",
+          `Import refused, nothing was stored. A fuel named "${f.name}" already exists (choose "skip existing" to leave it as it is).`,
+          {
+            [`${where}.name`]: `a fuel named "${f.name}" already exists`,
+          },
+        );
       }
       const input: Record<string, unknown> = {
         name: f.name,
@@ -381,7 +400,15 @@ export function importLibrary(db: Db, doc: LibraryDocument, opts: ImportOptions 
       }
       const created = await createFuelIn(tx, input);
       if (!created.ok) {
-        return problem(created.kind, `Import refused, nothing was stored. ${where} "${f.name}": ${Object.entries(created.fieldErrors).map(([k, v]) => `${k}: ${v}`).join("; ") || created.message}`, prefixErrors(where, created.fieldErrors));
+        return problem(
+          created.kind,
+          `Import refused, nothing was stored. ${where} "${f.name}": ${
+            Object.entries(created.fieldErrors)
+              .map(([k, v]) => `${k}: ${v}`)
+              .join("; ") || created.message
+          }`,
+          prefixErrors(where, created.fieldErrors),
+        );
       }
       idByName.set(key, created.value.id);
       summary.fuelsCreated++;
@@ -389,7 +416,13 @@ export function importLibrary(db: Db, doc: LibraryDocument, opts: ImportOptions 
         const q = await addPriceQuoteIn(tx, created.value.id, p);
         if (!q.ok) {
           const pw = `${where}.prices.${j}`;
-          return problem("invalid", `Import refused, nothing was stored. ${pw} (price of "${f.name}"): ${Object.entries(q.fieldErrors).map(([k, v]) => `${k}: ${v}`).join("; ")}`, prefixErrors(pw, q.fieldErrors));
+          return problem(
+            "invalid",
+            `Import refused, nothing was stored. ${pw} (price of "${f.name}"): ${Object.entries(q.fieldErrors)
+              .map(([k, v]) => `${k}: ${v}`)
+              .join("; ")}`,
+            prefixErrors(pw, q.fieldErrors),
+          );
         }
         summary.pricesCreated++;
       }
@@ -402,4 +435,3 @@ export async function exportLibraryText(db: DbOrTx, format: ImportFormat): Promi
   const doc = await exportLibrary(db);
   return format === "csv" ? libraryToCsv(doc) : libraryToJson(doc);
 }
-

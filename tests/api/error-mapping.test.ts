@@ -52,7 +52,12 @@ afterAll(async () => {
   await t.cleanup();
 });
 
-const post = (body: unknown) => new Request("http://localhost/api/studies", { method: "POST", body: JSON.stringify(body), headers: { "content-type": "application/json" } });
+const post = (body: unknown) =>
+  new Request("http://localhost/api/studies", {
+    method: "POST",
+    body: JSON.stringify(body),
+    headers: { "content-type": "application/json" },
+  });
 const ctx = (id: number) => ({ params: Promise.resolve({ id: String(id) }) });
 const study = (name: string) => ({
   plantId,
@@ -64,7 +69,10 @@ const study = (name: string) => ({
   scenarios: [{ name: "LPG", fuelId: fuel["LPG (propane)"] }],
 });
 
-async function postWith(error: Error | null, name: string): Promise<{ status: number; body: { error: string; fieldErrors: Record<string, string> } }> {
+async function postWith(
+  error: Error | null,
+  name: string,
+): Promise<{ status: number; body: { error: string; fieldErrors: Record<string, string> } }> {
   control.error = error;
   try {
     const res = await routes.studies.POST(post(study(name)));
@@ -77,14 +85,20 @@ async function postWith(error: Error | null, name: string): Promise<{ status: nu
 describe("POST /api/studies when the evaluation refuses", () => {
   it("a solver that did not converge: 422, says so, names the solver, stores nothing", async () => {
     const before = await t.client.study.count();
-    const r = await postWith(new NotConvergedError("equilibrium", "residual 3e-2 after 60 iterations", { iterations: 60 }), "Not converged");
+    const r = await postWith(
+      new NotConvergedError("equilibrium", "residual 3e-2 after 60 iterations", { iterations: 60 }),
+      "Not converged",
+    );
     expect(r.status).toBe(422);
     expect(r.body.error).toMatch(/equilibrium solver did not converge: residual 3e-2 after 60 iterations/);
     expect(await t.client.study.count()).toBe(before);
   });
 
   it("an infeasible charge: 422 with the scenario's fuel field named", async () => {
-    const r = await postWith(new InfeasibleChargeError("scenarios.0.fuel", "too little oxygen to burn the fuel", "too-little-oxygen"), "Infeasible");
+    const r = await postWith(
+      new InfeasibleChargeError("scenarios.0.fuel", "too little oxygen to burn the fuel", "too-little-oxygen"),
+      "Infeasible",
+    );
     expect(r.status).toBe(422);
     expect(r.body.fieldErrors["scenarios.0.fuelId"]).toBe("too little oxygen to burn the fuel");
   });
@@ -96,7 +110,10 @@ describe("POST /api/studies when the evaluation refuses", () => {
   });
 
   it("bad input found by the evaluation itself (no error injected): 400 with the field named", async () => {
-    const body = { ...study("Condensing without return water"), scenarios: [{ name: "LPG", fuelId: fuel["LPG (propane)"], overrides: { condensing: true } }] };
+    const body = {
+      ...study("Condensing without return water"),
+      scenarios: [{ name: "LPG", fuelId: fuel["LPG (propane)"], overrides: { condensing: true } }],
+    };
     const res = await routes.studies.POST(post(body));
     expect(res.status).toBe(400);
     expect((await res.json()).fieldErrors["scenarios.0.overrides.returnWaterC"]).toMatch(/return-water/);

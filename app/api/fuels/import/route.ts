@@ -12,7 +12,8 @@ export const POST = withErrors(async (req: Request): Promise<Response> => {
   const url = new URL(req.url);
   const type = req.headers.get("content-type") ?? "";
   const format = url.searchParams.get("format") ?? (type.includes("csv") ? "csv" : "json");
-  if (format !== "json" && format !== "csv") return json({ error: "format must be json or csv", fieldErrors: { format: "must be json or csv" } }, 400);
+  if (format !== "json" && format !== "csv")
+    return json({ error: "format must be json or csv", fieldErrors: { format: "must be json or csv" } }, 400);
   const onExisting = url.searchParams.get("onExisting") ?? "reject";
   if (onExisting !== "reject" && onExisting !== "skip") {
     return json({ error: "onExisting must be reject or skip", fieldErrors: { onExisting: "must be reject or skip" } }, 400);

@@ -11,7 +11,11 @@ export const dynamic = "force-dynamic";
 const STUDY_RESULTS_FORMAT = "stoke-study-results";
 
 function fileName(name: string, ext: string, table?: string): string {
-  const base = name.replace(/[^\p{L}\p{N}]+/gu, "-").replace(/^-|-$/g, "").toLowerCase() || "study";
+  const base =
+    name
+      .replace(/[^\p{L}\p{N}]+/gu, "-")
+      .replace(/^-|-$/g, "")
+      .toLowerCase() || "study";
   return `${base}${table ? `-${table}` : ""}.${ext}`;
 }
 
@@ -25,13 +29,20 @@ export const GET = withErrors(async (req: Request, { params }: { params: Promise
   if (id === null) return notFound("Study");
   const q = new URL(req.url).searchParams;
   const format = q.get("format") ?? "csv";
-  if (format !== "csv" && format !== "json") return json({ error: 'format must be "csv" or "json"', fieldErrors: { format: "unknown format" } }, 400);
+  if (format !== "csv" && format !== "json")
+    return json({ error: 'format must be "csv" or "json"', fieldErrors: { format: "unknown format" } }, 400);
   const table = (q.get("table") ?? "scenarios") as CsvTable;
-  if (!(CSV_TABLES as readonly string[]).includes(table)) return json({ error: `table must be one of ${CSV_TABLES.join(", ")}`, fieldErrors: { table: "unknown table" } }, 400);
+  if (!(CSV_TABLES as readonly string[]).includes(table))
+    return json({ error: `table must be one of ${CSV_TABLES.join(", ")}`, fieldErrors: { table: "unknown table" } }, 400);
   const m = q.get("metric");
-  if (m && !(RANKING_METRICS as readonly string[]).includes(m)) return json({ error: `metric must be one of ${RANKING_METRICS.join(", ")}`, fieldErrors: { metric: "unknown metric" } }, 400);
+  if (m && !(RANKING_METRICS as readonly string[]).includes(m))
+    return json({ error: `metric must be one of ${RANKING_METRICS.join(", ")}`, fieldErrors: { metric: "unknown metric" } }, 400);
   const needSweep = format === "json" || table === "sweep";
-  const ev = await evaluateStoredStudy(db(), id, { metric: (m as RankingMetric) ?? undefined, includeUpstream: upstreamParam(q.get("upstream")), sweep: needSweep });
+  const ev = await evaluateStoredStudy(db(), id, {
+    metric: (m as RankingMetric) ?? undefined,
+    includeUpstream: upstreamParam(q.get("upstream")),
+    sweep: needSweep,
+  });
   if (!ev.ok) return failure(ev);
   const name = ev.result.study.name;
   if (format === "csv") {
@@ -49,7 +60,11 @@ export const GET = withErrors(async (req: Request, { params }: { params: Promise
     exportedAt: new Date().toISOString(),
     note: "`study` is a self-contained study file (stoke evaluate --input); `results` is its evaluation as shown in Stoke. Prices marked isInvented are demo figures.",
     study: { format: "stoke-study", version: 1, ...ev.bundle.study },
-    priceSources: { baseline: labelledPriceSource(ev.bundle.meta.baseline.price), scenarios: ev.bundle.meta.scenarios.map((s) => labelledPriceSource(s.price)), hydrogen: { ...labelledPriceSource(ev.bundle.meta.hydrogen.price), label: hydrogenPriceLabel(ev.bundle.meta.hydrogen) } },
+    priceSources: {
+      baseline: labelledPriceSource(ev.bundle.meta.baseline.price),
+      scenarios: ev.bundle.meta.scenarios.map((s) => labelledPriceSource(s.price)),
+      hydrogen: { ...labelledPriceSource(ev.bundle.meta.hydrogen.price), label: hydrogenPriceLabel(ev.bundle.meta.hydrogen) },
+    },
     results: ev.result,
   };
   return new Response(JSON.stringify(body, null, 2), {

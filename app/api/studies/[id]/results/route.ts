@@ -20,7 +20,18 @@ export const GET = withErrors(async (req: Request, { params }: { params: Promise
   if (m && !(RANKING_METRICS as readonly string[]).includes(m)) {
     return json({ error: `metric must be one of ${RANKING_METRICS.join(", ")}`, fieldErrors: { metric: "unknown metric" } }, 400);
   }
-  const ev = await evaluateStoredStudy(db(), id, { metric: (m as RankingMetric) ?? undefined, includeUpstream: upstreamParam(q.get("upstream")), sweep: q.get("sweep") === "1" });
+  const ev = await evaluateStoredStudy(db(), id, {
+    metric: (m as RankingMetric) ?? undefined,
+    includeUpstream: upstreamParam(q.get("upstream")),
+    sweep: q.get("sweep") === "1",
+  });
   if (!ev.ok) return failure(ev);
-  return json({ studyId: id, priceSources: { baseline: labelledPriceSource(ev.bundle.meta.baseline.price), scenarios: ev.bundle.meta.scenarios.map((s) => labelledPriceSource(s.price)) }, result: ev.result });
+  return json({
+    studyId: id,
+    priceSources: {
+      baseline: labelledPriceSource(ev.bundle.meta.baseline.price),
+      scenarios: ev.bundle.meta.scenarios.map((s) => labelledPriceSource(s.price)),
+    },
+    result: ev.result,
+  });
 });
