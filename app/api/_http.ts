@@ -8,6 +8,7 @@
  */
 import type { ErrorKind, StokeError } from "@/lib/errors";
 import { asStokeError, describe, type Problem, type ProblemKind } from "@/lib/services/result";
+import { MAX_JSON_DEPTH, tooDeepAt } from "@/lib/formats/json-depth";
 
 export const STATUS_OF_PROBLEM: Record<ProblemKind, number> = { invalid: 400, "not-found": 404, conflict: 409, unprocessable: 422 };
 export const STATUS_OF_ERROR: Record<ErrorKind, number> = { input: 400, infeasible: 422, "not-converged": 422 };
@@ -49,11 +50,20 @@ export function parseId(segment: string): number | null {
   return /^[1-9]\d{0,15}$/.test(segment) ? Number(segment) : null;
 }
 
+/** The request body as JSON: 400 when it is not JSON, or nests deeper than any document needs (the field named). */
 export async function readJson(req: Request): Promise<{ ok: true; value: unknown } | { ok: false; response: Response }> {
+  let value: unknown;
   try {
-    return { ok: true, value: await req.json() };
+    value = await req.json();
   } catch (e) {
     if (!(e instanceof SyntaxError)) throw e;
     return { ok: false, response: json({ error: "The request body must be JSON.", fieldErrors: {} }, 400) };
   }
+  const deep = tooDeepAt(value);
+  if (deep !== null) {
+    const field = deep.split(".")[0] || "_";
+    const detail = `nested more than ${MAX_JSON_DEPTH} levels deep (at ${deep.length > 80 ? `${deep.slice(0, 80)}…` : deep})`;
+    return { ok: false, response: json({ error: `${field}: ${detail}`, fieldErrors: { [field]: detail } }, 400) };
+  }
+  return { ok: true, value };
 }

@@ -38,6 +38,7 @@ import {
 import { resolveFuel, type ResolvedFuel } from "../fuels/resolve";
 import { heatingValues } from "../combustion/heating-values";
 import { PRICE_UNITS, priceQuoteIssues, type EnergyBasis, type PriceQuoteTerms, type PriceUnit } from "../economics/prices";
+import { MAX_JSON_DEPTH, tooDeepAt } from "../formats/json-depth";
 import { asStokeError, ok, problem, problemFromError, type FieldErrors, type Problem, type Result } from "./result";
 
 export { effectiveDefinition, findFuel, fuelJson };
@@ -169,6 +170,14 @@ export function friendlyMessages(errs: FieldErrors): FieldErrors {
 }
 
 function parseFuelInput(raw: unknown): Result<FuelInputParsed> {
+  // Blends nest: refuse a document deeper than any fuel needs before the recursive schema walks it.
+  const deep = tooDeepAt(raw);
+  if (deep !== null) {
+    const field = deep.split(".")[0] || "_";
+    return problem("invalid", `The fuel is nested more than ${MAX_JSON_DEPTH} levels deep; nothing was saved.`, {
+      [field]: `nested more than ${MAX_JSON_DEPTH} levels deep`,
+    });
+  }
   const parsed = fuelInputSchema.safeParse(raw);
   if (!parsed.success) return problem("invalid", "The fuel has errors; nothing was saved.", friendlyMessages(fieldErrors(parsed.error)));
   return ok(parsed.data);

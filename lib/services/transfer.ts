@@ -11,6 +11,7 @@ import { quoteJson } from "../db/price-quote-rows";
 import { fieldErrors } from "../schemas/fuel";
 import { InputError } from "../errors";
 import { readCsv, writeCsv } from "../formats/csv";
+import { MAX_JSON_DEPTH, tooDeepAt } from "../formats/json-depth";
 import { addPriceQuoteIn, createFuelIn } from "./fuels";
 import { ok, problem, type Result } from "./result";
 
@@ -228,12 +229,15 @@ function csvBool(where: string, column: string, cell: string): boolean {
   throw new InputError(where, `${column}: "${cell}" must be true or false`);
 }
 function csvJson(where: string, column: string, cell: string): unknown {
+  let value: unknown;
   try {
-    return JSON.parse(cell);
+    value = JSON.parse(cell);
   } catch (e) {
     if (!(e instanceof SyntaxError)) throw e;
     throw new InputError(where, `${column}: not valid JSON`);
   }
+  if (tooDeepAt(value) !== null) throw new InputError(where, `${column}: nested more than ${MAX_JSON_DEPTH} levels deep`);
+  return value;
 }
 
 /** Reads CSV text into a library document (structure only; values are validated on import). */
@@ -321,6 +325,8 @@ export function parseLibrary(text: string, format: ImportFormat): Result<Library
     if (e instanceof SyntaxError) return refused("file", `not valid JSON (${e.message})`);
     throw e;
   }
+  const deep = tooDeepAt(value);
+  if (deep !== null) return refused(deep.split(".").slice(0, 3).join("."), `nested more than ${MAX_JSON_DEPTH} levels deep`);
   const doc = libraryDocumentSchema.safeParse(value);
   if (!doc.success) {
     const errs = fieldErrors(doc.error);

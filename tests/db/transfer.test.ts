@@ -145,6 +145,20 @@ describe("library export and import", () => {
     expect(skip.ok && skip.value.skipped.length).toBe(doc.fuels.length);
   });
 
+  it("a definition nested 1,000 levels deep is refused naming the place, from a file or a direct call", async () => {
+    let definition: unknown = { composition: { CH4: 1 } };
+    for (let i = 0; i < 1000; i++) definition = { blend: [{ fuel: definition, share: 1 }], basis: "mass" };
+    const doc = { format: "stoke-fuel-library", version: 1, fuels: [{ name: "Deep", kind: "gas", definition }] };
+    const parsed = parseLibrary(JSON.stringify(doc), "json");
+    expect(parsed.ok).toBe(false);
+    if (!parsed.ok) expect(parsed.fieldErrors["fuels.0.definition"]).toMatch(/nested more than 64 levels deep/);
+    const a = fresh();
+    const { createFuel } = await import("../../lib/services/fuels");
+    const direct = await createFuel(a.client, { name: "Deep", definition });
+    expect(!direct.ok && direct.kind).toBe("invalid");
+    expect(!direct.ok && direct.fieldErrors.definition).toMatch(/nested more than 64 levels deep/);
+  });
+
   it("malformed files give a located message", () => {
     const notJson = parseLibrary("{", "json");
     expect(notJson.ok).toBe(false);
