@@ -7,7 +7,7 @@
  *   answered as `{ error, fieldErrors: { [field]: detail } }`. Anything else is a bug: Next answers 500.
  */
 import type { ErrorKind, StokeError } from "@/lib/errors";
-import { asStokeError, describe, type Problem, type ProblemKind } from "@/lib/services/result";
+import { asStokeError, explain, type Problem, type ProblemKind } from "@/lib/services/result";
 import { MAX_JSON_DEPTH, tooDeepAt } from "@/lib/formats/json-depth";
 
 export const STATUS_OF_PROBLEM: Record<ProblemKind, number> = { invalid: 400, "not-found": 404, conflict: 409, unprocessable: 422 };
@@ -24,7 +24,7 @@ export function failure(p: Problem): Response {
 
 /** A lib/ error with its status; the field it names carries the detail. */
 export function errorResponse(e: StokeError): Response {
-  const detail = describe(e);
+  const detail = explain(e);
   return json({ error: e.field ? `${e.field}: ${detail}` : detail, fieldErrors: { [e.field || "_"]: detail } }, STATUS_OF_ERROR[e.kind]);
 }
 

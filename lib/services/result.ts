@@ -16,7 +16,6 @@ import { EquilibriumInfeasibleError, EquilibriumNotConvergedError } from "../com
 import { PriceNormalisationError } from "../economics/prices";
 
 export type ProblemKind = "invalid" | "not-found" | "conflict" | "unprocessable";
-export const PROBLEM_KINDS: readonly ProblemKind[] = ["invalid", "not-found", "conflict", "unprocessable"];
 
 export type FieldErrors = Record<string, string>;
 
@@ -66,7 +65,7 @@ export function problemKindOf(e: StokeError): ProblemKind {
 }
 
 /** Says what a lib/ error means in a sentence (a solver that did not converge says so). */
-export function describe(e: StokeError): string {
+export function explain(e: StokeError): string {
   if (e instanceof NotConvergedError) return `the ${e.solver} solver did not converge: ${e.detail}`;
   return e.detail;
 }
@@ -87,7 +86,7 @@ export interface ProblemOptions {
 export function problemFromError(e: unknown, opts: ProblemOptions = {}): Problem {
   const se = asStokeError(e);
   if (!se) throw e;
-  const sentence = describe(se);
+  const sentence = explain(se);
   const field = (opts.fieldOf ?? ((p: string) => p))(se.field) || "_";
   const message = opts.message ? opts.message(sentence, se.field) : se.field ? `${se.field}: ${sentence}` : sentence;
   return problem(opts.kind ?? problemKindOf(se), message, { [field]: sentence });
@@ -97,5 +96,5 @@ export function problemFromError(e: unknown, opts: ProblemOptions = {}): Problem
 export function reasonOf(e: unknown): string {
   const se = asStokeError(e);
   if (!se) throw e;
-  return se.field ? `${se.field}: ${describe(se)}` : describe(se);
+  return se.field ? `${se.field}: ${explain(se)}` : explain(se);
 }
