@@ -1,16 +1,13 @@
 import Link from "next/link";
 import { db } from "@/lib/db/client";
+import { countFuelsAndQuotes, plantsOverview } from "@/lib/services/lookups";
 import { EQUIPMENT_TYPE_LABELS, type EquipmentType } from "@/lib/schemas/plant";
 import { fmt } from "./_ui/format";
 
 export const dynamic = "force-dynamic";
 
 export default async function HomePage() {
-  const [fuelCount, quoteCount, plants] = await Promise.all([
-    db().fuel.count(),
-    db().priceQuote.count(),
-    db().plant.findMany({ orderBy: { id: "asc" }, include: { baselineFuel: { select: { id: true, name: true } }, studies: { select: { id: true, name: true } } } }),
-  ]);
+  const [{ fuels: fuelCount, quotes: quoteCount }, plants] = await Promise.all([countFuelsAndQuotes(db()), plantsOverview(db())]);
   return (
     <>
       <h1>Stoke</h1>

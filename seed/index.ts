@@ -3,8 +3,9 @@
  * the same validation as the forms and the API; plants through the plant schema. Nothing is
  * written when the database already holds fuels, plants or studies.
  */
-import type { PrismaClient } from "../lib/db/generated/client";
-import { addPriceQuoteIn, createFuelIn, inTransaction, type Result } from "../lib/db/fuels";
+import { inTransaction, type Db } from "../lib/db/client";
+import { addPriceQuoteIn, createFuelIn } from "../lib/services/fuels";
+import type { Result } from "../lib/services/result";
 import { plantSchema } from "../lib/schemas/plant";
 import { DEMO_FUELS, DEMO_PLANTS, DEMO_STUDIES, INVENTED_PRICE_NOTE } from "./demo";
 
@@ -16,16 +17,16 @@ export interface SeedOutcome {
   studies: number;
 }
 
-export async function isDatabaseEmpty(db: PrismaClient): Promise<boolean> {
+export async function isDatabaseEmpty(db: Db): Promise<boolean> {
   const [fuels, plants, studies] = await Promise.all([db.fuel.count(), db.plant.count(), db.study.count()]);
   return fuels + plants + studies === 0;
 }
 
 /** Seeds the demo when the database is empty. Throws when the demo data itself is invalid. */
-export async function seedIfEmpty(db: PrismaClient): Promise<SeedOutcome> {
+export async function seedIfEmpty(db: Db): Promise<SeedOutcome> {
   const none: SeedOutcome = { seeded: false, fuels: 0, prices: 0, plants: 0, studies: 0 };
   if (!(await isDatabaseEmpty(db))) return none;
-  const result: Result<SeedOutcome> = await inTransaction(db, async (tx) => {
+  const result = await inTransaction(db, async (tx): Promise<Result<SeedOutcome>> => {
     const out: SeedOutcome = { seeded: true, fuels: 0, prices: 0, plants: 0, studies: 0 };
     const ids = new Map<string, number>();
     for (const f of DEMO_FUELS) {

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { db } from "@/lib/db/client";
-import { fuelList, type FuelListItem } from "@/lib/db/views";
+import { fuelList, type FuelListItem } from "@/lib/services/fuel-views";
 import { FUEL_KINDS } from "@/lib/schemas/library";
 import { fmt, fmtUpTo, money } from "../_ui/format";
 

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { db } from "@/lib/db/client";
-import { listPlants } from "@/lib/db/plants";
+import { listPlants } from "@/lib/services/plants";
 import { EQUIPMENT_TYPE_LABELS } from "@/lib/schemas/plant";
 import { fmt } from "../_ui/format";
 import { displayUnits } from "../studies/_components/units-server";

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { db } from "@/lib/db/client";
-import { listStudies } from "@/lib/db/studies";
+import { listStudies } from "@/lib/services/studies";
 import { METRIC_SHORT } from "./_components/settings";
 import type { RankingMetric } from "@/lib/economics/sensitivity";
 

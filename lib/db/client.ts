@@ -8,6 +8,10 @@ import { PrismaClient } from "./generated/client";
 import { databaseTarget } from "./paths";
 
 export type Db = PrismaClient;
+/** A client inside an open transaction (what `inTransaction` hands its callback). */
+export type Tx = Omit<PrismaClient, "$connect" | "$disconnect" | "$on" | "$transaction" | "$extends">;
+/** Either: queries take a plain client or one inside a transaction. */
+export type DbOrTx = Db | Tx;
 
 export function createClient(databaseUrl?: string): PrismaClient {
   const target = databaseTarget(databaseUrl);
@@ -17,7 +21,8 @@ export function createClient(databaseUrl?: string): PrismaClient {
     try {
       const adapterPackage = ["@prisma", "adapter-pg"].join("/"); // resolved at run time only, when installed
       ({ PrismaPg } = createRequire(import.meta.url)(/* turbopackIgnore: true */ adapterPackage));
-    } catch {
+    } catch (e) {
+      if (!(e instanceof Error && "code" in e && e.code === "MODULE_NOT_FOUND")) throw e;
       throw new Error(
         "DATABASE_URL points at PostgreSQL, but @prisma/adapter-pg is not installed and the client is generated for SQLite. Follow README.md, section PostgreSQL.",
       );
@@ -28,15 +33,41 @@ export function createClient(databaseUrl?: string): PrismaClient {
   return new PrismaClient({ adapter });
 }
 
-const globalForDb = globalThis as unknown as { __stokeDb?: { url: string; client: PrismaClient } };
+declare global {
+  // One client per process, kept across hot reloads in development.
+  var __stokeDb: { url: string; client: PrismaClient } | undefined;
+}
 
 /** The shared client for the current DATABASE_URL. */
 export function db(): PrismaClient {
   const url = process.env.DATABASE_URL ?? "";
-  const cached = globalForDb.__stokeDb;
+  const cached = globalThis.__stokeDb;
   if (cached && cached.url === url) return cached.client;
   if (cached) void cached.client.$disconnect();
   const client = createClient(url || undefined);
-  globalForDb.__stokeDb = { url, client };
+  globalThis.__stokeDb = { url, client };
   return client;
+}
+
+class Rollback<R> extends Error {
+  constructor(public readonly outcome: R) {
+    super("rolled back");
+  }
+}
+
+/**
+ * Runs `fn` in one transaction. An outcome with `ok: false` rolls everything back and is returned
+ * as it is; an exception rolls back and propagates.
+ */
+export async function inTransaction<R extends { ok: boolean }>(client: Db, fn: (tx: Tx) => Promise<R>): Promise<R> {
+  try {
+    return await client.$transaction(async (tx) => {
+      const r = await fn(tx);
+      if (!r.ok) throw new Rollback(r);
+      return r;
+    });
+  } catch (e) {
+    if (e instanceof Rollback) return e.outcome as R;
+    throw e;
+  }
 }

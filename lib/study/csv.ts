@@ -4,22 +4,23 @@
  * (rounded to 6 significant digits), empty where a figure does not exist.
  */
 import type { StudyResult, ScenarioResult } from "./evaluate";
-import { writeCsv, type CsvCell } from "../csv";
+import { writeCsv } from "../formats/csv";
 import { METERING_REFERENCES } from "../units/metering";
 
 export const CSV_TABLES = ["scenarios", "checks", "sweep"] as const;
 export type CsvTable = (typeof CSV_TABLES)[number];
 
-/** Numbers to 6 significant digits; a figure that does not exist stays an empty cell. */
-function cell(v: unknown): CsvCell {
-  if (v === null || v === undefined) return null;
-  if (typeof v === "number") return Number.isFinite(v) ? Number(v.toPrecision(6)) : null;
-  if (typeof v === "boolean") return v;
+function cell(v: unknown): string {
+  if (v === null || v === undefined) return "";
+  if (typeof v === "number") {
+    if (!Number.isFinite(v)) return "";
+    return String(Number(v.toPrecision(6)));
+  }
   return String(v);
 }
 
 function table(header: string[], rows: unknown[][]): string {
-  return writeCsv(header, rows.map((r) => r.map(cell)));
+  return writeCsv([header.map(cell), ...rows.map((r) => r.map(cell))]);
 }
 
 function scenarioRow(r: ScenarioResult): unknown[] {

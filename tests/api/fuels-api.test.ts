@@ -87,6 +87,24 @@ describe("POST /api/fuels and GET /api/fuels/{id}", () => {
     expect(await count()).toBe(before);
   });
 
+  it("400 naming the field for a fuel with nothing to burn (pure O2, pure CO2)", async () => {
+    for (const species of ["O2", "CO2"]) {
+      const res = await routes.fuels.POST(post(base, { name: `Pure ${species}`, definition: { composition: { [species]: 1 } } }));
+      expect(res.status).toBe(400);
+      expect((await res.json()).fieldErrors.definition).toMatch(/no heat/);
+    }
+  });
+
+  it("400 naming the field for a blend nested 1,000 levels deep (no stack overflow), nothing stored", async () => {
+    const before = await count();
+    let definition: unknown = { composition: { CH4: 1 } };
+    for (let i = 0; i < 1000; i++) definition = { blend: [{ fuel: definition, share: 1 }], basis: "mass" };
+    const res = await routes.fuels.POST(post(base, { name: "Deep", definition }));
+    expect(res.status).toBe(400);
+    expect((await res.json()).fieldErrors.definition).toMatch(/nested more than 64 levels deep/);
+    expect(await count()).toBe(before);
+  });
+
   it("409 on a duplicate name (any letter case)", async () => {
     const res = await routes.fuels.POST(post(base, { name: "METHANE", definition: { composition: { CH4: 1 } } }));
     expect(res.status).toBe(409);

@@ -130,6 +130,17 @@ describe("studies API", () => {
     expect((await routes.exporter.GET(req(`/api/studies/99999/export`), ctx(99999))).status).toBe(404);
   });
 
+  it("study CSV: CRLF line ends, and a scenario name a spreadsheet would run as a formula gets a leading apostrophe", async () => {
+    // RFC 4180 (2005), section 2: CRLF line breaks. OWASP, "CSV Injection": =, +, -, @ start a formula.
+    const made = await routes.studies.POST(req("/api/studies", "POST", { ...body(), name: "Formula names", scenarios: [{ name: "=1+1", fuelId: fuel["LPG (propane)"] }] }));
+    expect(made.status).toBe(201);
+    const sid = (await made.json()).id;
+    const text = await (await routes.exporter.GET(req(`/api/studies/${sid}/export?format=csv`), ctx(sid))).text();
+    expect(text.endsWith("\r\n")).toBe(true);
+    expect(text.split("\r\n").some((line) => line.split(",")[1] === "'=1+1")).toBe(true);
+    expect((await routes.study.DELETE(req(`/api/studies/${sid}`, "DELETE"), ctx(sid))).status).toBe(200);
+  });
+
   it("duplicates, updates and deletes", async () => {
     const dup = await routes.duplicate.POST(req(`/api/studies/${id}/duplicate`, "POST", {}), ctx(id));
     expect(dup.status).toBe(201);

@@ -13,7 +13,7 @@ import os from "node:os";
 import path from "node:path";
 import { migrateSqlite } from "../../lib/db/migrate";
 import { createClient } from "../../lib/db/client";
-import { createStudy } from "../../lib/db/studies";
+import { createStudy } from "../../lib/services/studies";
 import { seedIfEmpty } from "../../seed/index";
 import type { BenchResult } from "./bench-types";
 import { projectRoot, startNextServer, type NextServer } from "../support/next-server";

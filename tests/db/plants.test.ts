@@ -2,7 +2,8 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { tempDb } from "./temp-db";
 import { seedIfEmpty } from "../../seed/index";
-import { createPlant, deletePlant, getPlant, listPlants, plantFromRow, updatePlant } from "../../lib/db/plants";
+import { createPlant, deletePlant, getPlant, listPlants, updatePlant } from "../../lib/services/plants";
+import { plantFromRow } from "../../lib/db/plant-rows";
 
 const t = tempDb();
 let ngId = 0;
@@ -49,7 +50,7 @@ describe("plants", () => {
     const r = await createPlant(t.client, { ...valid(), name: "Broken", ratedInput_kW: -5, flueO2DryPercent: 25, condensing: true, returnWaterC: null, baselineFuelId: 99999 });
     expect(r.ok).toBe(false);
     if (r.ok) return;
-    expect(r.status).toBe(400);
+    expect(r.kind).toBe("invalid");
     expect(r.fieldErrors.ratedInput_kW).toMatch(/> 0/);
     expect(r.fieldErrors.flueO2DryPercent).toMatch(/18/);
     expect(r.fieldErrors.returnWaterC).toMatch(/return-water/);
@@ -69,7 +70,7 @@ describe("plants", () => {
     const r = await createPlant(t.client, { ...valid(), name: "TEST BOILER", baselineFuelId: ngId });
     expect(r.ok).toBe(false);
     if (!r.ok) {
-      expect(r.status).toBe(409);
+      expect(r.kind).toBe("conflict");
       expect(r.fieldErrors.name).toMatch(/already exists/);
     }
   });
@@ -88,7 +89,7 @@ describe("plants", () => {
     const seeded = (await listPlants(t.client)).find((p) => p.studies.length > 0)!;
     const refused = await deletePlant(t.client, seeded.id);
     expect(refused.ok).toBe(false);
-    if (!refused.ok) expect(refused.status).toBe(409);
+    if (!refused.ok) expect(refused.kind).toBe("conflict");
     const row = await t.client.plant.findFirstOrThrow({ where: { name: "Test boiler" } });
     expect((await deletePlant(t.client, row.id)).ok).toBe(true);
     expect(await getPlant(t.client, row.id)).toBeNull();

@@ -2,7 +2,7 @@
 import { afterAll, describe, expect, it } from "vitest";
 import { tempDb } from "./temp-db";
 import { seedIfEmpty } from "../../seed/index";
-import { fuelList, fuelSheet } from "../../lib/db/views";
+import { fuelList, fuelSheet } from "../../lib/services/fuel-views";
 import { DEMO_FUELS } from "../../seed/demo";
 
 const t = tempDb();

@@ -2,7 +2,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { tempDb } from "./temp-db";
 import { seedIfEmpty } from "../../seed/index";
-import { createStudy, deleteStudy, duplicateStudy, evaluateStoredStudy, listStudies, recordFieldOf, studyRecord, updateStudy } from "../../lib/db/studies";
+import { createStudy, deleteStudy, duplicateStudy, evaluateStoredStudy, listStudies, recordFieldOf, studyRecord, updateStudy } from "../../lib/services/studies";
 
 const t = tempDb();
 const fuel: Record<string, number> = {};
@@ -118,13 +118,14 @@ describe("studies", () => {
   it("a duplicate name on the same plant is a 409", async () => {
     const r = await createStudy(t.client, { ...record(), name: "three OPTIONS" });
     expect(r.ok).toBe(false);
-    if (!r.ok) expect(r.status).toBe(409);
+    if (!r.ok) expect(r.kind).toBe("conflict");
   });
 
   it("edits, duplicates and deletes", async () => {
     const rec = (await studyRecord(t.client, id))!;
     expect(rec.scenarios).toHaveLength(3);
-    const { id: _id, isDemo: _d, ...body } = rec;
+    expect(rec.storedProblems).toEqual({});
+    const { id: _id, isDemo: _d, storedProblems: _p, ...body } = rec;
     body.scenarios = body.scenarios.slice(0, 2);
     body.carbonPrice_per_t = 120;
     body.includeUpstream = true;
@@ -170,5 +171,27 @@ describe("studies", () => {
     expect(sw.available).toBe(true);
     expect(sw.points.every((p) => p.costPerUsefulMWh !== null)).toBe(true);
     expect(sw.crossings.find((c) => c.checkId === "hydrogen-share")!.firstFailPercent).toBeGreaterThan(20);
+  });
+
+  it("reports stored values that cannot be read, naming the field, instead of replacing them silently", async () => {
+    const made = await createStudy(t.client, { ...record(), name: "Unreadable settings" });
+    expect(made.ok).toBe(true);
+    if (!made.ok) return;
+    const sid = made.value.id;
+    await t.client.study.update({ where: { id: sid }, data: { sensitivityRanges: "{not json" } });
+    const first = await t.client.scenario.findFirstOrThrow({ where: { studyId: sid, isBaseline: false }, orderBy: { position: "asc" } });
+    await t.client.scenario.update({ where: { id: first.id }, data: { overrides: '{"stackTemperatureC":"hot"}' } });
+
+    const ev = await evaluateStoredStudy(t.client, sid);
+    expect(ev.ok).toBe(false);
+    if (!ev.ok) {
+      expect(ev.kind).toBe("unprocessable");
+      expect(ev.fieldErrors.sensitivity).toMatch(/not valid JSON/);
+      expect(ev.fieldErrors["scenarios.0.overrides"]).toMatch(/stackTemperatureC/);
+      expect(ev.message).toMatch(/sensitivity, scenarios\.0\.overrides/);
+    }
+    const rec = await studyRecord(t.client, sid);
+    expect(Object.keys(rec!.storedProblems).sort()).toEqual(["scenarios.0.overrides", "sensitivity"]);
+    await deleteStudy(t.client, sid);
   });
 });

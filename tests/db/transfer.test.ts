@@ -2,8 +2,9 @@
 import { afterAll, describe, expect, it } from "vitest";
 import { tempDb, type TempDb } from "./temp-db";
 import { seedIfEmpty } from "../../seed/index";
-import { exportLibraryText, importLibrary, parseLibrary, libraryFromCsv, libraryToCsv, exportLibrary } from "../../lib/db/transfer";
-import { parseCsv, toCsv } from "../../lib/db/csv";
+import { exportLibraryText, importLibrary, parseLibrary, libraryFromCsv, libraryToCsv, exportLibrary } from "../../lib/services/transfer";
+import { readCsv, writeCsv } from "../../lib/formats/csv";
+import { InputError } from "../../lib/errors";
 
 const dbs: TempDb[] = [];
 function fresh(): TempDb {
@@ -16,11 +17,34 @@ afterAll(async () => {
 });
 
 describe("CSV reader and writer", () => {
-  it("round-trips awkward cells", () => {
+  it("writes RFC 4180 records: CRLF after each, quotes around a comma, quote or line break, quotes doubled", () => {
+    // RFC 4180 (2005), section 2, rules 1, 6 and 7.
+    expect(writeCsv([["a", "b,c"], ['say "hi"', "two\nlines"]])).toBe('a,"b,c"\r\n"say ""hi""","two\nlines"\r\n');
+  });
+
+  it("reads back what it writes, and reads LF line ends, a byte-order mark and blank lines", () => {
     const rows = [["a", "b,c", 'say "hi"', "line\nbreak", "", " padded "], ["1", "2", "3", "4", "5", "6"]];
-    expect(parseCsv(toCsv(rows))).toEqual(rows);
-    expect(parseCsv("\ufeffx,y\na,b\n")).toEqual([["x", "y"], ["a", "b"]]);
-    expect(() => parseCsv('a,"b\n')).toThrow(/not closed/);
+    expect(readCsv(writeCsv(rows))).toEqual(rows);
+    expect(readCsv("\ufeffx,y\n\na,b\n")).toEqual([["x", "y"], ["a", "b"]]);
+  });
+
+  it("puts an apostrophe before cells a spreadsheet would run as formulas, not before plain numbers, and reads them back unchanged", () => {
+    // OWASP, "CSV Injection": cells starting with =, +, -, @, tab or carriage return are read as formulas.
+    const cells = ["=HYPERLINK(\"http://x\")", "+1+2", "-2+3", "@SUM(A1)", "\tx", "-5", "+1.5e3", "'=already quoted", "plain"];
+    expect(writeCsv([cells])).toBe(`"'=HYPERLINK(""http://x"")",'+1+2,'-2+3,'@SUM(A1),'\tx,-5,+1.5e3,''=already quoted,plain\r\n`);
+    expect(readCsv(writeCsv([cells]))).toEqual([cells]);
+  });
+
+  it("names the line of malformed text", () => {
+    let err: unknown;
+    try {
+      readCsv('a,b\nc,"d\n');
+    } catch (e) {
+      err = e;
+    }
+    expect(err).toBeInstanceOf(InputError);
+    expect((err as InputError).field).toBe("line 2");
+    expect((err as InputError).detail).toMatch(/quote not closed/i);
   });
 });
 
@@ -29,7 +53,7 @@ describe("library export and import", () => {
     const a = fresh();
     await seedIfEmpty(a.client);
     // An extra fuel with awkward text and numbers that need all their digits.
-    const { createFuel, addPriceQuote } = await import("../../lib/db/fuels");
+    const { createFuel, addPriceQuote } = await import("../../lib/services/fuels");
     const extra = await createFuel(a.client, {
       name: 'Odd, "quoted" gas',
       definition: { composition: { CH4: 0.1 + 0.2, N2: 0.7 } },
@@ -67,6 +91,21 @@ describe("library export and import", () => {
     expect(libraryToCsv(libraryFromCsv(first))).toBe(first);
   });
 
+  it("CSV: a fuel name a spreadsheet would run as a formula is exported with an apostrophe and imported as it was", async () => {
+    const a = fresh();
+    const { createFuel } = await import("../../lib/services/fuels");
+    const made = await createFuel(a.client, { name: "=1+1 gas", definition: { composition: { CH4: 1 } }, notes: "-test" });
+    expect(made.ok).toBe(true);
+    const text = await exportLibraryText(a.client, "csv");
+    expect(text.split("\r\n")[1]).toMatch(/^fuel,'=1\+1 gas,gas,/);
+    const b = fresh();
+    const parsed = parseLibrary(text, "csv");
+    expect(parsed.ok && parsed.value.fuels[0].name).toBe("=1+1 gas");
+    expect(parsed.ok && parsed.value.fuels[0].notes).toBe("-test");
+    if (parsed.ok) expect((await importLibrary(b.client, parsed.value)).ok).toBe(true);
+    expect(await exportLibraryText(b.client, "csv")).toBe(text);
+  });
+
   it("an error anywhere stores nothing and names the record and field", async () => {
     const a = fresh();
     await seedIfEmpty(a.client);
@@ -78,7 +117,7 @@ describe("library export and import", () => {
     const r = await importLibrary(b.client, broken);
     expect(r.ok).toBe(false);
     if (!r.ok) {
-      expect(r.status).toBe(400);
+      expect(r.kind).toBe("invalid");
       expect(r.fieldErrors[`fuels.${i}.definition.composition`]).toMatch(/sum to 1/);
       expect(r.message).toMatch(/nothing was stored/);
     }
@@ -100,10 +139,24 @@ describe("library export and import", () => {
     const doc = await exportLibrary(a.client);
     const again = await importLibrary(a.client, doc);
     expect(again.ok).toBe(false);
-    if (!again.ok) expect(again.status).toBe(409);
+    if (!again.ok) expect(again.kind).toBe("conflict");
     const skip = await importLibrary(a.client, doc, { onExisting: "skip" });
     expect(skip.ok && skip.value.fuelsCreated).toBe(0);
     expect(skip.ok && skip.value.skipped.length).toBe(doc.fuels.length);
+  });
+
+  it("a definition nested 1,000 levels deep is refused naming the place, from a file or a direct call", async () => {
+    let definition: unknown = { composition: { CH4: 1 } };
+    for (let i = 0; i < 1000; i++) definition = { blend: [{ fuel: definition, share: 1 }], basis: "mass" };
+    const doc = { format: "stoke-fuel-library", version: 1, fuels: [{ name: "Deep", kind: "gas", definition }] };
+    const parsed = parseLibrary(JSON.stringify(doc), "json");
+    expect(parsed.ok).toBe(false);
+    if (!parsed.ok) expect(parsed.fieldErrors["fuels.0.definition"]).toMatch(/nested more than 64 levels deep/);
+    const a = fresh();
+    const { createFuel } = await import("../../lib/services/fuels");
+    const direct = await createFuel(a.client, { name: "Deep", definition });
+    expect(!direct.ok && direct.kind).toBe("invalid");
+    expect(!direct.ok && direct.fieldErrors.definition).toMatch(/nested more than 64 levels deep/);
   });
 
   it("malformed files give a located message", () => {

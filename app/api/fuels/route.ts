@@ -1,13 +1,13 @@
 import { db } from "@/lib/db/client";
-import { createFuel } from "@/lib/db/fuels";
-import { fuelList } from "@/lib/db/views";
+import { createFuel } from "@/lib/services/fuels";
+import { fuelList } from "@/lib/services/fuel-views";
 import { FUEL_KINDS } from "@/lib/schemas/library";
-import { failure, json, readJson } from "../_http";
+import { failure, json, readJson, withErrors } from "../_http";
 
 export const dynamic = "force-dynamic";
 
 /** GET /api/fuels[?kind=gas|liquid|solid]: the library with headline figures and the price in force. */
-export async function GET(req: Request): Promise<Response> {
+export const GET = withErrors(async (req: Request): Promise<Response> => {
   const kind = new URL(req.url).searchParams.get("kind");
   if (kind && !(FUEL_KINDS as readonly string[]).includes(kind)) {
     return json({ error: `kind must be one of ${FUEL_KINDS.join(", ")}`, fieldErrors: { kind: "unknown kind" } }, 400);
@@ -48,13 +48,13 @@ export async function GET(req: Request): Promise<Response> {
         : null,
     })),
   });
-}
+});
 
 /** POST /api/fuels: creates a fuel or blend. 400 with field errors, 409 on a duplicate name. */
-export async function POST(req: Request): Promise<Response> {
+export const POST = withErrors(async (req: Request): Promise<Response> => {
   const body = await readJson(req);
   if (!body.ok) return body.response;
   const r = await createFuel(db(), body.value);
   if (!r.ok) return failure(r);
   return json({ id: r.value.id, name: r.value.name, kind: r.value.kind, url: `/fuels/${r.value.id}` }, 201);
-}
+});

@@ -2,7 +2,8 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/lib/db/client";
-import { fuelSheet, type FuelSheet } from "@/lib/db/views";
+import { fuelSheet, type FuelSheet } from "@/lib/services/fuel-views";
+import { fuelName } from "@/lib/services/lookups";
 import { COMBUSTION_REFERENCES_C, METERING_REFERENCES_C, type FuelDefinition } from "@/lib/schemas/fuel";
 import { LIQUID_COMPOUNDS } from "@/lib/fuels/compounds";
 import { SPECIES } from "@/lib/thermo/species-data";
@@ -23,8 +24,8 @@ function pickRef(value: string | string[] | undefined, allowed: readonly number[
 
 export async function generateMetadata({ params }: Props): Promise<Metadata> {
   const id = Number((await params).id);
-  const row = Number.isInteger(id) ? await db().fuel.findUnique({ where: { id }, select: { name: true } }) : null;
-  return { title: row ? row.name : "Fuel" };
+  const name = Number.isInteger(id) && id > 0 ? await fuelName(db(), id) : null;
+  return { title: name ?? "Fuel" };
 }
 
 function speciesName(key: string): string {

@@ -2,7 +2,7 @@
 
 import { useRouter } from "next/navigation";
 import { useState } from "react";
-import type { PriceView } from "@/lib/db/views";
+import type { PriceView } from "@/lib/services/fuel-views";
 import { fmtUpTo, money } from "../../_ui/format";
 import { ErrorSummary, Field, invalid, toNumber, type Errors } from "./fields";
 import { METERING_REFERENCE_KEYS, METERING_REFERENCES } from "@/lib/units/metering";

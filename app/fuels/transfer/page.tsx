@@ -1,13 +1,14 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { db } from "@/lib/db/client";
+import { countFuelsAndQuotes } from "@/lib/services/lookups";
 import { ImportForm } from "../_components/ImportForm";
 
 export const dynamic = "force-dynamic";
 export const metadata: Metadata = { title: "Import and export" };
 
 export default async function TransferPage() {
-  const [fuels, quotes] = await Promise.all([db().fuel.count(), db().priceQuote.count()]);
+  const { fuels, quotes } = await countFuelsAndQuotes(db());
   return (
     <>
       <div className="crumbs">

@@ -2,8 +2,9 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/lib/db/client";
-import { getPlant, plantBaseline } from "@/lib/db/plants";
-import { effectiveDefinition } from "@/lib/db/fuels";
+import { getPlant, plantBaseline } from "@/lib/services/plants";
+import { effectiveDefinition, findFuel } from "@/lib/services/fuels";
+import { plantName } from "@/lib/services/lookups";
 import { cautionsFor, DEFER } from "@/lib/fuels/cautions";
 import { EQUIPMENT_TYPE_LABELS } from "@/lib/schemas/plant";
 import { fmt, pct } from "../../_ui/format";
@@ -21,8 +22,8 @@ type Props = { params: Promise<{ id: string }> };
 
 export async function generateMetadata({ params }: Props): Promise<Metadata> {
   const id = Number((await params).id);
-  const row = Number.isInteger(id) && id > 0 ? await db().plant.findUnique({ where: { id }, select: { name: true } }) : null;
-  return { title: row?.name ?? "Plant" };
+  const name = Number.isInteger(id) && id > 0 ? await plantName(db(), id) : null;
+  return { title: name ?? "Plant" };
 }
 
 
@@ -33,7 +34,7 @@ export default async function PlantPage({ params }: Props) {
   const [units, base, fuelRow] = await Promise.all([
     displayUnits(),
     plantBaseline(db(), id),
-    rec.baselineFuelId ? db().fuel.findUnique({ where: { id: rec.baselineFuelId } }) : null,
+    rec.baselineFuelId ? findFuel(db(), rec.baselineFuelId) : null,
   ]);
   const d = makeDisplay(units, "");
   const p = rec.plant;

@@ -1,12 +1,13 @@
 /** Choices the plant form offers (server side). */
 import { db } from "@/lib/db/client";
+import { fuelChoices } from "@/lib/services/lookups";
 import { EQUIPMENT_TYPES, EQUIPMENT_TYPE_LABELS, METERING_REFERENCE_KEYS, WOBBE_COMBUSTION_REFERENCES_C } from "@/lib/schemas/plant";
 import type { PlantFormOptions } from "./PlantForm";
 import { METERING_REFERENCES, meteringLabelWithPressure } from "@/lib/units/metering";
 
 
 export async function plantFormOptions(): Promise<PlantFormOptions> {
-  const fuels = await db().fuel.findMany({ orderBy: [{ kind: "asc" }, { name: "asc" }], select: { id: true, name: true, kind: true } });
+  const fuels = await fuelChoices(db());
   return {
     fuels,
     equipmentTypes: EQUIPMENT_TYPES.map((t) => ({ value: t, label: EQUIPMENT_TYPE_LABELS[t] })),

@@ -1,6 +1,7 @@
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/lib/db/client";
+import { studyHeader } from "@/lib/services/lookups";
 import { StudyTabs } from "../_components/StudyTabs";
 import { DuplicateButton } from "../_components/DuplicateButton";
 import { DeleteButton } from "@/app/_ui/DeleteButton";
@@ -11,7 +12,7 @@ export default async function StudyLayout({ children, params }: { children: Reac
   const id = Number((await params).id);
   const study =
     Number.isInteger(id) && id > 0
-      ? await db().study.findUnique({ where: { id }, select: { id: true, name: true, isDemo: true, currency: true, plant: { select: { id: true, name: true } }, _count: { select: { scenarios: true } } } })
+      ? await studyHeader(db(), id)
       : null;
   if (!study) notFound();
   return (

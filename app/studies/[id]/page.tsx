@@ -2,7 +2,8 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/lib/db/client";
-import { evaluateStoredStudy } from "@/lib/db/studies";
+import { evaluateStoredStudy } from "@/lib/services/studies";
+import { studyName } from "@/lib/services/lookups";
 import { fmt, money } from "../../_ui/format";
 import { CostStackChart, Co2Chart, CostCo2Scatter } from "../../_charts/ScenarioCharts";
 import { displayUnits } from "../_components/units-server";
@@ -13,6 +14,7 @@ import { CheckMatrix, RankCards, RankTable, RankTableNotes } from "../_component
 import { co2Rows, costRows, failingChecks, headline, metricText, ranked, scatterPoints } from "../_components/results";
 import { METRIC_SHORT, RANKING_METRICS, viewChoice, viewQuery, type SearchParams } from "../_components/settings";
 import { EvaluationProblem } from "../_components/EvaluationProblem";
+import { priceSourceLabel } from "../_components/price-labels";
 
 export const dynamic = "force-dynamic";
 
@@ -20,8 +22,8 @@ type Props = { params: Promise<{ id: string }>; searchParams: Promise<SearchPara
 
 export async function generateMetadata({ params }: Props): Promise<Metadata> {
   const id = Number((await params).id);
-  const row = Number.isInteger(id) && id > 0 ? await db().study.findUnique({ where: { id }, select: { name: true } }) : null;
-  return { title: row ? `${row.name} — comparison` : "Study" };
+  const name = Number.isInteger(id) && id > 0 ? await studyName(db(), id) : null;
+  return { title: name ? `${name} — comparison` : "Study" };
 }
 
 export default async function ComparisonPage({ params, searchParams }: Props) {
@@ -30,7 +32,7 @@ export default async function ComparisonPage({ params, searchParams }: Props) {
   const view = viewChoice(await searchParams);
   const [ev, units] = await Promise.all([evaluateStoredStudy(db(), id, { metric: view.metric, includeUpstream: view.includeUpstream }), displayUnits()]);
   if (!ev.ok) {
-    if (ev.status === 404) notFound();
+    if (ev.kind === "not-found") notFound();
     return <EvaluationProblem id={id} message={ev.message} fieldErrors={ev.fieldErrors} />;
   }
   const { result, bundle } = ev;
@@ -196,7 +198,7 @@ export default async function ComparisonPage({ params, searchParams }: Props) {
                     <Link href={`/fuels/${meta.fuelId}`}>{meta.fuelName}</Link>
                   </td>
                   <td>
-                    {meta.price.label} {meta.price.invented && <span className="badge invented">invented</span>}
+                    {priceSourceLabel(meta.price)} {meta.price.invented && <span className="badge invented">invented</span>}
                   </td>
                   <td className="num">{r.price ? d.costPerEnergy(r.price.perMWh_net) : "–"}</td>
                   <td className="num">{r.price ? d.costPerEnergy(r.price.perMWh_gross) : "–"}</td>

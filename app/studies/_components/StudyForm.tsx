@@ -10,7 +10,8 @@ import { saveAndOpen } from "@/app/_ui/save";
 import { useRouter } from "next/navigation";
 import { useMemo, useRef, useState } from "react";
 import { ErrorSummary, Field, invalid, toNumber, type Errors } from "../../fuels/_components/fields";
-import type { StudyFormOptions } from "@/lib/db/studies";
+import type { StudyFormOptions } from "@/lib/services/studies";
+import { quoteChoiceLabel } from "./price-labels";
 import { SENSITIVITY_DEFAULTS, type SensitivityRanges } from "@/lib/schemas/study";
 import { capitalised, fieldLabel } from "@/lib/schemas/labels";
 
@@ -281,7 +282,7 @@ export function StudyForm({
               <option value="">quote in force (latest, {head.currency || "study currency"})</option>
               {quotes.map((q) => (
                 <option key={q.id} value={q.id}>
-                  {q.label}
+                  {quoteChoiceLabel(q)}
                   {q.isInvented ? " — invented" : ""}
                 </option>
               ))}

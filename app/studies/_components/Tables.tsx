@@ -6,6 +6,7 @@ import { fmt, money } from "../../_ui/format";
 import { savingText, signed, type Display } from "./display";
 import { Status } from "./Checks";
 import { co2Ranked, type Ranked } from "./results";
+import { priceSourceLabel } from "./price-labels";
 
 const metricCol: Record<RankingMetric, string> = {
   "cost-per-useful-MWh": "cost",
@@ -107,7 +108,7 @@ export function RankTable({ list, result, d, metric, links = true, part = "all" 
                       {meta.price.invented && (
                         <>
                           {" "}
-                          <span className="badge invented" title={meta.price.label}>
+                          <span className="badge invented" title={priceSourceLabel(meta.price)}>
                             invented price
                           </span>
                         </>

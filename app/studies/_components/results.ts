@@ -3,7 +3,7 @@
  * headline answer. Only picks and converts figures lib/ computed; no physics or economics here.
  */
 import type { ScenarioResult, StudyResult } from "@/lib/study/evaluate";
-import type { StudyBundle, ScenarioMeta } from "@/lib/db/studies";
+import type { StudyBundle, ScenarioMeta } from "@/lib/services/studies";
 import type { RankingMetric } from "@/lib/economics/sensitivity";
 import type { CostRow, Co2Row, ScatterPoint } from "../../_charts/ScenarioCharts";
 import type { Display } from "./display";

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { db } from "@/lib/db/client";
-import { studyFormOptions } from "@/lib/db/studies";
+import { studyFormOptions } from "@/lib/services/studies";
 import { StudyForm } from "../_components/StudyForm";
 import { METRIC_OPTIONS } from "../_components/form-options";
 import { intParam, type SearchParams } from "../_components/settings";

@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/lib/db/client";
-import { effectiveDefinition, resolveRow } from "@/lib/db/fuels";
+import { effectiveDefinition, findFuel, resolveRow } from "@/lib/services/fuels";
 import { phiSweep, type PhiSweepResult } from "@/lib/study/phi-sweep";
 import { cautionsFor, DEFER } from "@/lib/fuels/cautions";
 import { kelvinToCelsius } from "@/lib/units/constants";
@@ -19,7 +19,7 @@ type Props = { params: Promise<{ id: string }> };
 export default async function FuelPhiPage({ params }: Props) {
   const id = Number((await params).id);
   if (!Number.isInteger(id) || id <= 0) notFound();
-  const row = await db().fuel.findUnique({ where: { id } });
+  const row = await findFuel(db(), id);
   if (!row) notFound();
   let sweep: PhiSweepResult | null = null;
   let error: string | null = null;

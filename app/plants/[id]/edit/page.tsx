@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/lib/db/client";
-import { getPlant } from "@/lib/db/plants";
+import { getPlant } from "@/lib/services/plants";
 import { PlantForm } from "../../_components/PlantForm";
 import { plantFormOptions } from "../../_components/options";
 

@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/lib/db/client";
-import { studyBundle } from "@/lib/db/studies";
+import { studyBundle } from "@/lib/services/studies";
 import { phiSweepInPlant, type PlantPhiSweep } from "@/lib/study/phi-sweep";
 import { cautionsFor, DEFER } from "@/lib/fuels/cautions";
 import { kelvinToCelsius } from "@/lib/units/constants";
@@ -42,7 +42,7 @@ export default async function PhiPage({ params, searchParams }: Props) {
   const view = viewChoice(sp);
   const [loaded, units] = await Promise.all([studyBundle(db(), id), displayUnits()]);
   if (!loaded.ok) {
-    if (loaded.status === 404) notFound();
+    if (loaded.kind === "not-found") notFound();
     return <EvaluationProblem id={id} message={loaded.message} fieldErrors={loaded.fieldErrors} />;
   }
   const study = loaded.bundle.study;

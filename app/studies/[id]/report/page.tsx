@@ -2,7 +2,8 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/lib/db/client";
-import { evaluateStoredStudy } from "@/lib/db/studies";
+import { evaluateStoredStudy } from "@/lib/services/studies";
+import { studyName } from "@/lib/services/lookups";
 import { fmt, fmtUpTo, money } from "../../../_ui/format";
 import { CostStackChart, Co2Chart, CostCo2Scatter } from "../../../_charts/ScenarioCharts";
 import { displayUnits } from "../../_components/units-server";
@@ -19,6 +20,7 @@ import { METRIC_SHORT, viewChoice, viewQuery, type SearchParams } from "../../_c
 import { PlantLimitsTable } from "../../../plants/_components/PlantLimits";
 import { fieldValueText } from "@/lib/schemas/labels";
 import { SIEGERT_COMPARISON_DEFINITION } from "@/lib/plant/siegert";
+import { hydrogenPriceLabel, priceSourceLabel } from "../../_components/price-labels";
 
 export const dynamic = "force-dynamic";
 
@@ -26,8 +28,8 @@ type Props = { params: Promise<{ id: string }>; searchParams: Promise<SearchPara
 
 export async function generateMetadata({ params }: Props): Promise<Metadata> {
   const id = Number((await params).id);
-  const row = Number.isInteger(id) && id > 0 ? await db().study.findUnique({ where: { id }, select: { name: true } }) : null;
-  return { title: row ? `${row.name} — report` : "Report" };
+  const name = Number.isInteger(id) && id > 0 ? await studyName(db(), id) : null;
+  return { title: name ? `${name} — report` : "Report" };
 }
 
 const PAPER = { a4: "A4", letter: "Letter" } as const;
@@ -40,7 +42,7 @@ export default async function ReportPage({ params, searchParams }: Props) {
   const paper = sp.paper === "letter" ? "letter" : "a4";
   const [ev, units] = await Promise.all([evaluateStoredStudy(db(), id, { metric: view.metric, includeUpstream: view.includeUpstream, sweep: true, tornado: false }), displayUnits()]);
   if (!ev.ok) {
-    if (ev.status === 404) notFound();
+    if (ev.kind === "not-found") notFound();
     return <EvaluationProblem id={id} message={ev.message} fieldErrors={ev.fieldErrors} />;
   }
   const { result, bundle } = ev;
@@ -229,7 +231,7 @@ export default async function ReportPage({ params, searchParams }: Props) {
                             {q.isInvented && <> <span className="badge invented">invented</span></>}
                           </>
                         ) : (
-                          meta.price.label
+                          priceSourceLabel(meta.price)
                         )}
                       </td>
                       <td className="num">{r.price ? `${d.costPerEnergy(r.price.perMWh_net)} net / ${d.costPerEnergy(r.price.perMWh_gross)} gross` : "–"}</td>
@@ -388,7 +390,7 @@ export default async function ReportPage({ params, searchParams }: Props) {
                 <b>{r.name}:</b> {r.audit.notes.join("; ")}
               </li>
             ))}
-            {sw && <li>Hydrogen sweep: {bundle.meta.hydrogen.price.label}{sw.notes.length ? `; ${sw.notes.join("; ")}` : ""}.</li>}
+            {sw && <li>Hydrogen sweep: {hydrogenPriceLabel(bundle.meta.hydrogen)}{sw.notes.length ? `; ${sw.notes.join("; ")}` : ""}.</li>}
           </ul>
         </section>
 

@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/lib/db/client";
-import { evaluateStoredStudy } from "@/lib/db/studies";
+import { evaluateStoredStudy } from "@/lib/services/studies";
 import type { TornadoRow } from "@/lib/economics/sensitivity";
 import { fmt, money } from "../../../_ui/format";
 import { TornadoChart } from "../../../_charts/TornadoChart";
@@ -68,7 +68,7 @@ export default async function SensitivityPage({ params, searchParams }: Props) {
   for (const r of badRange) delete ranges[r.key];
   const [ev, units] = await Promise.all([evaluateStoredStudy(db(), id, { metric: view.metric, includeUpstream: view.includeUpstream, sensitivity: ranges }), displayUnits()]);
   if (!ev.ok) {
-    if (ev.status === 404) notFound();
+    if (ev.kind === "not-found") notFound();
     return <EvaluationProblem id={id} message={ev.message} fieldErrors={ev.fieldErrors} />;
   }
   const { result } = ev;

@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/lib/db/client";
-import { evaluateStoredStudy } from "@/lib/db/studies";
+import { evaluateStoredStudy } from "@/lib/services/studies";
 import { sweepVerdict, type SweepPoint, type SweepCrossing } from "@/lib/study/hydrogen-sweep";
 import type { FitCheckId } from "@/lib/plant/fit-checks";
 import { fmt } from "../../../_ui/format";
@@ -17,6 +17,7 @@ import { EvaluationProblem } from "../../_components/EvaluationProblem";
 import { viewChoice, type SearchParams } from "../../_components/settings";
 import { METERING_REFERENCES, meteringLabelWithPressure } from "@/lib/units/metering";
 import { sweepAgreement } from "@/lib/study/sweep-agreement";
+import { hydrogenPriceLabel } from "../../_components/price-labels";
 
 export const dynamic = "force-dynamic";
 export const metadata: Metadata = { title: "Hydrogen-share sweep" };
@@ -43,7 +44,7 @@ export default async function SweepPage({ params, searchParams }: Props) {
   const view = viewChoice(await searchParams);
   const [ev, units] = await Promise.all([evaluateStoredStudy(db(), id, { metric: view.metric, includeUpstream: view.includeUpstream, sweep: true, tornado: false }), displayUnits()]);
   if (!ev.ok) {
-    if (ev.status === 404) notFound();
+    if (ev.kind === "not-found") notFound();
     return <EvaluationProblem id={id} message={ev.message} fieldErrors={ev.fieldErrors} />;
   }
   const { result, bundle } = ev;
@@ -135,7 +136,7 @@ export default async function SweepPage({ params, searchParams }: Props) {
         </div>
       </section>
 
-      {bundle.meta.hydrogen.price.kind === "none" && <p className="note">No cost line: {bundle.meta.hydrogen.price.label}.</p>}
+      {bundle.meta.hydrogen.price.kind === "none" && <p className="note">No cost line: {hydrogenPriceLabel(bundle.meta.hydrogen)}.</p>}
       {sw.notes.map((n) => (
         <p className="note" key={n}>
           {n}
@@ -230,7 +231,7 @@ export default async function SweepPage({ params, searchParams }: Props) {
               data={series((p) => (p.costPerUsefulMWh === null ? null : d.costPerEnergyValue(p.costPerUsefulMWh)))}
               vLines={vLines}
             />
-            <p className="basis">{sw.basis.cost}; blend priced as the mass-weighted mix of the delivered prices per kg ({bundle.meta.hydrogen.price.label}).</p>
+            <p className="basis">{sw.basis.cost}; blend priced as the mass-weighted mix of the delivered prices per kg ({hydrogenPriceLabel(bundle.meta.hydrogen)}).</p>
           </section>
         )}
       </div>

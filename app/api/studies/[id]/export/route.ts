@@ -1,16 +1,21 @@
 import { db } from "@/lib/db/client";
-import { evaluateStoredStudy } from "@/lib/db/studies";
+import { evaluateStoredStudy } from "@/lib/services/studies";
 import { studyResultToCsv, CSV_TABLES, type CsvTable } from "@/lib/study/csv";
 import { RANKING_METRICS, type RankingMetric } from "@/lib/economics/sensitivity";
-import { json, notFound, parseId } from "../../../_http";
+import { failure, json, notFound, parseId, withErrors } from "../../../_http";
 import { upstreamParam } from "@/app/studies/_components/settings";
+import { hydrogenPriceLabel, labelledPriceSource } from "@/app/studies/_components/price-labels";
 
 export const dynamic = "force-dynamic";
 
 const STUDY_RESULTS_FORMAT = "stoke-study-results";
 
 function fileName(name: string, ext: string, table?: string): string {
-  const base = name.replace(/[^\p{L}\p{N}]+/gu, "-").replace(/^-|-$/g, "").toLowerCase() || "study";
+  const base =
+    name
+      .replace(/[^\p{L}\p{N}]+/gu, "-")
+      .replace(/^-|-$/g, "")
+      .toLowerCase() || "study";
   return `${base}${table ? `-${table}` : ""}.${ext}`;
 }
 
@@ -19,19 +24,26 @@ function fileName(name: string, ext: string, table?: string): string {
  * CSV: one table of the results (column names carry unit and basis). JSON: the study as a
  * self-contained study file (runs with `stoke evaluate`) and its full evaluated results.
  */
-export async function GET(req: Request, { params }: { params: Promise<{ id: string }> }): Promise<Response> {
+export const GET = withErrors(async (req: Request, { params }: { params: Promise<{ id: string }> }): Promise<Response> => {
   const id = parseId((await params).id);
   if (id === null) return notFound("Study");
   const q = new URL(req.url).searchParams;
   const format = q.get("format") ?? "csv";
-  if (format !== "csv" && format !== "json") return json({ error: 'format must be "csv" or "json"', fieldErrors: { format: "unknown format" } }, 400);
+  if (format !== "csv" && format !== "json")
+    return json({ error: 'format must be "csv" or "json"', fieldErrors: { format: "unknown format" } }, 400);
   const table = (q.get("table") ?? "scenarios") as CsvTable;
-  if (!(CSV_TABLES as readonly string[]).includes(table)) return json({ error: `table must be one of ${CSV_TABLES.join(", ")}`, fieldErrors: { table: "unknown table" } }, 400);
+  if (!(CSV_TABLES as readonly string[]).includes(table))
+    return json({ error: `table must be one of ${CSV_TABLES.join(", ")}`, fieldErrors: { table: "unknown table" } }, 400);
   const m = q.get("metric");
-  if (m && !(RANKING_METRICS as readonly string[]).includes(m)) return json({ error: `metric must be one of ${RANKING_METRICS.join(", ")}`, fieldErrors: { metric: "unknown metric" } }, 400);
+  if (m && !(RANKING_METRICS as readonly string[]).includes(m))
+    return json({ error: `metric must be one of ${RANKING_METRICS.join(", ")}`, fieldErrors: { metric: "unknown metric" } }, 400);
   const needSweep = format === "json" || table === "sweep";
-  const ev = await evaluateStoredStudy(db(), id, { metric: (m as RankingMetric) ?? undefined, includeUpstream: upstreamParam(q.get("upstream")), sweep: needSweep });
-  if (!ev.ok) return ev.status === 404 ? notFound("Study") : json({ error: ev.message, fieldErrors: ev.fieldErrors }, 422);
+  const ev = await evaluateStoredStudy(db(), id, {
+    metric: (m as RankingMetric) ?? undefined,
+    includeUpstream: upstreamParam(q.get("upstream")),
+    sweep: needSweep,
+  });
+  if (!ev.ok) return failure(ev);
   const name = ev.result.study.name;
   if (format === "csv") {
     return new Response(studyResultToCsv(ev.result, table), {
@@ -48,7 +60,11 @@ export async function GET(req: Request, { params }: { params: Promise<{ id: stri
     exportedAt: new Date().toISOString(),
     note: "`study` is a self-contained study file (stoke evaluate --input); `results` is its evaluation as shown in Stoke. Prices marked isInvented are demo figures.",
     study: { format: "stoke-study", version: 1, ...ev.bundle.study },
-    priceSources: { baseline: ev.bundle.meta.baseline.price, scenarios: ev.bundle.meta.scenarios.map((s) => s.price), hydrogen: ev.bundle.meta.hydrogen.price },
+    priceSources: {
+      baseline: labelledPriceSource(ev.bundle.meta.baseline.price),
+      scenarios: ev.bundle.meta.scenarios.map((s) => labelledPriceSource(s.price)),
+      hydrogen: { ...labelledPriceSource(ev.bundle.meta.hydrogen.price), label: hydrogenPriceLabel(ev.bundle.meta.hydrogen) },
+    },
     results: ev.result,
   };
   return new Response(JSON.stringify(body, null, 2), {
@@ -58,4 +74,4 @@ export async function GET(req: Request, { params }: { params: Promise<{ id: stri
       "cache-control": "no-store",
     },
   });
-}
+});

@@ -1,13 +1,13 @@
 import { db } from "@/lib/db/client";
-import { deletePriceQuote, updatePriceQuote } from "@/lib/db/fuels";
-import { failure, json, notFound, parseId, readJson } from "../../../../_http";
+import { deletePriceQuote, updatePriceQuote } from "@/lib/services/fuels";
+import { failure, json, notFound, parseId, readJson, withErrors } from "../../../../_http";
 
 export const dynamic = "force-dynamic";
 
 type Ctx = { params: Promise<{ id: string; priceId: string }> };
 
 /** PUT /api/fuels/{id}/prices/{priceId}: corrects a quote. */
-export async function PUT(req: Request, ctx: Ctx): Promise<Response> {
+export const PUT = withErrors(async (req: Request, ctx: Ctx): Promise<Response> => {
   const p = await ctx.params;
   const id = parseId(p.id);
   const priceId = parseId(p.priceId);
@@ -17,10 +17,10 @@ export async function PUT(req: Request, ctx: Ctx): Promise<Response> {
   const r = await updatePriceQuote(db(), id, priceId, body.value);
   if (!r.ok) return failure(r);
   return json({ id: r.value.id, fuelId: id });
-}
+});
 
 /** DELETE /api/fuels/{id}/prices/{priceId}. */
-export async function DELETE(_req: Request, ctx: Ctx): Promise<Response> {
+export const DELETE = withErrors(async (_req: Request, ctx: Ctx): Promise<Response> => {
   const p = await ctx.params;
   const id = parseId(p.id);
   const priceId = parseId(p.priceId);
@@ -28,4 +28,4 @@ export async function DELETE(_req: Request, ctx: Ctx): Promise<Response> {
   const r = await deletePriceQuote(db(), id, priceId);
   if (!r.ok) return failure(r);
   return json({ deleted: r.value.id });
-}
+});

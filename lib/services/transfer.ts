@@ -4,58 +4,82 @@
  * An import is all or nothing: every record is validated as the forms validate it, in one
  * transaction; the first error names the record and the field.
  */
-import type { PrismaClient } from "./generated/client";
-import { addPriceQuoteIn, createFuelIn, fail, inTransaction, isBlendRow, quoteJson, storedDefinition, type Result, type Tx } from "./fuels";
-import { parseCsv, toCsv, CsvSyntaxError } from "./csv";
+import { z } from "zod";
+import { inTransaction, type Db, type DbOrTx } from "../db/client";
+import { fuelNames, fuelsForExport, isBlendRow, storedDefinition } from "../db/fuel-rows";
+import { quoteJson } from "../db/price-quote-rows";
+import { fieldErrors } from "../schemas/fuel";
+import { InputError } from "../errors";
+import { readCsv, writeCsv } from "../formats/csv";
+import { MAX_JSON_DEPTH, tooDeepAt } from "../formats/json-depth";
+import { addPriceQuoteIn, createFuelIn } from "./fuels";
+import { ok, problem, type Result } from "./result";
 
 export const LIBRARY_FORMAT = "stoke-fuel-library";
 export const LIBRARY_FORMAT_VERSION = 1;
 
-export interface LibraryPrice {
-  amount: number;
-  currency: string;
-  unit: string;
-  energyBasis: string | null;
-  meteringReference: string | null;
-  transportAdder: number;
-  handlingAdder: number;
-  validFrom: string;
-  sourceNote: string;
-  isInvented: boolean;
-}
+const text = z.string({ error: "must be text" });
+const numberOrNull = z
+  .number({ error: "must be a number" })
+  .nullish()
+  .transform((v) => v ?? null);
 
-export interface LibraryFuel {
-  name: string;
-  kind: string;
-  /** Null for a blend (its definition follows from its components). */
-  definition: unknown | null;
-  /** Components by fuel name. Null for a fuel that is not a blend. */
-  blend: { basis: string; components: { fuel: string; share: number }[] } | null;
-  densityKgPerM3: number | null;
-  biogenicCarbonShare: number | null;
-  upstreamCo2e_kg_per_GJ: number | null;
-  notes: string;
-  source: string;
-  isDemo: boolean;
-  prices: LibraryPrice[];
-}
+const libraryPriceSchema = z.object({
+  amount: z.number({ error: "must be a number" }),
+  currency: text,
+  unit: text,
+  energyBasis: text.nullish().transform((v) => v ?? null),
+  meteringReference: text.nullish().transform((v) => v ?? null),
+  transportAdder: z.number({ error: "must be a number" }).default(0),
+  handlingAdder: z.number({ error: "must be a number" }).default(0),
+  validFrom: text,
+  sourceNote: text.default(""),
+  isInvented: z.boolean({ error: "must be true or false" }).default(false),
+});
 
-export interface LibraryDocument {
-  format: typeof LIBRARY_FORMAT;
-  version: number;
-  fuels: LibraryFuel[];
-}
+const libraryFuelSchema = z.object(
+  {
+    name: text,
+    kind: text.nullish().transform((v) => v ?? ""),
+    /** Null for a blend (its definition follows from its components); checked as the fuel form checks it. */
+    definition: z.unknown().transform((v) => v ?? null),
+    /** Components by fuel name. Null for a fuel that is not a blend. */
+    blend: z
+      .object({
+        basis: text,
+        components: z.array(z.object({ fuel: text, share: z.number({ error: "must be a number" }) }), { error: "must be a list" }),
+      })
+      .nullish()
+      .transform((v) => v ?? null),
+    densityKgPerM3: numberOrNull,
+    biogenicCarbonShare: numberOrNull,
+    upstreamCo2e_kg_per_GJ: numberOrNull,
+    notes: text.default(""),
+    source: text.default(""),
+    isDemo: z.boolean({ error: "must be true or false" }).default(false),
+    prices: z.array(libraryPriceSchema, { error: "must be a list" }).default([]),
+  },
+  { error: "must be an object describing a fuel" },
+);
+
+/** A library file: the fuels (components before the blends that use them) with their quotes. */
+export const libraryDocumentSchema = z.object(
+  {
+    format: z.literal(LIBRARY_FORMAT, { error: `must be "${LIBRARY_FORMAT}"` }),
+    version: z.literal(LIBRARY_FORMAT_VERSION, { error: `must be ${LIBRARY_FORMAT_VERSION}` }),
+    fuels: z.array(libraryFuelSchema, { error: "must be a list" }),
+  },
+  { error: "must be a JSON object" },
+);
+
+export type LibraryPrice = z.output<typeof libraryPriceSchema>;
+export type LibraryFuel = z.output<typeof libraryFuelSchema>;
+export type LibraryDocument = z.output<typeof libraryDocumentSchema>;
 
 /* ------------------------------------------------------------------ export */
 
-export async function exportLibrary(db: PrismaClient | Tx): Promise<LibraryDocument> {
-  const rows = await db.fuel.findMany({
-    orderBy: { id: "asc" },
-    include: {
-      components: { orderBy: { position: "asc" }, include: { component: { select: { name: true } } } },
-      priceQuotes: { orderBy: [{ validFrom: "asc" }, { createdAt: "asc" }, { id: "asc" }] },
-    },
-  });
+export async function exportLibrary(db: DbOrTx): Promise<LibraryDocument> {
+  const rows = await fuelsForExport(db);
   // Components first: a blend is listed after every fuel it uses.
   const byId = new Map(rows.map((r) => [r.id, r]));
   const done = new Set<number>();
@@ -63,7 +87,10 @@ export async function exportLibrary(db: PrismaClient | Tx): Promise<LibraryDocum
   const visit = (r: (typeof rows)[number]) => {
     if (done.has(r.id)) return;
     done.add(r.id);
-    for (const c of r.components) visit(byId.get(c.componentFuelId)!);
+    for (const c of r.components) {
+      const component = byId.get(c.componentFuelId);
+      if (component) visit(component);
+    }
     ordered.push(r);
   };
   rows.forEach(visit);
@@ -96,7 +123,7 @@ export async function exportLibrary(db: PrismaClient | Tx): Promise<LibraryDocum
 }
 
 export function libraryToJson(doc: LibraryDocument): string {
-  return JSON.stringify(doc, null, 2) + "\n";
+  return `${JSON.stringify(doc, null, 2)}\n`;
 }
 
 export const CSV_COLUMNS = [
@@ -171,7 +198,7 @@ export function libraryToCsv(doc: LibraryDocument): string {
       );
     }
   }
-  return toCsv(rows);
+  return writeCsv(rows);
 }
 
 /* ------------------------------------------------------------------ import */
@@ -189,82 +216,73 @@ export interface ImportSummary {
   skipped: string[];
 }
 
-class ImportProblem extends Error {
-  constructor(
-    public readonly where: string,
-    message: string,
-  ) {
-    super(`${where}: ${message}`);
-  }
-}
-
 function csvNumber(where: string, column: string, cell: string): number | null {
   if (cell.trim() === "") return null;
   const n = Number(cell);
-  if (!Number.isFinite(n)) throw new ImportProblem(where, `${column}: "${cell}" is not a number`);
+  if (!Number.isFinite(n)) throw new InputError(where, `${column}: "${cell}" is not a number`);
   return n;
 }
 function csvBool(where: string, column: string, cell: string): boolean {
   const v = cell.trim().toLowerCase();
   if (v === "true") return true;
   if (v === "false" || v === "") return false;
-  throw new ImportProblem(where, `${column}: "${cell}" must be true or false`);
+  throw new InputError(where, `${column}: "${cell}" must be true or false`);
 }
 function csvJson(where: string, column: string, cell: string): unknown {
+  let value: unknown;
   try {
-    return JSON.parse(cell);
-  } catch {
-    throw new ImportProblem(where, `${column}: not valid JSON`);
+    value = JSON.parse(cell);
+  } catch (e) {
+    if (!(e instanceof SyntaxError)) throw e;
+    throw new InputError(where, `${column}: not valid JSON`);
   }
+  if (tooDeepAt(value) !== null) throw new InputError(where, `${column}: nested more than ${MAX_JSON_DEPTH} levels deep`);
+  return value;
 }
 
 /** Reads CSV text into a library document (structure only; values are validated on import). */
 export function libraryFromCsv(text: string): LibraryDocument {
-  let rows: string[][];
-  try {
-    rows = parseCsv(text);
-  } catch (e) {
-    if (e instanceof CsvSyntaxError) throw new ImportProblem(`line ${e.line}`, e.message.replace(/^CSV line \d+: /, ""));
-    throw e;
-  }
-  if (rows.length === 0) throw new ImportProblem("file", "empty");
+  const rows = readCsv(text);
+  if (rows.length === 0) throw new InputError("file", "empty");
   const header = rows[0].map((h) => h.trim());
   const missing = CSV_COLUMNS.filter((c) => !header.includes(c));
-  if (missing.length) throw new ImportProblem("header", `missing column(s) ${missing.join(", ")}`);
+  if (missing.length) throw new InputError("header", `missing column(s) ${missing.join(", ")}`);
   const col = (r: string[], c: CsvColumn) => r[header.indexOf(c)] ?? "";
-  const fuels: LibraryFuel[] = [];
-  const byName = new Map<string, LibraryFuel>();
+  const fuels: Record<string, unknown>[] = [];
+  const pricesOf = new Map<string, Record<string, unknown>[]>();
   rows.slice(1).forEach((r, idx) => {
     const where = `row ${idx + 2}`;
     const record = col(r, "record").trim();
     const name = col(r, "fuel");
     if (record === "fuel") {
       const blendBasis = col(r, "blendBasis").trim();
-      const f: LibraryFuel = {
+      const prices: Record<string, unknown>[] = [];
+      const f = {
         name,
         kind: col(r, "kind").trim(),
         definition: col(r, "definition").trim() === "" ? null : csvJson(where, "definition", col(r, "definition")),
         blend:
           blendBasis === "" && col(r, "blendComponents").trim() === ""
             ? null
-            : { basis: blendBasis, components: csvJson(where, "blendComponents", col(r, "blendComponents")) as { fuel: string; share: number }[] },
+            : { basis: blendBasis, components: csvJson(where, "blendComponents", col(r, "blendComponents")) },
         densityKgPerM3: csvNumber(where, "densityKgPerM3", col(r, "densityKgPerM3")),
         biogenicCarbonShare: csvNumber(where, "biogenicCarbonShare", col(r, "biogenicCarbonShare")),
         upstreamCo2e_kg_per_GJ: csvNumber(where, "upstreamCo2e_kg_per_GJ", col(r, "upstreamCo2e_kg_per_GJ")),
         notes: col(r, "notes"),
         source: col(r, "source"),
         isDemo: csvBool(where, "isDemo", col(r, "isDemo")),
-        prices: [],
+        prices,
       };
-      if (byName.has(name)) throw new ImportProblem(where, `fuel "${name}" appears twice`);
-      byName.set(name, f);
+      if (pricesOf.has(name)) throw new InputError(where, `fuel "${name}" appears twice`);
+      pricesOf.set(name, prices);
       fuels.push(f);
     } else if (record === "price") {
-      const f = byName.get(name);
-      if (!f) throw new ImportProblem(where, `price for "${name}" comes before (or without) its fuel record`);
+      const prices = pricesOf.get(name);
+      if (!prices) throw new InputError(where, `price for "${name}" comes before (or without) its fuel record`);
       const amount = csvNumber(where, "amount", col(r, "amount"));
-      f.prices.push({
-        amount: amount as number,
+      if (amount === null) throw new InputError(where, "amount: required");
+      prices.push({
+        amount,
         currency: col(r, "currency"),
         unit: col(r, "unit").trim(),
         energyBasis: col(r, "energyBasis").trim() || null,
@@ -276,36 +294,46 @@ export function libraryFromCsv(text: string): LibraryDocument {
         isInvented: csvBool(where, "isInvented", col(r, "isInvented")),
       });
     } else {
-      throw new ImportProblem(where, `record must be "fuel" or "price", not "${record}"`);
+      throw new InputError(where, `record must be "fuel" or "price", not "${record}"`);
     }
   });
-  return { format: LIBRARY_FORMAT, version: LIBRARY_FORMAT_VERSION, fuels };
+  const doc = libraryDocumentSchema.safeParse({ format: LIBRARY_FORMAT, version: LIBRARY_FORMAT_VERSION, fuels });
+  if (!doc.success) {
+    const [k, v] = Object.entries(fieldErrors(doc.error))[0];
+    throw new InputError(k, v);
+  }
+  return doc.data;
 }
 
-function asDocument(value: unknown): LibraryDocument {
-  if (typeof value !== "object" || value === null || Array.isArray(value)) throw new ImportProblem("file", "must be a JSON object");
-  const v = value as Record<string, unknown>;
-  if (v.format !== LIBRARY_FORMAT) throw new ImportProblem("format", `must be "${LIBRARY_FORMAT}"`);
-  if (v.version !== LIBRARY_FORMAT_VERSION) throw new ImportProblem("version", `must be ${LIBRARY_FORMAT_VERSION}`);
-  if (!Array.isArray(v.fuels)) throw new ImportProblem("fuels", "must be a list");
-  return v as unknown as LibraryDocument;
-}
+const refused = (where: string, detail: string) =>
+  problem("invalid", `Import refused, nothing was stored. ${where}: ${detail}`, { [where]: detail });
 
-/** Parses an import file's text. Throws with a located message when the text is malformed. */
+/** Parses an import file's text into a library document; a malformed file gives a located problem. */
 export function parseLibrary(text: string, format: ImportFormat): Result<LibraryDocument> {
-  try {
-    if (format === "csv") return { ok: true, value: libraryFromCsv(text) };
-    let value: unknown;
+  if (format === "csv") {
     try {
-      value = JSON.parse(text);
+      return ok(libraryFromCsv(text));
     } catch (e) {
-      throw new ImportProblem("file", `not valid JSON (${(e as Error).message})`);
+      if (e instanceof InputError) return refused(e.field || "file", e.detail);
+      throw e;
     }
-    return { ok: true, value: asDocument(value) };
+  }
+  let value: unknown;
+  try {
+    value = JSON.parse(text);
   } catch (e) {
-    if (e instanceof ImportProblem) return fail(400, `Import refused, nothing was stored. ${e.message}`, { [e.where]: e.message.replace(/^[^:]*: /, "") });
+    if (e instanceof SyntaxError) return refused("file", `not valid JSON (${e.message})`);
     throw e;
   }
+  const deep = tooDeepAt(value);
+  if (deep !== null) return refused(deep.split(".").slice(0, 3).join("."), `nested more than ${MAX_JSON_DEPTH} levels deep`);
+  const doc = libraryDocumentSchema.safeParse(value);
+  if (!doc.success) {
+    const errs = fieldErrors(doc.error);
+    const [k, v] = Object.entries(errs)[0];
+    return problem("invalid", `Import refused, nothing was stored. ${k}: ${v}`, errs);
+  }
+  return ok(doc.data);
 }
 
 function prefixErrors(prefix: string, errs: Record<string, string>): Record<string, string> {
@@ -315,9 +343,9 @@ function prefixErrors(prefix: string, errs: Record<string, string>): Record<stri
 }
 
 /** Imports a parsed library document in one transaction. */
-export async function importLibrary(db: PrismaClient, doc: LibraryDocument, opts: ImportOptions = {}): Promise<Result<ImportSummary>> {
-  return inTransaction(db, async (tx) => {
-    const existing = new Map((await tx.fuel.findMany({ select: { id: true, name: true } })).map((f) => [f.name.toLowerCase(), f.id]));
+export function importLibrary(db: Db, doc: LibraryDocument, opts: ImportOptions = {}): Promise<Result<ImportSummary>> {
+  return inTransaction(db, async (tx): Promise<Result<ImportSummary>> => {
+    const existing = new Map((await fuelNames(tx)).map((f) => [f.name.toLowerCase(), f.id]));
     const idByName = new Map<string, number>(); // lower-case name → id (existing or created here)
     for (const [k, id] of existing) idByName.set(k, id);
     const summary: ImportSummary = { fuelsCreated: 0, pricesCreated: 0, skipped: [] };
@@ -325,68 +353,91 @@ export async function importLibrary(db: PrismaClient, doc: LibraryDocument, opts
     const pending = doc.fuels.map((f, i) => ({ f, i }));
     // Process in dependency order: a blend waits until its components exist.
     while (pending.length) {
-      const idx = pending.findIndex(({ f }) => !f || !f.blend || !Array.isArray(f.blend.components) || f.blend.components.every((c) => idByName.has(String(c?.fuel ?? "").toLowerCase())));
+      const idx = pending.findIndex(({ f }) => !f.blend || f.blend.components.every((c) => idByName.has(c.fuel.toLowerCase())));
       if (idx < 0) {
         const { f, i } = pending[0];
-        const missing = f.blend!.components.map((c) => String(c?.fuel)).filter((n) => !idByName.has(n.toLowerCase()));
-        return fail(400, `Import refused, nothing was stored. fuels[${i}] "${f.name}": blend component(s) ${missing.map((m) => `"${m}"`).join(", ")} not found`, {
-          [`fuels.${i}.blend.components`]: `not found: ${missing.join(", ")}`,
-        });
+        const missing = (f.blend?.components ?? []).map((c) => c.fuel).filter((n) => !idByName.has(n.toLowerCase()));
+        return problem(
+          "invalid",
+          `Import refused, nothing was stored. fuels[${i}] "${f.name}": blend component(s) ${missing.map((m) => `"${m}"`).join(", ")} not found`,
+          {
+            [`fuels.${i}.blend.components`]: `not found: ${missing.join(", ")}`,
+          },
+        );
       }
       const { f, i } = pending.splice(idx, 1)[0];
       const where = `fuels.${i}`;
-      if (typeof f !== "object" || f === null) return fail(400, `Import refused, nothing was stored. ${where}: must be an object`, { [where]: "must be an object" });
-      const key = String(f.name ?? "").trim().toLowerCase();
-      if (seen.has(key)) return fail(400, `Import refused, nothing was stored. ${where}: "${f.name}" appears twice in the file`, { [`${where}.name`]: "appears twice in the file" });
+      const key = f.name.trim().toLowerCase();
+      if (seen.has(key))
+        return problem("invalid", `Import refused, nothing was stored. ${where}: "${f.name}" appears twice in the file`, {
+          [`${where}.name`]: "appears twice in the file",
+        });
       seen.add(key);
       if (existing.has(key)) {
         if (opts.onExisting === "skip") {
           summary.skipped.push(f.name);
           continue;
         }
-        return fail(409, `Import refused, nothing was stored. A fuel named "${f.name}" already exists (choose "skip existing" to leave it as it is).`, {
-          [`${where}.name`]: `a fuel named "${f.name}" already exists`,
-        });
+        return problem(
+          "conflict",
+          `Import refused, nothing was stored. A fuel named "${f.name}" already exists (choose "skip existing" to leave it as it is).`,
+          {
+            [`${where}.name`]: `a fuel named "${f.name}" already exists`,
+          },
+        );
       }
       const input: Record<string, unknown> = {
         name: f.name,
-        notes: f.notes ?? "",
-        source: f.source ?? "",
-        isDemo: f.isDemo ?? false,
+        notes: f.notes,
+        source: f.source,
+        isDemo: f.isDemo,
       };
-      if (f.kind !== undefined && f.kind !== null && f.kind !== "") input.kind = f.kind;
+      if (f.kind !== "") input.kind = f.kind;
       if (f.blend) {
         input.blend = {
           basis: f.blend.basis,
-          components: f.blend.components.map((c) => ({ fuelId: idByName.get(String(c.fuel).toLowerCase()), share: c.share })),
+          components: f.blend.components.map((c) => ({ fuelId: idByName.get(c.fuel.toLowerCase()), share: c.share })),
         };
       } else {
         input.definition = f.definition ?? undefined;
-        input.densityKgPerM3 = f.densityKgPerM3 ?? null;
-        input.biogenicCarbonShare = f.biogenicCarbonShare ?? null;
-        input.upstreamCo2e_kg_per_GJ = f.upstreamCo2e_kg_per_GJ ?? null;
+        input.densityKgPerM3 = f.densityKgPerM3;
+        input.biogenicCarbonShare = f.biogenicCarbonShare;
+        input.upstreamCo2e_kg_per_GJ = f.upstreamCo2e_kg_per_GJ;
       }
       const created = await createFuelIn(tx, input);
       if (!created.ok) {
-        return fail(created.status, `Import refused, nothing was stored. ${where} "${f.name}": ${Object.entries(created.fieldErrors).map(([k, v]) => `${k}: ${v}`).join("; ") || created.message}`, prefixErrors(where, created.fieldErrors));
+        return problem(
+          created.kind,
+          `Import refused, nothing was stored. ${where} "${f.name}": ${
+            Object.entries(created.fieldErrors)
+              .map(([k, v]) => `${k}: ${v}`)
+              .join("; ") || created.message
+          }`,
+          prefixErrors(where, created.fieldErrors),
+        );
       }
       idByName.set(key, created.value.id);
       summary.fuelsCreated++;
-      for (const [j, p] of (Array.isArray(f.prices) ? f.prices : []).entries()) {
+      for (const [j, p] of f.prices.entries()) {
         const q = await addPriceQuoteIn(tx, created.value.id, p);
         if (!q.ok) {
           const pw = `${where}.prices.${j}`;
-          return fail(400, `Import refused, nothing was stored. ${pw} (price of "${f.name}"): ${Object.entries(q.fieldErrors).map(([k, v]) => `${k}: ${v}`).join("; ")}`, prefixErrors(pw, q.fieldErrors));
+          return problem(
+            "invalid",
+            `Import refused, nothing was stored. ${pw} (price of "${f.name}"): ${Object.entries(q.fieldErrors)
+              .map(([k, v]) => `${k}: ${v}`)
+              .join("; ")}`,
+            prefixErrors(pw, q.fieldErrors),
+          );
         }
         summary.pricesCreated++;
       }
     }
-    return { ok: true, value: summary };
+    return ok(summary);
   });
 }
 
-export async function exportLibraryText(db: PrismaClient, format: ImportFormat): Promise<string> {
+export async function exportLibraryText(db: DbOrTx, format: ImportFormat): Promise<string> {
   const doc = await exportLibrary(db);
   return format === "csv" ? libraryToCsv(doc) : libraryToJson(doc);
 }
-

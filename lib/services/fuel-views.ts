@@ -1,10 +1,20 @@
 /**
- * What the fuel pages and the API show about stored fuels: lib/ computes, this module only
- * gathers the results for a row (properties, flame temperatures, normalised prices) and
- * turns failures into messages instead of numbers.
+ * What the fuel pages and the API show about stored fuels: lib/ computes, this module gathers the
+ * results for a row (properties, flame temperatures, normalised prices, cautions). A figure that
+ * lib/ refuses to compute comes back as its reason, never as a number; anything else is a bug
+ * and propagates.
  */
-import type { BlendComponent, Fuel, PriceQuote, PrismaClient } from "./generated/client";
-import { currentQuote, effectiveDefinition, isBlendRow, listPriceQuotes, quoteJson, quoteTerms, resolveRow, storedDefinition } from "./fuels";
+import type { Db } from "../db/client";
+import {
+  findFuelForSheet,
+  isBlendRow,
+  listFuelsWithQuotes,
+  storedDefinition,
+  type BlendComponentRow,
+  type FuelRow,
+  type FuelWithQuotesRow,
+} from "../db/fuel-rows";
+import { listQuotes, quoteJson, type PriceQuoteRow, type QuoteJson } from "../db/price-quote-rows";
 import { fuelPropertiesFromResolved, type FuelProperties } from "../combustion/properties";
 import { flameTemperature, FLAME_METHODS, FLAME_METHOD_LABELS, type FlameMethod } from "../combustion/flame";
 import { mixPrices, normalisePrice, priceUnitLabel, type NormalisedPrice } from "../economics/prices";
@@ -13,9 +23,11 @@ import type { ResolvedFuel } from "../fuels/resolve";
 import { heatingValues } from "../combustion/heating-values";
 import type { FuelDefinition } from "../schemas/fuel";
 import { cautionsFor, DEFER, type Caution } from "../fuels/cautions";
+import { currentQuote, effectiveDefinition, quoteTerms, resolveRow } from "./fuels";
+import { reasonOf } from "./result";
 
 export interface PriceView {
-  quote: ReturnType<typeof quoteJson>;
+  quote: QuoteJson;
   unitLabel: string;
   normalised: NormalisedPrice | null;
   /** Why the quote could not be normalised, when it could not. */
@@ -49,12 +61,12 @@ export interface FlameRow {
 }
 
 export interface FuelSheet {
-  fuel: Fuel;
+  fuel: FuelRow;
   definition: FuelDefinition;
   effectiveDefinition: FuelDefinition;
   isBlend: boolean;
-  components: (BlendComponent & { component: Pick<Fuel, "id" | "name" | "kind"> })[];
-  usedInBlends: Pick<Fuel, "id" | "name">[];
+  components: (BlendComponentRow & { component: Pick<FuelRow, "id" | "name" | "kind"> })[];
+  usedInBlends: Pick<FuelRow, "id" | "name">[];
   properties: FuelProperties | null;
   error: string | null;
   flame: FlameRow[];
@@ -70,29 +82,33 @@ export interface ViewOptions {
   asOf?: Date;
 }
 
-function message(e: unknown): string {
-  return e instanceof Error ? e.message : String(e);
+/** Prices use heating values at the 25 °C combustion reference, whatever the display reference. */
+const PRICE_COMBUSTION_REFERENCE_C = 25;
+
+function normalised(q: PriceQuoteRow, fuel: ResolvedFuel): NormalisedPrice {
+  return normalisePrice(quoteTerms(q), energyContentOf(fuel, heatingValues(fuel, PRICE_COMBUSTION_REFERENCE_C)));
 }
 
-function priceViews(quotes: PriceQuote[], resolved: ResolvedFuel | null, asOf: Date): PriceView[] {
+function priceViews(quotes: PriceQuoteRow[], resolved: ResolvedFuel | null, asOf: Date): PriceView[] {
   const cur = currentQuote(quotes, asOf);
   return quotes.map((q) => {
-    let normalised: NormalisedPrice | null = null;
+    let price: NormalisedPrice | null = null;
     let error: string | null = null;
     if (resolved) {
       try {
-        // Prices use heating values at the 25 °C combustion reference, whatever the display reference.
-        const content = energyContentOf(resolved, heatingValues(resolved, 25));
-        normalised = normalisePrice(quoteTerms(q), content);
+        price = normalised(q, resolved);
       } catch (e) {
-        error = message(e);
+        error = reasonOf(e);
       }
     } else error = "the fuel's properties could not be computed";
-    return { quote: quoteJson(q), unitLabel: priceUnitLabel(quoteTerms(q)), normalised, error, current: q === cur };
+    return { quote: quoteJson(q), unitLabel: priceUnitLabel(quoteTerms(q)), normalised: price, error, current: q === cur };
   });
 }
 
-function propertiesOf(row: Fuel, opts: ViewOptions): { resolved: ResolvedFuel | null; properties: FuelProperties | null; error: string | null } {
+function propertiesOf(
+  row: FuelRow,
+  opts: ViewOptions,
+): { resolved: ResolvedFuel | null; properties: FuelProperties | null; error: string | null } {
   try {
     const resolved = resolveRow(row);
     const properties = fuelPropertiesFromResolved(resolved, {
@@ -101,48 +117,51 @@ function propertiesOf(row: Fuel, opts: ViewOptions): { resolved: ResolvedFuel | 
     });
     return { resolved, properties, error: null };
   } catch (e) {
-    return { resolved: null, properties: null, error: message(e) };
+    return { resolved: null, properties: null, error: reasonOf(e) };
   }
 }
 
 /** All fuels (optionally of one kind) with their headline figures and the price in force. */
-export async function fuelList(db: PrismaClient, opts: ViewOptions & { kind?: string } = {}): Promise<FuelListItem[]> {
-  const rows = await db.fuel.findMany({
-    where: opts.kind ? { kind: opts.kind } : undefined,
-    orderBy: [{ kind: "asc" }, { name: "asc" }],
-    include: {
-      priceQuotes: { orderBy: [{ validFrom: "desc" }, { createdAt: "desc" }, { id: "desc" }] },
-      components: { orderBy: { position: "asc" }, include: { component: { include: { priceQuotes: { orderBy: [{ validFrom: "desc" }, { createdAt: "desc" }, { id: "desc" }] } } } } },
-    },
-  });
+export async function fuelList(db: Db, opts: ViewOptions & { kind?: string } = {}): Promise<FuelListItem[]> {
+  const rows = await listFuelsWithQuotes(db, opts.kind);
   const asOf = opts.asOf ?? new Date();
   return rows.map((row) => {
     const { resolved, properties, error } = propertiesOf(row, opts);
     const cur = currentQuote(row.priceQuotes, asOf);
     const price = cur ? priceViews([cur], resolved, asOf)[0] : null;
     const estimatedPrice = !price && resolved ? estimateBlendPrice(resolved, row.components, asOf) : null;
-    return { id: row.id, name: row.name, kind: row.kind, isDemo: row.isDemo, isBlend: isBlendRow(row), properties, error, price, estimatedPrice };
+    return {
+      id: row.id,
+      name: row.name,
+      kind: row.kind,
+      isDemo: row.isDemo,
+      isBlend: isBlendRow(row),
+      properties,
+      error,
+      price,
+      estimatedPrice,
+    };
   });
 }
 
-function estimateBlendPrice(
-  blend: ResolvedFuel,
-  components: { component: Fuel & { priceQuotes: PriceQuote[] } }[],
-  asOf: Date,
-): FuelListItem["estimatedPrice"] {
+/** The blend's price from its components' quotes in force; null when one has none, or the currencies differ, or one cannot be normalised. */
+function estimateBlendPrice(blend: ResolvedFuel, components: FuelWithQuotesRow["components"], asOf: Date): FuelListItem["estimatedPrice"] {
   const w = blend.componentMassFractions;
   if (!w || components.length === 0 || w.length !== components.length) return null;
+  const inForce = components.map((c) => currentQuote(c.component.priceQuotes, asOf)).filter((q): q is PriceQuoteRow => q !== undefined);
+  if (inForce.length !== components.length) return null;
+  if (new Set(inForce.map((q) => q.currency)).size !== 1) return null;
   try {
-    const parts = components.map((c, i) => {
-      const q = currentQuote(c.component.priceQuotes, asOf);
-      if (!q) throw new Error("a component has no quote in force");
-      const r = resolveRow(c.component);
-      return { massFraction: w[i], price: normalisePrice(quoteTerms(q), energyContentOf(r, heatingValues(r, 25))), currency: q.currency, isInvented: q.isInvented };
-    });
-    if (new Set(parts.map((p) => p.currency)).size !== 1) return null;
-    const normalised = mixPrices(parts, energyContentOf(blend, heatingValues(blend, 25)));
-    return { normalised, currency: parts[0].currency, isInvented: parts.some((p) => p.isInvented) };
-  } catch {
+    const parts = components.map((c, i) => ({
+      massFraction: w[i],
+      price: normalised(inForce[i], resolveRow(c.component)),
+      currency: inForce[i].currency,
+      isInvented: inForce[i].isInvented,
+    }));
+    const mixed = mixPrices(parts, energyContentOf(blend, heatingValues(blend, PRICE_COMBUSTION_REFERENCE_C)));
+    return { normalised: mixed, currency: parts[0].currency, isInvented: parts.some((p) => p.isInvented) };
+  } catch (e) {
+    reasonOf(e); // only a refusal of lib/ means "no estimate"; a bug propagates
     return null;
   }
 }
@@ -153,15 +172,16 @@ export const SHEET_FLAME_CONDITIONS = [
   { label: "3 % O2 in the dry flue gas", input: { flueO2DryPercent: 3 } },
 ] as const;
 
+/** The sheet's flame temperatures by every method; a method that cannot answer says why. */
 export function flameRows(resolved: ResolvedFuel): FlameRow[] {
   const rows: FlameRow[] = [];
   for (const c of SHEET_FLAME_CONDITIONS) {
     for (const method of FLAME_METHODS) {
+      const row = { condition: c.label, method, methodLabel: FLAME_METHOD_LABELS[method] };
       try {
-        const r = flameTemperature({ fuel: resolved, method, ...c.input });
-        rows.push({ condition: c.label, method, methodLabel: FLAME_METHOD_LABELS[method], temperatureK: r.temperatureK, error: null });
+        rows.push({ ...row, temperatureK: flameTemperature({ fuel: resolved, method, ...c.input }).temperatureK, error: null });
       } catch (e) {
-        rows.push({ condition: c.label, method, methodLabel: FLAME_METHOD_LABELS[method], temperatureK: null, error: message(e) });
+        rows.push({ ...row, temperatureK: null, error: reasonOf(e) });
       }
     }
   }
@@ -169,18 +189,12 @@ export function flameRows(resolved: ResolvedFuel): FlameRow[] {
 }
 
 /** Everything the fuel sheet shows. Null when there is no such fuel. */
-export async function fuelSheet(db: PrismaClient, id: number, opts: ViewOptions & { flame?: boolean } = {}): Promise<FuelSheet | null> {
-  const fuel = await db.fuel.findUnique({
-    where: { id },
-    include: {
-      components: { orderBy: { position: "asc" }, include: { component: { select: { id: true, name: true, kind: true } } } },
-      usedInBlends: { include: { blend: { select: { id: true, name: true } } } },
-    },
-  });
+export async function fuelSheet(db: Db, id: number, opts: ViewOptions & { flame?: boolean } = {}): Promise<FuelSheet | null> {
+  const fuel = await findFuelForSheet(db, id);
   if (!fuel) return null;
   const { components, usedInBlends, ...row } = fuel;
   const { resolved, properties, error } = propertiesOf(row, opts);
-  const quotes = await listPriceQuotes(db, id);
+  const quotes = await listQuotes(db, id);
   return {
     fuel: row,
     definition: storedDefinition(row),
@@ -193,15 +207,16 @@ export async function fuelSheet(db: PrismaClient, id: number, opts: ViewOptions 
     flame: resolved && opts.flame !== false ? flameRows(resolved) : [],
     prices: priceViews(quotes, resolved, opts.asOf ?? new Date()),
     resolved,
-    cautions: safeCautions(effectiveDefinition(row)),
+    cautions: cautionsOf(effectiveDefinition(row)),
     cautionPreamble: DEFER,
   };
 }
 
-function safeCautions(def: FuelDefinition): Caution[] {
+/** The fuel's cautions; when its definition cannot be read, one caution says so (never none). */
+function cautionsOf(def: FuelDefinition): Caution[] {
   try {
     return cautionsFor(def);
   } catch (e) {
-    return [{ hazard: "burner-change", title: "Cautions unavailable", text: message(e) }];
+    return [{ hazard: "burner-change", title: "Cautions unavailable", text: reasonOf(e) }];
   }
 }

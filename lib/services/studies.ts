@@ -1,0 +1,616 @@
+/**
+ * Stored studies: a study of one plant holds a baseline and candidate scenarios, each a stored fuel
+ * or blend priced by a stored quote. This module validates and stores them (nothing is stored from
+ * rejected input; problems name the field), duplicates and deletes them, chooses the price of each
+ * scenario, and assembles the self-contained study object that lib/study/evaluate.ts evaluates.
+ */
+import { inTransaction, type Db, type DbOrTx, type Tx } from "../db/client";
+import {
+  effectiveDefinition,
+  fuelsWithQuotes,
+  gasesMentioningHydrogen,
+  listFuelsWithQuotes,
+  storedDefinition,
+  type FuelRow,
+  type FuelWithQuotesRow,
+} from "../db/fuel-rows";
+import { findQuotes, quoteJson, type PriceQuoteRow } from "../db/price-quote-rows";
+import { findPlant, plantChoices, plantInputFromRow, type PlantRow } from "../db/plant-rows";
+import {
+  copyStudy,
+  deleteStudyRow,
+  findStudy,
+  findStudyWithScenarios,
+  insertStudy,
+  listStudyRows,
+  loadStudyGraph,
+  replaceStudy,
+  studyFromRows,
+  studyNamesOfPlant,
+  type StoredScenario,
+  type StoredStudy,
+  type StudyRow,
+} from "../db/study-rows";
+import { fieldErrors, type FuelDefinition } from "../schemas/fuel";
+import { studySchema, type RankingMetric, type Study, type StudyInput, type StudyPriceInput } from "../schemas/study";
+import { studyRecordSchema, type ScenarioRecord, type StudyRecord, type StudyRecordInput } from "../schemas/study-record";
+import type { SensitivityRanges } from "../economics/sensitivity";
+import { evaluateStudy, type StudyResult } from "../study/evaluate";
+import { currentQuote } from "./fuels";
+import { sharedCaches } from "./eval-cache";
+import { ok, problem, problemFromError, type FieldErrors, type Problem, type Result } from "./result";
+
+/* ---------------------------------------------------------------- pricing policy */
+
+/**
+ * How a scenario is priced: the quote the study names; else the fuel's quote in force in the
+ * study's currency; else, for a blend, its components' quotes in force (mixed per kg); else none.
+ */
+export type PriceSource =
+  | { kind: "quote"; quoteId: number; invented: boolean; validFrom: string }
+  | { kind: "current"; quoteId: number; invented: boolean; validFrom: string }
+  | { kind: "components"; quoteIds: number[]; invented: boolean }
+  | { kind: "none"; invented: false; currency: string };
+
+function studyPrice(q: PriceQuoteRow): StudyPriceInput {
+  const j = quoteJson(q);
+  return {
+    amount: j.amount,
+    currency: j.currency,
+    unit: j.unit as StudyPriceInput["unit"],
+    energyBasis: j.energyBasis as StudyPriceInput["energyBasis"],
+    meteringReference: j.meteringReference as StudyPriceInput["meteringReference"],
+    transportAdder: j.transportAdder,
+    handlingAdder: j.handlingAdder,
+    validFrom: j.validFrom,
+    sourceNote: j.sourceNote,
+    isInvented: j.isInvented,
+  };
+}
+
+const day = (d: Date) => d.toISOString().slice(0, 10);
+
+function quoteInCurrency(quotes: PriceQuoteRow[], currency: string, asOf: Date): PriceQuoteRow | undefined {
+  return currentQuote(
+    quotes.filter((q) => q.currency === currency),
+    asOf,
+  );
+}
+
+function priceFor(
+  fuel: FuelWithQuotesRow,
+  chosen: PriceQuoteRow | null,
+  currency: string,
+  asOf: Date,
+): { price: StudyPriceInput | null; componentPrices: StudyPriceInput[] | null; source: PriceSource } {
+  if (chosen) {
+    return {
+      price: studyPrice(chosen),
+      componentPrices: null,
+      source: { kind: "quote", quoteId: chosen.id, invented: chosen.isInvented, validFrom: day(chosen.validFrom) },
+    };
+  }
+  const cur = quoteInCurrency(fuel.priceQuotes, currency, asOf);
+  if (cur) {
+    return {
+      price: studyPrice(cur),
+      componentPrices: null,
+      source: { kind: "current", quoteId: cur.id, invented: cur.isInvented, validFrom: day(cur.validFrom) },
+    };
+  }
+  if (fuel.components.length) {
+    const qs = fuel.components
+      .map((c) => quoteInCurrency(c.component.priceQuotes, currency, asOf))
+      .filter((q): q is PriceQuoteRow => q !== undefined);
+    if (qs.length === fuel.components.length) {
+      return {
+        price: null,
+        componentPrices: qs.map(studyPrice),
+        source: { kind: "components", quoteIds: qs.map((q) => q.id), invented: qs.some((q) => q.isInvented) },
+      };
+    }
+  }
+  return { price: null, componentPrices: null, source: { kind: "none", invented: false, currency } };
+}
+
+type HydrogenRow = FuelRow & { priceQuotes: PriceQuoteRow[] };
+
+/** The library's pure hydrogen (a gas of H2 only), if there is one, with its quotes. */
+async function libraryHydrogen(db: DbOrTx): Promise<HydrogenRow | null> {
+  for (const g of await gasesMentioningHydrogen(db)) {
+    let def: FuelDefinition;
+    try {
+      def = storedDefinition(g);
+    } catch (e) {
+      if (e instanceof SyntaxError) continue; // a record whose JSON cannot be read is not the hydrogen
+      throw e;
+    }
+    if ("composition" in def) {
+      const keys = Object.keys(def.composition);
+      if (keys.length === 1 && keys[0] === "H2") return g;
+    }
+  }
+  return null;
+}
+
+/* ---------------------------------------------------------------- assembling the study */
+
+export interface ScenarioMeta {
+  /** Row id (null while a form is only being checked). */
+  id: number | null;
+  index: number;
+  isBaseline: boolean;
+  fuelId: number;
+  fuelName: string;
+  fuelKind: string;
+  priceQuoteId: number | null;
+  price: PriceSource;
+}
+
+export interface HydrogenMeta {
+  fuelId: number | null;
+  /** The library's pure hydrogen, null when there is none (the sweep then blends pure H2 unpriced). */
+  fuelName: string | null;
+  price: PriceSource;
+}
+
+export interface StudyBundle {
+  study: Study;
+  meta: {
+    studyId: number | null;
+    plantId: number;
+    plantName: string;
+    isDemo: boolean;
+    updatedAt: Date | null;
+    baseline: ScenarioMeta;
+    scenarios: ScenarioMeta[];
+    hydrogen: HydrogenMeta;
+    /** Any figure rests on an invented (demo) price. */
+    anyInventedPrice: boolean;
+  };
+}
+
+export interface ViewSettings {
+  /** Rank by this metric instead of the study's own. */
+  metric?: RankingMetric;
+  /** Count upstream (well-to-tank) CO2e and price it. */
+  includeUpstream?: boolean;
+  sensitivity?: Partial<SensitivityRanges>;
+  /** Hydrogen-sweep step, vol %. */
+  sweepStepPercent?: number;
+  asOf?: Date;
+}
+
+interface ScenarioSource {
+  id: number | null;
+  name: string;
+  fuel: FuelWithQuotesRow;
+  quote: PriceQuoteRow | null;
+  capex: number;
+  fixedOpexChange: number;
+  overrides: StoredScenario["overrides"];
+}
+
+type StudyFields = Pick<
+  StoredStudy,
+  | "name"
+  | "currency"
+  | "carbonPrice_per_t"
+  | "discountRatePercent"
+  | "horizonYears"
+  | "priceEscalationPercent"
+  | "rankingMetric"
+  | "includeUpstream"
+  | "sensitivity"
+  | "notes"
+>;
+
+function build(
+  fields: StudyFields,
+  plant: PlantRow,
+  baseline: ScenarioSource,
+  scenarios: ScenarioSource[],
+  hydrogen: HydrogenRow | null,
+  settings: ViewSettings,
+): { input: StudyInput; baseline: ScenarioMeta; scenarios: ScenarioMeta[]; hydrogen: HydrogenMeta } {
+  const asOf = settings.asOf ?? new Date();
+  const one = (src: ScenarioSource, index: number) => {
+    const p = priceFor(src.fuel, src.quote, fields.currency, asOf);
+    const meta: ScenarioMeta = {
+      id: src.id,
+      index,
+      isBaseline: index === -1,
+      fuelId: src.fuel.id,
+      fuelName: src.fuel.name,
+      fuelKind: src.fuel.kind,
+      priceQuoteId: src.quote?.id ?? null,
+      price: p.source,
+    };
+    return {
+      meta,
+      input: {
+        name: src.name,
+        fuel: effectiveDefinition(src.fuel),
+        price: p.price,
+        componentPrices: p.componentPrices,
+        capex: src.capex,
+        fixedOpexChange: src.fixedOpexChange,
+        overrides: src.overrides,
+      },
+    };
+  };
+  const b = one(baseline, -1);
+  const cs = scenarios.map((s, i) => one(s, i));
+  const h2Quote = hydrogen ? quoteInCurrency(hydrogen.priceQuotes, fields.currency, asOf) : undefined;
+  const input: StudyInput = {
+    name: fields.name,
+    currency: fields.currency,
+    carbonPrice_per_t: fields.carbonPrice_per_t,
+    discountRatePercent: fields.discountRatePercent,
+    horizonYears: fields.horizonYears,
+    priceEscalationPercent: fields.priceEscalationPercent,
+    rankingMetric: settings.metric ?? fields.rankingMetric,
+    includeUpstream: settings.includeUpstream ?? fields.includeUpstream,
+    sensitivity: { ...fields.sensitivity, ...settings.sensitivity },
+    // Without a pure hydrogen in the library the schema's default hydrogen is blended, unpriced.
+    hydrogenSweep: {
+      enabled: true,
+      stepPercent: settings.sweepStepPercent ?? 1,
+      ...(hydrogen ? { hydrogen: effectiveDefinition(hydrogen) } : {}),
+      hydrogenPrice: h2Quote ? studyPrice(h2Quote) : null,
+    },
+    plant: plantInputFromRow(plant),
+    baseline: b.input,
+    scenarios: cs.map((c) => c.input),
+    notes: fields.notes,
+  };
+  return {
+    input,
+    baseline: b.meta,
+    scenarios: cs.map((c) => c.meta),
+    hydrogen: {
+      fuelId: hydrogen?.id ?? null,
+      fuelName: hydrogen?.name ?? null,
+      price: h2Quote
+        ? { kind: "current", quoteId: h2Quote.id, invented: h2Quote.isInvented, validFrom: day(h2Quote.validFrom) }
+        : { kind: "none", invented: false, currency: fields.currency },
+    },
+  };
+}
+
+export type StudyLoad = { ok: true; bundle: StudyBundle } | Problem;
+
+const unreadableProblem = (name: string, unreadable: FieldErrors): Problem =>
+  problem(
+    "unprocessable",
+    `Study "${name}" has stored values that cannot be read (${Object.keys(unreadable).join(", ")}). Edit the study, check those fields and save it.`,
+    unreadable,
+  );
+
+/** The stored study as the self-contained study object lib/ evaluates, with ids and price origins. */
+export async function studyBundle(db: Db, id: number, settings: ViewSettings = {}): Promise<StudyLoad> {
+  const row = await loadStudyGraph(db, id);
+  if (!row) return problem("not-found", `No study with id ${id}.`);
+  const stored = studyFromRows(row, row.scenarios);
+  if (Object.keys(stored.unreadable).length) return unreadableProblem(row.name, stored.unreadable);
+  if (!stored.baseline)
+    return problem("unprocessable", `Study "${row.name}" has no baseline scenario; edit the study and choose one.`, {
+      baseline: "missing",
+    });
+  const rowOf = new Map(row.scenarios.map((s) => [s.id, s]));
+  const src = (s: StoredScenario): ScenarioSource => {
+    const r = rowOf.get(s.id);
+    if (!r) throw new Error(`scenario ${s.id} vanished while the study was read`);
+    return {
+      id: s.id,
+      name: s.name,
+      fuel: r.fuel,
+      quote: r.priceQuote,
+      capex: s.capex,
+      fixedOpexChange: s.fixedOpexChange,
+      overrides: s.overrides,
+    };
+  };
+  const built = build(stored, row.plant, src(stored.baseline), stored.scenarios.map(src), await libraryHydrogen(db), settings);
+  const parsed = studySchema.safeParse(built.input);
+  if (!parsed.success) {
+    const errs = fieldErrors(parsed.error);
+    const [k, v] = Object.entries(errs)[0];
+    return problem("unprocessable", `The stored study cannot be evaluated: ${k}: ${v}. Edit the study to fix it.`, errs);
+  }
+  const anyInvented = [built.baseline, ...built.scenarios].some((m) => m.price.invented);
+  return {
+    ok: true,
+    bundle: {
+      study: parsed.data,
+      meta: {
+        studyId: row.id,
+        plantId: row.plantId,
+        plantName: row.plant.name,
+        isDemo: row.isDemo,
+        updatedAt: row.updatedAt,
+        baseline: built.baseline,
+        scenarios: built.scenarios,
+        hydrogen: built.hydrogen,
+        anyInventedPrice: anyInvented,
+      },
+    },
+  };
+}
+
+/* ---------------------------------------------------------------- evaluation */
+
+export { sharedCaches };
+
+export type Evaluated = { ok: true; bundle: StudyBundle; result: StudyResult } | Problem;
+
+export interface EvaluateStoredOptions extends ViewSettings {
+  sweep?: boolean;
+  tornado?: boolean;
+}
+
+/**
+ * Loads and evaluates a stored study. What lib/ refuses (bad stored input, an infeasible charge, a
+ * solver that did not converge) comes back as an `unprocessable` problem naming the field.
+ */
+export async function evaluateStoredStudy(db: Db, id: number, opts: EvaluateStoredOptions = {}): Promise<Evaluated> {
+  const loaded = await studyBundle(db, id, opts);
+  if (!loaded.ok) return loaded;
+  try {
+    const result = evaluateStudy(loaded.bundle.study, {
+      sweep: opts.sweep ?? false,
+      tornado: opts.tornado ?? true,
+      caches: sharedCaches(),
+    });
+    return { ok: true, bundle: loaded.bundle, result };
+  } catch (e) {
+    return problemFromError(e, {
+      kind: "unprocessable",
+      message: (s, field) => `The study cannot be evaluated: ${field ? `${field}: ` : ""}${s}. Edit the study or the fuel to fix it.`,
+    });
+  }
+}
+
+/* ---------------------------------------------------------------- lists and records */
+
+export interface StudyListItem {
+  id: number;
+  name: string;
+  plantId: number;
+  plantName: string;
+  currency: string;
+  rankingMetric: string;
+  scenarioCount: number;
+  baselineName: string | null;
+  /** Kind of the baseline fuel (a hydrogen sweep needs a gas). */
+  baselineFuelKind: string | null;
+  isDemo: boolean;
+  updatedAt: Date;
+}
+
+export async function listStudies(db: Db, where: { plantId?: number } = {}): Promise<StudyListItem[]> {
+  const rows = await listStudyRows(db, where.plantId);
+  return rows.map((r) => {
+    const base = r.scenarios.find((s) => s.isBaseline);
+    return {
+      id: r.id,
+      name: r.name,
+      plantId: r.plantId,
+      plantName: r.plant.name,
+      currency: r.currency,
+      rankingMetric: r.rankingMetric,
+      scenarioCount: r.scenarios.filter((s) => !s.isBaseline).length,
+      baselineName: base?.name ?? null,
+      baselineFuelKind: base?.fuel.kind ?? null,
+      isDemo: r.isDemo,
+      updatedAt: r.updatedAt,
+    };
+  });
+}
+
+/** A stored study as the study form edits it (and the API returns it), with what could not be read. */
+export type StudyRecordView = StudyRecordInput & { id: number; isDemo: boolean; storedProblems: FieldErrors };
+
+export async function studyRecord(db: Db, id: number): Promise<StudyRecordView | null> {
+  const row = await findStudyWithScenarios(db, id);
+  if (!row) return null;
+  const s = studyFromRows(row, row.scenarios);
+  const sc = ({ id: _id, ...rest }: StoredScenario) => rest;
+  return {
+    id: s.id,
+    isDemo: s.isDemo,
+    plantId: s.plantId,
+    name: s.name,
+    currency: s.currency,
+    carbonPrice_per_t: s.carbonPrice_per_t,
+    discountRatePercent: s.discountRatePercent,
+    horizonYears: s.horizonYears,
+    priceEscalationPercent: s.priceEscalationPercent,
+    rankingMetric: s.rankingMetric,
+    includeUpstream: s.includeUpstream,
+    sensitivity: s.sensitivity,
+    notes: s.notes,
+    baseline: s.baseline
+      ? sc(s.baseline)
+      : { name: "Baseline", fuelId: 0, priceQuoteId: null, capex: 0, fixedOpexChange: 0, overrides: {} },
+    scenarios: s.scenarios.map(sc),
+    storedProblems: s.unreadable,
+  };
+}
+
+/* ---------------------------------------------------------------- writes */
+
+/** Where an evaluation error's field (a path into the study object) sits in the study form. */
+export function recordFieldOf(path: string): string {
+  const m = /^(baseline|scenarios\.\d+)\.(\w+)/.exec(path);
+  if (m) {
+    const [, who, what] = m;
+    if (what === "fuel") return `${who}.fuelId`;
+    if (what === "price" || what === "componentPrices") return `${who}.priceQuoteId`;
+    if (what === "overrides") return path;
+    return `${who}.${what}`;
+  }
+  if (path.startsWith("plant")) return "plantId";
+  if (path.startsWith("hydrogenSweep")) return "_";
+  return path;
+}
+
+async function prepare(tx: Tx, raw: unknown, selfId?: number): Promise<Result<StudyRecord>> {
+  const parsed = studyRecordSchema.safeParse(raw);
+  if (!parsed.success) return problem("invalid", "The study has errors; nothing was saved.", fieldErrors(parsed.error));
+  const r = parsed.data;
+  const errs: FieldErrors = {};
+  const plant = await findPlant(tx, r.plantId);
+  if (!plant) errs.plantId = `no plant with id ${r.plantId}`;
+  const all: [string, ScenarioRecord][] = [
+    ["baseline", r.baseline],
+    ...r.scenarios.map((s, i): [string, ScenarioRecord] => [`scenarios.${i}`, s]),
+  ];
+  const fuels = new Map((await fuelsWithQuotes(tx, [...new Set(all.map(([, s]) => s.fuelId))])).map((f) => [f.id, f]));
+  const quoteIds = all.map(([, s]) => s.priceQuoteId).filter((q): q is number => typeof q === "number");
+  const quotes = new Map((await findQuotes(tx, quoteIds)).map((q) => [q.id, q]));
+  for (const [path, s] of all) {
+    if (!fuels.has(s.fuelId)) errs[`${path}.fuelId`] = `no stored fuel with id ${s.fuelId}`;
+    if (s.priceQuoteId != null) {
+      const q = quotes.get(s.priceQuoteId);
+      if (!q || q.fuelId !== s.fuelId) errs[`${path}.priceQuoteId`] = "is not a price quote of the chosen fuel";
+      else if (q.currency !== r.currency)
+        errs[`${path}.priceQuoteId`] = `is in ${q.currency}; the study is in ${r.currency} (no exchange rates are applied)`;
+    }
+  }
+  if (Object.keys(errs).length || !plant) return problem("invalid", "The study has errors; nothing was saved.", errs);
+  const clash = (await studyNamesOfPlant(tx, r.plantId)).find((o) => o.name.toLowerCase() === r.name.toLowerCase() && o.id !== selfId);
+  if (clash)
+    return problem("conflict", `This plant already has a study named "${clash.name}".`, {
+      name: `this plant already has a study named "${clash.name}"`,
+    });
+
+  // Evaluate once, so that a study that cannot be evaluated is never stored.
+  const src = (s: ScenarioRecord): ScenarioSource => {
+    const fuel = fuels.get(s.fuelId);
+    if (!fuel) throw new Error(`fuel ${s.fuelId} vanished while the study was checked`);
+    return {
+      id: null,
+      name: s.name,
+      fuel,
+      quote: s.priceQuoteId != null ? (quotes.get(s.priceQuoteId) ?? null) : null,
+      capex: s.capex,
+      fixedOpexChange: s.fixedOpexChange,
+      overrides: s.overrides,
+    };
+  };
+  const built = build(r, plant, src(r.baseline), r.scenarios.map(src), await libraryHydrogen(tx), { metric: r.rankingMetric });
+  const study = studySchema.safeParse(built.input);
+  if (!study.success) {
+    const e: FieldErrors = {};
+    for (const [k, v] of Object.entries(fieldErrors(study.error))) e[recordFieldOf(k)] ??= v;
+    return problem("invalid", "The study cannot be evaluated; nothing was saved.", e);
+  }
+  try {
+    evaluateStudy(study.data, { sweep: false, tornado: false, caches: sharedCaches() });
+  } catch (e) {
+    return problemFromError(e, { fieldOf: recordFieldOf, message: (s) => `The study cannot be evaluated: ${s}; nothing was saved.` });
+  }
+  return ok(r);
+}
+
+export function createStudy(db: Db, raw: unknown): Promise<Result<StudyRow>> {
+  return inTransaction(db, async (tx): Promise<Result<StudyRow>> => {
+    const p = await prepare(tx, raw);
+    if (!p.ok) return p;
+    return ok(await insertStudy(tx, p.value));
+  });
+}
+
+export function updateStudy(db: Db, id: number, raw: unknown): Promise<Result<StudyRow>> {
+  return inTransaction(db, async (tx): Promise<Result<StudyRow>> => {
+    if (!(await findStudy(tx, id))) return problem("not-found", `No study with id ${id}.`);
+    const p = await prepare(tx, raw, id);
+    if (!p.ok) return p;
+    return ok(await replaceStudy(tx, id, p.value));
+  });
+}
+
+export function deleteStudy(db: Db, id: number): Promise<Result<StudyRow>> {
+  return inTransaction(db, async (tx): Promise<Result<StudyRow>> => {
+    const existing = await findStudy(tx, id);
+    if (!existing) return problem("not-found", `No study with id ${id}.`);
+    await deleteStudyRow(tx, id);
+    return ok(existing);
+  });
+}
+
+/** Copies a study with all its scenarios under a free name ("… (copy)", "… (copy 2)", …). */
+export function duplicateStudy(db: Db, id: number, name?: string): Promise<Result<StudyRow>> {
+  return inTransaction(db, async (tx): Promise<Result<StudyRow>> => {
+    const src = await findStudyWithScenarios(tx, id);
+    if (!src) return problem("not-found", `No study with id ${id}.`);
+    const taken = new Set((await studyNamesOfPlant(tx, src.plantId)).map((s) => s.name.toLowerCase()));
+    let newName = name?.trim() ?? "";
+    if (newName) {
+      if (newName.length > 200) return problem("invalid", "The name is too long.", { name: "must be ≤ 200 characters" });
+      if (taken.has(newName.toLowerCase()))
+        return problem("conflict", `This plant already has a study named "${newName}".`, {
+          name: `this plant already has a study named "${newName}"`,
+        });
+    } else {
+      for (let i = 1; ; i++) {
+        const n = `${src.name} (copy${i > 1 ? ` ${i}` : ""})`.slice(0, 200);
+        if (!taken.has(n.toLowerCase())) {
+          newName = n;
+          break;
+        }
+      }
+    }
+    return ok(await copyStudy(tx, src, newName));
+  });
+}
+
+/* ---------------------------------------------------------------- form options */
+
+export interface QuoteChoice {
+  id: number;
+  amount: number;
+  transportAdder: number;
+  handlingAdder: number;
+  currency: string;
+  unit: string;
+  energyBasis: string | null;
+  meteringReference: string | null;
+  validFrom: string;
+  isInvented: boolean;
+}
+
+export interface StudyFormOptions {
+  plants: { id: number; name: string; baselineFuelId: number | null; equipmentType: string }[];
+  fuels: { id: number; name: string; kind: string; isBlend: boolean; quotes: QuoteChoice[] }[];
+}
+
+/** Plants, fuels and their quotes (newest first) for the study form's choices. */
+export async function studyFormOptions(db: Db): Promise<StudyFormOptions> {
+  const [plants, fuels] = await Promise.all([plantChoices(db), listFuelsWithQuotes(db)]);
+  return {
+    plants,
+    fuels: fuels.map((f) => ({
+      id: f.id,
+      name: f.name,
+      kind: f.kind,
+      isBlend: f.components.length > 0,
+      quotes: f.priceQuotes.map((q) => {
+        const j = quoteJson(q);
+        return {
+          id: j.id,
+          amount: j.amount,
+          transportAdder: j.transportAdder,
+          handlingAdder: j.handlingAdder,
+          currency: j.currency,
+          unit: j.unit,
+          energyBasis: j.energyBasis,
+          meteringReference: j.meteringReference,
+          validFrom: j.validFrom,
+          isInvented: j.isInvented,
+        };
+      }),
+    })),
+  };
+}
