@@ -114,6 +114,25 @@ export const blendFuelSchema: z.ZodType<BlendFuelDefinition> = z.lazy(() =>
     }),
 ) as z.ZodType<BlendFuelDefinition>;
 
+/** Deepest nesting of blends in blends accepted (deeper input is refused before it is walked recursively). */
+export const MAX_BLEND_DEPTH = 10;
+
+/** How deep blends nest in `input` (0: not a blend), counted without recursion; stops past the limit. */
+function blendDepth(input: unknown): number {
+  let deepest = 0;
+  const stack: [unknown, number][] = [[input, 0]];
+  while (stack.length) {
+    const [node, depth] = stack.pop()!;
+    if (typeof node !== "object" || node === null || !("blend" in node)) continue;
+    deepest = Math.max(deepest, depth + 1);
+    if (deepest > MAX_BLEND_DEPTH) return deepest;
+    const blend = (node as { blend: unknown }).blend;
+    if (!Array.isArray(blend)) continue;
+    for (const c of blend) if (typeof c === "object" && c !== null && "fuel" in c) stack.push([(c as { fuel: unknown }).fuel, depth + 1]);
+  }
+  return deepest;
+}
+
 const FORM_KEYS = ["composition", "compound", "ultimate", "blend"] as const;
 const formSchemas = {
   composition: () => compositionFuelSchema,
@@ -141,6 +160,10 @@ export const fuelDefinitionSchema: z.ZodType<FuelDefinition> = z.lazy(() =>
             ? "a fuel needs one of: composition, compound, ultimate, blend"
             : `a fuel takes only one of composition, compound, ultimate, blend (found ${present.join(", ")})`,
       });
+      return z.NEVER;
+    }
+    if (present[0] === "blend" && blendDepth(input) > MAX_BLEND_DEPTH) {
+      ctx.addIssue({ code: "custom", message: `blends may nest at most ${MAX_BLEND_DEPTH} levels deep`, path: ["blend"] });
       return z.NEVER;
     }
     const parsed = formSchemas[present[0]]().safeParse(input);

@@ -1,0 +1,57 @@
+/**
+ * CSV output of the command line (RFC 4180 quoting by csv-stringify). Numbers are written to six
+ * significant digits, an unknown figure as an empty cell (never 0). A text cell that a spreadsheet
+ * would run as a formula (starting with = + - @, tab or carriage return, and not a number) is
+ * prefixed with an apostrophe.
+ */
+import { stringify } from "csv-stringify/sync";
+import type { CsvTable } from "./commands";
+
+const FORMULA_START = /^[=+\-@\t\r]/;
+
+export function csvCell(v: unknown): string {
+  if (v === null || v === undefined) return "";
+  if (typeof v === "number") return Number.isFinite(v) ? String(Number(v.toPrecision(6))) : "";
+  const s = String(v);
+  if (FORMULA_START.test(s) && !Number.isFinite(Number(s))) return "'" + s;
+  return s;
+}
+
+/** Writes a table; every row is padded or cut to the header's width. */
+export function toCsv(table: CsvTable): string {
+  const width = table.header.length;
+  const records = [table.header.map(csvCell), ...table.rows.map((r) => Array.from({ length: width }, (_, i) => csvCell(r[i])))];
+  return stringify(records, { record_delimiter: "\n" });
+}
+
+/**
+ * Collects the rows of many inputs into one table: the leading columns name the input and its
+ * error; result columns are the union of the inputs' headers in first-seen order (inputs of
+ * different currencies, say, fill different columns), empty where an input has no such column.
+ */
+export class CsvCollector {
+  private readonly columns = new Map<string, number>();
+  private readonly rows: unknown[][] = [];
+  constructor(private readonly lead: readonly string[]) {}
+
+  add(lead: readonly unknown[], table?: CsvTable): void {
+    if (!table) {
+      this.rows.push([...lead]);
+      return;
+    }
+    const at = table.header.map((h) => {
+      let i = this.columns.get(h);
+      if (i === undefined) this.columns.set(h, (i = this.columns.size));
+      return i;
+    });
+    for (const r of table.rows) {
+      const row: unknown[] = [...lead];
+      r.forEach((v, j) => (row[this.lead.length + at[j]] = v));
+      this.rows.push(row);
+    }
+  }
+
+  toCsv(): string {
+    return toCsv({ header: [...this.lead, ...this.columns.keys()], rows: this.rows });
+  }
+}
