@@ -55,8 +55,8 @@ function oneLine(s: string): string {
   return s.replace(/\s*\n\s*/g, " ").trim();
 }
 
-function zodPath(issue: z.core.$ZodIssue, prefix: readonly (string | number)[]): string {
-  return [...prefix, ...issue.path.map(String)].join(".");
+function zodPath(issue: z.core.$ZodIssue, suffix: readonly string[]): string {
+  return [...issue.path.map(String), ...suffix].join(".");
 }
 
 /**
@@ -80,6 +80,12 @@ export function describeFailure(e: unknown, debug = false): Failure {
   if (e instanceof UsageError) return { kind: "usage", field: "", message: oneLine(e.message), exitCode: EXIT_BAD_INPUT };
   if (e instanceof z.core.$ZodError) {
     const issue = e.issues[0];
+    if (issue?.code === "unrecognized_keys") {
+      // Name the unknown field itself, not the object holding it.
+      const field = zodPath(issue, issue.keys.slice(0, 1));
+      const more = issue.keys.length > 1 ? ` (also ${issue.keys.slice(1).join(", ")})` : "";
+      return { kind: "input", field, message: oneLine(`${field}: unknown field${more}`), exitCode: EXIT_BAD_INPUT };
+    }
     const field = issue ? zodPath(issue, []) : "";
     return { kind: "input", field, message: oneLine(`${field || "(input)"}: ${issue?.message ?? "invalid input"}`), exitCode: EXIT_BAD_INPUT };
   }

@@ -168,7 +168,11 @@ export const fuelDefinitionSchema: z.ZodType<FuelDefinition> = z.lazy(() =>
     }
     const parsed = formSchemas[present[0]]().safeParse(input);
     if (!parsed.success) {
-      for (const issue of parsed.error.issues) ctx.addIssue({ code: "custom", message: issue.message, path: issue.path as PropertyKey[] });
+      for (const issue of parsed.error.issues) {
+        // An unknown key is named itself (`fuel.nme`), not the object that holds it.
+        if (issue.code === "unrecognized_keys") ctx.addIssue({ code: "custom", message: "unknown field", path: [...issue.path, issue.keys[0]] as PropertyKey[] });
+        else ctx.addIssue({ code: "custom", message: issue.message, path: issue.path as PropertyKey[] });
+      }
       return z.NEVER;
     }
     return parsed.data as FuelDefinition;
