@@ -14,6 +14,19 @@ export const OUT_DIR = join(ROOT, "dist", "cli");
 export const OUT_FILE = join(OUT_DIR, "stoke.mjs");
 export const INPUTS_FILE = join(OUT_DIR, "stoke.inputs.json");
 
+/**
+ * zod's namespace object carries every message locale (`z.locales`, ~290 KB); Stoke uses only the
+ * English default, which zod imports itself. The bundle gets a locales module with English only:
+ * a third less JavaScript to compile at every start.
+ */
+const zodEnglishOnly = {
+  name: "zod-english-only",
+  setup(b) {
+    b.onResolve({ filter: /\/locales\/index\.js$/ }, (a) => (/[\\/]node_modules[\\/]zod[\\/]/.test(a.importer) ? { path: "zod-locales-en", namespace: "stoke" } : undefined));
+    b.onLoad({ filter: /^zod-locales-en$/, namespace: "stoke" }, () => ({ contents: 'export { default as en } from "zod/v4/locales/en.js";', resolveDir: ROOT }));
+  },
+};
+
 const FORBIDDEN = [/^lib\/db\//, /node_modules\/(@prisma|prisma|next|react|react-dom|better-sqlite3)\//];
 
 /** Writes `text` to `path` through a temporary file and a rename, so a concurrent reader sees old or new, never half. */
@@ -45,12 +58,13 @@ export async function buildCli() {
     logLevel: "warning",
     banner: { js: "#!/usr/bin/env node" },
     define: { __STOKE_VERSION__: JSON.stringify(version) },
+    plugins: [zodEnglishOnly],
   });
   const inputs = Object.keys(result.metafile.inputs);
   const bad = inputs.filter((f) => FORBIDDEN.some((re) => re.test(f)));
   if (bad.length) throw new Error(`the command line must not bundle the database layer or the web app: ${bad.join(", ")}`);
   mkdirSync(OUT_DIR, { recursive: true });
-  const own = inputs.filter((f) => !f.includes("node_modules/")).map((f) => relative(ROOT, join(ROOT, f)));
+  const own = inputs.filter((f) => !f.includes("node_modules/") && !f.includes(":")).map((f) => relative(ROOT, join(ROOT, f)));
   writeAtomic(INPUTS_FILE, JSON.stringify(["package.json", ...own]) + "\n");
   // The map first, the bundle last: the bundle's time stamp marks a complete build.
   const files = [...result.outputFiles].sort((a, b) => Number(a.path === OUT_FILE) - Number(b.path === OUT_FILE));
