@@ -13,11 +13,13 @@ process.stdout.on("error", (e: NodeJS.ErrnoException) => {
   throw e;
 });
 
-process.exitCode = await main(process.argv.slice(2), {
+void main(process.argv.slice(2), {
   stdinText: () => readFileSync(0, "utf8"),
   stdinLines: () => createInterface({ input: process.stdin, crlfDelay: Infinity }),
   out: new StreamSink(process.stdout),
   err: new StreamSink(process.stderr, 0),
   errIsTTY: process.stderr.isTTY === true,
   debug: process.env.STOKE_DEBUG === "1",
+}).then((code) => {
+  process.exitCode = code;
 });

@@ -1,18 +1,25 @@
 /**
  * Compiles the command line ahead of time: lib/cli/entry.ts and what it imports, bundled by
- * esbuild into one plain-JavaScript file, dist/cli/stoke.mjs (git-ignored), plus
- * stoke.inputs.json, the project files it was built from (the launcher rebuilds when one is newer).
+ * esbuild into one plain-JavaScript file, dist/cli/stoke.cjs (git-ignored; `node dist/cli/stoke.cjs`
+ * runs it; its last line is the build's id, a hash of the bundle), and dist/cli/stoke.build.json:
+ * the id and the project files it was built from (the launcher rebuilds when one is newer).
  * Run by `npm install` (postinstall), `npm run build` and `npm run build:cli`.
  * The bundle must not contain the database layer, Prisma, Next or React: the build fails if it does.
+ *
+ * CommonJS, not ESM, because Node 20 can keep compiled code between runs only for scripts
+ * (vm.Script cached data); the launcher does that, which halves the start-up work.
  */
-import { mkdirSync, readFileSync, renameSync, writeFileSync, chmodSync } from "node:fs";
+import { createHash } from "node:crypto";
+import { mkdirSync, readdirSync, readFileSync, renameSync, rmSync, writeFileSync } from "node:fs";
 import { basename, dirname, join, relative } from "node:path";
 import { fileURLToPath } from "node:url";
 
 export const ROOT = fileURLToPath(new URL("../../../", import.meta.url));
 export const OUT_DIR = join(ROOT, "dist", "cli");
-export const OUT_FILE = join(OUT_DIR, "stoke.mjs");
-export const INPUTS_FILE = join(OUT_DIR, "stoke.inputs.json");
+export const OUT_FILE = join(OUT_DIR, "stoke.cjs");
+export const BUILD_FILE = join(OUT_DIR, "stoke.build.json");
+/** The compiled-code cache of one build (written by the launcher on first use). */
+export const cacheFileOf = (buildId) => join(OUT_DIR, `stoke-${buildId}.v8cache`);
 
 /**
  * zod's namespace object carries every message locale (`z.locales`, ~290 KB); Stoke uses only the
@@ -27,13 +34,12 @@ const zodEnglishOnly = {
   },
 };
 
-const FORBIDDEN = [/^lib\/db\//, /node_modules\/(@prisma|prisma|next|react|react-dom|better-sqlite3)\//];
+const FORBIDDEN = [/^lib\/db\//, /^app\//, /node_modules\/(@prisma|prisma|next|react|react-dom|better-sqlite3)\//];
 
-/** Writes `text` to `path` through a temporary file and a rename, so a concurrent reader sees old or new, never half. */
-function writeAtomic(path, text, mode) {
+/** Writes `data` to `path` through a temporary file and a rename, so a concurrent reader sees old or new, never half. */
+export function writeAtomic(path, data) {
   const tmp = join(dirname(path), `.${basename(path)}.${process.pid}.tmp`);
-  writeFileSync(tmp, text);
-  if (mode) chmodSync(tmp, mode);
+  writeFileSync(tmp, data);
   renameSync(tmp, path);
 }
 
@@ -46,7 +52,7 @@ export async function buildCli() {
     outfile: OUT_FILE,
     bundle: true,
     platform: "node",
-    format: "esm",
+    format: "cjs",
     target: "node20",
     minifySyntax: true,
     minifyWhitespace: true,
@@ -56,7 +62,9 @@ export async function buildCli() {
     metafile: true,
     write: false,
     logLevel: "warning",
-    banner: { js: "#!/usr/bin/env node" },
+    // help.ts reads package.json through import.meta.url only when run from source; here the
+    // version is defined below and that branch is dead.
+    logOverride: { "empty-import-meta": "silent" },
     define: { __STOKE_VERSION__: JSON.stringify(version) },
     plugins: [zodEnglishOnly],
   });
@@ -65,17 +73,23 @@ export async function buildCli() {
   if (bad.length) throw new Error(`the command line must not bundle the database layer or the web app: ${bad.join(", ")}`);
   mkdirSync(OUT_DIR, { recursive: true });
   const own = inputs.filter((f) => !f.includes("node_modules/") && !f.includes(":")).map((f) => relative(ROOT, join(ROOT, f)));
-  writeAtomic(INPUTS_FILE, JSON.stringify(["package.json", ...own]) + "\n");
-  // The map first, the bundle last: the bundle's time stamp marks a complete build.
-  const files = [...result.outputFiles].sort((a, b) => Number(a.path === OUT_FILE) - Number(b.path === OUT_FILE));
-  for (const f of files) writeAtomic(f.path, f.contents, f.path === OUT_FILE ? 0o755 : undefined);
-  return { bytes: files.find((f) => f.path === OUT_FILE).contents.length, inputs: inputs.length };
+  const js = result.outputFiles.find((f) => f.path === OUT_FILE);
+  const map = result.outputFiles.find((f) => f.path !== OUT_FILE);
+  const id = createHash("sha256").update(js.contents).digest("hex").slice(0, 16);
+  // The id closes the bundle: the launcher names the compiled-code cache by the source it runs.
+  const text = `${js.text}// stoke-build ${id}\n`;
+  for (const f of readdirSync(OUT_DIR)) if (/^stoke-[0-9a-f]+\.v8cache$/.test(f) && f !== basename(cacheFileOf(id))) rmSync(join(OUT_DIR, f), { force: true });
+  if (map) writeAtomic(map.path, map.contents);
+  // The bundle before its description: a reader that sees the new id finds the new bundle.
+  writeAtomic(OUT_FILE, text);
+  writeAtomic(BUILD_FILE, JSON.stringify({ id, inputs: ["package.json", ...own] }) + "\n");
+  return { id, bytes: text.length, inputs: inputs.length };
 }
 
 if (process.argv[1] && fileURLToPath(import.meta.url) === process.argv[1]) {
   try {
     const r = await buildCli();
-    if (!process.argv.includes("--quiet")) console.log(`stoke: built dist/cli/stoke.mjs (${(r.bytes / 1024).toFixed(0)} KiB from ${r.inputs} files)`);
+    if (!process.argv.includes("--quiet")) console.log(`stoke: built dist/cli/stoke.cjs (${(r.bytes / 1024).toFixed(0)} KiB from ${r.inputs} files)`);
   } catch (e) {
     if (e?.code === "ERR_MODULE_NOT_FOUND" && String(e.message).includes("esbuild")) {
       // An install without dev dependencies: the launcher runs the TypeScript through tsx instead.
