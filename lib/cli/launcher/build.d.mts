@@ -6,3 +6,4 @@ export declare const BUILD_FILE: string;
 export declare function cacheFileOf(buildId: string): string;
 export declare function writeAtomic(path: string, data: string | Uint8Array): void;
 export declare function buildCli(): Promise<{ id: string; bytes: number; inputs: number }>;
+export declare function linkBin(): void;

@@ -10,7 +10,7 @@
  * (vm.Script cached data); the launcher does that, which halves the start-up work.
  */
 import { createHash } from "node:crypto";
-import { mkdirSync, readdirSync, readFileSync, renameSync, rmSync, writeFileSync } from "node:fs";
+import { existsSync, mkdirSync, readdirSync, readFileSync, readlinkSync, renameSync, rmSync, symlinkSync, writeFileSync } from "node:fs";
 import { basename, dirname, join, relative } from "node:path";
 import { fileURLToPath } from "node:url";
 
@@ -86,7 +86,30 @@ export async function buildCli() {
   return { id, bytes: text.length, inputs: inputs.length };
 }
 
+/**
+ * npm links the bins of dependencies into node_modules/.bin, but not the project's own; `npx stoke`
+ * in the project folder finds the command there. Creates (or corrects) that link.
+ */
+export function linkBin() {
+  const binDir = join(ROOT, "node_modules", ".bin");
+  if (!existsSync(binDir)) return;
+  const link = join(binDir, "stoke");
+  const target = relative(binDir, join(ROOT, JSON.parse(readFileSync(join(ROOT, "package.json"), "utf8")).bin.stoke));
+  try {
+    if (readlinkSync(link) === target) return;
+    rmSync(link, { force: true });
+  } catch {
+    // no link yet
+  }
+  try {
+    symlinkSync(target, link);
+  } catch (e) {
+    console.warn(`stoke: could not link node_modules/.bin/stoke (${e.code ?? e.message}); use npm run -s stoke -- …`);
+  }
+}
+
 if (process.argv[1] && fileURLToPath(import.meta.url) === process.argv[1]) {
+  linkBin();
   try {
     const r = await buildCli();
     if (!process.argv.includes("--quiet")) console.log(`stoke: built dist/cli/stoke.cjs (${(r.bytes / 1024).toFixed(0)} KiB from ${r.inputs} files)`);
