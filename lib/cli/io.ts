@@ -177,11 +177,6 @@ export function parseOptions(argv: readonly string[], specs: readonly OptionSpec
   return out;
 }
 
-/** Compatibility: value options only, by name. */
-export function parseFlags(argv: readonly string[], allowed: readonly string[]): Record<string, string> {
-  return parseOptions(argv, allowed.map((name) => ({ name, value: "VALUE", help: "" }))) as Record<string, string>;
-}
-
 // ---------------------------------------------------------------------------------------------
 // Input
 
@@ -264,7 +259,4 @@ export class StreamSink implements Sink {
 
 export function ok(value: unknown): CliResult {
   return { stdout: JSON.stringify(value, null, 2) + "\n", stderr: "", exitCode: 0 };
-}
-export function usageFailure(message: string): CliResult {
-  return failureResult(new UsageError(message));
 }
