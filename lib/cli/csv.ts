@@ -40,13 +40,15 @@ export class CsvCollector {
       return;
     }
     const at = table.header.map((h) => {
-      let i = this.columns.get(h);
-      if (i === undefined) this.columns.set(h, (i = this.columns.size));
+      const known = this.columns.get(h);
+      if (known !== undefined) return known;
+      const i = this.columns.size;
+      this.columns.set(h, i);
       return i;
     });
     for (const r of table.rows) {
       const row: unknown[] = [...lead];
-      r.forEach((v, j) => (row[this.lead.length + at[j]] = v));
+      for (let j = 0; j < r.length; j++) row[this.lead.length + at[j]] = r[j];
       this.rows.push(row);
     }
   }

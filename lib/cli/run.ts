@@ -164,7 +164,7 @@ class Progress {
   }
 }
 
-async function batch(spec: CommandSpec, impl: CommandImpl, o: ParsedOptions, mode: Exclude<Mode, { kind: "single" }>, format: OutputFormat, io: CliIo): Promise<number> {
+async function batch(impl: CommandImpl, o: ParsedOptions, mode: Exclude<Mode, { kind: "single" }>, format: OutputFormat, io: CliIo): Promise<number> {
   let items: Iterable<Item> | AsyncIterable<Item>;
   let total: number | undefined;
   if (mode.kind === "folder") {
@@ -240,7 +240,7 @@ export async function runCommand(spec: CommandSpec, argv: readonly string[], io:
         const r = single(impl, o, mode.input, () => io.stdinText());
         await io.out.write(r.stdout);
         exit = r.exitCode;
-      } else exit = await batch(spec, impl, o, mode, format, io);
+      } else exit = await batch(impl, o, mode, format, io);
     }
   } catch (e) {
     const f = describeFailure(e, io.debug);

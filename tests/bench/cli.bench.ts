@@ -25,7 +25,10 @@ function timeRun(args: string[], input: string): number {
 /** 1,000 distinct natural gases: methane with ethane, propane, butane, nitrogen and CO2 varied (fixed seed). */
 export function gasBatch(n = 1000): string {
   let seed = 12345;
-  const rnd = () => ((seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31);
+  const rnd = () => {
+    seed = (seed * 1103515245 + 12345) % 2 ** 31;
+    return seed / 2 ** 31;
+  };
   const lines: string[] = [];
   for (let i = 0; i < n; i++) {
     const c2 = 0.01 + 0.08 * rnd();
