@@ -54,10 +54,13 @@ ${wrap(spec.input, "  ")}
 
 output:
 ${wrap(spec.output, "  ")}
-batch records: {"line": N, "ok": true, "result": ...} or {"line": N, "ok": false, "error": {"kind", "field", "message"}}${spec.folder ? '\n  ("file": NAME instead of "line" for a folder)' : ""}
+
+batch records, one line per input, in order:
+  {"line": N, "ok": true, "result": ...}
+  {"line": N, "ok": false, "error": {"kind": ..., "field": ..., "message": ...}}${spec.folder ? '\n  ("file": NAME instead of "line" for a folder)' : ""}
 
 options:
-${options.map((o) => `  ${flag(o).padEnd(w)}  ${o.help}`).join("\n")}
+${options.map((o) => `  ${flag(o).padEnd(w)}  ${wrap(o.help, " ".repeat(w + 4)).trimStart()}`).join("\n")}
 
 examples:
 ${spec.examples.map((e) => `  ${e}`).join("\n")}
