@@ -31,6 +31,12 @@ function isCurrent() {
 }
 
 function runCompiled() {
+  if (process.env.STOKE_DEBUG === "1") {
+    // Node's own loader, with source maps on before it compiles: stacks point into the TypeScript.
+    process.setSourceMapsEnabled(true);
+    require(bundle);
+    return;
+  }
   const source = readFileSync(bundle, "utf8");
   // The cache is named by the id on the bundle's last line: the code cached is that of this source.
   const id = /\/\/ stoke-build ([0-9a-f]+)\s*$/.exec(source.slice(-64))?.[1];
