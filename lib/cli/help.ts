@@ -1,4 +1,5 @@
 /** Help texts, written from the command registry. */
+import { readFileSync } from "node:fs";
 import { COMMANDS, commonOptions, type CommandSpec } from "./commands";
 
 /** The version, set by the build (`dist/cli`); read from package.json when run from source. */
@@ -6,7 +7,6 @@ declare const __STOKE_VERSION__: string | undefined;
 
 export async function version(): Promise<string> {
   if (typeof __STOKE_VERSION__ === "string") return __STOKE_VERSION__;
-  const { readFileSync } = await import("node:fs");
   return (JSON.parse(readFileSync(new URL("../../package.json", import.meta.url), "utf8")) as { version: string }).version;
 }
 

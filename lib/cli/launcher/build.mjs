@@ -68,6 +68,10 @@ export async function buildCli() {
     define: { __STOKE_VERSION__: JSON.stringify(version) },
     plugins: [zodEnglishOnly],
   });
+  // The launcher runs the bundle as a vm.Script, where Node 20 allows no import(): every module
+  // must be bundled or statically required.
+  const dynamic = Object.values(result.metafile.outputs).flatMap((o) => o.imports.filter((i) => i.kind === "dynamic-import" && i.external).map((i) => i.path));
+  if (dynamic.length) throw new Error(`the command line must import these statically (it runs as a script): ${dynamic.join(", ")}`);
   const inputs = Object.keys(result.metafile.inputs);
   const bad = inputs.filter((f) => FORBIDDEN.some((re) => re.test(f)));
   if (bad.length) throw new Error(`the command line must not bundle the database layer or the web app: ${bad.join(", ")}`);
