@@ -32,11 +32,14 @@ describe("the compiled command line", () => {
     expect(recs[1]).toMatchObject({ line: 2, ok: false, error: { field: "fuel.composition.CH4" } });
     expect(r.status).toBe(2);
   });
-  it("the bin launcher runs the compiled file", () => {
+  it("the bin launcher runs the compiled file, single input and batch", () => {
     const pkg = JSON.parse(readFileSync(join(ROOT, "package.json"), "utf8"));
     const bin = join(ROOT, pkg.bin.stoke);
     const r = node(bin, ["properties", "--input", "-"], '{"fuel":{"compound":"C99"}}');
     expect(r.status).toBe(2);
     expect(r.stderr).toMatch(/^stoke: fuel\.compound: unknown species "C99".*\n$/);
+    const b = node(bin, ["flame", "--ndjson"], '{"fuel":{"compound":"CH4"},"method":"complete"}\n{"fuel":{"compound":"CH4"},"phi":-1}\n');
+    expect(b.stdout.trim().split("\n").map((l) => JSON.parse(l).ok)).toEqual([true, false]);
+    expect(b.status).toBe(2);
   });
 });
