@@ -185,7 +185,18 @@ export function parseJson(text: string, what = "input"): unknown {
   try {
     return JSON.parse(text);
   } catch (e) {
-    throw new UsageError(`${what}: not valid JSON (${(e as Error).message})`);
+    throw new UsageError(`${what}: not valid JSON (${(e as Error).message})${looksLikeNdjson(text) ? "; for one input per line use --ndjson" : ""}`);
+  }
+}
+
+function looksLikeNdjson(text: string): boolean {
+  const lines = text.split("\n").filter((l) => l.trim() !== "");
+  if (lines.length < 2) return false;
+  try {
+    JSON.parse(lines[0]);
+    return true;
+  } catch {
+    return false;
   }
 }
 

@@ -66,6 +66,11 @@ describe("NDJSON batch", () => {
     expect(recs[1].error.field).toBe("phi");
     expect(r.exitCode).toBe(2);
   });
+  it("points a single-input run given several lines to --ndjson", async () => {
+    const r = await run(["properties", "--input", "-"], NDJSON);
+    expect(r.exitCode).toBe(2);
+    expect(r.stderr).toMatch(/^stoke: input: not valid JSON .*; for one input per line use --ndjson\n$/);
+  });
   it("refuses json output for a batch and ndjson output for a single input", async () => {
     expect((await run(["properties", "--ndjson", "--format", "json"], NDJSON)).stderr).toMatch(/batch output is --format ndjson/);
     expect((await run(["properties", "--input", "-", "--format", "ndjson"], LINES[0])).exitCode).toBe(2);
