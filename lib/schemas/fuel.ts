@@ -97,6 +97,12 @@ export interface BlendFuelDefinition {
   name?: string;
 }
 
+/**
+ * Deepest nesting of blends accepted (a blend of blends … counts one level per `blend`). Real
+ * blending needs two or three levels; the limit keeps a malformed definition from exhausting the stack.
+ */
+export const MAX_BLEND_NESTING = 16;
+
 export const blendFuelSchema: z.ZodType<BlendFuelDefinition> = z.lazy(() =>
   z
     .object({
@@ -114,23 +120,23 @@ export const blendFuelSchema: z.ZodType<BlendFuelDefinition> = z.lazy(() =>
     }),
 ) as z.ZodType<BlendFuelDefinition>;
 
-/** Deepest nesting of blends in blends accepted (deeper input is refused before it is walked recursively). */
-export const MAX_BLEND_DEPTH = 10;
-
-/** How deep blends nest in `input` (0: not a blend), counted without recursion; stops past the limit. */
-function blendDepth(input: unknown): number {
-  let deepest = 0;
-  const stack: [unknown, number][] = [[input, 0]];
+/**
+ * The path (below the fuel) of the first blend nested deeper than MAX_BLEND_NESTING, found
+ * without recursion so that a malformed definition cannot exhaust the stack; undefined if none is.
+ */
+function tooDeepBlend(input: unknown): (string | number)[] | undefined {
+  const stack: [unknown, (string | number)[], number][] = [[input, [], 1]];
   while (stack.length) {
-    const [node, depth] = stack.pop()!;
+    const [node, path, depth] = stack.pop()!;
     if (typeof node !== "object" || node === null || !("blend" in node)) continue;
-    deepest = Math.max(deepest, depth + 1);
-    if (deepest > MAX_BLEND_DEPTH) return deepest;
+    if (depth > MAX_BLEND_NESTING) return [...path, "blend"];
     const blend = (node as { blend: unknown }).blend;
     if (!Array.isArray(blend)) continue;
-    for (const c of blend) if (typeof c === "object" && c !== null && "fuel" in c) stack.push([(c as { fuel: unknown }).fuel, depth + 1]);
+    blend.forEach((c, i) => {
+      if (typeof c === "object" && c !== null && "fuel" in c) stack.push([(c as { fuel: unknown }).fuel, [...path, "blend", i, "fuel"], depth + 1]);
+    });
   }
-  return deepest;
+  return undefined;
 }
 
 const FORM_KEYS = ["composition", "compound", "ultimate", "blend"] as const;
@@ -162,8 +168,9 @@ export const fuelDefinitionSchema: z.ZodType<FuelDefinition> = z.lazy(() =>
       });
       return z.NEVER;
     }
-    if (present[0] === "blend" && blendDepth(input) > MAX_BLEND_DEPTH) {
-      ctx.addIssue({ code: "custom", message: `blends may nest at most ${MAX_BLEND_DEPTH} levels deep`, path: ["blend"] });
+    const deep = present[0] === "blend" ? tooDeepBlend(input) : undefined;
+    if (deep) {
+      ctx.addIssue({ code: "custom", message: `blends nest at most ${MAX_BLEND_NESTING} levels deep`, path: deep });
       return z.NEVER;
     }
     const parsed = formSchemas[present[0]]().safeParse(input);
