@@ -200,9 +200,14 @@ function looksLikeNdjson(text: string): boolean {
   }
 }
 
+/** Drops a leading byte-order mark (files saved by some spreadsheet and Windows editors). */
+export function stripBom(text: string): string {
+  return text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
+}
+
 export function readTextFile(path: string): string {
   try {
-    return readFileSync(path, "utf8");
+    return stripBom(readFileSync(path, "utf8"));
   } catch (e) {
     throw new UsageError(`input: cannot read "${path}" (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
   }
@@ -214,7 +219,7 @@ export function readJsonInput(path: string | undefined, stdin: () => string): un
   let text: string;
   if (path === "-") {
     try {
-      text = stdin();
+      text = stripBom(stdin());
     } catch (e) {
       throw new UsageError(`input: cannot read standard input (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
     }

@@ -22,6 +22,7 @@ import {
   parseOptions,
   readJsonInput,
   readTextFile,
+  stripBom,
   UsageError,
   worstExit,
   type CliResult,
@@ -118,8 +119,9 @@ function* linesOf(text: string): Generator<Item> {
 
 async function* stdinItems(lines: AsyncIterable<string>): AsyncGenerator<Item> {
   let n = 0;
-  for await (const t of lines) {
+  for await (const line of lines) {
     n++;
+    const t = n === 1 ? stripBom(line) : line;
     if (t.trim() !== "") yield { key: { line: n }, read: () => t };
   }
 }

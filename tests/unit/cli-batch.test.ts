@@ -47,13 +47,13 @@ describe("NDJSON batch", () => {
     expect(r.exitCode).toBe(2);
     expect(r.stderr).toBe("stoke: 2 of 4 inputs failed (lines 2, 4)\n");
   });
-  it("an .ndjson file gives the same records as standard input; all good lines exit 0 and print nothing on stderr", async () => {
+  it("an .ndjson file gives the same records as standard input; CRLF and a byte-order mark are read; all good lines exit 0, nothing on stderr", async () => {
     const dir = mkdtempSync(join(tmpdir(), "stoke-batch-"));
     const file = join(dir, "gases.ndjson");
     writeFileSync(file, NDJSON);
     expect((await run(["properties", "--input", file])).stdout).toBe((await run(["properties", "--ndjson"], NDJSON)).stdout);
     const good = join(dir, "good.jsonl");
-    writeFileSync(good, `${LINES[0]}\r\n${LINES[4]}\r\n`);
+    writeFileSync(good, `\uFEFF${LINES[0]}\r\n${LINES[4]}\r\n`);
     const r = await run(["properties", "--input", good]);
     expect(r.exitCode).toBe(0);
     expect(r.stderr).toBe("");
