@@ -1,7 +1,7 @@
 /** `stoke properties` and `stoke flame`: the combustion engine, one input at a time. */
 import { computeFuelProperties, type FuelProperties } from "../combustion/properties";
-import { flameTemperature } from "../combustion/flame";
-import { flameRequestSchema, propertiesRequestSchema } from "../schemas/combustion";
+import { flameTemperature, type FlameResult } from "../combustion/flame";
+import { flameRequestSchema, propertiesRequestSchema, type FlameRequest } from "../schemas/combustion";
 import { normaliseOxidizer } from "../combustion/stoichiometry";
 import { kelvinToCelsius } from "../units/constants";
 import { defineCommand, type CsvTable } from "./commands";
@@ -60,25 +60,38 @@ export const propertiesCommand = defineCommand({
   },
 });
 
+type FlameOutput = ReturnType<typeof flameOutput>;
+
+function flameOutput(req: FlameRequest, r: FlameResult) {
+  return {
+    temperatureK: r.temperatureK,
+    temperatureC: kelvinToCelsius(r.temperatureK),
+    method: r.method,
+    methodLabel: r.methodLabel,
+    phi: r.phi,
+    lambda: r.lambda,
+    excessAirPercent: (r.lambda - 1) * 100,
+    pressurePa: r.pressurePa,
+    fuelTemperatureK: req.fuelTemperatureK,
+    oxidizerTemperatureK: req.oxidizerTemperatureK,
+    products: r.products,
+    ...(r.equilibrium
+      ? { iterations: r.equilibrium.iterations, elementBalanceRelError: r.equilibrium.elementBalanceRelError, enthalpyBalanceRelError: r.equilibrium.enthalpyBalanceRelError }
+      : {}),
+  };
+}
+
 export const flameCommand = defineCommand({
   compute(input) {
     const req = validate(flameRequestSchema, input);
-    const r = flameTemperature({ ...req, oxidizer: req.oxidizer ? normaliseOxidizer(req.oxidizer) : undefined });
+    return flameOutput(req, flameTemperature({ ...req, oxidizer: req.oxidizer ? normaliseOxidizer(req.oxidizer) : undefined }));
+  },
+  /** One row per charge; one column per product species (mole fraction in the wet products). */
+  csv(f: FlameOutput): CsvTable {
+    const species = Object.keys(f.products);
     return {
-      temperatureK: r.temperatureK,
-      temperatureC: kelvinToCelsius(r.temperatureK),
-      method: r.method,
-      methodLabel: r.methodLabel,
-      phi: r.phi,
-      lambda: r.lambda,
-      excessAirPercent: (r.lambda - 1) * 100,
-      pressurePa: r.pressurePa,
-      fuelTemperatureK: req.fuelTemperatureK,
-      oxidizerTemperatureK: req.oxidizerTemperatureK,
-      products: r.products,
-      ...(r.equilibrium
-        ? { iterations: r.equilibrium.iterations, elementBalanceRelError: r.equilibrium.elementBalanceRelError, enthalpyBalanceRelError: r.equilibrium.enthalpyBalanceRelError }
-        : {}),
+      header: ["method", "flame temperature K", "flame temperature °C", "phi (-)", "lambda (-)", "excess air %", "pressure Pa", "fuel temperature K", "oxidiser temperature K", ...species.map((k) => `${k} mole fraction (wet products)`)],
+      rows: [[f.method, f.temperatureK, f.temperatureC, f.phi, f.lambda, f.excessAirPercent, f.pressurePa, f.fuelTemperatureK, f.oxidizerTemperatureK, ...species.map((k) => f.products[k])]],
     };
   },
 });

@@ -155,6 +155,15 @@ describe("CSV output", () => {
     expect(at(rows[2], "error")).toMatch(/^not valid JSON/);
     expect(rows.every((x) => x.length === header.length)).toBe(true);
   });
+  it("flame: one row per charge, a column per product species of any row", async () => {
+    const lines = [{ fuel: { compound: "CH4" }, method: "complete" }, { fuel: { compound: "CH4" }, method: "equilibrium", phi: 0.9 }];
+    const r = await run(["flame", "--ndjson", "--format", "csv"], lines.map((x) => JSON.stringify(x)).join("\n"));
+    const [header, ...rows] = parse(r.stdout) as string[][];
+    expect(header.slice(0, 4)).toEqual(["line", "error", "method", "flame temperature K"]);
+    expect(rows.map((x) => x[header.indexOf("method")])).toEqual(["complete", "equilibrium"]);
+    expect(Number(rows[1][header.indexOf("NO mole fraction (wet products)")])).toBeGreaterThan(0);
+    expect(rows[0][header.indexOf("NO mole fraction (wet products)")]).toBe("");
+  });
   it("a single input writes one row without line and error columns", async () => {
     const r = await run(["properties", "--input", "-", "--format", "csv"], LINES[0]);
     const rows = parse(r.stdout) as string[][];
