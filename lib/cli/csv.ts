@@ -1,27 +1,29 @@
 /**
- * CSV output of the command line (RFC 4180 quoting by csv-stringify). Numbers are written to six
- * significant digits, an unknown figure as an empty cell (never 0). A text cell that a spreadsheet
- * would run as a formula (starting with = + - @, tab or carriage return, and not a number) is
- * prefixed with an apostrophe.
+ * CSV output of the command line, written by Stoke's one CSV writer (lib/csv.ts: RFC 4180 through
+ * csv-stringify, formula-like text neutralised). Numbers go out to six significant digits, an unknown
+ * figure as an empty cell (never 0).
  */
-import { stringify } from "csv-stringify/sync";
+import { writeCsv, type CsvCell } from "../csv";
 import type { CsvTable } from "./commands";
 
-const FORMULA_START = /^[=+\-@\t\r]/;
+const NUMBER = /^-?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i;
 
-export function csvCell(v: unknown): string {
-  if (v === null || v === undefined) return "";
-  if (typeof v === "number") return Number.isFinite(v) ? String(Number(v.toPrecision(6))) : "";
+/** One cell: numbers (also numbers read back from another table's text) to 6 significant digits. */
+export function csvCell(v: unknown): CsvCell {
+  if (v === null || v === undefined || v === "") return null;
+  if (typeof v === "number") return Number.isFinite(v) ? Number(v.toPrecision(6)) : null;
+  if (typeof v === "boolean") return v;
   const s = String(v);
-  if (FORMULA_START.test(s) && !Number.isFinite(Number(s))) return "'" + s;
-  return s;
+  return NUMBER.test(s) ? Number(Number(s).toPrecision(6)) : s;
 }
 
 /** Writes a table; every row is padded or cut to the header's width. */
 export function toCsv(table: CsvTable): string {
   const width = table.header.length;
-  const records = [table.header.map(csvCell), ...table.rows.map((r) => Array.from({ length: width }, (_, i) => csvCell(r[i])))];
-  return stringify(records, { record_delimiter: "\n" });
+  return writeCsv(
+    table.header,
+    table.rows.map((r) => Array.from({ length: width }, (_, i) => csvCell(r[i]))),
+  );
 }
 
 /**
