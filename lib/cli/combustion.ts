@@ -76,7 +76,11 @@ function flameOutput(req: FlameRequest, r: FlameResult) {
     oxidizerTemperatureK: req.oxidizerTemperatureK,
     products: r.products,
     ...(r.equilibrium
-      ? { iterations: r.equilibrium.iterations, elementBalanceRelError: r.equilibrium.elementBalanceRelError, enthalpyBalanceRelError: r.equilibrium.enthalpyBalanceRelError }
+      ? {
+          iterations: r.equilibrium.iterations,
+          elementBalanceRelError: r.equilibrium.elementBalanceRelError,
+          enthalpyBalanceRelError: r.equilibrium.enthalpyBalanceRelError,
+        }
       : {}),
   };
 }
@@ -90,8 +94,32 @@ export const flameCommand = defineCommand({
   csv(f: FlameOutput): CsvTable {
     const species = Object.keys(f.products);
     return {
-      header: ["method", "flame temperature K", "flame temperature °C", "phi (-)", "lambda (-)", "excess air %", "pressure Pa", "fuel temperature K", "oxidiser temperature K", ...species.map((k) => `${k} mole fraction (wet products)`)],
-      rows: [[f.method, f.temperatureK, f.temperatureC, f.phi, f.lambda, f.excessAirPercent, f.pressurePa, f.fuelTemperatureK, f.oxidizerTemperatureK, ...species.map((k) => f.products[k])]],
+      header: [
+        "method",
+        "flame temperature K",
+        "flame temperature °C",
+        "phi (-)",
+        "lambda (-)",
+        "excess air %",
+        "pressure Pa",
+        "fuel temperature K",
+        "oxidiser temperature K",
+        ...species.map((k) => `${k} mole fraction (wet products)`),
+      ],
+      rows: [
+        [
+          f.method,
+          f.temperatureK,
+          f.temperatureC,
+          f.phi,
+          f.lambda,
+          f.excessAirPercent,
+          f.pressurePa,
+          f.fuelTemperatureK,
+          f.oxidizerTemperatureK,
+          ...species.map((k) => f.products[k]),
+        ],
+      ],
     };
   },
 });

@@ -63,14 +63,17 @@ export function commonOptions(spec: Pick<CommandSpec, "csv" | "folder">): Option
       name: "format",
       value: formats.join("|"),
       choices: formats,
-      help: "output: json (single input, default), ndjson (batch, default: one record per input line)" + (spec.csv ? ", csv (one row per input, units in the headers)" : ""),
+      help:
+        "output: json (single input, default), ndjson (batch, default: one record per input line)" +
+        (spec.csv ? ", csv (one row per input, units in the headers)" : ""),
     },
     { name: "no-progress", help: "no progress line on standard error (it is shown only when standard error is a terminal)" },
     { name: "help", help: "this help" },
   ];
 }
 
-const FUEL = 'FUEL is {"composition": {"CH4": 0.9, "H2": 0.1}} (mole fractions), {"compound": "C2H5OH", "phase": "liquid"}, {"ultimate": {...}, ...} or {"blend": [{"fuel": FUEL, "share": 0.8}, ...], "basis": "volume|mass|energy"}';
+const FUEL =
+  'FUEL is {"composition": {"CH4": 0.9, "H2": 0.1}} (mole fractions), {"compound": "C2H5OH", "phase": "liquid"}, {"ultimate": {...}, ...} or {"blend": [{"fuel": FUEL, "share": 0.8}, ...], "basis": "volume|mass|energy"}';
 
 export const COMMANDS: readonly CommandSpec[] = [
   {
@@ -92,7 +95,8 @@ export const COMMANDS: readonly CommandSpec[] = [
     name: "flame",
     summary: "adiabatic flame temperature and products (method: mean-cp | complete | equilibrium)",
     input: `{"fuel": FUEL, "phi": 1, "oxidizer": {"O2": 0.21, "N2": 0.79}, "fuelTemperatureK": 298.15, "oxidizerTemperatureK": 298.15, "pressurePa": 101325, "method": "equilibrium"}; excessAirPercent or flueO2DryPercent may replace phi; all but fuel optional (dry air, φ = 1). ${FUEL}`,
-    output: "temperatureK, temperatureC, method, phi, lambda, products (mole fractions) and the solver's balances; with --format csv one row per input, a column per product species",
+    output:
+      "temperatureK, temperatureC, method, phi, lambda, products (mole fractions) and the solver's balances; with --format csv one row per input, a column per product species",
     csv: true,
     folder: false,
     options: [],
@@ -107,14 +111,26 @@ export const COMMANDS: readonly CommandSpec[] = [
     name: "evaluate",
     summary: "a whole study: plant, baseline and candidates, ranked, with fit checks and audit trail",
     input: "a study file (plant, baseline, scenarios, prices; see seed/example-study.json in the source)",
-    output: "the ranked study; with --format csv the table chosen by --table (batch: one block of rows per study, named in the first column)",
+    output:
+      "the ranked study; with --format csv the table chosen by --table (batch: one block of rows per study, named in the first column)",
     csv: true,
     folder: true,
-    options: [{ name: "table", value: "scenarios|checks|sweep", choices: ["scenarios", "checks", "sweep"], help: "which table --format csv writes (default scenarios)" }],
+    options: [
+      {
+        name: "table",
+        value: "scenarios|checks|sweep",
+        choices: ["scenarios", "checks", "sweep"],
+        help: "which table --format csv writes (default scenarios)",
+      },
+    ],
     checkOptions(o) {
       if (o.table !== undefined && o.format !== "csv") throw new UsageError("--table applies to --format csv only");
     },
-    examples: ["stoke evaluate --input study.json", "stoke evaluate --input study.json --format csv --table checks", "stoke evaluate --input studies/ --format csv > portfolio.csv"],
+    examples: [
+      "stoke evaluate --input study.json",
+      "stoke evaluate --input study.json --format csv --table checks",
+      "stoke evaluate --input studies/ --format csv > portfolio.csv",
+    ],
     load: async () => (await import("./evaluate")).evaluateCommand,
   },
 ];

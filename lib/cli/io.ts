@@ -87,7 +87,12 @@ export function describeFailure(e: unknown, debug = false): Failure {
       return { kind: "input", field, message: oneLine(`${field}: unknown field${more}`), exitCode: EXIT_BAD_INPUT };
     }
     const field = issue ? zodPath(issue, []) : "";
-    return { kind: "input", field, message: oneLine(`${field || "(input)"}: ${issue?.message ?? "invalid input"}`), exitCode: EXIT_BAD_INPUT };
+    return {
+      kind: "input",
+      field,
+      message: oneLine(`${field || "(input)"}: ${issue?.message ?? "invalid input"}`),
+      exitCode: EXIT_BAD_INPUT,
+    };
   }
   // Transitional, until lib/fuels, lib/combustion and lib/study throw only the lib/errors.ts errors:
   // their own field-carrying input errors are input errors, and the equilibrium solver's own
@@ -185,7 +190,9 @@ export function parseJson(text: string, what = "input"): unknown {
   try {
     return JSON.parse(text);
   } catch (e) {
-    throw new UsageError(`${what}: not valid JSON (${(e as Error).message})${looksLikeNdjson(text) ? "; for one input per line use --ndjson" : ""}`);
+    throw new UsageError(
+      `${what}: not valid JSON (${(e as Error).message})${looksLikeNdjson(text) ? "; for one input per line use --ndjson" : ""}`,
+    );
   }
 }
 

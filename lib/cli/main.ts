@@ -43,7 +43,11 @@ export async function main(argv: readonly string[], io: CliIo): Promise<number> 
 }
 
 /** The command line in memory: `stdin` is all of standard input. For tests. */
-export async function runCli(argv: readonly string[], stdin: () => string, opts: { errIsTTY?: boolean; debug?: boolean } = {}): Promise<CliResult> {
+export async function runCli(
+  argv: readonly string[],
+  stdin: () => string,
+  opts: { errIsTTY?: boolean; debug?: boolean } = {},
+): Promise<CliResult> {
   const out = new StringSink();
   const err = new StringSink();
   const io: CliIo = {

@@ -54,7 +54,9 @@ function parseFor(spec: CommandSpec, argv: readonly string[]): ParsedOptions {
 function modeOf(spec: CommandSpec, o: ParsedOptions): Mode {
   const input = typeof o.input === "string" ? o.input : undefined;
   if (input === undefined && !o.ndjson) {
-    throw new UsageError(`--input is required (a JSON file, - for standard input${spec.folder ? ", a folder" : ""}, or an .ndjson file), or --ndjson to read one input per line from standard input`);
+    throw new UsageError(
+      `--input is required (a JSON file, - for standard input${spec.folder ? ", a folder" : ""}, or an .ndjson file), or --ndjson to read one input per line from standard input`,
+    );
   }
   if (input !== undefined && input !== "-") {
     let dir = false;
@@ -68,7 +70,8 @@ function modeOf(spec: CommandSpec, o: ParsedOptions): Mode {
       return { kind: "folder", path: input };
     }
   }
-  if (o.ndjson || (input !== undefined && /\.(ndjson|jsonl)$/i.test(input))) return { kind: "lines", path: input === "-" ? undefined : input };
+  if (o.ndjson || (input !== undefined && /\.(ndjson|jsonl)$/i.test(input)))
+    return { kind: "lines", path: input === "-" ? undefined : input };
   return { kind: "single", input: input! };
 }
 
@@ -90,7 +93,13 @@ function single(impl: CommandImpl, o: ParsedOptions, input: string, stdin: () =>
 }
 
 /** One input, synchronously; batch options are refused. */
-export function runSingleSync(spec: CommandSpec, impl: CommandImpl, argv: readonly string[], stdin: () => string, debug = false): CliResult {
+export function runSingleSync(
+  spec: CommandSpec,
+  impl: CommandImpl,
+  argv: readonly string[],
+  stdin: () => string,
+  debug = false,
+): CliResult {
   try {
     const o = parseFor(spec, argv);
     if (o.help) return { stdout: helpFor(spec), stderr: "", exitCode: EXIT_OK };
@@ -166,7 +175,13 @@ class Progress {
   }
 }
 
-async function batch(impl: CommandImpl, o: ParsedOptions, mode: Exclude<Mode, { kind: "single" }>, format: OutputFormat, io: CliIo): Promise<number> {
+async function batch(
+  impl: CommandImpl,
+  o: ParsedOptions,
+  mode: Exclude<Mode, { kind: "single" }>,
+  format: OutputFormat,
+  io: CliIo,
+): Promise<number> {
   let items: Iterable<Item> | AsyncIterable<Item>;
   let total: number | undefined;
   if (mode.kind === "folder") {
@@ -210,7 +225,13 @@ async function batch(impl: CommandImpl, o: ParsedOptions, mode: Exclude<Mode, { 
       failedKeys.push(keyValue);
       if (csv) csv.add([keyValue, f.message]);
       else {
-        const error = { kind: f.kind, field: f.field, message: f.message, ...(f.solver ? { solver: f.solver, diagnostics: f.diagnostics } : {}), ...(f.stack ? { stack: f.stack } : {}) };
+        const error = {
+          kind: f.kind,
+          field: f.field,
+          message: f.message,
+          ...(f.solver ? { solver: f.solver, diagnostics: f.diagnostics } : {}),
+          ...(f.stack ? { stack: f.stack } : {}),
+        };
         const w = io.out.write(JSON.stringify({ ...item.key, ok: false, error }) + "\n");
         if (w) await w;
       }

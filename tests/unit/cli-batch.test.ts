@@ -15,7 +15,11 @@ import { runCommand } from "../../lib/cli/run";
 import { StringSink } from "../../lib/cli/io";
 
 const run = (args: string[], stdin = "", errIsTTY = false) => runCli(args, () => stdin, { errIsTTY });
-const records = (stdout: string) => stdout.trim().split("\n").map((l) => JSON.parse(l));
+const records = (stdout: string) =>
+  stdout
+    .trim()
+    .split("\n")
+    .map((l) => JSON.parse(l));
 
 // ISO 6976:2016, Table 3: methane, superior calorific value at 25 °C, 890.58 kJ/mol.
 const METHANE_GCV_25C_kJ_per_mol = 890.58;
@@ -60,7 +64,15 @@ describe("NDJSON batch", () => {
     expect(records(r.stdout).map((x) => x.line)).toEqual([1, 2]);
   });
   it("flame takes batches too", async () => {
-    const r = await run(["flame", "--ndjson"], [{ fuel: { compound: "CH4" }, method: "complete" }, { fuel: { compound: "CH4" }, phi: 0 }].map((x) => JSON.stringify(x)).join("\n"));
+    const r = await run(
+      ["flame", "--ndjson"],
+      [
+        { fuel: { compound: "CH4" }, method: "complete" },
+        { fuel: { compound: "CH4" }, phi: 0 },
+      ]
+        .map((x) => JSON.stringify(x))
+        .join("\n"),
+    );
     const recs = records(r.stdout);
     expect(recs[0].ok).toBe(true);
     expect(recs[1].error.field).toBe("phi");
@@ -146,7 +158,15 @@ describe("CSV output", () => {
     const r = await run(["properties", "--ndjson", "--format", "csv"], NDJSON);
     const [header, ...rows] = parse(r.stdout) as string[][];
     expect(header.slice(0, 2)).toEqual(["line", "error"]);
-    for (const h of ["HHV MJ/kg", "HHV kJ/mol", "Wobbe gross MJ/m3 (metering reference)", "CO2 kg/GJ LHV", "water dew point °C", "metering reference °C"]) expect(header).toContain(h);
+    for (const h of [
+      "HHV MJ/kg",
+      "HHV kJ/mol",
+      "Wobbe gross MJ/m3 (metering reference)",
+      "CO2 kg/GJ LHV",
+      "water dew point °C",
+      "metering reference °C",
+    ])
+      expect(header).toContain(h);
     expect(rows.map((x) => x[0])).toEqual(["1", "2", "4", "5"]);
     const at = (row: string[], h: string) => row[header.indexOf(h)];
     expect(within0_02Percent(Number(at(rows[0], "HHV kJ/mol")), METHANE_GCV_25C_kJ_per_mol)).toBe(true);
@@ -156,7 +176,10 @@ describe("CSV output", () => {
     expect(rows.every((x) => x.length === header.length)).toBe(true);
   });
   it("flame: one row per charge, a column per product species of any row", async () => {
-    const lines = [{ fuel: { compound: "CH4" }, method: "complete" }, { fuel: { compound: "CH4" }, method: "equilibrium", phi: 0.9 }];
+    const lines = [
+      { fuel: { compound: "CH4" }, method: "complete" },
+      { fuel: { compound: "CH4" }, method: "equilibrium", phi: 0.9 },
+    ];
     const r = await run(["flame", "--ndjson", "--format", "csv"], lines.map((x) => JSON.stringify(x)).join("\n"));
     const [header, ...rows] = parse(r.stdout) as string[][];
     expect(header.slice(0, 4)).toEqual(["line", "error", "method", "flame temperature K"]);
@@ -175,7 +198,9 @@ describe("CSV output", () => {
     const r = await run(["properties", "--input", "-", "--format", "csv"], JSON.stringify({ fuel: { composition: { CH4: 1 }, name } }));
     const [header, row] = parse(r.stdout) as string[][];
     expect(row[header.indexOf("fuel")]).toBe("'" + name);
-    const [, cells] = parse(toCsv({ header: ["a", "b", "c", "d", "e"], rows: [[-3.25, "-3.25", "@SUM(A1)", Number.NaN, null]] })) as string[][];
+    const [, cells] = parse(
+      toCsv({ header: ["a", "b", "c", "d", "e"], rows: [[-3.25, "-3.25", "@SUM(A1)", Number.NaN, null]] }),
+    ) as string[][];
     expect(cells).toEqual(["-3.25", "-3.25", "'@SUM(A1)", "", ""]);
   });
 });

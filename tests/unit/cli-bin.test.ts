@@ -8,7 +8,8 @@ import { readFileSync } from "node:fs";
 import { join } from "node:path";
 import { BUILD_FILE, buildCli, OUT_FILE, ROOT } from "../../lib/cli/launcher/build.mjs";
 
-const node = (file: string, args: string[], input = "") => spawnSync(process.execPath, [file, ...args], { input, encoding: "utf8", cwd: ROOT, env: { ...process.env, NODE_OPTIONS: "" } });
+const node = (file: string, args: string[], input = "") =>
+  spawnSync(process.execPath, [file, ...args], { input, encoding: "utf8", cwd: ROOT, env: { ...process.env, NODE_OPTIONS: "" } });
 
 beforeAll(async () => {
   await buildCli();
@@ -26,7 +27,10 @@ describe("the compiled command line", () => {
     const pkg = JSON.parse(readFileSync(join(ROOT, "package.json"), "utf8"));
     expect(node(OUT_FILE, ["--version"]).stdout).toBe(`stoke ${pkg.version}\n`);
     const r = node(OUT_FILE, ["properties", "--ndjson"], '{"fuel":{"composition":{"CH4":1}}}\n{"fuel":{"composition":{"CH4":2}}}\n');
-    const recs = r.stdout.trim().split("\n").map((l) => JSON.parse(l));
+    const recs = r.stdout
+      .trim()
+      .split("\n")
+      .map((l) => JSON.parse(l));
     // ISO 6976:2016, Table 3: methane, superior calorific value at 25 °C, 890.58 kJ/mol (±0.02 %).
     expect(Math.abs(recs[0].result.hhv.kJ_per_mol - 890.58)).toBeLessThanOrEqual(0.18);
     expect(recs[1]).toMatchObject({ line: 2, ok: false, error: { field: "fuel.composition.CH4" } });
@@ -39,7 +43,12 @@ describe("the compiled command line", () => {
     expect(r.status).toBe(2);
     expect(r.stderr).toMatch(/^stoke: fuel\.compound: unknown species "C99".*\n$/);
     const b = node(bin, ["flame", "--ndjson"], '{"fuel":{"compound":"CH4"},"method":"complete"}\n{"fuel":{"compound":"CH4"},"phi":-1}\n');
-    expect(b.stdout.trim().split("\n").map((l) => JSON.parse(l).ok)).toEqual([true, false]);
+    expect(
+      b.stdout
+        .trim()
+        .split("\n")
+        .map((l) => JSON.parse(l).ok),
+    ).toEqual([true, false]);
     expect(b.status).toBe(2);
   });
 });

@@ -14,8 +14,17 @@ const run = (args: string[], stdin = "", debug = false) => runCli(args, () => st
 
 describe("describeFailure: one mapping from error to exit status", () => {
   it("input and infeasible-charge errors exit 2 and keep their field", () => {
-    expect(describeFailure(new InputError("phi", "must be > 0"))).toMatchObject({ kind: "input", field: "phi", exitCode: 2, message: "phi: must be > 0" });
-    expect(describeFailure(new InfeasibleChargeError("phi", "too little oxygen", "too-little-oxygen"))).toMatchObject({ kind: "infeasible", field: "phi", exitCode: 2 });
+    expect(describeFailure(new InputError("phi", "must be > 0"))).toMatchObject({
+      kind: "input",
+      field: "phi",
+      exitCode: 2,
+      message: "phi: must be > 0",
+    });
+    expect(describeFailure(new InfeasibleChargeError("phi", "too little oxygen", "too-little-oxygen"))).toMatchObject({
+      kind: "infeasible",
+      field: "phi",
+      exitCode: 2,
+    });
   });
   it("a non-converged solver exits 1 with its name and diagnostics", () => {
     const f = describeFailure(new NotConvergedError("equilibrium", "no verified solution in 200 iterations", { iterations: 200 }));
@@ -24,11 +33,22 @@ describe("describeFailure: one mapping from error to exit status", () => {
   });
   it("usage errors and zod errors exit 2; a zod error names the path as written", () => {
     expect(describeFailure(new UsageError("--format must be one of json, csv"))).toMatchObject({ kind: "usage", exitCode: 2 });
-    const zerr = z.object({ fuel: z.object({ composition: z.record(z.string(), z.number().max(1, "must be ≤ 1")) }) }).safeParse({ fuel: { composition: { CH4: 2 } } }).error;
-    expect(describeFailure(zerr)).toMatchObject({ kind: "input", field: "fuel.composition.CH4", exitCode: 2, message: "fuel.composition.CH4: must be ≤ 1" });
+    const zerr = z
+      .object({ fuel: z.object({ composition: z.record(z.string(), z.number().max(1, "must be ≤ 1")) }) })
+      .safeParse({ fuel: { composition: { CH4: 2 } } }).error;
+    expect(describeFailure(zerr)).toMatchObject({
+      kind: "input",
+      field: "fuel.composition.CH4",
+      exitCode: 2,
+      message: "fuel.composition.CH4: must be ≤ 1",
+    });
   });
   it("a fuel-definition error of lib/fuels is an input error naming its field", () => {
-    expect(describeFailure(new FuelDefinitionError("fuel.compound", 'unknown species "C99"'))).toMatchObject({ kind: "input", field: "fuel.compound", exitCode: 2 });
+    expect(describeFailure(new FuelDefinitionError("fuel.compound", 'unknown species "C99"'))).toMatchObject({
+      kind: "input",
+      field: "fuel.compound",
+      exitCode: 2,
+    });
   });
   it("anything else is an internal error (70), one line, the stack only when debugging", () => {
     for (const e of [new RangeError("Maximum call stack size exceeded"), new TypeError("x is undefined"), "a string"]) {

@@ -29,8 +29,13 @@ export const cacheFileOf = (buildId) => join(OUT_DIR, `stoke-${buildId}.v8cache`
 const zodEnglishOnly = {
   name: "zod-english-only",
   setup(b) {
-    b.onResolve({ filter: /\/locales\/index\.js$/ }, (a) => (/[\\/]node_modules[\\/]zod[\\/]/.test(a.importer) ? { path: "zod-locales-en", namespace: "stoke" } : undefined));
-    b.onLoad({ filter: /^zod-locales-en$/, namespace: "stoke" }, () => ({ contents: 'export { default as en } from "zod/v4/locales/en.js";', resolveDir: ROOT }));
+    b.onResolve({ filter: /\/locales\/index\.js$/ }, (a) =>
+      /[\\/]node_modules[\\/]zod[\\/]/.test(a.importer) ? { path: "zod-locales-en", namespace: "stoke" } : undefined,
+    );
+    b.onLoad({ filter: /^zod-locales-en$/, namespace: "stoke" }, () => ({
+      contents: 'export { default as en } from "zod/v4/locales/en.js";',
+      resolveDir: ROOT,
+    }));
   },
 };
 
@@ -70,7 +75,9 @@ export async function buildCli() {
   });
   // The launcher runs the bundle as a vm.Script, where Node 20 allows no import(): every module
   // must be bundled or statically required.
-  const dynamic = Object.values(result.metafile.outputs).flatMap((o) => o.imports.filter((i) => i.kind === "dynamic-import" && i.external).map((i) => i.path));
+  const dynamic = Object.values(result.metafile.outputs).flatMap((o) =>
+    o.imports.filter((i) => i.kind === "dynamic-import" && i.external).map((i) => i.path),
+  );
   if (dynamic.length) throw new Error(`the command line must import these statically (it runs as a script): ${dynamic.join(", ")}`);
   const inputs = Object.keys(result.metafile.inputs);
   const bad = inputs.filter((f) => FORBIDDEN.some((re) => re.test(f)));
@@ -82,7 +89,8 @@ export async function buildCli() {
   const id = createHash("sha256").update(js.contents).digest("hex").slice(0, 16);
   // The id closes the bundle: the launcher names the compiled-code cache by the source it runs.
   const text = `${js.text}// stoke-build ${id}\n`;
-  for (const f of readdirSync(OUT_DIR)) if (/^stoke-[0-9a-f]+\.v8cache$/.test(f) && f !== basename(cacheFileOf(id))) rmSync(join(OUT_DIR, f), { force: true });
+  for (const f of readdirSync(OUT_DIR))
+    if (/^stoke-[0-9a-f]+\.v8cache$/.test(f) && f !== basename(cacheFileOf(id))) rmSync(join(OUT_DIR, f), { force: true });
   if (map) writeAtomic(map.path, map.contents);
   // The bundle before its description: a reader that sees the new id finds the new bundle.
   writeAtomic(OUT_FILE, text);
@@ -116,7 +124,8 @@ if (process.argv[1] && fileURLToPath(import.meta.url) === process.argv[1]) {
   linkBin();
   try {
     const r = await buildCli();
-    if (!process.argv.includes("--quiet")) console.log(`stoke: built dist/cli/stoke.cjs (${(r.bytes / 1024).toFixed(0)} KiB from ${r.inputs} files)`);
+    if (!process.argv.includes("--quiet"))
+      console.log(`stoke: built dist/cli/stoke.cjs (${(r.bytes / 1024).toFixed(0)} KiB from ${r.inputs} files)`);
   } catch (e) {
     if (e?.code === "ERR_MODULE_NOT_FOUND" && String(e.message).includes("esbuild")) {
       // An install without dev dependencies: the launcher runs the TypeScript through tsx instead.

@@ -69,7 +69,8 @@ async function rebuildOrFallBack() {
     const { buildCli } = await import(pathToFileURL(join(__dirname, "build.mjs")).href);
     await buildCli();
   } catch (e) {
-    if (process.env.STOKE_DEBUG === "1") console.error(`stoke: cannot build dist/cli/stoke.cjs (${e?.message ?? e}); running the source through tsx`);
+    if (process.env.STOKE_DEBUG === "1")
+      console.error(`stoke: cannot build dist/cli/stoke.cjs (${e?.message ?? e}); running the source through tsx`);
     const { register } = await import("tsx/esm/api");
     register();
     await import(pathToFileURL(join(root, "lib", "cli", "entry.ts")).href);
