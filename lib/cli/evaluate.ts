@@ -1,32 +1,33 @@
 /**
- * `stoke evaluate --input study.json [--format json|csv] [--table scenarios|checks|sweep]`
- * Evaluates a self-contained study file: plant, baseline, candidates, ranking, fit checks,
- * sensitivity, hydrogen sweep and audit trail. Bad input: exit 2 with one line naming the field.
+ * `stoke evaluate`: a self-contained study file — plant, baseline, candidates, ranking, fit checks,
+ * sensitivity, hydrogen sweep and audit trail. `--format csv --table scenarios|checks|sweep`.
  */
+import { parse } from "csv-parse/sync";
 import { studySchema } from "../schemas/study";
-import { evaluateStudy } from "../study/evaluate";
-import { StudyInputError } from "../study/errors";
-import { FuelDefinitionError } from "../fuels/resolve";
-import { CSV_TABLES, studyResultToCsv, type CsvTable } from "../study/csv";
-import { ok, parseFlags, readJsonInput, usageFailure, validate, UsageError, type CliResult } from "./io";
+import { evaluateStudy, type StudyResult } from "../study/evaluate";
+import { studyResultToCsv, type CsvTable as StudyCsvTable } from "../study/csv";
+import { defineCommand, findCommand } from "./commands";
+import { validate, type CliResult, type ParsedOptions } from "./io";
+import { runSingleSync } from "./run";
 
-const FORMATS = ["json", "csv"] as const;
+const tableOf = (o: ParsedOptions) => (typeof o.table === "string" ? o.table : "scenarios") as StudyCsvTable;
 
+export const evaluateCommand = defineCommand({
+  compute(input): StudyResult {
+    return evaluateStudy(validate(studySchema, input));
+  },
+  singleCsv(result: StudyResult, o) {
+    return studyResultToCsv(result, tableOf(o));
+  },
+  csv(result: StudyResult, o) {
+    // The study's own CSV tables (lib/study/csv.ts) are the one definition of these columns; read
+    // back, they become rows of the batch table.
+    const [header, ...rows] = parse(studyResultToCsv(result, tableOf(o)), { relax_quotes: false }) as string[][];
+    return { header, rows };
+  },
+});
+
+/** One study from the command line, synchronously (also used by the study tests). */
 export function runEvaluate(argv: readonly string[], stdin: () => string): CliResult {
-  try {
-    const flags = parseFlags(argv, ["input", "format", "table"]);
-    const format = (flags.format ?? "json") as (typeof FORMATS)[number];
-    if (!FORMATS.includes(format)) throw new UsageError(`--format must be one of ${FORMATS.join(", ")} (got "${flags.format}")`);
-    const tableName = (flags.table ?? "scenarios") as CsvTable;
-    if (!CSV_TABLES.includes(tableName)) throw new UsageError(`--table must be one of ${CSV_TABLES.join(", ")} (got "${flags.table}")`);
-    if (flags.table !== undefined && format !== "csv") throw new UsageError("--table applies to --format csv only");
-    const study = validate(studySchema, readJsonInput(flags.input, stdin));
-    const result = evaluateStudy(study);
-    if (format === "csv") return { stdout: studyResultToCsv(result, tableName), stderr: "", exitCode: 0 };
-    return ok(result);
-  } catch (e) {
-    if (e instanceof UsageError) return usageFailure(e.message);
-    if (e instanceof StudyInputError || e instanceof FuelDefinitionError) return usageFailure(e.message);
-    throw e;
-  }
+  return runSingleSync(findCommand("evaluate")!, evaluateCommand, argv, stdin);
 }

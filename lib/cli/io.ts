@@ -1,7 +1,20 @@
-/** Shared plumbing of the command line: argument parsing, input reading, error lines. */
+/**
+ * Shared plumbing of the command line: option parsing, input reading, validation, output sinks —
+ * and the one place where an error becomes an exit status and a message.
+ *
+ * Exit status (single input and batch alike):
+ *   0  success
+ *   1  a solver did not converge (NotConvergedError); nothing is printed as a number
+ *   2  bad input: usage, JSON, schema (zod) and lib InputError / InfeasibleChargeError
+ *  70  internal error: a bug in Stoke (EX_SOFTWARE of sysexits.h); stack with STOKE_DEBUG=1
+ * A batch run exits with the most serious status of its inputs: 70 over 2 over 1 over 0.
+ */
 import { readFileSync } from "node:fs";
-import type { z } from "zod";
-import { firstIssueLine } from "../schemas/fuel";
+import { z } from "zod";
+import { NotConvergedError, StokeError, type Diagnostics } from "../errors";
+import { FuelDefinitionError } from "../fuels/resolve";
+import { StudyInputError } from "../study/errors";
+import { EquilibriumInfeasibleError, EquilibriumNotConvergedError } from "../combustion/equilibrium";
 
 export interface CliResult {
   stdout: string;
@@ -9,50 +22,264 @@ export interface CliResult {
   exitCode: number;
 }
 
-export class UsageError extends Error {}
+/** Bad command line: unknown command or option, missing value, unreadable input. */
+export class UsageError extends Error {
+  constructor(message: string) {
+    super(message);
+    this.name = "UsageError";
+  }
+}
 
-/** Parses `--name value` pairs; flags without a value are rejected. */
-export function parseFlags(argv: readonly string[], allowed: readonly string[]): Record<string, string> {
-  const out: Record<string, string> = {};
+export const EXIT_OK = 0;
+export const EXIT_NOT_CONVERGED = 1;
+export const EXIT_BAD_INPUT = 2;
+export const EXIT_INTERNAL = 70;
+
+export type FailureKind = "usage" | "input" | "infeasible" | "not-converged" | "internal";
+
+/** An error as the command line reports it. */
+export interface Failure {
+  kind: FailureKind;
+  /** Dotted field path as the user wrote it (`fuel.composition.CH4`); "" when no single field is to blame. */
+  field: string;
+  /** One line. */
+  message: string;
+  exitCode: number;
+  solver?: string;
+  diagnostics?: Diagnostics;
+  /** Only with STOKE_DEBUG=1 (internal errors). */
+  stack?: string;
+}
+
+function oneLine(s: string): string {
+  return s.replace(/\s*\n\s*/g, " ").trim();
+}
+
+function zodPath(issue: z.core.$ZodIssue, suffix: readonly string[]): string {
+  return [...issue.path.map(String), ...suffix].join(".");
+}
+
+/**
+ * The error mapping of the command line: every error that reaches the edge goes through here.
+ * `debug` (STOKE_DEBUG=1) adds the stack of internal errors.
+ */
+export function describeFailure(e: unknown, debug = false): Failure {
+  if (e instanceof NotConvergedError) {
+    return {
+      kind: e.kind,
+      field: e.field,
+      message: oneLine(`${e.solver} did not converge: ${e.message}`),
+      exitCode: EXIT_NOT_CONVERGED,
+      solver: e.solver,
+      diagnostics: e.diagnostics,
+    };
+  }
+  if (e instanceof StokeError) {
+    return { kind: e.kind, field: e.field, message: oneLine(e.message), exitCode: EXIT_BAD_INPUT };
+  }
+  if (e instanceof UsageError) return { kind: "usage", field: "", message: oneLine(e.message), exitCode: EXIT_BAD_INPUT };
+  if (e instanceof z.core.$ZodError) {
+    const issue = e.issues[0];
+    if (issue?.code === "unrecognized_keys") {
+      // Name the unknown field itself, not the object holding it.
+      const field = zodPath(issue, issue.keys.slice(0, 1));
+      const more = issue.keys.length > 1 ? ` (also ${issue.keys.slice(1).join(", ")})` : "";
+      return { kind: "input", field, message: oneLine(`${field}: unknown field${more}`), exitCode: EXIT_BAD_INPUT };
+    }
+    const field = issue ? zodPath(issue, []) : "";
+    return {
+      kind: "input",
+      field,
+      message: oneLine(`${field || "(input)"}: ${issue?.message ?? "invalid input"}`),
+      exitCode: EXIT_BAD_INPUT,
+    };
+  }
+  // Transitional, until lib/fuels, lib/combustion and lib/study throw only the lib/errors.ts errors:
+  // their own field-carrying input errors are input errors, and the equilibrium solver's own
+  // errors keep their meaning. Delete this block when those classes are gone.
+  if (e instanceof FuelDefinitionError || e instanceof StudyInputError) {
+    return { kind: "input", field: e.field, message: oneLine(e.message), exitCode: EXIT_BAD_INPUT };
+  }
+  if (e instanceof EquilibriumInfeasibleError) {
+    return { kind: "infeasible", field: "", message: oneLine(e.message), exitCode: EXIT_BAD_INPUT };
+  }
+  if (e instanceof EquilibriumNotConvergedError) {
+    return {
+      kind: "not-converged",
+      field: "",
+      message: oneLine(`equilibrium did not converge: ${e.message}`),
+      exitCode: EXIT_NOT_CONVERGED,
+      solver: "equilibrium",
+      diagnostics: { iterations: e.iterations, lastResidual: e.lastResidual },
+    };
+  }
+  const err = e instanceof Error ? e : new Error(String(e));
+  return {
+    kind: "internal",
+    field: "",
+    message: oneLine(`internal error (a bug in Stoke; STOKE_DEBUG=1 shows where): ${err.name}: ${err.message}`),
+    exitCode: EXIT_INTERNAL,
+    ...(debug && err.stack ? { stack: err.stack } : {}),
+  };
+}
+
+/** The most serious of several exit statuses: internal over bad input over not converged over success. */
+export function worstExit(a: number, b: number): number {
+  const rank = (c: number) => (c === EXIT_INTERNAL ? 3 : c === EXIT_BAD_INPUT ? 2 : c === EXIT_NOT_CONVERGED ? 1 : 0);
+  return rank(b) > rank(a) ? b : a;
+}
+
+/** The stderr text of a failure: `stoke: <message>` and, with STOKE_DEBUG=1, the stack below. */
+export function failureText(f: Failure): string {
+  return `stoke: ${f.message}\n${f.stack ? f.stack + "\n" : ""}`;
+}
+
+/** A failure as a single-input command line reports it. */
+export function failureResult(e: unknown, debug = false): CliResult {
+  const f = describeFailure(e, debug);
+  return { stdout: "", stderr: failureText(f), exitCode: f.exitCode };
+}
+
+// ---------------------------------------------------------------------------------------------
+// Options
+
+export interface OptionSpec {
+  name: string;
+  /** Placeholder of the value (`FILE`); absent for a switch (`--ndjson`). */
+  value?: string;
+  choices?: readonly string[];
+  help: string;
+}
+
+export type ParsedOptions = Record<string, string | true>;
+
+/** Parses `--name value`, `--name=value` and switches against `specs`; anything else is a UsageError. */
+export function parseOptions(argv: readonly string[], specs: readonly OptionSpec[]): ParsedOptions {
+  const out: ParsedOptions = {};
   for (let i = 0; i < argv.length; i++) {
     const a = argv[i];
     if (!a.startsWith("--")) throw new UsageError(`unexpected argument "${a}"`);
-    const name = a.slice(2);
-    if (!allowed.includes(name)) throw new UsageError(`unknown option --${name} (options: ${allowed.map((o) => "--" + o).join(", ")})`);
-    const v = argv[i + 1];
-    if (v === undefined || (v.startsWith("--") && v !== "-")) throw new UsageError(`--${name} needs a value`);
+    const eq = a.indexOf("=");
+    const name = eq > 0 ? a.slice(2, eq) : a.slice(2);
+    const spec = specs.find((s) => s.name === name);
+    if (!spec) throw new UsageError(`unknown option --${name} (options: ${specs.map((o) => "--" + o.name).join(", ")})`);
+    if (name in out) throw new UsageError(`--${name} given twice`);
+    if (!spec.value) {
+      if (eq > 0) throw new UsageError(`--${name} takes no value`);
+      out[name] = true;
+      continue;
+    }
+    let v: string | undefined;
+    if (eq > 0) v = a.slice(eq + 1);
+    else {
+      v = argv[i + 1];
+      if (v === undefined || (v.startsWith("--") && v !== "-")) throw new UsageError(`--${name} needs a value (${spec.value})`);
+      i++;
+    }
+    if (spec.choices && !spec.choices.includes(v)) throw new UsageError(`--${name} must be one of ${spec.choices.join(", ")} (got "${v}")`);
     out[name] = v;
-    i++;
   }
   return out;
+}
+
+// ---------------------------------------------------------------------------------------------
+// Input
+
+/** Parses one JSON text; a syntax error is a UsageError naming the input. */
+export function parseJson(text: string, what = "input"): unknown {
+  try {
+    return JSON.parse(text);
+  } catch (e) {
+    throw new UsageError(
+      `${what}: not valid JSON (${(e as Error).message})${looksLikeNdjson(text) ? "; for one input per line use --ndjson" : ""}`,
+    );
+  }
+}
+
+function looksLikeNdjson(text: string): boolean {
+  const lines = text.split("\n").filter((l) => l.trim() !== "");
+  if (lines.length < 2) return false;
+  try {
+    JSON.parse(lines[0]);
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+/** Drops a leading byte-order mark (files saved by some spreadsheet and Windows editors). */
+export function stripBom(text: string): string {
+  return text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
+}
+
+export function readTextFile(path: string): string {
+  try {
+    return stripBom(readFileSync(path, "utf8"));
+  } catch (e) {
+    throw new UsageError(`input: cannot read "${path}" (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
+  }
 }
 
 /** Reads and parses the JSON input named by --input (a path, or "-" for standard input). */
 export function readJsonInput(path: string | undefined, stdin: () => string): unknown {
   if (path === undefined) throw new UsageError("--input is required (a JSON file, or - for standard input)");
   let text: string;
-  try {
-    text = path === "-" ? stdin() : readFileSync(path, "utf8");
-  } catch (e) {
-    throw new UsageError(`input: cannot read "${path}" (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
-  }
-  try {
-    return JSON.parse(text);
-  } catch (e) {
-    throw new UsageError(`input: not valid JSON (${(e as Error).message})`);
-  }
+  if (path === "-") {
+    try {
+      text = stripBom(stdin());
+    } catch (e) {
+      throw new UsageError(`input: cannot read standard input (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
+    }
+  } else text = readTextFile(path);
+  return parseJson(text);
 }
 
-/** Validates with a zod schema; on failure throws a UsageError whose one line names the field. */
+/** Validates with a zod schema; a failure throws the ZodError, which the mapping above names by field. */
 export function validate<T>(schema: z.ZodType<T>, value: unknown): T {
   const r = schema.safeParse(value);
-  if (!r.success) throw new UsageError(firstIssueLine(r.error));
+  if (!r.success) throw r.error;
   return r.data;
+}
+
+// ---------------------------------------------------------------------------------------------
+// Output
+
+/** Where output goes: a string buffer in tests, a stream with back-pressure in the process. */
+export interface Sink {
+  write(s: string): void | Promise<void>;
+  flush(): void | Promise<void>;
+}
+
+export class StringSink implements Sink {
+  text = "";
+  write(s: string): void {
+    this.text += s;
+  }
+  flush(): void {}
+}
+
+/**
+ * Buffers writes to a Node stream (in chunks of `chunkChars`; 0 writes at once) and waits for
+ * 'drain' when the reader is slow.
+ */
+export class StreamSink implements Sink {
+  private buf = "";
+  constructor(
+    private readonly stream: NodeJS.WritableStream,
+    private readonly chunkChars = 1 << 16,
+  ) {}
+  write(s: string): void | Promise<void> {
+    this.buf += s;
+    if (this.buf.length >= this.chunkChars) return this.flush();
+  }
+  flush(): void | Promise<void> {
+    if (!this.buf) return;
+    const chunk = this.buf;
+    this.buf = "";
+    if (!this.stream.write(chunk)) return new Promise<void>((resolve) => this.stream.once("drain", () => resolve()));
+  }
 }
 
 export function ok(value: unknown): CliResult {
   return { stdout: JSON.stringify(value, null, 2) + "\n", stderr: "", exitCode: 0 };
-}
-export function usageFailure(message: string): CliResult {
-  return { stdout: "", stderr: `stoke: ${message.replace(/\s*\n\s*/g, " ")}\n`, exitCode: 2 };
 }

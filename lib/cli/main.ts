@@ -1,55 +1,65 @@
 /**
- * Stoke's command line: `stoke <command> --input FILE|-`, one JSON object on stdout.
- * Bad input: exit status 2 and one line on stderr naming the field.
+ * Stoke's command line: `stoke <command> [options]`. The commands are in `commands.ts`; how one
+ * is run (single input, batch, formats) in `run.ts`; the error mapping in `io.ts`. The process
+ * entry point is `entry.ts` (compiled to `dist/cli/stoke.mjs`).
  */
-import { readFileSync } from "node:fs";
-import { runFlame, runProperties } from "./combustion";
-import { UsageError, usageFailure, type CliResult } from "./io";
-import { FuelDefinitionError } from "../fuels/resolve";
-import { EquilibriumNotConvergedError } from "../combustion/equilibrium";
+import { COMMANDS, findCommand } from "./commands";
+import { helpFor, overview, version } from "./help";
+import { failureText, describeFailure, StringSink, UsageError, EXIT_BAD_INPUT, EXIT_OK, type CliResult } from "./io";
+import { runCommand, type CliIo } from "./run";
 
-const HELP = `usage: stoke <command> --input FILE   (FILE = - reads standard input)
-commands:
-  properties   heating values, Wobbe index, air demand, flue gas and CO2 factors of a fuel
-  flame        adiabatic flame temperature (method: mean-cp | complete | equilibrium)
-  evaluate     a whole study: plant, baseline and candidates, ranked (--format json|csv)
-`;
-
-type Command = (argv: readonly string[], stdin: () => string) => CliResult | Promise<CliResult>;
-
-async function loadEvaluate(): Promise<Command> {
-  const mod = await import("./evaluate");
-  return mod.runEvaluate as Command;
+function unknownCommand(name: string): UsageError {
+  return new UsageError(`unknown command "${name}" (commands: ${COMMANDS.map((c) => c.name).join(", ")}; stoke help)`);
 }
 
-export async function runCli(argv: readonly string[], stdin: () => string): Promise<CliResult> {
+/** Runs the command line with `io`; returns the exit status. */
+export async function main(argv: readonly string[], io: CliIo): Promise<number> {
   const [cmd, ...rest] = argv;
-  if (!cmd || cmd === "--help" || cmd === "help" || cmd === "-h") return { stdout: HELP, stderr: "", exitCode: cmd ? 0 : 2 };
-  const commands: Record<string, () => Promise<Command>> = {
-    properties: async () => runProperties,
-    flame: async () => runFlame,
-    evaluate: loadEvaluate,
-  };
-  const load = commands[cmd];
-  if (!load) return usageFailure(`unknown command "${cmd}" (commands: ${Object.keys(commands).join(", ")})`);
-  try {
-    return await (await load())(rest, stdin);
-  } catch (e) {
-    if (e instanceof UsageError || e instanceof FuelDefinitionError || e instanceof RangeError) return usageFailure(e.message);
-    if (e instanceof EquilibriumNotConvergedError) return { stdout: "", stderr: `stoke: equilibrium did not converge: ${e.message}\n`, exitCode: 1 };
-    throw e;
+  if (cmd === "--version" || cmd === "-V" || cmd === "version") {
+    await io.out.write(`stoke ${await version()}\n`);
+    await io.out.flush();
+    return EXIT_OK;
   }
+  if (!cmd || cmd === "--help" || cmd === "-h" || cmd === "help") {
+    const topic = cmd === "help" ? rest[0] : undefined;
+    const spec = topic ? findCommand(topic) : undefined;
+    if (topic && !spec) {
+      await io.err.write(failureText(describeFailure(unknownCommand(topic))));
+      await io.err.flush();
+      return EXIT_BAD_INPUT;
+    }
+    await (cmd ? io.out : io.err).write(spec ? helpFor(spec) : overview());
+    await io.out.flush();
+    await io.err.flush();
+    return cmd ? EXIT_OK : EXIT_BAD_INPUT;
+  }
+  const spec = findCommand(cmd);
+  if (!spec) {
+    await io.err.write(failureText(describeFailure(unknownCommand(cmd))));
+    await io.err.flush();
+    return EXIT_BAD_INPUT;
+  }
+  return runCommand(spec, rest, io);
 }
 
-const isMain = process.argv[1] && /cli[\\/]main\.ts$/.test(process.argv[1]);
-if (isMain) {
-  // A closed pipe (e.g. `| head`) ends the output quietly.
-  process.stdout.on("error", (e: NodeJS.ErrnoException) => {
-    if (e.code === "EPIPE") process.exit(0);
-    throw e;
-  });
-  const r = await runCli(process.argv.slice(2), () => readFileSync(0, "utf8"));
-  if (r.stdout) process.stdout.write(r.stdout);
-  if (r.stderr) process.stderr.write(r.stderr);
-  process.exitCode = r.exitCode;
+/** The command line in memory: `stdin` is all of standard input. For tests. */
+export async function runCli(
+  argv: readonly string[],
+  stdin: () => string,
+  opts: { errIsTTY?: boolean; debug?: boolean } = {},
+): Promise<CliResult> {
+  const out = new StringSink();
+  const err = new StringSink();
+  const io: CliIo = {
+    stdinText: stdin,
+    async *stdinLines() {
+      yield* stdin().split("\n");
+    },
+    out,
+    err,
+    errIsTTY: opts.errIsTTY ?? false,
+    debug: opts.debug ?? false,
+  };
+  const exitCode = await main(argv, io);
+  return { stdout: out.text, stderr: err.text, exitCode };
 }

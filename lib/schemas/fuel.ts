@@ -121,6 +121,25 @@ export const blendFuelSchema: z.ZodType<BlendFuelDefinition> = z.lazy(() =>
     }),
 ) as z.ZodType<BlendFuelDefinition>;
 
+/**
+ * The path (below the fuel) of the first blend nested deeper than MAX_BLEND_NESTING, found
+ * without recursion so that a malformed definition cannot exhaust the stack; undefined if none is.
+ */
+function tooDeepBlend(input: unknown): (string | number)[] | undefined {
+  const stack: [unknown, (string | number)[], number][] = [[input, [], 1]];
+  while (stack.length) {
+    const [node, path, depth] = stack.pop()!;
+    if (typeof node !== "object" || node === null || !("blend" in node)) continue;
+    if (depth > MAX_BLEND_NESTING) return [...path, "blend"];
+    const blend = (node as { blend: unknown }).blend;
+    if (!Array.isArray(blend)) continue;
+    blend.forEach((c, i) => {
+      if (typeof c === "object" && c !== null && "fuel" in c) stack.push([(c as { fuel: unknown }).fuel, [...path, "blend", i, "fuel"], depth + 1]);
+    });
+  }
+  return undefined;
+}
+
 const FORM_KEYS = ["composition", "compound", "ultimate", "blend"] as const;
 const formSchemas = {
   composition: () => compositionFuelSchema,
@@ -150,9 +169,18 @@ export const fuelDefinitionSchema: z.ZodType<FuelDefinition, unknown> = z.lazy((
       });
       return z.NEVER;
     }
+    const deep = present[0] === "blend" ? tooDeepBlend(input) : undefined;
+    if (deep) {
+      ctx.addIssue({ code: "custom", message: `blends nest at most ${MAX_BLEND_NESTING} levels deep`, path: deep });
+      return z.NEVER;
+    }
     const parsed = formSchemas[present[0]]().safeParse(input);
     if (!parsed.success) {
-      for (const issue of parsed.error.issues) ctx.addIssue({ code: "custom", message: issue.message, path: issue.path as PropertyKey[] });
+      for (const issue of parsed.error.issues) {
+        // An unknown key is named itself (`fuel.nme`), not the object that holds it.
+        if (issue.code === "unrecognized_keys") ctx.addIssue({ code: "custom", message: "unknown field", path: [...issue.path, issue.keys[0]] as PropertyKey[] });
+        else ctx.addIssue({ code: "custom", message: issue.message, path: issue.path as PropertyKey[] });
+      }
       return z.NEVER;
     }
     return parsed.data as FuelDefinition;

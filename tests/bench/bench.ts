@@ -12,6 +12,7 @@ const BENCHES: Bench[] = [
   { name: "properties", file: "./properties.bench.ts", fn: "benchProperties" },
   { name: "study", file: "./study.bench.ts", fn: "benchStudy" },
   { name: "pages", file: "./pages.bench.ts", fn: "benchPages" },
+  { name: "cli", file: "./cli.bench.ts", fn: "benchCli" },
 ];
 
 function median(v: number[]): number {
