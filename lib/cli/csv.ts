@@ -1,29 +1,26 @@
 /**
- * CSV output of the command line, written by Stoke's one CSV writer (lib/csv.ts: RFC 4180 through
- * csv-stringify, formula-like text neutralised). Numbers go out to six significant digits, an unknown
+ * CSV output of the command line, written by Stoke's one CSV writer (lib/formats/csv.ts: RFC 4180
+ * through csv-stringify, formula-like text neutralised). Numbers go out to six significant digits, an unknown
  * figure as an empty cell (never 0).
  */
-import { writeCsv, type CsvCell } from "../csv";
+import { writeCsv } from "../formats/csv";
 import type { CsvTable } from "./commands";
 
 const NUMBER = /^-?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i;
 
 /** One cell: numbers (also numbers read back from another table's text) to 6 significant digits. */
-export function csvCell(v: unknown): CsvCell {
-  if (v === null || v === undefined || v === "") return null;
-  if (typeof v === "number") return Number.isFinite(v) ? Number(v.toPrecision(6)) : null;
-  if (typeof v === "boolean") return v;
+export function csvCell(v: unknown): string {
+  if (v === null || v === undefined || v === "") return "";
+  if (typeof v === "number") return Number.isFinite(v) ? String(Number(v.toPrecision(6))) : "";
+  if (typeof v === "boolean") return v ? "true" : "false";
   const s = String(v);
-  return NUMBER.test(s) ? Number(Number(s).toPrecision(6)) : s;
+  return NUMBER.test(s) ? String(Number(Number(s).toPrecision(6))) : s;
 }
 
 /** Writes a table; every row is padded or cut to the header's width. */
 export function toCsv(table: CsvTable): string {
   const width = table.header.length;
-  return writeCsv(
-    table.header,
-    table.rows.map((r) => Array.from({ length: width }, (_, i) => csvCell(r[i]))),
-  );
+  return writeCsv([table.header.map(csvCell), ...table.rows.map((r) => Array.from({ length: width }, (_, i) => csvCell(r[i])))]);
 }
 
 /**

@@ -12,9 +12,6 @@
 import { readFileSync } from "node:fs";
 import { z } from "zod";
 import { NotConvergedError, StokeError, type Diagnostics } from "../errors";
-import { FuelDefinitionError } from "../fuels/resolve";
-import { StudyInputError } from "../study/errors";
-import { EquilibriumInfeasibleError, EquilibriumNotConvergedError } from "../combustion/equilibrium";
 
 export interface CliResult {
   stdout: string;
@@ -92,25 +89,6 @@ export function describeFailure(e: unknown, debug = false): Failure {
       field,
       message: oneLine(`${field || "(input)"}: ${issue?.message ?? "invalid input"}`),
       exitCode: EXIT_BAD_INPUT,
-    };
-  }
-  // Transitional, until lib/fuels, lib/combustion and lib/study throw only the lib/errors.ts errors:
-  // their own field-carrying input errors are input errors, and the equilibrium solver's own
-  // errors keep their meaning. Delete this block when those classes are gone.
-  if (e instanceof FuelDefinitionError || e instanceof StudyInputError) {
-    return { kind: "input", field: e.field, message: oneLine(e.message), exitCode: EXIT_BAD_INPUT };
-  }
-  if (e instanceof EquilibriumInfeasibleError) {
-    return { kind: "infeasible", field: "", message: oneLine(e.message), exitCode: EXIT_BAD_INPUT };
-  }
-  if (e instanceof EquilibriumNotConvergedError) {
-    return {
-      kind: "not-converged",
-      field: "",
-      message: oneLine(`equilibrium did not converge: ${e.message}`),
-      exitCode: EXIT_NOT_CONVERGED,
-      solver: "equilibrium",
-      diagnostics: { iterations: e.iterations, lastResidual: e.lastResidual },
     };
   }
   const err = e instanceof Error ? e : new Error(String(e));
