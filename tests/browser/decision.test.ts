@@ -20,6 +20,7 @@ let close: () => Promise<void>;
 let studyId = 0;
 let plantId = 0;
 const STUDY = "Browser study: three options";
+const FORM_STUDY = "Browser study built in the form";
 
 // The demo plant and its burner maker's H2 limit (20 vol %) are invented demo data (seed/demo.ts).
 const DEMO_PLANT = "Boiler 1 (gas)";
@@ -29,7 +30,36 @@ beforeAll(async () => {
   await page.emulateMedia({ reducedMotion: "reduce" });
   const plants = (await (await fetch(`${base}/api/plants`)).json()) as { plants: { id: number; name: string }[] };
   plantId = plants.plants.find((p) => p.name === DEMO_PLANT)!.id;
+  studyId = await createStudyThroughApi();
 });
+
+/**
+ * The study the later tests read, made through the API with what the form makes of the same choices
+ * (its defaults: EUR, carbon 80/t, 8 %, 15 years, no escalation; scenarios named after their fuels), so
+ * no test depends on another having run first.
+ */
+async function createStudyThroughApi(): Promise<number> {
+  const fuels = (await (await fetch(`${base}/api/fuels`)).json()) as { fuels: { id: number; name: string }[] };
+  const fuel = (name: string) => fuels.fuels.find((f) => f.name === name)!.id;
+  const body = {
+    plantId,
+    name: STUDY,
+    currency: "EUR",
+    carbonPrice_per_t: 80,
+    discountRatePercent: 8,
+    horizonYears: 15,
+    priceEscalationPercent: 0,
+    baseline: { name: "Pipeline natural gas (today)", fuelId: fuel("Pipeline natural gas") },
+    scenarios: [
+      { name: "Natural gas + 10 % H2", fuelId: fuel("Natural gas + 10 % H2"), capex: 60000 },
+      { name: "Natural gas + 30 % H2", fuelId: fuel("Natural gas + 30 % H2"), capex: 420000 },
+      { name: "Biomethane", fuelId: fuel("Biomethane") },
+    ],
+  };
+  const res = await fetch(`${base}/api/studies`, { method: "POST", headers: { "content-type": "application/json", origin: base }, body: JSON.stringify(body) });
+  if (res.status !== 201) throw new Error(`creating the test study answered ${res.status}: ${await res.text()}`);
+  return ((await res.json()) as { id: number }).id;
+}
 afterAll(async () => {
   await close?.();
 });
@@ -43,7 +73,7 @@ describe("decision pages in the browser", () => {
   it("builds a study for the seeded plant with three candidate scenarios", async () => {
     await page.goto(`${base}/studies/new?plant=${plantId}`);
     await page.getByRole("heading", { level: 1, name: "New study" }).waitFor();
-    await page.getByLabel("Study name").fill(STUDY);
+    await page.getByLabel("Study name").fill(FORM_STUDY);
     // The baseline starts as the plant's present fuel.
     const baseline = page.getByTestId("baseline-card");
     expect(await baseline.getByLabel("Fuel or blend").locator("option:checked").textContent()).toContain("Pipeline natural gas");
@@ -60,8 +90,7 @@ describe("decision pages in the browser", () => {
 
     await page.getByRole("button", { name: "Create study" }).click();
     await page.waitForURL(/\/studies\/\d+$/);
-    studyId = Number(new URL(page.url()).pathname.split("/").pop());
-    await page.getByRole("heading", { level: 1, name: STUDY }).waitFor();
+    await page.getByRole("heading", { level: 1, name: FORM_STUDY }).waitFor();
     expect((await rankedNames()).sort()).toEqual(["Biomethane", "Natural gas + 10 % H2", "Natural gas + 30 % H2", "Pipeline natural gas (today)"].sort());
     // Charts rendered (recharts draws SVG).
     expect(await page.locator("figure.chart svg.recharts-surface").count()).toBeGreaterThanOrEqual(3);
