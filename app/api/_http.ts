@@ -28,9 +28,65 @@ export function errorResponse(e: StokeError): Response {
   return json({ error: e.field ? `${e.field}: ${detail}` : detail, fieldErrors: { [e.field || "_"]: detail } }, STATUS_OF_ERROR[e.kind]);
 }
 
-/** The handler, with the errors lib/ throws on purpose answered by their status; a bug propagates. */
+/** Body size limits: JSON documents (fuels, plants, studies) and import files. */
+export const JSON_BODY_LIMIT_BYTES = 1024 * 1024;
+export const IMPORT_BODY_LIMIT_BYTES = 16 * 1024 * 1024;
+
+const WRITE_METHODS = new Set(["POST", "PUT", "PATCH", "DELETE"]);
+
+/**
+ * A write from another site is refused: browsers send the page's Origin with every cross-site
+ * write, so a request whose Origin is not this server's own (by its Host) answers 403. Requests
+ * without an Origin (the command line, scripts on this machine) pass.
+ */
+export function crossSiteWrite(req: Request): Response | null {
+  if (!WRITE_METHODS.has(req.method)) return null;
+  const origin = req.headers.get("origin");
+  if (origin === null) return null;
+  let originHost: string;
+  try {
+    originHost = new URL(origin).host;
+  } catch {
+    originHost = "";
+  }
+  const host = req.headers.get("host") ?? new URL(req.url).host;
+  if (originHost === host) return null;
+  return json({ error: "Writes are accepted only from Stoke's own pages (the request came from another site).", fieldErrors: { origin: "not this server" } }, 403);
+}
+
+/** The body as text, refused (413) past `limitBytes` without reading further. */
+export async function readBodyText(req: Request, limitBytes: number): Promise<{ ok: true; text: string } | { ok: false; response: Response }> {
+  const tooLarge = () => ({
+    ok: false as const,
+    response: json({ error: `The request body is larger than ${Math.round(limitBytes / 1024)} KiB.`, fieldErrors: { _: "body too large" } }, 413),
+  });
+  const declared = Number(req.headers.get("content-length") ?? "NaN");
+  if (Number.isFinite(declared) && declared > limitBytes) return tooLarge();
+  if (!req.body) return { ok: true, text: "" };
+  const reader = req.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let size = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    size += value.byteLength;
+    if (size > limitBytes) {
+      await reader.cancel();
+      return tooLarge();
+    }
+    chunks.push(value);
+  }
+  return { ok: true, text: Buffer.concat(chunks).toString("utf8") };
+}
+
+/** The handler, with the errors lib/ throws on purpose answered by their status; a bug propagates. Cross-site writes are refused first. */
 export function withErrors<A extends unknown[]>(handler: (...args: A) => Promise<Response>): (...args: A) => Promise<Response> {
   return async (...args: A) => {
+    const req = args[0];
+    if (req instanceof Request) {
+      const refused = crossSiteWrite(req);
+      if (refused) return refused;
+    }
     try {
       return await handler(...args);
     } catch (e) {
@@ -50,11 +106,21 @@ export function parseId(segment: string): number | null {
   return /^[1-9]\d{0,15}$/.test(segment) ? Number(segment) : null;
 }
 
-/** The request body as JSON: 400 when it is not JSON, or nests deeper than any document needs (the field named). */
-export async function readJson(req: Request): Promise<{ ok: true; value: unknown } | { ok: false; response: Response }> {
+/**
+ * The request body as JSON: 415 unless it is sent as application/json (so a plain form or text post
+ * from another page cannot write), 413 past the size limit, 400 when it is not JSON or nests deeper
+ * than any document needs (the field named).
+ */
+export async function readJson(req: Request, limitBytes = JSON_BODY_LIMIT_BYTES): Promise<{ ok: true; value: unknown } | { ok: false; response: Response }> {
+  const type = (req.headers.get("content-type") ?? "").split(";")[0].trim().toLowerCase();
+  if (type !== "application/json") {
+    return { ok: false, response: json({ error: "Send the body as JSON (content-type: application/json).", fieldErrors: { "content-type": "must be application/json" } }, 415) };
+  }
+  const body = await readBodyText(req, limitBytes);
+  if (!body.ok) return body;
   let value: unknown;
   try {
-    value = await req.json();
+    value = JSON.parse(body.text);
   } catch (e) {
     if (!(e instanceof SyntaxError)) throw e;
     return { ok: false, response: json({ error: "The request body must be JSON.", fieldErrors: {} }, 400) };

@@ -82,7 +82,7 @@ describe("POST /api/fuels and GET /api/fuels/{id}", () => {
     expect(empty.fieldErrors.name).toBeDefined();
     const inert = await (await routes.fuels.POST(post(base, { name: "Nitrogen", definition: { composition: { N2: 1 } } }))).json();
     expect(inert.fieldErrors.definition).toMatch(/no heat/);
-    const notJson = await routes.fuels.POST(new Request(base, { method: "POST", body: "{" }));
+    const notJson = await routes.fuels.POST(new Request(base, { method: "POST", body: "{", headers: { "content-type": "application/json" } }));
     expect(notJson.status).toBe(400);
     expect(await count()).toBe(before);
   });
@@ -233,5 +233,26 @@ describe("GET /api/fuels", () => {
     const gases = await (await routes.fuels.GET(new Request(`${base}?kind=gas`))).json();
     expect(gases.fuels.every((f: { kind: string }) => f.kind === "gas")).toBe(true);
     expect((await routes.fuels.GET(new Request(`${base}?kind=plasma`))).status).toBe(400);
+  });
+});
+
+describe("writes from elsewhere are refused", () => {
+  const body = JSON.stringify({ name: "Sneaky", definition: { composition: { CH4: 1 } } });
+  it("415 for a body not sent as JSON (a plain text post from another page)", async () => {
+    const res = await routes.fuels.POST(new Request(base, { method: "POST", body, headers: { "content-type": "text/plain" } }));
+    expect(res.status).toBe(415);
+    expect((await res.json()).fieldErrors["content-type"]).toMatch(/application\/json/);
+  });
+  it("403 for a write whose Origin is another site, 2xx/4xx as usual from this server's own origin", async () => {
+    const host = new URL(base).host;
+    const evil = await routes.fuels.POST(new Request(base, { method: "POST", body, headers: { "content-type": "application/json", origin: "http://evil.example", host } }));
+    expect(evil.status).toBe(403);
+    const own = await routes.fuels.POST(new Request(base, { method: "POST", body, headers: { "content-type": "application/json", origin: `http://${host}`, host } }));
+    expect(own.status).toBe(201);
+  });
+  it("413 for a body past the 1 MiB limit, without storing anything", async () => {
+    const huge = JSON.stringify({ name: "x".repeat(2 * 1024 * 1024), definition: { composition: { CH4: 1 } } });
+    const res = await routes.fuels.POST(new Request(base, { method: "POST", body: huge, headers: { "content-type": "application/json" } }));
+    expect(res.status).toBe(413);
   });
 });

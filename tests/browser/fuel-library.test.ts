@@ -24,6 +24,21 @@ async function fuelNames(): Promise<string[]> {
 }
 
 describe("fuel library in the browser", () => {
+  it("answers with security headers and the pages run under them", async () => {
+    const res = await fetch(`${base}/fuels`);
+    expect(res.headers.get("content-security-policy")).toMatch(/frame-ancestors 'none'/);
+    expect(res.headers.get("x-content-type-options")).toBe("nosniff");
+    expect(res.headers.get("referrer-policy")).toBe("same-origin");
+    const violations: string[] = [];
+    page.on("console", (m) => {
+      if (/Content Security Policy/i.test(m.text())) violations.push(m.text());
+    });
+    await page.goto(`${base}/studies`);
+    await page.goto(`${base}/fuels`);
+    await page.getByRole("heading", { level: 1 }).first().waitFor();
+    expect(violations).toEqual([]);
+  });
+
   it("lists the seeded fuels with their basis, invented prices marked, and filters by kind", async () => {
     await page.goto(`${base}/fuels`);
     await expect(page.getByRole("heading", { level: 1, name: "Fuel library" }).isVisible()).resolves.toBe(true);

@@ -1,6 +1,6 @@
 import { db } from "@/lib/db/client";
 import { importLibrary, parseLibrary } from "@/lib/services/transfer";
-import { failure, json, withErrors } from "../../_http";
+import { IMPORT_BODY_LIMIT_BYTES, failure, json, readBodyText, withErrors } from "../../_http";
 
 export const dynamic = "force-dynamic";
 
@@ -18,8 +18,9 @@ export const POST = withErrors(async (req: Request): Promise<Response> => {
   if (onExisting !== "reject" && onExisting !== "skip") {
     return json({ error: "onExisting must be reject or skip", fieldErrors: { onExisting: "must be reject or skip" } }, 400);
   }
-  const text = await req.text();
-  const doc = parseLibrary(text, format);
+  const body = await readBodyText(req, IMPORT_BODY_LIMIT_BYTES);
+  if (!body.ok) return body.response;
+  const doc = parseLibrary(body.text, format);
   if (!doc.ok) return failure(doc);
   const r = await importLibrary(db(), doc.value, { onExisting });
   if (!r.ok) return failure(r);
