@@ -17,15 +17,20 @@ export function json(body: unknown, status = 200): Response {
   return Response.json(body, { status, headers: { "cache-control": "no-store" } });
 }
 
+/** Longest message an error answer carries: a message never echoes a huge input back in full. */
+const MAX_MESSAGE_CHARS = 500;
+const capped = (m: string) => (m.length > MAX_MESSAGE_CHARS ? `${m.slice(0, MAX_MESSAGE_CHARS)}… (cut)` : m);
+const cappedFields = (f: Record<string, string>) => Object.fromEntries(Object.entries(f).slice(0, 100).map(([k, v]) => [capped(k), capped(v)]));
+
 /** A service's problem with its status, the message and the per-field messages. */
 export function failure(p: Problem): Response {
-  return json({ error: p.message, fieldErrors: p.fieldErrors }, STATUS_OF_PROBLEM[p.kind]);
+  return json({ error: capped(p.message), fieldErrors: cappedFields(p.fieldErrors) }, STATUS_OF_PROBLEM[p.kind]);
 }
 
 /** A lib/ error with its status; the field it names carries the detail. */
 export function errorResponse(e: StokeError): Response {
   const detail = explain(e);
-  return json({ error: e.field ? `${e.field}: ${detail}` : detail, fieldErrors: { [e.field || "_"]: detail } }, STATUS_OF_ERROR[e.kind]);
+  return json({ error: capped(e.field ? `${e.field}: ${detail}` : detail), fieldErrors: cappedFields({ [e.field || "_"]: detail }) }, STATUS_OF_ERROR[e.kind]);
 }
 
 /** Body size limits: JSON documents (fuels, plants, studies) and import files. */

@@ -7,6 +7,7 @@ import { z } from "zod";
 import { BLEND_BASES, fuelDefinitionSchema, type FuelDefinition } from "./fuel";
 import { METERING_REFERENCE_KEYS } from "./plant";
 import { ENERGY_BASES, PRICE_UNITS } from "./price-units";
+import { nameSchema } from "./names";
 
 export const FUEL_KINDS = ["gas", "liquid", "solid"] as const;
 export type FuelKind = (typeof FUEL_KINDS)[number];
@@ -55,7 +56,7 @@ export type BlendInput = z.infer<typeof blendInputSchema>;
  */
 export const fuelInputSchema = z
   .object({
-    name: trimmedText(120).min(1, "name the fuel"),
+    name: nameSchema(120, "name the fuel"),
     kind: z.enum(FUEL_KINDS, { error: 'must be "gas", "liquid" or "solid"' }).optional(),
     definition: fuelDefinitionSchema.optional(),
     blend: blendInputSchema.optional(),

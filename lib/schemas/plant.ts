@@ -5,6 +5,7 @@
  */
 import { z } from "zod";
 import { METERING_REFERENCE_KEYS, METERING_REFERENCES, type MeteringReferenceKey } from "../units/metering";
+import { nameSchema } from "./names";
 
 export const EQUIPMENT_TYPES = [
   "steam-boiler",
@@ -118,7 +119,7 @@ export const plantLimitsShape = {
 
 export const plantSchema = z
   .object({
-    name: z.string({ error: "must be text" }).trim().min(1, "name the plant").max(120, "must be ≤ 120 characters"),
+    name: nameSchema(120, "name the plant"),
     site: z.string().max(200, "must be ≤ 200 characters").default(""),
     equipmentType: z.enum(EQUIPMENT_TYPES, { error: `must be one of ${EQUIPMENT_TYPES.join(", ")}` }),
     /** Rated heat input (firing rate), kW on the basis below. */

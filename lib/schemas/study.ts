@@ -8,6 +8,7 @@ import { z } from "zod";
 import { fuelDefinitionSchema, type FuelDefinition } from "./fuel";
 import { operatingOverridesSchema, plantSchema } from "./plant";
 import { isoDateSchema, priceQuoteInputSchema } from "./library";
+import { nameSchema } from "./names";
 
 /** What a study ranks its scenarios by. */
 export const RANKING_METRICS = ["cost-per-useful-MWh", "co2-per-useful-MJ", "abatement-cost", "npv"] as const;
@@ -26,7 +27,7 @@ export type StudyPrice = z.output<typeof studyPriceSchema>;
 
 export const scenarioSchema = z
   .object({
-    name: text(120).min(1, "name the scenario"),
+    name: nameSchema(120, "name the scenario"),
     /** The fuel or blend, as a full definition (a stored blend becomes a blend of definitions). */
     fuel: fuelDefinitionSchema,
     /** Delivered-price quote; without one (and without componentPrices) the scenario gets no cost figures. */
@@ -102,7 +103,7 @@ export const studySchema = z
   .object({
     format: z.literal(STUDY_FORMAT, { error: `must be "${STUDY_FORMAT}"` }).optional(),
     version: z.literal(STUDY_FORMAT_VERSION, { error: `must be ${STUDY_FORMAT_VERSION}` }).optional(),
-    name: text(200).min(1, "name the study"),
+    name: nameSchema(200, "name the study"),
     currency: z
       .string({ error: "must be a currency code" })
       .trim()

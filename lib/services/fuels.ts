@@ -41,6 +41,7 @@ import { PRICE_UNITS, priceQuoteIssues, type EnergyBasis, type PriceQuoteTerms, 
 import { MAX_JSON_DEPTH, tooDeepAt } from "../formats/json-depth";
 import { asStokeError, ok, problem, problemFromError, type FieldErrors, type Problem, type Result } from "./result";
 import { InfeasibleChargeError } from "../errors";
+import { lookAlikeKey } from "../schemas/names";
 
 export { effectiveDefinition, findFuel, fuelJson };
 
@@ -154,10 +155,13 @@ async function prepareFuel(tx: DbOrTx, input: FuelInputParsed, selfId?: number):
   });
 }
 
-/** The fuel that already carries this name (case-insensitive), other than `exceptId`. */
+/**
+ * The fuel that already carries this name or one that looks the same (any letter case, full-width or
+ * ligature forms, repeated spaces: lookAlikeKey), other than `exceptId`.
+ */
 async function nameTaken(tx: DbOrTx, name: string, exceptId?: number): Promise<string | null> {
-  const lower = name.toLowerCase();
-  return (await fuelNames(tx)).find((f) => f.name.toLowerCase() === lower && f.id !== exceptId)?.name ?? null;
+  const key = lookAlikeKey(name);
+  return (await fuelNames(tx)).find((f) => lookAlikeKey(f.name) === key && f.id !== exceptId)?.name ?? null;
 }
 
 /** zod's built-in type messages, reworded for people filling in a form. */
@@ -196,7 +200,7 @@ async function withNameCheck(tx: DbOrTx, failure: Problem, raw: unknown, exceptI
 }
 
 const nameConflict = (taken: string) =>
-  problem("conflict", `A fuel named "${taken}" already exists.`, { name: `a fuel named "${taken}" already exists` });
+  problem("conflict", `A fuel named "${taken}" already exists.`, { name: `a fuel named "${taken}" already exists (or one that looks the same)` });
 
 /** Re-derives every blend that depends on `fuelId` (after an edit of that fuel). */
 async function refreshDependentBlends(tx: Tx, fuelId: number): Promise<Result<null>> {

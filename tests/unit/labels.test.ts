@@ -31,3 +31,16 @@ describe("labels people read", () => {
     expect(labelOfPath("blend.components.1.share")).toBe("blend — component 2 — share");
   });
 });
+
+describe("names people give things", () => {
+  it("are NFC-normalised and refuse control, direction-override and invisible characters", async () => {
+    const { nameSchema, lookAlikeKey } = await import("../../lib/schemas/names");
+    const s = nameSchema(120, "name it");
+    // "é" as e + combining acute (U+0301) and as the precomposed U+00E9 are one name after NFC (Unicode UAX #15).
+    expect(s.parse("Cafe\u0301 gas ")).toBe("Caf\u00e9 gas");
+    for (const bad of ["gas\u0000", "gas\u202eoil", "ga\u200bs"]) expect(s.safeParse(bad).success).toBe(false);
+    expect(s.safeParse("   ").success).toBe(false);
+    // Full-width letters fold to plain ones under NFKC.
+    expect(lookAlikeKey("ＬＰＧ  propane")).toBe(lookAlikeKey("lpg propane"));
+  });
+});
