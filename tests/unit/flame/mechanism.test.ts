@@ -1,0 +1,69 @@
+import { readFileSync } from "node:fs";
+import { describe, expect, it } from "vitest";
+import { MECHANISM_CITATIONS } from "../../../lib/flame/mechanism/citations";
+import { convertMechanismYaml, mechanismJsonText } from "../../../lib/flame/mechanism/convert";
+import { loadMechanism } from "../../../lib/flame/mechanism";
+import { meanMolarMassFromMole, speciesThermoInto } from "../../../lib/flame/thermo";
+import { R_J_per_molK } from "../../../lib/units/constants";
+
+const dir = new URL("../../../lib/flame/mechanism/", import.meta.url);
+
+describe("GRI-Mech 3.0 data file", () => {
+  it("the committed JSON equals a fresh conversion of the YAML", () => {
+    const fresh = mechanismJsonText(convertMechanismYaml(readFileSync(new URL("gri30.yaml", dir), "utf8"), "gri30", MECHANISM_CITATIONS.gri30));
+    expect(readFileSync(new URL("gri30.json", dir), "utf8")).toBe(fresh);
+  });
+
+  it("has 53 species and 325 reactions, 5 elements", () => {
+    // GRI-Mech 3.0 (Smith et al. 1999): 53 species, 325 reactions, elements O, H, C, N, Ar.
+    const m = loadMechanism();
+    expect(m.nSpecies).toBe(53);
+    expect(m.reactions.length).toBe(325);
+    expect([...m.elementNames].sort()).toEqual(["Ar", "C", "H", "N", "O"]);
+  });
+
+  it("converts A and Ea to SI for a bimolecular, a three-body and a fall-off reaction", () => {
+    const m = loadMechanism();
+    // GRI-Mech 3.0 reaction list: R38 H + O2 <=> O + OH, A = 2.65e16 cm3/(mol s), b = -0.6707, Ea = 17041 cal/mol
+    // (grimech30.dat; the GRI-Mech web reaction table rounds b to -0.671).
+    const r38 = m.reactions[37];
+    expect(r38.equation).toBe("H + O2 <=> O + OH");
+    expect(r38.rate.A).toBeCloseTo(2.65e16 * 1e-6, 6);
+    expect(r38.rate.b).toBe(-0.6707);
+    expect(r38.rate.Ea_J_per_mol).toBeCloseTo(17041 * 4.184, 6);
+    // R1 2O + M <=> O2 + M, A = 1.2e17 cm6/(mol2 s) -> 1.2e5 m6/(mol2 s).
+    expect(m.reactions[0].rate.A).toBeCloseTo(1.2e5, 6);
+    // R12 O + CO (+M) <=> CO2 (+M): k_inf A = 1.8e10 cm3/(mol s); k0 A = 6.02e14 cm6/(mol2 s).
+    const r12 = m.reactions[11];
+    expect(r12.rate.A).toBeCloseTo(1.8e4, 6);
+    expect(r12.lowRate?.A).toBeCloseTo(6.02e2, 8);
+  });
+
+  it("molar masses of CH4 and N2 match ISO 6976:2016 (IUPAC 2005 atomic weights)", () => {
+    const m = loadMechanism();
+    // ISO 6976:2016 Table 1: methane 16.04246 g/mol, nitrogen 28.0134 g/mol.
+    expect(m.molarMass_kg_per_mol[m.speciesIndex.get("CH4") as number]).toBeCloseTo(0.01604246, 9);
+    expect(m.molarMass_kg_per_mol[m.speciesIndex.get("N2") as number]).toBeCloseTo(0.0280134, 9);
+    const X = new Float64Array(m.nSpecies);
+    X[m.speciesIndex.get("N2") as number] = 1;
+    expect(meanMolarMassFromMole(m, X)).toBeCloseTo(0.0280134, 9);
+  });
+
+  it("mechanism thermo reproduces NIST-JANAF values for H2O and N2", () => {
+    const m = loadMechanism();
+    const n = m.nSpecies;
+    const cp = new Float64Array(n), h = new Float64Array(n), s = new Float64Array(n);
+    const iH2O = m.speciesIndex.get("H2O") as number, iN2 = m.speciesIndex.get("N2") as number;
+    speciesThermoInto(m, 298.15, cp, h, s);
+    // NIST-JANAF Thermochemical Tables, 4th ed. (Chase 1998), H2O(g): ΔfH°(298.15) = −241.826 kJ/mol,
+    // S°(298.15) = 188.834 J/(mol K) (at 1 bar; the mechanism's 1 atm standard state lowers S° by
+    // R ln(1.01325) = 0.109 J/(mol K), within the tolerance).
+    expect((h[iH2O] * R_J_per_molK * 298.15) / 1000).toBeCloseTo(-241.826, 1);
+    expect(s[iH2O] * R_J_per_molK).toBeCloseTo(188.834, 0);
+    speciesThermoInto(m, 1000, cp, h, s);
+    // NIST-JANAF, N2: cp(1000 K) = 32.697 J/(mol K); H − H(298.15) at 1000 K = 21.463 kJ/mol.
+    // The mechanism's fit meets its range boundary at 1000 K: within 0.3 % of JANAF there.
+    expect(Math.abs(cp[iN2] * R_J_per_molK - 32.697)).toBeLessThan(0.1);
+    expect((h[iN2] * R_J_per_molK * 1000) / 1000).toBeCloseTo(21.463, 1);
+  });
+});
