@@ -10,6 +10,7 @@ type Bench = { name: string; file: string; fn: string };
 const BENCHES: Bench[] = [
   { name: "equilibrium", file: "./equilibrium.bench.ts", fn: "benchEquilibrium" },
   { name: "kinetics", file: "./kinetics.bench.ts", fn: "benchKinetics" },
+  { name: "transport", file: "./transport.bench.ts", fn: "benchTransport" },
   { name: "properties", file: "./properties.bench.ts", fn: "benchProperties" },
   { name: "study", file: "./study.bench.ts", fn: "benchStudy" },
   { name: "pages", file: "./pages.bench.ts", fn: "benchPages" },
