@@ -38,6 +38,8 @@ import { speciesThermoInto } from "./thermo";
 /** What the flame needs of the kinetics (structural: lib/flame/kinetics.ts provides it). */
 export interface FlameKinetics {
   netProductionRates(T: number, C: Float64Array, out: Float64Array): void;
+  /** ∂ω̇/∂C (row-major [k·K + j]) and ∂ω̇/∂T; used for the Jacobian when present. */
+  jacobian?(T: number, C: Float64Array, dWdC: Float64Array, dWdT: Float64Array): void;
 }
 /** What the flame needs of the transport (structural: lib/flame/transport.ts provides it). */
 export interface FlameTransportOut {
@@ -112,7 +114,11 @@ export interface SolveStats {
   residualSeconds: number;
 }
 
-const Y_LOWER = -1e-5;
+const Y_LOWER = -1e-4;
+/** Point-evaluation modes (see evalPointFast). */
+const FULL = 0;
+const NO_KINETICS = 1;
+const COMPOSITION = 2;
 const T_LOWER = 150;
 const T_UPPER = 6000;
 const DAMP = Math.SQRT2;
@@ -140,6 +146,13 @@ export class FlameGridSolver {
   private readonly wdot: Float64Array;
   private readonly coef: Float64Array;
   private readonly coefT: Float64Array;
+  private readonly Dk: Float64Array;
+  private readonly kT: Float64Array;
+  private readonly sDk: Float64Array;
+  private readonly sKT: Float64Array;
+  private readonly dWdC: Float64Array;
+  private readonly dWdT: Float64Array;
+  private readonly dwdY: Float64Array;
   private readonly rho: Float64Array;
   private readonly cpMass: Float64Array;
   private readonly lambda: Float64Array;
@@ -177,6 +190,7 @@ export class FlameGridSolver {
   private rdt = 0;
   private jacobianValid = false;
   private jacobianAge = 0;
+  private jacobianRdt = 0;
   readonly stats: SolveStats = {
     residualEvaluations: 0,
     jacobianEvaluations: 0,
@@ -188,6 +202,8 @@ export class FlameGridSolver {
   };
   settings: SolverSettings;
   signal?: AbortSignal;
+  /** Use the kinetics' analytic Jacobian for the source terms (when it has one). */
+  analyticKinetics: boolean;
 
   constructor(prob: PremixedProblem, z: Float64Array, x: Float64Array, jFix: number, tFix: number, settings: SolverSettings = DEFAULT_SOLVER_SETTINGS) {
     const K = prob.mech.nSpecies;
@@ -200,6 +216,7 @@ export class FlameGridSolver {
     this.jFix = jFix;
     this.tFix = tFix;
     this.settings = settings;
+    this.analyticKinetics = typeof prob.kinetics.jacobian === "function";
     const N = this.N;
     this.W = prob.mech.molarMass_kg_per_mol;
     this.invW = this.W.map((w) => 1 / w);
@@ -210,6 +227,13 @@ export class FlameGridSolver {
     this.wdot = new Float64Array(NK);
     this.coef = new Float64Array(NK);
     this.coefT = new Float64Array(NK);
+    this.Dk = new Float64Array(NK);
+    this.kT = new Float64Array(NK);
+    this.sDk = new Float64Array(NK);
+    this.sKT = new Float64Array(NK);
+    this.dWdC = new Float64Array(K * K);
+    this.dWdT = new Float64Array(K);
+    this.dwdY = new Float64Array(K);
     this.rho = new Float64Array(N);
     this.cpMass = new Float64Array(N);
     this.lambda = new Float64Array(N);
@@ -252,14 +276,18 @@ export class FlameGridSolver {
 
   // ---- properties -------------------------------------------------------------------------------
 
-  /** Thermo, kinetics and transport at point j (allocation-free). */
-  private evalPointFast(xs: Float64Array, j: number): void {
+  /**
+   * Properties at point j from the state xs (allocation-free). mode FULL: thermo, kinetics and
+   * transport; NO_KINETICS: the production rates are kept (the Jacobian adds their derivatives
+   * analytically); COMPOSITION: temperature unchanged, so thermo and transport coefficients are kept
+   * and only the mole fractions, density, c_p and the flux coefficients' density factor are updated.
+   */
+  private evalPointFast(xs: Float64Array, j: number, mode = FULL): void {
     const { K, n, W, invW, prob, C, Xw, sR, trOut } = this;
     const o = j * n;
     const ok = j * K;
     const T = xs[o];
     this.Tp[j] = T;
-    // mean molar mass and mole fractions (negative mass fractions used as given)
     let sumYoverW = 0;
     for (let k = 0; k < K; k++) sumYoverW += xs[o + 1 + k] * invW[k];
     const Wbar = 1 / sumYoverW;
@@ -272,30 +300,38 @@ export class FlameGridSolver {
       Xw[k] = Xk;
       C[k] = rho * y * invW[k];
     }
-    // thermo into a point work array, then copied into the per-point store
-    speciesThermoInto(prob.mech, T, this.cpRw, this.hRTw, sR);
-    let cp = 0;
-    for (let k = 0; k < K; k++) {
-      const c = this.cpRw[k];
-      this.cpR[ok + k] = c;
-      this.hRT[ok + k] = this.hRTw[k];
-      cp += c * R_J_per_molK * invW[k] * xs[o + 1 + k];
+    if (mode !== COMPOSITION) {
+      speciesThermoInto(prob.mech, T, this.cpRw, this.hRTw, sR);
+      for (let k = 0; k < K; k++) {
+        this.cpR[ok + k] = this.cpRw[k];
+        this.hRT[ok + k] = this.hRTw[k];
+      }
     }
-    this.cpMass[j] = cp;
-    prob.kinetics.netProductionRates(T, C, this.wdotw);
-    for (let k = 0; k < K; k++) this.wdot[ok + k] = this.wdotw[k];
-    // transport: use non-negative mole fractions
-    for (let k = 0; k < K; k++) if (Xw[k] < 0) Xw[k] = 0;
-    prob.transport.evaluate(T, prob.pressurePa, Xw, trOut);
-    this.lambda[j] = trOut.conductivity_W_per_mK;
-    const D = trOut.Dkm_m2_per_s;
+    let cp = 0;
+    for (let k = 0; k < K; k++) cp += this.cpR[ok + k] * invW[k] * xs[o + 1 + k];
+    this.cpMass[j] = cp * R_J_per_molK;
+    if (mode === FULL) {
+      prob.kinetics.netProductionRates(T, C, this.wdotw);
+      for (let k = 0; k < K; k++) this.wdot[ok + k] = this.wdotw[k];
+    }
+    if (mode !== COMPOSITION) {
+      // transport from non-negative mole fractions
+      for (let k = 0; k < K; k++) if (Xw[k] < 0) Xw[k] = 0;
+      prob.transport.evaluate(T, prob.pressurePa, Xw, trOut);
+      this.lambda[j] = trOut.conductivity_W_per_mK;
+      const D = trOut.Dkm_m2_per_s;
+      for (let k = 0; k < K; k++) this.Dk[ok + k] = D[k];
+      const kT = trOut.thermalDiffusionRatio;
+      for (let i = 0; i < this.soretSpecies.length; i++) {
+        const k = this.soretSpecies[i];
+        this.kT[ok + k] = kT[k];
+      }
+    }
     const f = rho * sumYoverW; // ρ / W̄
-    for (let k = 0; k < K; k++) this.coef[ok + k] = f * W[k] * D[k];
-    const kT = trOut.thermalDiffusionRatio;
-    for (let k = 0; k < K; k++) this.coefT[ok + k] = 0;
+    for (let k = 0; k < K; k++) this.coef[ok + k] = f * W[k] * this.Dk[ok + k];
     for (let i = 0; i < this.soretSpecies.length; i++) {
       const k = this.soretSpecies[i];
-      this.coefT[ok + k] = (f * W[k] * D[k] * kT[k]) / T;
+      this.coefT[ok + k] = (this.coef[ok + k] * this.kT[ok + k]) / T;
     }
   }
 
@@ -309,6 +345,8 @@ export class FlameGridSolver {
       this.sWdot[ok + k] = this.wdot[ok + k];
       this.sCoef[ok + k] = this.coef[ok + k];
       this.sCoefT[ok + k] = this.coefT[ok + k];
+      this.sDk[ok + k] = this.Dk[ok + k];
+      this.sKT[ok + k] = this.kT[ok + k];
     }
     this.sScal[4 * j] = this.rho[j];
     this.sScal[4 * j + 1] = this.cpMass[j];
@@ -325,6 +363,8 @@ export class FlameGridSolver {
       this.wdot[ok + k] = this.sWdot[ok + k];
       this.coef[ok + k] = this.sCoef[ok + k];
       this.coefT[ok + k] = this.sCoefT[ok + k];
+      this.Dk[ok + k] = this.sDk[ok + k];
+      this.kT[ok + k] = this.sKT[ok + k];
     }
     this.rho[j] = this.sScal[4 * j];
     this.cpMass[j] = this.sScal[4 * j + 1];
@@ -443,7 +483,7 @@ export class FlameGridSolver {
           const d = 1e-5 * Math.abs(xv) + (v === 0 ? 1e-5 : 1.5e-8);
           this.delta[p] = d;
           x[i] = xv + d;
-          if (v <= K) this.evalPointFast(x, p);
+          if (v <= K) this.evalPointFast(x, p, this.analyticKinetics ? (v === 0 ? NO_KINETICS : COMPOSITION) : FULL);
         }
         for (let p = c; p < N; p += 3) {
           if (p > 0) this.evalFlux(x, p - 1);
@@ -473,14 +513,72 @@ export class FlameGridSolver {
         }
       }
     }
+    if (this.analyticKinetics) this.addKineticsJacobian();
     this.stats.jacobianEvaluations++;
     const t1 = performance.now();
     this.stats.jacobianSeconds += (t1 - t0) / 1000;
     const bad = jac.factor();
     this.stats.factorSeconds += (performance.now() - t1) / 1000;
     this.jacobianValid = bad < 0;
+    this.jacobianRdt = this.rdt;
     this.jacobianAge = 0;
     return this.jacobianValid;
+  }
+
+  /**
+   * Adds the production-rate terms to the diagonal blocks of the interior points from the kinetics'
+   * analytic Jacobian ∂ω̇/∂C, ∂ω̇/∂T, by the chain rule through C_i = ρY_i/W_i, ρ = pW̄/(RT):
+   *   ∂C_i/∂Y_j = ρ δ_ij/W_i − C_i W̄/W_j,   ∂C_i/∂T = −C_i/T.
+   * Species rows carry −W_k ω̇_k, the energy row Σ_k h_k ω̇_k (its ∂h_k/∂T·ω̇_k part is already in
+   * the finite differences, which kept ω̇ fixed).
+   */
+  private addKineticsJacobian(): void {
+    const { N, n, K, x, W, invW, C, dWdC, dWdT, dwdY, jac } = this;
+    const kin = this.prob.kinetics;
+    const nn = n * n;
+    const p = this.prob.pressurePa;
+    for (let j = 1; j < N - 1; j++) {
+      const o = j * n;
+      const ok = j * K;
+      const T = x[o];
+      let sumYoverW = 0;
+      for (let k = 0; k < K; k++) sumYoverW += x[o + 1 + k] * invW[k];
+      const Wbar = 1 / sumYoverW;
+      const rho = (p * Wbar) / (R_J_per_molK * T);
+      for (let k = 0; k < K; k++) C[k] = rho * x[o + 1 + k] * invW[k];
+      kin.jacobian!(T, C, dWdC, dWdT);
+      const RT = R_J_per_molK * T;
+      const bo = j * nn;
+      // s_k = Σ_i ∂ω̇_k/∂C_i C_i  (kept in dwdY temporarily)
+      for (let k = 0; k < K; k++) {
+        let s = 0;
+        const r = k * K;
+        for (let i = 0; i < K; i++) s += dWdC[r + i] * C[i];
+        dwdY[k] = s;
+      }
+      // temperature column
+      let eT = 0;
+      for (let k = 0; k < K; k++) {
+        const dw = dWdT[k] - dwdY[k] / T;
+        jac.diag[bo + (1 + k) * n] -= W[k] * dw;
+        eT += this.hRT[ok + k] * RT * dw;
+      }
+      jac.diag[bo] += eT;
+      // species columns: ∂ω̇_k/∂Y_m = dWdC[k,m]·ρ/W_m − s_k W̄/W_m
+      for (let m = 0; m < K; m++) {
+        const a = rho * invW[m];
+        const b = Wbar * invW[m];
+        let e = 0;
+        const col = 1 + m;
+        for (let k = 0; k < K; k++) {
+          const dw = dWdC[k * K + m] * a - dwdY[k] * b;
+          if (dw === 0) continue;
+          jac.diag[bo + (1 + k) * n + col] -= W[k] * dw;
+          e += this.hRT[ok + k] * RT * dw;
+        }
+        jac.diag[bo + col] += e;
+      }
+    }
   }
 
   /** Error weights per component (RP: rtol·mean|x| + atol), as in common practice for DAE solvers. */
@@ -522,7 +620,9 @@ export class FlameGridSolver {
       for (let k = 1; k <= K; k++) {
         const y = xs[o + k];
         const d = dx[o + k];
-        if (d < 0 && y + d < Y_LOWER && y >= Y_LOWER) lam = Math.min(lam, (y - Y_LOWER) / -d);
+        // a non-negative mass fraction may go at most to Y_LOWER in one step; one already negative is not
+        // bounded (it would block every step), the iteration brings it back
+        if (d < 0 && y >= 0 && y + d < Y_LOWER) lam = Math.min(lam, (y - Y_LOWER) / -d);
       }
       const m = xs[o + K + 1];
       const dm = dx[o + K + 1];
@@ -543,7 +643,7 @@ export class FlameGridSolver {
     const { x, F, F1, dx, dx1, x1 } = this;
     this.updateWeights();
     this.residual(x, F);
-    let needJac = !this.jacobianValid;
+    let needJac = !this.jacobianValid || this.jacobianRdt !== this.rdt;
     for (let it = 0; it < maxSteps; it++) {
       this.checkAbort();
       if (needJac) {
@@ -602,8 +702,9 @@ export class FlameGridSolver {
     let dt = s.dt0;
     for (let attempt = 0; attempt <= s.maxTimeStepAttempts; attempt++) {
       this.rdt = 0;
-      this.jacobianValid = false;
+      this.xOld.set(this.x);
       if (this.newton(60)) return;
+      this.x.set(this.xOld); // a failed steady attempt may have wandered off: time-step from where it began
       // pseudo-time steps
       let done = 0;
       let fails = 0;
@@ -611,7 +712,6 @@ export class FlameGridSolver {
         this.checkAbort();
         this.xOld.set(this.x);
         this.rdt = 1 / dt;
-        this.jacobianValid = false;
         if (this.newton(12)) {
           done++;
           this.stats.timeSteps++;
