@@ -23,8 +23,10 @@
  * Collision integrals: collision-integrals.ts (Monchick–Mason tables).
  *
  * Fits (made once per mechanism and option set, at creation): on 50 temperatures spaced evenly in ln T
- * over FIT_RANGE_K, weighted least-squares polynomials of degree 4 in u = (ln T − c)/h of
- *   √η_k / T^¼,   λ_k / √T,   T^1.5 / (p D_jk)   (relative residuals minimised),
+ * over FIT_RANGE_K, weighted least-squares polynomials in u = (ln T − c)/h of
+ *   √η_k / T^¼ and T^1.5 / (p D_jk) (degree 4), λ_k / √T (degree 6; it carries c_p(T))
+ * (relative residuals minimised; largest fit deviations from the kinetic theory over 200–3500 K:
+ * 0.5 % for η and D_jk near the ends of the range, 1.1 % for λ_k near c_p's joint at 1000 K),
  * and of the Soret coefficients θ_kj (absolute). Outside FIT_RANGE_K the polynomials are extrapolated
  * (smoothly; kinetic theory itself is valid there, the fit is only less checked).
  *
@@ -83,7 +85,9 @@ export interface MixtureTransport {
 /** Temperature range of the polynomial fits, K (the mechanism's thermo range for GRI-Mech 3.0). */
 export const TRANSPORT_FIT_RANGE_K: readonly [number, number] = [200, 3500];
 const FIT_POINTS = 50;
-const NC = 5; // coefficients per fit (degree 4)
+const NC = 5; // coefficients per fit of viscosity, diffusion and θ (degree 4)
+/** Conductivity carries c_p(T), which is less smooth (NASA-7 ranges joined at 1000 K): degree 6. */
+const NCL = 7;
 /** Species lighter than this (kg/mol) carry thermal diffusion when the Soret option is on: H and H2. */
 const LIGHT_SPECIES_MAX_kg_per_mol = 5e-3;
 /** Floor added to every mole fraction in the diffusion closure (see the module note). */
@@ -258,8 +262,9 @@ function solveDense(M: Float64Array, b: Float64Array, n: number): void {
   }
 }
 
-/** Weighted least-squares polynomial (NC coefficients) of y(u) with weights w; writes into out[at..at+NC). */
-function fitPoly(u: Float64Array, y: Float64Array, w: Float64Array, out: Float64Array, at: number): void {
+/** Weighted least-squares polynomial (nc coefficients) of y(u) with weights w; writes into out[at..at+nc). */
+function fitPoly(u: Float64Array, y: Float64Array, w: Float64Array, out: Float64Array, at: number, nc = NC): void {
+  const NC = nc;
   const M = new Float64Array(NC * NC);
   const b = new Float64Array(NC);
   const pw = new Float64Array(NC);
@@ -292,7 +297,7 @@ interface TransportFits {
   uc: number;
   uh: number;
   viscFit: Float64Array; // √η_k / T^¼, K × NC
-  condFit: Float64Array; // λ_k / √T, K × NC
+  condFit: Float64Array; // λ_k / √T, K × NCL
   diffFit: Float64Array; // T^1.5 / (p D_jk), K × K × NC (symmetric, full)
   light: number[];
   thetaFit: Float64Array; // θ_kj of light species l: (l·K + j) × NC
@@ -327,7 +332,7 @@ function buildFits(mech: Mechanism, soret: boolean): TransportFits {
   }
 
   const viscFit = new Float64Array(K * NC);
-  const condFit = new Float64Array(K * NC);
+  const condFit = new Float64Array(K * NCL);
   const diffFit = new Float64Array(K * K * NC);
   const y = new Float64Array(FIT_POINTS);
   const w = new Float64Array(FIT_POINTS);
@@ -341,7 +346,7 @@ function buildFits(mech: Mechanism, soret: boolean): TransportFits {
       y[i] = conductivityKT(kd, k, Tfit[i], cpR[i * K + k]) / Math.sqrt(Tfit[i]);
       w[i] = 1 / y[i];
     }
-    fitPoly(ufit, y, w, condFit, k * NC);
+    fitPoly(ufit, y, w, condFit, k * NCL, NCL);
   }
   for (let j = 0; j < K; j++) {
     for (let k = j; k < K; k++) {
@@ -439,7 +444,8 @@ export function createMixtureTransport(mech: Mechanism, options: TransportOption
       sv[k] = s;
       invSv[k] = 1 / s;
       etaK[k] = s * s;
-      lamK[k] = sqrtT * (condFit[o] + condFit[o + 1] * u + condFit[o + 2] * u2 + condFit[o + 3] * u3 + condFit[o + 4] * u4);
+      const c = k * NCL;
+      lamK[k] = sqrtT * (condFit[c] + u * (condFit[c + 1] + u * (condFit[c + 2] + u * (condFit[c + 3] + u * (condFit[c + 4] + u * (condFit[c + 5] + u * condFit[c + 6]))))));
     }
     // Wilke: Φ_kj = [1 + (η_k/η_j)^½ (W_j/W_k)^¼]² / √(8(1 + W_k/W_j)); Φ_jk = Φ_kj (η_j/η_k)(W_k/W_j)
     for (let k = 0; k < K; k++) {
@@ -546,7 +552,10 @@ export function createMixtureTransport(mech: Mechanism, options: TransportOption
     },
     pureConductivity_W_per_mK(k: number, T: number): number {
       checkState(T, 1);
-      return Math.sqrt(T) * poly(condFit, k * NC, uOf(T));
+      const u = uOf(T);
+      let v = 0;
+      for (let q = NCL - 1; q >= 0; q--) v = v * u + condFit[k * NCL + q];
+      return Math.sqrt(T) * v;
     },
     binaryDiffusion_m2_per_s(j: number, k: number, T: number, p_Pa: number): number {
       checkState(T, p_Pa);
