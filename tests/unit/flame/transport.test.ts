@@ -211,7 +211,7 @@ describe("mixture rules", () => {
     });
   });
 
-  it("D_km of a trace species in N2 equals its binary coefficient with N2 (Blanc's limit, relative 1e-5)", () => {
+  it("D_km of a trace species in N2 equals its binary coefficient with N2 (trace limit, relative 1e-5)", () => {
     // D_km = (1 − Y_k)/Σ_{j≠k} X_j/D_jk → D_k,N2 as X_k → 0 (Bird, Stewart & Lightfoot, Transport
     // Phenomena, 2nd ed. 2002, ch. 17; Kee, Coltrin & Glarborg 2003, ch. 12)
     const X = new Float64Array(mech.nSpecies);
