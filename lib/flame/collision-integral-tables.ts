@@ -3,12 +3,12 @@
  * Stockmayer 12-6-3 potential, as published in
  *
  *   L. Monchick & E. A. Mason, "Transport properties of polar gases",
- *   J. Chem. Phys. 35 (1961) 1676–1697, Tables I–IV (Ω(2,2)*, A*, C* against T* and δ*).
+ *   J. Chem. Phys. 35 (1961) 1676, tables of Ω(2,2)*, A* and C* against T* and δ*.
  *
  * The δ* = 0 columns are the Lennard-Jones 12-6 values (Hirschfelder, Curtiss & Bird, Molecular
- * Theory of Gases and Liquids, Wiley 1954, Table I-M). The orientation-averaged Stockmayer values are
+ * Theory of Gases and Liquids, Wiley 1954, appendix tables). The orientation-averaged Stockmayer values are
  * those used by the classic mixture-averaged transport-fitting practice (Kee, Coltrin & Glarborg,
- * Chemically Reacting Flow, Wiley 2003, §12.2–12.4).
+ * Chemically Reacting Flow, Wiley 2003, ch. 12).
  *
  * Definitions: T* = k_B T / ε, δ* = μ² / (2 ε σ³) (Gaussian units), A* = Ω(2,2)* / Ω(1,1)*,
  * C* = Ω(1,2)* / Ω(1,1)*. Tables are row-major: row i is T* = TSTAR[i], column j is δ* = DELTA_STAR[j].

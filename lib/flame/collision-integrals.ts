@@ -13,7 +13,7 @@
  * - B* = (5Ω(1,2)* − 4Ω(1,3)*)/Ω(1,1)*, only needed for thermal diffusion of light species against
  *   non-polar partners: from the Neufeld–Janzen–Aziz Ω(1,1)* with the exact recursion of the
  *   reduced integrals, Ω(l,s+1)* = Ω(l,s)* + (T* /(s+2)) dΩ(l,s)* /dT* (Hirschfelder, Curtiss & Bird,
- *   Molecular Theory of Gases and Liquids, Wiley 1954, §8.2).
+ *   Molecular Theory of Gases and Liquids, Wiley 1954, ch. 8).
  */
 import { A_STAR, C_STAR, DELTA_STAR, OMEGA22_STAR, TSTAR } from "./collision-integral-tables";
 

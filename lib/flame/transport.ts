@@ -19,7 +19,7 @@
  *   D_jk = (3/16) √(2π (k_B T)³/m_jk) / (p π σ_jk² Ω(1,1)*(T*_jk, δ*_jk))
  *   A polar–non-polar pair (one dipole zero) gets the induced-dipole correction
  *   ξ = 1 + ¼ α*_n μ*_p² √(ε_p/ε_n) (α*_n = α_n/σ_n³, μ*_p² = μ_p²/(ε_pσ_p³)): ε_jk → ε_jk ξ², σ_jk → σ_jk ξ^(−1/6)
- *   (Hirschfelder, Curtiss & Bird §8.6; Kee, Coltrin & Glarborg §12.3).
+ *   (Hirschfelder, Curtiss & Bird ch. 8; Kee, Coltrin & Glarborg ch. 12).
  * Collision integrals: collision-integrals.ts (Monchick–Mason tables).
  *
  * Fits (made once per mechanism and option set, at creation): on 50 temperatures spaced evenly in ln T
@@ -34,7 +34,7 @@
  *   viscosity   Wilke (J. Chem. Phys. 18 (1950) 517): η = Σ X_k η_k / Σ_j X_j Φ_kj,
  *               Φ_kj = [1 + (η_k/η_j)^½ (W_j/W_k)^¼]² / √(8(1 + W_k/W_j))
  *   conductivity λ = ½ (Σ X_k λ_k + 1/Σ X_k/λ_k) (Mathur, Tondon & Saxena, Mol. Phys. 12 (1967) 569)
- *   diffusion   D_km = (1 − Y_k) / Σ_{j≠k} X_j/D_jk (Bird, Stewart & Lightfoot; Kee et al. eq. 12.178),
+ *   diffusion   D_km = (1 − Y_k) / Σ_{j≠k} X_j/D_jk (Bird, Stewart & Lightfoot, Transport Phenomena; Kee, Coltrin & Glarborg ch. 12),
  *               with 1 − Y_k evaluated as Σ_{j≠k} X_j W_j / Σ_j X_j W_j (no cancellation near pure k).
  *   Mole fractions are used as max(X_k, 0) + 1e-12 and renormalised, so that a pure species or an
  *   absent one gives finite, continuous D_km (the 1e-12 floor changes any result by < 1e-9 relative).
@@ -43,8 +43,8 @@
  * Thermal diffusion (option `soret`): for the light species H and H2 (W < 5 g/mol) only, the
  * thermal diffusion ratio Θ_k = Σ_{j≠k} θ_kj X_k X_j with the Chapman–Cowling first approximation
  *   θ_kj = (15/2) (2A* + 5)(6C* − 5) / (A*(16A* − 12B* + 55)) · (W_k − W_j)/(W_k + W_j)
- * (Chapman & Cowling, The Mathematical Theory of Non-Uniform Gases, 3rd ed. 1970, §9.8; Kee, Coltrin &
- * Glarborg §12.6), A*, C* at (T*_kj, δ*_kj) from the tables, B* of the LJ potential by recursion.
+ * (Chapman & Cowling, The Mathematical Theory of Non-Uniform Gases, 3rd ed. 1970, chs. 8–9; Kee, Coltrin &
+ * Glarborg ch. 12), A*, C* at (T*_kj, δ*_kj) from the tables, B* of the LJ potential by recursion.
  * Sign convention: the thermal diffusion velocity is V_k^T = −(D_km Θ_k / X_k)(1/T) dT/dz, so the mass
  * flux is j_k^T = −ρ (W_k/W̄) D_km Θ_k (1/T) dT/dz; Θ_k < 0 for H and H2 (they drift to the hot side).
  * Θ_k is zero for every other species, and for all species when the option is off.

@@ -158,7 +158,7 @@ describe("binary diffusion coefficients at 101.325 kPa", () => {
   });
 
   it("scales as 1/p", () => {
-    // Chapman–Enskog dilute-gas theory (Hirschfelder, Curtiss & Bird 1954, eq. 8.2-44): D·p is a
+    // Chapman–Enskog dilute-gas theory (Hirschfelder, Curtiss & Bird 1954, ch. 8): D·p is a
     // function of T alone.
     const a = tr.binaryDiffusion_m2_per_s(idx("H2"), idx("N2"), 1200, P_ATM);
     const b = tr.binaryDiffusion_m2_per_s(idx("H2"), idx("N2"), 1200, 10 * P_ATM);
@@ -250,7 +250,7 @@ describe("thermal diffusion (Soret) option", () => {
 
   it("when on, only H and H2 carry a ratio; H2 in N2 drifts to the hot side with 0.2 < |α_T| < 0.5", () => {
     // Sign: the light component of a mixture concentrates in the hot region (Chapman & Cowling,
-    // The Mathematical Theory of Non-Uniform Gases, 3rd ed. 1970, §8.6 / §14.7). Magnitude: the
+    // The Mathematical Theory of Non-Uniform Gases, 3rd ed. 1970, chs. 8 and 14). Magnitude: the
     // measured thermal diffusion factor of H2–N2 near room temperature is about 0.3 (value from
     // memory, K. E. Grew & T. L. Ibbs, Thermal Diffusion in Gases, CUP 1952); the first
     // approximation used here is known to overshoot somewhat, hence the wide band.
