@@ -154,7 +154,8 @@ export function createKinetics(mech: Mechanism): Kinetics {
     for (let k = 0; k < nS; k++) gRT[k] = hRT[k] - sR[k];
     const lnC0 = Math.log(stdConc(T));
     for (let i = 0; i < nR; i++) {
-      kInf[i] = A[i] * Math.exp(B[i] * lnT - EaR[i] * invT);
+      const bi = B[i], ei = EaR[i];
+      kInf[i] = bi === 0 && ei === 0 ? A[i] : A[i] * Math.exp(bi * lnT - ei * invT);
       if (kind[i] === 2) {
         k0[i] = A0[i] * Math.exp(B0[i] * lnT - Ea0R[i] * invT);
         const tk = troeKind[i];
