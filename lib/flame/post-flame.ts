@@ -89,6 +89,8 @@ export interface PostFlameResult {
   samples: PostFlameSample[];
   steps: number;
   rejectedSteps: number;
+  /** Steps retried with half the step because Newton did not converge. */
+  newtonFailures: number;
   /** |h_end − h_start| / (R T/W̄) for the adiabatic run (0 for isothermal). */
   enthalpyDrift: number;
   label: string;
@@ -231,15 +233,15 @@ export function integratePostFlame(mech: Mechanism, kin: Kinetics, input: PostFl
   let h = Math.min(1e-8, tEnd);
   let steps = 0, rejected = 0, newtonFailures = 0;
   while (t < tEnd * (1 - 1e-12)) {
-    if (input.signal?.aborted) throw new NotConvergedError("post-flame", "cancelled", { timeMs: t * 1000, steps });
+    if (input.signal?.aborted) throw new NotConvergedError("post-flame", "cancelled", { cancelled: true, timeMs: t * 1000, steps });
     if (steps + rejected > MAX_STEPS) {
-      throw new NotConvergedError("post-flame", `the post-flame integration did not reach ${residenceMs} ms in ${MAX_STEPS} steps`, { timeMs: t * 1000, steps, rejected, stepS: h, temperatureK: y0[n] }, "postFlameResidenceMs");
+      throw new NotConvergedError("post-flame", `the post-flame integration did not reach ${residenceMs} ms in ${MAX_STEPS} steps`, { timeMs: t * 1000, steps, rejected, newtonFailures, stepS: h, temperatureK: y0[n] }, "postFlameResidenceMs");
     }
     // do not step over the next sample time or the end
     const tStop = nextSample < samplesMs.length ? Math.min(samplesMs[nextSample] / 1000, tEnd) : tEnd;
     if (t + h > tStop) h = tStop - t;
     if (h < 1e-16 * Math.max(tEnd, 1e-9) || h < 1e-20) {
-      throw new NotConvergedError("post-flame", "the post-flame integration step fell below round-off", { timeMs: t * 1000, steps, rejected, stepS: h, temperatureK: y0[n] }, "postFlameResidenceMs");
+      throw new NotConvergedError("post-flame", "the post-flame integration step fell below round-off", { timeMs: t * 1000, steps, rejected, newtonFailures, stepS: h, temperatureK: y0[n] }, "postFlameResidenceMs");
     }
     jacobian(y0, f0);
     if (!factor(h)) { h *= 0.25; rejected++; continue; }
@@ -310,6 +312,7 @@ export function integratePostFlame(mech: Mechanism, kin: Kinetics, input: PostFl
     samples,
     steps,
     rejectedSteps: rejected,
+    newtonFailures,
     enthalpyDrift: drift,
     label: POST_FLAME_LABEL,
     conversion: POST_FLAME_CONVERSION,

@@ -122,7 +122,7 @@ export function mechanismJsonText(raw: RawMechanism): string {
 export function convertMechanismYaml(text: string, name: string, citation: string): RawMechanism {
   const doc = parse(text) as Y;
   const units = doc.units as Y;
-  if (!units || units.length !== "cm" || units.time !== "s" || units.quantity !== "mol" || units["activation-energy"] !== "cal/mol") {
+  if (units?.length !== "cm" || units.time !== "s" || units.quantity !== "mol" || units["activation-energy"] !== "cal/mol") {
     fail(`units must be {length: cm, time: s, quantity: mol, activation-energy: cal/mol}, got ${JSON.stringify(units)}`);
   }
   const phase = (doc.phases as Y[])[0];
@@ -139,7 +139,7 @@ export function convertMechanismYaml(text: string, name: string, citation: strin
     if (ranges.length !== 3 || data.length !== 2 || data[0].length !== 7 || data[1].length !== 7) fail(`species ${n}: NASA7 needs two ranges of 7 coefficients`);
     if (th["reference-pressure"] !== undefined) fail(`species ${n}: a reference-pressure other than the mechanism default is not supported`);
     const tr = sp.transport as Y;
-    if (!tr || tr.model !== "gas") fail(`species ${n}: gas transport data missing`);
+    if (tr?.model !== "gas") fail(`species ${n}: gas transport data missing`);
     const geometry = tr.geometry as string;
     if (geometry !== "atom" && geometry !== "linear" && geometry !== "nonlinear") fail(`species ${n}: geometry ${geometry}`);
     const composition = sp.composition as Record<string, number>;
