@@ -2,7 +2,9 @@ import { describe, expect, it } from "vitest";
 import { solveEquilibriumTP } from "../../../lib/combustion/equilibrium";
 import { createKinetics } from "../../../lib/flame/kinetics";
 import { loadMechanism } from "../../../lib/flame/mechanism";
-import { R_J_per_molK } from "../../../lib/units/constants";
+import { g_J_per_mol } from "../../../lib/thermo/nasa7";
+import { SPECIES } from "../../../lib/thermo/species-data";
+import { atmospherePa, R_J_per_molK, standardPressurePa } from "../../../lib/units/constants";
 import { mechanismEquilibrium } from "./mech-equilibrium";
 
 const mech = loadMechanism();
@@ -53,6 +55,33 @@ describe("GRI-Mech 3.0 kinetics", () => {
     // the irreversible reactions keep running: the forward rate of R135 CH2 + O2 => OH + H + CO is not zero
     expect(f[134]).toBeGreaterThan(0);
   });
+
+  it.each([1500, 2000, 2500])(
+    "K_c at %s K agrees with NASA Glenn thermo within 0.5 per cent once the 1 atm standard state is applied",
+    (T) => {
+      // Independent thermo: NASA Glenn (McBride, Zehe & Gordon, NASA/TP-2002-211556) at 1 bar, as in
+      // lib/thermo/species-data.ts. CHEMKIN (Kee, Rupley, Miller, SAND89-8009, 1989) forms
+      // K_c = K_p (P_atm/RT)^Δν with P_atm = 1 atm, so for Δν = −1 the mechanism's K_c is the Glenn value
+      // × (1 bar/1 atm) = 0.98692 × (thermo differences of the two data sets, ≤ 0.3 % here).
+      const Kc = new Float64Array(nR);
+      kin.equilibriumConstants(T, Kc);
+      const cases: [number, Record<string, number>][] = [
+        [0, { O: -2, O2: 1 }], // 2 O + M <=> O2 + M
+        [1, { O: -1, H: -1, OH: 1 }], // O + H + M <=> OH + M
+        [37, { H: -1, O2: -1, O: 1, OH: 1 }], // H + O2 <=> O + OH
+      ];
+      for (const [i, nu] of cases) {
+        let dG = 0, dn = 0;
+        for (const [k, v] of Object.entries(nu)) {
+          dG += v * g_J_per_mol(SPECIES[k], T);
+          dn += v;
+        }
+        const glennKc = Math.exp(-dG / (R_J_per_molK * T)) * (standardPressurePa / (R_J_per_molK * T)) ** dn;
+        const expected = glennKc * (standardPressurePa / atmospherePa) ** -dn; // 1-atm convention
+        expect(Math.abs(Kc[i] / expected - 1)).toBeLessThan(0.005);
+      }
+    },
+  );
 
   it("H + O2 <=> O + OH: forward rate constant from the GRI-Mech 3.0 reaction list", () => {
     // GRI-Mech 3.0 (Smith et al. 1999), reaction 38: A = 2.65e16 cm3/(mol s), b = −0.6707, Ea = 17041 cal/mol.
