@@ -23,17 +23,12 @@ function methaneAir(phi: number): Record<string, number> {
 }
 
 /** Equilibrium of the mechanism's species on its own thermo at (T, p), started from Stoke's equilibrium solver. */
-function equilibriumState(phi: number, T: number, p: number): Float64Array {
+function equilibriumState(phi: number, T: number, p: number): { C: Float64Array; X: Float64Array; stoke: Record<string, number> } {
   const el = methaneAir(phi);
-  const stoke = solveEquilibriumTP({ elementMoles: el, pressurePa: p, temperatureK: T });
-  const x = stoke.moleFractions;
+  const x = solveEquilibriumTP({ elementMoles: el, pressurePa: p, temperatureK: T }).moleFractions;
   const start = { CO2: x.CO2, H2O: x.H2O, O2: x.O2, N2: x.N2, AR: x.Ar, CO: x.CO, H2: x.H2, OH: x.OH };
   const eq = mechanismEquilibrium(mech, T, p, el, start);
-  // the two thermo data sets are close: the mechanism's equilibrium agrees with Stoke's solver on the majors
-  for (const [m, s] of [["CO2", "CO2"], ["H2O", "H2O"], ["N2", "N2"], ["O2", "O2"], ["NO", "NO"]] as const) {
-    expect(Math.abs(eq.X[idx(m)] / x[s] - 1)).toBeLessThan(0.05);
-  }
-  return eq.C;
+  return { C: eq.C, X: eq.X, stoke: x };
 }
 
 describe("GRI-Mech 3.0 kinetics", () => {
@@ -42,7 +37,7 @@ describe("GRI-Mech 3.0 kinetics", () => {
     [0.8, 1600, 2e6],
     [1.3, 1900, 50000],
   ])("detailed balance: at equilibrium (φ %s, %s K, %s Pa) every reversible reaction's net rate vanishes", (phi, T, p) => {
-    const C = equilibriumState(phi, T, p);
+    const { C } = equilibriumState(phi, T, p);
     const f = new Float64Array(nR), r = new Float64Array(nR), q = new Float64Array(nR);
     kin.ratesOfProgress(T, C, f, r, q);
     let worst = 0;
@@ -82,6 +77,13 @@ describe("GRI-Mech 3.0 kinetics", () => {
       }
     },
   );
+
+  it("the mechanism's equilibrium (its own thermo) agrees with Stoke's equilibrium solver within 1 % on CO2, H2O, N2, O2, NO", () => {
+    // Two thermo data sets (GRI-Mech 3.0's and NASA Glenn's) describe the same species: their equilibria
+    // differ by their small data differences only (0.6 % for NO at 2200 K; 1 % allowed).
+    const { X, stoke } = equilibriumState(1.0, 2200, 101325);
+    for (const k of ["CO2", "H2O", "N2", "O2", "NO"]) expect(Math.abs(X[idx(k)] / stoke[k] - 1)).toBeLessThan(0.01);
+  });
 
   it("H + O2 <=> O + OH: forward rate constant from the GRI-Mech 3.0 reaction list", () => {
     // GRI-Mech 3.0 (Smith et al. 1999), reaction 38: A = 2.65e16 cm3/(mol s), b = −0.6707, Ea = 17041 cal/mol.
