@@ -14,6 +14,7 @@ const BENCHES: Bench[] = [
   { name: "properties", file: "./properties.bench.ts", fn: "benchProperties" },
   { name: "study", file: "./study.bench.ts", fn: "benchStudy" },
   { name: "pages", file: "./pages.bench.ts", fn: "benchPages" },
+  { name: "flame", file: "./flame.bench.ts", fn: "benchFlame" },
 ];
 
 function median(v: number[]): number {
