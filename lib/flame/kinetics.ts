@@ -20,9 +20,9 @@
  *   data is P_atm = 1 atm = 101325 Pa exactly (`mech.standardPressurePa`). Irreversible reactions
  *   (`=>`) have no reverse rate.
  *
- * Jacobian: ∂ω̇/∂C analytic (including the dependence of [M] on every collider, and of the fall-off
- * factor — Lindemann and Troe — on P_r); ∂ω̇/∂T by a one-sided finite difference at constant C
- * (relative step 1e-6), which costs one extra rate evaluation.
+ * Jacobian, analytic: ∂ω̇/∂C (including the dependence of [M] on every collider, and of the fall-off
+ * factor — Lindemann and Troe — on P_r) and ∂ω̇/∂T at constant C (Arrhenius, van 't Hoff for 1/K_c,
+ * and the temperature dependence of P_r and F_cent in the fall-off factor).
  *
  * All evaluations are allocation-free: work arrays are made once in createKinetics. Temperature-
  * dependent quantities are cached for the last temperature used.
@@ -137,11 +137,14 @@ export function createKinetics(mech: Mechanism): Kinetics {
   const k0 = new Float64Array(nR);
   const invKc = new Float64Array(nR); // 1/K_c (0 for irreversible reactions)
   const fcent = new Float64Array(nR);
+  // temperature derivatives at constant concentrations (for the Jacobian's ∂ω̇/∂T)
+  const dlnkInf = new Float64Array(nR), dlnk0 = new Float64Array(nR), dfcent = new Float64Array(nR), dlnInvKc = new Float64Array(nR);
+  const dlnkf = new Float64Array(nR); // d ln k_f,eff/dT at constant C
   const kfEff = new Float64Array(nR); // effective k_f at (T, C)
   const dkfdM = new Float64Array(nR); // ∂k_f,eff/∂[M] (fall-off)
   const conc3 = new Float64Array(nR); // [M] (three-body, fall-off)
   const qf = new Float64Array(nR), qr = new Float64Array(nR);
-  const wT = new Float64Array(nS), w0 = new Float64Array(nS);
+  const w0 = new Float64Array(nS);
   let lastT = Number.NaN;
   const stdConc = (T: number) => mech.standardPressurePa / (R_J_per_molK * T);
 
@@ -156,23 +159,37 @@ export function createKinetics(mech: Mechanism): Kinetics {
     for (let i = 0; i < nR; i++) {
       const bi = B[i], ei = EaR[i];
       kInf[i] = bi === 0 && ei === 0 ? A[i] : A[i] * Math.exp(bi * lnT - ei * invT);
+      dlnkInf[i] = (bi + ei * invT) * invT;
       if (kind[i] === 2) {
         k0[i] = A0[i] * Math.exp(B0[i] * lnT - Ea0R[i] * invT);
+        dlnk0[i] = (B0[i] + Ea0R[i] * invT) * invT;
         const tk = troeKind[i];
         if (tk > 0) {
           const a = troeA[i];
-          let fc = (1 - a) * Math.exp(-T / troeT3[i]) + a * Math.exp(-T / troeT1[i]);
-          if (tk === 2) fc += Math.exp(-troeT2[i] * invT);
+          const e3 = Math.exp(-T / troeT3[i]), e1 = Math.exp(-T / troeT1[i]);
+          let fc = (1 - a) * e3 + a * e1;
+          let dfc = (-(1 - a) * e3) / troeT3[i] - (a * e1) / troeT1[i];
+          if (tk === 2) {
+            const e2 = Math.exp(-troeT2[i] * invT);
+            fc += e2;
+            dfc += troeT2[i] * invT * invT * e2;
+          }
           fcent[i] = fc;
+          dfcent[i] = dfc;
         }
       }
       if (reversible[i]) {
-        let dG = 0;
-        for (let p = sOff[i]; p < sOff[i + 1]; p++) dG += sNu[p] * gRT[sIdx[p]];
-        // ln K_c = −ΔG°/RT + Δν ln(P_atm/RT)
+        let dG = 0, dH = 0;
+        for (let p = sOff[i]; p < sOff[i + 1]; p++) {
+          dG += sNu[p] * gRT[sIdx[p]];
+          dH += sNu[p] * hRT[sIdx[p]];
+        }
+        // ln K_c = −ΔG°/RT + Δν ln(P_atm/RT);  d ln(1/K_c)/dT = (−ΔH°/RT + Δν)/T  (van 't Hoff)
         invKc[i] = Math.exp(dG - dNu[i] * lnC0);
+        dlnInvKc[i] = (dNu[i] - dH) * invT;
       } else {
         invKc[i] = 0;
+        dlnInvKc[i] = 0;
       }
     }
   }
@@ -183,18 +200,22 @@ export function createKinetics(mech: Mechanism): Kinetics {
     for (let k = 0; k < nS; k++) Ctot += C[k];
     for (let i = 0; i < nR; i++) {
       const kd = kind[i];
-      if (kd === 0) { kfEff[i] = kInf[i]; continue; }
+      if (kd === 0) { kfEff[i] = kInf[i]; dlnkf[i] = dlnkInf[i]; continue; }
       let M = effDefault[i] * Ctot;
       for (let p = eOff[i]; p < eOff[i + 1]; p++) M += eVal[p] * C[eIdx[p]];
       conc3[i] = M;
-      if (kd === 1) { kfEff[i] = kInf[i]; continue; }
+      if (kd === 1) { kfEff[i] = kInf[i]; dlnkf[i] = dlnkInf[i]; continue; }
       // fall-off
       const ki = kInf[i];
-      const Pr = Math.max((k0[i] * M) / ki, PR_FLOOR);
+      const PrRaw = (k0[i] * M) / ki;
+      const Pr = Math.max(PrRaw, PR_FLOOR);
       const lind = Pr / (1 + Pr);
-      let F = 1, dlnFdx = 0;
+      // d ln P_r/dT at constant [M] (0 where P_r sits on its floor)
+      const dlnPr = PrRaw > PR_FLOOR ? dlnk0[i] - dlnkInf[i] : 0;
+      let F = 1, dlnFdx = 0, dlnFdT = 0;
       if (troeKind[i] > 0) {
-        const lfc = Math.log10(Math.max(fcent[i], 1e-300));
+        const fc = Math.max(fcent[i], 1e-300);
+        const lfc = Math.log10(fc);
         const c = -0.4 - 0.67 * lfc;
         const n = 0.75 - 1.27 * lfc;
         const xc = Math.log10(Pr) + c;
@@ -204,8 +225,15 @@ export function createKinetics(mech: Mechanism): Kinetics {
         F = 10 ** (lfc * g);
         // d ln F / d log10 P_r = ln F_cent · d g/d f · d f/d x,  dg/df = −2f g², df/dx = n/den²
         dlnFdx = lfc * LN10 * (-2 * f * g * g) * (n / (den * den));
+        // d ln F/dT through F_cent (in c, n and the prefactor) and through P_r (in x)
+        const dlfc = fcent[i] > 1e-300 ? dfcent[i] / (fc * LN10) : 0;
+        const dxc = dlnPr / LN10 - 0.67 * dlfc;
+        const dden = -1.27 * dlfc - 0.14 * dxc;
+        const df = (dxc * den - xc * dden) / (den * den);
+        dlnFdT = LN10 * (dlfc * g + lfc * (-2 * f * g * g) * df);
       }
       kfEff[i] = ki * lind * F;
+      dlnkf[i] = dlnkInf[i] + dlnPr / (1 + Pr) + dlnFdT;
       // ∂k_f/∂[M] = k_0 · d/dP_r [P_r F/(1+P_r)] = k_0 · F · (1/(1+P_r)² + (1/(1+P_r)) d ln F/d log10 P_r / ln 10)
       dkfdM[i] = Pr > PR_FLOOR ? k0[i] * F * (1 / ((1 + Pr) * (1 + Pr)) + dlnFdx / ((1 + Pr) * LN10)) : k0[i] * F;
     }
@@ -238,11 +266,14 @@ export function createKinetics(mech: Mechanism): Kinetics {
   }
 
   function jacobian(T: number, C: Float64Array, dWdC: Float64Array, dWdT: Float64Array): void {
-    // ∂ω̇/∂T at constant C by a forward difference
-    const dT = 1e-6 * T;
-    net(T + dT, C, wT);
     net(T, C, w0);
-    for (let k = 0; k < nS; k++) dWdT[k] = (wT[k] - w0[k]) / dT;
+    // ∂ω̇/∂T at constant C: d q_f/dT = q_f d ln k_f/dT, d q_r/dT = q_r (d ln k_f/dT + d ln(1/K_c)/dT)
+    dWdT.fill(0, 0, nS);
+    for (let i = 0; i < nR; i++) {
+      const d = qf[i] * dlnkf[i] - qr[i] * (dlnkf[i] + dlnInvKc[i]);
+      if (d === 0) continue;
+      for (let p = sOff[i]; p < sOff[i + 1]; p++) dWdT[sIdx[p]] += sNu[p] * d;
+    }
     // analytic ∂ω̇/∂C; net() above left kfEff, conc3, dkfdM, qf, qr at (T, C)
     dWdC.fill(0, 0, nS * nS);
     for (let i = 0; i < nR; i++) {
