@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { solveEquilibriumTP } from "../../../lib/combustion/equilibrium";
-import { InputError } from "../../../lib/errors";
+import { InputError, NotConvergedError } from "../../../lib/errors";
 import { createKinetics } from "../../../lib/flame/kinetics";
 import { loadMechanism } from "../../../lib/flame/mechanism";
 import { integratePostFlame, noReport } from "../../../lib/flame/post-flame";
@@ -133,5 +133,19 @@ describe("post-flame NO (plug flow with the full mechanism)", () => {
     } catch (e) {
       expect((e as InputError).field).toBe("postFlameResidenceMs");
     }
+  });
+
+  it("a cancelled run stops with a not-converged error marked cancelled, never a number", () => {
+    const X0 = nitrogenFreeBurntGas(2200, 101325);
+    const ac = new AbortController();
+    ac.abort();
+    let err: unknown;
+    try {
+      integratePostFlame(mech, kin, { temperatureK: 2200, pressurePa: 101325, massFractions: massFractions(X0), residenceMs: 20, signal: ac.signal });
+    } catch (e) {
+      err = e;
+    }
+    expect(err).toBeInstanceOf(NotConvergedError);
+    expect((err as NotConvergedError).diagnostics.cancelled).toBe(true);
   });
 });
