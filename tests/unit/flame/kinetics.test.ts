@@ -152,6 +152,23 @@ describe("GRI-Mech 3.0 kinetics", () => {
     expect(kf[11] / (kinf * (Pr / (1 + Pr)) * 1e-6)).toBeCloseTo(1, 10);
   });
 
+  it("duplicate reactions add: HO2 production from OH + H2O2 alone is (k88 + k89)[OH][H2O2]", () => {
+    // GRI-Mech 3.0 reactions 88 and 89, both OH + H2O2 <=> HO2 + H2O (DUPLICATE):
+    // A = 2.0e12 cm3/(mol s), b = 0, Ea = 427 cal/mol and A = 1.7e18, b = 0, Ea = 29410 cal/mol.
+    // With only OH, H2O2 and N2 present the only other source of HO2 is 2 OH → H + HO2 (the reverse of
+    // reaction 46), about 1e-7 of the total here: 1e-6 allowed.
+    const T = 1500;
+    const C = new Float64Array(nS);
+    C[idx("OH")] = 1e-3;
+    C[idx("H2O2")] = 2e-3;
+    C[idx("N2")] = 8;
+    const w = new Float64Array(nS);
+    kin.netProductionRates(T, C, w);
+    const RT_cal = (R_J_per_molK / CAL) * T;
+    const k_cm3 = 2.0e12 * Math.exp(-427 / RT_cal) + 1.7e18 * Math.exp(-29410 / RT_cal);
+    expect(Math.abs(w[idx("HO2")] / (k_cm3 * 1e-6 * 1e-3 * 2e-3) - 1)).toBeLessThan(1e-6);
+  });
+
   it("ω̇ conserves every element (Σ_k a_ek ω̇_k = 0) in a reacting methane-air mixture", () => {
     const C = reactingState();
     const w = new Float64Array(nS);
