@@ -2,7 +2,8 @@ import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { MECHANISM_CITATIONS } from "../../../lib/flame/mechanism/citations";
 import { convertMechanismYaml, mechanismJsonText } from "../../../lib/flame/mechanism/convert";
-import { loadMechanism } from "../../../lib/flame/mechanism";
+import { createKinetics } from "../../../lib/flame/kinetics";
+import { buildMechanism, loadMechanism } from "../../../lib/flame/mechanism";
 import { meanMolarMassFromMole, speciesThermoInto } from "../../../lib/flame/thermo";
 import { R_J_per_molK } from "../../../lib/units/constants";
 
@@ -65,5 +66,65 @@ describe("GRI-Mech 3.0 data file", () => {
     // The mechanism's fit meets its range boundary at 1000 K: within 0.3 % of JANAF there.
     expect(Math.abs(cp[iN2] * R_J_per_molK - 32.697)).toBeLessThan(0.1);
     expect((h[iN2] * R_J_per_molK * 1000) / 1000).toBeCloseTo(21.463, 1);
+  });
+});
+
+describe("mechanism converter on small hand-written mechanisms", () => {
+  const species = (name: string, comp: string) => `
+- name: ${name}
+  composition: ${comp}
+  thermo:
+    model: NASA7
+    temperature-ranges: [200.0, 1000.0, 3500.0]
+    data:
+    - [3.5, 0.0, 0.0, 0.0, 0.0, -1000.0, 3.0]
+    - [3.5, 0.0, 0.0, 0.0, 0.0, -1000.0, 3.0]
+  transport:
+    model: gas
+    geometry: linear
+    well-depth: 100.0
+    diameter: 3.0`;
+  const yaml = (reactions: string) => `
+units: {length: cm, time: s, quantity: mol, activation-energy: cal/mol}
+phases:
+- name: t
+  elements: [H, O]
+  species: [H2, O2, H2O]
+species:${species("H2", "{H: 2}")}${species("O2", "{O: 2}")}${species("H2O", "{H: 2, O: 1}")}
+reactions:
+${reactions}
+`;
+
+  it("honours non-standard forward orders: q = k [H2]^1.5 [O2]^0.25 for an irreversible global step", () => {
+    // A CHEMKIN FORD-type global reaction (orders replace the stoichiometric exponents of the forward rate;
+    // CHEMKIN-II manual, Kee, Rupley & Miller, SAND89-8009, 1989): k = 1e10 (cm3/mol)^0.75/s, Ea = 0.
+    const raw = convertMechanismYaml(
+      yaml(`- equation: 2 H2 + O2 => 2 H2O
+  rate-constant: {A: 1.0e+10, b: 0.0, Ea: 0.0}
+  orders: {H2: 1.5, O2: 0.25}`),
+      "t",
+      "test",
+    );
+    const m = buildMechanism(raw);
+    const kin = createKinetics(m);
+    const C = new Float64Array([4, 9, 0]); // mol/m3
+    const w = new Float64Array(3);
+    kin.netProductionRates(1000, C, w);
+    // order n = 1.75: A_SI = 1e10 × (1e-6)^0.75 = 1e5.5 (m3/mol)^0.75/s
+    const q = 1e10 * 1e-6 ** 0.75 * 4 ** 1.5 * 9 ** 0.25;
+    expect(w[2] / (2 * q)).toBeCloseTo(1, 10);
+    expect(w[0] / (-2 * q)).toBeCloseTo(1, 10);
+  });
+
+  it("refuses rate forms it does not know, naming the reaction", () => {
+    expect(() =>
+      convertMechanismYaml(
+        yaml(`- equation: H2 + O2 <=> H2O + O2
+  type: pressure-dependent-Arrhenius
+  rate-constants: []`),
+        "t",
+        "test",
+      ),
+    ).toThrow(/reaction 1 .*not supported/);
   });
 });
