@@ -22,12 +22,17 @@ import { DEFAULT_GRID_CRITERIA, type GridCriteria } from "./grid";
 import { createKinetics, type Kinetics } from "./kinetics";
 import { loadMechanism, type Mechanism } from "./mechanism";
 import { DEFAULT_POST_FLAME_RESIDENCE_MS, DEFAULT_REFERENCE_O2_PERCENT, integratePostFlame, noReport, type NOReport } from "./post-flame";
-import { inletDensity, solvePremixed, type FlameSolution, type PremixedProblem, type ProgressInfo, type SolveStats } from "./premixed";
-import { coldStart, massFractionsFromMoles, warmStart } from "./start";
+import { DEFAULT_SOLVER_SETTINGS, inletDensity, solvePremixed, type SolverSettings, type FlameSolution, type PremixedProblem, type ProgressInfo, type SolveStats } from "./premixed";
+import { coldStart, massFractionsFromMoles, thinSolution, warmStart } from "./start";
 import { speciesThermoInto } from "./thermo";
 import { createMixtureTransport, type MixtureTransport } from "./transport";
 
 export const FLAME_SPEED_MECHANISM = "gri30" as const;
+
+/** Warm start, first try: the neighbour's grid with at most one round of pseudo-time steps. */
+const WARM_FIRST_GRID: SolverSettings = { ...DEFAULT_SOLVER_SETTINGS, maxTimeStepAttempts: 1 };
+/** Warm start, second try: a coarse copy of the neighbour's grid of about this many points. */
+const WARM_COARSE_POINTS = 30;
 
 /** Stoke's species keys that the mechanism names differently. */
 const MECHANISM_NAME: Readonly<Record<string, string>> = { Ar: "AR" };
@@ -55,6 +60,8 @@ export interface FlameSpeedState {
   flame: FlameSolution;
   unburntTemperatureK: number;
   inletDensity_kg_per_m3: number;
+  /** Inlet mass fractions of that solution. */
+  inletY: Float64Array;
   mechanism: string;
 }
 
@@ -194,15 +201,34 @@ export function computeFlameSpeed(input: FlameSpeedInput, opts: FlameSpeedOption
   const burntY = massFractionsFromMoles(mech, burntX);
 
   const criteria: GridCriteria = { ...DEFAULT_GRID_CRITERIA, ...(req.grid ?? {}), ...(opts.grid ?? {}) };
-  let start: FlameSolution;
-  if (opts.warmStart && opts.warmStart.mechanism === mech.name) {
-    start = warmStart(prob, opts.warmStart.flame, opts.warmStart.unburntTemperatureK, opts.warmStart.inletDensity_kg_per_m3, rhoU);
-  } else {
-    const xH2 = mix.fuel.h2MoleFraction ?? 0;
-    start = coldStart(prob, { temperatureK: eq.temperatureK, Y: burntY }, 0.4 + 1.6 * xH2 * xH2);
-  }
+  const burnt = { temperatureK: eq.temperatureK, Y: burntY };
+  const xH2 = mix.fuel.h2MoleFraction ?? 0;
+  const cold = () => coldStart(prob, burnt, 0.4 + 1.6 * xH2 * xH2);
   const cpu0 = typeof process !== "undefined" && process.cpuUsage ? process.cpuUsage() : undefined;
-  const run = solvePremixed(prob, start, { criteria, onProgress: opts.onProgress, signal: opts.signal });
+  const runFrom = (start: FlameSolution, firstGridSettings?: SolverSettings) =>
+    solvePremixed(prob, start, { criteria, onProgress: opts.onProgress, signal: opts.signal, firstGridSettings });
+  let run: ReturnType<typeof solvePremixed>;
+  const ws = opts.warmStart;
+  if (ws && ws.mechanism === mech.name) {
+    const guess = warmStart(prob, ws.flame, ws.unburntTemperatureK, ws.inletY, ws.inletDensity_kg_per_m3, rhoU, burnt);
+    const retryable = (e: unknown) => e instanceof NotConvergedError && !e.diagnostics.cancelled;
+    try {
+      // a near neighbour: Newton on its grid, at most one round of pseudo-time steps
+      run = runFrom(guess, WARM_FIRST_GRID);
+    } catch (e) {
+      if (!retryable(e)) throw e;
+      try {
+        // further away: pseudo-time steps on a coarse copy of its grid, then refinement
+        run = runFrom(thinSolution(guess, WARM_COARSE_POINTS));
+      } catch (e2) {
+        // too far: start again from the equilibrium-based estimate
+        if (!retryable(e2)) throw e2;
+        run = runFrom(cold());
+      }
+    }
+  } else {
+    run = runFrom(cold());
+  }
   const sol = run.solution;
   const N = sol.z.length;
   const x = sol.x;
@@ -302,7 +328,7 @@ export function computeFlameSpeed(input: FlameSpeedInput, opts: FlameSpeedOption
       burntMinusEquilibriumK: Tb - eq.temperatureK,
       refinementHistory: run.velocityHistory.map((h) => ({ gridPoints: h.gridPoints, burningVelocity_cm_per_s: 100 * h.burningVelocity_m_per_s })),
     },
-    solution: { flame: sol, unburntTemperatureK: Tu, inletDensity_kg_per_m3: rhoU, mechanism: mech.name },
+    solution: { flame: sol, unburntTemperatureK: Tu, inletDensity_kg_per_m3: rhoU, inletY, mechanism: mech.name },
     diagnostics: { ...run.stats, refinementPasses: run.refinementPasses, ...(cpu ? { cpuSeconds: (cpu.user + cpu.system) / 1e6 } : {}) },
     notes: [...FLAME_SPEED_NOTES, ...mix.notes],
   };

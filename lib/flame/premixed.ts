@@ -705,6 +705,7 @@ export class FlameGridSolver {
       this.xOld.set(this.x);
       if (this.newton(60)) return;
       this.x.set(this.xOld); // a failed steady attempt may have wandered off: time-step from where it began
+      if (attempt === s.maxTimeStepAttempts) break;
       // pseudo-time steps
       let done = 0;
       let fails = 0;
@@ -721,7 +722,7 @@ export class FlameGridSolver {
           this.x.set(this.xOld);
           dt /= 4;
           fails++;
-          if (dt < 1e-12 || fails > 30) {
+          if (dt < 1e-9 || fails > 12) {
             this.rdt = 0;
             throw new NotConvergedError("premixed-flame", "pseudo-time stepping failed (time step too small)", {
               gridPoints: this.N,
@@ -754,6 +755,8 @@ export class FlameGridSolver {
 export interface PremixedRunOptions {
   criteria: GridCriteria;
   settings?: SolverSettings;
+  /** Settings for the first grid only (e.g. a warm start allowed few pseudo-time steps). */
+  firstGridSettings?: SolverSettings;
   onProgress?: (p: ProgressInfo) => void;
   signal?: AbortSignal;
 }
@@ -798,7 +801,8 @@ export function solvePremixed(prob: PremixedProblem, start: FlameSolution, opts:
   const criteria = opts.criteria;
   for (let pass = 0; ; pass++) {
     const jFix = nearestIndex(z, zFix);
-    const solver = new FlameGridSolver(prob, z, x, jFix, tFix, opts.settings ?? DEFAULT_SOLVER_SETTINGS);
+    const settings = (pass === 0 ? opts.firstGridSettings : undefined) ?? opts.settings ?? DEFAULT_SOLVER_SETTINGS;
+    const solver = new FlameGridSolver(prob, z, x, jFix, tFix, settings);
     solver.signal = opts.signal;
     opts.onProgress?.({ stage: pass === 0 ? "solving on the starting grid" : `refinement pass ${pass}`, fraction: Math.min(0.95, z.length / criteria.maxPoints), gridPoints: z.length });
     try {

@@ -71,36 +71,54 @@ export function coldStart(prob: PremixedProblem, burnt: BurntState, burningVeloc
 }
 
 /**
- * Warm start from a neighbouring solution (another φ, hydrogen share, preheat …): its grid and
- * profiles, with the new inlet state written at the inlet point; ṁ scaled by the ratio of the inlet
- * densities (same burning velocity to start with). The anchor keeps its position and temperature,
- * moved proportionally if the new unburnt temperature differs.
+ * Warm start from a neighbouring solution (another φ, hydrogen share, preheat, pressure …): its grid
+ * and flame structure, moved onto the new problem's end states. With w the old solution's progress
+ * (T − T_u,old)/(T_end,old − T_u,old) at each point, the new profiles are
+ *   T = T_u + w (T_b − T_u),   Y = Y_old + (1 − w)(Y_u − Y_u,old) + w (Y_b − Y_end,old),
+ * so the inlet is the new fresh mixture and the burnt end the new equilibrium estimate, with the
+ * old intermediates in between. ṁ is scaled by the ratio of the inlet densities (same velocity);
+ * the anchor keeps its position and its progress value.
  */
-export function warmStart(prob: PremixedProblem, from: FlameSolution, fromUnburntK: number, fromInletDensity: number, newInletDensity: number): FlameSolution {
+export function warmStart(prob: PremixedProblem, from: FlameSolution, fromUnburntK: number, fromInletY: Float64Array, fromInletDensity: number, newInletDensity: number, burnt: BurntState): FlameSolution {
   const K = prob.mech.nSpecies;
   if (from.nSpecies !== K) throw new Error("warm start from a solution of another mechanism");
   const n = K + 2;
   const x = Float64Array.from(from.x);
   const N = from.z.length;
   const Tu = prob.unburntTemperatureK;
-  const Tb = x[(N - 1) * n];
+  const Tb = burnt.temperatureK;
+  const oe = (N - 1) * n;
+  const TbOld = from.x[oe];
+  const progress = (T: number) => Math.min(1, Math.max(0, (T - fromUnburntK) / Math.max(1, TbOld - fromUnburntK)));
   for (let j = 0; j < N; j++) {
     const o = j * n;
-    // shift temperatures so that the cold end matches the new inlet, keeping the burnt end
-    const w = (x[o] - fromUnburntK) / Math.max(1, Tb - fromUnburntK);
-    x[o] = Tu + Math.min(1, Math.max(0, w)) * (Tb - Tu);
+    const w = progress(from.x[o]);
+    x[o] = Tu + w * (Tb - Tu);
+    for (let k = 0; k < K; k++) {
+      x[o + 1 + k] = from.x[o + 1 + k] + (1 - w) * (prob.inletY[k] - fromInletY[k]) + w * (burnt.Y[k] - from.x[oe + 1 + k]);
+    }
     x[o + K + 1] *= newInletDensity / fromInletDensity;
   }
-  // upstream of the flame (where the old profile was still fresh mixture) write the new inlet mixture
-  const o0 = 0;
-  for (let k = 0; k < K; k++) {
-    const d = prob.inletY[k] - x[o0 + 1 + k];
-    for (let j = 0; j < N; j++) {
-      const o = j * n;
-      const w = (x[o] - Tu) / Math.max(1, Tb - Tu);
-      x[o + 1 + k] += d * Math.max(0, 1 - w);
-    }
-  }
-  const wFix = (from.tFix - fromUnburntK) / Math.max(1, Tb - fromUnburntK);
+  const wFix = progress(from.tFix);
   return { z: Float64Array.from(from.z), x, nSpecies: K, zFix: from.zFix, tFix: Tu + wFix * (Tb - Tu), speciesNames: from.speciesNames };
+}
+
+/**
+ * A coarser copy of a solution: every m-th point (m chosen for about `targetPoints`), always with
+ * the ends and the point nearest the anchor. For warm starts that need pseudo-time steps: those are
+ * cheap on a coarse grid, and refinement brings the points back.
+ */
+export function thinSolution(sol: FlameSolution, targetPoints: number): FlameSolution {
+  const N = sol.z.length;
+  const m = Math.max(1, Math.round(N / targetPoints));
+  if (m === 1) return sol;
+  const n = sol.nSpecies + 2;
+  let jFix = 0;
+  for (let j = 1; j < N; j++) if (Math.abs(sol.z[j] - sol.zFix) < Math.abs(sol.z[jFix] - sol.zFix)) jFix = j;
+  const keep: number[] = [];
+  for (let j = 0; j < N; j++) if (j % m === 0 || j === N - 1 || j === jFix) keep.push(j);
+  const z = Float64Array.from(keep, (j) => sol.z[j]);
+  const x = new Float64Array(keep.length * n);
+  keep.forEach((j, i) => x.set(sol.x.subarray(j * n, (j + 1) * n), i * n));
+  return { ...sol, z, x };
 }
