@@ -146,7 +146,7 @@ export class BlockTridiagonal {
 }
 
 /** In-place LU with partial pivoting of the n×n block at a[o…]; false if singular. */
-function luFactor(a: Float64Array, o: number, n: number, piv: Int32Array, po: number): boolean {
+export function luFactor(a: Float64Array, o: number, n: number, piv: Int32Array, po: number): boolean {
   for (let k = 0; k < n; k++) {
     let p = k;
     let big = Math.abs(a[o + k * n + k]);
@@ -182,7 +182,7 @@ function luFactor(a: Float64Array, o: number, n: number, piv: Int32Array, po: nu
 }
 
 /** Solves (LU) x = b in place for the vector at b[bo … bo+n). */
-function luSolve(a: Float64Array, o: number, n: number, piv: Int32Array, po: number, b: Float64Array, bo: number): void {
+export function luSolve(a: Float64Array, o: number, n: number, piv: Int32Array, po: number, b: Float64Array, bo: number): void {
   for (let k = 0; k < n; k++) {
     const p = piv[po + k];
     if (p !== k) {

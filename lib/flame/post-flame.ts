@@ -35,6 +35,7 @@
 import { InputError, NotConvergedError } from "../errors";
 import { R_J_per_molK } from "../units/constants";
 import { atReferenceO2, ppmToMg_per_m3Normal } from "../units/emissions";
+import { luFactor, luSolve } from "./block-tridiagonal";
 import type { Kinetics } from "./kinetics";
 import type { Mechanism } from "./mechanism";
 import { speciesThermoInto } from "./thermo";
@@ -149,41 +150,14 @@ export function integratePostFlame(mech: Mechanism, kin: Kinetics, input: PostFl
   const f0 = new Float64Array(N), fg = new Float64Array(N), f1 = new Float64Array(N);
   const r = new Float64Array(N), res = new Float64Array(N), dy = new Float64Array(N), err = new Float64Array(N);
 
+  /** Newton matrix I − (γ/2) h J, factored in place (dense LU of the block solver). */
   function factor(h: number): boolean {
     for (let i = 0; i < N * N; i++) Mx[i] = -D * h * Jf[i];
     for (let i = 0; i < N; i++) Mx[i * N + i] += 1;
-    for (let c = 0; c < N; c++) {
-      let pr = c, best = Math.abs(Mx[c * N + c]);
-      for (let i = c + 1; i < N; i++) {
-        const v = Math.abs(Mx[i * N + c]);
-        if (v > best) { best = v; pr = i; }
-      }
-      if (!(best > 0) || !Number.isFinite(best)) return false;
-      piv[c] = pr;
-      // swap only the columns still to be eliminated: the multipliers of earlier columns stay where the
-      // interleaved forward substitution in solve() expects them
-      if (pr !== c) for (let j = c; j < N; j++) { const t = Mx[c * N + j]; Mx[c * N + j] = Mx[pr * N + j]; Mx[pr * N + j] = t; }
-      const inv = 1 / Mx[c * N + c];
-      for (let i = c + 1; i < N; i++) {
-        const fct = Mx[i * N + c] * inv;
-        if (fct === 0) continue;
-        Mx[i * N + c] = fct;
-        for (let j = c + 1; j < N; j++) Mx[i * N + j] -= fct * Mx[c * N + j];
-      }
-    }
-    return true;
+    return luFactor(Mx, 0, N, piv, 0);
   }
   function solve(b: Float64Array): void {
-    for (let c = 0; c < N; c++) {
-      const pr = piv[c];
-      if (pr !== c) { const t = b[c]; b[c] = b[pr]; b[pr] = t; }
-      for (let i = c + 1; i < N; i++) b[i] -= Mx[i * N + c] * b[c];
-    }
-    for (let i = N - 1; i >= 0; i--) {
-      let s = b[i];
-      for (let j = i + 1; j < N; j++) s -= Mx[i * N + j] * b[j];
-      b[i] = s / Mx[i * N + i];
-    }
+    luSolve(Mx, 0, N, piv, 0, b, 0);
   }
   const wt = (i: number, a: number, b: number) => (i === n ? ATOL_T : ATOL_Y) + RTOL * Math.max(Math.abs(a), Math.abs(b));
 
