@@ -177,7 +177,8 @@ export function integratePostFlame(mech: Mechanism, kin: Kinetics, input: PostFl
       nrm = Math.sqrt(nrm / N);
       if (!Number.isFinite(nrm) || !(x[n] > 200 && x[n] < 6000)) return false;
       // converged when the remaining error, estimated from the contraction rate, is small
-      // (Hairer & Wanner, Solving ODEs II, 2nd ed., sect. IV.8, eq. 8.10)
+      // (the stopping rule for simplified Newton iterations in E. Hairer, G. Wanner, Solving Ordinary
+      // Differential Equations II, 2nd ed., Springer 1996, ch. IV)
       const rate = it > 0 ? nrm / prev : 0;
       if (it > 0 && rate >= 1) return false;
       if (nrm < NEWTON_TOL * (it > 0 ? (1 - rate) / Math.max(rate, 1e-3) : 1) || nrm < 1e-3) {
