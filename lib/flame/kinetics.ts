@@ -2,7 +2,7 @@
  * Gas-phase kinetics of a mechanism (CHEMKIN conventions, SI units): rate constants, equilibrium
  * constants, rates of progress, net molar production rates and their Jacobian.
  *
- * Rate forms (R. J. Kee, F. M. Rupley, J. A. Miller, "CHEMKIN-II", Sandia SAND89-8009 (1989), ch. 3;
+ * Rate forms (R. J. Kee, F. M. Rupley, J. A. Miller, "CHEMKIN-II", Sandia report SAND89-8009 (1989);
  * the conventions GRI-Mech 3.0 is written for):
  * - modified Arrhenius  k = A T^b exp(−Ea/(R T));
  * - three-body  q = [M] (k_f Π C^ν' − k_r Π C^ν''), [M] = Σ_j ε_j C_j (collision efficiencies ε,

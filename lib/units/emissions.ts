@@ -1,9 +1,9 @@
 /**
  * Emission-concentration conversions. One place for each.
  *
- * - Normal conditions: 0 °C (273.15 K) and 101.325 kPa, dry gas — the reference conditions of
- *   emission limit values in Directive 2010/75/EU (Industrial Emissions Directive), Annex VI Part 2,
- *   and Annex V Part 1 note.
+ * - Normal conditions: 0 °C (273.15 K) and 101.325 kPa, dry gas — the reference conditions of the
+ *   emission limit values for combustion plants in Directive 2010/75/EU (Industrial Emissions
+ *   Directive), Annex V, Part 1.
  * - ppm by volume to mg/m³ at normal conditions: c[mg/m³] = ppm × M[g/mol] / V_m[L/mol], with the
  *   ideal-gas molar volume V_m = R T0 / p0 = 22.414 L/mol (from the constants below, not rounded).
  * - Reference-O2 correction (Directive 2010/75/EU, Annex VI Part 2):

@@ -111,7 +111,7 @@ describe("GRI-Mech 3.0 kinetics", () => {
     // k_0: A = 2.62e33 cm6/(mol2 s), b = −4.76, Ea = 2440 cal/mol; Troe a = 0.783, T3 = 74, T1 = 2941, T2 = 6964;
     // efficiencies H2 2, H2O 6, CH4 3, CO 1.5, CO2 2, C2H6 3, AR 0.7.
     // Troe form: R. G. Gilbert, K. Luther, J. Troe, Ber. Bunsenges. Phys. Chem. 87 (1983) 169, as written
-    // in the CHEMKIN-II manual (Kee, Rupley, Miller, SAND89-8009, 1989), eqs. 73–76.
+    // in the CHEMKIN-II manual (Kee, Rupley, Miller, SAND89-8009, 1989).
     const T = 1800, p = 101325;
     const C = new Float64Array(nS);
     const ctot = p / (R_J_per_molK * T);

@@ -66,8 +66,8 @@ describe("post-flame NO (plug flow with the full mechanism)", () => {
       const ctot = p / (R_J_per_molK * T);
       const [a, b] = r.samples;
       const rate = ((b.moleFractions[idx("NO")] - a.moleFractions[idx("NO")]) * ctot) / 0.4e-3; // mol/(m³ s)
-      // S. R. Turns, An Introduction to Combustion, 2nd ed. (McGraw-Hill 2000), ch. 5, eqs. 5.8 and 5.15
-      // (coefficients quoted from memory of that edition): k1f = 1.8e14 exp(−38 370/T) cm³/(mol s) for
+      // S. R. Turns, An Introduction to Combustion, 2nd ed. (McGraw-Hill 2000), ch. 5, thermal (Zeldovich)
+      // mechanism (value from memory of that chapter): k1f = 1.8e14 exp(−38 370/T) cm³/(mol s) for
       // O + N2 → NO + N, and d[NO]/dt = 2 k1f [O]eq [N2]eq while NO is far below equilibrium.
       const k1f = 1.8e14 * Math.exp(-38370 / T) * 1e-6; // m³/(mol s)
       const zeldovich = 2 * k1f * X0[idx("O")] * ctot * X0[idx("N2")] * ctot;
