@@ -57,8 +57,8 @@ describe("GRI-Mech 3.0 data file", () => {
     const iH2O = m.speciesIndex.get("H2O") as number, iN2 = m.speciesIndex.get("N2") as number;
     speciesThermoInto(m, 298.15, cp, h, s);
     // NIST-JANAF Thermochemical Tables, 4th ed. (Chase 1998), H2O(g): ΔfH°(298.15) = −241.826 kJ/mol,
-    // S°(298.15) = 188.834 J/(mol K) (at 1 bar; the mechanism's 1 atm standard state lowers S° by
-    // R ln(1.01325) = 0.109 J/(mol K), within the tolerance).
+    // S°(298.15) = 188.834 J/(mol K) at 1 bar (the mechanism's records are used at CHEMKIN's 1 atm standard
+    // state; the R ln(1.01325) = 0.109 J/(mol K) between the two is within the tolerance).
     expect((h[iH2O] * R_J_per_molK * 298.15) / 1000).toBeCloseTo(-241.826, 1);
     expect(s[iH2O] * R_J_per_molK).toBeCloseTo(188.834, 0);
     speciesThermoInto(m, 1000, cp, h, s);
