@@ -4,7 +4,7 @@ import { MECHANISM_CITATIONS } from "../../../lib/flame/mechanism/citations";
 import { convertMechanismYaml, mechanismJsonText } from "../../../lib/flame/mechanism/convert";
 import { createKinetics } from "../../../lib/flame/kinetics";
 import { buildMechanism, loadMechanism } from "../../../lib/flame/mechanism";
-import { meanMolarMassFromMole, speciesThermoInto } from "../../../lib/flame/thermo";
+import { massToMole, meanMolarMass, meanMolarMassFromMole, mixtureCp_J_per_kgK, moleToMass, speciesThermoInto } from "../../../lib/flame/thermo";
 import { R_J_per_molK } from "../../../lib/units/constants";
 
 const dir = new URL("../../../lib/flame/mechanism/", import.meta.url);
@@ -48,6 +48,24 @@ describe("GRI-Mech 3.0 data file", () => {
     const X = new Float64Array(m.nSpecies);
     X[m.speciesIndex.get("N2") as number] = 1;
     expect(meanMolarMassFromMole(m, X)).toBeCloseTo(0.0280134, 9);
+  });
+
+  it("dry air on the mechanism thermo: molar mass 28.96 g/mol, c_p 1.005 kJ/(kg K) at 300 K; mass/mole round trip", () => {
+    const m = loadMechanism();
+    const n = m.nSpecies;
+    const X = new Float64Array(n), Y = new Float64Array(n), X2 = new Float64Array(n);
+    // dry air by volume (common practice, no source: rounded standard composition)
+    const air: Record<string, number> = { O2: 0.2095, N2: 0.7809, AR: 0.0093, CO2: 0.0003 };
+    for (const [k, x] of Object.entries(air)) X[m.speciesIndex.get(k) as number] = x;
+    moleToMass(m, X, Y);
+    massToMole(m, Y, X2);
+    for (let k = 0; k < n; k++) expect(X2[k]).toBeCloseTo(X[k], 14);
+    // ISO 2533:1975 (standard atmosphere): molar mass of dry air 28.96442 g/mol (value from memory)
+    expect(meanMolarMass(m, Y) * 1000).toBeCloseTo(28.964, 2);
+    const cp = new Float64Array(n), h = new Float64Array(n), s = new Float64Array(n);
+    speciesThermoInto(m, 300, cp, h, s);
+    // ideal-gas c_p of air at 300 K: 1.005 kJ/(kg K) (Çengel & Boles, Thermodynamics, Table A-2b; value from memory)
+    expect(mixtureCp_J_per_kgK(m, cp, Y) / 1000).toBeCloseTo(1.005, 2);
   });
 
   it("mechanism thermo reproduces NIST-JANAF values for H2O and N2", () => {
