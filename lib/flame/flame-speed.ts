@@ -154,11 +154,14 @@ export function flameMixture(req: Pick<FlameSpeedRequest, "fuel" | "oxidizer" | 
     throw new InputError(field, (e as Error).message);
   }
   if (!(lambda > 0) || !Number.isFinite(lambda)) throw new InputError("phi", "must give a positive oxidiser supply");
-  const nFuel = 1000 / fuel.molarMass_g_per_mol!;
+  const nFuel = 1000 / (fuel.molarMass_g_per_mol ?? Number.NaN);
   const moles: Record<string, number> = {};
   for (const [k, x] of Object.entries(fuel.gasComposition)) moles[mechName(k)] = (moles[mechName(k)] ?? 0) + nFuel * x;
   const nOx = (lambda * stoichiometricO2_mol_per_kg(fuel.elements_mol_per_kg)) / (oxidizer.O2 ?? 0);
-  for (const k of OXIDIZER_SPECIES) if (oxidizer[k]) moles[mechName(k)] = (moles[mechName(k)] ?? 0) + nOx * oxidizer[k]!;
+  for (const k of OXIDIZER_SPECIES) {
+    const xk = oxidizer[k];
+    if (xk) moles[mechName(k)] = (moles[mechName(k)] ?? 0) + nOx * xk;
+  }
   const notes: string[] = [];
   if ((fuel.gasComposition.NH3 ?? 0) > 0) notes.push(AMMONIA_NOTE);
   return { fuel, oxidizer, lambda, moles, notes };

@@ -546,7 +546,7 @@ export class FlameGridSolver {
       const Wbar = 1 / sumYoverW;
       const rho = (p * Wbar) / (R_J_per_molK * T);
       for (let k = 0; k < K; k++) C[k] = rho * x[o + 1 + k] * invW[k];
-      kin.jacobian!(T, C, dWdC, dWdT);
+      kin.jacobian?.(T, C, dWdC, dWdT);
       const RT = R_J_per_molK * T;
       const bo = j * nn;
       // s_k = Σ_i ∂ω̇_k/∂C_i C_i  (kept in dwdY temporarily)

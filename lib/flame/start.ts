@@ -18,7 +18,7 @@ const ANCHOR = 0.24;
 
 /** Domain length for a flame at pressure p, m: 2 cm at 1 atm, shrinking with pressure like a flame's thickness (~p^-0.6). */
 export function domainLength_m(pressurePa: number): number {
-  return 0.02 * Math.pow(101325 / pressurePa, 0.6);
+  return 0.02 * (101325 / pressurePa) ** 0.6;
 }
 
 /** Mass fractions from mole fractions keyed by species name (unknown names are an error). */
@@ -119,6 +119,6 @@ export function thinSolution(sol: FlameSolution, targetPoints: number): FlameSol
   for (let j = 0; j < N; j++) if (j % m === 0 || j === N - 1 || j === jFix) keep.push(j);
   const z = Float64Array.from(keep, (j) => sol.z[j]);
   const x = new Float64Array(keep.length * n);
-  keep.forEach((j, i) => x.set(sol.x.subarray(j * n, (j + 1) * n), i * n));
+  for (let i = 0; i < keep.length; i++) x.set(sol.x.subarray(keep[i] * n, (keep[i] + 1) * n), i * n);
   return { ...sol, z, x };
 }

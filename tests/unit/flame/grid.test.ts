@@ -56,7 +56,7 @@ describe("grid refinement criteria", () => {
   it("splits only as many intervals as the point budget allows, longest first", () => {
     const z = new Float64Array([0, 1, 3, 4]);
     const next = splitIntervals(z, new Uint8Array([1, 1, 1]), 5);
-    expect(Array.from(next!)).toEqual([0, 1, 2, 3, 4]);
+    expect(Array.from(next ?? [])).toEqual([0, 1, 2, 3, 4]);
   });
 
   it("interpolates a linear field exactly", () => {
