@@ -25,7 +25,6 @@ export class BlockTridiagonal {
   private readonly lu: Float64Array;
   private readonly piv: Int32Array;
   private readonly g: Float64Array;
-  private readonly tmp: Float64Array;
   private factored = false;
 
   constructor(nPoints: number, blockSize: number) {
@@ -38,7 +37,6 @@ export class BlockTridiagonal {
     this.lu = new Float64Array(nPoints * nn);
     this.piv = new Int32Array(nPoints * blockSize);
     this.g = new Float64Array(nPoints * nn);
-    this.tmp = new Float64Array(blockSize);
   }
 
   /** Sets all three block bands to zero. */
@@ -79,13 +77,41 @@ export class BlockTridiagonal {
         this.factored = false;
         return j;
       }
-      // G_j = D_j⁻¹ C_j (column by column through the LU factors; stored row-major)
+      // G_j = D_j⁻¹ C_j, all columns at once by row operations (contiguous rows; zero multipliers skipped)
       if (j < N - 1) {
-        const tmp = this.tmp;
-        for (let c = 0; c < n; c++) {
-          for (let r = 0; r < n; r++) tmp[r] = upper[o + r * n + c];
-          luSolve(lu, o, n, piv, j * n, tmp, 0);
-          for (let r = 0; r < n; r++) g[o + r * n + c] = tmp[r];
+        for (let i = 0; i < nn; i++) g[o + i] = upper[o + i];
+        const po = j * n;
+        for (let k = 0; k < n; k++) {
+          const p = piv[po + k];
+          if (p !== k) {
+            const rk = o + k * n;
+            const rp = o + p * n;
+            for (let c = 0; c < n; c++) {
+              const t = g[rk + c];
+              g[rk + c] = g[rp + c];
+              g[rp + c] = t;
+            }
+          }
+        }
+        for (let i = 1; i < n; i++) {
+          const ri = o + i * n;
+          for (let k = 0; k < i; k++) {
+            const l = lu[ri + k];
+            if (l === 0) continue;
+            const rk = o + k * n;
+            for (let c = 0; c < n; c++) g[ri + c] -= l * g[rk + c];
+          }
+        }
+        for (let i = n - 1; i >= 0; i--) {
+          const ri = o + i * n;
+          for (let k = i + 1; k < n; k++) {
+            const u = lu[ri + k];
+            if (u === 0) continue;
+            const rk = o + k * n;
+            for (let c = 0; c < n; c++) g[ri + c] -= u * g[rk + c];
+          }
+          const inv = 1 / lu[ri + i];
+          for (let c = 0; c < n; c++) g[ri + c] *= inv;
         }
       }
     }
