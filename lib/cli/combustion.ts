@@ -4,7 +4,7 @@ import { flameTemperature, type FlameResult } from "../combustion/flame";
 import { flameRequestSchema, propertiesRequestSchema, type FlameRequest } from "../schemas/combustion";
 import { normaliseOxidizer } from "../combustion/stoichiometry";
 import { kelvinToCelsius } from "../units/constants";
-import { defineCommand, type CsvTable } from "./commands";
+import { defineCommand, type CsvTable } from "./command";
 import { validate } from "./io";
 
 /** Property-sheet columns for CSV: header (with unit and basis) and the figure it holds. */

@@ -4,73 +4,8 @@
  * come from `run.ts` and `help.ts` for every command alike. Implementations load on first use, so
  * `stoke --version` and `stoke help` run none of the engine's set-up.
  */
-import { UsageError, type OptionSpec, type ParsedOptions } from "./io";
-
-export type OutputFormat = "json" | "ndjson" | "csv";
-
-/** A table for CSV output: column names carry units. */
-export interface CsvTable {
-  header: string[];
-  rows: unknown[][];
-}
-
-export interface CommandImpl<R = unknown> {
-  /** Validates one parsed JSON input and computes its result. Throws the lib/errors.ts errors. */
-  compute(input: unknown, options: ParsedOptions): R;
-  /** The result as a table (commands that offer `--format csv`). */
-  csv?(result: R, options: ParsedOptions): CsvTable;
-  /** The single-input CSV text, when it differs from the generic writer's (evaluate keeps its tables). */
-  singleCsv?(result: R, options: ParsedOptions): string;
-}
-
-/** Erases the result type of an implementation for the registry. */
-export function defineCommand<R>(impl: CommandImpl<R>): CommandImpl {
-  return impl as unknown as CommandImpl;
-}
-
-export interface CommandSpec {
-  name: string;
-  /** One line for `stoke help`. */
-  summary: string;
-  /** What one input is (a JSON object), for `stoke help COMMAND`. */
-  input: string;
-  output: string;
-  /** Output formats beside json (single input) and ndjson (batch). */
-  csv: boolean;
-  /** `--input DIR` evaluates every `*.json` file of a folder. */
-  folder: boolean;
-  /** Options of this command beside the common ones. */
-  options: readonly OptionSpec[];
-  /** Checks across options, e.g. an option that applies to one format only. */
-  checkOptions?(options: ParsedOptions): void;
-  examples: readonly string[];
-  load(): Promise<CommandImpl>;
-}
-
-/** Options every command takes. */
-export function commonOptions(spec: Pick<CommandSpec, "csv" | "folder">): OptionSpec[] {
-  const formats = spec.csv ? ["json", "ndjson", "csv"] : ["json", "ndjson"];
-  return [
-    {
-      name: "input",
-      value: spec.folder ? "FILE|DIR|-" : "FILE|-",
-      help:
-        "one JSON input (FILE, or - for standard input); a .ndjson or .jsonl FILE is a batch, one input per line" +
-        (spec.folder ? "; a DIR is a batch of its *.json files (in name order)" : ""),
-    },
-    { name: "ndjson", help: "the input is newline-delimited JSON, one input per line (standard input when --input is not given)" },
-    {
-      name: "format",
-      value: formats.join("|"),
-      choices: formats,
-      help:
-        "output: json (single input, default), ndjson (batch, default: one record per input line)" +
-        (spec.csv ? ", csv (one row per input, units in the headers)" : ""),
-    },
-    { name: "no-progress", help: "no progress line on standard error (it is shown only when standard error is a terminal)" },
-    { name: "help", help: "this help" },
-  ];
-}
+import { UsageError } from "./io";
+import type { CommandSpec } from "./command";
 
 const FUEL =
   'FUEL is {"composition": {"CH4": 0.9, "H2": 0.1}} (mole fractions), {"compound": "C2H5OH", "phase": "liquid"}, {"ultimate": {...}, ...} or {"blend": [{"fuel": FUEL, "share": 0.8}, ...], "basis": "volume|mass|energy"}';
@@ -106,6 +41,21 @@ export const COMMANDS: readonly CommandSpec[] = [
       "stoke flame --input charges.ndjson --format csv > flames.csv",
     ],
     load: async () => (await import("./combustion")).flameCommand,
+  },
+  {
+    name: "flame-speed",
+    summary: "laminar burning velocity by a 1D premixed flame (GRI-Mech 3.0, mixture-averaged transport) and post-flame NO",
+    input: `{"fuel": FUEL, "phi": 1, "unburntTemperatureK": 298.15, "pressurePa": 101325, "oxidizer": {"O2": 0.21, "N2": 0.79}, "postFlameResidenceMs": 20}; excessAirPercent or flueO2DryPercent may replace phi; all but fuel optional. Gases whose species GRI-Mech 3.0 holds (CH4, C2H6, C3H8, H2, CO, CO2, N2, Ar, H2O, NH3 …). ${FUEL}`,
+    output:
+      "burningVelocity_cm_per_s, burntTemperatureK, flameThickness_mm, gridPoints, mechanism, transport, products (burnt-end mole fractions), NO {ppm_dry, mg_per_m3_dry_at_ref_O2, referenceO2Percent, residenceMs} (a screening indicator), diagnostics; with --format csv one row per input",
+    csv: true,
+    folder: false,
+    options: [],
+    examples: [
+      `echo '{"fuel": {"composition": {"CH4": 0.8, "H2": 0.2}}, "phi": 0.9}' | stoke flame-speed --input -`,
+      "stoke flame-speed --input mixtures.ndjson --format csv > speeds.csv",
+    ],
+    load: async () => (await import("./flame-speed")).flameSpeedCommand,
   },
   {
     name: "evaluate",

@@ -4,7 +4,7 @@
  * figure as an empty cell (never 0).
  */
 import { writeCsv } from "../formats/csv";
-import type { CsvTable } from "./commands";
+import type { CsvTable } from "./command";
 
 const NUMBER = /^-?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i;
 

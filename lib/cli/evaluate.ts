@@ -2,13 +2,12 @@
  * `stoke evaluate`: a self-contained study file — plant, baseline, candidates, ranking, fit checks,
  * sensitivity, hydrogen sweep and audit trail. `--format csv --table scenarios|checks|sweep`.
  */
-import { parse } from "csv-parse/sync";
 import { studySchema } from "../schemas/study";
 import { evaluateStudy, type StudyResult } from "../study/evaluate";
 import { studyResultToCsv, type CsvTable as StudyCsvTable } from "../study/csv";
-import { defineCommand, findCommand } from "./commands";
-import { validate, type CliResult, type ParsedOptions } from "./io";
-import { runSingleSync } from "./run";
+import { defineCommand } from "./command";
+import { validate, type ParsedOptions } from "./io";
+import { readCsv } from "../formats/csv";
 
 const tableOf = (o: ParsedOptions) => (typeof o.table === "string" ? o.table : "scenarios") as StudyCsvTable;
 
@@ -22,12 +21,7 @@ export const evaluateCommand = defineCommand({
   csv(result: StudyResult, o) {
     // The study's own CSV tables (lib/study/csv.ts) are the one definition of these columns; read
     // back, they become rows of the batch table.
-    const [header, ...rows] = parse(studyResultToCsv(result, tableOf(o)), { relax_quotes: false }) as string[][];
+    const [header, ...rows] = readCsv(studyResultToCsv(result, tableOf(o)));
     return { header, rows };
   },
 });
-
-/** One study from the command line, synchronously (also used by the study tests). */
-export function runEvaluate(argv: readonly string[], stdin: () => string): CliResult {
-  return runSingleSync(findCommand("evaluate")!, evaluateCommand, argv, stdin);
-}

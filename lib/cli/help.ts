@@ -1,6 +1,7 @@
 /** Help texts, written from the command registry. */
 import { readFileSync } from "node:fs";
-import { COMMANDS, commonOptions, type CommandSpec } from "./commands";
+import { COMMANDS } from "./commands";
+import { commonOptions, type CommandSpec } from "./command";
 
 /** The version, set by the build (`dist/cli`); read from package.json when run from source. */
 declare const __STOKE_VERSION__: string | undefined;

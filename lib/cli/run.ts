@@ -10,7 +10,7 @@
 import { readdirSync, statSync } from "node:fs";
 import { join } from "node:path";
 import { InputError } from "../errors";
-import { commonOptions, type CommandImpl, type CommandSpec, type OutputFormat } from "./commands";
+import { commonOptions, type CommandImpl, type CommandSpec, type OutputFormat } from "./command";
 import { CsvCollector, toCsv } from "./csv";
 import { helpFor } from "./help";
 import {

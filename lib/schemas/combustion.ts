@@ -14,6 +14,11 @@ export const propertiesRequestSchema = z
   .strict();
 export type PropertiesRequest = z.infer<typeof propertiesRequestSchema>;
 
+/** The oxidiser supply is stated by at most one of φ, excess air, flue-gas O2 (requests that take them). */
+export const atMostOneSupply = (r: { phi?: number; excessAirPercent?: number; flueO2DryPercent?: number }) =>
+  [r.phi, r.excessAirPercent, r.flueO2DryPercent].filter((v) => v !== undefined).length <= 1;
+export const ONE_SUPPLY_ISSUE = { message: "give only one of phi, excessAirPercent, flueO2DryPercent", path: ["phi"] };
+
 const temperatureK = z.number().finite().min(200, "must be ≥ 200 K").max(2000, "must be ≤ 2000 K");
 
 export const flameRequestSchema = z
@@ -29,8 +34,5 @@ export const flameRequestSchema = z
     method: z.enum(["mean-cp", "complete", "equilibrium"], { error: 'must be "mean-cp", "complete" or "equilibrium"' }).default("equilibrium"),
   })
   .strict()
-  .refine((r) => [r.phi, r.excessAirPercent, r.flueO2DryPercent].filter((v) => v !== undefined).length <= 1, {
-    message: "give only one of phi, excessAirPercent, flueO2DryPercent",
-    path: ["phi"],
-  });
+  .refine(atMostOneSupply, ONE_SUPPLY_ISSUE);
 export type FlameRequest = z.infer<typeof flameRequestSchema>;

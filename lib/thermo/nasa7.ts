@@ -95,3 +95,33 @@ export function evalInto(
     sR[i] = a[0] * lnT + a[1] * T + (a[2] * T2) / 2 + (a[3] * T3) / 3 + (a[4] * T4) / 4 + a[6];
   }
 }
+
+/** Values per species in a packed NASA-7 array: [Tlow, Tmid, Thigh, low a1..a7, high a1..a7]. */
+export const NASA7_PACKED_STRIDE = 17;
+
+/**
+ * Fills cp/R, h/RT and s/R of n species at one temperature from a packed coefficient array (layout
+ * NASA7_PACKED_STRIDE), the same polynomials as above. For inner loops (kinetics, flame): no
+ * allocation, one log per call. Outside a species' fitted range its nearest set is extrapolated.
+ */
+export function evalPackedInto(
+  packed: Float64Array,
+  n: number,
+  temperatureK: number,
+  cpR: Float64Array,
+  hRT: Float64Array,
+  sR: Float64Array,
+): void {
+  const T = temperatureK;
+  const lnT = Math.log(T);
+  const T2 = T * T, T3 = T2 * T, T4 = T3 * T;
+  const invT = 1 / T;
+  for (let i = 0; i < n; i++) {
+    const base = i * NASA7_PACKED_STRIDE;
+    const o = T < packed[base + 1] ? base + 3 : base + 10;
+    const a0 = packed[o], a1 = packed[o + 1], a2 = packed[o + 2], a3 = packed[o + 3], a4 = packed[o + 4];
+    cpR[i] = a0 + a1 * T + a2 * T2 + a3 * T3 + a4 * T4;
+    hRT[i] = a0 + (a1 * T) / 2 + (a2 * T2) / 3 + (a3 * T3) / 4 + (a4 * T4) / 5 + packed[o + 5] * invT;
+    sR[i] = a0 * lnT + a1 * T + (a2 * T2) / 2 + (a3 * T3) / 3 + (a4 * T4) / 4 + packed[o + 6];
+  }
+}

@@ -6,6 +6,12 @@
 /** Molar gas constant, J/(mol·K). CODATA 2018 exact value (8.314462618). */
 export const R_J_per_molK = 8.314462618;
 
+/** Boltzmann constant, J/K. SI 2019 exact value (CODATA 2018). */
+export const kB_J_per_K = 1.380649e-23;
+
+/** Avogadro constant, 1/mol. SI 2019 exact value (CODATA 2018). */
+export const NA_per_mol = 6.02214076e23;
+
 /** Molar gas constant used by ISO 6976:2016 for its volumetric figures, J/(mol·K) (ISO 6976:2016, cl. 3/Table). */
 export const R_ISO6976_J_per_molK = 8.3144621;
 

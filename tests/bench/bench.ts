@@ -9,10 +9,13 @@ import type { BenchResult } from "./bench-types";
 type Bench = { name: string; file: string; fn: string };
 const BENCHES: Bench[] = [
   { name: "equilibrium", file: "./equilibrium.bench.ts", fn: "benchEquilibrium" },
+  { name: "kinetics", file: "./kinetics.bench.ts", fn: "benchKinetics" },
+  { name: "transport", file: "./transport.bench.ts", fn: "benchTransport" },
   { name: "properties", file: "./properties.bench.ts", fn: "benchProperties" },
   { name: "study", file: "./study.bench.ts", fn: "benchStudy" },
   { name: "pages", file: "./pages.bench.ts", fn: "benchPages" },
   { name: "cli", file: "./cli.bench.ts", fn: "benchCli" },
+  { name: "flame", file: "./flame.bench.ts", fn: "benchFlame" },
 ];
 
 function median(v: number[]): number {

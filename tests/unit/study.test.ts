@@ -4,7 +4,7 @@ import { join } from "node:path";
 import { studySchema, type StudyInput } from "../../lib/schemas/study";
 import { evaluateStudy, createEvaluationCaches } from "../../lib/study/evaluate";
 import { presentValueFactor } from "../../lib/economics/finance";
-import { runEvaluate } from "../../lib/cli/evaluate";
+import { runEvaluate } from "../../lib/cli/evaluate-sync";
 import { sweepAgreement } from "../../lib/study/sweep-agreement";
 import { DEMO_FUELS, DEMO_PLANTS, DEMO_STUDIES } from "../../seed/demo";
 import { InputError } from "../../lib/errors";

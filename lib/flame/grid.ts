@@ -1,0 +1,135 @@
+/**
+ * Adaptive grid for the 1D flame: where to add points so that every solution component is resolved
+ * (the gradient and curvature criteria of Smooke, J. Comput. Phys. 48 (1982) 72–105, and of the
+ * PREMIX method, Kee et al., Sandia report SAND85-8240 (1985)):
+ *
+ * - slope:  |φ_{j+1} − φ_j| ≤ slope · (max φ − min φ) on every interval;
+ * - curve:  |φ'_{j+1/2} − φ'_{j−1/2}| ≤ curve · (max φ' − min φ'), with φ' the slope of an interval;
+ * - ratio:  neighbouring intervals differ in length by at most `ratio`.
+ *
+ * An interval that violates a criterion is halved (curvature violations halve both intervals
+ * around the point). Components whose range is below `threshold` are not used (trace species).
+ */
+
+export interface GridCriteria {
+  /** Largest length ratio of neighbouring intervals (≥ 2). */
+  ratio: number;
+  /** Largest change of a component across an interval, as a fraction of its range. */
+  slope: number;
+  /** Largest change of a component's slope between neighbouring intervals, as a fraction of the slopes' range. */
+  curve: number;
+  /** Upper bound on the number of points. */
+  maxPoints: number;
+  /** Components with (max − min) below this are ignored. */
+  threshold: number;
+}
+
+/** Settings of a converged production solve (the issue's reference settings). */
+export const DEFAULT_GRID_CRITERIA: GridCriteria = { ratio: 3, slope: 0.06, curve: 0.12, maxPoints: 600, threshold: 1e-8 };
+
+/**
+ * Marks the intervals to split. `values(c, j)` gives component c at point j; components are
+ * 0 … nComponents−1. Returns a flag per interval (length N−1); none set means the grid is fine.
+ */
+export function markIntervals(
+  z: ArrayLike<number>,
+  nComponents: number,
+  values: (c: number, j: number) => number,
+  criteria: GridCriteria,
+): Uint8Array {
+  const N = z.length;
+  const mark = new Uint8Array(Math.max(0, N - 1));
+  const slopes = new Float64Array(Math.max(0, N - 1));
+  for (let c = 0; c < nComponents; c++) {
+    let vmin = Infinity;
+    let vmax = -Infinity;
+    for (let j = 0; j < N; j++) {
+      const v = values(c, j);
+      if (v < vmin) vmin = v;
+      if (v > vmax) vmax = v;
+    }
+    const range = vmax - vmin;
+    if (!(range > criteria.threshold)) continue;
+    let smin = Infinity;
+    let smax = -Infinity;
+    for (let j = 0; j < N - 1; j++) {
+      const dv = values(c, j + 1) - values(c, j);
+      if (Math.abs(dv) > criteria.slope * range) mark[j] = 1;
+      const s = dv / (z[j + 1] - z[j]);
+      slopes[j] = s;
+      if (s < smin) smin = s;
+      if (s > smax) smax = s;
+    }
+    const srange = smax - smin;
+    if (srange > 0) {
+      for (let j = 0; j < N - 2; j++) {
+        if (Math.abs(slopes[j + 1] - slopes[j]) > criteria.curve * srange) {
+          mark[j] = 1;
+          mark[j + 1] = 1;
+        }
+      }
+    }
+  }
+  for (let j = 1; j < N - 1; j++) {
+    const a = z[j] - z[j - 1];
+    const b = z[j + 1] - z[j];
+    if (a > criteria.ratio * b) mark[j - 1] = 1;
+    if (b > criteria.ratio * a) mark[j] = 1;
+  }
+  return mark;
+}
+
+/**
+ * New grid with the marked intervals halved, at most `maxPoints` points (when the budget is short,
+ * the marked intervals are split from the longest down). Returns null when nothing is marked.
+ */
+export function splitIntervals(z: ArrayLike<number>, mark: Uint8Array, maxPoints: number): Float64Array | null {
+  const N = z.length;
+  let count = 0;
+  for (let j = 0; j < mark.length; j++) count += mark[j];
+  if (count === 0) return null;
+  const budget = Math.max(0, maxPoints - N);
+  if (budget === 0) return null;
+  const use = Uint8Array.from(mark);
+  if (count > budget) {
+    const idx: number[] = [];
+    for (let j = 0; j < mark.length; j++) if (mark[j]) idx.push(j);
+    idx.sort((a, b) => z[b + 1] - z[b] - (z[a + 1] - z[a]));
+    use.fill(0);
+    for (let i = 0; i < budget; i++) use[idx[i]] = 1;
+    count = budget;
+  }
+  const out = new Float64Array(N + count);
+  let k = 0;
+  for (let j = 0; j < N; j++) {
+    out[k++] = z[j];
+    if (j < N - 1 && use[j]) out[k++] = 0.5 * (z[j] + z[j + 1]);
+  }
+  return out;
+}
+
+/** Index of the interval [z_i, z_{i+1}] containing x (clamped to the ends); z ascending. */
+export function intervalOf(z: ArrayLike<number>, x: number): number {
+  let lo = 0;
+  let hi = z.length - 1;
+  if (x <= z[0]) return 0;
+  if (x >= z[hi]) return hi - 1;
+  while (hi - lo > 1) {
+    const m = (lo + hi) >> 1;
+    if (z[m] <= x) lo = m;
+    else hi = m;
+  }
+  return lo;
+}
+
+/** Linear interpolation of a point-major field (nComp per point) from grid z onto grid zNew. */
+export function interpolateField(z: ArrayLike<number>, field: Float64Array, nComp: number, zNew: ArrayLike<number>): Float64Array {
+  const out = new Float64Array(zNew.length * nComp);
+  for (let i = 0; i < zNew.length; i++) {
+    const x = zNew[i];
+    const j = intervalOf(z, x);
+    const w = Math.min(1, Math.max(0, (x - z[j]) / (z[j + 1] - z[j])));
+    for (let c = 0; c < nComp; c++) out[i * nComp + c] = (1 - w) * field[j * nComp + c] + w * field[(j + 1) * nComp + c];
+  }
+  return out;
+}

@@ -1,0 +1,124 @@
+/**
+ * Starting estimate of a premixed flame: fresh mixture upstream, the equilibrium products of Stoke's
+ * own equilibrium solver (lib/combustion/equilibrium.ts: the burnt state at the inlet enthalpy and
+ * pressure) downstream, joined by a linear ramp over a short stretch of the domain; and the warm
+ * start, which interpolates a neighbouring solution onto the new problem.
+ */
+import { R_J_per_molK } from "../units/constants";
+import type { Mechanism } from "./mechanism";
+import type { FlameSolution, PremixedProblem } from "./premixed";
+
+/** Fractions of the domain length at which the starting grid has its points. */
+const START_GRID = [0, 0.08, 0.14, 0.18, 0.2, 0.22, 0.24, 0.26, 0.28, 0.3, 0.33, 0.37, 0.42, 0.5, 0.6, 0.75, 1];
+/** The temperature ramp of the start runs from RAMP_START to RAMP_END (fractions of the length). */
+const RAMP_START = 0.2;
+const RAMP_END = 0.3;
+/** The anchor point (T fixed there) lies at this fraction of the domain length, inside the ramp. */
+const ANCHOR = 0.24;
+
+/** Domain length for a flame at pressure p, m: 2 cm at 1 atm, shrinking with pressure like a flame's thickness (~p^-0.6). */
+export function domainLength_m(pressurePa: number): number {
+  return 0.02 * (101325 / pressurePa) ** 0.6;
+}
+
+/** Mass fractions from mole fractions keyed by species name (unknown names are an error). */
+export function massFractionsFromMoles(mech: Mechanism, X: Record<string, number>): Float64Array {
+  const Y = new Float64Array(mech.nSpecies);
+  let s = 0;
+  for (const [name, x] of Object.entries(X)) {
+    const k = mech.speciesIndex.get(name);
+    if (k === undefined) throw new Error(`species ${name} is not in mechanism ${mech.name}`);
+    Y[k] += x * mech.molarMass_kg_per_mol[k];
+    s += x * mech.molarMass_kg_per_mol[k];
+  }
+  for (let k = 0; k < Y.length; k++) Y[k] /= s;
+  return Y;
+}
+
+export interface BurntState {
+  temperatureK: number;
+  /** Mass fractions in the mechanism's species order. */
+  Y: Float64Array;
+}
+
+/**
+ * Cold start: fresh mixture at T_u on [0, ramp start], the burnt state beyond the ramp, linear in
+ * between; ṁ = ρ_u·S_guess. The anchor temperature is the start's temperature at the anchor point.
+ */
+export function coldStart(prob: PremixedProblem, burnt: BurntState, burningVelocityGuess_m_per_s: number, length_m = domainLength_m(prob.pressurePa)): FlameSolution {
+  const { mech } = prob;
+  const K = mech.nSpecies;
+  const n = K + 2;
+  const z = Float64Array.from(START_GRID, (f) => f * length_m);
+  const x = new Float64Array(z.length * n);
+  let s = 0;
+  for (let k = 0; k < K; k++) s += prob.inletY[k] / mech.molarMass_kg_per_mol[k];
+  const rhoU = prob.pressurePa / (s * R_J_per_molK * prob.unburntTemperatureK);
+  const mdot = rhoU * burningVelocityGuess_m_per_s;
+  const Tu = prob.unburntTemperatureK;
+  const Tb = burnt.temperatureK;
+  const ramp = (f: number) => Math.min(1, Math.max(0, (f - RAMP_START) / (RAMP_END - RAMP_START)));
+  for (let j = 0; j < z.length; j++) {
+    const w = ramp(START_GRID[j]);
+    const o = j * n;
+    x[o] = Tu + w * (Tb - Tu);
+    for (let k = 0; k < K; k++) x[o + 1 + k] = (1 - w) * prob.inletY[k] + w * burnt.Y[k];
+    x[o + K + 1] = mdot;
+  }
+  const zFix = ANCHOR * length_m;
+  const tFix = Tu + ramp(ANCHOR) * (Tb - Tu);
+  return { z, x, nSpecies: K, zFix, tFix, speciesNames: mech.speciesNames };
+}
+
+/**
+ * Warm start from a neighbouring solution (another φ, hydrogen share, preheat, pressure …): its grid
+ * and flame structure, moved onto the new problem's end states. With w the old solution's progress
+ * (T − T_u,old)/(T_end,old − T_u,old) at each point, the new profiles are
+ *   T = T_u + w (T_b − T_u),   Y = Y_old + (1 − w)(Y_u − Y_u,old) + w (Y_b − Y_end,old),
+ * so the inlet is the new fresh mixture and the burnt end the new equilibrium estimate, with the
+ * old intermediates in between. ṁ is scaled by the ratio of the inlet densities (same velocity);
+ * the anchor keeps its position and its progress value.
+ */
+export function warmStart(prob: PremixedProblem, from: FlameSolution, fromUnburntK: number, fromInletY: Float64Array, fromInletDensity: number, newInletDensity: number, burnt: BurntState): FlameSolution {
+  const K = prob.mech.nSpecies;
+  if (from.nSpecies !== K) throw new Error("warm start from a solution of another mechanism");
+  const n = K + 2;
+  const x = Float64Array.from(from.x);
+  const N = from.z.length;
+  const Tu = prob.unburntTemperatureK;
+  const Tb = burnt.temperatureK;
+  const oe = (N - 1) * n;
+  const TbOld = from.x[oe];
+  const progress = (T: number) => Math.min(1, Math.max(0, (T - fromUnburntK) / Math.max(1, TbOld - fromUnburntK)));
+  for (let j = 0; j < N; j++) {
+    const o = j * n;
+    const w = progress(from.x[o]);
+    x[o] = Tu + w * (Tb - Tu);
+    for (let k = 0; k < K; k++) {
+      x[o + 1 + k] = from.x[o + 1 + k] + (1 - w) * (prob.inletY[k] - fromInletY[k]) + w * (burnt.Y[k] - from.x[oe + 1 + k]);
+    }
+    x[o + K + 1] *= newInletDensity / fromInletDensity;
+  }
+  const wFix = progress(from.tFix);
+  return { z: Float64Array.from(from.z), x, nSpecies: K, zFix: from.zFix, tFix: Tu + wFix * (Tb - Tu), speciesNames: from.speciesNames };
+}
+
+/**
+ * A coarser copy of a solution: every m-th point (m chosen for about `targetPoints`), always with
+ * the ends and the point nearest the anchor. For warm starts that need pseudo-time steps: those are
+ * cheap on a coarse grid, and refinement brings the points back.
+ */
+export function thinSolution(sol: FlameSolution, targetPoints: number): FlameSolution {
+  const N = sol.z.length;
+  const m = Math.max(1, Math.round(N / targetPoints));
+  if (m === 1) return sol;
+  const n = sol.nSpecies + 2;
+  let jFix = 0;
+  for (let j = 1; j < N; j++) if (Math.abs(sol.z[j] - sol.zFix) < Math.abs(sol.z[jFix] - sol.zFix)) jFix = j;
+  const keep: number[] = [];
+  for (let j = 0; j < N; j++) if (j % m === 0 || j === N - 1 || j === jFix) keep.push(j);
+  const z = Float64Array.from(keep, (j) => sol.z[j]);
+  const x = new Float64Array(keep.length * n);
+  for (let i = 0; i < keep.length; i++) x.set(sol.x.subarray(keep[i] * n, (keep[i] + 1) * n), i * n);
+  return { ...sol, z, x };
+}

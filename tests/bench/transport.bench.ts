@@ -1,0 +1,47 @@
+/**
+ * Benchmark of the flame engine's mixture-averaged transport (lib/flame/transport, GRI-Mech 3.0: 53 species).
+ *
+ * - transport_evaluate_us: one evaluate() call at a new temperature each call (pure-species fits,
+ *   Wilke's Φ_kj, the 1378 binary-diffusion fits, then the mixture sums).
+ * - transport_evaluate_same_T_us: one evaluate() call at an unchanged temperature with a changed
+ *   composition (what a composition-perturbed Jacobian column costs: the mixture sums only).
+ * State: a partly burnt stoichiometric methane-air mixture near 1500 K, 1 atm, every species present.
+ * Each sample is the mean over a batch of calls (timer resolution). The one-off set-up (kinetic
+ * theory and fits, cached per mechanism) is not included.
+ */
+import { loadMechanism } from "../../lib/flame/mechanism";
+import { createMixtureTransport } from "../../lib/flame/transport";
+import type { BenchResult } from "./bench-types";
+
+export async function benchTransport(): Promise<BenchResult[]> {
+  const mech = loadMechanism();
+  const tr = createMixtureTransport(mech);
+  const nS = mech.nSpecies;
+  const X = new Float64Array(nS).fill(1e-6);
+  const major: Record<string, number> = { N2: 0.7, O2: 0.08, CH4: 0.03, H2O: 0.1, CO2: 0.04, CO: 0.02, H2: 0.01, OH: 0.003, H: 0.002, O: 0.001, AR: 0.008 };
+  for (const [n, x] of Object.entries(major)) X[mech.speciesIndex.get(n) as number] = x;
+  const out = tr.newOutput();
+  let sink = 0;
+  let t = 1500;
+  const next = () => (t = t === 1500 ? 1500.5 : 1500);
+  const o2 = mech.speciesIndex.get("O2") as number;
+  for (let i = 0; i < 5000; i++) { tr.evaluate(next(), 101325, X, out); sink += out.viscosity_Pa_s; }
+  const newT: number[] = [], sameT: number[] = [];
+  for (let s = 0; s < 30; s++) {
+    let t0 = performance.now();
+    for (let i = 0; i < 1000; i++) { tr.evaluate(next(), 101325, X, out); sink += out.Dkm_m2_per_s[0]; }
+    newT.push(performance.now() - t0); // ms per 1000 calls = µs per call
+    t0 = performance.now();
+    for (let i = 0; i < 1000; i++) {
+      X[o2] = 0.08 + (i & 1) * 1e-7;
+      tr.evaluate(1500, 101325, X, out);
+      sink += out.Dkm_m2_per_s[0];
+    }
+    sameT.push(performance.now() - t0);
+  }
+  if (!Number.isFinite(sink)) throw new Error("transport bench: non-finite result");
+  return [
+    { name: "transport_evaluate_us", unit: "µs", samples: newT },
+    { name: "transport_evaluate_same_T_us", unit: "µs", samples: sameT },
+  ];
+}

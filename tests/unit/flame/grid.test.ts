@@ -1,0 +1,68 @@
+import { describe, expect, it } from "vitest";
+import { DEFAULT_GRID_CRITERIA, interpolateField, markIntervals, splitIntervals } from "../../../lib/flame/grid";
+
+/** A flame-like analytic profile: a tanh front of width w at z0 (common practice, no source). */
+const front = (z: number, z0 = 0.01, w = 2e-4) => 0.5 * (1 + Math.tanh((z - z0) / w));
+/** A radical-like analytic peak: a Gaussian of width s at z0. */
+const peak = (z: number, z0 = 0.0102, s = 1.5e-4) => Math.exp(-(((z - z0) / s) ** 2));
+
+function refineUntilDone(fns: ((z: number) => number)[], criteria = DEFAULT_GRID_CRITERIA) {
+  let z: Float64Array = new Float64Array(12).map((_, i) => (0.03 * i) / 11);
+  for (let pass = 0; pass < 60; pass++) {
+    const m = markIntervals(z, fns.length, (c, j) => fns[c](z[j]), criteria);
+    const next = splitIntervals(z, m, criteria.maxPoints);
+    if (!next) return { z, passes: pass };
+    z = next;
+  }
+  throw new Error("refinement did not finish");
+}
+
+describe("grid refinement criteria", () => {
+  it("refines a tanh front until every interval meets the slope, curve and ratio criteria", () => {
+    const c = { ratio: 3, slope: 0.06, curve: 0.12, maxPoints: 1000, threshold: 1e-8 };
+    const { z } = refineUntilDone([front], c);
+    const N = z.length;
+    const v = Array.from(z, (x) => front(x));
+    const range = Math.max(...v) - Math.min(...v);
+    for (let j = 0; j < N - 1; j++) expect(Math.abs(v[j + 1] - v[j])).toBeLessThanOrEqual(0.06 * range + 1e-15);
+    const s = Array.from({ length: N - 1 }, (_, j) => (v[j + 1] - v[j]) / (z[j + 1] - z[j]));
+    const sr = Math.max(...s) - Math.min(...s);
+    for (let j = 0; j < N - 2; j++) expect(Math.abs(s[j + 1] - s[j])).toBeLessThanOrEqual(0.12 * sr + 1e-9);
+    for (let j = 1; j < N - 1; j++) {
+      const r = (z[j + 1] - z[j]) / (z[j] - z[j - 1]);
+      expect(r).toBeLessThanOrEqual(3 + 1e-12);
+      expect(r).toBeGreaterThanOrEqual(1 / 3 - 1e-12);
+    }
+    // the points gather at the front: the smallest interval lies within 3 widths of its centre
+    let jmin = 0;
+    for (let j = 0; j < N - 1; j++) if (z[j + 1] - z[j] < z[jmin + 1] - z[jmin]) jmin = j;
+    expect(Math.abs(z[jmin] - 0.01)).toBeLessThan(6e-4);
+  });
+
+  it("resolves a narrow peak as well as the front and stops adding points", () => {
+    const { z } = refineUntilDone([front, peak]);
+    const m = markIntervals(z, 2, (c, j) => [front, peak][c](z[j]), DEFAULT_GRID_CRITERIA);
+    expect(m.every((x) => x === 0)).toBe(true);
+    // the peak maximum is captured within 3 % by some grid point
+    expect(Math.max(...Array.from(z, (x) => peak(x)))).toBeGreaterThan(0.97);
+  });
+
+  it("ignores components whose range is below the threshold", () => {
+    const z = new Float64Array([0, 1, 2, 3]);
+    const m = markIntervals(z, 1, (_c, j) => 1e-12 * j * j, DEFAULT_GRID_CRITERIA);
+    expect(Array.from(m)).toEqual([0, 0, 0]);
+  });
+
+  it("splits only as many intervals as the point budget allows, longest first", () => {
+    const z = new Float64Array([0, 1, 3, 4]);
+    const next = splitIntervals(z, new Uint8Array([1, 1, 1]), 5);
+    expect(Array.from(next ?? [])).toEqual([0, 1, 2, 3, 4]);
+  });
+
+  it("interpolates a linear field exactly", () => {
+    const z = new Float64Array([0, 1, 3]);
+    const f = new Float64Array([0, 10, 1, 11, 3, 13]); // two components: z and z + 10
+    const out = interpolateField(z, f, 2, new Float64Array([0.5, 2, 3]));
+    expect(Array.from(out)).toEqual([0.5, 10.5, 2, 12, 3, 13]);
+  });
+});
