@@ -191,7 +191,7 @@ interface ScenarioSource {
   overrides: StoredScenario["overrides"];
 }
 
-type StudyFields = Pick<
+type StudyFields = Omit<Pick<
   StoredStudy,
   | "name"
   | "currency"
@@ -208,7 +208,7 @@ type StudyFields = Pick<
   | "preparedBy"
   | "reportDate"
   | "reportNotes"
->;
+>, "reportDate"> & { reportDate?: string | null };
 
 function build(
   fields: StudyFields,
