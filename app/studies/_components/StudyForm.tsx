@@ -14,7 +14,7 @@ import { ErrorSummary, Field, invalid, toNumber, type Errors } from "../../fuels
 import type { QuoteChoice, StudyFormOptions } from "@/lib/services/studies";
 import { quoteChoiceLabel } from "./price-labels";
 import { SENSITIVITY_DEFAULTS, type SensitivityRanges } from "@/lib/schemas/study";
-import type { ScenarioRecordInput, StudyRecordInput } from "@/lib/schemas/study-record";
+import { scenarioRecordSchema, studyRecordSchema, type ScenarioRecordInput, type StudyRecordInput } from "@/lib/schemas/study-record";
 import { operatingOverridesSchema, type OperatingOverrides } from "@/lib/schemas/plant";
 import { capitalised, fieldLabel } from "@/lib/schemas/labels";
 
@@ -44,8 +44,25 @@ interface NumText {
   isNull: boolean;
 }
 
+/**
+ * The rule's date: a scenario without a chosen quote takes the latest quote valid on this date (the
+ * field exists where the record schema has it; empty = the day the study is evaluated).
+ */
+const RULE_DATE_KEY = "priceValidOn";
+const HAS_RULE_DATE = RULE_DATE_KEY in scenarioRecordSchema.shape;
+const SCENARIO_FORM_KEYS = new Set(["name", "fuelId", "priceQuoteId", "capex", "fixedOpexChange", "overrides", RULE_DATE_KEY]);
+const STUDY_RECORD_KEYS = Object.keys(studyRecordSchema.shape);
+
+/** Stored fields of the record schema this form has no input for: sent back as they came, never dropped. */
+function untouched(init: object | undefined, known: (k: string) => boolean, keys: readonly string[]): Record<string, unknown> {
+  if (!init) return {};
+  return Object.fromEntries(Object.entries(init).filter(([k]) => keys.includes(k) && !known(k)));
+}
+
 interface ScenarioState {
   key: number;
+  rest: Record<string, unknown>;
+  priceValidOn: string;
   name: string;
   fuelId: string;
   priceQuoteId: string;
@@ -70,8 +87,11 @@ function scenarioState(key: number, init?: ScenarioInitial): ScenarioState {
     const v = o[k];
     overrides[k] = k in o ? numText(typeof v === "number" ? v : null) : numText(undefined);
   }
+  const record: Record<string, unknown> = init ?? {};
   return {
     key,
+    rest: untouched(init, (k) => SCENARIO_FORM_KEYS.has(k), Object.keys(scenarioRecordSchema.shape)),
+    priceValidOn: s(record[RULE_DATE_KEY]),
     name: init?.name ?? "",
     fuelId: init ? s(init.fuelId || "") : "",
     priceQuoteId: s(init?.priceQuoteId ?? ""),
@@ -209,6 +229,8 @@ export function StudyForm({
       }
     }
     const b: Record<string, unknown> = {
+      ...x.rest,
+      ...(HAS_RULE_DATE ? { [RULE_DATE_KEY]: x.priceQuoteId === "" && x.priceValidOn.trim() !== "" ? x.priceValidOn.trim() : null } : {}),
       name: x.name,
       fuelId: x.fuelId === "" ? null : Number(x.fuelId),
       priceQuoteId: x.priceQuoteId === "" ? null : Number(x.priceQuoteId),
@@ -225,6 +247,7 @@ export function StudyForm({
     setBusy(true);
     setMessage(null);
     const body = {
+      ...untouched(initial, (k) => k in head || k === "sensitivity" || k === "baseline" || k === "scenarios", STUDY_RECORD_KEYS),
       plantId: head.plantId === "" ? null : Number(head.plantId),
       name: head.name,
       currency: head.currency,
@@ -250,15 +273,18 @@ export function StudyForm({
   const placed = (key: string) =>
     Object.keys(head).includes(key) ||
     key.startsWith("sensitivity.") ||
-    /^(baseline|scenarios\.\d+)\.(name|fuelId|priceQuoteId|capex|fixedOpexChange|overrides(\.\w+)?)$/.test(key);
+    /^(baseline|scenarios\.\d+)\.(name|fuelId|priceQuoteId|priceValidOn|capex|fixedOpexChange|overrides(\.\w+)?)$/.test(key);
 
   /** The quote choice in words: a fixed quote, or the rule and the quote it picks today. */
   function quoteRule(x: ScenarioState, fuel: StudyFormOptions["fuels"][number] | undefined): string | undefined {
     if (!fuel) return undefined;
     const cur = head.currency.trim().toUpperCase() || "the study's currency";
     if (x.priceQuoteId !== "") return "This quote, fixed: newer quotes do not replace it.";
-    const q = quoteInForce(fuel.quotes, cur, asOf);
-    const rule = `Rule: the latest ${cur} quote valid on the day the study is evaluated (today ${asOf})`;
+    const onDate = x.priceValidOn.trim() || asOf;
+    const q = quoteInForce(fuel.quotes, cur, onDate);
+    const rule = x.priceValidOn.trim()
+      ? `Rule: the latest ${cur} quote valid on ${onDate}`
+      : `Rule: the latest ${cur} quote valid on the day the study is evaluated (today ${asOf})`;
     if (q) return `${rule} — now ${quoteChoiceLabel(q)}.`;
     if (fuel.isBlend) return `${rule} — none of its own: priced from its components' quotes by the same rule.`;
     return `${rule} — there is none: no cost figures for this scenario.`;
@@ -353,6 +379,11 @@ export function StudyForm({
               ))}
             </select>
           </Field>
+          {HAS_RULE_DATE && x.priceQuoteId === "" && (
+            <Field label={label(RULE_DATE_KEY)} name={`${p}.${RULE_DATE_KEY}`} errors={errors} htmlFor={dash(`${p}.${RULE_DATE_KEY}`)} hint="empty: the day the study is evaluated">
+              <input id={dash(`${p}.${RULE_DATE_KEY}`)} type="date" value={x.priceValidOn} onChange={(e) => update(which, { priceValidOn: e.target.value })} style={{ maxWidth: "11rem" }} {...invalid(errors, `${p}.${RULE_DATE_KEY}`)} />
+            </Field>
+          )}
           {which !== "baseline" && (
             <>
               <Field label={`Switching capex, ${head.currency}`} name={`${p}.capex`} errors={errors} htmlFor={dash(`${p}.capex`)}>
