@@ -146,6 +146,7 @@ export default async function ReportPage({ params, searchParams }: Props) {
   const anyFromMemory = sourceTexts.some((t) => plainSource(t).fromMemory);
   const anyCommonPractice = sourceTexts.some((t) => plainSource(t).commonPractice);
   const plain = (t: string) => plainSource(t).text;
+  const warned = list.flatMap(({ r }) => r.checks.filter((c) => c.status === "warn" || c.status === "fail").map((c) => ({ r, c })));
 
   return (
     <>
@@ -330,7 +331,7 @@ export default async function ReportPage({ params, searchParams }: Props) {
           </p>
           <ul>
             {result.audit.assumptions.map((a) => (
-              <li key={a}>{a}</li>
+              <li key={a}>{plain(a)}</li>
             ))}
           </ul>
           <h3>Scenarios as entered</h3>
@@ -416,16 +417,22 @@ export default async function ReportPage({ params, searchParams }: Props) {
           <CheckMatrix list={list} d={d} />
           <h3>Warnings and failures explained</h3>
           <ul>
-            {list.flatMap(({ r }) =>
-              r.checks
-                .filter((c) => c.status === "warn" || c.status === "fail")
-                .map((c) => (
-                  <li key={`${r.index}-${c.id}`}>
-                    <Status status={c.status} /> <b>{r.name}</b> — {c.label}: {c.message} <span className="muted">({c.basis})</span>
-                  </li>
-                )),
-            )}
+            {warned.map(({ r, c }) => (
+              <li key={`${r.index}-${c.id}`}>
+                <Status status={c.status} /> <b>{r.name}</b> — {c.label}: {plain(c.message)}
+              </li>
+            ))}
           </ul>
+          {warned.length > 0 && (
+            <p className="table-note">
+              Bases:{" "}
+              {[...new Map(warned.map(({ c }) => [c.label, c.basis])).entries()]
+                .filter(([, basis]) => basis !== "")
+                .map(([label, basis]) => `${label} — ${plain(basis)}`)
+                .join("; ")}
+              .
+            </p>
+          )}
         </section>
 
         <section className="keep">
