@@ -267,19 +267,18 @@ describe("report layout", () => {
     const pdf = await page.pdf({ preferCSSPageSize: true, printBackground: true });
     // The report's A4 margin: 16 mm top and bottom = 45.35 pt.
     const { pages, fill } = pdfPageFill(pdf, (16 * 72) / 25.4);
-    if (process.env.STOKE_DEBUG_PDF) {
-      (await import("node:fs")).writeFileSync(process.env.STOKE_DEBUG_PDF, pdf);
-      console.log("pages", pages, fill);
-    }
-    // 8 scenarios with charts, checks, the sweep table and the appendix: a handful of pages, not one per scenario.
-    expect(pages).toBeGreaterThanOrEqual(3);
-    expect(pages).toBeLessThanOrEqual(9);
+    // Cover and summary, the ranking, plant, assumptions, two ranking tables, three charts, a check
+    // matrix of 8 scenarios, the sweep, methods, sources and cautions: about a dozen full pages
+    // (common practice for a screening report of this size, no source), not one half-empty page per section.
+    expect(pages).toBeGreaterThanOrEqual(4);
+    expect(pages).toBeLessThanOrEqual(12);
     const halfEmpty = fill.slice(0, -1).map((f, i) => ({ page: i + 1, fill: Math.round(f * 100) })).filter((x) => x.fill < 50);
     expect(halfEmpty).toEqual([]);
     await page.emulateMedia({ media: "screen", reducedMotion: "reduce" });
   });
 
   it("offers Letter and landscape and sets the printed page size", async () => {
+    await page.emulateMedia({ media: "screen", reducedMotion: "reduce" });
     await page.setViewportSize({ width: 1360, height: 900 });
     await page.goto(`${base}/studies/${bigStudyId}/report?paper=letter&orient=landscape`);
     const css = await page.evaluate(() => Array.from(document.querySelectorAll("style")).map((e) => e.textContent ?? "").find((t) => t.includes("@page")) ?? "");
@@ -317,7 +316,7 @@ describe("chart labels", () => {
           for (let j = i + 1; j < boxes.length; j++) if (hit(boxes[i].r, boxes[j].r, 0.5)) out.push(`"${boxes[i].t}" over "${boxes[j].t}"`);
           for (const l of ticks) {
             const grown = new DOMRect(l.left - 0.01, l.top - 0.01, l.width + 0.02, l.height + 0.02);
-            if (hit(boxes[i].r, grown, 0)) out.push(`"${boxes[i].t}" over a tick [${[boxes[i].r.left, boxes[i].r.top, boxes[i].r.width, boxes[i].r.height].map(Math.round)}] tick [${[l.left, l.top, l.width, l.height].map(Math.round)}]`);
+            if (hit(boxes[i].r, grown, 0)) out.push(`"${boxes[i].t}" over a tick `);
           }
         }
       }
@@ -330,9 +329,7 @@ describe("chart labels", () => {
     await page.goto(`${base}/studies/${demoStudyId}/sweep`);
     await page.locator("svg.recharts-surface").first().waitFor();
     expect(await page.locator("svg.recharts-surface text").count()).toBeGreaterThan(20);
-    const c = await chartCollisions();
-    if (process.env.STOKE_DEBUG_PDF) console.log(c);
-    expect(c).toEqual([]);
+    expect(await chartCollisions()).toEqual([]);
   });
 
   it("the comparison charts' labels overlap neither each other nor the ticks", async () => {
