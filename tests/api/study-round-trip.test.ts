@@ -30,7 +30,11 @@ afterAll(async () => {
 });
 
 const req = (url: string, method = "GET", body?: unknown) =>
-  new Request(`http://localhost${url}`, { method, body: body === undefined ? undefined : JSON.stringify(body), headers: { "content-type": "application/json" } });
+  new Request(`http://localhost${url}`, {
+    method,
+    body: body === undefined ? undefined : JSON.stringify(body),
+    headers: { "content-type": "application/json" },
+  });
 const ctx = (id: number) => ({ params: Promise.resolve({ id: String(id) }) });
 
 type Stored = Record<string, unknown> & { scenarios: { name: string; overrides: Record<string, unknown> }[] };
@@ -61,7 +65,10 @@ describe("study round trip through the API", () => {
   });
 
   it("every override, a removed limit (null), a chosen quote and the cover survive a second save", async () => {
-    const dup = await duplicate.POST(req(`/api/studies/${demoStudyId}/duplicate`, "POST", { name: "Round trip, every field" }), ctx(demoStudyId));
+    const dup = await duplicate.POST(
+      req(`/api/studies/${demoStudyId}/duplicate`, "POST", { name: "Round trip, every field" }),
+      ctx(demoStudyId),
+    );
     const id = (await dup.json()).id as number;
     const start = body(await get(id)) as Stored;
     // The baseline gas's older quote (per MMBtu), not the one in force: a choice the form must keep.

@@ -111,7 +111,14 @@ function pdfPageFill(pdf: Buffer, marginPt: number): { pages: number; fill: numb
     });
   const pages = leaves(root);
   type M = [number, number, number, number, number, number];
-  const mul = (m: M, n: M): M => [m[0] * n[0] + m[1] * n[2], m[0] * n[1] + m[1] * n[3], m[2] * n[0] + m[3] * n[2], m[2] * n[1] + m[3] * n[3], m[4] * n[0] + m[5] * n[2] + n[4], m[4] * n[1] + m[5] * n[3] + n[5]];
+  const mul = (m: M, n: M): M => [
+    m[0] * n[0] + m[1] * n[2],
+    m[0] * n[1] + m[1] * n[3],
+    m[2] * n[0] + m[3] * n[2],
+    m[2] * n[1] + m[3] * n[3],
+    m[4] * n[0] + m[5] * n[2] + n[4],
+    m[4] * n[1] + m[5] * n[3] + n[5],
+  ];
   const fill = pages.map((page) => {
     const box = /\/MediaBox\s*\[\s*([\d.]+)\s+([\d.]+)\s+([\d.]+)\s+([\d.]+)\s*\]/.exec(page)!;
     const height = Number(box[4]) - Number(box[2]);
@@ -169,21 +176,31 @@ describe("study form round trip", () => {
   });
 
   it("edits the report cover and a scenario's operating point in the form; the report shows the cover", async () => {
-    const dup = await api(`/api/studies/${demoStudyId}/duplicate`, { method: "POST", body: JSON.stringify({ name: "Cover through the form" }) });
+    const dup = await api(`/api/studies/${demoStudyId}/duplicate`, {
+      method: "POST",
+      body: JSON.stringify({ name: "Cover through the form" }),
+    });
     const id = dup.body.id as number;
     await page.goto(`${base}/studies/${id}/edit`);
     await page.getByLabel("Report title").fill("Fuel options for Boiler 1");
     await page.getByLabel("Prepared for", { exact: true }).fill("Example Dairy Ltd");
     await page.getByLabel("Prepared by", { exact: true }).fill("A. Engineer, Example Consulting");
     await page.getByLabel("Report date").fill("2026-11-30");
-    await page.getByLabel("Consultant's notes on the cover").fill("Prices are indicative.\n\nA burner trial is recommended before any order.");
+    await page
+      .getByLabel("Consultant's notes on the cover")
+      .fill("Prices are indicative.\n\nA burner trial is recommended before any order.");
     const card = page.getByTestId("scenario-card-3");
     await card.locator("summary").click();
     await card.getByLabel("CO in the dry flue gas, ppm").fill("40");
     await card.getByLabel("Wobbe index tolerance, ± % of the baseline").locator("xpath=..").getByLabel("no limit in this scenario").check();
     await page.getByRole("button", { name: "Save study" }).click();
     await page.waitForURL(new RegExp(`/studies/${id}$`));
-    const s = (await stored(id)) as { reportTitle: string; preparedFor: string; reportDate: string; scenarios: { overrides: Record<string, unknown> }[] };
+    const s = (await stored(id)) as {
+      reportTitle: string;
+      preparedFor: string;
+      reportDate: string;
+      scenarios: { overrides: Record<string, unknown> }[];
+    };
     expect(s).toMatchObject({ reportTitle: "Fuel options for Boiler 1", preparedFor: "Example Dairy Ltd", reportDate: "2026-11-30" });
     expect(s.scenarios[3].overrides).toEqual({ flueCODryPpm: 40, wobbeTolerancePercent: null });
     await page.goto(`${base}/studies/${id}/report`);
@@ -197,7 +214,13 @@ describe("study form round trip", () => {
 
 describe("report layout", () => {
   beforeAll(async () => {
-    const sc = (name: string, fuel: string, capex = 0, overrides = {}) => ({ name, fuelId: fuelId[fuel], capex, fixedOpexChange: 0, overrides });
+    const sc = (name: string, fuel: string, capex = 0, overrides = {}) => ({
+      name,
+      fuelId: fuelId[fuel],
+      capex,
+      fixedOpexChange: 0,
+      overrides,
+    });
     const body = {
       plantId,
       name: "Eight options for Boiler 1",
@@ -232,10 +255,18 @@ describe("report layout", () => {
     await page.setViewportSize({ width: 1360, height: 900 });
     await page.goto(`${base}/studies/${bigStudyId}/report`);
     await page.getByTestId("cover").waitFor();
-    const cover = await textBoxes(page, "[data-testid=cover] .cover-kicker, [data-testid=cover] h1, [data-testid=cover] .cover-plant, [data-testid=cover] dt, [data-testid=cover] dd, [data-testid=cover] p");
+    const cover = await textBoxes(
+      page,
+      "[data-testid=cover] .cover-kicker, [data-testid=cover] h1, [data-testid=cover] .cover-plant, [data-testid=cover] dt, [data-testid=cover] dd, [data-testid=cover] p",
+    );
     expect(cover.length).toBeGreaterThanOrEqual(15);
     expect(overlaps(cover)).toEqual([]);
-    for (const t of ["[data-testid=compact-ranking] table", ".report [data-testid=rank-table-economics]", ".report [data-testid=rank-table-technical]", ".report [data-testid=check-matrix]"]) {
+    for (const t of [
+      "[data-testid=compact-ranking] table",
+      ".report [data-testid=rank-table-economics]",
+      ".report [data-testid=rank-table-technical]",
+      ".report [data-testid=check-matrix]",
+    ]) {
       expect(await spilledCells(page, t), t).toEqual([]);
       const cells = await textBoxes(page, `${t} th, ${t} td`);
       expect(cells.length, t).toBeGreaterThan(8);
@@ -250,14 +281,20 @@ describe("report layout", () => {
     await page.emulateMedia({ media: "print", reducedMotion: "reduce" });
     await page.goto(`${base}/studies/${bigStudyId}/report`);
     await page.getByTestId("cover").waitFor();
-    const cover = await textBoxes(page, "[data-testid=cover] .cover-kicker, [data-testid=cover] h1, [data-testid=cover] .cover-plant, [data-testid=cover] dt, [data-testid=cover] dd, [data-testid=cover] p");
+    const cover = await textBoxes(
+      page,
+      "[data-testid=cover] .cover-kicker, [data-testid=cover] h1, [data-testid=cover] .cover-plant, [data-testid=cover] dt, [data-testid=cover] dd, [data-testid=cover] p",
+    );
     expect(overlaps(cover)).toEqual([]);
     // The title wraps by phrase, not word by word: at most two lines.
-    const titleLines = await page.getByTestId("cover").locator("h1").evaluate((h) => {
-      const r = document.createRange();
-      r.selectNodeContents(h);
-      return new Set(Array.from(r.getClientRects()).map((x) => Math.round(x.top))).size;
-    });
+    const titleLines = await page
+      .getByTestId("cover")
+      .locator("h1")
+      .evaluate((h) => {
+        const r = document.createRange();
+        r.selectNodeContents(h);
+        return new Set(Array.from(r.getClientRects()).map((x) => Math.round(x.top))).size;
+      });
     expect(titleLines).toBeLessThanOrEqual(2);
     expect(await spilledCells(page, "[data-testid=compact-ranking] table")).toEqual([]);
     expect(overlaps(await textBoxes(page, "[data-testid=compact-ranking] th, [data-testid=compact-ranking] td"))).toEqual([]);
@@ -272,7 +309,10 @@ describe("report layout", () => {
     // (common practice for a screening report of this size, no source), not one half-empty page per section.
     expect(pages).toBeGreaterThanOrEqual(4);
     expect(pages).toBeLessThanOrEqual(12);
-    const halfEmpty = fill.slice(0, -1).map((f, i) => ({ page: i + 1, fill: Math.round(f * 100) })).filter((x) => x.fill < 50);
+    const halfEmpty = fill
+      .slice(0, -1)
+      .map((f, i) => ({ page: i + 1, fill: Math.round(f * 100) }))
+      .filter((x) => x.fill < 50);
     expect(halfEmpty).toEqual([]);
     await page.emulateMedia({ media: "screen", reducedMotion: "reduce" });
   });
@@ -281,19 +321,37 @@ describe("report layout", () => {
     await page.emulateMedia({ media: "screen", reducedMotion: "reduce" });
     await page.setViewportSize({ width: 1360, height: 900 });
     await page.goto(`${base}/studies/${bigStudyId}/report?paper=letter&orient=landscape`);
-    const css = await page.evaluate(() => Array.from(document.querySelectorAll("style")).map((e) => e.textContent ?? "").find((t) => t.includes("@page")) ?? "");
+    const css = await page.evaluate(
+      () =>
+        Array.from(document.querySelectorAll("style"))
+          .map((e) => e.textContent ?? "")
+          .find((t) => t.includes("@page")) ?? "",
+    );
     expect(css).toContain("size: Letter landscape");
-    expect(await page.getByRole("group", { name: "Orientation" }).getByRole("link", { name: "Landscape" }).getAttribute("aria-current")).toBe("true");
+    expect(
+      await page.getByRole("group", { name: "Orientation" }).getByRole("link", { name: "Landscape" }).getAttribute("aria-current"),
+    ).toBe("true");
   });
 
   it("names no internal field and no stored metering key anywhere a reader sees", async () => {
     await page.goto(`${base}/studies/${bigStudyId}/report`);
     const text = (await page.getByTestId("report").textContent()) ?? "";
-    for (const internal of ["maxH2SharePercent", "wobbeTolerancePercent", "stackTemperatureC", "15C", "0C", "fuelPricePercent", "common practice, no source", "value from memory"]) {
+    for (const internal of [
+      "maxH2SharePercent",
+      "wobbeTolerancePercent",
+      "stackTemperatureC",
+      "15C",
+      "0C",
+      "fuelPricePercent",
+      "common practice, no source",
+      "value from memory",
+    ]) {
       expect(text.includes(internal), internal).toBe(false);
     }
     // NPV and capex in the ranking at a glance are whole thousands, never cents.
-    const money = await page.locator("[data-testid=compact-ranking] td:nth-child(8), [data-testid=compact-ranking] td:nth-child(9)").allTextContents();
+    const money = await page
+      .locator("[data-testid=compact-ranking] td:nth-child(8), [data-testid=compact-ranking] td:nth-child(9)")
+      .allTextContents();
     expect(money.length).toBe(16);
     expect(money.filter((c) => !/^([−-]?\d{1,3}(,\d{3})*|—|–)$/.test(c.trim()))).toEqual([]);
     const appendix = (await page.getByTestId("sources").textContent()) ?? "";
@@ -307,7 +365,8 @@ describe("chart labels", () => {
   async function chartCollisions(): Promise<string[]> {
     return page.evaluate(() => {
       const out: string[] = [];
-      const hit = (a: DOMRect, b: DOMRect, tol: number) => Math.min(a.right, b.right) - Math.max(a.left, b.left) > tol && Math.min(a.bottom, b.bottom) - Math.max(a.top, b.top) > tol;
+      const hit = (a: DOMRect, b: DOMRect, tol: number) =>
+        Math.min(a.right, b.right) - Math.max(a.left, b.left) > tol && Math.min(a.bottom, b.bottom) - Math.max(a.top, b.top) > tol;
       for (const svg of Array.from(document.querySelectorAll("svg.recharts-surface"))) {
         const texts = Array.from(svg.querySelectorAll("text")).filter((t) => (t.textContent ?? "").trim() !== "");
         const boxes = texts.map((t) => ({ t: (t.textContent ?? "").trim(), r: t.getBoundingClientRect() }));

@@ -7,7 +7,9 @@ describe("chart label placement", () => {
   it("labels of crowded points overlap neither each other nor any marker and stay inside the area", () => {
     const area = { x: 50, y: 20, width: 500, height: 260 };
     // Five points within a few pixels of each other (hydrogen blends of nearly equal cost and CO2) and one apart.
-    const points = [0, 1, 2, 3, 4].map((i) => ({ x: 300 + 3 * i, y: 150 + 2 * i, text: `${10 * i} % hydrogen blend` })).concat([{ x: 90, y: 250, text: "Biomethane" }]);
+    const points = [0, 1, 2, 3, 4]
+      .map((i) => ({ x: 300 + 3 * i, y: 150 + 2 * i, text: `${10 * i} % hydrogen blend` }))
+      .concat([{ x: 90, y: 250, text: "Biomethane" }]);
     const placed = placeLabels(points, area);
     expect(placed.every((p) => p !== null)).toBe(true);
     const boxes = placed.map((p) => p!.box);

@@ -229,7 +229,7 @@ export default async function ReportPage({ params, searchParams }: Props) {
                 .map((para) => para.trim())
                 .filter((para) => para !== "")
                 .map((para, i) => (
-                  <p key={i}>{para}</p>
+                  <p key={`${i}-${para.slice(0, 24)}`}>{para}</p>
                 ))}
             </div>
           )}
