@@ -54,6 +54,7 @@ function CompactRanking({ list, result, d }: { list: Ranked[]; result: StudyResu
   return (
     <section className="keep compact-ranking" data-testid="compact-ranking">
       <h2>Ranking at a glance</h2>
+      <div className="table-wrap">
       <table className="compact">
         <thead>
           <tr>
@@ -101,6 +102,7 @@ function CompactRanking({ list, result, d }: { list: Ranked[]; result: StudyResu
           ))}
         </tbody>
       </table>
+      </div>
       <p className="table-note">
         {list.length > COMPACT_MAX ? `The first ${COMPACT_MAX} of ${list.length} scenarios; the full tables follow. ` : ""}
         Infeasible scenarios (a fit check fails) rank after the feasible ones. NPV over {result.study.horizonYears} years at {fmt(result.study.discountRatePercent, 1)} % against the baseline.
