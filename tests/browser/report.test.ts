@@ -354,6 +354,10 @@ describe("report layout", () => {
       .allTextContents();
     expect(money.length).toBe(16);
     expect(money.filter((c) => !/^([−-]?\d{1,3}(,\d{3})*|—|–)$/.test(c.trim()))).toEqual([]);
+    // One sign convention for the Wobbe band: "±5.0 %" for the baseline and every candidate, above or below it.
+    const band = await page.locator(".report [data-testid=check-matrix] td[data-check=wobbe-band] .cl").allTextContents();
+    expect(band.length).toBe(8);
+    expect(band.filter((t) => !/^limit ±\d+\.\d %$/.test(t.trim()))).toEqual([]);
     const appendix = (await page.getByTestId("sources").textContent()) ?? "";
     expect(appendix).toMatch(/ISO 6976:2016\. Natural gas — Calculation of calorific values/);
     expect(appendix).toMatch(/NASA Reference Publication 1311/);
