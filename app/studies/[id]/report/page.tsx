@@ -370,6 +370,7 @@ export default async function ReportPage({ params, searchParams }: Props) {
                         ) : (
                           priceSourceLabel(meta.price)
                         )}
+                        <div className="unit">{meta.priceQuoteId !== null ? "chosen quote, fixed" : `rule: the latest ${d.currency} quote valid on ${today}`}</div>
                       </td>
                       <td className="num">{r.price ? `${d.costPerEnergy(r.price.perMWh_net)} net / ${d.costPerEnergy(r.price.perMWh_gross)} gross` : "–"}</td>
                       <td className="num">{r.isBaseline ? "—" : fmt(r.audit.inputs.capex, 0)}</td>
