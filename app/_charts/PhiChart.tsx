@@ -2,7 +2,7 @@
 
 /** Flame temperature against the equivalence ratio, equilibrium and complete combustion, with the peaks marked. */
 import { CartesianGrid, Legend, Line, LineChart, ReferenceDot, ReferenceLine, Tooltip, XAxis, YAxis } from "recharts";
-import { CHART_COLOURS, axisTick, useChartAnimation } from "./animation";
+import { AXIS_TICK_MARGIN, CHART_COLOURS, axisTick, useChartAnimation } from "./animation";
 import { niceAxisFor } from "./ticks";
 
 export interface PhiChartProps {
@@ -21,9 +21,9 @@ export function PhiChart({ data, unit, peaks, operatingPhi, isStatic }: PhiChart
   const yAxis = niceAxisFor(data.flatMap((d) => [d.equilibrium, d.complete, d.meanCp]));
   return (
     <figure className="chart" aria-label="Flame temperature against equivalence ratio">
-      <LineChart data={data} responsive style={{ width: "100%", height: 380 }} margin={{ top: 24, right: 20, bottom: 26, left: 6 }}>
+      <LineChart data={data} responsive style={{ width: "100%", height: 380 }} margin={{ top: 24, right: 20, bottom: 30, left: 6 }}>
         <CartesianGrid stroke={CHART_COLOURS.grid} />
-        <XAxis type="number" dataKey="phi" domain={xAxis.domain} ticks={xAxis.ticks} tickFormatter={xAxis.format} tick={axisTick} label={{ value: "equivalence ratio φ (lean < 1 < rich)", position: "insideBottom", offset: -14, fontSize: 12 }} />
+        <XAxis tickMargin={AXIS_TICK_MARGIN} type="number" dataKey="phi" domain={xAxis.domain} ticks={xAxis.ticks} tickFormatter={xAxis.format} tick={axisTick} label={{ value: "equivalence ratio φ (lean < 1 < rich)", position: "insideBottom", offset: -18, fontSize: 12 }} />
         <YAxis type="number" domain={yAxis.domain} ticks={yAxis.ticks} tickFormatter={yAxis.format} tick={axisTick} width={58} label={{ value: unit, angle: -90, position: "insideLeft", fontSize: 12 }} />
         <ReferenceLine x={1} stroke="#8a8f94" strokeDasharray="4 4" label={{ value: "φ = 1", position: "insideBottomRight", fontSize: 11 }} />
         {operatingPhi ? <ReferenceLine x={operatingPhi} stroke={CHART_COLOURS.second} strokeDasharray="2 3" label={{ value: "plant's operating point", position: "insideBottomRight", fontSize: 11, fill: CHART_COLOURS.second }} /> : null}

@@ -1,8 +1,9 @@
 "use client";
 
 /** Charts of the comparison page: cost per useful energy (stacked), CO2 per useful MJ, cost against CO2. */
-import { Bar, BarChart, CartesianGrid, Cell, Legend, ReferenceLine, Scatter, ScatterChart, Tooltip, XAxis, YAxis, ZAxis, LabelList } from "recharts";
-import { CHART_COLOURS, axisTick, shortNumber, useChartAnimation } from "./animation";
+import { Bar, BarChart, CartesianGrid, Cell, Legend, ReferenceLine, Scatter, ScatterChart, Tooltip, XAxis, YAxis, ZAxis, LabelList, usePlotArea, useXAxisScale, useYAxisScale } from "recharts";
+import { placeLabels } from "./label-placement";
+import { AXIS_TICK_MARGIN, CHART_COLOURS, axisTick, shortNumber, useChartAnimation } from "./animation";
 import { niceAxisFor } from "./ticks";
 
 export type ScenarioStatus = "feasible" | "feasible-with-warnings" | "infeasible";
@@ -46,9 +47,9 @@ export function CostStackChart({ rows, unit, includeUpstream, isStatic }: { rows
   const xAxis = niceAxisFor(rowsWithCost.map((r) => r.total), [0, maxTotal * 1.002]);
   return (
     <figure className="chart" aria-label={`Cost per useful energy, ${unit}`}>
-      <BarChart layout="vertical" data={data} responsive style={{ width: "100%", height: height(data.length) }} margin={{ top: 4, right: 56, bottom: 18, left: 8 }}>
+      <BarChart layout="vertical" data={data} responsive style={{ width: "100%", height: height(data.length) }} margin={{ top: 4, right: 56, bottom: 22, left: 8 }}>
         <CartesianGrid stroke={CHART_COLOURS.grid} horizontal={false} />
-        <XAxis type="number" domain={xAxis.domain} ticks={xAxis.ticks} tick={axisTick} tickFormatter={xAxis.format} label={{ value: unit, position: "insideBottomRight", offset: -10, fontSize: 12 }} />
+        <XAxis tickMargin={AXIS_TICK_MARGIN} type="number" domain={xAxis.domain} ticks={xAxis.ticks} tick={axisTick} tickFormatter={xAxis.format} label={{ value: unit, position: "insideBottomRight", offset: -14, fontSize: 12 }} />
         <YAxis type="category" dataKey="label" width={170} tick={axisTick} interval={0} />
         <Tooltip formatter={tooltipNumber} isAnimationActive={false} />
         <Legend verticalAlign="top" height={26} wrapperStyle={{ fontSize: 12 }} itemSorter={null} />
@@ -80,9 +81,9 @@ export function Co2Chart({ rows, includeUpstream, isStatic }: { rows: Co2Row[]; 
   const xAxis = niceAxisFor([...data.map((r) => r.ranked), ...known.map((r) => r.biogenic)], [0, maxRanked * 1.002]);
   return (
     <figure className="chart" aria-label="CO2 per useful MJ">
-      <BarChart layout="vertical" data={data} responsive style={{ width: "100%", height: height(data.length) }} margin={{ top: 4, right: 56, bottom: 18, left: 8 }}>
+      <BarChart layout="vertical" data={data} responsive style={{ width: "100%", height: height(data.length) }} margin={{ top: 4, right: 56, bottom: 22, left: 8 }}>
         <CartesianGrid stroke={CHART_COLOURS.grid} horizontal={false} />
-        <XAxis type="number" domain={xAxis.domain} ticks={xAxis.ticks} tick={axisTick} tickFormatter={xAxis.format} label={{ value: "g CO2 per MJ useful", position: "insideBottomRight", offset: -10, fontSize: 12 }} />
+        <XAxis tickMargin={AXIS_TICK_MARGIN} type="number" domain={xAxis.domain} ticks={xAxis.ticks} tick={axisTick} tickFormatter={xAxis.format} label={{ value: "g CO2 per MJ useful", position: "insideBottomRight", offset: -14, fontSize: 12 }} />
         <YAxis type="category" dataKey="label" width={170} tick={axisTick} interval={0} />
         <Tooltip formatter={tooltipNumber} isAnimationActive={false} />
         <Legend verticalAlign="top" height={26} wrapperStyle={{ fontSize: 12 }} itemSorter={null} />
@@ -118,9 +119,31 @@ function Marker(props: { cx?: number; cy?: number; payload?: ScatterPoint }) {
       ) : (
         <circle cx={cx} cy={cy} r={6.5} fill={colour} stroke="#fff" strokeWidth={1.5} />
       )}
-      <text x={cx + 9} y={cy - 8} fontSize={11} fill="#1f2428">
-        {payload.name}
-      </text>
+    </g>
+  );
+}
+
+/** Point names placed where they overlap no other name, no marker and no axis (see label-placement.ts). */
+function ScatterLabels({ points }: { points: ScatterPoint[] }) {
+  const xs = useXAxisScale();
+  const ys = useYAxisScale();
+  const area = usePlotArea();
+  if (!xs || !ys || !area) return null;
+  const located = points.map((p) => ({ x: Number(xs(p.co2)), y: Number(ys(p.cost)), text: p.name }));
+  // The plot area, widened into the right margin kept for names (110 px less a gap).
+  const placed = placeLabels(located, { x: area.x, y: area.y, width: area.width + 100, height: area.height });
+  return (
+    <g className="scatter-labels">
+      {placed.map((l, i) =>
+        l ? (
+          <g key={points[i].name}>
+            {l.leader && <line x1={located[i].x} y1={located[i].y} x2={l.anchor.x} y2={l.anchor.y} stroke="#8a8f94" strokeWidth={0.8} />}
+            <text x={l.x} y={l.y} fontSize={11} fill="#1f2428">
+              {l.text}
+            </text>
+          </g>
+        ) : null,
+      )}
     </g>
   );
 }
@@ -133,15 +156,16 @@ export function CostCo2Scatter({ points, costUnit, isStatic }: { points: Scatter
   const yAxis = niceAxisFor(points.map((p) => p.cost));
   return (
     <figure className="chart" aria-label="Cost against CO2">
-      <ScatterChart responsive style={{ width: "100%", height: 320 }} margin={{ top: 24, right: 110, bottom: 28, left: 18 }}>
+      <ScatterChart responsive style={{ width: "100%", height: 320 }} margin={{ top: 24, right: 110, bottom: 32, left: 18 }}>
         <CartesianGrid stroke={CHART_COLOURS.grid} />
-        <XAxis type="number" dataKey="co2" name="CO2" tick={axisTick} domain={xAxis.domain} ticks={xAxis.ticks} tickFormatter={xAxis.format} label={{ value: "g fossil CO2 per MJ useful", position: "insideBottom", offset: -16, fontSize: 12 }} />
+        <XAxis tickMargin={AXIS_TICK_MARGIN} type="number" dataKey="co2" name="CO2" tick={axisTick} domain={xAxis.domain} ticks={xAxis.ticks} tickFormatter={xAxis.format} label={{ value: "g fossil CO2 per MJ useful", position: "insideBottom", offset: -20, fontSize: 12 }} />
         <YAxis type="number" dataKey="cost" name="cost" tick={axisTick} domain={yAxis.domain} ticks={yAxis.ticks} tickFormatter={yAxis.format} width={52} label={{ value: costUnit, angle: -90, position: "left", fontSize: 12, offset: 6, style: { textAnchor: "middle" } }} />
         <ZAxis range={[80, 80]} />
         {base && <ReferenceLine y={base.cost} stroke="#8a8f94" strokeDasharray="4 4" />}
         {base && <ReferenceLine x={base.co2} stroke="#8a8f94" strokeDasharray="4 4" />}
         <Tooltip formatter={tooltipNumber} isAnimationActive={false} cursor={{ strokeDasharray: "3 3" }} />
         <Scatter data={points} shape={<Marker />} isAnimationActive={animate} />
+        <ScatterLabels points={points} />
       </ScatterChart>
       <figcaption className="basis">
         Lower left is better. Dashed lines: the baseline. ● feasible (green) or with warnings (amber), ✕ infeasible, □ baseline.

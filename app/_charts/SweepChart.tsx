@@ -2,7 +2,7 @@
 
 /** One panel of the hydrogen-share sweep: a quantity against H2 vol %, the plant's limits and the first crossings. */
 import { CartesianGrid, Line, LineChart, ReferenceArea, ReferenceDot, ReferenceLine, Tooltip, XAxis, YAxis } from "recharts";
-import { CHART_COLOURS, axisTick, useChartAnimation } from "./animation";
+import { AXIS_TICK_MARGIN, CHART_COLOURS, axisTick, useChartAnimation } from "./animation";
 import { niceAxisFor } from "./ticks";
 
 export interface SweepMarker {
@@ -41,9 +41,9 @@ export function SweepChart({ title, yUnit, data, limits = [], band, markers = []
       <figcaption className="chart-title">
         {title} <span className="unit">({yUnit})</span>
       </figcaption>
-      <LineChart data={data} responsive style={{ width: "100%", height: 250 }} margin={{ top: 22, right: 16, bottom: 22, left: 4 }}>
+      <LineChart data={data} responsive style={{ width: "100%", height: 250 }} margin={{ top: 22, right: 16, bottom: 26, left: 4 }}>
         <CartesianGrid stroke={CHART_COLOURS.grid} />
-        <XAxis type="number" dataKey="x" domain={[0, 100]} ticks={[0, 20, 40, 60, 80, 100]} tick={axisTick} label={{ value: "H2 vol %", position: "insideBottom", offset: -12, fontSize: 12 }} />
+        <XAxis tickMargin={AXIS_TICK_MARGIN} type="number" dataKey="x" domain={[0, 100]} ticks={[0, 20, 40, 60, 80, 100]} tick={axisTick} label={{ value: "H2 vol %", position: "insideBottom", offset: -16, fontSize: 12 }} />
         <YAxis type="number" domain={yAxis.domain} ticks={yAxis.ticks} tick={axisTick} tickFormatter={yAxis.format} width={58} allowDataOverflow={false} />
         {band && <ReferenceArea y1={band.min} y2={band.max} ifOverflow="extendDomain" fill={CHART_COLOURS.pass} fillOpacity={0.08} stroke="none" label={{ value: band.label, position: "insideTopRight", fontSize: 11, fill: CHART_COLOURS.pass }} />}
         {band && <ReferenceLine y={band.min} ifOverflow="extendDomain" stroke={CHART_COLOURS.limit} strokeDasharray="6 3" />}

@@ -2,7 +2,7 @@
 
 /** Tornado chart: how far the ranking metric moves when one input goes to its low and high value. */
 import { Bar, BarChart, CartesianGrid, Cell, ReferenceLine, Tooltip, XAxis, YAxis } from "recharts";
-import { CHART_COLOURS, axisTick, shortNumber, useChartAnimation } from "./animation";
+import { AXIS_TICK_MARGIN, CHART_COLOURS, axisTick, shortNumber, useChartAnimation } from "./animation";
 import { niceAxisFor } from "./ticks";
 
 export interface TornadoBar {
@@ -44,9 +44,9 @@ export function TornadoChart({ rows, base, unit, isStatic }: { rows: TornadoBar[
   };
   return (
     <figure className="chart" aria-label="Tornado chart">
-      <BarChart layout="vertical" data={data} stackOffset="sign" responsive style={{ width: "100%", height: Math.max(180, 44 * data.length + 60) }} margin={{ top: 18, right: 30, bottom: 22, left: 8 }}>
+      <BarChart layout="vertical" data={data} stackOffset="sign" responsive style={{ width: "100%", height: Math.max(180, 44 * data.length + 60) }} margin={{ top: 18, right: 30, bottom: 26, left: 8 }}>
         <CartesianGrid stroke={CHART_COLOURS.grid} horizontal={false} />
-        <XAxis type="number" domain={[offsetTicks[0], offsetTicks[offsetTicks.length - 1]]} ticks={offsetTicks} tick={axisTick} tickFormatter={(v: number) => valueAxis.format(v + base)} label={{ value: unit, position: "insideBottom", offset: -14, fontSize: 12 }} />
+        <XAxis tickMargin={AXIS_TICK_MARGIN} type="number" domain={[offsetTicks[0], offsetTicks[offsetTicks.length - 1]]} ticks={offsetTicks} tick={axisTick} tickFormatter={(v: number) => valueAxis.format(v + base)} label={{ value: unit, position: "insideBottom", offset: -18, fontSize: 12 }} />
         <YAxis type="category" dataKey="label" width={190} tick={axisTick} interval={0} />
         <ReferenceLine x={0} stroke="#1f2428" label={{ value: `base ${shortNumber(base)}`, position: "top", fontSize: 11 }} />
         <Tooltip formatter={tip as never} isAnimationActive={false} />

@@ -43,6 +43,8 @@ export const CHART_COLOURS = {
 } as const;
 
 export const axisTick = { fontSize: 12, fill: "#5d676f" } as const;
+/** Gap between a horizontal axis's tick marks and their labels, px: the label's box (its font's leading included) clears the mark. */
+export const AXIS_TICK_MARGIN = 5;
 
 export function shortNumber(v: number): string {
   if (!Number.isFinite(v)) return "";

@@ -44,6 +44,11 @@ export interface StoredStudy {
   includeUpstream: boolean;
   sensitivity: Sensitivity;
   notes: string;
+  reportTitle: string;
+  preparedFor: string;
+  preparedBy: string;
+  reportDate: string | null;
+  reportNotes: string;
   isDemo: boolean;
   updatedAt: Date;
   baseline: StoredScenario | null;
@@ -109,6 +114,11 @@ export function studyFromRows(row: StudyRow, scenarioRows: ScenarioRow[]): Store
     includeUpstream: row.includeUpstream,
     sensitivity: "value" in sensitivity ? sensitivity.value : SENSITIVITY_DEFAULTS,
     notes: row.notes,
+    reportTitle: row.reportTitle,
+    preparedFor: row.preparedFor,
+    preparedBy: row.preparedBy,
+    reportDate: row.reportDate,
+    reportNotes: row.reportNotes,
     isDemo: row.isDemo,
     updatedAt: row.updatedAt,
     baseline: base ? scenario(base, "baseline") : null,
@@ -132,6 +142,11 @@ export function studyColumns(r: StudyRecord) {
     includeUpstream: r.includeUpstream,
     sensitivityRanges: JSON.stringify(r.sensitivity),
     notes: r.notes,
+    reportTitle: r.reportTitle,
+    preparedFor: r.preparedFor,
+    preparedBy: r.preparedBy,
+    reportDate: r.reportDate ?? null,
+    reportNotes: r.reportNotes,
   };
 }
 

@@ -46,7 +46,10 @@ export interface FitCheck {
   status: CheckStatus;
   /** The checked number (null if it cannot be computed for this fuel). */
   value: number | null;
-  /** The limit it is checked against (for two-sided limits, the bound nearest to the value). */
+  /**
+   * The limit it is checked against: for an absolute range the bound nearest to the value; for a
+   * ± band (Wobbe band) its half-width, positive, so that it reads "±5.0 %" for every scenario.
+   */
   limit: number | null;
   unit: string;
   /** Share of the allowance used (1 = at the limit), where meaningful. */
@@ -83,6 +86,19 @@ function atMost(value: number, limit: number, warnAt: number): { status: CheckSt
   return { status: value > limit + AT_LIMIT_TOLERANCE * Math.max(1, Math.abs(limit)) ? "fail" : usage >= warnAt - AT_LIMIT_TOLERANCE ? "warn" : "pass", usage };
 }
 
+/**
+ * Added to a failing check of the baseline: the plant runs on that fuel today, so the entered limit
+ * (or the operating point) is the first thing to check.
+ */
+const BASELINE_LIMIT_HINT: Partial<Record<FitCheckId, string>> = {
+  "flue-gas-fan": "the baseline itself exceeds the flue-gas fan capacity, yet the plant runs on it today: check the entered capacity and its basis (actual or normal m³/h)",
+  "combustion-air-fan": "the baseline itself exceeds the combustion-air fan capacity, yet the plant runs on it today: check the entered capacity and its basis (actual or normal m³/h)",
+  "fuel-supply": "the baseline itself exceeds the fuel supply capacity, yet the plant runs on it today: check the entered capacity and its metering reference",
+  "wobbe-range": "the baseline itself lies outside the entered Wobbe range: check the range and its reference temperatures",
+  "hydrogen-share": "the baseline itself exceeds the burner maker's hydrogen limit: check the entered limit",
+  "stack-dew-point": "the baseline itself runs below its dew point in a non-condensing unit: check the stack temperature and the condensing setting",
+};
+
 const fmt = (v: number, d = 1) => (Number.isFinite(v) ? v.toFixed(d) : String(v));
 const refLabel = meteringLabel;
 
@@ -97,8 +113,11 @@ export function fitChecks(plant: Plant, baseline: FuelInPlant, cand: FuelInPlant
   const out: FitCheck[] = [];
   // Sentences are only built when wanted (sweeps evaluate thousands of checks).
   const T = withText;
+  // The baseline is what the plant burns today: a limit it fails is more likely mistyped than real.
+  const isBaseline = cand === baseline;
   const push = (c: Omit<FitCheck, "label">) => {
     (c as FitCheck).label = FIT_CHECK_LABELS[c.id];
+    if (T && isBaseline && c.status === "fail" && c.limit !== null && BASELINE_LIMIT_HINT[c.id]) c.message = `${c.message} — ${BASELINE_LIMIT_HINT[c.id]}`;
     out.push(c as FitCheck);
   };
 
@@ -122,7 +141,7 @@ export function fitChecks(plant: Plant, baseline: FuelInPlant, cand: FuelInPlant
       } else {
         const r = atMost(Math.abs(shift), tol, warnAt);
         push({
-          id: "wobbe-band", status: r.status, value: shift, limit: shift < 0 ? -tol : tol, unit: "%", usage: r.usage, basis: wBasis,
+          id: "wobbe-band", status: r.status, value: shift, limit: tol, unit: "%", usage: r.usage, basis: wBasis,
           message: T ? `Wobbe ${fmt(w.gross_MJ_per_m3, 2)} MJ/m³, ${fmt(shift, 2)} % versus baseline ${fmt(wb.gross_MJ_per_m3, 2)} MJ/m³; band ±${fmt(tol, 1)} %` : "",
         });
       }

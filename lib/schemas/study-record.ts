@@ -43,6 +43,11 @@ export const studyRecordSchema = z
     includeUpstream: s.includeUpstream,
     sensitivity: s.sensitivity,
     notes: s.notes,
+    reportTitle: s.reportTitle,
+    preparedFor: s.preparedFor,
+    preparedBy: s.preparedBy,
+    reportDate: s.reportDate,
+    reportNotes: s.reportNotes,
     baseline: scenarioRecordSchema,
     scenarios: z.array(scenarioRecordSchema, { error: "required: a list of candidate scenarios (may be empty)" }).max(200, "at most 200 scenarios"),
   })

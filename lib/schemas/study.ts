@@ -87,6 +87,20 @@ export const sensitivitySchema = z
   .strict();
 export type SensitivityRanges = z.infer<typeof sensitivitySchema>;
 
+/**
+ * The report's cover: what a consultant puts on the first page (all optional; an empty title is
+ * the study's name, an empty date is the day the report is printed).
+ */
+export const coverShape = {
+  reportTitle: text(200).default(""),
+  preparedFor: text(300).default(""),
+  preparedBy: text(300).default(""),
+  /** Date printed on the cover (YYYY-MM-DD); null = the day the report is opened. */
+  reportDate: isoDateSchema.nullish(),
+  /** The consultant's own text on the cover (scope, caveats, recommendations). */
+  reportNotes: text(10000).default(""),
+};
+
 export const hydrogenSweepSchema = z
   .object({
     enabled: z.boolean({ error: "must be true or false" }).default(true),
@@ -122,6 +136,7 @@ export const studySchema = z
     baseline: scenarioSchema,
     scenarios: z.array(scenarioSchema, { error: (iss) => (iss.input === undefined ? "required: a list of candidate scenarios (may be empty)" : "must be a list of scenarios") }).max(200, "at most 200 scenarios"),
     notes: text(10000).default(""),
+    ...coverShape,
   }, { error: "a study must be a JSON object" })
   .strict()
   .superRefine((s, ctx) => {

@@ -191,7 +191,7 @@ interface ScenarioSource {
   overrides: StoredScenario["overrides"];
 }
 
-type StudyFields = Pick<
+type StudyFields = Omit<Pick<
   StoredStudy,
   | "name"
   | "currency"
@@ -203,7 +203,12 @@ type StudyFields = Pick<
   | "includeUpstream"
   | "sensitivity"
   | "notes"
->;
+  | "reportTitle"
+  | "preparedFor"
+  | "preparedBy"
+  | "reportDate"
+  | "reportNotes"
+>, "reportDate"> & { reportDate?: string | null };
 
 function build(
   fields: StudyFields,
@@ -263,6 +268,11 @@ function build(
     baseline: b.input,
     scenarios: cs.map((c) => c.input),
     notes: fields.notes,
+    reportTitle: fields.reportTitle,
+    preparedFor: fields.preparedFor,
+    preparedBy: fields.preparedBy,
+    reportDate: fields.reportDate ?? null,
+    reportNotes: fields.reportNotes,
   };
   return {
     input,
@@ -430,6 +440,11 @@ export async function studyRecord(db: Db, id: number): Promise<StudyRecordView |
     includeUpstream: s.includeUpstream,
     sensitivity: s.sensitivity,
     notes: s.notes,
+    reportTitle: s.reportTitle,
+    preparedFor: s.preparedFor,
+    preparedBy: s.preparedBy,
+    reportDate: s.reportDate,
+    reportNotes: s.reportNotes,
     baseline: s.baseline
       ? sc(s.baseline)
       : { name: "Baseline", fuelId: 0, priceQuoteId: null, capex: 0, fixedOpexChange: 0, overrides: {} },

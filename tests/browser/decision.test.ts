@@ -192,7 +192,7 @@ describe("decision pages in the browser", () => {
     const css = await page.locator("style").evaluateAll((s) => s.map((x) => x.textContent ?? "").join("\n"));
     expect(css).toMatch(/@page\s*{\s*size:\s*A4/);
     const text = (await page.getByTestId("report").textContent()) ?? "";
-    for (const s of ["Plant", "Assumptions", "Ranked scenarios", "Fit checks", "Methods and sources", "Safety cautions", "NASA RP-1311", "ISO 6976", "invented"]) expect(text).toContain(s);
+    for (const s of ["Plant", "Assumptions", "Ranked scenarios", "Fit checks", "Methods", "Sources", "Safety cautions", "NASA RP-1311", "ISO 6976", "invented"]) expect(text).toContain(s);
     expect(await page.locator(".report .caution h3", { hasText: "Hydrogen" }).count()).toBe(1);
     const pdf = await page.pdf({ preferCSSPageSize: true, printBackground: true });
     expect(pdf.subarray(0, 5).toString()).toBe("%PDF-");

@@ -114,9 +114,12 @@ describe("schema matches the migrations", () => {
     const readPlant = await db.plant.findUniqueOrThrow({ where: { id: plant.id } });
     expect(readPlant).toMatchObject({ wobbeMin_MJ_per_m3: 47.2, condensing: true, returnWaterC: 40, condensingApproachK: 4, flueCODryPpm: 120, unburntCarbonInAshPercent: 8, warnAtFractionOfLimit: 0.85, flueGasCapacityBasis: "normal" });
     const study = await db.study.create({
-      data: { plantId: plant.id, name: "S1", carbonPrice_per_t: 80, currency: "EUR", discountRatePercent: 8, horizonYears: 15, priceEscalationPercent: 2, rankingMetric: "npv", includeUpstream: true, sensitivityRanges: '{"fuelPricePercent":25}', notes: "" },
+      data: { plantId: plant.id, name: "S1", carbonPrice_per_t: 80, currency: "EUR", discountRatePercent: 8, horizonYears: 15, priceEscalationPercent: 2, rankingMetric: "npv", includeUpstream: true, sensitivityRanges: '{"fuelPricePercent":25}', notes: "", reportTitle: "T", preparedFor: "Client Ltd", preparedBy: "A. Consultant", reportDate: "2026-11-30", reportNotes: "Scope." },
     });
-    expect(await db.study.findUniqueOrThrow({ where: { id: study.id } })).toMatchObject({ includeUpstream: true, sensitivityRanges: '{"fuelPricePercent":25}' });
+    expect(await db.study.findUniqueOrThrow({ where: { id: study.id } })).toMatchObject({ includeUpstream: true, sensitivityRanges: '{"fuelPricePercent":25}', reportTitle: "T", preparedFor: "Client Ltd", preparedBy: "A. Consultant", reportDate: "2026-11-30", reportNotes: "Scope." });
+    const bare = await db.study.create({ data: { plantId: plant.id, name: "S0", currency: "EUR", discountRatePercent: 8, horizonYears: 15, rankingMetric: "npv" } });
+    expect(bare).toMatchObject({ reportTitle: "", preparedFor: "", preparedBy: "", reportDate: null, reportNotes: "" });
+    await db.study.delete({ where: { id: bare.id } });
     const sc = await db.scenario.create({
       data: { studyId: study.id, name: "base", fuelId: fuel.id, priceQuoteId: quote.id, capex: 1e5, fixedOpexChange: -500, overrides: '{"stackTemperatureC":120}', isBaseline: true, position: 0 },
     });

@@ -149,3 +149,27 @@ describe("fit checks: pass / warn / fail against the plant's limits", () => {
     expect(worstStatus(["not-checked"])).toBe("not-checked");
   });
 });
+
+describe("fit-check wording for a report", () => {
+  it("a baseline that fails its own fan capacity is told to check the entered capacity; a candidate is not", () => {
+    const flow = check(evaluate({}, []), -1, "flue-gas-fan").value!;
+    const r = evaluate({ flueGasCapacity_m3_per_h: flow * 0.8 }, [{ name: "10 %", fuel: blend(0.1) }]);
+    const base = check(r, -1, "flue-gas-fan");
+    expect(base.status).toBe("fail");
+    expect(base.message).toMatch(/the baseline itself exceeds the flue-gas fan capacity.*check the entered capacity/);
+    const cand = check(r, 0, "flue-gas-fan");
+    expect(cand.status).toBe("fail");
+    expect(cand.message).not.toMatch(/check the entered/);
+  });
+
+  it("a ± Wobbe band is stated as its positive half-width for a lower and for a higher Wobbe index", () => {
+    // Hydrogen lowers the Wobbe index of methane, propane raises it (ISO 6976:2016 gross Wobbe index of H2 ≈ 46 MJ/m³ and of C3H8 ≈ 81 MJ/m³ against methane ≈ 50.7 MJ/m³ at 15/15 °C, value from memory).
+    const r = evaluate({ wobbeTolerancePercent: 5 }, [
+      { name: "30 %", fuel: blend(0.3) },
+      { name: "propane", fuel: { compound: "C3H8", phase: "gas" } },
+    ]);
+    expect(check(r, 0, "wobbe-band").value!).toBeLessThan(0);
+    expect(check(r, 1, "wobbe-band").value!).toBeGreaterThan(0);
+    for (const i of [-1, 0, 1]) expect(check(r, i, "wobbe-band").limit).toBe(5);
+  });
+});

@@ -15,7 +15,7 @@ export function PlantLimitsTable({ p, d }: { p: Plant; d: Display }) {
           <th>Wobbe index</th>
           <td className="num">
             {p.wobbeTolerancePercent != null
-              ? `± ${fmt(p.wobbeTolerancePercent, 1)} % of the baseline`
+              ? `±${fmt(p.wobbeTolerancePercent, 1)} % of the baseline`
               : p.wobbeMin_MJ_per_m3 != null
                 ? `${d.wobbe(p.wobbeMin_MJ_per_m3)}–${d.wobbe(p.wobbeMax_MJ_per_m3)} ${d.wobbeUnit} gross`
                 : na}

@@ -3,79 +3,110 @@
 /**
  * Create or edit a study: the plant, the economic assumptions, the baseline and the candidate
  * scenarios (a stored fuel or blend, the price quote, capex, fixed opex change and operating-point
- * overrides). The server validates everything and names the field of each problem.
+ * overrides and limits, every field the study stores) and the report cover. The server validates
+ * everything and names the field of each problem; a number whose text is untouched is sent back exactly as stored.
  */
 import Link from "next/link";
 import { saveAndOpen } from "@/app/_ui/save";
 import { useRouter } from "next/navigation";
 import { useMemo, useRef, useState } from "react";
 import { ErrorSummary, Field, invalid, toNumber, type Errors } from "../../fuels/_components/fields";
-import type { StudyFormOptions } from "@/lib/services/studies";
+import type { QuoteChoice, StudyFormOptions } from "@/lib/services/studies";
 import { quoteChoiceLabel } from "./price-labels";
 import { SENSITIVITY_DEFAULTS, type SensitivityRanges } from "@/lib/schemas/study";
+import { scenarioRecordSchema, studyRecordSchema, type ScenarioRecordInput, type StudyRecordInput } from "@/lib/schemas/study-record";
+import { operatingOverridesSchema, type OperatingOverrides } from "@/lib/schemas/plant";
 import { capitalised, fieldLabel } from "@/lib/schemas/labels";
 
-export interface StudyFormInitial {
-  id?: number;
-  plantId: number;
-  name: string;
-  currency: string;
-  carbonPrice_per_t: number;
-  discountRatePercent: number;
-  horizonYears: number;
-  priceEscalationPercent: number;
-  rankingMetric: string;
-  includeUpstream?: boolean;
-  sensitivity?: Partial<Record<SensitivityKey, number>>;
-  notes: string;
-  baseline: ScenarioInitial;
-  scenarios: ScenarioInitial[];
-}
-
-interface ScenarioInitial {
-  name: string;
-  fuelId: number;
-  priceQuoteId?: number | null;
-  capex?: number;
-  fixedOpexChange?: number;
-  overrides?: Record<string, unknown>;
-}
+/** What the form starts from: a stored study as the API returns it (the record schema's input), with its id. */
+export type StudyFormInitial = StudyRecordInput & { id?: number };
+type ScenarioInitial = ScenarioRecordInput;
 
 type SensitivityKey = keyof SensitivityRanges;
 const SENSITIVITY_KEYS = Object.keys(SENSITIVITY_DEFAULTS) as SensitivityKey[];
-const SENSITIVITY_LABELS = Object.fromEntries(SENSITIVITY_KEYS.map((k) => [k, capitalised(fieldLabel(k))])) as Record<SensitivityKey, string>;
+const label = (k: string) => capitalised(fieldLabel(k));
 
-const OVERRIDE_KEYS = ["stackTemperatureC", "flueO2DryPercent", "combustionAirC", "radiationLossPercent", "returnWaterC"] as const;
-type OverrideKey = (typeof OVERRIDE_KEYS)[number];
-const OVERRIDE_LABELS = Object.fromEntries(OVERRIDE_KEYS.map((k) => [k, capitalised(fieldLabel(k))])) as Record<OverrideKey, string>;
+type OverrideKey = keyof OperatingOverrides;
+/** Every per-scenario field the schema knows, in its order; the limits a new burner changes first. */
+const ALL_OVERRIDE_KEYS = Object.keys(operatingOverridesSchema.shape) as OverrideKey[];
+/** Limits a scenario may set, or remove (null: no limit in this scenario). */
+const LIMIT_KEYS = ["maxH2SharePercent", "wobbeTolerancePercent", "maxFlameTempRiseK"] as const satisfies readonly OverrideKey[];
+type NumberOverrideKey = Exclude<OverrideKey, "condensing">;
+const NUMBER_OVERRIDE_KEYS = ALL_OVERRIDE_KEYS.filter((k): k is NumberOverrideKey => k !== "condensing");
+const OPERATING_KEYS = NUMBER_OVERRIDE_KEYS.filter((k) => !(LIMIT_KEYS as readonly string[]).includes(k));
+const isLimit = (k: OverrideKey) => (LIMIT_KEYS as readonly string[]).includes(k);
+
+/** One number as typed, with the stored value it started from (sent back as it was when the text is untouched). */
+interface NumText {
+  text: string;
+  initial: number | null | undefined;
+  /** Stored null (a limit removed in this scenario) and not changed since. */
+  isNull: boolean;
+}
+
+/**
+ * The rule's date: a scenario without a chosen quote takes the latest quote valid on this date (the
+ * field exists where the record schema has it; empty = the day the study is evaluated).
+ */
+const RULE_DATE_KEY = "priceValidOn";
+const HAS_RULE_DATE = RULE_DATE_KEY in scenarioRecordSchema.shape;
+const SCENARIO_FORM_KEYS = new Set(["name", "fuelId", "priceQuoteId", "capex", "fixedOpexChange", "overrides", RULE_DATE_KEY]);
+const STUDY_RECORD_KEYS = Object.keys(studyRecordSchema.shape);
+
+/** Stored fields of the record schema this form has no input for: sent back as they came, never dropped. */
+function untouched(init: object | undefined, known: (k: string) => boolean, keys: readonly string[]): Record<string, unknown> {
+  if (!init) return {};
+  return Object.fromEntries(Object.entries(init).filter(([k]) => keys.includes(k) && !known(k)));
+}
 
 interface ScenarioState {
   key: number;
+  rest: Record<string, unknown>;
+  priceValidOn: string;
   name: string;
   fuelId: string;
   priceQuoteId: string;
-  capex: string;
-  fixedOpexChange: string;
-  overrides: Record<OverrideKey, string>;
+  capex: NumText;
+  fixedOpexChange: NumText;
+  overrides: Record<NumberOverrideKey, NumText>;
   condensing: "" | "yes" | "no";
 }
 
 const s = (v: unknown) => (v === null || v === undefined ? "" : String(v));
+const numText = (v: number | null | undefined): NumText => ({ text: s(v), initial: v, isNull: v === null });
+/** The number to send: the stored value when the text is as it was shown, else the text read in the browser's locale. */
+function numberOf(n: NumText): number | string | null {
+  if (typeof n.initial === "number" && n.text === String(n.initial)) return n.initial;
+  return toNumber(n.text);
+}
 
 function scenarioState(key: number, init?: ScenarioInitial): ScenarioState {
-  const o = (init?.overrides ?? {}) as Record<string, unknown>;
-  const overrides = {} as Record<OverrideKey, string>;
-  for (const k of OVERRIDE_KEYS) overrides[k] = s(o[k]);
+  const o: Partial<Record<OverrideKey, unknown>> = init?.overrides ?? {};
+  const overrides = {} as Record<NumberOverrideKey, NumText>;
+  for (const k of NUMBER_OVERRIDE_KEYS) {
+    const v = o[k];
+    overrides[k] = k in o ? numText(typeof v === "number" ? v : null) : numText(undefined);
+  }
+  const record: Record<string, unknown> = init ?? {};
   return {
     key,
+    rest: untouched(init, (k) => SCENARIO_FORM_KEYS.has(k), Object.keys(scenarioRecordSchema.shape)),
+    priceValidOn: s(record[RULE_DATE_KEY]),
     name: init?.name ?? "",
     fuelId: init ? s(init.fuelId || "") : "",
     priceQuoteId: s(init?.priceQuoteId ?? ""),
-    capex: init?.capex ? String(init.capex) : "0",
-    fixedOpexChange: init?.fixedOpexChange ? String(init.fixedOpexChange) : "0",
+    capex: numText(init?.capex ?? 0),
+    fixedOpexChange: numText(init?.fixedOpexChange ?? 0),
     overrides,
     condensing: o.condensing === true ? "yes" : o.condensing === false ? "no" : "",
   };
+}
+
+const today = () => new Date().toISOString().slice(0, 10);
+
+/** The quote the rule "latest in the study's currency valid on date D" picks today (quotes come newest first). */
+function quoteInForce(quotes: QuoteChoice[], currency: string, onDate: string): QuoteChoice | undefined {
+  return quotes.find((q) => q.currency === currency && q.validFrom <= onDate);
 }
 
 const dash = (name: string) => `f-${name.replace(/\./g, "-")}`;
@@ -94,22 +125,37 @@ export function StudyForm({
   const router = useRouter();
   const nextKey = useRef(1000);
   const firstPlant = options.plants.find((p) => p.id === (initial?.plantId ?? defaultPlantId)) ?? options.plants[0];
+  // The numbers of the study as stored: sent back unchanged while their text is untouched.
+  const headInitial = useRef<Record<string, number | null | undefined>>({
+    carbonPrice_per_t: initial?.carbonPrice_per_t ?? 80,
+    discountRatePercent: initial?.discountRatePercent ?? 8,
+    horizonYears: initial?.horizonYears ?? 15,
+    priceEscalationPercent: initial?.priceEscalationPercent ?? 0,
+    ...Object.fromEntries(SENSITIVITY_KEYS.map((k) => [k, initial?.sensitivity?.[k] ?? SENSITIVITY_DEFAULTS[k]])),
+  });
+  const hi = headInitial.current;
   const [head, setHead] = useState({
     plantId: s(initial?.plantId ?? firstPlant?.id ?? ""),
     name: initial?.name ?? "",
     currency: initial?.currency ?? "EUR",
-    carbonPrice_per_t: s(initial?.carbonPrice_per_t ?? 80),
-    discountRatePercent: s(initial?.discountRatePercent ?? 8),
-    horizonYears: s(initial?.horizonYears ?? 15),
-    priceEscalationPercent: s(initial?.priceEscalationPercent ?? 0),
+    carbonPrice_per_t: s(hi.carbonPrice_per_t),
+    discountRatePercent: s(hi.discountRatePercent),
+    horizonYears: s(hi.horizonYears),
+    priceEscalationPercent: s(hi.priceEscalationPercent),
     rankingMetric: initial?.rankingMetric ?? "cost-per-useful-MWh",
     includeUpstream: initial?.includeUpstream ? "yes" : "no",
-    fuelPricePercent: s(initial?.sensitivity?.fuelPricePercent ?? SENSITIVITY_DEFAULTS.fuelPricePercent),
-    carbonPricePercent: s(initial?.sensitivity?.carbonPricePercent ?? SENSITIVITY_DEFAULTS.carbonPricePercent),
-    efficiencyPoints: s(initial?.sensitivity?.efficiencyPoints ?? SENSITIVITY_DEFAULTS.efficiencyPoints),
-    capexPercent: s(initial?.sensitivity?.capexPercent ?? SENSITIVITY_DEFAULTS.capexPercent),
+    fuelPricePercent: s(hi.fuelPricePercent),
+    carbonPricePercent: s(hi.carbonPricePercent),
+    efficiencyPoints: s(hi.efficiencyPoints),
+    capexPercent: s(hi.capexPercent),
     notes: initial?.notes ?? "",
+    reportTitle: initial?.reportTitle ?? "",
+    preparedFor: initial?.preparedFor ?? "",
+    preparedBy: initial?.preparedBy ?? "",
+    reportDate: initial?.reportDate ?? "",
+    reportNotes: initial?.reportNotes ?? "",
   });
+  const headNumber = (k: keyof typeof head) => numberOf({ text: head[k], initial: hi[k], isNull: false });
   const baselineFuelName = (id: number | null | undefined) => options.fuels.find((f) => f.id === id)?.name ?? "";
   const [baseline, setBaseline] = useState<ScenarioState>(() =>
     initial
@@ -120,6 +166,7 @@ export function StudyForm({
   const [errors, setErrors] = useState<Errors>({});
   const [message, setMessage] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
+  const [asOf] = useState(today);
 
   const fuelsByKind = useMemo(() => {
     const m = new Map<string, StudyFormOptions["fuels"]>();
@@ -152,6 +199,10 @@ export function StudyForm({
     else setScenarios((list) => list.map((x, i) => (i === which ? apply(x) : x)));
   }
 
+  function setOverride(which: "baseline" | number, x: ScenarioState, k: NumberOverrideKey, patch: Partial<NumText>) {
+    update(which, { overrides: { ...x.overrides, [k]: { ...x.overrides[k], ...patch } } });
+  }
+
   function move(i: number, by: -1 | 1) {
     setScenarios((list) => {
       const j = i + by;
@@ -165,21 +216,29 @@ export function StudyForm({
 
   function scenarioBody(x: ScenarioState, isBaseline: boolean) {
     const overrides: Record<string, unknown> = {};
-    for (const k of OVERRIDE_KEYS) {
-      const v = toNumber(x.overrides[k]);
-      if (v !== null) overrides[k] = v;
+    for (const k of ALL_OVERRIDE_KEYS) {
+      if (k === "condensing") {
+        if (x.condensing) overrides.condensing = x.condensing === "yes";
+        continue;
+      }
+      const n = x.overrides[k];
+      if (n.isNull && n.text.trim() === "") overrides[k] = null;
+      else {
+        const v = numberOf(n);
+        if (v !== null) overrides[k] = v;
+      }
     }
-    if (x.condensing) overrides.condensing = x.condensing === "yes";
     const b: Record<string, unknown> = {
+      ...x.rest,
+      ...(HAS_RULE_DATE ? { [RULE_DATE_KEY]: x.priceQuoteId === "" && x.priceValidOn.trim() !== "" ? x.priceValidOn.trim() : null } : {}),
       name: x.name,
       fuelId: x.fuelId === "" ? null : Number(x.fuelId),
       priceQuoteId: x.priceQuoteId === "" ? null : Number(x.priceQuoteId),
+      // The baseline has no capex or opex change of its own (the schema refuses any but 0).
+      capex: isBaseline ? 0 : (numberOf(x.capex) ?? 0),
+      fixedOpexChange: isBaseline ? 0 : (numberOf(x.fixedOpexChange) ?? 0),
       overrides,
     };
-    if (!isBaseline) {
-      b.capex = toNumber(x.capex) ?? 0;
-      b.fixedOpexChange = toNumber(x.fixedOpexChange) ?? 0;
-    }
     return b;
   }
 
@@ -188,17 +247,23 @@ export function StudyForm({
     setBusy(true);
     setMessage(null);
     const body = {
+      ...untouched(initial, (k) => k in head || k === "sensitivity" || k === "baseline" || k === "scenarios", STUDY_RECORD_KEYS),
       plantId: head.plantId === "" ? null : Number(head.plantId),
       name: head.name,
       currency: head.currency,
-      carbonPrice_per_t: toNumber(head.carbonPrice_per_t) ?? 0,
-      discountRatePercent: toNumber(head.discountRatePercent),
-      horizonYears: toNumber(head.horizonYears),
-      priceEscalationPercent: toNumber(head.priceEscalationPercent) ?? 0,
+      carbonPrice_per_t: headNumber("carbonPrice_per_t") ?? 0,
+      discountRatePercent: headNumber("discountRatePercent"),
+      horizonYears: headNumber("horizonYears"),
+      priceEscalationPercent: headNumber("priceEscalationPercent") ?? 0,
       rankingMetric: head.rankingMetric,
       includeUpstream: head.includeUpstream === "yes",
-      sensitivity: Object.fromEntries(SENSITIVITY_KEYS.map((k) => [k, toNumber(head[k])])),
+      sensitivity: Object.fromEntries(SENSITIVITY_KEYS.map((k) => [k, headNumber(k)])),
       notes: head.notes,
+      reportTitle: head.reportTitle,
+      preparedFor: head.preparedFor,
+      preparedBy: head.preparedBy,
+      reportDate: head.reportDate.trim() === "" ? null : head.reportDate.trim(),
+      reportNotes: head.reportNotes,
       baseline: scenarioBody(baseline, true),
       scenarios: scenarios.map((x) => scenarioBody(x, false)),
     };
@@ -206,14 +271,56 @@ export function StudyForm({
   }
 
   const placed = (key: string) =>
-    Object.keys(head).includes(key) || /^(baseline|scenarios\.\d+)\.(name|fuelId|priceQuoteId|capex|fixedOpexChange|overrides(\.\w+)?)$/.test(key);
+    Object.keys(head).includes(key) ||
+    key.startsWith("sensitivity.") ||
+    /^(baseline|scenarios\.\d+)\.(name|fuelId|priceQuoteId|priceValidOn|capex|fixedOpexChange|overrides(\.\w+)?)$/.test(key);
+
+  /** The quote choice in words: a fixed quote, or the rule and the quote it picks today. */
+  function quoteRule(x: ScenarioState, fuel: StudyFormOptions["fuels"][number] | undefined): string | undefined {
+    if (!fuel) return undefined;
+    const cur = head.currency.trim().toUpperCase() || "the study's currency";
+    if (x.priceQuoteId !== "") return "This quote, fixed: newer quotes do not replace it.";
+    const onDate = x.priceValidOn.trim() || asOf;
+    const q = quoteInForce(fuel.quotes, cur, onDate);
+    const rule = x.priceValidOn.trim()
+      ? `Rule: the latest ${cur} quote valid on ${onDate}`
+      : `Rule: the latest ${cur} quote valid on the day the study is evaluated (today ${asOf})`;
+    if (q) return `${rule} — now ${quoteChoiceLabel(q)}.`;
+    if (fuel.isBlend) return `${rule} — none of its own: priced from its components' quotes by the same rule.`;
+    return `${rule} — there is none: no cost figures for this scenario.`;
+  }
+
+  function numberField(which: "baseline" | number, p: string, x: ScenarioState, k: NumberOverrideKey) {
+    const n = x.overrides[k];
+    const name = `${p}.overrides.${k}`;
+    const limit = isLimit(k);
+    return (
+      <Field key={k} label={label(k)} name={name} errors={errors} htmlFor={dash(name)}>
+        <input
+          id={dash(name)}
+          className="num"
+          inputMode="decimal"
+          placeholder={n.isNull && limit ? "no limit" : limit ? "plant's limit" : "plant's value"}
+          value={n.text}
+          disabled={limit && n.isNull}
+          onChange={(e) => setOverride(which, x, k, { text: e.target.value })}
+          {...invalid(errors, name)}
+        />
+        {limit && (
+          <label className="inline-check">
+            <input type="checkbox" checked={n.isNull} onChange={(e) => setOverride(which, x, k, { isNull: e.target.checked, text: e.target.checked ? "" : n.text })} /> no limit in
+            this scenario
+          </label>
+        )}
+      </Field>
+    );
+  }
 
   function card(x: ScenarioState, which: "baseline" | number) {
     const p = which === "baseline" ? "baseline" : `scenarios.${which}`;
     const fuel = options.fuels.find((f) => String(f.id) === x.fuelId);
     const quotes = fuel?.quotes ?? [];
-    const inForce = quotes.filter((q) => q.currency === head.currency.trim().toUpperCase());
-    const overrideCount = OVERRIDE_KEYS.filter((k) => x.overrides[k] !== "").length + (x.condensing ? 1 : 0);
+    const setCount = NUMBER_OVERRIDE_KEYS.filter((k) => x.overrides[k].text.trim() !== "" || x.overrides[k].isNull).length + (x.condensing ? 1 : 0);
     const hasOverrideError = Object.keys(errors).some((k) => k.startsWith(`${p}.overrides`));
     return (
       <div className={`scenario-card${which === "baseline" ? " baseline" : ""}`} key={x.key} data-testid={which === "baseline" ? "baseline-card" : `scenario-card-${which}`}>
@@ -261,25 +368,9 @@ export function StudyForm({
           </Field>
         </div>
         <div className="row">
-          <Field
-            label="Price"
-            name={`${p}.priceQuoteId`}
-            errors={errors}
-            htmlFor={dash(`${p}.priceQuoteId`)}
-            hint={
-              x.priceQuoteId === ""
-                ? inForce.length
-                  ? `uses the latest ${head.currency} quote in force`
-                  : fuel?.isBlend
-                    ? "no quote of its own: priced from its components' quotes"
-                    : fuel
-                      ? `no ${head.currency} quote: no cost figures`
-                      : undefined
-                : undefined
-            }
-          >
+          <Field label="Price" name={`${p}.priceQuoteId`} errors={errors} htmlFor={dash(`${p}.priceQuoteId`)} hint={<span data-testid="quote-rule">{quoteRule(x, fuel)}</span>}>
             <select id={dash(`${p}.priceQuoteId`)} value={x.priceQuoteId} onChange={(e) => update(which, { priceQuoteId: e.target.value })} {...invalid(errors, `${p}.priceQuoteId`)}>
-              <option value="">quote in force (latest, {head.currency || "study currency"})</option>
+              <option value="">latest {head.currency || "study currency"} quote valid on the day evaluated</option>
               {quotes.map((q) => (
                 <option key={q.id} value={q.id}>
                   {quoteChoiceLabel(q)}
@@ -288,41 +379,36 @@ export function StudyForm({
               ))}
             </select>
           </Field>
+          {HAS_RULE_DATE && x.priceQuoteId === "" && (
+            <Field label={label(RULE_DATE_KEY)} name={`${p}.${RULE_DATE_KEY}`} errors={errors} htmlFor={dash(`${p}.${RULE_DATE_KEY}`)} hint="empty: the day the study is evaluated">
+              <input id={dash(`${p}.${RULE_DATE_KEY}`)} type="date" value={x.priceValidOn} onChange={(e) => update(which, { priceValidOn: e.target.value })} style={{ maxWidth: "11rem" }} {...invalid(errors, `${p}.${RULE_DATE_KEY}`)} />
+            </Field>
+          )}
           {which !== "baseline" && (
             <>
               <Field label={`Switching capex, ${head.currency}`} name={`${p}.capex`} errors={errors} htmlFor={dash(`${p}.capex`)}>
-                <input id={dash(`${p}.capex`)} className="num" inputMode="decimal" value={x.capex} onChange={(e) => update(which, { capex: e.target.value })} {...invalid(errors, `${p}.capex`)} />
+                <input id={dash(`${p}.capex`)} className="num" inputMode="decimal" value={x.capex.text} onChange={(e) => update(which, { capex: { ...x.capex, text: e.target.value } })} {...invalid(errors, `${p}.capex`)} />
               </Field>
               <Field label={`Fixed opex change, ${head.currency}/yr`} name={`${p}.fixedOpexChange`} errors={errors} htmlFor={dash(`${p}.fixedOpexChange`)} hint="+ = more cost than the baseline">
                 <input
                   id={dash(`${p}.fixedOpexChange`)}
                   className="num"
                   inputMode="decimal"
-                  value={x.fixedOpexChange}
-                  onChange={(e) => update(which, { fixedOpexChange: e.target.value })}
+                  value={x.fixedOpexChange.text}
+                  onChange={(e) => update(which, { fixedOpexChange: { ...x.fixedOpexChange, text: e.target.value } })}
                   {...invalid(errors, `${p}.fixedOpexChange`)}
                 />
               </Field>
             </>
           )}
         </div>
-        <details className="overrides" open={hasOverrideError || undefined}>
-          <summary>Operating-point overrides{overrideCount ? ` (${overrideCount} set)` : " (none: the plant's values)"}</summary>
+        <details className="overrides" open={hasOverrideError || setCount > 0 || undefined}>
+          <summary>Limits and operating point of this scenario{setCount ? ` (${setCount} set)` : " (none: the plant's values)"}</summary>
+          <p className="hint small-note">Empty fields take the plant&apos;s value. A new burner or fan changes a limit here.</p>
+          <div className="row">{LIMIT_KEYS.map((k) => numberField(which, p, x, k))}</div>
           <div className="row">
-            {OVERRIDE_KEYS.map((k) => (
-              <Field key={k} label={OVERRIDE_LABELS[k]} name={`${p}.overrides.${k}`} errors={errors} htmlFor={dash(`${p}.overrides.${k}`)}>
-                <input
-                  id={dash(`${p}.overrides.${k}`)}
-                  className="num"
-                  inputMode="decimal"
-                  placeholder="plant's value"
-                  value={x.overrides[k]}
-                  onChange={(e) => update(which, { overrides: { ...x.overrides, [k]: e.target.value } })}
-                  {...invalid(errors, `${p}.overrides.${k}`)}
-                />
-              </Field>
-            ))}
-            <Field label="Condensing" name={`${p}.overrides.condensing`} errors={errors} htmlFor={dash(`${p}.overrides.condensing`)}>
+            {OPERATING_KEYS.map((k) => numberField(which, p, x, k))}
+            <Field label={label("condensing")} name={`${p}.overrides.condensing`} errors={errors} htmlFor={dash(`${p}.overrides.condensing`)}>
               <select id={dash(`${p}.overrides.condensing`)} value={x.condensing} onChange={(e) => update(which, { condensing: e.target.value as ScenarioState["condensing"] })}>
                 <option value="">plant&apos;s value</option>
                 <option value="yes">condensing</option>
@@ -407,13 +493,37 @@ export function StudyForm({
         </div>
         <div className="row">
           {SENSITIVITY_KEYS.map((k) => (
-            <Field key={k} label={SENSITIVITY_LABELS[k]} name={`sensitivity.${k}`} errors={errors} hint={k === "fuelPricePercent" ? "ranges of the sensitivity (tornado) page" : undefined}>
-              <input id={`f-sensitivity.${k}`} className="num" inputMode="decimal" value={head[k]} onChange={setH(k)} {...invalid(errors, `sensitivity.${k}`)} />
+            <Field key={k} label={label(k)} name={`sensitivity.${k}`} htmlFor={`f-sensitivity-${k}`} errors={errors} hint={k === "fuelPricePercent" ? "ranges of the sensitivity (tornado) page" : undefined}>
+              <input id={`f-sensitivity-${k}`} className="num" inputMode="decimal" value={head[k]} onChange={setH(k)} {...invalid(errors, `sensitivity.${k}`)} />
             </Field>
           ))}
         </div>
         <Field label="Notes" name="notes" errors={errors}>
           <textarea id="f-notes" value={head.notes} onChange={setH("notes")} maxLength={10000} />
+        </Field>
+      </fieldset>
+
+      <fieldset>
+        <legend>Report cover</legend>
+        <p className="hint small-note">What the first page of the report shows. An empty title is the study&apos;s name; an empty date is the day the report is opened.</p>
+        <div className="row">
+          <Field label={label("reportTitle")} name="reportTitle" errors={errors}>
+            <input id="f-reportTitle" value={head.reportTitle} onChange={setH("reportTitle")} maxLength={200} placeholder={head.name} {...invalid(errors, "reportTitle")} />
+          </Field>
+          <Field label={label("reportDate")} name="reportDate" errors={errors}>
+            <input id="f-reportDate" type="date" value={head.reportDate} onChange={setH("reportDate")} style={{ maxWidth: "11rem" }} {...invalid(errors, "reportDate")} />
+          </Field>
+        </div>
+        <div className="row">
+          <Field label={label("preparedFor")} name="preparedFor" errors={errors}>
+            <input id="f-preparedFor" value={head.preparedFor} onChange={setH("preparedFor")} maxLength={300} {...invalid(errors, "preparedFor")} />
+          </Field>
+          <Field label={label("preparedBy")} name="preparedBy" errors={errors}>
+            <input id="f-preparedBy" value={head.preparedBy} onChange={setH("preparedBy")} maxLength={300} {...invalid(errors, "preparedBy")} />
+          </Field>
+        </div>
+        <Field label={label("reportNotes")} name="reportNotes" errors={errors}>
+          <textarea id="f-reportNotes" value={head.reportNotes} onChange={setH("reportNotes")} maxLength={10000} />
         </Field>
       </fieldset>
 

@@ -49,7 +49,7 @@ export interface Display {
   wobbe(value_MJ_per_m3: number | null | undefined, decimals?: number): string;
   wobbeValue(value_MJ_per_m3: number): number;
   /** A fit check's value and limit in display units, with the unit. */
-  check(c: Pick<FitCheck, "value" | "limit" | "unit">): { value: string; limit: string; unit: string };
+  check(c: Pick<FitCheck, "value" | "limit" | "unit"> & { id?: FitCheck["id"] }): { value: string; limit: string; unit: string };
 }
 
 const ok = (v: number | null | undefined): v is number => v !== null && v !== undefined && Number.isFinite(v);
@@ -90,6 +90,8 @@ export function makeDisplay(units: DisplayUnits, currency: string): Display {
         case "MJ/m³":
           return { value: d.wobbe(c.value), limit: d.wobbe(c.limit), unit: d.wobbeUnit };
         default:
+          // A ± band (the Wobbe band) reads "±5.0 %" for every scenario, the shift with its sign.
+          if (c.id === "wobbe-band") return { value: signed(c.value, 1), limit: c.limit === null ? "–" : `±${fmt(Math.abs(c.limit), 1)}`, unit: c.unit };
           return { value: fmt(c.value, 1), limit: fmt(c.limit, 1), unit: c.unit };
       }
     },

@@ -25,19 +25,7 @@ export default async function EditStudyPage({ params }: { params: Promise<{ id: 
           .
         </p>
       )}
-      <StudyForm
-        options={options}
-        metrics={METRIC_OPTIONS}
-        initial={{
-          ...rec,
-          carbonPrice_per_t: rec.carbonPrice_per_t ?? 0,
-          priceEscalationPercent: rec.priceEscalationPercent ?? 0,
-          rankingMetric: rec.rankingMetric ?? "cost-per-useful-MWh",
-          notes: rec.notes ?? "",
-          baseline: { ...rec.baseline, overrides: rec.baseline.overrides as Record<string, unknown> },
-          scenarios: rec.scenarios.map((x) => ({ ...x, overrides: x.overrides as Record<string, unknown> })),
-        }}
-      />
+      <StudyForm options={options} metrics={METRIC_OPTIONS} initial={rec} />
     </>
   );
 }

@@ -21,6 +21,10 @@ import { PlantLimitsTable } from "../../../plants/_components/PlantLimits";
 import { fieldValueText } from "@/lib/schemas/labels";
 import { SIEGERT_COMPARISON_DEFINITION } from "@/lib/plant/siegert";
 import { hydrogenPriceLabel, priceSourceLabel } from "../../_components/price-labels";
+import { co2Ranked, type Ranked } from "../../_components/results";
+import type { Display } from "../../_components/display";
+import type { StudyResult } from "@/lib/study/evaluate";
+import { COMMON_PRACTICE_NOTE, FROM_MEMORY_NOTE, citationNumbers, citationsIn, plainSource } from "./sources";
 
 export const dynamic = "force-dynamic";
 
@@ -33,6 +37,79 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
 }
 
 const PAPER = { a4: "A4", letter: "Letter" } as const;
+const ORIENTATION = { portrait: "Portrait", landscape: "Landscape" } as const;
+/** Page margins per paper: 16 × 14 mm on A4, 0.6 × 0.55 in on Letter. */
+const MARGIN = { a4: "16mm 14mm", letter: "0.6in 0.55in" } as const;
+/** The compact ranking holds this many scenarios (baseline included) on one page. */
+const COMPACT_MAX = 12;
+
+/** Money in thousands of the currency, whole (capex, NPV): "−1,235". */
+const thousands = (v: number | null | undefined) => (v === null || v === undefined || !Number.isFinite(v) ? "–" : signedOrPlain(v / 1000));
+const signedOrPlain = (v: number) => (Math.round(v) === 0 ? "0" : v < 0 ? `−${fmt(-v, 0)}` : fmt(v, 0));
+
+/** Ranking at a glance: one line per scenario, up to twelve on one page. */
+function CompactRanking({ list, result, d }: { list: Ranked[]; result: StudyResult; d: Display }) {
+  const metric = result.ranking.metric;
+  const shown = list.slice(0, COMPACT_MAX);
+  return (
+    <section className="keep compact-ranking" data-testid="compact-ranking">
+      <h2>Ranking at a glance</h2>
+      <div className="table-wrap">
+      <table className="compact">
+        <thead>
+          <tr>
+            <th className="num">#</th>
+            <th>Scenario</th>
+            <th>Fit</th>
+            <th className="num">
+              {METRIC_SHORT[metric]} <span className="unit">ranked by</span>
+            </th>
+            <th className="num">
+              Cost <span className="unit">{d.costPerEnergyUnit} useful</span>
+            </th>
+            <th className="num">
+              CO2 <span className="unit">g/MJ useful</span>
+            </th>
+            <th className="num">
+              CO2 avoided <span className="unit">t/yr</span>
+            </th>
+            <th className="num">
+              Capex <span className="unit">thousand {d.currency}</span>
+            </th>
+            <th className="num">
+              NPV <span className="unit">thousand {d.currency}</span>
+            </th>
+          </tr>
+        </thead>
+        <tbody>
+          {shown.map(({ r }) => (
+            <tr key={r.index} className={r.status === "infeasible" ? "infeasible" : undefined}>
+              <td className="num">{r.rank}</td>
+              <td>
+                {r.name}
+                {r.isBaseline && <span className="muted"> (baseline)</span>}
+              </td>
+              <td>
+                <Status status={r.status} />
+              </td>
+              <td className="num">{metricText(metric, r.metricValue, d)}</td>
+              <td className="num">{r.costs ? d.costPerEnergy(r.costs.costPerUsefulMWh.total) : "–"}</td>
+              <td className="num">{fmt(co2Ranked(r), 1)}</td>
+              <td className="num">{r.isBaseline ? "—" : fmt(r.comparison?.annualCo2Avoided_t, 0)}</td>
+              <td className="num">{r.isBaseline ? "—" : thousands(r.audit.inputs.capex)}</td>
+              <td className="num">{r.isBaseline ? "—" : thousands(r.comparison?.npv)}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      </div>
+      <p className="table-note">
+        {list.length > COMPACT_MAX ? `The first ${COMPACT_MAX} of ${list.length} scenarios; the full tables follow. ` : ""}
+        Infeasible scenarios (a fit check fails) rank after the feasible ones. NPV over {result.study.horizonYears} years at {fmt(result.study.discountRatePercent, 1)} % against the baseline.
+      </p>
+    </section>
+  );
+}
 
 export default async function ReportPage({ params, searchParams }: Props) {
   const id = Number((await params).id);
@@ -40,6 +117,7 @@ export default async function ReportPage({ params, searchParams }: Props) {
   const sp = await searchParams;
   const view = viewChoice(sp);
   const paper = sp.paper === "letter" ? "letter" : "a4";
+  const orientation = sp.orient === "landscape" ? "landscape" : "portrait";
   const [ev, units] = await Promise.all([evaluateStoredStudy(db(), id, { metric: view.metric, includeUpstream: view.includeUpstream, sweep: true, tornado: false }), displayUnits()]);
   if (!ev.ok) {
     if (ev.kind === "not-found") notFound();
@@ -54,17 +132,41 @@ export default async function ReportPage({ params, searchParams }: Props) {
   const sw = result.hydrogenSweep && result.hydrogenSweep.available ? result.hydrogenSweep : null;
   const swFails = sw ? sweepVerdict(sw.points, sw.crossings).firstFailures : [];
   const today = new Date().toISOString().slice(0, 10);
+  const cover = bundle.study;
+  // An issued revision names itself on the cover; the live study is not issued.
+  const revisionText = "live, not issued";
+  const layout = { paper: paper === "a4" ? undefined : paper, orient: orientation === "portrait" ? undefined : orientation };
+  const sourceTexts = [
+    ...result.audit.methods.map((m) => m.source),
+    ...result.audit.assumptions,
+    ...result.audit.notes,
+    ...list.flatMap(({ r }) => [...r.audit.notes, ...r.checks.map((c) => c.basis)]),
+    ...(sw ? [sw.basis.wobbe, ...sw.notes] : []),
+  ];
+  const citations = citationsIn(sourceTexts);
+  const plainMethods = result.audit.methods.map((m) => ({ ...m, plain: plainSource(m.source) }));
+  const anyFromMemory = sourceTexts.some((t) => plainSource(t).fromMemory);
+  const anyCommonPractice = sourceTexts.some((t) => plainSource(t).commonPractice);
+  const plain = (t: string) => plainSource(t).text;
+  const warned = list.flatMap(({ r }) => r.checks.filter((c) => c.status === "warn" || c.status === "fail").map((c) => ({ r, c })));
 
   return (
     <>
-      {/* Paper size for printing: A4 (210 × 297 mm) or US Letter (8.5 × 11 in). */}
-      <style>{`@page { size: ${PAPER[paper]}; margin: ${paper === "a4" ? "16mm 14mm" : "0.6in 0.55in"}; }`}</style>
+      {/* Paper for printing: A4 (210 × 297 mm) or US Letter (8.5 × 11 in), portrait or landscape. */}
+      <style>{`@page { size: ${PAPER[paper]} ${orientation}; margin: ${MARGIN[paper]}; }`}</style>
       <div className="report-toolbar no-print">
         <PrintButton />
         <span className="segmented" role="group" aria-label="Paper">
           {(["a4", "letter"] as const).map((k) => (
-            <Link key={k} href={`/studies/${id}/report${viewQuery(view, { paper: k === "a4" ? undefined : k })}`} aria-current={paper === k ? "true" : undefined} scroll={false}>
+            <Link key={k} href={`/studies/${id}/report${viewQuery(view, { ...layout, paper: k === "a4" ? undefined : k })}`} aria-current={paper === k ? "true" : undefined} scroll={false}>
               {PAPER[k]}
+            </Link>
+          ))}
+        </span>
+        <span className="segmented" role="group" aria-label="Orientation">
+          {(["portrait", "landscape"] as const).map((k) => (
+            <Link key={k} href={`/studies/${id}/report${viewQuery(view, { ...layout, orient: k === "portrait" ? undefined : k })}`} aria-current={orientation === k ? "true" : undefined} scroll={false}>
+              {ORIENTATION[k]}
             </Link>
           ))}
         </span>
@@ -80,26 +182,59 @@ export default async function ReportPage({ params, searchParams }: Props) {
         <a className="button secondary" href={`/api/studies/${id}/export?format=json${view.metric ? `&metric=${view.metric}` : ""}${view.includeUpstream !== undefined ? `&upstream=${view.includeUpstream ? 1 : 0}` : ""}`} download>
           Everything as JSON
         </a>
-        <span className="muted small-note">Units on this report follow the unit switch; the print stylesheet drops the controls.</span>
+        <span className="muted small-note">
+          Units follow the unit switch; the cover&apos;s title, client, author, date and notes are edited with the study. The print stylesheet drops the controls.
+        </span>
       </div>
 
-      <article className="report" data-testid="report">
-        <header className="title-block">
-          <div>
-            <div className="muted" style={{ fontSize: "0.85rem", letterSpacing: "0.04em", textTransform: "uppercase" }}>
-              Fuel-switching feasibility study
-            </div>
-            <h1 style={{ margin: "0.15rem 0" }}>{result.study.name}</h1>
+      <article className={`report paper-${paper} ${orientation}`} data-testid="report">
+        <header className="cover" data-testid="cover">
+          <div className="cover-kicker">Fuel-switching feasibility study — screening, not a design</div>
+          <h1 className="cover-title">{cover.reportTitle || cover.name}</h1>
+          <div className="cover-plant">
+            {p.name}
+            {p.site ? `, ${p.site}` : ""} — {p.equipmentLabel}
+          </div>
+          <dl className="cover-meta">
             <div>
-              {p.name}
-              {p.site ? `, ${p.site}` : ""} — {p.equipmentLabel}
+              <dt>Prepared for</dt>
+              <dd>{cover.preparedFor || "—"}</dd>
             </div>
-          </div>
-          <div className="tb-meta">
-            <div>Prepared {today} with Stoke</div>
-            <div>Ranked by {METRIC_SHORT[metric].toLowerCase()}</div>
-            <div>Screening study — not a design</div>
-          </div>
+            <div>
+              <dt>Prepared by</dt>
+              <dd>{cover.preparedBy || "—"}</dd>
+            </div>
+            <div>
+              <dt>Date</dt>
+              <dd>{cover.reportDate ? cover.reportDate.slice(0, 10) : today}</dd>
+            </div>
+            <div>
+              <dt>Revision</dt>
+              <dd data-testid="cover-revision">{revisionText}</dd>
+            </div>
+            <div>
+              <dt>Ranked by</dt>
+              <dd>{METRIC_SHORT[metric].toLowerCase()}</dd>
+            </div>
+            <div>
+              <dt>Study</dt>
+              <dd>
+                {cover.name}, {list.length} scenarios, {d.currency}
+              </dd>
+            </div>
+          </dl>
+          {cover.reportNotes.trim() !== "" && (
+            <div className="cover-notes" data-testid="cover-notes">
+              <h2>Notes from the author</h2>
+              {cover.reportNotes
+                .split(/\n{2,}/)
+                .map((para) => para.trim())
+                .filter((para) => para !== "")
+                .map((para, i) => (
+                  <p key={`${i}-${para.slice(0, 24)}`}>{para}</p>
+                ))}
+            </div>
+          )}
         </header>
 
         {bundle.meta.anyInventedPrice && (
@@ -141,6 +276,8 @@ export default async function ReportPage({ params, searchParams }: Props) {
             )}
           </ul>
         </section>
+
+        <CompactRanking list={list} result={result} d={d} />
 
         <section className="keep">
           <h2>Plant</h2>
@@ -196,7 +333,7 @@ export default async function ReportPage({ params, searchParams }: Props) {
           </p>
           <ul>
             {result.audit.assumptions.map((a) => (
-              <li key={a}>{a}</li>
+              <li key={a}>{plain(a)}</li>
             ))}
           </ul>
           <h3>Scenarios as entered</h3>
@@ -233,6 +370,7 @@ export default async function ReportPage({ params, searchParams }: Props) {
                         ) : (
                           priceSourceLabel(meta.price)
                         )}
+                        <div className="unit">{meta.priceQuoteId !== null ? "chosen quote, fixed" : `rule: the latest ${d.currency} quote valid on ${today}`}</div>
                       </td>
                       <td className="num">{r.price ? `${d.costPerEnergy(r.price.perMWh_net)} net / ${d.costPerEnergy(r.price.perMWh_gross)} gross` : "–"}</td>
                       <td className="num">{r.isBaseline ? "—" : fmt(r.audit.inputs.capex, 0)}</td>
@@ -282,16 +420,22 @@ export default async function ReportPage({ params, searchParams }: Props) {
           <CheckMatrix list={list} d={d} />
           <h3>Warnings and failures explained</h3>
           <ul>
-            {list.flatMap(({ r }) =>
-              r.checks
-                .filter((c) => c.status === "warn" || c.status === "fail")
-                .map((c) => (
-                  <li key={`${r.index}-${c.id}`}>
-                    <Status status={c.status} /> <b>{r.name}</b> — {c.label}: {c.message} <span className="muted">({c.basis})</span>
-                  </li>
-                )),
-            )}
+            {warned.map(({ r, c }) => (
+              <li key={`${r.index}-${c.id}`}>
+                <Status status={c.status} /> <b>{r.name}</b> — {c.label}: {plain(c.message)}
+              </li>
+            ))}
           </ul>
+          {warned.length > 0 && (
+            <p className="table-note">
+              Bases:{" "}
+              {[...new Map(warned.map(({ c }) => [c.label, c.basis])).entries()]
+                .filter(([, basis]) => basis !== "")
+                .map(([label, basis]) => `${label} — ${plain(basis)}`)
+                .join("; ")}
+              .
+            </p>
+          )}
         </section>
 
         <section className="keep">
@@ -372,26 +516,51 @@ export default async function ReportPage({ params, searchParams }: Props) {
         )}
 
         <section>
-          <h2>Methods and sources</h2>
+          <h2>Methods</h2>
           <ol className="sources">
-            {result.audit.methods.map((m) => (
-              <li key={m.quantity}>
-                <b>{m.quantity}</b> — {m.method}. <i>Source:</i> {m.source}.
-              </li>
-            ))}
+            {plainMethods.map((m) => {
+              const refs = citationNumbers(m.source, citations);
+              return (
+                <li key={m.quantity}>
+                  <b>{m.quantity}</b> — {m.method}. <i>Source:</i> {m.plain.text}
+                  {refs.length > 0 && <> [{refs.join(", ")}]</>}.
+                </li>
+              );
+            })}
           </ol>
           <h3>Notes on the inputs</h3>
           <ul>
             {result.audit.notes.map((n) => (
-              <li key={n}>{n}</li>
+              <li key={n}>{plain(n)}</li>
             ))}
             {list.map(({ r }) => (
               <li key={r.index}>
-                <b>{r.name}:</b> {r.audit.notes.join("; ")}
+                <b>{r.name}:</b> {r.audit.notes.map(plain).join("; ")}
               </li>
             ))}
-            {sw && <li>Hydrogen sweep: {hydrogenPriceLabel(bundle.meta.hydrogen)}{sw.notes.length ? `; ${sw.notes.join("; ")}` : ""}.</li>}
+            {sw && <li>Hydrogen sweep: {hydrogenPriceLabel(bundle.meta.hydrogen)}{sw.notes.length ? `; ${sw.notes.map(plain).join("; ")}` : ""}.</li>}
           </ul>
+        </section>
+
+        <section className="sources-appendix" data-testid="sources">
+          <h2>Sources</h2>
+          <p className="table-note">The standards, papers and tables the computations of this report rest on, numbered as cited under Methods.</p>
+          <ol className="citations">
+            {citations.map((c) => (
+              <li key={c.key} data-citation={c.key}>
+                {c.text}
+              </li>
+            ))}
+          </ol>
+          {(anyFromMemory || anyCommonPractice) && (
+            <>
+              <h3>Where a value has no printed source</h3>
+              <ul>
+                {anyFromMemory && <li>{FROM_MEMORY_NOTE}</li>}
+                {anyCommonPractice && <li>{COMMON_PRACTICE_NOTE}</li>}
+              </ul>
+            </>
+          )}
         </section>
 
         <Cautions items={result.cautions.items} screening={result.cautions.screening} />
