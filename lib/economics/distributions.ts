@@ -8,7 +8,8 @@
  *   α = 1 + 4(m−a)/(b−a), β = 1 + 4(b−m)/(b−a) (Malcolm, Roseboom, Clark & Fazar, Oper. Res. 7, 1959;
  *   the "modified PERT" form with λ = 4, Vose, "Risk Analysis", 3rd ed., §9.1): mean (a+4m+b)/6.
  *   Its quantile is taken from a tabulated CDF (composite Simpson on 1,024 cells, cached per
- *   distribution) and polished with one Newton step on the exact density.
+ *   distribution) and polished with one Newton step on the exact density: P(X ≤ quantile(u)) is
+ *   within 1e−8 of u.
  * - normal (mean, standard deviation): μ + σ·Φ⁻¹(u).
  */
 import { normalQuantile } from "./random";

@@ -153,10 +153,20 @@ export interface PathScenarioState {
  * The state of a scenario delivering `usefulMWh` a year at `efficiencyNet`, with price levels
  * `levels[source]` (1 = as quoted) and capex scaled by `capexFactor`.
  */
-export function pathScenarioState(s: PathScenario, f: PathFactors, usefulMWh: number, efficiencyNet: number, levels: ArrayLike<number> | null, capexFactor = 1): PathScenarioState {
+export function pathScenarioState(
+  s: PathScenario,
+  f: PathFactors,
+  usefulMWh: number,
+  efficiencyNet: number,
+  levels: ArrayLike<number> | null,
+  capexFactor = 1,
+  out?: PathScenarioState,
+): PathScenarioState {
   const fuel = usefulMWh / efficiencyNet;
   let y1 = 0, pv = 0;
-  for (const p of s.priceParts) {
+  const parts = s.priceParts;
+  for (let k = 0; k < parts.length; k++) {
+    const p = parts[k];
     const l = levels ? levels[p.source] : 1;
     y1 += p.perMWh_net * l * f.sourceIndex[p.source][0];
     pv += p.perMWh_net * l * f.sourcePv[p.source];
@@ -165,7 +175,15 @@ export function pathScenarioState(s: PathScenario, f: PathFactors, usefulMWh: nu
   const fossil = (GJ * s.co2Fossil_kg_per_GJ_net) / 1000;
   const up = (GJ * s.upstreamCo2e_kg_per_GJ_net) / 1000;
   const counted = fossil + (s.includeUpstream ? up : 0);
-  return { fuelMWh_net: fuel, fuelCostYear1: fuel * y1, fuelCostPv: fuel * pv, pricedT: counted, countedT: counted, capex: s.capex * capexFactor, fixedOpexChange: s.fixedOpexChange };
+  const o = out ?? { fuelMWh_net: 0, fuelCostYear1: 0, fuelCostPv: 0, pricedT: 0, countedT: 0, capex: 0, fixedOpexChange: 0 };
+  o.fuelMWh_net = fuel;
+  o.fuelCostYear1 = fuel * y1;
+  o.fuelCostPv = fuel * pv;
+  o.pricedT = counted;
+  o.countedT = counted;
+  o.capex = s.capex * capexFactor;
+  o.fixedOpexChange = s.fixedOpexChange;
+  return o;
 }
 
 /** Year-1 energy cost (fuel + carbon on the priced tonnes) per useful MWh. */

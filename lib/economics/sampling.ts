@@ -138,18 +138,28 @@ export function imanConover(x: Float64Array, n: number, dims: number, target: Fl
   }
 }
 
-/** Ranks 1 … N of `v` (ties get their average rank). */
+/** First index of `sorted` whose value is ≥ x (or > x when `strict`). */
+function bound(sorted: Float64Array, x: number, strict: boolean): number {
+  let lo = 0, hi = sorted.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (strict ? sorted[mid] <= x : sorted[mid] < x) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo;
+}
+
+/** Ranks 1 … N of `v` (ties get their average rank). Sorts a typed copy, then finds each value's run. */
 export function ranks(v: ArrayLike<number>): Float64Array {
   const n = v.length;
-  const idx = Array.from({ length: n }, (_, i) => i).sort((a, b) => v[a] - v[b]);
+  const sorted = new Float64Array(n);
+  for (let i = 0; i < n; i++) sorted[i] = v[i];
+  sorted.sort();
   const r = new Float64Array(n);
-  let i = 0;
-  while (i < n) {
-    let j = i;
-    while (j + 1 < n && v[idx[j + 1]] === v[idx[i]]) j++;
-    const avg = (i + j) / 2 + 1;
-    for (let k = i; k <= j; k++) r[idx[k]] = avg;
-    i = j + 1;
+  for (let i = 0; i < n; i++) {
+    const first = bound(sorted, v[i], false);
+    const last = bound(sorted, v[i], true) - 1;
+    r[i] = (first + last) / 2 + 1;
   }
   return r;
 }
@@ -188,6 +198,56 @@ export function percentileSorted(sorted: ArrayLike<number>, p: number): number {
   const lo = Math.floor(h);
   const hi = Math.min(n - 1, lo + 1);
   return sorted[lo] + (h - lo) * (sorted[hi] - sorted[lo]);
+}
+
+/** Moves the k-th smallest value of `a` to a[k] (smaller before, larger after): Hoare's quickselect. */
+function selectKth(a: Float64Array, k: number, lo = 0, hi = a.length - 1): void {
+  while (hi > lo) {
+    const mid = (lo + hi) >> 1;
+    // Median of three as the pivot.
+    if (a[mid] < a[lo]) swap(a, mid, lo);
+    if (a[hi] < a[lo]) swap(a, hi, lo);
+    if (a[hi] < a[mid]) swap(a, hi, mid);
+    const pivot = a[mid];
+    let i = lo, j = hi;
+    while (i <= j) {
+      while (a[i] < pivot) i++;
+      while (a[j] > pivot) j--;
+      if (i <= j) {
+        swap(a, i, j);
+        i++;
+        j--;
+      }
+    }
+    if (k <= j) hi = j;
+    else if (k >= i) lo = i;
+    else return;
+  }
+}
+
+function swap(a: Float64Array, i: number, j: number): void {
+  const t = a[i];
+  a[i] = a[j];
+  a[j] = t;
+}
+
+/**
+ * Percentiles (Hyndman & Fan type 7, as percentileSorted) of an unsorted sample without sorting
+ * it: quickselect per order statistic, O(N) each. `work` is reordered.
+ */
+export function percentilesUnsorted(work: Float64Array, ps: readonly number[]): number[] {
+  const n = work.length;
+  if (n === 0) return ps.map(() => NaN);
+  return ps.map((p) => {
+    const h = (n - 1) * p;
+    const lo = Math.floor(h);
+    selectKth(work, lo);
+    const a = work[lo];
+    if (lo + 1 >= n || h === lo) return a;
+    let b = Infinity;
+    for (let i = lo + 1; i < n; i++) if (work[i] < b) b = work[i];
+    return a + (h - lo) * (b - a);
+  });
 }
 
 /** Standard error of a proportion p estimated from N independent draws: √(p(1−p)/N). */

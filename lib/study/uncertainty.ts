@@ -30,7 +30,7 @@ import { InputError } from "../errors";
 import { RANKING_METRIC_INFO } from "../economics/sensitivity";
 import { distributionOf, type Distribution, type DistributionSpec } from "../economics/distributions";
 import { Xoshiro128ss } from "../economics/random";
-import { imanConover, latinHypercube, percentileSorted, proportionStandardError, spearman } from "../economics/sampling";
+import { imanConover, latinHypercube, pearson, percentileSorted, percentilesUnsorted, proportionStandardError, ranks, spearman } from "../economics/sampling";
 import {
   abatementCostFromPaths,
   costPerUsefulMWhYear1,
@@ -43,6 +43,7 @@ import {
   switchingNpvFromPaths,
   type PathFactors,
   type PathScenario,
+  type PathScenarioState,
 } from "../economics/paths";
 import { writeCsv } from "../formats/csv";
 import { createEvaluationCaches, evaluateStudy, type EvaluationCaches, type ScenarioResult, type StudyResult } from "./evaluate";
@@ -375,7 +376,7 @@ export interface UncertaintyScenario {
   /** P(NPV of switching from the baseline > 0); null for the baseline or without prices. */
   pNpvPositive: number | null;
   pNpvPositiveSE: number | null;
-  /** The metric's empirical CDF at `cdfPoints` evenly spaced probabilities (0 … 1); null where not defined. */
+  /** The metric's empirical CDF at `cdfPoints` evenly spaced probabilities (0 … 1), for the CDF_OPTIONS options most often first; else null. */
   cdf: number[] | null;
 }
 
@@ -413,6 +414,8 @@ export interface UncertaintyResult {
   notes: string[];
   caution: string;
   elapsedMs: number;
+  /** Wall time of the phases: evaluation of the study, sampling, the draws, the summaries. */
+  timingsMs: { setup: number; sampling: number; draws: number; summary: number };
 }
 
 export const UNCERTAINTY_CAUTION =
@@ -420,19 +423,25 @@ export const UNCERTAINTY_CAUTION =
 
 export const MAX_DRAWS = 200_000;
 
-function percentiles(v: Float64Array, count: number): Percentiles | null {
-  if (count === 0) return null;
-  const s = v.slice(0, count).sort();
-  return { p10: percentileSorted(s, 0.1), p50: percentileSorted(s, 0.5), p90: percentileSorted(s, 0.9), defined: count };
+/** The defined (non-NaN) values of `v`. */
+function definedValues(v: Float64Array): Float64Array {
+  let n = 0;
+  for (let i = 0; i < v.length; i++) if (!Number.isNaN(v[i])) n++;
+  const out = new Float64Array(n);
+  n = 0;
+  for (let i = 0; i < v.length; i++) if (!Number.isNaN(v[i])) out[n++] = v[i];
+  return out;
 }
 
-/** Compacts the defined (non-NaN) values of `v` into a new array. */
-function defined(v: Float64Array): { values: Float64Array; count: number } {
-  const out = new Float64Array(v.length);
-  let n = 0;
-  for (let i = 0; i < v.length; i++) if (!Number.isNaN(v[i])) out[n++] = v[i];
-  return { values: out, count: n };
+function percentiles(v: Float64Array): Percentiles | null {
+  const d = definedValues(v);
+  if (d.length === 0) return null;
+  const [p10, p50, p90] = percentilesUnsorted(d, [0.1, 0.5, 0.9]);
+  return { p10, p50, p90, defined: d.length };
 }
+
+/** How many options get a cumulative distribution: those ranking first most often. */
+export const CDF_OPTIONS = 5;
 
 /**
  * Monte Carlo ranking of a study under uncertainty: every scenario's metric per draw with the
@@ -448,6 +457,7 @@ export function uncertaintyRanking(study: Study, options: UncertaintyOptions): U
   const metric = options.metric ?? study.rankingMetric;
   const info = RANKING_METRIC_INFO[metric];
   const setup = studyPathSetup(study, options.caches);
+  const tSetup = performance.now();
   const notes = [...setup.notes];
   const inputs = uncertainInputs(study, setup);
   const dists: Distribution[] = inputs.map((inp) => {
@@ -497,6 +507,7 @@ export function uncertaintyRanking(study: Study, options: UncertaintyOptions): U
     corrInputs.forEach((j, c) => x.set(sub.subarray(c * draws, (c + 1) * draws), j * draws));
   }
 
+  const tSample = performance.now();
   // Per-draw evaluation.
   const f = setup.factors;
   const S = setup.scenarios.length;
@@ -526,7 +537,10 @@ export function uncertaintyRanking(study: Study, options: UncertaintyOptions): U
       throw e;
     }
   };
-  const states = new Array(S);
+  const states: (PathScenarioState | null)[] = new Array(S).fill(null);
+  // Reused per-scenario states and local bindings of the hot functions (no allocation per draw).
+  const pool = setup.scenarios.map(() => pathScenarioState({ priceParts: [], co2Fossil_kg_per_GJ_net: 0, upstreamCo2e_kg_per_GJ_net: 0, includeUpstream: false, capex: 0, fixedOpexChange: 0 }, f, 1, 1, null));
+  const stateOf = pathScenarioState, costYear1 = costPerUsefulMWhYear1, npvOf = switchingNpvFromPaths, abatementOf = abatementCostFromPaths;
   for (let i = 0; i < draws; i++) {
     for (let k = 0; k < levels.length; k++) {
       let l = 1 + priceCols[k][i] / 100;
@@ -571,13 +585,14 @@ export function uncertaintyRanking(study: Study, options: UncertaintyOptions): U
         capexFactor = 0;
         clippedPrices++;
       }
-      const st = pathScenarioState(sc.path, f, H, eta, levels, capexFactor);
+      const st = stateOf(sc.path, f, H, eta, levels, capexFactor, pool[s]);
       states[s] = st;
-      cost[s][i] = costPerUsefulMWhYear1(st, f, H, cl);
+      cost[s][i] = costYear1(st, f, H, cl);
     }
     const b = states[0];
     for (let s = 0; s < S; s++) {
-      if (!states[s] || !b) {
+      const st = states[s];
+      if (!st || !b) {
         npv[s][i] = abate[s][i] = NaN;
         continue;
       }
@@ -586,8 +601,8 @@ export function uncertaintyRanking(study: Study, options: UncertaintyOptions): U
         abate[s][i] = NaN;
         continue;
       }
-      npv[s][i] = switchingNpvFromPaths(b, states[s], f, cl);
-      const a = abatementCostFromPaths(b, states[s], f);
+      npv[s][i] = npvOf(b, st, f, cl);
+      const a = abatementOf(b, st, f);
       abate[s][i] = a === null ? NaN : a;
     }
   }
@@ -595,6 +610,7 @@ export function uncertaintyRanking(study: Study, options: UncertaintyOptions): U
   if (clippedEff) notes.push(`${clippedEff} sampled efficiencies below 5 % were set to 5 %`);
   if (clippedHours) notes.push(`${clippedHours} sampled operating hours below 1 % of the stated hours were set to 1 %`);
 
+  const tDraws = performance.now();
   const metricArr = metric === "cost-per-useful-MWh" ? cost : metric === "npv" ? npv : metric === "abatement-cost" ? abate : co2;
   const lower = info.better === "lower";
 
@@ -627,24 +643,28 @@ export function uncertaintyRanking(study: Study, options: UncertaintyOptions): U
   if (noWinner) notes.push(`${noWinner} draws had no scenario with a defined metric among those ranked`);
 
   const cdfPoints = Math.max(2, Math.min(1001, options.cdfPoints ?? 101));
+  const cdfFor = new Set(
+    setup.scenarios
+      .map((_, s) => s)
+      .filter((s) => rankedFlags[s].ranked)
+      .sort((p, q) => firstCount[q] - firstCount[p] || p - q)
+      .slice(0, CDF_OPTIONS),
+  );
   const scenarios: UncertaintyScenario[] = setup.scenarios.map((sc, s) => {
     const r = sc.result;
-    const m = defined(metricArr[s]);
-    const pf = firstCount[s] / draws;
+    const m = percentiles(metricArr[s]);
+    let cdf: number[] | null = null;
+    if (m && cdfFor.has(s)) {
+      const sorted = definedValues(metricArr[s]).sort();
+      cdf = Array.from({ length: cdfPoints }, (_, k) => percentileSorted(sorted, k / (cdfPoints - 1)));
+    }
     let pNpv: number | null = null;
     if (!r.isBaseline && sc.path && setup.scenarios[0].path) {
       let n = 0;
       for (let i = 0; i < draws; i++) if (npv[s][i] > 0) n++;
       pNpv = n / draws;
     }
-    let cdf: number[] | null = null;
-    if (m.count > 0) {
-      const sorted = m.values.slice(0, m.count).sort();
-      cdf = Array.from({ length: cdfPoints }, (_, k) => percentileSorted(sorted, k / (cdfPoints - 1)));
-    }
-    const c = defined(cost[s]);
-    const n = defined(npv[s]);
-    const a = defined(abate[s]);
+    const pf = firstCount[s] / draws;
     return {
       index: r.index,
       name: r.name,
@@ -656,10 +676,10 @@ export function uncertaintyRanking(study: Study, options: UncertaintyOptions): U
       excludedReason: rankedFlags[s].reason,
       pFirst: pf,
       pFirstSE: proportionStandardError(pf, draws),
-      metric: percentiles(m.values, m.count),
-      costPerUsefulMWh: percentiles(c.values, c.count),
-      npv: r.isBaseline ? null : percentiles(n.values, n.count),
-      abatementCost_per_t: r.isBaseline ? null : percentiles(a.values, a.count),
+      metric: m,
+      costPerUsefulMWh: metricArr === cost ? m : percentiles(cost[s]),
+      npv: r.isBaseline ? null : metricArr === npv ? m : percentiles(npv[s]),
+      abatementCost_per_t: r.isBaseline ? null : metricArr === abate ? m : percentiles(abate[s]),
       pNpvPositive: pNpv,
       pNpvPositiveSE: pNpv === null ? null : proportionStandardError(pNpv, draws),
       cdf,
@@ -682,14 +702,29 @@ export function uncertaintyRanking(study: Study, options: UncertaintyOptions): U
     const drivers: Driver[] = [];
     if (rows.length >= 10) {
       const aBetter = rows.map((_, r) => (lower ? diff[r] < 0 : diff[r] > 0));
+      const diffRanks = ranks(diff);
+      const nBetter = aBetter.reduce((n, b) => n + (b ? 1 : 0), 0);
+      // Inputs that can move the difference: the two scenarios' own, the prices they burn, carbon,
+      // hours, and (abatement cost only) the baseline's, its reference. The others cancel exactly.
+      const sa = setup.scenarios[A], sb = setup.scenarios[B], s0 = setup.scenarios[0];
+      const involved = metric === "abatement-cost" ? [sa, sb, s0] : [sa, sb];
+      const relevant = new Set<string>(["carbon", "hours"]);
+      for (const sc of involved) {
+        relevant.add(`capex:${sc.scenario.name}`);
+        relevant.add(`efficiency:${sc.scenario.name}`);
+        for (const p of sc.path?.priceParts ?? []) relevant.add(`price:${setup.sources[p.source].key}`);
+      }
       inputs.forEach((inp, j) => {
-        if (dists[j].degenerate) return;
-        const v = rows.map((i) => x[j * draws + i]);
-        const rho = spearman(v, diff);
+        if (dists[j].degenerate || !relevant.has(inp.key)) return;
+        const v = new Float64Array(rows.length);
+        for (let r = 0; r < rows.length; r++) v[r] = x[j * draws + rows[r]];
+        const rho = pearson(ranks(v), diffRanks);
         if (rho === null) return;
         const med = (want: boolean) => {
-          const sel = v.filter((_, r) => aBetter[r] === want).sort((p, q) => p - q);
-          return sel.length ? percentileSorted(sel, 0.5) : null;
+          const sel = new Float64Array(want ? nBetter : rows.length - nBetter);
+          let k = 0;
+          for (let r = 0; r < rows.length; r++) if (aBetter[r] === want) sel[k++] = v[r];
+          return sel.length ? percentileSorted(sel.sort(), 0.5) : null;
         };
         drivers.push({ key: inp.key, label: inp.label, spearman: rho, medianWhenFirstBetter: med(true), medianWhenSecondBetter: med(false), unit: inp.unit });
       });
@@ -730,6 +765,7 @@ export function uncertaintyRanking(study: Study, options: UncertaintyOptions): U
     notes,
     caution: UNCERTAINTY_CAUTION,
     elapsedMs: performance.now() - t0,
+    timingsMs: { setup: tSetup - t0, sampling: tSample - tSetup, draws: tDraws - tSample, summary: performance.now() - tDraws },
   };
 }
 

@@ -11,6 +11,7 @@ const BENCHES: Bench[] = [
   { name: "equilibrium", file: "./equilibrium.bench.ts", fn: "benchEquilibrium" },
   { name: "properties", file: "./properties.bench.ts", fn: "benchProperties" },
   { name: "study", file: "./study.bench.ts", fn: "benchStudy" },
+  { name: "uncertainty", file: "./uncertainty.bench.ts", fn: "benchUncertainty" },
   { name: "pages", file: "./pages.bench.ts", fn: "benchPages" },
 ];
 
