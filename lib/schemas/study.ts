@@ -180,6 +180,11 @@ export const uncertaintySchema = z
     /** % change of the operating hours; default ± 10 %. */
     operatingHours: uncertaintyRangeSchema.nullish(),
     /**
+     * One correlation between every pair of varying fuel prices (a shared market factor, e.g. natural
+     * gas and the blends and offers that follow it); pairs stated in `correlations` take precedence.
+     */
+    fuelPriceCorrelation: num().min(-0.999, "must be > −1").max(0.999, "must be < 1").nullish(),
+    /**
      * Correlations between inputs (of their normal scores): keys "price:<quote key>", "carbon",
      * "hours", "capex:<scenario name>", "efficiency:<scenario name>".
      */

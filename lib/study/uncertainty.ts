@@ -480,13 +480,22 @@ export function uncertaintyRanking(study: Study, options: UncertaintyOptions): U
     else for (let i = 0; i < draws; i++) col[i] = d.quantile(u[v * draws + i]);
   });
   const keyIndex = new Map(inputs.map((inp, j) => [inp.key, j]));
-  const stated = study.uncertainty?.correlations ?? [];
+  const explicit = study.uncertainty?.correlations ?? [];
+  const shared = study.uncertainty?.fuelPriceCorrelation ?? null;
+  const stated: { a: string; b: string; rho: number }[] = [...explicit];
+  if (shared !== null && shared !== 0) {
+    const said = new Set(explicit.flatMap((c) => [`${c.a}|${c.b}`, `${c.b}|${c.a}`]));
+    const prices = inputs.filter((inp, j) => inp.kind === "price" && !dists[j].degenerate).map((inp) => inp.key);
+    for (let a = 0; a < prices.length; a++) {
+      for (let b = a + 1; b < prices.length; b++) if (!said.has(`${prices[a]}|${prices[b]}`)) stated.push({ a: prices[a], b: prices[b], rho: shared });
+    }
+  }
   const corrInputs: number[] = [];
   stated.forEach((c, k) => {
     for (const [which, key] of [["a", c.a], ["b", c.b]] as const) {
       const j = keyIndex.get(key);
-      if (j === undefined) throw new InputError(`uncertainty.correlations.${k}.${which}`, `no uncertain input "${key}"; the inputs are ${inputs.map((i) => i.key).join(", ")}`);
-      if (dists[j].degenerate) throw new InputError(`uncertainty.correlations.${k}.${which}`, `"${key}" does not vary: nothing to correlate`);
+      if (j === undefined) throw new InputError(k < explicit.length ? `uncertainty.correlations.${k}.${which}` : "uncertainty.fuelPriceCorrelation", `no uncertain input "${key}"; the inputs are ${inputs.map((i) => i.key).join(", ")}`);
+      if (dists[j].degenerate) throw new InputError(k < explicit.length ? `uncertainty.correlations.${k}.${which}` : "uncertainty.fuelPriceCorrelation", `"${key}" does not vary: nothing to correlate`);
       if (!corrInputs.includes(j)) corrInputs.push(j);
     }
     if (c.a === c.b) throw new InputError(`uncertainty.correlations.${k}.b`, "an input is fully correlated with itself");
@@ -503,7 +512,7 @@ export function uncertaintyRanking(study: Study, options: UncertaintyOptions): U
       const b = corrInputs.indexOf(keyIndex.get(c.b)!);
       target[a * m + b] = target[b * m + a] = c.rho;
     });
-    imanConover(sub, draws, m, target, rng, "uncertainty.correlations");
+    imanConover(sub, draws, m, target, rng, explicit.length ? "uncertainty.correlations" : "uncertainty.fuelPriceCorrelation");
     corrInputs.forEach((j, c) => x.set(sub.subarray(c * draws, (c + 1) * draws), j * draws));
   }
 
