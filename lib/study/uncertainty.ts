@@ -22,7 +22,7 @@
  * independent draws, √(p(1−p)/N); an LHS estimate is at least as precise.
  */
 import { operatingPointOf, type Plant } from "../schemas/plant";
-import { OPERATING_HOURS_DEFAULT_PERCENT, type PricePath, type RankingMetric, type Scenario, type Study, type StudyPrice, type UncertaintyRange } from "../schemas/study";
+import { OPERATING_HOURS_DEFAULT_PERCENT, type RankingMetric, type Scenario, type Study, type UncertaintyRange } from "../schemas/study";
 import { plantDuty, radiationLoss_kW, type PlantDuty } from "../plant/duty";
 import type { FuelContext } from "../plant/fuel-context";
 import type { FuelPerformance } from "../plant/performance";
@@ -34,12 +34,7 @@ import { imanConover, latinHypercube, pearson, percentileSorted, percentilesUnso
 import {
   abatementCostFromPaths,
   costPerUsefulMWhYear1,
-  discountedPaybackFromFlows,
-  discountRateInTerms,
-  pathFactors,
   pathScenarioState,
-  pathValues,
-  switchingCashFlows,
   switchingNpvFromPaths,
   type PathFactors,
   type PathScenario,
@@ -47,18 +42,12 @@ import {
 } from "../economics/paths";
 import { writeCsv } from "../formats/csv";
 import { createEvaluationCaches, evaluateStudy, type EvaluationCaches, type ScenarioResult, type StudyResult } from "./evaluate";
-import { blendPriceFromComponents } from "./pricing";
+import { pathEconomicsOf, studyPricePaths, type PathEconomics, type PriceSource, type StudyPricePaths } from "./price-paths";
 
 // ---------------------------------------------------------------------------------------------
 // Price sources and paths
 
-export interface PriceSource {
-  /** Key as the user writes it in paths.fuelPrices and uncertainty.fuelPrices (the quote's first place). */
-  key: string;
-  label: string;
-  /** Every place the quote is used. */
-  usedBy: string[];
-}
+export type { PriceSource, PathEconomics } from "./price-paths";
 
 interface ScenarioSetup {
   result: ScenarioResult;
@@ -80,43 +69,25 @@ export interface StudyPathSetup {
   baseFuel: { ctx: FuelContext; perf: FuelPerformance };
   notes: string[];
   /** Paths as applied, for the report: per source and carbon, years 1 … N. */
-  applied: { carbon_per_t: number[]; fuelIndex: { key: string; label: string; values: number[] }[] };
+  applied: StudyPricePaths["applied"];
 }
-
-const quoteDouble = (q: StudyPrice): StudyPrice => ({ ...q, amount: 2 * q.amount, transportAdder: 2 * q.transportAdder, handlingAdder: 2 * q.handlingAdder });
 
 /**
  * Evaluates the study once and prepares its year-by-year economics: price sources, the price
- * parts of every scenario, the paths and their present-value factors.
+ * parts of every scenario, the paths and their present-value factors, and what the plant model
+ * says of each scenario's efficiency (η₀ and the radiation heat flow).
  */
 export function studyPathSetup(study: Study, caches: EvaluationCaches = createEvaluationCaches()): StudyPathSetup {
   const evaluation = evaluateStudy(study, { sweep: false, tornado: false, caches });
   const plant = study.plant;
-  const notes: string[] = [];
   const all = [evaluation.baseline, ...evaluation.scenarios];
-  const scenarioOf = (r: ScenarioResult) => (r.isBaseline ? study.baseline : study.scenarios[r.index]);
-  const fieldOf = (r: ScenarioResult) => (r.isBaseline ? "baseline" : `scenarios.${r.index}`);
   const baseCtx = caches.fuels.fromDefinition(study.baseline.fuel, "baseline.fuel");
   const basePerf = caches.performance.get(baseCtx, operatingPointOf(plant, study.baseline.overrides));
   const duty = plantDuty(plant, baseCtx, basePerf);
-
-  const sources: PriceSource[] = [];
-  const byIdentity = new Map<string, number>();
-  const sourceOf = (fuel: unknown, quote: StudyPrice, key: string, label: string): number => {
-    const id = JSON.stringify([fuel, quote.amount, quote.unit, quote.energyBasis ?? null, quote.meteringReference ?? null, quote.transportAdder, quote.handlingAdder, quote.currency]);
-    let k = byIdentity.get(id);
-    if (k === undefined) {
-      k = sources.length;
-      byIdentity.set(id, k);
-      sources.push({ key, label, usedBy: [] });
-    }
-    sources[k].usedBy.push(key);
-    return k;
-  };
-
-  const scenarios: ScenarioSetup[] = all.map((r) => {
-    const sc = scenarioOf(r);
-    const field = fieldOf(r);
+  const pp = studyPricePaths(study, caches, all);
+  const scenarios: ScenarioSetup[] = all.map((r, k) => {
+    const sc = r.isBaseline ? study.baseline : study.scenarios[r.index];
+    const field = r.isBaseline ? "baseline" : `scenarios.${r.index}`;
     const ctx = caches.fuels.fromDefinition(sc.fuel, `${field}.fuel`);
     const perf = caches.performance.get(ctx, operatingPointOf(plant, sc.overrides));
     const eta0 = perf.balance.net.efficiency;
@@ -126,93 +97,9 @@ export function studyPathSetup(study: Study, caches: EvaluationCaches = createEv
     if (Math.abs(check - r.efficiency.net) > 1e-12 * Math.max(1, r.efficiency.net)) {
       throw new Error(`efficiency of ${field} does not follow η₀·U/(U+Q): ${check} vs ${r.efficiency.net}`);
     }
-    let path: PathScenario | null = null;
-    if (r.costInputs && r.price) {
-      const ci = r.costInputs;
-      const parts: PathScenario["priceParts"] = [];
-      if (sc.price) {
-        parts.push({ source: sourceOf(sc.fuel, sc.price, `${field}.price`, `${sc.fuel.name ?? r.fuel.label} (${sc.name})`), perMWh_net: r.price.perMWh_net });
-      } else if (sc.componentPrices && "blend" in sc.fuel) {
-        const blend = sc.fuel;
-        const comps = blend.blend.map((c, j) => caches.fuels.fromDefinition(c.fuel, `${field}.fuel.blend.${j}.fuel`));
-        const nominal = r.price.perMWh_net;
-        let sum = 0;
-        sc.componentPrices.forEach((q, j) => {
-          const doubled = sc.componentPrices!.map((p, i) => (i === j ? quoteDouble(p) : p));
-          const part = blendPriceFromComponents(ctx, comps, doubled, field).perMWh_net - nominal;
-          sum += part;
-          const compName = blend.blend[j].fuel.name ?? comps[j].label;
-          parts.push({ source: sourceOf(blend.blend[j].fuel, q, `${field}.componentPrices.${j}`, `${compName} (component of ${sc.name})`), perMWh_net: part });
-        });
-        if (Math.abs(sum - nominal) > 1e-9 * Math.max(1, Math.abs(nominal))) throw new Error(`blend price of ${field} is not the sum of its component parts: ${sum} vs ${nominal}`);
-      }
-      path = {
-        priceParts: parts,
-        co2Fossil_kg_per_GJ_net: ci.co2Fossil_kg_per_GJ_net,
-        upstreamCo2e_kg_per_GJ_net: ci.upstreamCo2e_kg_per_GJ_net,
-        includeUpstream: ci.includeUpstream,
-        capex: ci.capex,
-        fixedOpexChange: ci.fixedOpexChange,
-      };
-    }
-    return { result: r, scenario: sc, field, eta0, radiation_kW: q, path };
+    return { result: r, scenario: sc, field, eta0, radiation_kW: q, path: pp.scenarios[k] };
   });
-
-  // Paths.
-  const paths = study.paths ?? null;
-  const terms = paths?.terms ?? "nominal";
-  const rateTerms = paths?.discountRateTerms ?? terms;
-  const inflation = paths?.inflationPercent ?? 0;
-  const rate = discountRateInTerms(study.discountRatePercent, rateTerms, terms, inflation);
-  if (rateTerms !== terms) {
-    notes.push(
-      `discount rate ${study.discountRatePercent} % (${rateTerms}) converted to ${rate.toFixed(3)} % (${terms}) by the Fisher relation (1 + nominal) = (1 + real)(1 + inflation), inflation ${inflation} % a year`,
-    );
-  }
-  const N = study.horizonYears;
-  const escalation: PricePath = { kind: "escalation", percentPerYear: study.priceEscalationPercent };
-  const known = new Set(sources.map((s) => s.key));
-  for (const key of Object.keys(paths?.fuelPrices ?? {})) {
-    if (!known.has(key)) throw new InputError(`paths.fuelPrices.${key}`, `no priced quote has this key; the keys are ${[...known].join(", ") || "(none: no scenario has a price)"}`);
-  }
-  const sourceIndex = sources.map((s) => {
-    const p = paths?.fuelPrices?.[s.key];
-    return pathValues(p ?? escalation, 1, N, `paths.fuelPrices.${s.key}`);
-  });
-  const carbon = pathValues(paths?.carbon ?? escalation, study.carbonPrice_per_t, N, "paths.carbon");
-  if (paths?.carbon && paths.carbon.kind !== "escalation" && carbon[0] !== study.carbonPrice_per_t) {
-    notes.push(`the carbon path's year 1 (${carbon[0]} per t) differs from the study's carbon price (${study.carbonPrice_per_t} per t): the path is used`);
-  }
-  sources.forEach((s, i) => {
-    if (sourceIndex[i][0] !== 1 && paths?.fuelPrices?.[s.key]) notes.push(`the path of ${s.key} starts at ${sourceIndex[i][0]} × the quote in year 1`);
-  });
-  const factors = pathFactors({ terms, discountRatePercent: rate, horizonYears: N }, sourceIndex, carbon);
-  if (!paths) notes.push(`no paths stated: every price and the carbon price escalate at ${study.priceEscalationPercent} % a year (${terms} terms assumed for the discount rate of ${study.discountRatePercent} %)`);
-  return {
-    evaluation,
-    sources,
-    factors,
-    scenarios,
-    duty,
-    baseFuel: { ctx: baseCtx, perf: basePerf },
-    notes,
-    applied: {
-      carbon_per_t: [...carbon],
-      fuelIndex: sources.map((s, i) => ({ key: s.key, label: s.label, values: [...sourceIndex[i]] })),
-    },
-  };
-}
-
-export interface PathEconomics {
-  index: number;
-  name: string;
-  costPerUsefulMWhYear1: number;
-  npv: number;
-  simplePaybackYears: number | null;
-  discountedPaybackYears: number | null;
-  abatementCost_per_t: number | null;
-  /** Net saving per year, years 1 … N, in the study's path terms. */
-  cashFlows: number[];
+  return { evaluation, sources: pp.sources, factors: pp.factors, scenarios, duty, baseFuel: { ctx: baseCtx, perf: basePerf }, notes: pp.notes, applied: pp.applied };
 }
 
 /**
@@ -221,30 +108,8 @@ export interface PathEconomics {
  */
 export function pathEconomics(setup: StudyPathSetup): { terms: string; discountRatePercent: number; scenarios: (PathEconomics | null)[] } {
   const f = setup.factors;
-  const U = setup.duty.annualUseful_MWh;
-  const [base, ...cands] = setup.scenarios;
-  const stateOf = (s: ScenarioSetup) => pathScenarioState(s.path!, f, U, s.result.efficiency.net, null);
-  const b = base.path ? stateOf(base) : null;
-  return {
-    terms: f.finance.terms,
-    discountRatePercent: f.finance.discountRatePercent,
-    scenarios: cands.map((c) => {
-      if (!b || !c.path) return null;
-      const s = stateOf(c);
-      const flows = switchingCashFlows(base.path!, c.path, f, b.fuelMWh_net, s.fuelMWh_net);
-      const firstNet = flows[0];
-      return {
-        index: c.result.index,
-        name: c.result.name,
-        costPerUsefulMWhYear1: costPerUsefulMWhYear1(s, f, U),
-        npv: switchingNpvFromPaths(b, s, f),
-        simplePaybackYears: s.capex <= 0 ? (firstNet >= 0 ? 0 : null) : firstNet > 0 ? s.capex / firstNet : null,
-        discountedPaybackYears: discountedPaybackFromFlows(s.capex, flows, f.discount),
-        abatementCost_per_t: abatementCostFromPaths(b, s, f),
-        cashFlows: [...flows],
-      };
-    }),
-  };
+  const pp: StudyPricePaths = { sources: setup.sources, scenarios: setup.scenarios.map((s) => s.path), factors: f, notes: setup.notes, applied: setup.applied };
+  return { terms: f.finance.terms, discountRatePercent: f.finance.discountRatePercent, scenarios: pathEconomicsOf(pp, setup.scenarios.map((s) => s.result), setup.duty.annualUseful_MWh) };
 }
 
 // ---------------------------------------------------------------------------------------------

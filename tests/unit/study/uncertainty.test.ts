@@ -52,7 +52,7 @@ describe("Monte Carlo ranking against closed forms", () => {
     expect(a.pFirst + b.pFirst).toBeCloseTo(1, 12);
   });
 
-  it("the estimate converges with draws: within 3 standard errors at 500, 2,000 and 8,000 draws, the error shrinking like 1/√N", () => {
+  it("the estimate lies within 3 standard errors √(p(1−p)/N) of Φ(μ/σ) at 500, 2,000 and 8,000 draws", () => {
     const study = studySchema.parse(twoOptions(null));
     const p = closedForm(0);
     for (const draws of [500, 2_000, 8_000]) {
@@ -186,5 +186,25 @@ describe("paths in the study", () => {
     const npvFlat = pathEconomics(flat).scenarios[i]!.npv;
     const npvPath = pathEconomics(stepped).scenarios[i]!.npv;
     expect(npvPath - npvFlat).toBeCloseTo(extra, 4);
+    // The comparison of evaluateStudy follows the stated path as well, and says so.
+    const ev = evaluateStudy(studySchema.parse({ ...input, priceEscalationPercent: 0, paths: { carbon: path } }), { sweep: false, tornado: false });
+    expect(ev.scenarios[i].comparison!.npv - npvFlat).toBeCloseTo(extra, 4);
+    expect(ev.audit.notes.join(" ")).toMatch(/price paths stated/);
+  });
+
+  it("a paths object that states nothing but the defaults leaves every figure of evaluateStudy as without paths", () => {
+    const input = twentyScenarioStudy();
+    const plain = evaluateStudy(studySchema.parse(input), { sweep: false, tornado: false });
+    const withPaths = evaluateStudy(studySchema.parse({ ...input, paths: {} }), { sweep: false, tornado: false });
+    plain.scenarios.forEach((s, i) => {
+      const a = s.comparison, b = withPaths.scenarios[i].comparison;
+      if (!a || !b) return expect(b).toBe(a);
+      expect(b.npv).toBeCloseTo(a.npv, 4);
+      for (const k of ["abatementCost_per_t", "simplePaybackYears", "discountedPaybackYears"] as const) {
+        if (a[k] === null) expect(b[k]).toBeNull();
+        else expect(b[k]!).toBeCloseTo(a[k]!, 8);
+      }
+      expect(withPaths.scenarios[i].rank).toBe(s.rank);
+    });
   });
 });
