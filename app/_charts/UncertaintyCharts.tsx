@@ -1,11 +1,11 @@
 "use client";
 
 /**
- * Charts of the uncertainty page: the chance of ranking first (bars with ± 2 standard errors),
+ * Charts of the uncertainty page: the chance of ranking first (bars; standard errors in the tooltip),
  * the P10–P90 interval of the metric per option, and the cumulative distribution of the metric
  * for the options most often first.
  */
-import { Bar, BarChart, CartesianGrid, ErrorBar, Legend, Line, LineChart, Tooltip, XAxis, YAxis } from "recharts";
+import { Bar, BarChart, CartesianGrid, Legend, Line, LineChart, Tooltip, XAxis, YAxis } from "recharts";
 import { CHART_COLOURS, axisTick, shortNumber, useChartAnimation } from "./animation";
 import { niceAxisFor } from "./ticks";
 
@@ -20,8 +20,8 @@ const height = (n: number) => Math.max(160, 34 * n + 70);
 
 export function FirstChanceChart({ rows, isStatic }: { rows: FirstRow[]; isStatic?: boolean }) {
   const animate = useChartAnimation(isStatic);
-  const data = rows.map((r) => ({ ...r, err: 2 * r.se }));
-  const axis = niceAxisFor(rows.map((r) => r.pFirst + 2 * r.se), [0]);
+  const data = rows;
+  const axis = niceAxisFor(rows.map((r) => r.pFirst), [0]);
   return (
     <figure className="chart" aria-label="Chance of ranking first">
       <BarChart layout="vertical" data={data} responsive style={{ width: "100%", height: height(rows.length) }} margin={{ top: 10, right: 30, bottom: 22, left: 8 }}>
@@ -29,11 +29,9 @@ export function FirstChanceChart({ rows, isStatic }: { rows: FirstRow[]; isStati
         <XAxis type="number" domain={axis.domain} ticks={axis.ticks} tickFormatter={axis.format} tick={axisTick} label={{ value: "chance of ranking first, %", position: "insideBottom", offset: -14, fontSize: 12 }} />
         <YAxis type="category" dataKey="label" width={210} tick={axisTick} interval={0} />
         <Tooltip formatter={((v: number, _n: unknown, item: { payload?: (typeof data)[number] }) => `${shortNumber(v)} % ± ${shortNumber(item?.payload?.se ?? 0)} % (1 SE)`) as never} isAnimationActive={false} />
-        <Bar dataKey="pFirst" name="P(first)" fill={CHART_COLOURS.second} isAnimationActive={animate}>
-          <ErrorBar dataKey="err" width={5} stroke="#1f2428" direction="x" />
-        </Bar>
+        <Bar dataKey="pFirst" name="P(first)" fill={CHART_COLOURS.second} isAnimationActive={animate} />
       </BarChart>
-      <figcaption className="legend-row">Bars: share of draws in which the option ranks first; whiskers: ± 2 standard errors.</figcaption>
+      <figcaption className="legend-row">Bars: share of draws in which the option ranks first (the table gives each with its standard error).</figcaption>
     </figure>
   );
 }
@@ -93,7 +91,7 @@ export function CdfChart({ series, unit, isStatic }: { series: CdfSeries[]; unit
         <XAxis type="number" dataKey="x" domain={axis.domain} ticks={axis.ticks} tickFormatter={axis.format} tick={axisTick} allowDataOverflow label={{ value: `${unit}${axis.scaleSuffix ? ` (${axis.scaleSuffix})` : ""}`, position: "insideBottom", offset: -16, fontSize: 12 }} />
         <YAxis type="number" dataKey="p" domain={prob.domain} ticks={prob.ticks} tickFormatter={prob.format} tick={axisTick} label={{ value: "cumulative %", angle: -90, position: "insideLeft", fontSize: 12 }} />
         <Tooltip formatter={((v: number) => `${shortNumber(v)} %`) as never} labelFormatter={(x) => `${shortNumber(Number(x))} ${unit}`} isAnimationActive={false} />
-        <Legend />
+        <Legend verticalAlign="top" />
         {series.map((s, k) => (
           <Line
             key={s.label}
