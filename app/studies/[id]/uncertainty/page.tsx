@@ -2,31 +2,20 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/lib/db/client";
-import { PAGE_MAX_DRAWS, uncertaintyOfStoredStudy, type SymmetricRanges } from "@/lib/services/uncertainty";
-import { OPERATING_HOURS_DEFAULT_PERCENT, type SensitivityRanges } from "@/lib/schemas/study";
+import { uncertaintyOfStoredStudy } from "@/lib/services/uncertainty";
+import { OPERATING_HOURS_DEFAULT_PERCENT } from "@/lib/schemas/study";
+import { RANGES, uncertaintyParams } from "./params";
 import type { Percentiles } from "@/lib/study/uncertainty";
 import { fmt, money } from "../../../_ui/format";
 import { CdfChart, FirstChanceChart, IntervalChart } from "../../../_charts/UncertaintyCharts";
 import { Status } from "../../_components/Checks";
 import { EvaluationProblem } from "../../_components/EvaluationProblem";
-import { intParam, METRIC_SHORT, numParam, RANKING_METRICS, viewChoice, viewQuery, type SearchParams } from "../../_components/settings";
+import { METRIC_SHORT, RANKING_METRICS, viewChoice, viewQuery, type SearchParams } from "../../_components/settings";
 
 export const dynamic = "force-dynamic";
 export const metadata: Metadata = { title: "How sure is the ranking?" };
 
 type Props = { params: Promise<{ id: string }>; searchParams: Promise<SearchParams> };
-
-const RANGES = [
-  { q: "fp", key: "fuelPricePercent" as const, label: "Fuel prices ± %", max: 200, def: (s: SensitivityRanges) => s.fuelPricePercent },
-  { q: "cp", key: "carbonPricePercent" as const, label: "Carbon price ± %", max: 200, def: (s: SensitivityRanges) => s.carbonPricePercent },
-  { q: "xp", key: "capexPercent" as const, label: "Capex ± %", max: 200, def: (s: SensitivityRanges) => s.capexPercent },
-  { q: "ep", key: "efficiencyPoints" as const, label: "Efficiency ± points", max: 20, def: (s: SensitivityRanges) => s.efficiencyPoints },
-  { q: "hp", key: "operatingHoursPercent" as const, label: "Operating hours ± %", max: 90, def: () => OPERATING_HOURS_DEFAULT_PERCENT },
-] as const;
-const SHAPES = ["triangular", "pert", "normal"] as const;
-const DEFAULT_DRAWS = 5_000;
-
-const one = (v: string | string[] | undefined) => (Array.isArray(v) ? v[0] : v);
 
 function band(p: Percentiles | null, f: (v: number) => string): string {
   return p ? `${f(p.p10)} / ${f(p.p50)} / ${f(p.p90)}` : "–";
@@ -37,26 +26,9 @@ export default async function UncertaintyPage({ params, searchParams }: Props) {
   if (!Number.isInteger(id) || id <= 0) notFound();
   const sp = await searchParams;
   const view = viewChoice(sp);
-  const drawsAsked = intParam(sp, "draws");
-  const draws = drawsAsked !== null && drawsAsked >= 100 && drawsAsked <= PAGE_MAX_DRAWS ? drawsAsked : DEFAULT_DRAWS;
-  const seedAsked = intParam(sp, "seed");
-  const seed = seedAsked !== null && seedAsked >= 0 ? seedAsked : 1;
-  const shapeAsked = one(sp.shape);
-  const shape = (SHAPES as readonly string[]).includes(shapeAsked ?? "") ? (shapeAsked as (typeof SHAPES)[number]) : "triangular";
-  const ranges: SymmetricRanges = {};
-  const ignored: string[] = [];
-  for (const r of RANGES) {
-    const v = numParam(sp, r.q);
-    if (v === undefined) continue;
-    if (v >= 0 && v <= r.max) ranges[r.key] = v;
-    else ignored.push(`${r.label} (0–${r.max})`);
-  }
-  const rhoAsked = numParam(sp, "rho");
-  const rho = rhoAsked !== undefined && rhoAsked > -1 && rhoAsked < 1 ? rhoAsked : undefined;
-  if (rhoAsked !== undefined && rho === undefined) ignored.push("fuel-price correlation (between −1 and 1)");
-  if (drawsAsked !== null && draws !== drawsAsked) ignored.push(`draws (100–${PAGE_MAX_DRAWS})`);
-
-  const ans = await uncertaintyOfStoredStudy(db(), id, { draws, seed, shape, ranges, fuelPriceCorrelation: rho, metric: view.metric, includeUpstream: view.includeUpstream });
+  const { request, ranges, shape, rho, ignored } = uncertaintyParams(sp);
+  const { draws, seed } = request;
+  const ans = await uncertaintyOfStoredStudy(db(), id, request);
   if (!ans.ok) {
     if (ans.kind === "not-found") notFound();
     return <EvaluationProblem id={id} message={ans.message} fieldErrors={ans.fieldErrors} />;
@@ -129,7 +101,7 @@ export default async function UncertaintyPage({ params, searchParams }: Props) {
           Run
         </button>
       </form>
-      {ignored.length > 0 && <p className="note warn">Out of range and ignored: {ignored.join(", ")}.</p>}
+      {ignored.length > 0 && <p className="note warn">Out of range and ignored: {ignored.map((x) => x.label).join(", ")}.</p>}
       <p className="basis">
         Ranges are changes from the study&apos;s values; without an entry they come from the study&apos;s sensitivity ranges (fuel ± {sens.fuelPricePercent} %,
         carbon ± {sens.carbonPricePercent} %, capex ± {sens.capexPercent} %, efficiency ± {sens.efficiencyPoints} points) and ± {OPERATING_HOURS_DEFAULT_PERCENT} % on
