@@ -113,6 +113,101 @@ export const hydrogenSweepSchema = z
   })
   .strict();
 
+/**
+ * A yearly path of a price over the horizon (year 1 = the first year of operation, whose cash
+ * flow arrives at its end). Fuel-price paths are an index on the quoted delivered price (1 = the
+ * quote); the carbon path is in currency per t. Kinds:
+ * - "escalation": value × (1 + g)^(year − 1), today's behaviour;
+ * - "table": one value per year from year 1 on, no gaps (e.g. imported from a CSV of year,value);
+ * - "linear": straight lines between stated points;
+ * - "stepped": each stated value holds until the next point.
+ * Before the first point a path holds the first value, after the last the last value.
+ */
+const pathPointSchema = z.object({ year: z.number({ error: "must be a number" }).int("must be a whole year").min(1, "must be ≥ year 1").max(100, "must be ≤ year 100"), value: num().min(0, "must be ≥ 0").max(1e6, "must be ≤ 10^6") }).strict();
+const pathPoints = z.array(pathPointSchema, { error: "must be a list of {year, value}" }).min(1, "state at least one point").max(100, "at most 100 points");
+export const pricePathSchema = z.discriminatedUnion("kind", [
+  z.object({ kind: z.literal("escalation"), percentPerYear: num().min(-20, "must be ≥ −20 %").max(50, "must be ≤ 50 %") }).strict(),
+  z.object({ kind: z.literal("table"), points: pathPoints }).strict(),
+  z.object({ kind: z.literal("linear"), points: pathPoints }).strict(),
+  z.object({ kind: z.literal("stepped"), points: pathPoints }).strict(),
+], { error: 'must be a path: kind "escalation", "table", "linear" or "stepped"' });
+export type PricePath = z.infer<typeof pricePathSchema>;
+
+/** Whether money is stated in today's money (real) or in money of the day (nominal). */
+export const MONEY_TERMS = ["real", "nominal"] as const;
+export type MoneyTerms = (typeof MONEY_TERMS)[number];
+
+export const pathsSchema = z
+  .object({
+    /** Terms of the path values and of the analysis (NPV, payback, abatement cost). */
+    terms: z.enum(MONEY_TERMS, { error: 'must be "real" or "nominal"' }).default("nominal"),
+    /** Terms in which the study's discount rate is stated; when they differ, the Fisher relation converts it. */
+    discountRateTerms: z.enum(MONEY_TERMS, { error: 'must be "real" or "nominal"' }).default("nominal"),
+    /** General inflation, % per year (for the Fisher relation (1 + nominal) = (1 + real)(1 + inflation)). */
+    inflationPercent: num().min(-10, "must be ≥ −10 %").max(100, "must be ≤ 100 %").default(0),
+    /** Carbon price path, currency per t; without one the study's carbon price escalates at its escalation rate. */
+    carbon: pricePathSchema.nullish(),
+    /**
+     * Fuel-price paths as an index on the quote (1 = the quote), keyed by the quote's place in the
+     * study: "baseline.price", "scenarios.3.price", "scenarios.0.componentPrices.1" (a quote used
+     * in several places is one price, keyed by its first place). Quotes without a path escalate at
+     * the study's escalation rate.
+     */
+    fuelPrices: z.record(z.string(), pricePathSchema).default({}),
+  })
+  .strict();
+export type PricePaths = z.infer<typeof pathsSchema>;
+
+/**
+ * An uncertain input as a change from the study's value: percent for prices, capex and operating
+ * hours, percentage points for efficiency. Triangular or PERT from low / most likely / high, or
+ * normal from mean and standard deviation.
+ */
+export const uncertaintyRangeSchema = z.discriminatedUnion("distribution", [
+  z.object({ distribution: z.literal("triangular"), low: num(), mode: num(), high: num() }).strict(),
+  z.object({ distribution: z.literal("pert"), low: num(), mode: num(), high: num() }).strict(),
+  z.object({ distribution: z.literal("normal"), mean: num().default(0), sd: num().min(0, "must be ≥ 0") }).strict(),
+], { error: 'must be a range: distribution "triangular", "pert" (low, mode, high) or "normal" (mean, sd)' }).superRefine((r, ctx) => {
+  if (r.distribution !== "normal") {
+    if (r.low > r.mode) ctx.addIssue({ code: "custom", path: ["low"], message: "must be ≤ the most likely value" });
+    if (r.mode > r.high) ctx.addIssue({ code: "custom", path: ["high"], message: "must be ≥ the most likely value" });
+  }
+});
+export type UncertaintyRange = z.infer<typeof uncertaintyRangeSchema>;
+
+/** Default change of operating hours, ± % (common practice for screening studies, no source). */
+export const OPERATING_HOURS_DEFAULT_PERCENT = 10;
+
+export const uncertaintySchema = z
+  .object({
+    /** Default for every fuel price without its own range (% change); default ± the sensitivity's fuel-price range, triangular. */
+    fuelPriceDefault: uncertaintyRangeSchema.nullish(),
+    /** Per quote (keys as in paths.fuelPrices), % change of the delivered price. */
+    fuelPrices: z.record(z.string(), uncertaintyRangeSchema).default({}),
+    /** % change of the carbon price (the whole path); default ± the sensitivity's carbon range. */
+    carbonPrice: uncertaintyRangeSchema.nullish(),
+    /** % change of each scenario's capex (independent per scenario); default ± the sensitivity's capex range. */
+    capex: uncertaintyRangeSchema.nullish(),
+    /** Points change of each scenario's efficiency before radiation (independent per scenario); default ± the sensitivity's points. */
+    efficiencyPoints: uncertaintyRangeSchema.nullish(),
+    /** Per scenario by name (the baseline's name included), overriding efficiencyPoints. */
+    efficiencyByScenario: z.record(z.string(), uncertaintyRangeSchema).default({}),
+    /** % change of the operating hours; default ± 10 %. */
+    operatingHours: uncertaintyRangeSchema.nullish(),
+    /**
+     * One correlation between every pair of varying fuel prices (a shared market factor, e.g. natural
+     * gas and the blends and offers that follow it); pairs stated in `correlations` take precedence.
+     */
+    fuelPriceCorrelation: num().min(-0.999, "must be > −1").max(0.999, "must be < 1").nullish(),
+    /**
+     * Correlations between inputs (of their normal scores): keys "price:<quote key>", "carbon",
+     * "hours", "capex:<scenario name>", "efficiency:<scenario name>".
+     */
+    correlations: z.array(z.object({ a: z.string().min(1, "name an input"), b: z.string().min(1, "name an input"), rho: num().min(-0.999, "must be > −1").max(0.999, "must be < 1") }).strict()).max(500, "at most 500 correlations").default([]),
+  })
+  .strict();
+export type UncertaintySettings = z.infer<typeof uncertaintySchema>;
+
 export const studySchema = z
   .object({
     format: z.literal(STUDY_FORMAT, { error: `must be "${STUDY_FORMAT}"` }).optional(),
@@ -137,6 +232,10 @@ export const studySchema = z
     scenarios: z.array(scenarioSchema, { error: (iss) => (iss.input === undefined ? "required: a list of candidate scenarios (may be empty)" : "must be a list of scenarios") }).max(200, "at most 200 scenarios"),
     notes: text(10000).default(""),
     ...coverShape,
+    /** Price and carbon paths over the horizon; absent = flat prices escalating at priceEscalationPercent. */
+    paths: pathsSchema.nullish(),
+    /** Ranges of the uncertain inputs for the Monte Carlo ranking; absent = defaults from `sensitivity`. */
+    uncertainty: uncertaintySchema.nullish(),
   }, { error: "a study must be a JSON object" })
   .strict()
   .superRefine((s, ctx) => {

@@ -24,6 +24,7 @@ import { STUDY_METHODS, studyAssumptions, type AuditTrail } from "./audit";
 import { cautionsFor, DEFER, type Caution, type HazardKey } from "../fuels/cautions";
 import { hydrogenSweep, type HydrogenSweepResult } from "./hydrogen-sweep";
 import { StudyInputError } from "./errors";
+import { pathEconomicsOf, studyPricePaths } from "./price-paths";
 
 export { normaliseStudyPrice } from "./pricing";
 export { StudyInputError } from "./errors";
@@ -426,6 +427,26 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
 
   const baseline = evaluate(base);
   const scenarios = cands.map(evaluate);
+
+  // Stated price and carbon paths: NPV, payback and abatement cost year by year (price-paths.ts).
+  if (study.paths) {
+    const pp = studyPricePaths(study, caches, [baseline, ...scenarios]);
+    pathEconomicsOf(pp, [baseline, ...scenarios], duty.annualUseful_MWh).forEach((p, i) => {
+      const r = scenarios[i];
+      const k = r.comparison;
+      if (!p || !k) return;
+      k.npv = p.npv;
+      k.simplePaybackYears = p.simplePaybackYears;
+      k.discountedPaybackYears = p.discountedPaybackYears;
+      k.abatementCost_per_t = p.abatementCost_per_t;
+      if (metric === "npv") r.metricValue = p.npv;
+      if (metric === "abatement-cost") r.metricValue = p.abatementCost_per_t;
+    });
+    notes.push(
+      ...pp.notes,
+      `price paths stated (${pp.factors.finance.terms} terms, discount rate ${pp.factors.finance.discountRatePercent.toFixed(3)} %): NPV, payback and abatement cost follow them year by year; year-1 costs, savings and break-even prices are at the quotes`,
+    );
+  }
 
   // Ranking: feasible before infeasible; within each, by the metric (undefined values last).
   const info = RANKING_METRIC_INFO[metric];

@@ -13,6 +13,7 @@ const BENCHES: Bench[] = [
   { name: "transport", file: "./transport.bench.ts", fn: "benchTransport" },
   { name: "properties", file: "./properties.bench.ts", fn: "benchProperties" },
   { name: "study", file: "./study.bench.ts", fn: "benchStudy" },
+  { name: "uncertainty", file: "./uncertainty.bench.ts", fn: "benchUncertainty" },
   { name: "pages", file: "./pages.bench.ts", fn: "benchPages" },
   { name: "cli", file: "./cli.bench.ts", fn: "benchCli" },
   { name: "flame", file: "./flame.bench.ts", fn: "benchFlame" },

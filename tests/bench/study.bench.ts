@@ -11,7 +11,7 @@ import { studySchema, type StudyInput } from "../../lib/schemas/study";
 import { evaluateStudy } from "../../lib/study/evaluate";
 import type { BenchResult } from "./bench-types";
 
-function twentyScenarioStudy(): StudyInput {
+export function twentyScenarioStudy(): StudyInput {
   const ex = JSON.parse(readFileSync(new URL("../../seed/example-study.json", import.meta.url), "utf8")) as StudyInput;
   const ng = ex.baseline.fuel;
   const gasPrice = ex.baseline.price!;

@@ -9,6 +9,7 @@ const TABS = [
   { path: "/sweep", label: "Hydrogen sweep" },
   { path: "/phi", label: "φ sweep" },
   { path: "/sensitivity", label: "Sensitivity" },
+  { path: "/uncertainty", label: "Uncertainty" },
   { path: "/report", label: "Report" },
   { path: "/edit", label: "Edit" },
 ];
