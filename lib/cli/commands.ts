@@ -70,16 +70,20 @@ export const COMMANDS: readonly CommandSpec[] = [
         name: "table",
         value: "scenarios|checks|sweep",
         choices: ["scenarios", "checks", "sweep"],
-        help: "which table --format csv writes (default scenarios)",
+        help: "which table --format csv writes (default scenarios; with --uncertainty the uncertainty table)",
       },
+      { name: "uncertainty", value: "N", help: "add the Monte Carlo ranking over N draws (10–100000; Latin hypercube, the study's ranges)" },
+      { name: "seed", value: "S", help: "seed of the Monte Carlo draws (default 1; the same seed gives the same figures)" },
     ],
     checkOptions(o) {
       if (o.table !== undefined && o.format !== "csv") throw new UsageError("--table applies to --format csv only");
+      if (o.seed !== undefined && o.uncertainty === undefined) throw new UsageError("--seed applies to --uncertainty only");
     },
     examples: [
       "stoke evaluate --input study.json",
       "stoke evaluate --input study.json --format csv --table checks",
       "stoke evaluate --input studies/ --format csv > portfolio.csv",
+      "stoke evaluate --input study.json --uncertainty 10000 --format csv > chances.csv",
     ],
     load: async () => (await import("./evaluate")).evaluateCommand,
   },
