@@ -19,7 +19,7 @@ export function json(body: unknown, status = 200): Response {
 
 /** A service's problem with its status, the message and the per-field messages. */
 export function failure(p: Problem): Response {
-  return json({ error: p.message, fieldErrors: p.fieldErrors }, STATUS_OF_PROBLEM[p.kind]);
+  return json({ error: p.message, fieldErrors: p.fieldErrors, ...(p.warnings ? { warnings: p.warnings } : {}) }, STATUS_OF_PROBLEM[p.kind]);
 }
 
 /** A lib/ error with its status; the field it names carries the detail. */

@@ -26,6 +26,8 @@ export interface StoredScenario {
   name: string;
   fuelId: number;
   priceQuoteId: number | null;
+  /** The quote rule's date (YYYY-MM-DD), null = the day of evaluation. */
+  priceValidOn: string | null;
   capex: number;
   fixedOpexChange: number;
   overrides: OperatingOverrides;
@@ -90,6 +92,7 @@ export function studyFromRows(row: StudyRow, scenarioRows: ScenarioRow[]): Store
       name: s.name,
       fuelId: s.fuelId,
       priceQuoteId: s.priceQuoteId,
+      priceValidOn: s.priceValidOn ? s.priceValidOn.toISOString().slice(0, 10) : null,
       capex: s.capex,
       fixedOpexChange: s.fixedOpexChange,
       overrides: "value" in overrides ? overrides.value : {},
@@ -142,6 +145,7 @@ export function scenarioColumns(studyId: number, r: StudyRecord) {
     name: s.name,
     fuelId: s.fuelId,
     priceQuoteId: s.priceQuoteId ?? null,
+    priceValidOn: s.priceValidOn ? new Date(`${s.priceValidOn}T00:00:00Z`) : null,
     capex: s.capex,
     fixedOpexChange: s.fixedOpexChange,
     overrides: JSON.stringify(s.overrides ?? {}),

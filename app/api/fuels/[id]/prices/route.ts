@@ -28,5 +28,5 @@ export const POST = withErrors(async (req: Request, ctx: Ctx): Promise<Response>
   if (!body.ok) return body.response;
   const r = await addPriceQuote(db(), id, body.value);
   if (!r.ok) return failure(r);
-  return json({ id: r.value.id, fuelId: id }, 201);
+  return json({ id: r.value.id, fuelId: id, warnings: r.value.warnings }, 201);
 });
