@@ -125,7 +125,7 @@ export function RankTable({ list, result, d, metric, links = true, part = "all" 
                       {fmt(co2Ranked(r), 1)}
                     </td>
                     <td className="num">{c ? fmt(c.annualTotalCost, 0) : "–"}</td>
-                    <td className="num">{c ? fmt(c.annualCo2Fossil_t, 0) : "–"}</td>
+                    <td className="num">{fmt(r.annualCo2_t.fossil, 0)}</td>
                     <td className="num">{k ? signed(k.annualNetSaving, 0) : r.isBaseline ? "—" : "–"}</td>
                     <td className="num">{r.isBaseline ? "—" : payback(k?.simplePaybackYears, k !== null)}</td>
                     <td className={hi("npv")}>{k ? signed(k.npv, 0) : r.isBaseline ? "—" : "–"}</td>
