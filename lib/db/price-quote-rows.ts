@@ -24,6 +24,7 @@ export function quoteJson(q: PriceQuote) {
     handlingAdder: q.handlingAdder,
     validFrom: q.validFrom.toISOString().slice(0, 10),
     sourceNote: q.sourceNote,
+    supplier: q.supplier,
     isInvented: q.isInvented,
     createdAt: q.createdAt.toISOString(),
     supersedesId: q.supersedesId,
@@ -45,6 +46,7 @@ export function quoteColumns(q: PriceQuoteInputParsed) {
     handlingAdder: q.handlingAdder,
     validFrom: new Date(`${q.validFrom}T00:00:00Z`),
     sourceNote: q.sourceNote,
+    supplier: q.supplier,
     isInvented: q.isInvented,
   };
 }

@@ -135,6 +135,8 @@ export const priceQuoteInputSchema = z
     handlingAdder: finite().min(0, "must be ≥ 0").default(0),
     validFrom: isoDateSchema,
     sourceNote: trimmedText(1000).default(""),
+    /** Who offers the price. */
+    supplier: trimmedText(200).default(""),
     isInvented: z.boolean().default(false),
   })
   .strict();

@@ -38,6 +38,7 @@ import {
 } from "../db/price-quote-rows";
 import { listRates, rateJson } from "../db/exchange-rate-rows";
 import { rateInForce } from "../economics/currency";
+import { liveQuotes } from "./quote-choice";
 import { PLAUSIBILITY_CURRENCY, priceWarning, type PlausibilityWarning } from "../economics/plausibility";
 import type { FuelDefinition } from "../schemas/fuel";
 import { fieldErrors } from "../schemas/fuel";
@@ -319,8 +320,9 @@ export function quoteTerms(
 }
 
 /** The quote in force on `asOf`: the latest valid-from not after it (quotes sorted newest first). */
-export function currentQuote<Q extends Pick<PriceQuoteRow, "validFrom">>(quotesNewestFirst: Q[], asOf: Date = new Date()): Q | undefined {
-  return quotesNewestFirst.find((q) => q.validFrom.getTime() <= asOf.getTime());
+export function currentQuote(quotesNewestFirst: PriceQuoteRow[], asOf: Date = new Date()): PriceQuoteRow | undefined {
+  // Withdrawn quotes and quotes a correction superseded price nothing.
+  return liveQuotes(quotesNewestFirst).find((q) => q.validFrom.getTime() <= asOf.getTime());
 }
 
 const isPriceUnit = (u: unknown): u is PriceUnit => (PRICE_UNITS as readonly unknown[]).includes(u);

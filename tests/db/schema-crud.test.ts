@@ -139,8 +139,9 @@ describe("schema matches the migrations", () => {
     const fuel = await db.fuel.create({ data: { name: "NG2", kind: "gas", definition: "{}" } });
     const q1 = await db.priceQuote.create({ data: { fuelId: fuel.id, amount: 30, currency: "EUR", unit: "MWh", energyBasis: "gross", validFrom: new Date("2026-01-01T00:00:00Z") } });
     const withdrawnAt = new Date("2026-03-01T10:00:00Z");
-    const q2 = await db.priceQuote.create({ data: { fuelId: fuel.id, amount: 31, currency: "EUR", unit: "MWh", energyBasis: "gross", validFrom: new Date("2026-01-01T00:00:00Z"), supersedesId: q1.id, withdrawnAt } });
-    expect(await db.priceQuote.findUniqueOrThrow({ where: { id: q2.id } })).toMatchObject({ supersedesId: q1.id, withdrawnAt });
+    const q2 = await db.priceQuote.create({ data: { fuelId: fuel.id, amount: 31, currency: "EUR", unit: "MWh", energyBasis: "gross", validFrom: new Date("2026-01-01T00:00:00Z"), supersedesId: q1.id, withdrawnAt, supplier: "Gas Co" } });
+    expect(await db.priceQuote.findUniqueOrThrow({ where: { id: q2.id } })).toMatchObject({ supersedesId: q1.id, withdrawnAt, supplier: "Gas Co" });
+    expect((await db.priceQuote.findUniqueOrThrow({ where: { id: q1.id } })).supplier).toBe("");
     expect((await db.priceQuote.findUniqueOrThrow({ where: { id: q1.id }, include: { supersededBy: true } })).supersededBy.map((q) => q.id)).toEqual([q2.id]);
     // A quote that a later version supersedes cannot be deleted (Restrict).
     await expect(db.priceQuote.delete({ where: { id: q1.id } })).rejects.toThrow();

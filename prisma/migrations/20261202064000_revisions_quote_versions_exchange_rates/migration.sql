@@ -1,6 +1,7 @@
--- AlterTable: quote versions and withdrawal
+-- AlterTable: quote versions, withdrawal, supplier
 ALTER TABLE "PriceQuote" ADD COLUMN "supersedesId" INTEGER REFERENCES "PriceQuote" ("id") ON DELETE RESTRICT ON UPDATE CASCADE;
 ALTER TABLE "PriceQuote" ADD COLUMN "withdrawnAt" DATETIME;
+ALTER TABLE "PriceQuote" ADD COLUMN "supplier" TEXT NOT NULL DEFAULT '';
 
 -- AlterTable: the scenario's quote rule date
 ALTER TABLE "Scenario" ADD COLUMN "priceValidOn" DATETIME;
