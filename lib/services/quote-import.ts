@@ -23,6 +23,7 @@ const COLUMNS = [
   "handlingAdder",
   "validFrom",
   "sourceNote",
+  "supplier",
   "confirmImplausible",
 ] as const;
 const NUMERIC = ["amount", "transportAdder", "handlingAdder"];

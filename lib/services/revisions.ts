@@ -52,11 +52,11 @@ export interface RevisionView {
 export async function issueRevision(db: Db, studyId: number): Promise<Result<{ revision: number; hash: string }>> {
   const loaded = await studyBundle(db, studyId);
   if (!loaded.ok) return loaded;
-  const study = studyFile(loaded.bundle.study);
-  const inputs = canonicalJson(study);
+  const inputs = canonicalJson(studyFile(loaded.bundle.study));
   let result: StudyResult;
   try {
-    result = evaluateFrozen(study);
+    // Evaluate the stored document itself (canonical key order), exactly as it will be read again.
+    result = evaluateFrozen(studySchema.parse(JSON.parse(inputs)));
   } catch (e) {
     return problemFromError(e, { kind: "unprocessable", message: (s, field) => `The study cannot be issued: ${field ? `${field}: ` : ""}${s}.` });
   }

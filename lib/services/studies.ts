@@ -37,6 +37,7 @@ import { studyRecordSchema, type ScenarioRecord, type StudyRecord, type StudyRec
 import type { SensitivityRanges } from "../economics/sensitivity";
 import { evaluateStudy, type StudyResult } from "../study/evaluate";
 import { listRates, rateJson } from "../db/exchange-rate-rows";
+import { countRevisions } from "../db/revision-rows";
 import { day, inCurrency, latestVersion, quoteByRule, ruleText, type PriceSource, type PricingContext } from "./quote-choice";
 import { sharedCaches } from "./eval-cache";
 import { ok, problem, problemFromError, type FieldErrors, type Problem, type Result } from "./result";
@@ -557,6 +558,11 @@ export function deleteStudy(db: Db, id: number): Promise<Result<StudyRow>> {
   return inTransaction(db, async (tx): Promise<Result<StudyRow>> => {
     const existing = await findStudy(tx, id);
     if (!existing) return problem("not-found", `No study with id ${id}.`);
+    const issued = await countRevisions(tx, id);
+    if (issued)
+      return problem("conflict", `Study "${existing.name}" has ${issued} issued revision${issued > 1 ? "s" : ""}; an issued study is kept on record and cannot be deleted.`, {
+        _: `${issued} issued revision${issued > 1 ? "s" : ""}`,
+      });
     await deleteStudyRow(tx, id);
     return ok(existing);
   });
