@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/lib/db/client";
-import { evaluateStoredStudy } from "@/lib/services/studies";
+import { studyReportData } from "@/lib/services/revisions";
 import { studyName } from "@/lib/services/lookups";
 import { fmt, fmtUpTo, money } from "../../../_ui/format";
 import { CostStackChart, Co2Chart, CostCo2Scatter } from "../../../_charts/ScenarioCharts";
@@ -40,7 +40,8 @@ export default async function ReportPage({ params, searchParams }: Props) {
   const sp = await searchParams;
   const view = viewChoice(sp);
   const paper = sp.paper === "letter" ? "letter" : "a4";
-  const [ev, units] = await Promise.all([evaluateStoredStudy(db(), id, { metric: view.metric, includeUpstream: view.includeUpstream, sweep: true, tornado: false }), displayUnits()]);
+  const revision = typeof sp.revision === "string" && /^[1-9]\d{0,8}$/.test(sp.revision) ? Number(sp.revision) : undefined;
+  const [ev, units] = await Promise.all([studyReportData(db(), id, { revision, metric: view.metric, includeUpstream: view.includeUpstream, sweep: true, tornado: false }), displayUnits()]);
   if (!ev.ok) {
     if (ev.kind === "not-found") notFound();
     return <EvaluationProblem id={id} message={ev.message} fieldErrors={ev.fieldErrors} />;
@@ -97,6 +98,7 @@ export default async function ReportPage({ params, searchParams }: Props) {
           </div>
           <div className="tb-meta">
             <div>Prepared {today} with Stoke</div>
+            <div data-testid="report-revision">{bundle.meta.revision ? <>Revision {bundle.meta.revision.number} of {bundle.meta.revision.issuedAt.slice(0, 10)}, SHA-256 <code>{bundle.meta.revision.hash.slice(0, 16)}</code></> : "Live inputs, not an issued revision"}</div>
             <div>Ranked by {METRIC_SHORT[metric].toLowerCase()}</div>
             <div>Screening study — not a design</div>
           </div>
