@@ -38,6 +38,7 @@ import type { SensitivityRanges } from "../economics/sensitivity";
 import { evaluateStudy, type StudyResult } from "../study/evaluate";
 import { listRates, rateJson } from "../db/exchange-rate-rows";
 import { countRevisions } from "../db/revision-rows";
+import { rateInForce } from "../economics/currency";
 import { day, inCurrency, latestVersion, quoteByRule, ruleText, type PriceSource, type PricingContext } from "./quote-choice";
 import { sharedCaches } from "./eval-cache";
 import { ok, problem, problemFromError, type FieldErrors, type Problem, type Result } from "./result";
@@ -492,11 +493,14 @@ async function prepare(tx: Tx, raw: unknown, selfId?: number): Promise<Result<St
   const fuels = new Map((await fuelsWithQuotes(tx, [...new Set(all.map(([, s]) => s.fuelId))])).map((f) => [f.id, f]));
   const quoteIds = all.map(([, s]) => s.priceQuoteId).filter((q): q is number => typeof q === "number");
   const quotes = new Map((await findQuotes(tx, quoteIds)).map((q) => [q.id, q]));
+  const rates = (await listRates(tx)).map(rateJson);
   for (const [path, s] of all) {
     if (!fuels.has(s.fuelId)) errs[`${path}.fuelId`] = `no stored fuel with id ${s.fuelId}`;
     if (s.priceQuoteId != null) {
       const q = quotes.get(s.priceQuoteId);
       if (!q || q.fuelId !== s.fuelId) errs[`${path}.priceQuoteId`] = "is not a price quote of the chosen fuel";
+      else if (q.currency !== r.currency && !rateInForce(rates, q.currency, r.currency, day(q.validFrom)))
+        errs[`${path}.priceQuoteId`] = `is in ${q.currency}; the study is in ${r.currency} and no exchange rate from ${q.currency} to ${r.currency} is in force on ${day(q.validFrom)} (add one, or choose a quote in ${r.currency})`;
     }
   }
   if (Object.keys(errs).length || !plant) return problem("invalid", "The study has errors; nothing was saved.", errs);
@@ -521,7 +525,6 @@ async function prepare(tx: Tx, raw: unknown, selfId?: number): Promise<Result<St
       overrides: s.overrides,
     };
   };
-  const rates = (await listRates(tx)).map(rateJson);
   const built = build(r, plant, src(r.baseline), r.scenarios.map(src), await libraryHydrogen(tx), { metric: r.rankingMetric }, rates);
   const study = studySchema.safeParse(built.input);
   if (!study.success) {
