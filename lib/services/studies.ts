@@ -610,6 +610,11 @@ export interface QuoteChoice {
   meteringReference: string | null;
   validFrom: string;
   isInvented: boolean;
+  supplier: string;
+  /** Withdrawn quotes price nothing (a scenario that chose one falls back to its rule). */
+  withdrawn: boolean;
+  /** The correction that replaced this quote (its newest version applies). */
+  supersededBy: number | null;
 }
 
 export interface StudyFormOptions {
@@ -640,6 +645,9 @@ export async function studyFormOptions(db: Db): Promise<StudyFormOptions> {
           meteringReference: j.meteringReference,
           validFrom: j.validFrom,
           isInvented: j.isInvented,
+          supplier: j.supplier,
+          withdrawn: j.withdrawnAt !== null,
+          supersededBy: f.priceQuotes.find((x) => x.supersedesId === q.id)?.id ?? null,
         };
       }),
     })),
