@@ -119,7 +119,7 @@ export function RankTable({ list, result, d, metric, links = true, part = "all" 
                 {eco && (
                   <>
                     <td className={hi("cost")} data-col="cost">
-                      {c ? d.costPerEnergy(c.costPerUsefulMWh.total) : "–"}
+                      {c ? d.costPerEnergy(c.costPerUsefulMWh.total) : meta.price.kind === "none" ? <small className="muted" title={priceSourceLabel(meta.price)}>no price: {meta.price.notes[0] ?? `no quote in ${meta.price.currency}`}</small> : "–"}
                     </td>
                     <td className={hi("co2")} data-col="co2">
                       {fmt(co2Ranked(r), 1)}
