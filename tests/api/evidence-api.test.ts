@@ -348,6 +348,24 @@ describe("bulk quote import", () => {
   });
 });
 
+describe("the quote rule of a scenario", () => {
+  it('prices by "latest quote in the study\'s currency valid on D" and says so', async () => {
+    const id = await createStudy(study("Rule on a date", "EUR", [], { priceValidOn: "2024-12-31" }));
+    const rec = await (await routes.study.GET(req("/x"), ctx(id))).json();
+    expect(rec.baseline.priceValidOn).toBe("2024-12-31");
+    const r = await results(id);
+    // On 2024-12-31 only the demo quote of 2024-07-01 (13.2 EUR/MMBtu gross, seed/demo.ts) was valid.
+    expect(r.result.baseline.price.quote).toMatchObject({ amount: 13.2, unit: "MMBtu", validFrom: "2024-07-01" });
+    expect(r.priceSources.baseline.label).toMatch(/rule: latest quote in EUR valid on 2024-12-31/);
+  });
+
+  it("does not overwrite a stored exchange rate (409)", async () => {
+    const res = await routes.rates.POST(req("/api/exchange-rates", "POST", { fromCurrency: "GBP", toCurrency: "EUR", rate: 2, validFrom: "2025-01-01" }));
+    expect(res.status).toBe(409);
+    expect((await res.json()).fieldErrors.validFrom).toMatch(/already stored/);
+  });
+});
+
 describe("the fuel sheet's quotes side by side", () => {
   it("normalises per MWh with and without the carbon cost at the chosen carbon price", async () => {
     const { quoteComparison } = await import("../../lib/services/fuel-views");
