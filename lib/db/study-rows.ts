@@ -235,3 +235,12 @@ export async function copyStudy(tx: Tx, src: StudyRow & { scenarios: ScenarioRow
   }
   return row;
 }
+
+/** The most recently changed study that uses a fuel in a scenario: its name, currency and carbon price. */
+export function latestStudyUsingFuel(db: DbOrTx, fuelId: number) {
+  return db.study.findFirst({
+    where: { scenarios: { some: { fuelId } } },
+    orderBy: [{ updatedAt: "desc" }, { id: "desc" }],
+    select: { id: true, name: true, currency: true, carbonPrice_per_t: true },
+  });
+}

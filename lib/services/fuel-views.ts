@@ -20,6 +20,7 @@ import { flameTemperature, FLAME_METHODS, FLAME_METHOD_LABELS, type FlameMethod 
 import { carbonCostPerMWh, mixPrices, normalisePrice, priceUnitLabel, type NormalisedPrice } from "../economics/prices";
 import { co2Factors } from "../combustion/co2";
 import { listRates, rateJson } from "../db/exchange-rate-rows";
+import { latestStudyUsingFuel } from "../db/study-rows";
 import { inCurrency, liveQuotes } from "./quote-choice";
 import { energyContentOf } from "../combustion/energy-content";
 import type { ResolvedFuel } from "../fuels/resolve";
@@ -282,8 +283,14 @@ export async function quoteComparison(
   const bySupplier = new Map<string, PriceQuoteRow>();
   for (const q of live) if (!bySupplier.has(q.supplier.trim().toLowerCase())) bySupplier.set(q.supplier.trim().toLowerCase(), q);
   const currencies = [...bySupplier.values()].map((q) => q.currency);
-  const currency = opts.currency ?? currencies.sort((a, b) => currencies.filter((c) => c === b).length - currencies.filter((c) => c === a).length)[0] ?? "EUR";
-  const carbon = opts.carbonPrice_per_t ?? 0;
+  // Without a carbon price set on the page: the latest study that uses the fuel (its currency too), else 0.
+  const usedBy = opts.carbonPrice_per_t === undefined || opts.currency === undefined ? await latestStudyUsingFuel(db, fuelId) : null;
+  const currency =
+    opts.currency ?? usedBy?.currency ?? currencies.sort((a, b) => currencies.filter((c) => c === b).length - currencies.filter((c) => c === a).length)[0] ?? "EUR";
+  const carbon = opts.carbonPrice_per_t ?? usedBy?.carbonPrice_per_t ?? 0;
+  const carbonSource =
+    opts.carbonPriceSource ??
+    (opts.carbonPrice_per_t !== undefined ? "set on this page" : usedBy ? `from study "${usedBy.name}", the latest that uses this fuel` : "0: no carbon price set and no study uses this fuel");
   let co2: QuoteComparison["fossilCo2_kg_per_GJ"] = null;
   if (sheet.resolved) {
     const f = co2Factors(sheet.resolved, heatingValues(sheet.resolved, PRICE_COMBUSTION_REFERENCE_C));
@@ -314,5 +321,5 @@ export async function quoteComparison(
       problem: null,
     };
   });
-  return { currency, carbonPrice_per_t: carbon, carbonPriceSource: opts.carbonPriceSource ?? (opts.carbonPrice_per_t === undefined ? "0 (none set)" : "set on this page"), fossilCo2_kg_per_GJ: co2, rows };
+  return { currency, carbonPrice_per_t: carbon, carbonPriceSource: carbonSource, fossilCo2_kg_per_GJ: co2, rows };
 }

@@ -378,5 +378,9 @@ describe("the fuel sheet's quotes side by side", () => {
     // 56 100 kg/TJ): at 100 EUR/t that is 56.1 × 3.6 × 0.1 ≈ 20.2 EUR per MWh net (±3 %, the demo gas differs).
     expect((a.withCarbon_net! - a.perMWh_net!) / 20.2).toBeGreaterThan(0.97);
     expect((a.withCarbon_net! - a.perMWh_net!) / 20.2).toBeLessThan(1.03);
+    // Without a carbon price on the page: the latest study that uses the fuel supplies it (and says so).
+    const d = await quoteComparison(db(), fuel["Pipeline natural gas"], {});
+    expect(d!.carbonPrice_per_t).toBe(80);
+    expect(d!.carbonPriceSource).toMatch(/^from study "/);
   });
 });

@@ -17,7 +17,7 @@ export async function QuoteComparison({ fuelId, carbon, currency }: { fuelId: nu
       <form method="get" className="row no-print" style={{ alignItems: "end", gap: "0.75rem" }}>
         <label>
           Carbon price per t CO2
-          <input name="carbon" inputMode="decimal" className="num" defaultValue={carbonPrice ?? 0} style={{ width: "7rem" }} />
+          <input name="carbon" inputMode="decimal" className="num" defaultValue={c.carbonPrice_per_t} style={{ width: "7rem" }} />
         </label>
         <label>
           Compare in
