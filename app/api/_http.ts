@@ -24,7 +24,7 @@ const cappedFields = (f: Record<string, string>) => Object.fromEntries(Object.en
 
 /** A service's problem with its status, the message and the per-field messages. */
 export function failure(p: Problem): Response {
-  return json({ error: capped(p.message), fieldErrors: cappedFields(p.fieldErrors) }, STATUS_OF_PROBLEM[p.kind]);
+  return json({ error: capped(p.message), fieldErrors: cappedFields(p.fieldErrors), ...(p.warnings ? { warnings: p.warnings } : {}) }, STATUS_OF_PROBLEM[p.kind]);
 }
 
 /** A lib/ error with its status; the field it names carries the detail. */

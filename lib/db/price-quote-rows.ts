@@ -24,8 +24,11 @@ export function quoteJson(q: PriceQuote) {
     handlingAdder: q.handlingAdder,
     validFrom: q.validFrom.toISOString().slice(0, 10),
     sourceNote: q.sourceNote,
+    supplier: q.supplier,
     isInvented: q.isInvented,
     createdAt: q.createdAt.toISOString(),
+    supersedesId: q.supersedesId,
+    withdrawnAt: q.withdrawnAt ? q.withdrawnAt.toISOString() : null,
   };
 }
 export type QuoteJson = ReturnType<typeof quoteJson>;
@@ -43,6 +46,7 @@ export function quoteColumns(q: PriceQuoteInputParsed) {
     handlingAdder: q.handlingAdder,
     validFrom: new Date(`${q.validFrom}T00:00:00Z`),
     sourceNote: q.sourceNote,
+    supplier: q.supplier,
     isInvented: q.isInvented,
   };
 }
@@ -76,4 +80,40 @@ export function updateQuoteRow(db: DbOrTx, id: number, q: PriceQuoteInputParsed)
 
 export function deleteQuoteRow(db: DbOrTx | Tx, id: number): Promise<PriceQuote> {
   return db.priceQuote.delete({ where: { id } });
+}
+
+/** Marks a quote withdrawn (it stays on record). */
+export function withdrawQuoteRow(db: DbOrTx, id: number, at: Date): Promise<PriceQuote> {
+  return db.priceQuote.update({ where: { id }, data: { withdrawnAt: at } });
+}
+
+/** Adds a correction: a new version that supersedes `supersedesId`. */
+export function insertQuoteVersion(tx: DbOrTx, fuelId: number, supersedesId: number, q: PriceQuoteInputParsed): Promise<PriceQuote> {
+  return tx.priceQuote.create({ data: { ...quoteColumns(q), fuelId, supersedesId } });
+}
+
+/** The versions that supersede a quote (normally at most one). */
+export function quoteSuccessors(db: DbOrTx, id: number): Promise<PriceQuote[]> {
+  return db.priceQuote.findMany({ where: { supersedesId: id }, orderBy: { id: "asc" } });
+}
+
+/** The issued revisions that used a quote: revision number, study id and name. */
+export function revisionsUsingQuote(db: DbOrTx, quoteId: number) {
+  return db.revisionQuote.findMany({
+    where: { quoteId },
+    select: { revision: { select: { number: true, studyId: true, study: { select: { name: true } } } } },
+  });
+}
+
+/** The revisions that used any quote of a fuel. */
+export function revisionsUsingFuelQuotes(db: DbOrTx, fuelId: number) {
+  return db.revisionQuote.findMany({
+    where: { quote: { fuelId } },
+    select: { quoteId: true, revision: { select: { number: true, study: { select: { name: true } } } } },
+  });
+}
+
+/** The live studies whose scenarios chose a quote: study id and name, scenario name. */
+export function scenariosChoosingQuote(db: DbOrTx, quoteId: number) {
+  return db.scenario.findMany({ where: { priceQuoteId: quoteId }, select: { name: true, study: { select: { id: true, name: true } } } });
 }

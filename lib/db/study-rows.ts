@@ -26,6 +26,8 @@ export interface StoredScenario {
   name: string;
   fuelId: number;
   priceQuoteId: number | null;
+  /** The quote rule's date (YYYY-MM-DD), null = the day of evaluation. */
+  priceValidOn: string | null;
   capex: number;
   fixedOpexChange: number;
   overrides: OperatingOverrides;
@@ -95,6 +97,7 @@ export function studyFromRows(row: StudyRow, scenarioRows: ScenarioRow[]): Store
       name: s.name,
       fuelId: s.fuelId,
       priceQuoteId: s.priceQuoteId,
+      priceValidOn: s.priceValidOn ? s.priceValidOn.toISOString().slice(0, 10) : null,
       capex: s.capex,
       fixedOpexChange: s.fixedOpexChange,
       overrides: "value" in overrides ? overrides.value : {},
@@ -157,6 +160,7 @@ export function scenarioColumns(studyId: number, r: StudyRecord) {
     name: s.name,
     fuelId: s.fuelId,
     priceQuoteId: s.priceQuoteId ?? null,
+    priceValidOn: s.priceValidOn ? new Date(`${s.priceValidOn}T00:00:00Z`) : null,
     capex: s.capex,
     fixedOpexChange: s.fixedOpexChange,
     overrides: JSON.stringify(s.overrides ?? {}),
@@ -245,4 +249,13 @@ export async function copyStudy(tx: Tx, src: StudyRow & { scenarios: ScenarioRow
     await tx.scenario.create({ data: { ...sc, studyId: row.id } });
   }
   return row;
+}
+
+/** The most recently changed study that uses a fuel in a scenario: its name, currency and carbon price. */
+export function latestStudyUsingFuel(db: DbOrTx, fuelId: number) {
+  return db.study.findFirst({
+    where: { scenarios: { some: { fuelId } } },
+    orderBy: [{ updatedAt: "desc" }, { id: "desc" }],
+    select: { id: true, name: true, currency: true, carbonPrice_per_t: true },
+  });
 }

@@ -14,6 +14,7 @@ import {
   MASS_UNITS_KG,
   MJ_per_GJ,
   MJ_per_MWh,
+  kg_per_t,
   VOLUME_UNITS_M3,
   UNIT_LABELS,
   type EnergyUnit,
@@ -198,4 +199,9 @@ export function priceUnitLabel(terms: Pick<PriceQuoteTerms, "unit" | "energyBasi
     s += ` at ${meteringLabel(terms.meteringReferenceC)}`;
   }
   return s;
+}
+
+/** Carbon cost per MWh of fuel: kg CO2 per GJ (on the MWh's basis) × carbon price per t. */
+export function carbonCostPerMWh(co2_kg_per_GJ: number, carbonPrice_per_t: number): number {
+  return (co2_kg_per_GJ * (MJ_per_MWh / MJ_per_GJ) * carbonPrice_per_t) / kg_per_t;
 }

@@ -4,6 +4,7 @@
  * One set of rules for every entry point; messages name the field.
  */
 import { z } from "zod";
+import { currencySchema } from "./currencies";
 import { BLEND_BASES, fuelDefinitionSchema, type FuelDefinition } from "./fuel";
 import { METERING_REFERENCE_KEYS } from "./plant";
 import { ENERGY_BASES, PRICE_UNITS } from "./price-units";
@@ -127,11 +128,7 @@ export const isoDateSchema = z
 export const priceQuoteInputSchema = z
   .object({
     amount: finite().min(0, "must be ≥ 0"),
-    currency: z
-      .string({ error: "must be a currency code" })
-      .trim()
-      .toUpperCase()
-      .regex(/^[A-Z]{3}$/, "must be a three-letter currency code, e.g. EUR"),
+    currency: currencySchema,
     unit: z.enum(PRICE_UNITS, { error: `must be one of ${PRICE_UNITS.join(", ")}` }),
     energyBasis: z.enum(ENERGY_BASES, { error: 'must be "gross" or "net"' }).nullish(),
     meteringReference: z.enum(METERING_REFERENCE_KEYS, { error: `must be one of ${METERING_REFERENCE_KEYS.map((k) => `"${k}"`).join(", ")}` }).nullish(),
@@ -139,6 +136,8 @@ export const priceQuoteInputSchema = z
     handlingAdder: finite().min(0, "must be ≥ 0").default(0),
     validFrom: isoDateSchema,
     sourceNote: trimmedText(1000).default(""),
+    /** Who offers the price. */
+    supplier: trimmedText(200).default(""),
     isInvented: z.boolean().default(false),
   })
   .strict();

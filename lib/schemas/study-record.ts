@@ -6,6 +6,7 @@
  */
 import { z } from "zod";
 import { checkScenarioSet, scenarioSchema, studySchema } from "./study";
+import { isoDateSchema } from "./library";
 
 const id = (what: string) =>
   z
@@ -22,6 +23,11 @@ export const scenarioRecordSchema = z
     fuelId: id("a stored fuel"),
     /** A stored quote of that fuel; null = the quote in force in the study's currency (for a blend without one: its components' quotes). */
     priceQuoteId: id("a price quote").nullish(),
+    /**
+     * Without a chosen quote, the rule that picks one: "the latest quote in the study's currency
+     * valid on this date" (YYYY-MM-DD); null = on the day the study is evaluated.
+     */
+    priceValidOn: isoDateSchema.nullish(),
     capex: sc.capex,
     fixedOpexChange: sc.fixedOpexChange,
     overrides: sc.overrides,

@@ -5,6 +5,7 @@
  * (Study, Plant, Scenario, Fuel, PriceQuote).
  */
 import { z } from "zod";
+import { currencySchema } from "./currencies";
 import { fuelDefinitionSchema, type FuelDefinition } from "./fuel";
 import { operatingOverridesSchema, plantSchema } from "./plant";
 import { isoDateSchema, priceQuoteInputSchema } from "./library";
@@ -213,11 +214,7 @@ export const studySchema = z
     format: z.literal(STUDY_FORMAT, { error: `must be "${STUDY_FORMAT}"` }).optional(),
     version: z.literal(STUDY_FORMAT_VERSION, { error: `must be ${STUDY_FORMAT_VERSION}` }).optional(),
     name: nameSchema(200, "name the study"),
-    currency: z
-      .string({ error: "must be a currency code" })
-      .trim()
-      .toUpperCase()
-      .regex(/^[A-Z]{3}$/, "must be a three-letter currency code, e.g. EUR"),
+    currency: currencySchema,
     carbonPrice_per_t: num().min(0, "must be ≥ 0").max(10000, "must be ≤ 10000 per t").default(0),
     discountRatePercent: num().min(-5, "must be ≥ −5 %").max(50, "must be ≤ 50 %"),
     horizonYears: z.number({ error: "must be a number" }).int("must be a whole number of years").min(1, "must be ≥ 1 year").max(60, "must be ≤ 60 years"),
@@ -254,7 +251,7 @@ export const studySchema = z
     s.scenarios.forEach((sc, i) => checkComponents(sc, ["scenarios", i]));
     const checkCurrency = (price: { currency: string } | null | undefined, path: (string | number)[]) => {
       if (price && price.currency !== s.currency) {
-        ctx.addIssue({ code: "custom", path: [...path, "currency"], message: `must be ${s.currency}, the study's currency (no exchange rates are applied)` });
+        ctx.addIssue({ code: "custom", path: [...path, "currency"], message: `must be ${s.currency}, the study's currency (a study file carries its prices already converted)` });
       }
     };
     checkCurrency(s.baseline.price, ["baseline", "price"]);

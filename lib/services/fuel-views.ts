@@ -17,7 +17,11 @@ import {
 import { listQuotes, quoteJson, type PriceQuoteRow, type QuoteJson } from "../db/price-quote-rows";
 import { fuelPropertiesFromResolved, type FuelProperties } from "../combustion/properties";
 import { flameTemperature, FLAME_METHODS, FLAME_METHOD_LABELS, type FlameMethod } from "../combustion/flame";
-import { mixPrices, normalisePrice, priceUnitLabel, type NormalisedPrice } from "../economics/prices";
+import { carbonCostPerMWh, mixPrices, normalisePrice, priceUnitLabel, type NormalisedPrice } from "../economics/prices";
+import { co2Factors } from "../combustion/co2";
+import { listRates, rateJson } from "../db/exchange-rate-rows";
+import { latestStudyUsingFuel } from "../db/study-rows";
+import { inCurrency, liveQuotes } from "./quote-choice";
 import { energyContentOf } from "../combustion/energy-content";
 import type { ResolvedFuel } from "../fuels/resolve";
 import { heatingValues } from "../combustion/heating-values";
@@ -34,6 +38,9 @@ export interface PriceView {
   error: string | null;
   /** In force today (latest valid-from not in the future). */
   current: boolean;
+  /** The correction that replaced this quote (it then prices nothing). */
+  supersededBy: number | null;
+  withdrawn: boolean;
 }
 
 export interface FuelListItem {
@@ -101,7 +108,16 @@ function priceViews(quotes: PriceQuoteRow[], resolved: ResolvedFuel | null, asOf
         error = reasonOf(e);
       }
     } else error = "the fuel's properties could not be computed";
-    return { quote: quoteJson(q), unitLabel: priceUnitLabel(quoteTerms(q)), normalised: price, error, current: q === cur };
+    const next = quotes.find((x) => x.supersedesId === q.id);
+    return {
+      quote: quoteJson(q),
+      unitLabel: priceUnitLabel(quoteTerms(q)),
+      normalised: price,
+      error,
+      current: q === cur,
+      supersededBy: next ? next.id : null,
+      withdrawn: q.withdrawnAt !== null,
+    };
   });
 }
 
@@ -219,4 +235,91 @@ function cautionsOf(def: FuelDefinition): Caution[] {
   } catch (e) {
     return [{ hazard: "burner-change", title: "Cautions unavailable", text: reasonOf(e) }];
   }
+}
+
+/* ---------------------------------------------------------------- quotes side by side */
+
+export interface QuoteComparisonRow {
+  supplier: string;
+  quoteId: number;
+  validFrom: string;
+  /** The quote as stated. */
+  stated: string;
+  /** Delivered cost per MWh of fuel in the comparison currency, gross and net basis; null with `problem`. */
+  perMWh_gross: number | null;
+  perMWh_net: number | null;
+  /** The same plus the carbon cost of the fossil CO2 at the carbon price. */
+  withCarbon_gross: number | null;
+  withCarbon_net: number | null;
+  conversion: string | null;
+  problem: string | null;
+}
+
+export interface QuoteComparison {
+  currency: string;
+  carbonPrice_per_t: number;
+  /** Where the carbon price came from. */
+  carbonPriceSource: string;
+  /** kg fossil CO2 per GJ, gross and net. */
+  fossilCo2_kg_per_GJ: { gross: number; net: number } | null;
+  rows: QuoteComparisonRow[];
+}
+
+/**
+ * The current quotes of a fuel side by side, one per supplier (the latest live quote valid today of
+ * each), normalised to delivered cost per MWh gross and net, with and without the carbon cost.
+ * Quotes in another currency are converted at the rate in force on their date (stated).
+ */
+export async function quoteComparison(
+  db: Db,
+  fuelId: number,
+  opts: { currency?: string; carbonPrice_per_t?: number; carbonPriceSource?: string; asOf?: Date } = {},
+): Promise<QuoteComparison | null> {
+  const sheet = await fuelSheet(db, fuelId, { flame: false });
+  if (!sheet) return null;
+  const quotes = await listQuotes(db, fuelId);
+  const asOf = opts.asOf ?? new Date();
+  const live = liveQuotes(quotes).filter((q) => q.validFrom.getTime() <= asOf.getTime());
+  const bySupplier = new Map<string, PriceQuoteRow>();
+  for (const q of live) if (!bySupplier.has(q.supplier.trim().toLowerCase())) bySupplier.set(q.supplier.trim().toLowerCase(), q);
+  const currencies = [...bySupplier.values()].map((q) => q.currency);
+  // Without a carbon price set on the page: the latest study that uses the fuel (its currency too), else 0.
+  const usedBy = opts.carbonPrice_per_t === undefined || opts.currency === undefined ? await latestStudyUsingFuel(db, fuelId) : null;
+  const currency =
+    opts.currency ?? usedBy?.currency ?? currencies.sort((a, b) => currencies.filter((c) => c === b).length - currencies.filter((c) => c === a).length)[0] ?? "EUR";
+  const carbon = opts.carbonPrice_per_t ?? usedBy?.carbonPrice_per_t ?? 0;
+  const carbonSource =
+    opts.carbonPriceSource ??
+    (opts.carbonPrice_per_t !== undefined ? "set on this page" : usedBy ? `from study "${usedBy.name}", the latest that uses this fuel` : "0: no carbon price set and no study uses this fuel");
+  let co2: QuoteComparison["fossilCo2_kg_per_GJ"] = null;
+  if (sheet.resolved) {
+    const f = co2Factors(sheet.resolved, heatingValues(sheet.resolved, PRICE_COMBUSTION_REFERENCE_C));
+    co2 = { gross: f.fossil_kg_per_GJ_hhv, net: f.fossil_kg_per_GJ_lhv };
+  }
+  const rates = (await listRates(db)).map(rateJson);
+  const rows: QuoteComparisonRow[] = [...bySupplier.values()].map((q) => {
+    const stated = `${q.amount}${q.transportAdder || q.handlingAdder ? ` + ${q.transportAdder + q.handlingAdder} adders` : ""} ${q.currency}/${priceUnitLabel(quoteTerms(q))}`;
+    const base = { supplier: q.supplier || "(no supplier named)", quoteId: q.id, validFrom: q.validFrom.toISOString().slice(0, 10), stated };
+    const empty = { perMWh_gross: null, perMWh_net: null, withCarbon_gross: null, withCarbon_net: null };
+    const c = inCurrency(q, { currency, rates });
+    if (!c.ok) return { ...base, ...empty, conversion: null, problem: c.reason };
+    if (!sheet.resolved) return { ...base, ...empty, conversion: c.note, problem: "the fuel's properties could not be computed" };
+    let n: NormalisedPrice;
+    try {
+      const factor = c.price.amount / (q.amount || 1);
+      n = normalised({ ...q, amount: c.price.amount, transportAdder: q.transportAdder * (q.amount ? factor : 1), handlingAdder: q.handlingAdder * (q.amount ? factor : 1) }, sheet.resolved);
+    } catch (e) {
+      return { ...base, ...empty, conversion: c.note, problem: reasonOf(e) };
+    }
+    return {
+      ...base,
+      perMWh_gross: n.perMWh_gross,
+      perMWh_net: n.perMWh_net,
+      withCarbon_gross: co2 ? n.perMWh_gross + carbonCostPerMWh(co2.gross, carbon) : null,
+      withCarbon_net: co2 ? n.perMWh_net + carbonCostPerMWh(co2.net, carbon) : null,
+      conversion: c.note,
+      problem: null,
+    };
+  });
+  return { currency, carbonPrice_per_t: carbon, carbonPriceSource: carbonSource, fossilCo2_kg_per_GJ: co2, rows };
 }

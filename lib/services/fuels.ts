@@ -23,7 +23,23 @@ import {
   type FuelColumns,
   type FuelRow,
 } from "../db/fuel-rows";
-import { deleteQuoteRow, findQuote, findQuoteWithFuel, insertQuote, updateQuoteRow, type PriceQuoteRow } from "../db/price-quote-rows";
+import {
+  deleteQuoteRow,
+  findQuote,
+  findQuoteWithFuel,
+  insertQuote,
+  insertQuoteVersion,
+  quoteSuccessors,
+  revisionsUsingFuelQuotes,
+  revisionsUsingQuote,
+  scenariosChoosingQuote,
+  withdrawQuoteRow,
+  type PriceQuoteRow,
+} from "../db/price-quote-rows";
+import { listRates, rateJson } from "../db/exchange-rate-rows";
+import { rateInForce } from "../economics/currency";
+import { liveQuotes } from "./quote-choice";
+import { PLAUSIBILITY_CURRENCY, priceWarning, type PlausibilityWarning } from "../economics/plausibility";
 import type { FuelDefinition } from "../schemas/fuel";
 import { fieldErrors } from "../schemas/fuel";
 import { METERING_REFERENCE_C, type MeteringReferenceKey } from "../schemas/plant";
@@ -279,6 +295,8 @@ export function deleteFuel(db: Db, id: number): Promise<Result<FuelRow>> {
     const existing = await findFuel(tx, id);
     if (!existing) return problem("not-found", `No fuel with id ${id}.`);
     const usage = await fuelUsage(tx, id);
+    const revs = [...new Set((await revisionsUsingFuelQuotes(tx, id)).map((u) => `revision ${u.revision.number} of study "${u.revision.study.name}" (its quotes)`))];
+    usage.push(...revs);
     if (usage.length) {
       return problem("conflict", `"${existing.name}" is in use: ${usage.join("; ")}. Change or delete those first.`, {
         _: `in use: ${usage.join("; ")}`,
@@ -306,8 +324,9 @@ export function quoteTerms(
 }
 
 /** The quote in force on `asOf`: the latest valid-from not after it (quotes sorted newest first). */
-export function currentQuote<Q extends Pick<PriceQuoteRow, "validFrom">>(quotesNewestFirst: Q[], asOf: Date = new Date()): Q | undefined {
-  return quotesNewestFirst.find((q) => q.validFrom.getTime() <= asOf.getTime());
+export function currentQuote(quotesNewestFirst: PriceQuoteRow[], asOf: Date = new Date()): PriceQuoteRow | undefined {
+  // Withdrawn quotes and quotes a correction superseded price nothing.
+  return liveQuotes(quotesNewestFirst).find((q) => q.validFrom.getTime() <= asOf.getTime());
 }
 
 const isPriceUnit = (u: unknown): u is PriceUnit => (PRICE_UNITS as readonly unknown[]).includes(u);
@@ -367,30 +386,117 @@ function quoteFitErrors(
   return errs;
 }
 
-/** Adds a quote inside an open transaction (used by the API, by imports and by the seeder). */
-export async function addPriceQuoteIn(tx: DbOrTx, fuelId: number, raw: unknown): Promise<Result<PriceQuoteRow>> {
-  const fuel = await findFuel(tx, fuelId);
-  if (!fuel) return problem("not-found", `No fuel with id ${fuelId}.`);
-  const checked = checkQuoteForFuel(fuel, raw);
-  if (!checked.ok) return checked;
-  return ok(await insertQuote(tx, fuelId, checked.value));
+/** A stored quote with the plausibility warnings the user confirmed or that could not be checked. */
+export type QuoteSaved = PriceQuoteRow & { warnings: string[] };
+
+/** Splits the confirmation flag off a quote body (it is not part of the quote). */
+function confirmation(raw: unknown): { body: unknown; confirm: boolean } {
+  if (typeof raw !== "object" || raw === null || Array.isArray(raw) || !("confirmImplausible" in raw)) return { body: raw, confirm: false };
+  const { confirmImplausible, ...body } = raw as Record<string, unknown>;
+  return { body, confirm: confirmImplausible === true };
 }
 
-export function addPriceQuote(db: Db, fuelId: number, raw: unknown): Promise<Result<PriceQuoteRow>> {
+/** The plausibility warning of a delivered price (lib/economics/plausibility.ts), converting to EUR at the rate in force. */
+export async function quotePlausibility(tx: DbOrTx, q: PriceQuoteInputParsed): Promise<PlausibilityWarning | null> {
+  const delivered = q.amount + q.transportAdder + q.handlingAdder;
+  let factor: number | null = 1;
+  if (q.currency !== PLAUSIBILITY_CURRENCY) {
+    factor = rateInForce((await listRates(tx)).map(rateJson), q.currency, PLAUSIBILITY_CURRENCY, q.validFrom)?.factor ?? null;
+  }
+  return priceWarning(delivered, q.unit, q.currency, factor);
+}
+
+/** Validates a quote for its fuel and checks its plausibility; an implausible price needs `confirmImplausible: true`. */
+export async function checkQuoteWrite(tx: DbOrTx, fuel: FuelRow, raw: unknown): Promise<Result<{ quote: PriceQuoteInputParsed; warnings: string[] }>> {
+  const { body, confirm } = confirmation(raw);
+  const checked = checkQuoteForFuel(fuel, body);
+  if (!checked.ok) return checked;
+  const w = await quotePlausibility(tx, checked.value);
+  if (w?.blocking && !confirm) {
+    return {
+      ...problem("unprocessable", `The price looks implausible; nothing was saved. Check it, or send it again with "confirmImplausible": true to store it.`, { [w.field]: w.message }),
+      warnings: [w.message],
+    };
+  }
+  return ok({ quote: checked.value, warnings: w ? [w.message] : [] });
+}
+
+/** Adds a quote inside an open transaction (used by the API, by imports and by the seeder). */
+export async function addPriceQuoteIn(tx: DbOrTx, fuelId: number, raw: unknown): Promise<Result<QuoteSaved>> {
+  const fuel = await findFuel(tx, fuelId);
+  if (!fuel) return problem("not-found", `No fuel with id ${fuelId}.`);
+  const checked = await checkQuoteWrite(tx, fuel, raw);
+  if (!checked.ok) return checked;
+  return ok({ ...(await insertQuote(tx, fuelId, checked.value.quote)), warnings: checked.value.warnings });
+}
+
+export function addPriceQuote(db: Db, fuelId: number, raw: unknown): Promise<Result<QuoteSaved>> {
   return inTransaction(db, (tx) => addPriceQuoteIn(tx, fuelId, raw));
 }
 
-export async function updatePriceQuote(db: Db, fuelId: number, quoteId: number, raw: unknown): Promise<Result<PriceQuoteRow>> {
-  const existing = await findQuoteWithFuel(db, quoteId);
-  if (!existing || existing.fuelId !== fuelId) return problem("not-found", `No price quote ${quoteId} for fuel ${fuelId}.`);
-  const checked = checkQuoteForFuel(existing.fuel, raw);
-  if (!checked.ok) return checked;
-  return ok(await updateQuoteRow(db, quoteId, checked.value));
+/**
+ * Corrects a quote: never in place. The correction is a new quote that supersedes the old one; the
+ * old one stays on record (shown as superseded) and whatever chose it now uses the newest version
+ * (an issued revision keeps its own frozen copy). A superseded or withdrawn quote cannot be corrected.
+ */
+export function correctPriceQuote(db: Db, fuelId: number, quoteId: number, raw: unknown): Promise<Result<QuoteSaved>> {
+  return inTransaction(db, async (tx): Promise<Result<QuoteSaved>> => {
+    const existing = await findQuoteWithFuel(tx, quoteId);
+    if (!existing || existing.fuelId !== fuelId) return problem("not-found", `No price quote ${quoteId} for fuel ${fuelId}.`);
+    const later = await quoteSuccessors(tx, quoteId);
+    if (later.length)
+      return problem("conflict", `Quote #${quoteId} was already corrected by quote #${later[0].id}; correct that one.`, { _: `superseded by quote #${later[0].id}` });
+    if (existing.withdrawnAt)
+      return problem("conflict", `Quote #${quoteId} was withdrawn on ${existing.withdrawnAt.toISOString().slice(0, 10)}; add a new quote instead.`, { _: "withdrawn" });
+    const checked = await checkQuoteWrite(tx, existing.fuel, raw);
+    if (!checked.ok) return checked;
+    return ok({ ...(await insertQuoteVersion(tx, fuelId, quoteId, checked.value.quote)), warnings: checked.value.warnings });
+  });
 }
 
-export async function deletePriceQuote(db: Db, fuelId: number, quoteId: number): Promise<Result<PriceQuoteRow>> {
-  const existing = await findQuote(db, quoteId);
-  if (!existing || existing.fuelId !== fuelId) return problem("not-found", `No price quote ${quoteId} for fuel ${fuelId}.`);
-  await deleteQuoteRow(db, quoteId);
-  return ok(existing);
+/** The issued revisions that used a quote, as "revision N of study "name"". */
+async function revisionUsers(tx: DbOrTx, quoteId: number): Promise<string[]> {
+  return (await revisionsUsingQuote(tx, quoteId)).map((u) => `revision ${u.revision.number} of study "${u.revision.study.name}"`);
+}
+
+/**
+ * Deletes a quote that nothing relies on. Refused (conflict) when an issued revision used it (naming
+ * the revision), when a live study chose it (withdraw it instead: those studies then say which quote
+ * they use), or when it is part of a correction history.
+ */
+export function deletePriceQuote(db: Db, fuelId: number, quoteId: number): Promise<Result<PriceQuoteRow>> {
+  return inTransaction(db, async (tx): Promise<Result<PriceQuoteRow>> => {
+    const existing = await findQuote(tx, quoteId);
+    if (!existing || existing.fuelId !== fuelId) return problem("not-found", `No price quote ${quoteId} for fuel ${fuelId}.`);
+    const revs = await revisionUsers(tx, quoteId);
+    if (revs.length)
+      return problem("conflict", `Quote #${quoteId} cannot be deleted: ${revs.join(", ")} used it. Withdraw it instead.`, { _: `used by ${revs.join(", ")}` });
+    const studies = await scenariosChoosingQuote(tx, quoteId);
+    if (studies.length) {
+      const names = [...new Set(studies.map((s) => `study "${s.study.name}" (scenario "${s.name}")`))];
+      return problem("conflict", `Quote #${quoteId} is chosen by ${names.join(", ")}. Withdraw it instead: those studies then say which quote they use.`, {
+        _: `chosen by ${names.join(", ")}`,
+      });
+    }
+    if (existing.supersedesId !== null || (await quoteSuccessors(tx, quoteId)).length)
+      return problem("conflict", `Quote #${quoteId} is part of a correction history; withdraw it instead.`, { _: "part of a correction history" });
+    await deleteQuoteRow(tx, quoteId);
+    return ok(existing);
+  });
+}
+
+/** Withdraws a quote: it stays on record, prices nothing any more; studies that chose it fall back to their rule. */
+export function withdrawPriceQuote(
+  db: Db,
+  fuelId: number,
+  quoteId: number,
+): Promise<Result<{ quote: PriceQuoteRow; affectedStudies: { id: number; name: string; scenario: string }[] }>> {
+  return inTransaction(db, async (tx) => {
+    const existing = await findQuote(tx, quoteId);
+    if (!existing || existing.fuelId !== fuelId) return problem("not-found", `No price quote ${quoteId} for fuel ${fuelId}.`);
+    if (existing.withdrawnAt) return problem("conflict", `Quote #${quoteId} is already withdrawn.`, { _: "already withdrawn" });
+    const quote = await withdrawQuoteRow(tx, quoteId, new Date());
+    const affected = (await scenariosChoosingQuote(tx, quoteId)).map((s) => ({ id: s.study.id, name: s.study.name, scenario: s.name }));
+    return ok({ quote, affectedStudies: affected });
+  });
 }

@@ -24,6 +24,8 @@ export interface Problem {
   kind: ProblemKind;
   message: string;
   fieldErrors: FieldErrors;
+  /** Warnings that stopped the write until the user confirms (implausible prices). */
+  warnings?: string[];
 }
 
 export type Result<T> = { ok: true; value: T } | Problem;

@@ -36,81 +36,81 @@ import { studySchema, type RankingMetric, type Study, type StudyInput, type Stud
 import { studyRecordSchema, type ScenarioRecord, type StudyRecord, type StudyRecordInput } from "../schemas/study-record";
 import type { SensitivityRanges } from "../economics/sensitivity";
 import { evaluateStudy, type StudyResult } from "../study/evaluate";
-import { currentQuote } from "./fuels";
+import { listRates, rateJson } from "../db/exchange-rate-rows";
+import { countRevisions } from "../db/revision-rows";
+import { rateInForce } from "../economics/currency";
+import { day, inCurrency, latestVersion, quoteByRule, ruleText, type PriceSource, type PricingContext } from "./quote-choice";
 import { sharedCaches } from "./eval-cache";
 import { ok, problem, problemFromError, type FieldErrors, type Problem, type Result } from "./result";
 
 /* ---------------------------------------------------------------- pricing policy */
 
 /**
- * How a scenario is priced: the quote the study names; else the fuel's quote in force in the
- * study's currency; else, for a blend, its components' quotes in force (mixed per kg); else none.
+ * How a scenario is priced (lib/services/quote-choice.ts): the quote the study names (its newest
+ * version; the rule when it was withdrawn); else the rule "latest quote in the study's currency
+ * valid on D"; else, for a blend, its components' quotes by the same rule (mixed per kg); else none,
+ * with the reason. Quotes in another currency are converted at the rate in force on their date.
  */
-export type PriceSource =
-  | { kind: "quote"; quoteId: number; invented: boolean; validFrom: string }
-  | { kind: "current"; quoteId: number; invented: boolean; validFrom: string }
-  | { kind: "components"; quoteIds: number[]; invented: boolean }
-  | { kind: "none"; invented: false; currency: string };
-
-function studyPrice(q: PriceQuoteRow): StudyPriceInput {
-  const j = quoteJson(q);
-  return {
-    amount: j.amount,
-    currency: j.currency,
-    unit: j.unit as StudyPriceInput["unit"],
-    energyBasis: j.energyBasis as StudyPriceInput["energyBasis"],
-    meteringReference: j.meteringReference as StudyPriceInput["meteringReference"],
-    transportAdder: j.transportAdder,
-    handlingAdder: j.handlingAdder,
-    validFrom: j.validFrom,
-    sourceNote: j.sourceNote,
-    isInvented: j.isInvented,
-  };
-}
-
-const day = (d: Date) => d.toISOString().slice(0, 10);
-
-function quoteInCurrency(quotes: PriceQuoteRow[], currency: string, asOf: Date): PriceQuoteRow | undefined {
-  return currentQuote(
-    quotes.filter((q) => q.currency === currency),
-    asOf,
-  );
-}
+export type { PriceSource };
 
 function priceFor(
   fuel: FuelWithQuotesRow,
   chosen: PriceQuoteRow | null,
-  currency: string,
+  validOn: string | null,
+  ctx: PricingContext,
   asOf: Date,
-): { price: StudyPriceInput | null; componentPrices: StudyPriceInput[] | null; source: PriceSource } {
+): { price: StudyPriceInput | null; componentPrices: StudyPriceInput[] | null; source: PriceSource; quoteIds: number[] } {
+  const rule = ruleText(ctx.currency, validOn);
+  const on = validOn ? new Date(`${validOn}T00:00:00Z`) : asOf;
+  const notes: string[] = [];
   if (chosen) {
-    return {
-      price: studyPrice(chosen),
-      componentPrices: null,
-      source: { kind: "quote", quoteId: chosen.id, invented: chosen.isInvented, validFrom: day(chosen.validFrom) },
-    };
+    const q = latestVersion(chosen, fuel.priceQuotes);
+    if (q.id !== chosen.id) notes.push(`quote #${chosen.id} was corrected: its newest version #${q.id} applies`);
+    if (q.withdrawnAt === null) {
+      const c = inCurrency(q, ctx);
+      if (c.ok) {
+        if (c.note) notes.push(c.note);
+        return {
+          price: c.price,
+          componentPrices: null,
+          source: { kind: "quote", quoteId: q.id, invented: q.isInvented, validFrom: day(q.validFrom), rule: `chosen quote #${chosen.id}`, notes },
+          quoteIds: [q.id],
+        };
+      }
+      notes.push(c.reason);
+    } else {
+      notes.push(`the chosen quote #${q.id} was withdrawn on ${day(q.withdrawnAt)}; the rule applies instead`);
+    }
   }
-  const cur = quoteInCurrency(fuel.priceQuotes, currency, asOf);
-  if (cur) {
+  const byRule = quoteByRule(fuel.priceQuotes, on, ctx);
+  if (byRule.quote) {
+    if (byRule.converted.note) notes.push(byRule.converted.note);
+    const q = byRule.quote;
     return {
-      price: studyPrice(cur),
+      price: byRule.converted.price,
       componentPrices: null,
-      source: { kind: "current", quoteId: cur.id, invented: cur.isInvented, validFrom: day(cur.validFrom) },
+      source: { kind: "current", quoteId: q.id, invented: q.isInvented, validFrom: day(q.validFrom), rule, notes },
+      quoteIds: [q.id],
     };
   }
   if (fuel.components.length) {
-    const qs = fuel.components
-      .map((c) => quoteInCurrency(c.component.priceQuotes, currency, asOf))
-      .filter((q): q is PriceQuoteRow => q !== undefined);
-    if (qs.length === fuel.components.length) {
+    const picks = fuel.components.map((c) => ({ name: c.component.name, pick: quoteByRule(c.component.priceQuotes, on, ctx) }));
+    const missing = picks.find((p) => !p.pick.quote);
+    if (!missing) {
+      const qs = picks.map((p) => p.pick as Extract<typeof p.pick, { quote: PriceQuoteRow }>);
+      for (const p of qs) if (p.converted.note) notes.push(p.converted.note);
       return {
         price: null,
-        componentPrices: qs.map(studyPrice),
-        source: { kind: "components", quoteIds: qs.map((q) => q.id), invented: qs.some((q) => q.isInvented) },
+        componentPrices: qs.map((p) => p.converted.price),
+        source: { kind: "components", quoteIds: qs.map((p) => p.quote.id), invented: qs.some((p) => p.quote.isInvented), rule: `components: ${rule}`, notes },
+        quoteIds: qs.map((p) => p.quote.id),
       };
     }
+    notes.push(`${fuel.name}: ${(byRule as { reason: string }).reason}; component ${missing.name}: ${(missing.pick as { reason: string }).reason}`);
+  } else {
+    notes.push(`${fuel.name}: ${(byRule as { reason: string }).reason}`);
   }
-  return { price: null, componentPrices: null, source: { kind: "none", invented: false, currency } };
+  return { price: null, componentPrices: null, source: { kind: "none", invented: false, currency: ctx.currency, rule, notes }, quoteIds: [] };
 }
 
 type HydrogenRow = FuelRow & { priceQuotes: PriceQuoteRow[] };
@@ -167,6 +167,10 @@ export interface StudyBundle {
     hydrogen: HydrogenMeta;
     /** Any figure rests on an invented (demo) price. */
     anyInventedPrice: boolean;
+    /** Every quote the prices rest on (what an issued revision records). */
+    quoteIds: number[];
+    /** The revision this bundle was read from (null: the live study). */
+    revision: { number: number; hash: string; issuedAt: string } | null;
   };
 }
 
@@ -186,6 +190,7 @@ interface ScenarioSource {
   name: string;
   fuel: FuelWithQuotesRow;
   quote: PriceQuoteRow | null;
+  priceValidOn: string | null;
   capex: number;
   fixedOpexChange: number;
   overrides: StoredScenario["overrides"];
@@ -217,10 +222,14 @@ function build(
   scenarios: ScenarioSource[],
   hydrogen: HydrogenRow | null,
   settings: ViewSettings,
-): { input: StudyInput; baseline: ScenarioMeta; scenarios: ScenarioMeta[]; hydrogen: HydrogenMeta } {
+  rates: PricingContext["rates"],
+): { input: StudyInput; baseline: ScenarioMeta; scenarios: ScenarioMeta[]; hydrogen: HydrogenMeta; quoteIds: number[] } {
   const asOf = settings.asOf ?? new Date();
+  const ctx: PricingContext = { currency: fields.currency, rates };
+  const quoteIds = new Set<number>();
   const one = (src: ScenarioSource, index: number) => {
-    const p = priceFor(src.fuel, src.quote, fields.currency, asOf);
+    const p = priceFor(src.fuel, src.quote, src.priceValidOn, ctx, asOf);
+    for (const q of p.quoteIds) quoteIds.add(q);
     const meta: ScenarioMeta = {
       id: src.id,
       index,
@@ -246,7 +255,9 @@ function build(
   };
   const b = one(baseline, -1);
   const cs = scenarios.map((s, i) => one(s, i));
-  const h2Quote = hydrogen ? quoteInCurrency(hydrogen.priceQuotes, fields.currency, asOf) : undefined;
+  const h2 = hydrogen ? quoteByRule(hydrogen.priceQuotes, asOf, ctx) : null;
+  const h2Quote = h2?.quote ?? null;
+  if (h2Quote) quoteIds.add(h2Quote.id);
   const input: StudyInput = {
     name: fields.name,
     currency: fields.currency,
@@ -262,7 +273,7 @@ function build(
       enabled: true,
       stepPercent: settings.sweepStepPercent ?? 1,
       ...(hydrogen ? { hydrogen: effectiveDefinition(hydrogen) } : {}),
-      hydrogenPrice: h2Quote ? studyPrice(h2Quote) : null,
+      hydrogenPrice: h2 && h2.quote ? h2.converted.price : null,
     },
     plant: plantInputFromRow(plant),
     baseline: b.input,
@@ -281,10 +292,19 @@ function build(
     hydrogen: {
       fuelId: hydrogen?.id ?? null,
       fuelName: hydrogen?.name ?? null,
-      price: h2Quote
-        ? { kind: "current", quoteId: h2Quote.id, invented: h2Quote.isInvented, validFrom: day(h2Quote.validFrom) }
-        : { kind: "none", invented: false, currency: fields.currency },
+      price:
+        h2 && h2.quote
+          ? {
+              kind: "current",
+              quoteId: h2.quote.id,
+              invented: h2.quote.isInvented,
+              validFrom: day(h2.quote.validFrom),
+              rule: ruleText(fields.currency, null),
+              notes: h2.converted.note ? [h2.converted.note] : [],
+            }
+          : { kind: "none", invented: false, currency: fields.currency, rule: ruleText(fields.currency, null), notes: h2 && !h2.quote ? [h2.reason] : [] },
     },
+    quoteIds: [...quoteIds].sort((a, b) => a - b),
   };
 }
 
@@ -316,12 +336,14 @@ export async function studyBundle(db: Db, id: number, settings: ViewSettings = {
       name: s.name,
       fuel: r.fuel,
       quote: r.priceQuote,
+      priceValidOn: s.priceValidOn,
       capex: s.capex,
       fixedOpexChange: s.fixedOpexChange,
       overrides: s.overrides,
     };
   };
-  const built = build(stored, row.plant, src(stored.baseline), stored.scenarios.map(src), await libraryHydrogen(db), settings);
+  const rates = (await listRates(db)).map(rateJson);
+  const built = build(stored, row.plant, src(stored.baseline), stored.scenarios.map(src), await libraryHydrogen(db), settings, rates);
   const parsed = studySchema.safeParse(built.input);
   if (!parsed.success) {
     const errs = fieldErrors(parsed.error);
@@ -343,6 +365,8 @@ export async function studyBundle(db: Db, id: number, settings: ViewSettings = {
         scenarios: built.scenarios,
         hydrogen: built.hydrogen,
         anyInventedPrice: anyInvented,
+        quoteIds: built.quoteIds,
+        revision: null,
       },
     },
   };
@@ -484,13 +508,14 @@ async function prepare(tx: Tx, raw: unknown, selfId?: number): Promise<Result<St
   const fuels = new Map((await fuelsWithQuotes(tx, [...new Set(all.map(([, s]) => s.fuelId))])).map((f) => [f.id, f]));
   const quoteIds = all.map(([, s]) => s.priceQuoteId).filter((q): q is number => typeof q === "number");
   const quotes = new Map((await findQuotes(tx, quoteIds)).map((q) => [q.id, q]));
+  const rates = (await listRates(tx)).map(rateJson);
   for (const [path, s] of all) {
     if (!fuels.has(s.fuelId)) errs[`${path}.fuelId`] = `no stored fuel with id ${s.fuelId}`;
     if (s.priceQuoteId != null) {
       const q = quotes.get(s.priceQuoteId);
       if (!q || q.fuelId !== s.fuelId) errs[`${path}.priceQuoteId`] = "is not a price quote of the chosen fuel";
-      else if (q.currency !== r.currency)
-        errs[`${path}.priceQuoteId`] = `is in ${q.currency}; the study is in ${r.currency} (no exchange rates are applied)`;
+      else if (q.currency !== r.currency && !rateInForce(rates, q.currency, r.currency, day(q.validFrom)))
+        errs[`${path}.priceQuoteId`] = `is in ${q.currency}; the study is in ${r.currency} and no exchange rate from ${q.currency} to ${r.currency} is in force on ${day(q.validFrom)} (add one, or choose a quote in ${r.currency})`;
     }
   }
   if (Object.keys(errs).length || !plant) return problem("invalid", "The study has errors; nothing was saved.", errs);
@@ -509,12 +534,13 @@ async function prepare(tx: Tx, raw: unknown, selfId?: number): Promise<Result<St
       name: s.name,
       fuel,
       quote: s.priceQuoteId != null ? (quotes.get(s.priceQuoteId) ?? null) : null,
+      priceValidOn: s.priceValidOn ?? null,
       capex: s.capex,
       fixedOpexChange: s.fixedOpexChange,
       overrides: s.overrides,
     };
   };
-  const built = build(r, plant, src(r.baseline), r.scenarios.map(src), await libraryHydrogen(tx), { metric: r.rankingMetric });
+  const built = build(r, plant, src(r.baseline), r.scenarios.map(src), await libraryHydrogen(tx), { metric: r.rankingMetric }, rates);
   const study = studySchema.safeParse(built.input);
   if (!study.success) {
     const e: FieldErrors = {};
@@ -550,6 +576,11 @@ export function deleteStudy(db: Db, id: number): Promise<Result<StudyRow>> {
   return inTransaction(db, async (tx): Promise<Result<StudyRow>> => {
     const existing = await findStudy(tx, id);
     if (!existing) return problem("not-found", `No study with id ${id}.`);
+    const issued = await countRevisions(tx, id);
+    if (issued)
+      return problem("conflict", `Study "${existing.name}" has ${issued} issued revision${issued > 1 ? "s" : ""}; an issued study is kept on record and cannot be deleted.`, {
+        _: `${issued} issued revision${issued > 1 ? "s" : ""}`,
+      });
     await deleteStudyRow(tx, id);
     return ok(existing);
   });
@@ -594,6 +625,11 @@ export interface QuoteChoice {
   meteringReference: string | null;
   validFrom: string;
   isInvented: boolean;
+  supplier: string;
+  /** Withdrawn quotes price nothing (a scenario that chose one falls back to its rule). */
+  withdrawn: boolean;
+  /** The correction that replaced this quote (its newest version applies). */
+  supersededBy: number | null;
 }
 
 export interface StudyFormOptions {
@@ -624,6 +660,9 @@ export async function studyFormOptions(db: Db): Promise<StudyFormOptions> {
           meteringReference: j.meteringReference,
           validFrom: j.validFrom,
           isInvented: j.isInvented,
+          supplier: j.supplier,
+          withdrawn: j.withdrawnAt !== null,
+          supersededBy: f.priceQuotes.find((x) => x.supersedesId === q.id)?.id ?? null,
         };
       }),
     })),

@@ -34,6 +34,7 @@ const libraryPriceSchema = z.object({
   handlingAdder: z.number({ error: "must be a number" }).default(0),
   validFrom: text,
   sourceNote: text.default(""),
+  supplier: text.default(""),
   isInvented: z.boolean({ error: "must be true or false" }).default(false),
 });
 
@@ -114,7 +115,8 @@ export async function exportLibrary(db: DbOrTx): Promise<LibraryDocument> {
         isDemo: r.isDemo,
         prices: r.priceQuotes.map((q) => {
           // The quote as the API shows it, without the database's own ids and timestamps.
-          const { id: _id, fuelId: _fuelId, createdAt: _createdAt, ...portable } = quoteJson(q);
+          // Version links and withdrawal are this database's history, not part of the portable quote.
+          const { id: _id, fuelId: _fuelId, createdAt: _createdAt, supersedesId: _s, withdrawnAt: _w, ...portable } = quoteJson(q);
           return portable;
         }),
       };
@@ -149,7 +151,10 @@ export const CSV_COLUMNS = [
   "validFrom",
   "sourceNote",
   "isInvented",
+  "supplier",
 ] as const;
+/** Columns older files may lack (read as empty). */
+const OPTIONAL_COLUMNS: readonly string[] = ["supplier"];
 type CsvColumn = (typeof CSV_COLUMNS)[number];
 
 const num = (v: number | null) => (v === null ? "" : String(v));
@@ -194,6 +199,7 @@ export function libraryToCsv(doc: LibraryDocument): string {
           validFrom: p.validFrom,
           sourceNote: p.sourceNote,
           isInvented: String(p.isInvented),
+          supplier: p.supplier,
         }),
       );
     }
@@ -245,9 +251,9 @@ export function libraryFromCsv(text: string): LibraryDocument {
   const rows = readCsv(text);
   if (rows.length === 0) throw new InputError("file", "empty");
   const header = rows[0].map((h) => h.trim());
-  const missing = CSV_COLUMNS.filter((c) => !header.includes(c));
+  const missing = CSV_COLUMNS.filter((c) => !header.includes(c) && !OPTIONAL_COLUMNS.includes(c));
   if (missing.length) throw new InputError("header", `missing column(s) ${missing.join(", ")}`);
-  const col = (r: string[], c: CsvColumn) => r[header.indexOf(c)] ?? "";
+  const col = (r: string[], c: CsvColumn) => (header.includes(c) ? (r[header.indexOf(c)] ?? "") : "");
   const fuels: Record<string, unknown>[] = [];
   const pricesOf = new Map<string, Record<string, unknown>[]>();
   rows.slice(1).forEach((r, idx) => {
@@ -291,6 +297,7 @@ export function libraryFromCsv(text: string): LibraryDocument {
         handlingAdder: csvNumber(where, "handlingAdder", col(r, "handlingAdder")) ?? 0,
         validFrom: col(r, "validFrom").trim(),
         sourceNote: col(r, "sourceNote"),
+        supplier: col(r, "supplier"),
         isInvented: csvBool(where, "isInvented", col(r, "isInvented")),
       });
     } else {

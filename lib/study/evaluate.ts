@@ -25,6 +25,7 @@ import { cautionsFor, DEFER, type Caution, type HazardKey } from "../fuels/cauti
 import { hydrogenSweep, type HydrogenSweepResult } from "./hydrogen-sweep";
 import { StudyInputError } from "./errors";
 import { pathEconomicsOf, studyPricePaths } from "./price-paths";
+import { kg_per_t, MJ_per_GJ, MJ_per_MWh } from "../units/energy";
 
 export { normaliseStudyPrice } from "./pricing";
 export { StudyInputError } from "./errors";
@@ -103,6 +104,8 @@ export interface ScenarioResult {
   /** g CO2 per MJ of useful heat (needs no price). */
   /** Upstream and (when the study counts upstream) ranked are null where the fuel states no upstream factor: unknown. */
   co2PerUsefulMJ_g: { fossil: number; biogenic: number; upstream: number | null; ranked: number | null };
+  /** t CO2 per year at the annual useful heat (needs no price; kg/GJ of useful heat × GJ per year): fossil, biogenic, upstream CO2e (null: unknown). */
+  annualCo2_t: { fossil: number; biogenic: number; upstream: number | null };
   /** Delivered price, from the scenario's quote or (blends) from its components' quotes. */
   price: (NormalisedPrice & { unitLabel: string; currency: string; origin: "quote" | "blend of component quotes"; quote: StudyPrice | null; componentQuotes: StudyPrice[] | null }) | null;
   /** The numbers the economics ran on (for other metrics' tornadoes or what-ifs via lib/economics). */
@@ -403,6 +406,11 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
       },
       annual: annualDemand(plant, ctx, p.perf, eff, duty.annualUseful_MWh),
       co2PerUsefulMJ_g: co2Useful,
+      annualCo2_t: {
+        fossil: (co2Useful.fossil * duty.annualUseful_MWh * MJ_per_MWh) / MJ_per_GJ / kg_per_t,
+        biogenic: (co2Useful.biogenic * duty.annualUseful_MWh * MJ_per_MWh) / MJ_per_GJ / kg_per_t,
+        upstream: co2Useful.upstream === null ? null : (co2Useful.upstream * duty.annualUseful_MWh * MJ_per_MWh) / MJ_per_GJ / kg_per_t,
+      },
       price: price
         ? p.scenario.price
           ? { ...price, unitLabel: priceUnitLabel(priceTerms(p.scenario.price)), currency: p.scenario.price.currency, origin: "quote", quote: p.scenario.price, componentQuotes: null }

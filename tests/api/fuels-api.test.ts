@@ -209,12 +209,18 @@ describe("prices", () => {
 
     const priceId = list.prices[1].id;
     const fix = await routes.price.PUT(put(`${url}/${priceId}`, { amount: 41, currency: "EUR", unit: "MWh", energyBasis: "net", validFrom: "2024-01-01" }), pctx(gas.id, priceId));
-    expect(fix.status).toBe(200);
-    const badFix = await routes.price.PUT(put(`${url}/${priceId}`, { amount: 41, currency: "EUR", unit: "MWh", validFrom: "2024-01-01" }), pctx(gas.id, priceId));
+    // A correction is a new version; the corrected quote stays as it was.
+    expect(fix.status).toBe(201);
+    const fixId = (await fix.json()).id;
+    expect((await t.client.priceQuote.findUniqueOrThrow({ where: { id: fixId } })).energyBasis).toBe("net");
+    expect((await t.client.priceQuote.findUniqueOrThrow({ where: { id: priceId } })).energyBasis).toBe("gross");
+    const badFix = await routes.price.PUT(put(`${url}/${fixId}`, { amount: 41, currency: "EUR", unit: "MWh", validFrom: "2024-01-01" }), pctx(gas.id, fixId));
     expect(badFix.status).toBe(400);
-    expect((await t.client.priceQuote.findUniqueOrThrow({ where: { id: priceId } })).energyBasis).toBe("net");
-    expect((await routes.price.DELETE(new Request(`${url}/${priceId}`, { method: "DELETE" }), pctx(gas.id, priceId))).status).toBe(200);
-    expect((await routes.price.DELETE(new Request(`${url}/${priceId}`, { method: "DELETE" }), pctx(gas.id, priceId))).status).toBe(404);
+    // Part of a correction history: withdrawn, not deleted.
+    expect((await routes.price.DELETE(new Request(`${url}/${fixId}`, { method: "DELETE" }), pctx(gas.id, fixId))).status).toBe(409);
+    const bId = list.prices[0].id;
+    expect((await routes.price.DELETE(new Request(`${url}/${bId}`, { method: "DELETE" }), pctx(gas.id, bId))).status).toBe(200);
+    expect((await routes.price.DELETE(new Request(`${url}/${bId}`, { method: "DELETE" }), pctx(gas.id, bId))).status).toBe(404);
   });
 
   it("a liquid priced per litre needs a density", async () => {

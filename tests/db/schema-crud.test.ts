@@ -137,4 +137,41 @@ describe("schema matches the migrations", () => {
     expect(await db.scenario.count()).toBe(0);
     await db.fuel.delete({ where: { id: fuel.id } });
   });
+
+  it("quote versions, ExchangeRate, StudyRevision, RevisionQuote, Scenario.priceValidOn", async () => {
+    const fuel = await db.fuel.create({ data: { name: "NG2", kind: "gas", definition: "{}" } });
+    const q1 = await db.priceQuote.create({ data: { fuelId: fuel.id, amount: 30, currency: "EUR", unit: "MWh", energyBasis: "gross", validFrom: new Date("2026-01-01T00:00:00Z") } });
+    const withdrawnAt = new Date("2026-03-01T10:00:00Z");
+    const q2 = await db.priceQuote.create({ data: { fuelId: fuel.id, amount: 31, currency: "EUR", unit: "MWh", energyBasis: "gross", validFrom: new Date("2026-01-01T00:00:00Z"), supersedesId: q1.id, withdrawnAt, supplier: "Gas Co" } });
+    expect(await db.priceQuote.findUniqueOrThrow({ where: { id: q2.id } })).toMatchObject({ supersedesId: q1.id, withdrawnAt, supplier: "Gas Co" });
+    expect((await db.priceQuote.findUniqueOrThrow({ where: { id: q1.id } })).supplier).toBe("");
+    expect((await db.priceQuote.findUniqueOrThrow({ where: { id: q1.id }, include: { supersededBy: true } })).supersededBy.map((q) => q.id)).toEqual([q2.id]);
+    // A quote that a later version supersedes cannot be deleted (Restrict).
+    await expect(db.priceQuote.delete({ where: { id: q1.id } })).rejects.toThrow();
+
+    const rateDate = new Date("2026-02-02T00:00:00Z");
+    const rate = await db.exchangeRate.create({ data: { fromCurrency: "GBP", toCurrency: "EUR", rate: 1.1612, validFrom: rateDate, source: "test" } });
+    expect(await db.exchangeRate.findUniqueOrThrow({ where: { id: rate.id } })).toMatchObject({ fromCurrency: "GBP", toCurrency: "EUR", rate: 1.1612, validFrom: rateDate, source: "test" });
+    await expect(db.exchangeRate.create({ data: { fromCurrency: "GBP", toCurrency: "EUR", rate: 1.2, validFrom: rateDate } })).rejects.toThrow();
+
+    const plant = await db.plant.create({
+      data: { name: "P2", equipmentType: "steam-boiler", ratedInput_kW: 1000, operatingHours: 8000, averageLoadFraction: 0.6, stackTemperatureC: 150, flueO2DryPercent: 3, combustionAirC: 20, radiationLossPercent: 1 },
+    });
+    const study = await db.study.create({ data: { plantId: plant.id, name: "S2", currency: "EUR", discountRatePercent: 8, horizonYears: 15, rankingMetric: "npv" } });
+    const on = new Date("2026-02-15T00:00:00Z");
+    const sc = await db.scenario.create({ data: { studyId: study.id, name: "base", fuelId: fuel.id, priceValidOn: on, isBaseline: true } });
+    expect((await db.scenario.findUniqueOrThrow({ where: { id: sc.id } })).priceValidOn).toEqual(on);
+    const rev = await db.studyRevision.create({ data: { studyId: study.id, number: 1, hash: "ab", inputs: "{}", results: "[]", meta: '{"m":1}' } });
+    expect(await db.studyRevision.findUniqueOrThrow({ where: { id: rev.id } })).toMatchObject({ studyId: study.id, number: 1, hash: "ab", inputs: "{}", results: "[]", meta: '{"m":1}' });
+    await expect(db.studyRevision.create({ data: { studyId: study.id, number: 1, hash: "cd", inputs: "{}", results: "[]", meta: "{}" } })).rejects.toThrow();
+    await db.revisionQuote.create({ data: { revisionId: rev.id, quoteId: q2.id } });
+    expect(await db.revisionQuote.findMany({ where: { quoteId: q2.id } })).toEqual([{ revisionId: rev.id, quoteId: q2.id }]);
+    // A quote an issued revision used cannot be deleted, nor can a study with revisions (Restrict).
+    await expect(db.priceQuote.delete({ where: { id: q2.id } })).rejects.toThrow();
+    await expect(db.study.delete({ where: { id: study.id } })).rejects.toThrow();
+    // Deleting the revision deletes its quote links (Cascade).
+    await db.studyRevision.delete({ where: { id: rev.id } });
+    expect(await db.revisionQuote.count()).toBe(0);
+    await db.study.delete({ where: { id: study.id } });
+  });
 });

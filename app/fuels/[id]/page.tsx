@@ -11,6 +11,7 @@ import { kelvinToCelsius } from "@/lib/units/constants";
 import { fmt, fmtUpTo, pct } from "../../_ui/format";
 import { DeleteButton } from "@/app/_ui/DeleteButton";
 import { PriceHistory } from "../_components/PriceHistory";
+import { QuoteComparison } from "../_components/QuoteComparison";
 import { meteringLabel, meteringReferenceAtC } from "@/lib/units/metering";
 
 export const dynamic = "force-dynamic";
@@ -487,6 +488,9 @@ export default async function FuelSheetPage({ params, searchParams }: Props) {
       )}
 
       <h2 id="prices">Prices</h2>
+      <h3>Current quotes side by side</h3>
+      <QuoteComparison fuelId={fuel.id} carbon={typeof sp.carbon === "string" ? sp.carbon : undefined} currency={typeof sp.currency === "string" ? sp.currency : undefined} />
+      <h3>Price history</h3>
       <PriceHistory fuelId={fuel.id} fuelKind={fuel.kind} prices={sheet.prices} />
 
       {sheet.resolved && (

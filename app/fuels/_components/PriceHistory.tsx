@@ -47,6 +47,7 @@ interface Draft {
   handlingAdder: string;
   validFrom: string;
   sourceNote: string;
+  supplier: string;
   isInvented: boolean;
 }
 
@@ -65,11 +66,12 @@ function emptyDraft(currency: string, kind: string): Draft {
     handlingAdder: "0",
     validFrom: today(),
     sourceNote: "",
+    supplier: "",
     isInvented: false,
   };
 }
 
-const PLACED = new Set(["amount", "currency", "unit", "energyBasis", "meteringReference", "transportAdder", "handlingAdder", "validFrom", "sourceNote", "isInvented"]);
+const PLACED = new Set(["amount", "currency", "unit", "energyBasis", "meteringReference", "transportAdder", "handlingAdder", "validFrom", "sourceNote", "supplier", "isInvented"]);
 
 export function PriceHistory({ fuelId, fuelKind, prices }: { fuelId: number; fuelKind: string; prices: PriceView[] }) {
   const router = useRouter();
@@ -81,6 +83,8 @@ export function PriceHistory({ fuelId, fuelKind, prices }: { fuelId: number; fue
   const [saved, setSaved] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
   const [formOpen, setFormOpen] = useState(prices.length === 0);
+  /** Plausibility warnings the server raised; storing then needs a confirmation. */
+  const [warnings, setWarnings] = useState<string[] | null>(null);
 
   const isEnergy = ENERGY_UNITS.includes(draft.unit);
   const showMetering = fuelKind === "gas" && draft.unit === "m3";
@@ -106,6 +110,7 @@ export function PriceHistory({ fuelId, fuelKind, prices }: { fuelId: number; fue
       handlingAdder: String(q.handlingAdder),
       validFrom: q.validFrom,
       sourceNote: q.sourceNote,
+      supplier: q.supplier,
       isInvented: q.isInvented,
     });
   }
@@ -118,8 +123,8 @@ export function PriceHistory({ fuelId, fuelKind, prices }: { fuelId: number; fue
     setFormOpen(prices.length === 0);
   }
 
-  async function submit(e: React.FormEvent) {
-    e.preventDefault();
+  async function submit(e: React.FormEvent | null, confirmImplausible = false) {
+    e?.preventDefault();
     setBusy(true);
     setSaved(null);
     const body = {
@@ -132,7 +137,9 @@ export function PriceHistory({ fuelId, fuelKind, prices }: { fuelId: number; fue
       handlingAdder: toNumber(draft.handlingAdder) ?? 0,
       validFrom: draft.validFrom,
       sourceNote: draft.sourceNote,
+      supplier: draft.supplier,
       isInvented: draft.isInvented,
+      ...(confirmImplausible ? { confirmImplausible: true } : {}),
     };
     const url = editing === null ? `/api/fuels/${fuelId}/prices` : `/api/fuels/${fuelId}/prices/${editing}`;
     const res = await fetch(url, { method: editing === null ? "POST" : "PUT", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
@@ -141,15 +148,29 @@ export function PriceHistory({ fuelId, fuelKind, prices }: { fuelId: number; fue
     if (!res.ok) {
       setErrors(out.fieldErrors ?? {});
       setMessage(out.error ?? `The server answered ${res.status}.`);
+      setWarnings(Array.isArray(out.warnings) ? out.warnings : null);
       return;
     }
     setErrors({});
     setMessage(null);
-    setSaved(editing === null ? "Quote added." : "Quote corrected.");
+    setWarnings(null);
+    const noted = Array.isArray(out.warnings) && out.warnings.length ? ` Note: ${out.warnings.join("; ")}.` : "";
+    setSaved(`${editing === null ? "Quote added." : `Correction stored as quote #${out.id}; quote #${editing} stays on record, marked superseded.`}${noted}`);
     setEditing(null);
     setDraft(emptyDraft(draft.currency, fuelKind));
     setFormOpen(false);
     router.refresh();
+  }
+
+  async function withdraw(p: PriceView) {
+    if (!window.confirm(`Withdraw the quote of ${p.quote.validFrom}? It stays on record but prices nothing; studies that chose it fall back to their rule.`)) return;
+    const res = await fetch(`/api/fuels/${fuelId}/prices/${p.quote.id}/withdraw`, { method: "POST" });
+    const out = await res.json().catch(() => ({}));
+    if (res.ok) {
+      const affected: { name: string; scenario: string }[] = out.affectedStudies ?? [];
+      setSaved(`Quote #${p.quote.id} withdrawn.${affected.length ? ` Now priced by their rule: ${affected.map((a) => `${a.name} (${a.scenario})`).join(", ")}.` : ""}`);
+      router.refresh();
+    } else setMessage(out.error ?? `Could not withdraw (HTTP ${res.status}).`);
   }
 
   async function remove(p: PriceView) {
@@ -169,7 +190,9 @@ export function PriceHistory({ fuelId, fuelKind, prices }: { fuelId: number; fue
     <>
       <p className="basis">
         Delivered cost = commodity + transport + handling, converted with this fuel&apos;s own heating values (25 °C combustion
-        reference) and density. Newest first; the quote in force today is marked. Currency as quoted.
+        reference) and density. Newest first; the quote in force today is marked. Currency as quoted. A correction adds a new
+        version and keeps the old one (marked superseded); a withdrawn quote stays on record but prices nothing; a quote an issued
+        study revision used cannot be deleted. A price outside the plausible range for its unit asks for a confirmation.
       </p>
       {anyInvented && (
         <p className="note warn">
@@ -216,6 +239,20 @@ export function PriceHistory({ fuelId, fuelKind, prices }: { fuelId: number; fue
                           <span className="badge current">in force</span>
                         </>
                       )}
+                      {p.supersededBy !== null && (
+                        <>
+                          <br />
+                          <span className="badge">superseded by #{p.supersededBy}</span>
+                        </>
+                      )}
+                      {p.withdrawn && (
+                        <>
+                          <br />
+                          <span className="badge">withdrawn {q.withdrawnAt?.slice(0, 10)}</span>
+                        </>
+                      )}
+                      <br />
+                      <small className="muted">#{q.id}{q.supersedesId !== null ? `, corrects #${q.supersedesId}` : ""}</small>
                     </td>
                     <td>
                       <span style={{ whiteSpace: "nowrap" }}>
@@ -240,13 +277,21 @@ export function PriceHistory({ fuelId, fuelKind, prices }: { fuelId: number; fue
                     )}
                     <td style={{ minWidth: "12rem" }}>
                       <small>
+                        {q.supplier && <b>{q.supplier}. </b>}
                         {q.isInvented && <span className="badge invented">invented</span>} {q.sourceNote}
                       </small>
                     </td>
                     <td className="no-print" style={{ whiteSpace: "nowrap" }}>
-                      <button type="button" className="secondary small" onClick={() => startEdit(p)}>
-                        Correct
-                      </button>{" "}
+                      {p.supersededBy === null && !p.withdrawn && (
+                        <>
+                          <button type="button" className="secondary small" onClick={() => startEdit(p)}>
+                            Correct
+                          </button>{" "}
+                          <button type="button" className="secondary small" onClick={() => withdraw(p)}>
+                            Withdraw
+                          </button>{" "}
+                        </>
+                      )}
                       <button type="button" className="danger small" onClick={() => remove(p)}>
                         Delete
                       </button>
@@ -269,15 +314,25 @@ export function PriceHistory({ fuelId, fuelKind, prices }: { fuelId: number; fue
           </button>
         </p>
       ) : (
-        <form className="stack no-print" onSubmit={submit} noValidate style={{ marginTop: "1rem" }} aria-label="Price quote">
+        <form className="stack no-print" onSubmit={(e) => submit(e)} noValidate style={{ marginTop: "1rem" }} aria-label="Price quote">
           <fieldset>
             <legend>{editing === null ? "Add a price quote" : "Correct a price quote"}</legend>
             <ErrorSummary message={message} errors={errors} placed={(k) => PLACED.has(k)} />
+            {warnings && warnings.length > 0 && (
+              <div className="note warn" role="alert" data-testid="implausible-warning">
+                {warnings.map((w) => (
+                  <p key={w}>{w}</p>
+                ))}
+                <button type="button" className="secondary" disabled={busy} onClick={() => submit(null, true)}>
+                  The figure is right: store it
+                </button>
+              </div>
+            )}
             <div className="row" style={{ marginTop: "0.5rem" }}>
               <Field label="Price" name="amount" errors={errors} hint="commodity price per unit">
                 <input id="f-amount" name="amount" inputMode="decimal" className="num" value={draft.amount} onChange={set("amount")} {...invalid(errors, "amount")} />
               </Field>
-              <Field label="Currency" name="currency" errors={errors} hint="ISO code, e.g. EUR">
+              <Field label="Currency" name="currency" errors={errors} hint="ISO 4217 code, e.g. EUR; converted into a study's currency with the exchange-rate table">
                 <input id="f-currency" name="currency" value={draft.currency} onChange={set("currency")} maxLength={3} style={{ textTransform: "uppercase" }} {...invalid(errors, "currency")} />
               </Field>
               <Field label="Per unit" name="unit" errors={errors}>
@@ -326,7 +381,10 @@ export function PriceHistory({ fuelId, fuelKind, prices }: { fuelId: number; fue
                 <input id="f-validFrom" name="validFrom" type="date" value={draft.validFrom} onChange={set("validFrom")} {...invalid(errors, "validFrom")} />
               </Field>
             </div>
-            <Field label="Source" name="sourceNote" errors={errors} hint="supplier, offer reference, index …">
+            <Field label="Supplier" name="supplier" errors={errors} hint="who offers the price (quotes are compared per supplier)">
+              <input id="f-supplier" name="supplier" value={draft.supplier} onChange={set("supplier")} {...invalid(errors, "supplier")} />
+            </Field>
+            <Field label="Source" name="sourceNote" errors={errors} hint="offer reference, index …">
               <input id="f-sourceNote" name="sourceNote" value={draft.sourceNote} onChange={set("sourceNote")} {...invalid(errors, "sourceNote")} />
             </Field>
             <label style={{ display: "inline-flex", gap: "0.4rem", marginTop: "0.5rem", fontWeight: 400 }}>

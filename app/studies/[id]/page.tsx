@@ -15,6 +15,7 @@ import { co2Rows, costRows, failingChecks, headline, metricText, ranked, scatter
 import { METRIC_SHORT, RANKING_METRICS, viewChoice, viewQuery, type SearchParams } from "../_components/settings";
 import { EvaluationProblem } from "../_components/EvaluationProblem";
 import { priceSourceLabel } from "../_components/price-labels";
+import { Revisions } from "../_components/Revisions";
 
 export const dynamic = "force-dynamic";
 
@@ -256,6 +257,8 @@ export default async function ComparisonPage({ params, searchParams }: Props) {
         <Link href={`/studies/${id}/sensitivity${viewQuery(view)}`}>how robust is the ranking?</Link> ·{" "}
         <Link href={`/studies/${id}/report${viewQuery(view)}`}>print the report</Link>
       </p>
+
+      <Revisions id={id} />
 
       <Cautions items={result.cautions.items} screening={result.cautions.screening} />
     </>

@@ -119,13 +119,13 @@ export function RankTable({ list, result, d, metric, links = true, part = "all" 
                 {eco && (
                   <>
                     <td className={hi("cost")} data-col="cost">
-                      {c ? d.costPerEnergy(c.costPerUsefulMWh.total) : "–"}
+                      {c ? d.costPerEnergy(c.costPerUsefulMWh.total) : meta.price.kind === "none" ? <small className="muted" title={priceSourceLabel(meta.price)}>no price: {meta.price.notes[0] ?? `no quote in ${meta.price.currency}`}</small> : "–"}
                     </td>
                     <td className={hi("co2")} data-col="co2">
                       {fmt(co2Ranked(r), 1)}
                     </td>
                     <td className="num">{c ? fmt(c.annualTotalCost, 0) : "–"}</td>
-                    <td className="num">{c ? fmt(c.annualCo2Fossil_t, 0) : "–"}</td>
+                    <td className="num">{fmt(r.annualCo2_t.fossil, 0)}</td>
                     <td className="num">{k ? signed(k.annualNetSaving, 0) : r.isBaseline ? "—" : "–"}</td>
                     <td className="num">{r.isBaseline ? "—" : payback(k?.simplePaybackYears, k !== null)}</td>
                     <td className={hi("npv")}>{k ? signed(k.npv, 0) : r.isBaseline ? "—" : "–"}</td>

@@ -1,17 +1,23 @@
 /** How the study pages name the origin of a price (what lib/services/studies.ts chose and why). */
 import type { HydrogenMeta, PriceSource, QuoteChoice } from "@/lib/services/studies";
 
-export function priceSourceLabel(p: PriceSource): string {
+function baseLabel(p: PriceSource): string {
   switch (p.kind) {
     case "quote":
-      return `quote of ${p.validFrom}`;
+      return `quote #${p.quoteId} of ${p.validFrom}`;
     case "current":
-      return `quote in force (${p.validFrom})`;
+      return `quote #${p.quoteId} of ${p.validFrom} (rule: ${p.rule})`;
     case "components":
-      return "components' quotes in force, mixed per kg";
+      return `components' quotes mixed per kg (rule: ${p.rule})`;
     case "none":
-      return `no quote in ${p.currency}`;
+      return `no cost: no usable quote in ${p.currency} (rule: ${p.rule})`;
   }
+}
+
+/** The price's origin, its rule, and what happened on the way (corrections, withdrawals, conversions). */
+export function priceSourceLabel(p: PriceSource): string {
+  const notes = p.notes ?? [];
+  return notes.length ? `${baseLabel(p)}; ${notes.join("; ")}` : baseLabel(p);
 }
 
 /** The price source with its label, as the API answers it. */

@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/lib/db/client";
-import { evaluateStoredStudy } from "@/lib/services/studies";
+import { studyReportData } from "@/lib/services/revisions";
 import { studyName } from "@/lib/services/lookups";
 import { fmt, fmtUpTo, money } from "../../../_ui/format";
 import { CostStackChart, Co2Chart, CostCo2Scatter } from "../../../_charts/ScenarioCharts";
@@ -118,7 +118,8 @@ export default async function ReportPage({ params, searchParams }: Props) {
   const view = viewChoice(sp);
   const paper = sp.paper === "letter" ? "letter" : "a4";
   const orientation = sp.orient === "landscape" ? "landscape" : "portrait";
-  const [ev, units] = await Promise.all([evaluateStoredStudy(db(), id, { metric: view.metric, includeUpstream: view.includeUpstream, sweep: true, tornado: false }), displayUnits()]);
+  const revision = typeof sp.revision === "string" && /^[1-9]\d{0,8}$/.test(sp.revision) ? Number(sp.revision) : undefined;
+  const [ev, units] = await Promise.all([studyReportData(db(), id, { revision, metric: view.metric, includeUpstream: view.includeUpstream, sweep: true, tornado: false }), displayUnits()]);
   if (!ev.ok) {
     if (ev.kind === "not-found") notFound();
     return <EvaluationProblem id={id} message={ev.message} fieldErrors={ev.fieldErrors} />;
@@ -134,7 +135,8 @@ export default async function ReportPage({ params, searchParams }: Props) {
   const today = new Date().toISOString().slice(0, 10);
   const cover = bundle.study;
   // An issued revision names itself on the cover; the live study is not issued.
-  const revisionText = "live, not issued";
+  const rev = bundle.meta.revision;
+  const revisionText = rev ? `Revision ${rev.number} of ${rev.issuedAt.slice(0, 10)}, SHA-256 ${rev.hash.slice(0, 16)}…` : "live inputs, not an issued revision";
   const layout = { paper: paper === "a4" ? undefined : paper, orient: orientation === "portrait" ? undefined : orientation };
   const sourceTexts = [
     ...result.audit.methods.map((m) => m.source),

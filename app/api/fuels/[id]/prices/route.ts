@@ -16,7 +16,7 @@ export const GET = withErrors(async (_req: Request, ctx: Ctx): Promise<Response>
   return json({
     fuelId: id,
     name: sheet.fuel.name,
-    prices: sheet.prices.map((p) => ({ ...p.quote, unitLabel: p.unitLabel, inForce: p.current, delivered: p.normalised, error: p.error })),
+    prices: sheet.prices.map((p) => ({ ...p.quote, unitLabel: p.unitLabel, inForce: p.current, supersededBy: p.supersededBy, withdrawn: p.withdrawn, delivered: p.normalised, error: p.error })),
   });
 });
 
@@ -28,5 +28,5 @@ export const POST = withErrors(async (req: Request, ctx: Ctx): Promise<Response>
   if (!body.ok) return body.response;
   const r = await addPriceQuote(db(), id, body.value);
   if (!r.ok) return failure(r);
-  return json({ id: r.value.id, fuelId: id }, 201);
+  return json({ id: r.value.id, fuelId: id, warnings: r.value.warnings }, 201);
 });
