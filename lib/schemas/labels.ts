@@ -91,11 +91,6 @@ export const FIELD_LABELS: Readonly<Record<string, string>> = Object.freeze({
   paths: "price and carbon paths over the horizon",
   uncertainty: "uncertainty ranges",
   priceValidOn: "quote in force on",
-  reportTitle: "report title",
-  preparedFor: "prepared for",
-  preparedBy: "prepared by",
-  reportDate: "report date",
-  reportNotes: "notes from the author",
   // library
   kind: "kind",
   definition: "definition",
