@@ -109,7 +109,7 @@ export function worstExit(a: number, b: number): number {
 
 /** The stderr text of a failure: `stoke: <message>` and, with STOKE_DEBUG=1, the stack below. */
 export function failureText(f: Failure): string {
-  return `stoke: ${f.message}\n${f.stack ? f.stack + "\n" : ""}`;
+  return `stoke: ${f.message}\n${f.stack ? `${f.stack}\n` : ""}`;
 }
 
 /** A failure as a single-input command line reports it. */
@@ -140,7 +140,7 @@ export function parseOptions(argv: readonly string[], specs: readonly OptionSpec
     const eq = a.indexOf("=");
     const name = eq > 0 ? a.slice(2, eq) : a.slice(2);
     const spec = specs.find((s) => s.name === name);
-    if (!spec) throw new UsageError(`unknown option --${name} (options: ${specs.map((o) => "--" + o.name).join(", ")})`);
+    if (!spec) throw new UsageError(`unknown option --${name} (options: ${specs.map((o) => `--${o.name}`).join(", ")})`);
     if (name in out) throw new UsageError(`--${name} given twice`);
     if (!spec.value) {
       if (eq > 0) throw new UsageError(`--${name} takes no value`);
@@ -259,5 +259,5 @@ export class StreamSink implements Sink {
 }
 
 export function ok(value: unknown): CliResult {
-  return { stdout: JSON.stringify(value, null, 2) + "\n", stderr: "", exitCode: 0 };
+  return { stdout: `${JSON.stringify(value, null, 2)}\n`, stderr: "", exitCode: 0 };
 }

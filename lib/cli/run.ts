@@ -216,7 +216,7 @@ async function batch(
       const result = impl.compute(input, o);
       if (csv) csv.add([keyValue, ""], impl.csv!(result, o));
       else {
-        const w = io.out.write(JSON.stringify({ ...item.key, ok: true, result }) + "\n");
+        const w = io.out.write(`${JSON.stringify({ ...item.key, ok: true, result })}\n`);
         if (w) await w;
       }
     } catch (e) {
@@ -232,7 +232,7 @@ async function batch(
           ...(f.solver ? { solver: f.solver, diagnostics: f.diagnostics } : {}),
           ...(f.stack ? { stack: f.stack } : {}),
         };
-        const w = io.out.write(JSON.stringify({ ...item.key, ok: false, error }) + "\n");
+        const w = io.out.write(`${JSON.stringify({ ...item.key, ok: false, error })}\n`);
         if (w) await w;
       }
     }

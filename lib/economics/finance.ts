@@ -16,7 +16,7 @@ export function presentValueFactor(discountRatePercent: number, years: number, e
   if (r <= -1) throw new RangeError(`discount rate must be > −100 %, got ${discountRatePercent} %`);
   // Closed form Σ_{t=1..N} (1+g)^(t−1)/(1+r)^t = (1 − ((1+g)/(1+r))^N)/(r − g); the limit r = g is N/(1+r).
   if (Math.abs(r - g) < 1e-12) return years / (1 + r);
-  return (1 - Math.pow((1 + g) / (1 + r), years)) / (r - g);
+  return (1 - ((1 + g) / (1 + r)) ** years) / (r - g);
 }
 
 /** Capital recovery factor: the annual payment that repays 1 over N years at r (% per year). */
@@ -48,7 +48,7 @@ export function netPresentValue(p: CashFlowProfile): number {
 
 /** Cash flow of year t (1-based) of a profile. */
 export function cashFlowInYear(p: CashFlowProfile, year: number): number {
-  return p.escalatingAnnual * Math.pow(1 + p.escalationPercent / 100, year - 1) + p.constantAnnual;
+  return p.escalatingAnnual * (1 + p.escalationPercent / 100) ** (year - 1) + p.constantAnnual;
 }
 
 /**
@@ -70,7 +70,7 @@ export function discountedPaybackYears(p: CashFlowProfile): number | null {
   const r = p.discountRatePercent / 100;
   let cumulative = -p.capex;
   for (let t = 1; t <= p.years; t++) {
-    const pv = cashFlowInYear(p, t) / Math.pow(1 + r, t);
+    const pv = cashFlowInYear(p, t) / (1 + r) ** t;
     if (cumulative + pv >= 0 && pv > 0) return t - 1 + -cumulative / pv;
     cumulative += pv;
   }

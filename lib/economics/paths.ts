@@ -34,7 +34,7 @@ export function pathValues(path: PricePath, level: number, years: number, field:
   const v = new Float64Array(years);
   if (path.kind === "escalation") {
     const g = 1 + path.percentPerYear / 100;
-    for (let t = 0; t < years; t++) v[t] = level * Math.pow(g, t);
+    for (let t = 0; t < years; t++) v[t] = level * g ** t;
     return v;
   }
   const pts = [...path.points].sort((a, b) => a.year - b.year);

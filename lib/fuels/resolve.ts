@@ -70,7 +70,7 @@ export function channiwalaParikhHHV_MJ_per_kg(dryMassPercent: { C: number; H: nu
 
 function speciesOrThrow(key: string, field: string) {
   const sp = SPECIES[key];
-  if (!sp || sp.phase !== "gas") {
+  if (sp?.phase !== "gas") {
     throw new InputError(field, `unknown species "${key}" (known: ${gasSpeciesKeys().join(", ")})`);
   }
   return sp;

@@ -90,7 +90,6 @@ export const FIELD_LABELS: Readonly<Record<string, string>> = Object.freeze({
   overrides: "changes to the operating point and limits",
   paths: "price and carbon paths over the horizon",
   uncertainty: "uncertainty ranges",
-  priceValidOn: "quote in force on",
   // library
   kind: "kind",
   definition: "definition",

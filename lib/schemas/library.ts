@@ -119,7 +119,7 @@ export const isoDateSchema = z
   .trim()
   .regex(/^\d{4}-\d{2}-\d{2}(T00:00:00(\.000)?Z)?$/, "must be a date (YYYY-MM-DD)")
   .refine((s) => {
-    const d = new Date(s.slice(0, 10) + "T00:00:00Z");
+    const d = new Date(`${s.slice(0, 10)}T00:00:00Z`);
     return !Number.isNaN(d.getTime()) && d.toISOString().slice(0, 10) === s.slice(0, 10);
   }, "is not a calendar date")
   .transform((s) => s.slice(0, 10));

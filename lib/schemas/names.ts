@@ -7,6 +7,7 @@
 import { z } from "zod";
 
 /** C0/C1 controls, bidirectional embeddings/overrides/isolates, zero-width and other invisible format characters. */
+// biome-ignore lint/suspicious/noControlCharactersInRegex: matching control characters is this pattern's purpose
 const FORBIDDEN = /[\u0000-\u001f\u007f-\u009f\u200b-\u200f\u202a-\u202e\u2060-\u2064\u2066-\u2069\ufeff]/u;
 
 export function nameSchema(max: number, emptyMessage: string) {

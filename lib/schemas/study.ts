@@ -248,17 +248,23 @@ export const studySchema = z
       }
     };
     checkComponents(s.baseline, ["baseline"]);
-    s.scenarios.forEach((sc, i) => checkComponents(sc, ["scenarios", i]));
+    s.scenarios.forEach((sc, i) => {
+      checkComponents(sc, ["scenarios", i]);
+    });
     const checkCurrency = (price: { currency: string } | null | undefined, path: (string | number)[]) => {
       if (price && price.currency !== s.currency) {
         ctx.addIssue({ code: "custom", path: [...path, "currency"], message: `must be ${s.currency}, the study's currency (a study file carries its prices already converted)` });
       }
     };
     checkCurrency(s.baseline.price, ["baseline", "price"]);
-    s.baseline.componentPrices?.forEach((p, j) => checkCurrency(p, ["baseline", "componentPrices", j]));
+    s.baseline.componentPrices?.forEach((p, j) => {
+      checkCurrency(p, ["baseline", "componentPrices", j]);
+    });
     s.scenarios.forEach((sc, i) => {
       checkCurrency(sc.price, ["scenarios", i, "price"]);
-      sc.componentPrices?.forEach((p, j) => checkCurrency(p, ["scenarios", i, "componentPrices", j]));
+      sc.componentPrices?.forEach((p, j) => {
+        checkCurrency(p, ["scenarios", i, "componentPrices", j]);
+      });
     });
     checkCurrency(s.hydrogenSweep.hydrogenPrice, ["hydrogenSweep", "hydrogenPrice"]);
   });

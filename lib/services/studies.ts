@@ -273,7 +273,7 @@ function build(
       enabled: true,
       stepPercent: settings.sweepStepPercent ?? 1,
       ...(hydrogen ? { hydrogen: effectiveDefinition(hydrogen) } : {}),
-      hydrogenPrice: h2 && h2.quote ? h2.converted.price : null,
+      hydrogenPrice: h2?.quote ? h2.converted.price : null,
     },
     plant: plantInputFromRow(plant),
     baseline: b.input,
@@ -293,7 +293,7 @@ function build(
       fuelId: hydrogen?.id ?? null,
       fuelName: hydrogen?.name ?? null,
       price:
-        h2 && h2.quote
+        h2?.quote
           ? {
               kind: "current",
               quoteId: h2.quote.id,

@@ -124,7 +124,7 @@ export function studyResultToCsv(result: StudyResult, which: CsvTable = "scenari
     return table(["scenario", "check", "label", "status", "value", "limit", "unit", "usage of limit", "message", "basis"], rows);
   }
   const sw = result.hydrogenSweep;
-  if (!sw || !sw.available) return table(["note"], [[sw?.reason ?? "no hydrogen sweep in this evaluation"]]);
+  if (!sw?.available) return table(["note"], [[sw?.reason ?? "no hydrogen sweep in this evaluation"]]);
   return table(
     [
       "H2 vol %",

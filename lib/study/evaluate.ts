@@ -497,8 +497,8 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
   };
   addAll(study.baseline.fuel);
   for (const sc of study.scenarios) addAll(sc.fuel);
-  if (sweep && sweep.available) addAll(study.hydrogenSweep.hydrogen);
-  if (cands.some((c) => c.ctx.key !== base.ctx.key) || (sweep && sweep.available)) {
+  if (sweep?.available) addAll(study.hydrogenSweep.hydrogen);
+  if (cands.some((c) => c.ctx.key !== base.ctx.key) || (sweep?.available)) {
     const bc = cautionsFor(study.baseline.fuel).find((c) => c.hazard === "burner-change");
     if (bc) byHazard.set("burner-change", bc);
   }

@@ -36,7 +36,7 @@ function atShare<T>(points: readonly { h2Percent: number }[], share: number, val
 
 export function sweepAgreement(result: StudyResult): SweepScenarioAgreement[] {
   const sw = result.hydrogenSweep;
-  if (!sw || !sw.available || !sw.points.length) return [];
+  if (!sw?.available || !sw.points.length) return [];
   const out: SweepScenarioAgreement[] = [];
   for (const r of result.scenarios) {
     if (r.fuel.kind !== "gas" || !(r.fuel.h2SharePercent > 0) || r.fuel.h2SharePercent >= 100) continue;

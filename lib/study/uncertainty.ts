@@ -369,7 +369,9 @@ export function uncertaintyRanking(study: Study, options: UncertaintyOptions): U
     // Gather the correlated columns, re-pair them, scatter back.
     const m = corrInputs.length;
     const sub = new Float64Array(draws * m);
-    corrInputs.forEach((j, c) => sub.set(x.subarray(j * draws, (j + 1) * draws), c * draws));
+    corrInputs.forEach((j, c) => {
+      sub.set(x.subarray(j * draws, (j + 1) * draws), c * draws);
+    });
     const target = new Float64Array(m * m);
     for (let a = 0; a < m; a++) target[a * m + a] = 1;
     stated.forEach((c) => {
@@ -378,7 +380,9 @@ export function uncertaintyRanking(study: Study, options: UncertaintyOptions): U
       target[a * m + b] = target[b * m + a] = c.rho;
     });
     imanConover(sub, draws, m, target, rng, explicit.length ? "uncertainty.correlations" : "uncertainty.fuelPriceCorrelation");
-    corrInputs.forEach((j, c) => x.set(sub.subarray(c * draws, (c + 1) * draws), j * draws));
+    corrInputs.forEach((j, c) => {
+      x.set(sub.subarray(c * draws, (c + 1) * draws), j * draws);
+    });
   }
 
   const tSample = performance.now();

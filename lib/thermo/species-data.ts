@@ -347,7 +347,7 @@ export const SPECIES_KEYS: readonly string[] = Object.freeze(species.map((sp) =>
 
 /** The species with this key; throws InputError `species: unknown species "X"` for a key Stoke does not carry. */
 export function speciesByKey(key: string): Nasa7Species {
-  const sp = Object.prototype.hasOwnProperty.call(SPECIES, key) ? SPECIES[key] : undefined;
+  const sp = Object.hasOwn(SPECIES, key) ? SPECIES[key] : undefined;
   if (!sp) throw new InputError("species", `unknown species "${key}"`);
   return sp;
 }

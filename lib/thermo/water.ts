@@ -28,7 +28,7 @@ export function saturationPressurePa(temperatureK: number): number {
   const A = th * th + n[0] * th + n[1];
   const B = n[2] * th * th + n[3] * th + n[4];
   const C = n[5] * th * th + n[6] * th + n[7];
-  const p_MPa = Math.pow((2 * C) / (-B + Math.sqrt(B * B - 4 * A * C)), 4);
+  const p_MPa = ((2 * C) / (-B + Math.sqrt(B * B - 4 * A * C))) ** 4;
   return p_MPa * 1e6;
 }
 
@@ -41,7 +41,7 @@ export function saturationTemperatureK(pressurePa: number): number {
   if (!(pressurePa >= WATER_SATURATION_MIN_PA && pressurePa <= WATER_CRITICAL_PA)) {
     throw new InputError("pressurePa", `${pressurePa} Pa is outside the saturation line of water (${WATER_SATURATION_MIN_PA} Pa – ${WATER_CRITICAL_PA / 1e6} MPa)`);
   }
-  const beta = Math.pow(pressurePa / 1e6, 0.25);
+  const beta = (pressurePa / 1e6) ** 0.25;
   const E = beta * beta + n[2] * beta + n[5];
   const F = n[0] * beta * beta + n[3] * beta + n[6];
   const G = n[1] * beta * beta + n[4] * beta + n[7];

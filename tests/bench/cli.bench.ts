@@ -41,7 +41,7 @@ export function gasBatch(n = 1000): string {
     const rest = 1 - Object.values(composition).reduce((a, b) => a + b, 0);
     lines.push(JSON.stringify({ fuel: { composition: { CH4: r6(rest), ...composition } } }));
   }
-  return lines.join("\n") + "\n";
+  return `${lines.join("\n")}\n`;
 }
 
 export async function benchCli(): Promise<BenchResult[]> {

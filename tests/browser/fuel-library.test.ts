@@ -91,7 +91,7 @@ describe("fuel library in the browser", () => {
     await page.waitForURL(/\/fuels\/\d+$/);
     await page.getByRole("heading", { level: 1, name: /Browser test gas 85\/15/ }).waitFor();
     const hhvRow = page.locator("tr", { has: page.getByRole("rowheader", { name: "Gross (HHV)" }) });
-    const hhvPerKg = Number((await hhvRow.locator("td").first().innerText()).replace(/,/g, ""));
+    const hhvPerKg = Number(((await hhvRow.locator("td").first().textContent()) ?? "").replace(/,/g, ""));
     // ISO 6976:2016 (Table 3, confirmed), 25 °C: methane GCV 890.58
     // kJ/mol, M(CH4) 16.04246, M(N2) 28.0134 g/mol → 0.85·890.58 / (0.85·16.04246 + 0.15·28.0134) = 42.44 MJ/kg.
     expect(hhvPerKg).toBeCloseTo((0.85 * 890.58) / (0.85 * 16.04246 + 0.15 * 28.0134), 1);
@@ -104,7 +104,7 @@ describe("fuel library in the browser", () => {
     await page.getByLabel("Energy basis").selectOption("");
     await page.getByRole("button", { name: "Add quote" }).click();
     await page.locator("#err-energyBasis").waitFor();
-    expect(await page.locator("#err-energyBasis").innerText()).toMatch(/gross \(HHV\) or net \(LHV\)/);
+    expect(await page.locator("#err-energyBasis").textContent()).toMatch(/gross \(HHV\) or net \(LHV\)/);
     await page.getByLabel("Energy basis").selectOption("gross");
     await page.getByRole("button", { name: "Add quote" }).click();
     await page.getByText("Quote added.").waitFor();
@@ -123,8 +123,8 @@ describe("fuel library in the browser", () => {
     await page.getByRole("button", { name: "Save fuel" }).click();
     const err = page.locator('[id="err-definition.composition"]');
     await err.waitFor();
-    expect(await err.innerText()).toMatch(/must sum to 1.*1\.2000/);
-    expect(await page.getByRole("alert").first().innerText()).toMatch(/nothing was saved/i);
+    expect(await err.textContent()).toMatch(/must sum to 1.*1\.2000/);
+    expect(await page.getByRole("alert").first().textContent()).toMatch(/nothing was saved/i);
     expect(page.url()).toBe(`${base}/fuels/new`);
     const after = await fuelNames();
     expect(after).toEqual(before);

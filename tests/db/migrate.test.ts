@@ -13,7 +13,9 @@ function tmp(): string {
   dirs.push(d);
   return d;
 }
-afterAll(() => dirs.forEach((d) => fs.rmSync(d, { recursive: true, force: true })));
+afterAll(() => {
+  for (const d of dirs) fs.rmSync(d, { recursive: true, force: true });
+});
 
 describe("migration runner", () => {
   it("creates the file and its folder, applies every migration once, records it as Prisma does", () => {

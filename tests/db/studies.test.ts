@@ -27,7 +27,7 @@ const record = () => ({
   scenarios: [
     { name: "H2 10", fuelId: fuel["Natural gas + 10 % H2"], capex: 50000 },
     { name: "H2 30", fuelId: fuel["Natural gas + 30 % H2"], capex: 300000 },
-    { name: "Bio", fuelId: fuel["Biomethane"] },
+    { name: "Bio", fuelId: fuel.Biomethane },
   ],
 });
 
@@ -87,7 +87,7 @@ describe("studies", () => {
   });
 
   it("refuses a price quote of another fuel, and one in another currency", async () => {
-    const h2Quote = await t.client.priceQuote.findFirstOrThrow({ where: { fuelId: fuel["Hydrogen"] } });
+    const h2Quote = await t.client.priceQuote.findFirstOrThrow({ where: { fuelId: fuel.Hydrogen } });
     const bad = record();
     bad.name = "Wrong quote";
     (bad.scenarios[2] as Record<string, unknown>).priceQuoteId = h2Quote.id;
@@ -97,7 +97,7 @@ describe("studies", () => {
     const usd = record();
     usd.name = "Dollars";
     usd.currency = "USD";
-    const bioQuote = await t.client.priceQuote.findFirstOrThrow({ where: { fuelId: fuel["Biomethane"] } });
+    const bioQuote = await t.client.priceQuote.findFirstOrThrow({ where: { fuelId: fuel.Biomethane } });
     (usd.scenarios[2] as Record<string, unknown>).priceQuoteId = bioQuote.id;
     const r2 = await createStudy(t.client, usd);
     expect(r2.ok).toBe(false);

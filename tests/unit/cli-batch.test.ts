@@ -33,7 +33,7 @@ const LINES = [
   "{not json",
   JSON.stringify({ fuel: { composition: { CH4: 0.9, H2: 0.1 } }, meteringReferenceC: 0 }),
 ];
-const NDJSON = LINES.join("\n") + "\n";
+const NDJSON = `${LINES.join("\n")}\n`;
 
 describe("NDJSON batch", () => {
   it("answers every non-blank line in order with its line number; bad lines name line and field; exit 2", async () => {
@@ -198,7 +198,7 @@ describe("CSV output", () => {
     const name = '=HYPERLINK("x"), "quoted"\nnext';
     const r = await run(["properties", "--input", "-", "--format", "csv"], JSON.stringify({ fuel: { composition: { CH4: 1 }, name } }));
     const [header, row] = parse(r.stdout) as string[][];
-    expect(row[header.indexOf("fuel")]).toBe("'" + name);
+    expect(row[header.indexOf("fuel")]).toBe(`'${name}`);
     const [, cells] = parse(
       toCsv({ header: ["a", "b", "c", "d", "e"], rows: [[-3.25, "-3.25", "@SUM(A1)", Number.NaN, null]] }),
     ) as string[][];

@@ -91,7 +91,9 @@ function elementBalanceError(p: { elementMoles: Partial<Record<Element, number>>
     const b0 = p.elementMoles[el] ?? 0;
     if (b0 === 0) continue;
     let b = 0;
-    r.species.forEach((key, k) => (b += (SPECIES[key].elements[el] ?? 0) * r.moles[k]));
+    r.species.forEach((key, k) => {
+      b += (SPECIES[key].elements[el] ?? 0) * r.moles[k];
+    });
     worst = Math.max(worst, Math.abs(b - b0) / b0);
   }
   return worst;

@@ -281,7 +281,9 @@ describe("example study for the demo plant", () => {
 });
 
 describe("bad input: exit 2, one line naming the field", () => {
-  const cases: [string, (s: Record<string, any>) => void, RegExp][] = [
+  // biome-ignore lint/suspicious/noExplicitAny: each case pokes one path of a parsed JSON study file
+  type Doc = any;
+  const cases: [string, (s: Doc) => void, RegExp][] = [
     ["mole fractions", (s) => (s.scenarios[3].fuel.composition.CH4 = 0.5), /^stoke: scenarios\.3\.fuel\.composition: /],
     ["a number", (s) => (s.plant.flueO2DryPercent = "x"), /^stoke: plant\.flueO2DryPercent: must be a number/],
     ["a gas priced per litre", (s) => (s.scenarios[3].price = { amount: 1, currency: "EUR", unit: "L" }), /^stoke: scenarios\.3\.price\.unit: /],
@@ -293,7 +295,7 @@ describe("bad input: exit 2, one line naming the field", () => {
   ];
   for (const [what, mutate, pattern] of cases) {
     it(what, () => {
-      const s = example() as Record<string, any>;
+      const s: Doc = example();
       mutate(s);
       const r = runEvaluate(["--input", "-"], () => JSON.stringify(s));
       expect(r.exitCode).toBe(2);

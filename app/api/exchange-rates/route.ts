@@ -17,7 +17,7 @@ export const POST = withErrors(async (req: Request): Promise<Response> => {
   const format = url.searchParams.get("format") ?? (type.includes("csv") ? "csv" : null);
   if (format !== null && format !== "csv" && format !== "json")
     return json({ error: "format must be json or csv", fieldErrors: { format: "must be json or csv" } }, 400);
-  let r;
+  let r: Awaited<ReturnType<typeof addExchangeRates>>;
   if (format) r = await addExchangeRates(db(), { text: await req.text(), format });
   else {
     const body = await readJson(req);

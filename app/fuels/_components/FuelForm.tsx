@@ -450,7 +450,7 @@ export function FuelForm({ options, initial }: { options: FuelFormOptions; initi
           <legend>Blend</legend>
           {candidates.length < 2 ? (
             <p className="note warn">
-              A blend is built from stored {kind === "gas" ? "gases" : kind + "s"}; there are fewer than two. <Link href="/fuels/new">Add the components first</Link>.
+              A blend is built from stored {kind === "gas" ? "gases" : `${kind}s`}; there are fewer than two. <Link href="/fuels/new">Add the components first</Link>.
             </p>
           ) : null}
           <Field label="Shares by" name="blend.basis" errors={errors} htmlFor="f-basis">

@@ -39,7 +39,7 @@ export default async function PlantPage({ params }: Props) {
   const d = makeDisplay(units, "");
   const p = rec.plant;
   const cautions = fuelRow ? cautionsFor(effectiveDefinition(fuelRow)).filter((c) => c.hazard !== "burner-change") : [];
-  const b = base && base.ok ? base.value : null;
+  const b = base?.ok ? base.value : null;
 
   return (
     <>
@@ -214,7 +214,7 @@ export default async function PlantPage({ params }: Props) {
         <ul>
           {rec.studies.map((s) => (
             <li key={s.id}>
-              <Link href={`/studies/${s.id}`}>{s.name}</Link> <span className="muted">({s.scenarioCount - 1 >= 0 ? s.scenarioCount - 1 : 0} candidates)</span>
+              <Link href={`/studies/${s.id}`}>{s.name}</Link> <span className="muted">({Math.max(s.scenarioCount - 1 , 0)} candidates)</span>
             </li>
           ))}
         </ul>

@@ -71,7 +71,7 @@ export default async function ComparisonPage({ params, searchParams }: Props) {
         <UnitSwitch units={units} />
       </div>
 
-      <div className="assumptions" aria-label="Study assumptions">
+      <section className="assumptions" aria-label="Study assumptions">
         <span>
           Useful heat <b>{d.energy(result.duty.annualUseful_MWh)} {d.energyUnit}/yr</b>
         </span>
@@ -90,7 +90,7 @@ export default async function ComparisonPage({ params, searchParams }: Props) {
         <span>
           Baseline <b>{base.name}</b>
         </span>
-      </div>
+      </section>
 
       {bundle.meta.anyInventedPrice && (
         <p className="note warn">

@@ -23,6 +23,7 @@ export function UnitSwitch({ units, groups = ["energy", "temperature", "volume"]
   const router = useRouter();
   const [pending, start] = useTransition();
   const set = (next: DisplayUnits) => {
+    // biome-ignore lint/suspicious/noDocumentCookie: a display preference the server reads; the Cookie Store API is not in every browser yet
     document.cookie = `${UNITS_COOKIE}=${encodeURIComponent(formatDisplayUnits(next))}; path=/; max-age=31536000; samesite=lax`;
     start(() => router.refresh());
   };

@@ -94,7 +94,7 @@ export async function buildCli() {
   if (map) writeAtomic(map.path, map.contents);
   // The bundle before its description: a reader that sees the new id finds the new bundle.
   writeAtomic(OUT_FILE, text);
-  writeAtomic(BUILD_FILE, JSON.stringify({ id, inputs: ["package.json", ...own] }) + "\n");
+  writeAtomic(BUILD_FILE, `${JSON.stringify({ id, inputs: ["package.json", ...own] })}\n`);
   return { id, bytes: text.length, inputs: inputs.length };
 }
 

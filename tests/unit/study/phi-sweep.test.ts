@@ -56,7 +56,9 @@ describe("phi sweep", () => {
   it("preheated air raises every point", () => {
     const hot = phiSweep({ fuel: { composition: { CH4: 1 } }, oxidizerTemperatureK: 573.15, steps: 4, phiMin: 0.8, phiMax: 1.2 });
     const cold = phiSweep({ fuel: { composition: { CH4: 1 } }, steps: 4, phiMin: 0.8, phiMax: 1.2 });
-    hot.points.forEach((p, i) => expect(p.equilibriumK!).toBeGreaterThan(cold.points[i].equilibriumK! + 100));
+    hot.points.forEach((p, i) => {
+      expect(p.equilibriumK!).toBeGreaterThan(cold.points[i].equilibriumK! + 100);
+    });
   });
 
   it("a liquid fed above its boiling point is refused once, naming fuelTemperatureK; below it the sweep runs", () => {

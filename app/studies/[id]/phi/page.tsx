@@ -26,7 +26,8 @@ declare global {
   var __stokePhiSweeps: Map<string, PlantPhiSweep> | undefined;
 }
 function cached(key: string, compute: () => PlantPhiSweep): PlantPhiSweep {
-  const m = (globalThis.__stokePhiSweeps ??= new Map());
+  if (!globalThis.__stokePhiSweeps) globalThis.__stokePhiSweeps = new Map();
+  const m = globalThis.__stokePhiSweeps;
   const hit = m.get(key);
   if (hit) return hit;
   const v = compute();

@@ -130,7 +130,7 @@ export default async function ReportPage({ params, searchParams }: Props) {
   const list = ranked(result, bundle);
   const h = headline(list);
   const p = result.plant;
-  const sw = result.hydrogenSweep && result.hydrogenSweep.available ? result.hydrogenSweep : null;
+  const sw = result.hydrogenSweep?.available ? result.hydrogenSweep : null;
   const swFails = sw ? sweepVerdict(sw.points, sw.crossings).firstFailures : [];
   const today = new Date().toISOString().slice(0, 10);
   const cover = bundle.study;
@@ -266,7 +266,7 @@ export default async function ReportPage({ params, searchParams }: Props) {
             )}
             <li>
               <b>Infeasible in this plant:</b>{" "}
-              {h.infeasible.length === 0 ? "none." : h.infeasible.map((x) => `${x.r.name} (fails ${failingChecks(x.r).join("; ")})`).join("; ") + "."}
+              {h.infeasible.length === 0 ? "none." : `${h.infeasible.map((x) => `${x.r.name} (fails ${failingChecks(x.r).join("; ")})`).join("; ")}.`}
             </li>
             {sw && (
               <li>

@@ -50,7 +50,7 @@ export default async function SweepPage({ params, searchParams }: Props) {
   const { result, bundle } = ev;
   const d: Display = makeDisplay(units, result.study.currency);
   const sw = result.hydrogenSweep;
-  if (!sw || !sw.available) {
+  if (!sw?.available) {
     return (
       <>
         <h2 style={{ marginTop: 0 }}>Hydrogen-share sweep</h2>
