@@ -63,6 +63,8 @@ export interface FlameSpeedState {
   inletDensity_kg_per_m3: number;
   /** Inlet mass fractions of that solution. */
   inletY: Float64Array;
+  /** The equilibrium estimate of its burnt state (the start's end state). */
+  burntEstimate: { temperatureK: number; Y: Float64Array };
   mechanism: string;
 }
 
@@ -209,7 +211,7 @@ export function computeFlameSpeed(input: FlameSpeedInput, opts: FlameSpeedOption
   let run: ReturnType<typeof solvePremixed>;
   const ws = opts.warmStart;
   if (ws && ws.mechanism === mech.name) {
-    const guess = warmStart(prob, ws.flame, ws.unburntTemperatureK, ws.inletY, ws.inletDensity_kg_per_m3, rhoU, burnt);
+    const guess = warmStart(prob, ws.flame, ws.unburntTemperatureK, ws.inletY, ws.burntEstimate, ws.inletDensity_kg_per_m3, rhoU, burnt);
     const retryable = (e: unknown) => e instanceof NotConvergedError && !e.diagnostics.cancelled;
     try {
       // a near neighbour: Newton on its grid, at most one round of pseudo-time steps
@@ -325,7 +327,7 @@ export function computeFlameSpeed(input: FlameSpeedInput, opts: FlameSpeedOption
       burntMinusEquilibriumK: Tb - eq.temperatureK,
       refinementHistory: run.velocityHistory.map((h) => ({ gridPoints: h.gridPoints, burningVelocity_cm_per_s: 100 * h.burningVelocity_m_per_s })),
     },
-    solution: { flame: sol, unburntTemperatureK: Tu, inletDensity_kg_per_m3: rhoU, inletY, mechanism: mech.name },
+    solution: { flame: sol, unburntTemperatureK: Tu, inletDensity_kg_per_m3: rhoU, inletY, burntEstimate: burnt, mechanism: mech.name },
     diagnostics: { ...run.stats, refinementPasses: run.refinementPasses, ...(cpu ? { cpuSeconds: (cpu.user + cpu.system) / 1e6 } : {}) },
     notes: [...FLAME_SPEED_NOTES, ...mix.notes],
   };

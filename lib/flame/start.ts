@@ -74,33 +74,44 @@ export function coldStart(prob: PremixedProblem, burnt: BurntState, burningVeloc
  * Warm start from a neighbouring solution (another φ, hydrogen share, preheat, pressure …): its grid
  * and flame structure, moved onto the new problem's end states. With w the old solution's progress
  * (T − T_u,old)/(T_end,old − T_u,old) at each point, the new profiles are
- *   T = T_u + w (T_b − T_u),   Y = Y_old + (1 − w)(Y_u − Y_u,old) + w (Y_b − Y_end,old),
- * so the inlet is the new fresh mixture and the burnt end the new equilibrium estimate, with the
- * old intermediates in between. ṁ is scaled by the ratio of the inlet densities (same velocity);
+ *   T = T_old + (1 − w)(T_u − T_u,old) + w (T_b − T_b,old),
+ *   Y = Y_old + (1 − w)(Y_u − Y_u,old) + w (Y_b − Y_b,old),
+ * where Y_b − Y_end,old is taken as the change of the equilibrium estimates of the burnt state
+ * (new minus the neighbour's), and likewise for T_b; the inlet is the new fresh mixture, and the
+ * neighbour's own solution is left unchanged where nothing changed. ṁ is scaled by the ratio of the inlet densities (same velocity);
  * the anchor keeps its position and its progress value.
  */
-export function warmStart(prob: PremixedProblem, from: FlameSolution, fromUnburntK: number, fromInletY: Float64Array, fromInletDensity: number, newInletDensity: number, burnt: BurntState): FlameSolution {
+export function warmStart(
+  prob: PremixedProblem,
+  from: FlameSolution,
+  fromUnburntK: number,
+  fromInletY: Float64Array,
+  fromBurnt: BurntState,
+  fromInletDensity: number,
+  newInletDensity: number,
+  burnt: BurntState,
+): FlameSolution {
   const K = prob.mech.nSpecies;
   if (from.nSpecies !== K) throw new Error("warm start from a solution of another mechanism");
   const n = K + 2;
   const x = Float64Array.from(from.x);
   const N = from.z.length;
   const Tu = prob.unburntTemperatureK;
-  const Tb = burnt.temperatureK;
-  const oe = (N - 1) * n;
-  const TbOld = from.x[oe];
+  const TbOld = from.x[(N - 1) * n];
   const progress = (T: number) => Math.min(1, Math.max(0, (T - fromUnburntK) / Math.max(1, TbOld - fromUnburntK)));
+  const dTu = Tu - fromUnburntK;
+  const dTb = burnt.temperatureK - fromBurnt.temperatureK;
   for (let j = 0; j < N; j++) {
     const o = j * n;
     const w = progress(from.x[o]);
-    x[o] = Tu + w * (Tb - Tu);
+    x[o] = from.x[o] + (1 - w) * dTu + w * dTb;
     for (let k = 0; k < K; k++) {
-      x[o + 1 + k] = from.x[o + 1 + k] + (1 - w) * (prob.inletY[k] - fromInletY[k]) + w * (burnt.Y[k] - from.x[oe + 1 + k]);
+      x[o + 1 + k] = from.x[o + 1 + k] + (1 - w) * (prob.inletY[k] - fromInletY[k]) + w * (burnt.Y[k] - fromBurnt.Y[k]);
     }
     x[o + K + 1] *= newInletDensity / fromInletDensity;
   }
   const wFix = progress(from.tFix);
-  return { z: Float64Array.from(from.z), x, nSpecies: K, zFix: from.zFix, tFix: Tu + wFix * (Tb - Tu), speciesNames: from.speciesNames };
+  return { z: Float64Array.from(from.z), x, nSpecies: K, zFix: from.zFix, tFix: from.tFix + (1 - wFix) * dTu + wFix * dTb, speciesNames: from.speciesNames };
 }
 
 /**

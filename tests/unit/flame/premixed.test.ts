@@ -46,11 +46,12 @@ describe("methane/air flames at 298 K, 1 atm", () => {
     within(rich.burningVelocity_cm_per_s, 31.5, 0.12);
   }, T);
 
-  it("conserves mass exactly and the elements to 2 % between the inlet and the burnt end", () => {
-    // ΣY = 1 follows from the equations; the element balance closes only as the grid is refined
-    // (upwind convection on a non-uniform grid), 2 % is the claim for this moderate grid (common practice, no source)
+  it("conserves mass and every element between the inlet and the burnt end, and the enthalpy to 1 %", () => {
+    // ΣY = 1 and the element fluxes follow exactly from the conservative (finite-volume) equations;
+    // the energy equation is solved for T, so the enthalpy balance holds to the discretisation error
+    // (1 % claimed on this moderate grid: common practice, no source)
     expect(r1.checks.massFractionSumMaxError).toBeLessThan(1e-9);
-    expect(r1.checks.elementBalanceMaxRelError).toBeLessThan(0.02);
+    expect(r1.checks.elementBalanceMaxRelError).toBeLessThan(1e-9);
     expect(Math.abs(r1.checks.enthalpyBalanceRelError)).toBeLessThan(0.01);
   });
 
@@ -66,7 +67,6 @@ describe("methane/air flames at 298 K, 1 atm", () => {
     const fine = computeFlameSpeed({ fuel: CH4, phi: 1, grid: { slope: 0.05, curve: 0.1 } }, { warmStart: r1.solution });
     expect(fine.gridPoints).toBeGreaterThan(r1.gridPoints * 1.4);
     expect(Math.abs(fine.burningVelocity_cm_per_s / r1.burningVelocity_cm_per_s - 1)).toBeLessThan(0.01);
-    expect(fine.checks.elementBalanceMaxRelError).toBeLessThan(r1.checks.elementBalanceMaxRelError);
   }, T);
 
   it("rises with preheat like (T_u/298 K)^α with α within 1.3–2.1", () => {
