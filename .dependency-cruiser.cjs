@@ -6,10 +6,27 @@
  * A module may import its own layer and the layers listed before it, never one after it; with
  * lib/db, lib/cli and app/ held to their own rules below, no two folders of lib/ can form a cycle.
  */
-const LAYERS = ["units", "errors", "formats", "schemas", "thermo", "fuels", "combustion", "flame", "plant", "economics", "study", "services", "cli"];
+const LAYERS = [
+  "units",
+  "errors",
+  "formats",
+  "schemas",
+  "thermo",
+  "fuels",
+  "combustion",
+  "flame",
+  "plant",
+  "economics",
+  "study",
+  "services",
+  "cli",
+];
 const layerPath = (name) => (name === "errors" ? "^lib/errors\\.ts$" : `^lib/${name}/`);
 
-const higherThan = (i) => LAYERS.slice(i + 1).map(layerPath).join("|");
+const higherThan = (i) =>
+  LAYERS.slice(i + 1)
+    .map(layerPath)
+    .join("|");
 
 /** The first layer that may read and write the database (through lib/db). */
 const DB_FROM = LAYERS.indexOf("services");
@@ -60,7 +77,11 @@ module.exports = {
     exclude: { path: "\\.next/" },
     tsPreCompilationDeps: true,
     tsConfig: { fileName: "tsconfig.json" },
-    enhancedResolveOptions: { exportsFields: ["exports"], conditionNames: ["import", "require", "node", "default"], extensions: [".ts", ".tsx", ".js", ".mjs", ".cjs", ".json"] },
+    enhancedResolveOptions: {
+      exportsFields: ["exports"],
+      conditionNames: ["import", "require", "node", "default"],
+      extensions: [".ts", ".tsx", ".js", ".mjs", ".cjs", ".json"],
+    },
     reporterOptions: { text: { highlightFocused: true } },
   },
 };

@@ -12,17 +12,17 @@ export default async function HomePage() {
     <>
       <h1>Stoke</h1>
       <p className="lede" style={{ fontSize: "1.05rem", color: "var(--ink)" }}>
-        Stoke helps plant managers, energy engineers, buyers and consultants decide whether a fired unit — a steam or hot-water
-        boiler, thermal-oil heater, furnace, kiln or dryer — should switch fuel: which fuel or blend, at what share, is feasible
-        for the equipment and cheapest per unit of useful heat, and what it does to CO2.
+        Stoke helps plant managers, energy engineers, buyers and consultants decide whether a fired unit — a steam or hot-water boiler,
+        thermal-oil heater, furnace, kiln or dryer — should switch fuel: which fuel or blend, at what share, is feasible for the equipment
+        and cheapest per unit of useful heat, and what it does to CO2.
       </p>
 
       <div className="grid2" style={{ marginTop: "1.25rem" }}>
         <section className="panel">
           <h2 style={{ marginTop: 0 }}>Fuel library</h2>
           <p>
-            {fuelCount} fuels and blends with {quoteCount} price quotes. Heating values on every basis, Wobbe index, flue gas,
-            flame temperature, CO2 and delivered cost per MWh from quotes in any unit.
+            {fuelCount} fuels and blends with {quoteCount} price quotes. Heating values on every basis, Wobbe index, flue gas, flame
+            temperature, CO2 and delivered cost per MWh from quotes in any unit.
           </p>
           <p className="row">
             <Link className="button" href="/fuels">
@@ -52,7 +52,8 @@ export default async function HomePage() {
                       )}
                     </th>
                     <td>
-                      {EQUIPMENT_TYPE_LABELS[p.equipmentType as EquipmentType] ?? p.equipmentType}, {fmt(p.ratedInput_kW / 1000, 1)} MW input
+                      {EQUIPMENT_TYPE_LABELS[p.equipmentType as EquipmentType] ?? p.equipmentType}, {fmt(p.ratedInput_kW / 1000, 1)} MW
+                      input
                       {p.baselineFuel && (
                         <>
                           , on <Link href={`/fuels/${p.baselineFuel.id}`}>{p.baselineFuel.name}</Link>
@@ -66,9 +67,7 @@ export default async function HomePage() {
             </table>
           )}
           {plants.some((p) => p.isDemo) && (
-            <p className="basis">
-              The demo site{plants[0]?.site ? ` — ${plants[0].site}` : ""} — and all its prices are invented.
-            </p>
+            <p className="basis">The demo site{plants[0]?.site ? ` — ${plants[0].site}` : ""} — and all its prices are invented.</p>
           )}
         </section>
       </div>

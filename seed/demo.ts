@@ -48,7 +48,15 @@ export const DEMO_FUELS: DemoFuel[] = [
     notes: "The creamery's present fuel for both boilers (grid gas, high-calorific group).",
     source: TYPICAL,
     prices: [
-      { amount: 13.2, currency: "EUR", unit: "MMBtu", energyBasis: "gross", transportAdder: 1.9, validFrom: "2024-07-01", sourceNote: "Invented demo price — an older offer quoted per MMBtu." },
+      {
+        amount: 13.2,
+        currency: "EUR",
+        unit: "MMBtu",
+        energyBasis: "gross",
+        transportAdder: 1.9,
+        validFrom: "2024-07-01",
+        sourceNote: "Invented demo price — an older offer quoted per MMBtu.",
+      },
       { amount: 38.5, currency: "EUR", unit: "MWh", energyBasis: "gross", transportAdder: 6.2, validFrom: "2025-01-01" },
     ],
   },
@@ -62,19 +70,47 @@ export const DEMO_FUELS: DemoFuel[] = [
   },
   {
     name: "Natural gas + 10 % H2",
-    blend: { basis: "volume", components: [{ fuel: NG, share: 0.9 }, { fuel: H2, share: 0.1 }] },
+    blend: {
+      basis: "volume",
+      components: [
+        { fuel: NG, share: 0.9 },
+        { fuel: H2, share: 0.1 },
+      ],
+    },
     notes: "Blend of the pipeline gas with 10 vol % hydrogen.",
     prices: [],
   },
   {
     name: "Natural gas + 20 % H2",
-    blend: { basis: "volume", components: [{ fuel: NG, share: 0.8 }, { fuel: H2, share: 0.2 }] },
+    blend: {
+      basis: "volume",
+      components: [
+        { fuel: NG, share: 0.8 },
+        { fuel: H2, share: 0.2 },
+      ],
+    },
     notes: "Blend of the pipeline gas with 20 vol % hydrogen.",
-    prices: [{ amount: 52.0, currency: "EUR", unit: "MWh", energyBasis: "gross", transportAdder: 6.2, validFrom: "2025-03-01", sourceNote: "Invented demo price — blended-gas supply offer." }],
+    prices: [
+      {
+        amount: 52.0,
+        currency: "EUR",
+        unit: "MWh",
+        energyBasis: "gross",
+        transportAdder: 6.2,
+        validFrom: "2025-03-01",
+        sourceNote: "Invented demo price — blended-gas supply offer.",
+      },
+    ],
   },
   {
     name: "Natural gas + 30 % H2",
-    blend: { basis: "volume", components: [{ fuel: NG, share: 0.7 }, { fuel: H2, share: 0.3 }] },
+    blend: {
+      basis: "volume",
+      components: [
+        { fuel: NG, share: 0.7 },
+        { fuel: H2, share: 0.3 },
+      ],
+    },
     notes: "Blend of the pipeline gas with 30 vol % hydrogen.",
     prices: [],
   },
@@ -159,7 +195,11 @@ export const DEMO_FUELS: DemoFuel[] = [
   },
   {
     name: "Heavy fuel oil",
-    definition: { ultimate: { C: 0.8645, H: 0.11, O: 0.005, N: 0.005, S: 0.01, moisture: 0.005, ash: 0.0005 }, kind: "liquid", lhv_MJ_per_kg: 40.4 },
+    definition: {
+      ultimate: { C: 0.8645, H: 0.11, O: 0.005, N: 0.005, S: 0.01, moisture: 0.005, ash: 0.0005 },
+      kind: "liquid",
+      lhv_MJ_per_kg: 40.4,
+    },
     densityKgPerM3: 980,
     notes: "Residual fuel oil, 1 % sulfur; needs heated storage and atomisation.",
     source: TYPICAL,
@@ -224,7 +264,8 @@ export const DEMO_PLANTS: DemoPlant[] = [
       ...boilerCommon,
       operatingHours: 7800,
       averageLoadFraction: 0.65,
-      notes: "Fire-tube steam boiler, 12 bar, economiser fitted. The burner maker states 20 vol % hydrogen as the limit without a burner change (invented).",
+      notes:
+        "Fire-tube steam boiler, 12 bar, economiser fitted. The burner maker states 20 vol % hydrogen as the limit without a burner change (invented).",
     },
   },
   {
@@ -282,14 +323,21 @@ export const DEMO_STUDIES: DemoStudy[] = [
       horizonYears: 15,
       priceEscalationPercent: 2,
       rankingMetric: "cost-per-useful-MWh",
-      notes: "Can Boiler 1 take hydrogen from the planned local electrolyser, and is biomethane cheaper per tonne of CO2 avoided? All costs invented.",
+      notes:
+        "Can Boiler 1 take hydrogen from the planned local electrolyser, and is biomethane cheaper per tonne of CO2 avoided? All costs invented.",
     },
     scenarios: [
       { name: "Natural gas (today)", fuel: NG, isBaseline: true },
       { name: "10 % hydrogen", fuel: "Natural gas + 10 % H2", capex: 60000, fixedOpexChange: 4000 },
       { name: "20 % hydrogen", fuel: "Natural gas + 20 % H2", capex: 180000, fixedOpexChange: 6000 },
       // The new burner is rated for 30 % H2 by its (invented) maker; the existing gas train's Wobbe band still applies.
-      { name: "30 % hydrogen, new burner", fuel: "Natural gas + 30 % H2", capex: 420000, fixedOpexChange: 8000, overrides: { maxH2SharePercent: 30 } },
+      {
+        name: "30 % hydrogen, new burner",
+        fuel: "Natural gas + 30 % H2",
+        capex: 420000,
+        fixedOpexChange: 8000,
+        overrides: { maxH2SharePercent: 30 },
+      },
       { name: "Biomethane", fuel: "Biomethane" },
     ],
   },

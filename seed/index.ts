@@ -75,7 +75,12 @@ export async function seedIfEmpty(db: Db): Promise<SeedOutcome> {
     }
     for (const s of DEMO_STUDIES) {
       const study = await tx.study.create({
-        data: { plantId: plantIds.get(s.plant)!, name: s.name, ...(s.fields as { currency: string; discountRatePercent: number; horizonYears: number; rankingMetric: string }), isDemo: true },
+        data: {
+          plantId: plantIds.get(s.plant)!,
+          name: s.name,
+          ...(s.fields as { currency: string; discountRatePercent: number; horizonYears: number; rankingMetric: string }),
+          isDemo: true,
+        },
       });
       for (const [position, sc] of s.scenarios.entries()) {
         const fuelId = ids.get(sc.fuel)!;

@@ -43,19 +43,68 @@ export function SweepChart({ title, yUnit, data, limits = [], band, markers = []
       </figcaption>
       <LineChart data={data} responsive style={{ width: "100%", height: 250 }} margin={{ top: 22, right: 16, bottom: 26, left: 4 }}>
         <CartesianGrid stroke={CHART_COLOURS.grid} />
-        <XAxis tickMargin={AXIS_TICK_MARGIN} type="number" dataKey="x" domain={[0, 100]} ticks={[0, 20, 40, 60, 80, 100]} tick={axisTick} label={{ value: "H2 vol %", position: "insideBottom", offset: -16, fontSize: 12 }} />
-        <YAxis type="number" domain={yAxis.domain} ticks={yAxis.ticks} tick={axisTick} tickFormatter={yAxis.format} width={58} allowDataOverflow={false} />
-        {band && <ReferenceArea y1={band.min} y2={band.max} ifOverflow="extendDomain" fill={CHART_COLOURS.pass} fillOpacity={0.08} stroke="none" label={{ value: band.label, position: "insideTopRight", fontSize: 11, fill: CHART_COLOURS.pass }} />}
+        <XAxis
+          tickMargin={AXIS_TICK_MARGIN}
+          type="number"
+          dataKey="x"
+          domain={[0, 100]}
+          ticks={[0, 20, 40, 60, 80, 100]}
+          tick={axisTick}
+          label={{ value: "H2 vol %", position: "insideBottom", offset: -16, fontSize: 12 }}
+        />
+        <YAxis
+          type="number"
+          domain={yAxis.domain}
+          ticks={yAxis.ticks}
+          tick={axisTick}
+          tickFormatter={yAxis.format}
+          width={58}
+          allowDataOverflow={false}
+        />
+        {band && (
+          <ReferenceArea
+            y1={band.min}
+            y2={band.max}
+            ifOverflow="extendDomain"
+            fill={CHART_COLOURS.pass}
+            fillOpacity={0.08}
+            stroke="none"
+            label={{ value: band.label, position: "insideTopRight", fontSize: 11, fill: CHART_COLOURS.pass }}
+          />
+        )}
         {band && <ReferenceLine y={band.min} ifOverflow="extendDomain" stroke={CHART_COLOURS.limit} strokeDasharray="6 3" />}
         {band && <ReferenceLine y={band.max} ifOverflow="extendDomain" stroke={CHART_COLOURS.limit} strokeDasharray="6 3" />}
         {limits.map((l) => (
-          <ReferenceLine key={l.label} y={l.y} ifOverflow="extendDomain" stroke={CHART_COLOURS.limit} strokeDasharray="6 3" label={{ value: l.label, position: "insideBottomRight", fontSize: 11, fill: CHART_COLOURS.limit }} />
+          <ReferenceLine
+            key={l.label}
+            y={l.y}
+            ifOverflow="extendDomain"
+            stroke={CHART_COLOURS.limit}
+            strokeDasharray="6 3"
+            label={{ value: l.label, position: "insideBottomRight", fontSize: 11, fill: CHART_COLOURS.limit }}
+          />
         ))}
         {vLines.map((v) => (
-          <ReferenceLine key={v.label} x={v.x} stroke="#1f2428" strokeDasharray="2 3" className="sweep-burner-limit" label={{ value: v.label, position: "top", fontSize: 11, fill: "#1f2428" }} />
+          <ReferenceLine
+            key={v.label}
+            x={v.x}
+            stroke="#1f2428"
+            strokeDasharray="2 3"
+            className="sweep-burner-limit"
+            label={{ value: v.label, position: "top", fontSize: 11, fill: "#1f2428" }}
+          />
         ))}
         <Tooltip formatter={fmt} labelFormatter={(x) => `${x} vol % H2`} isAnimationActive={false} />
-        <Line type="monotone" dataKey="y" name={title} stroke={CHART_COLOURS.line} strokeWidth={2} dot={false} isAnimationActive={animate} connectNulls={false} />
+        <Line
+          type="monotone"
+          dataKey="y"
+          name={title}
+          stroke={CHART_COLOURS.line}
+          strokeWidth={2}
+          dot={false}
+          isAnimationActive={animate}
+          connectNulls={false}
+        />
         {shownMarkers.map((m) => (
           <ReferenceDot
             key={`${m.kind}-${m.x}-${m.label}`}
@@ -72,7 +121,11 @@ export function SweepChart({ title, yUnit, data, limits = [], band, markers = []
         <ul className="sweep-marker-list">
           {shownMarkers.map((m) => (
             <li key={`${m.kind}-${m.x}-${m.label}`} className={`sweep-marker-note-${m.kind}`}>
-              <span className="dot" aria-hidden="true" style={{ background: m.kind === "fail" ? CHART_COLOURS.fail : CHART_COLOURS.warn }} />
+              <span
+                className="dot"
+                aria-hidden="true"
+                style={{ background: m.kind === "fail" ? CHART_COLOURS.fail : CHART_COLOURS.warn }}
+              />
               {m.label} {m.kind === "fail" ? "fails" : "warns"} from {m.x} vol % H2
             </li>
           ))}

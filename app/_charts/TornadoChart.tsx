@@ -34,7 +34,10 @@ export function TornadoChart({ rows, base, unit, isStatic }: { rows: TornadoBar[
   const animate = useChartAnimation(isStatic);
   const data = rows.map((r) => ({ label: r.label, atLow: r.atLow, atHigh: r.atHigh, ...segments(r, base) }));
   // Ticks in metric values around the base; the bars are drawn as offsets from it.
-  const valueAxis = niceAxisFor(rows.flatMap((r) => [r.atLow, r.atHigh]), [base]);
+  const valueAxis = niceAxisFor(
+    rows.flatMap((r) => [r.atLow, r.atHigh]),
+    [base],
+  );
   const offsetTicks = valueAxis.ticks.map((t) => t - base);
   const tip = (_v: unknown, _n: unknown, item: { payload?: (typeof data)[number] }) => {
     const p = item?.payload;
@@ -44,9 +47,24 @@ export function TornadoChart({ rows, base, unit, isStatic }: { rows: TornadoBar[
   };
   return (
     <figure className="chart" aria-label="Tornado chart">
-      <BarChart layout="vertical" data={data} stackOffset="sign" responsive style={{ width: "100%", height: Math.max(180, 44 * data.length + 60) }} margin={{ top: 18, right: 30, bottom: 26, left: 8 }}>
+      <BarChart
+        layout="vertical"
+        data={data}
+        stackOffset="sign"
+        responsive
+        style={{ width: "100%", height: Math.max(180, 44 * data.length + 60) }}
+        margin={{ top: 18, right: 30, bottom: 26, left: 8 }}
+      >
         <CartesianGrid stroke={CHART_COLOURS.grid} horizontal={false} />
-        <XAxis tickMargin={AXIS_TICK_MARGIN} type="number" domain={[offsetTicks[0], offsetTicks[offsetTicks.length - 1]]} ticks={offsetTicks} tick={axisTick} tickFormatter={(v: number) => valueAxis.format(v + base)} label={{ value: unit, position: "insideBottom", offset: -18, fontSize: 12 }} />
+        <XAxis
+          tickMargin={AXIS_TICK_MARGIN}
+          type="number"
+          domain={[offsetTicks[0], offsetTicks[offsetTicks.length - 1]]}
+          ticks={offsetTicks}
+          tick={axisTick}
+          tickFormatter={(v: number) => valueAxis.format(v + base)}
+          label={{ value: unit, position: "insideBottom", offset: -18, fontSize: 12 }}
+        />
         <YAxis type="category" dataKey="label" width={190} tick={axisTick} interval={0} />
         <ReferenceLine x={0} stroke="#1f2428" label={{ value: `base ${shortNumber(base)}`, position: "top", fontSize: 11 }} />
         <Tooltip formatter={tip as never} isAnimationActive={false} />
@@ -62,7 +80,8 @@ export function TornadoChart({ rows, base, unit, isStatic }: { rows: TornadoBar[
         </Bar>
       </BarChart>
       <figcaption className="legend-row">
-        <span className="swatch" style={{ background: LOW }} /> input at its low value <span className="swatch" style={{ background: HIGH }} /> input at its high value
+        <span className="swatch" style={{ background: LOW }} /> input at its low value{" "}
+        <span className="swatch" style={{ background: HIGH }} /> input at its high value
       </figcaption>
     </figure>
   );

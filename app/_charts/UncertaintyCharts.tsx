@@ -21,17 +21,41 @@ const height = (n: number) => Math.max(160, 34 * n + 70);
 export function FirstChanceChart({ rows, isStatic }: { rows: FirstRow[]; isStatic?: boolean }) {
   const animate = useChartAnimation(isStatic);
   const data = rows;
-  const axis = niceAxisFor(rows.map((r) => r.pFirst), [0]);
+  const axis = niceAxisFor(
+    rows.map((r) => r.pFirst),
+    [0],
+  );
   return (
     <figure className="chart" aria-label="Chance of ranking first">
-      <BarChart layout="vertical" data={data} responsive style={{ width: "100%", height: height(rows.length) }} margin={{ top: 10, right: 30, bottom: 22, left: 8 }}>
+      <BarChart
+        layout="vertical"
+        data={data}
+        responsive
+        style={{ width: "100%", height: height(rows.length) }}
+        margin={{ top: 10, right: 30, bottom: 22, left: 8 }}
+      >
         <CartesianGrid stroke={CHART_COLOURS.grid} horizontal={false} />
-        <XAxis type="number" domain={axis.domain} ticks={axis.ticks} tickFormatter={axis.format} tick={axisTick} label={{ value: "chance of ranking first, %", position: "insideBottom", offset: -14, fontSize: 12 }} />
+        <XAxis
+          type="number"
+          domain={axis.domain}
+          ticks={axis.ticks}
+          tickFormatter={axis.format}
+          tick={axisTick}
+          label={{ value: "chance of ranking first, %", position: "insideBottom", offset: -14, fontSize: 12 }}
+        />
         <YAxis type="category" dataKey="label" width={210} tick={axisTick} interval={0} />
-        <Tooltip formatter={((v: number, _n: unknown, item: { payload?: (typeof data)[number] }) => `${shortNumber(v)} % ± ${shortNumber(item?.payload?.se ?? 0)} % (1 SE)`) as never} isAnimationActive={false} />
+        <Tooltip
+          formatter={
+            ((v: number, _n: unknown, item: { payload?: (typeof data)[number] }) =>
+              `${shortNumber(v)} % ± ${shortNumber(item?.payload?.se ?? 0)} % (1 SE)`) as never
+          }
+          isAnimationActive={false}
+        />
         <Bar dataKey="pFirst" name="P(first)" fill={CHART_COLOURS.second} isAnimationActive={animate} />
       </BarChart>
-      <figcaption className="legend-row">Bars: share of draws in which the option ranks first (the table gives each with its standard error).</figcaption>
+      <figcaption className="legend-row">
+        Bars: share of draws in which the option ranks first (the table gives each with its standard error).
+      </figcaption>
     </figure>
   );
 }
@@ -51,15 +75,36 @@ export function IntervalChart({ rows, unit, isStatic }: { rows: IntervalRow[]; u
   const axis = niceAxisFor(rows.flatMap((r) => [r.p10, r.p90, r.deterministic]));
   return (
     <figure className="chart" aria-label="P10 to P90 intervals">
-      <BarChart layout="vertical" data={data} responsive style={{ width: "100%", height: height(rows.length) }} margin={{ top: 10, right: 30, bottom: 22, left: 8 }}>
+      <BarChart
+        layout="vertical"
+        data={data}
+        responsive
+        style={{ width: "100%", height: height(rows.length) }}
+        margin={{ top: 10, right: 30, bottom: 22, left: 8 }}
+      >
         <CartesianGrid stroke={CHART_COLOURS.grid} horizontal={false} />
-        <XAxis type="number" domain={axis.domain} ticks={axis.ticks} tickFormatter={axis.format} tick={axisTick} allowDataOverflow label={{ value: `${unit}${axis.scaleSuffix ? ` (${axis.scaleSuffix})` : ""}`, position: "insideBottom", offset: -14, fontSize: 12 }} />
+        <XAxis
+          type="number"
+          domain={axis.domain}
+          ticks={axis.ticks}
+          tickFormatter={axis.format}
+          tick={axisTick}
+          allowDataOverflow
+          label={{
+            value: `${unit}${axis.scaleSuffix ? ` (${axis.scaleSuffix})` : ""}`,
+            position: "insideBottom",
+            offset: -14,
+            fontSize: 12,
+          }}
+        />
         <YAxis type="category" dataKey="label" width={210} tick={axisTick} interval={0} />
         <Tooltip
-          formatter={((_v: number, _n: unknown, item: { payload?: (typeof data)[number] }) => {
-            const p = item?.payload;
-            return p ? `P10 ${shortNumber(p.p10)} · P50 ${shortNumber(p.p50)} · P90 ${shortNumber(p.p90)} ${unit}` : "";
-          }) as never}
+          formatter={
+            ((_v: number, _n: unknown, item: { payload?: (typeof data)[number] }) => {
+              const p = item?.payload;
+              return p ? `P10 ${shortNumber(p.p10)} · P50 ${shortNumber(p.p50)} · P90 ${shortNumber(p.p90)} ${unit}` : "";
+            }) as never
+          }
           isAnimationActive={false}
         />
         <Bar dataKey="base" stackId="i" fill="transparent" isAnimationActive={false} legendType="none" />
@@ -88,9 +133,35 @@ export function CdfChart({ series, unit, isStatic }: { series: CdfSeries[]; unit
     <figure className="chart" aria-label="Cumulative distribution of the metric">
       <LineChart responsive style={{ width: "100%", height: 320 }} margin={{ top: 10, right: 30, bottom: 28, left: 8 }}>
         <CartesianGrid stroke={CHART_COLOURS.grid} />
-        <XAxis type="number" dataKey="x" domain={axis.domain} ticks={axis.ticks} tickFormatter={axis.format} tick={axisTick} allowDataOverflow label={{ value: `${unit}${axis.scaleSuffix ? ` (${axis.scaleSuffix})` : ""}`, position: "insideBottom", offset: -16, fontSize: 12 }} />
-        <YAxis type="number" dataKey="p" domain={prob.domain} ticks={prob.ticks} tickFormatter={prob.format} tick={axisTick} label={{ value: "cumulative %", angle: -90, position: "insideLeft", fontSize: 12 }} />
-        <Tooltip formatter={((v: number) => `${shortNumber(v)} %`) as never} labelFormatter={(x) => `${shortNumber(Number(x))} ${unit}`} isAnimationActive={false} />
+        <XAxis
+          type="number"
+          dataKey="x"
+          domain={axis.domain}
+          ticks={axis.ticks}
+          tickFormatter={axis.format}
+          tick={axisTick}
+          allowDataOverflow
+          label={{
+            value: `${unit}${axis.scaleSuffix ? ` (${axis.scaleSuffix})` : ""}`,
+            position: "insideBottom",
+            offset: -16,
+            fontSize: 12,
+          }}
+        />
+        <YAxis
+          type="number"
+          dataKey="p"
+          domain={prob.domain}
+          ticks={prob.ticks}
+          tickFormatter={prob.format}
+          tick={axisTick}
+          label={{ value: "cumulative %", angle: -90, position: "insideLeft", fontSize: 12 }}
+        />
+        <Tooltip
+          formatter={((v: number) => `${shortNumber(v)} %`) as never}
+          labelFormatter={(x) => `${shortNumber(Number(x))} ${unit}`}
+          isAnimationActive={false}
+        />
         <Legend verticalAlign="top" />
         {series.map((s, k) => (
           <Line

@@ -46,7 +46,8 @@ export function niceAxis(min: number, max: number, target = 5): NiceAxis {
   const scale = largest >= 1e6 && step >= 1e5 ? 1e6 : largest >= 1e4 && step >= 1e3 ? 1e3 : 1;
   const scaleSuffix = scale === 1e6 ? "M" : scale === 1e3 ? "k" : "";
   const decimals = Math.max(0, -Math.floor(Math.log10(step / scale) + 1e-9));
-  const format = (v: number) => `${(v / scale).toLocaleString("en-GB", { minimumFractionDigits: decimals, maximumFractionDigits: decimals })}${scaleSuffix}`;
+  const format = (v: number) =>
+    `${(v / scale).toLocaleString("en-GB", { minimumFractionDigits: decimals, maximumFractionDigits: decimals })}${scaleSuffix}`;
   return { domain: [ticks[0], ticks[ticks.length - 1]], ticks, format, scaleSuffix };
 }
 

@@ -20,17 +20,28 @@ export function json(body: unknown, status = 200): Response {
 /** Longest message an error answer carries: a message never echoes a huge input back in full. */
 const MAX_MESSAGE_CHARS = 500;
 const capped = (m: string) => (m.length > MAX_MESSAGE_CHARS ? `${m.slice(0, MAX_MESSAGE_CHARS)}… (cut)` : m);
-const cappedFields = (f: Record<string, string>) => Object.fromEntries(Object.entries(f).slice(0, 100).map(([k, v]) => [capped(k), capped(v)]));
+const cappedFields = (f: Record<string, string>) =>
+  Object.fromEntries(
+    Object.entries(f)
+      .slice(0, 100)
+      .map(([k, v]) => [capped(k), capped(v)]),
+  );
 
 /** A service's problem with its status, the message and the per-field messages. */
 export function failure(p: Problem): Response {
-  return json({ error: capped(p.message), fieldErrors: cappedFields(p.fieldErrors), ...(p.warnings ? { warnings: p.warnings } : {}) }, STATUS_OF_PROBLEM[p.kind]);
+  return json(
+    { error: capped(p.message), fieldErrors: cappedFields(p.fieldErrors), ...(p.warnings ? { warnings: p.warnings } : {}) },
+    STATUS_OF_PROBLEM[p.kind],
+  );
 }
 
 /** A lib/ error with its status; the field it names carries the detail. */
 export function errorResponse(e: StokeError): Response {
   const detail = explain(e);
-  return json({ error: capped(e.field ? `${e.field}: ${detail}` : detail), fieldErrors: cappedFields({ [e.field || "_"]: detail }) }, STATUS_OF_ERROR[e.kind]);
+  return json(
+    { error: capped(e.field ? `${e.field}: ${detail}` : detail), fieldErrors: cappedFields({ [e.field || "_"]: detail }) },
+    STATUS_OF_ERROR[e.kind],
+  );
 }
 
 /** Body size limits: JSON documents (fuels, plants, studies) and import files. */
@@ -56,14 +67,26 @@ export function crossSiteWrite(req: Request): Response | null {
   }
   const host = req.headers.get("host") ?? new URL(req.url).host;
   if (originHost === host) return null;
-  return json({ error: "Writes are accepted only from Stoke's own pages (the request came from another site).", fieldErrors: { origin: "not this server" } }, 403);
+  return json(
+    {
+      error: "Writes are accepted only from Stoke's own pages (the request came from another site).",
+      fieldErrors: { origin: "not this server" },
+    },
+    403,
+  );
 }
 
 /** The body as text, refused (413) past `limitBytes` without reading further. */
-export async function readBodyText(req: Request, limitBytes: number): Promise<{ ok: true; text: string } | { ok: false; response: Response }> {
+export async function readBodyText(
+  req: Request,
+  limitBytes: number,
+): Promise<{ ok: true; text: string } | { ok: false; response: Response }> {
   const tooLarge = () => ({
     ok: false as const,
-    response: json({ error: `The request body is larger than ${Math.round(limitBytes / 1024)} KiB.`, fieldErrors: { _: "body too large" } }, 413),
+    response: json(
+      { error: `The request body is larger than ${Math.round(limitBytes / 1024)} KiB.`, fieldErrors: { _: "body too large" } },
+      413,
+    ),
   });
   const declared = Number(req.headers.get("content-length") ?? "NaN");
   if (Number.isFinite(declared) && declared > limitBytes) return tooLarge();
@@ -116,10 +139,19 @@ export function parseId(segment: string): number | null {
  * from another page cannot write), 413 past the size limit, 400 when it is not JSON or nests deeper
  * than any document needs (the field named).
  */
-export async function readJson(req: Request, limitBytes = JSON_BODY_LIMIT_BYTES): Promise<{ ok: true; value: unknown } | { ok: false; response: Response }> {
+export async function readJson(
+  req: Request,
+  limitBytes = JSON_BODY_LIMIT_BYTES,
+): Promise<{ ok: true; value: unknown } | { ok: false; response: Response }> {
   const type = (req.headers.get("content-type") ?? "").split(";")[0].trim().toLowerCase();
   if (type !== "application/json") {
-    return { ok: false, response: json({ error: "Send the body as JSON (content-type: application/json).", fieldErrors: { "content-type": "must be application/json" } }, 415) };
+    return {
+      ok: false,
+      response: json(
+        { error: "Send the body as JSON (content-type: application/json).", fieldErrors: { "content-type": "must be application/json" } },
+        415,
+      ),
+    };
   }
   const body = await readBodyText(req, limitBytes);
   if (!body.ok) return body;

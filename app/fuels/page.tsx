@@ -24,8 +24,18 @@ const KIND_GROUPS = [
 function perVolume(f: FuelListItem, which: "hhv" | "lhv"): React.ReactNode {
   const p = f.properties;
   if (!p) return <span className="na">–</span>;
-  if (p[which].MJ_per_m3 !== undefined) return <>{fmt(p[which].MJ_per_m3, 2)} <span className="unit">/m³</span></>;
-  if (p[which].MJ_per_L !== undefined) return <>{fmt(p[which].MJ_per_L, 2)} <span className="unit">/L&nbsp;</span></>;
+  if (p[which].MJ_per_m3 !== undefined)
+    return (
+      <>
+        {fmt(p[which].MJ_per_m3, 2)} <span className="unit">/m³</span>
+      </>
+    );
+  if (p[which].MJ_per_L !== undefined)
+    return (
+      <>
+        {fmt(p[which].MJ_per_L, 2)} <span className="unit">/L&nbsp;</span>
+      </>
+    );
   return <span className="na">–</span>;
 }
 
@@ -41,8 +51,8 @@ export default async function FuelListPage({ searchParams }: { searchParams: Pro
         <div>
           <h1>Fuel library</h1>
           <p className="lede">
-            Every fuel and blend the plant might burn, with the figures a buyer compares: heating values, Wobbe index, CO2 and the
-            delivered price in force today, normalised to cost per MWh.
+            Every fuel and blend the plant might burn, with the figures a buyer compares: heating values, Wobbe index, CO2 and the delivered
+            price in force today, normalised to cost per MWh.
           </p>
         </div>
         <div className="actions">
@@ -64,9 +74,9 @@ export default async function FuelListPage({ searchParams }: { searchParams: Pro
       </nav>
 
       <p className="basis">
-        Heating values at a 25 °C combustion reference. Gas volumes: real gas at 15 °C and 101.325 kPa (ISO 6976); liquids per
-        litre at 15 °C. CO2: fossil CO2 per GJ of fuel on the net (LHV) basis. Price: the latest quote in force, delivered
-        (commodity + transport + handling), in the quote&apos;s currency.
+        Heating values at a 25 °C combustion reference. Gas volumes: real gas at 15 °C and 101.325 kPa (ISO 6976); liquids per litre at 15
+        °C. CO2: fossil CO2 per GJ of fuel on the net (LHV) basis. Price: the latest quote in force, delivered (commodity + transport +
+        handling), in the quote&apos;s currency.
       </p>
       {anyInvented && (
         <p className="note warn">

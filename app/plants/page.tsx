@@ -20,8 +20,8 @@ export default async function PlantsPage() {
         <div>
           <h1>Plants</h1>
           <p className="lede">
-            The fired units a fuel must suit: their duty, operating point and the limits every candidate fuel is checked against —
-            Wobbe band, flame-temperature rise, fan and supply capacities, the burner maker&apos;s hydrogen limit.
+            The fired units a fuel must suit: their duty, operating point and the limits every candidate fuel is checked against — Wobbe
+            band, flame-temperature rise, fan and supply capacities, the burner maker&apos;s hydrogen limit.
           </p>
         </div>
         <div className="actions">
@@ -60,7 +60,11 @@ export default async function PlantsPage() {
                 <tr key={p.id}>
                   <td>
                     <Link href={`/plants/${p.id}`}>{p.plant.name}</Link> {p.isDemo && <span className="badge demo">demo</span>}
-                    {p.plant.site && <div className="muted" style={{ fontSize: "0.85rem" }}>{p.plant.site}</div>}
+                    {p.plant.site && (
+                      <div className="muted" style={{ fontSize: "0.85rem" }}>
+                        {p.plant.site}
+                      </div>
+                    )}
                   </td>
                   <td>{EQUIPMENT_TYPE_LABELS[p.plant.equipmentType]}</td>
                   <td>{p.baselineFuelName ?? <span className="na">–</span>}</td>
@@ -68,7 +72,9 @@ export default async function PlantsPage() {
                     {fmt(p.plant.ratedInput_kW, 0)} <span className="unit">({p.plant.ratedInputBasis})</span>
                   </td>
                   <td className="num">{d.temp(p.plant.stackTemperatureC)}</td>
-                  <td className="num">{p.plant.maxH2SharePercent != null ? fmt(p.plant.maxH2SharePercent, 0) : <span className="na">not set</span>}</td>
+                  <td className="num">
+                    {p.plant.maxH2SharePercent != null ? fmt(p.plant.maxH2SharePercent, 0) : <span className="na">not set</span>}
+                  </td>
                   <td>
                     {p.studies.length === 0 ? (
                       <Link href={`/studies/new?plant=${p.id}`}>start a study</Link>

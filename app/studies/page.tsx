@@ -16,8 +16,8 @@ export default async function StudiesPage() {
         <div>
           <h1>Studies</h1>
           <p className="lede">
-            A study compares candidate fuels and blends for one plant against what it burns today: cost per unit of useful heat, CO2, payback,
-            and whether the burners, fans and fuel train can take each one.
+            A study compares candidate fuels and blends for one plant against what it burns today: cost per unit of useful heat, CO2,
+            payback, and whether the burners, fans and fuel train can take each one.
           </p>
         </div>
         <div className="actions">

@@ -72,7 +72,11 @@ export const COMMANDS: readonly CommandSpec[] = [
         choices: ["scenarios", "checks", "sweep"],
         help: "which table --format csv writes (default scenarios; with --uncertainty the uncertainty table)",
       },
-      { name: "uncertainty", value: "N", help: "add the Monte Carlo ranking over N draws (10–100000; Latin hypercube, the study's ranges)" },
+      {
+        name: "uncertainty",
+        value: "N",
+        help: "add the Monte Carlo ranking over N draws (10–100000; Latin hypercube, the study's ranges)",
+      },
       { name: "seed", value: "S", help: "seed of the Monte Carlo draws (default 1; the same seed gives the same figures)" },
     ],
     checkOptions(o) {

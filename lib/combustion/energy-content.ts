@@ -24,10 +24,7 @@ export interface FuelEnergyContent {
  * reference they were computed at) and its density — liquids at 15 °C, solids bulk (when
  * given), gases real-gas at each metering reference (ISO 6976:2016 compression factor).
  */
-export function energyContentOf(
-  fuel: ResolvedFuel,
-  hv: { hhv_MJ_per_kg: number; lhv_MJ_per_kg: number },
-): FuelEnergyContent {
+export function energyContentOf(fuel: ResolvedFuel, hv: { hhv_MJ_per_kg: number; lhv_MJ_per_kg: number }): FuelEnergyContent {
   const content: FuelEnergyContent = {
     kind: fuel.kind,
     hhv_MJ_per_kg: hv.hhv_MJ_per_kg,

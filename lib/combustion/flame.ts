@@ -82,7 +82,8 @@ export function supplyFieldOf(input: Pick<FlameInput, SupplyField>): SupplyField
 /** Oxidiser supply λ from whichever of φ / excess air / flue O2 is given. Throws InputError naming it. */
 export function lambdaOf(fuel: ResolvedFuel, input: Pick<FlameInput, SupplyField>, oxidizer: Oxidizer): number {
   const given = (["phi", "excessAirPercent", "flueO2DryPercent"] as const).filter((k) => input[k] !== undefined);
-  if (given.length > 1) throw new InputError(given[1], `give only one of phi, excessAirPercent, flueO2DryPercent (got ${given.join(", ")})`);
+  if (given.length > 1)
+    throw new InputError(given[1], `give only one of phi, excessAirPercent, flueO2DryPercent (got ${given.join(", ")})`);
   const field = supplyFieldOf(input);
   const value = input[field];
   if (value !== undefined && !Number.isFinite(value)) throw new InputError(field, `must be a finite number, got ${String(value)}`);
@@ -91,7 +92,10 @@ export function lambdaOf(fuel: ResolvedFuel, input: Pick<FlameInput, SupplyField
   else if (input.flueO2DryPercent !== undefined) lambda = lambdaFromFlueO2Dry(fuel, input.flueO2DryPercent, oxidizer);
   else lambda = 1 / (input.phi ?? 1);
   if (!(lambda > 0) || !Number.isFinite(lambda)) {
-    throw new InputError(field, field === "excessAirPercent" ? `must be above −100 %, got ${String(value)}` : `must be > 0, got ${String(value)}`);
+    throw new InputError(
+      field,
+      field === "excessAirPercent" ? `must be above −100 %, got ${String(value)}` : `must be > 0, got ${String(value)}`,
+    );
   }
   return lambda;
 }
@@ -103,7 +107,13 @@ interface Charge {
 }
 
 /** Reactant charge: 1 kg fuel at T_fuel plus its oxidiser at T_ox. */
-export function reactantCharge(fuel: ResolvedFuel, lambda: number, oxidizer: Oxidizer, fuelTemperatureK: number, oxidizerTemperatureK: number): Charge {
+export function reactantCharge(
+  fuel: ResolvedFuel,
+  lambda: number,
+  oxidizer: Oxidizer,
+  fuelTemperatureK: number,
+  oxidizerTemperatureK: number,
+): Charge {
   const nO2 = stoichiometricO2_mol_per_kg(fuel.elements_mol_per_kg);
   const nOx = (lambda * nO2) / (oxidizer.O2 ?? 0);
   const elements = { ...fuel.elements_mol_per_kg };
@@ -191,7 +201,8 @@ function richShiftProducts(c: Charge, T: number): Products {
   let a: number;
   if (hi - lo <= 0) a = lo;
   else {
-    let x0 = lo, x1 = hi;
+    let x0 = lo,
+      x1 = hi;
     for (let i = 0; i < 200 && x1 - x0 > 1e-15 * Math.max(1, C); i++) {
       const m = 0.5 * (x0 + x1);
       if (f(m) > 0) x0 = m;
@@ -252,7 +263,12 @@ export function flameTemperature(input: FlameInput): FlameResult {
   const base = { method: input.method, methodLabel: FLAME_METHOD_LABELS[input.method], phi, lambda, pressurePa: P };
 
   if (input.method === "equilibrium") {
-    const eq = solveEquilibriumHP({ elementMoles: charge.elements, enthalpyJ: charge.enthalpyJ, pressurePa: P, warmStart: input.warmStart });
+    const eq = solveEquilibriumHP({
+      elementMoles: charge.elements,
+      enthalpyJ: charge.enthalpyJ,
+      pressurePa: P,
+      warmStart: input.warmStart,
+    });
     return { ...base, temperatureK: eq.temperatureK, products: { ...eq.moleFractions }, equilibrium: eq };
   }
   const lean = lambda >= 1;

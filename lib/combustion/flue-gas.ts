@@ -34,7 +34,11 @@ export function flueGasPerKgFuel(fuel: ResolvedFuel, opts: { lambda: number; oxi
   const { lambda } = opts;
   const ox = opts.oxidizer ?? DRY_AIR;
   if (!(lambda >= 1)) {
-    throw new InfeasibleChargeError("lambda", `complete-combustion flue gas needs λ ≥ 1 (got ${lambda}): too little oxygen`, "too-little-oxygen");
+    throw new InfeasibleChargeError(
+      "lambda",
+      `complete-combustion flue gas needs λ ≥ 1 (got ${lambda}): too little oxygen`,
+      "too-little-oxygen",
+    );
   }
   const el = fuel.elements_mol_per_kg;
   const nO2 = stoichiometricO2_mol_per_kg(el);

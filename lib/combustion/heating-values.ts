@@ -29,7 +29,6 @@ export interface HeatingValues {
   productWater_mol_per_kg: number;
 }
 
-
 /** Combustion reference temperature of heating values unless another is asked for, °C (ISO 6976:2016 lists 25 °C first). */
 export const DEFAULT_COMBUSTION_REFERENCE_C = 25;
 

@@ -88,7 +88,13 @@ export function fuelPropertiesFromResolved(fuel: ResolvedFuel, opts: PropertyOpt
   const airM3PerKg = demand.oxidizer_kg_per_kg / rhoAir;
   const fg = flueGasPerKgFuel(fuel, { lambda: 1, oxidizer: DRY_AIR });
   const figures = (MJ_per_kg: number, kJ_per_mol: number | undefined, kJ_per_mol_O2: number, MJ_per_kg_O2: number): HeatingValueFigures => {
-    const f: HeatingValueFigures = { MJ_per_kg, kJ_per_mol_O2, MJ_per_kg_O2, MJ_per_m3_air: MJ_per_kg / airM3PerKg, kWh_per_kg: MJ_per_kg / MJ_per_kWh };
+    const f: HeatingValueFigures = {
+      MJ_per_kg,
+      kJ_per_mol_O2,
+      MJ_per_kg_O2,
+      MJ_per_m3_air: MJ_per_kg / airM3PerKg,
+      kWh_per_kg: MJ_per_kg / MJ_per_kWh,
+    };
     if (kJ_per_mol !== undefined) f.kJ_per_mol = kJ_per_mol;
     return f;
   };
@@ -139,7 +145,12 @@ export function fuelPropertiesFromResolved(fuel: ResolvedFuel, opts: PropertyOpt
   if (demand.O2_mol_per_mol !== undefined) out.stoichiometricO2.mol_per_mol = demand.O2_mol_per_mol;
   if (fuel.molarMass_g_per_mol !== undefined) out.molarMass_g_per_mol = fuel.molarMass_g_per_mol;
   if (fuel.kind === "gas" && fuel.gasComposition && fuel.molarMass_g_per_mol) {
-    const v = volumetricFigures(fuel.gasComposition, fuel.molarMass_g_per_mol, { hhv_kJ_per_mol: hv.hhv_kJ_per_mol!, lhv_kJ_per_mol: hv.lhv_kJ_per_mol!, combustionReferenceC: tc }, tm);
+    const v = volumetricFigures(
+      fuel.gasComposition,
+      fuel.molarMass_g_per_mol,
+      { hhv_kJ_per_mol: hv.hhv_kJ_per_mol!, lhv_kJ_per_mol: hv.lhv_kJ_per_mol!, combustionReferenceC: tc },
+      tm,
+    );
     hhv.MJ_per_m3 = v.hhv_MJ_per_m3;
     lhv.MJ_per_m3 = v.lhv_MJ_per_m3;
     out.relativeDensity = v.relativeDensity;

@@ -128,7 +128,10 @@ export function lambdaFromFlueO2Dry(fuel: ResolvedFuel, o2DryPercent: number, ox
   const y = o2DryPercent / 100;
   const yMax = nO2 / b; // O2 share of the dry oxidiser
   if (!(y >= 0 && y < yMax)) {
-    throw new InputError("flueO2DryPercent", `must be ≥ 0 and below the oxidiser's ${(100 * yMax).toFixed(1)} % O2 (dry), got ${o2DryPercent}`);
+    throw new InputError(
+      "flueO2DryPercent",
+      `must be ≥ 0 and below the oxidiser's ${(100 * yMax).toFixed(1)} % O2 (dry), got ${o2DryPercent}`,
+    );
   }
   return (y * a + nO2) / (nO2 - y * b);
 }

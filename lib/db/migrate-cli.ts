@@ -4,9 +4,7 @@ import { migrateSqlite } from "./migrate";
 
 const target = databaseTarget();
 if (target.provider === "postgresql") {
-  console.error(
-    "DATABASE_URL points at PostgreSQL: apply its migrations with `npx prisma migrate deploy` (see README.md).",
-  );
+  console.error("DATABASE_URL points at PostgreSQL: apply its migrations with `npx prisma migrate deploy` (see README.md).");
   process.exit(0);
 }
 try {

@@ -83,14 +83,10 @@ function isoNow(): string {
  * Refuses to continue when an applied migration's file has changed since, or when a
  * migration is recorded as started but not finished.
  */
-export function migrateSqlite(
-  options: { databaseUrl?: string; migrationsDir?: string } = {},
-): MigrateResult {
+export function migrateSqlite(options: { databaseUrl?: string; migrationsDir?: string } = {}): MigrateResult {
   const target = databaseTarget(options.databaseUrl);
   if (target.provider !== "sqlite") {
-    throw new Error(
-      "migrateSqlite() handles SQLite only; apply migrations to PostgreSQL with `prisma migrate deploy` (see README.md).",
-    );
+    throw new Error("migrateSqlite() handles SQLite only; apply migrations to PostgreSQL with `prisma migrate deploy` (see README.md).");
   }
   const migrations = readMigrations(options.migrationsDir);
   if (target.file !== ":memory:") {
@@ -100,18 +96,17 @@ export function migrateSqlite(
   try {
     db.pragma("foreign_keys = ON");
     db.exec(MIGRATIONS_TABLE_SQL);
-    const rows = db
-      .prepare(
-        `SELECT migration_name, checksum, finished_at, rolled_back_at FROM "_prisma_migrations"`,
-      )
-      .all() as { migration_name: string; checksum: string; finished_at: string | null; rolled_back_at: string | null }[];
+    const rows = db.prepare(`SELECT migration_name, checksum, finished_at, rolled_back_at FROM "_prisma_migrations"`).all() as {
+      migration_name: string;
+      checksum: string;
+      finished_at: string | null;
+      rolled_back_at: string | null;
+    }[];
     const done = new Map<string, { checksum: string }>();
     for (const r of rows) {
       if (r.rolled_back_at !== null) continue;
       if (r.finished_at === null) {
-        throw new Error(
-          `Migration ${r.migration_name} was started but did not finish; repair the database before continuing.`,
-        );
+        throw new Error(`Migration ${r.migration_name} was started but did not finish; repair the database before continuing.`);
       }
       done.set(r.migration_name, { checksum: r.checksum });
     }

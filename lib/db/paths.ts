@@ -7,9 +7,7 @@ import path from "node:path";
 
 export const DEFAULT_DATABASE_URL = "file:./data/stoke.db";
 
-export type DatabaseTarget =
-  | { provider: "sqlite"; url: string; file: string }
-  | { provider: "postgresql"; url: string };
+export type DatabaseTarget = { provider: "sqlite"; url: string; file: string } | { provider: "postgresql"; url: string };
 
 /** Reads DATABASE_URL (or the given URL) and says which database it names. */
 export function databaseTarget(url: string | undefined = process.env.DATABASE_URL): DatabaseTarget {

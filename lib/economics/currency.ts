@@ -27,7 +27,8 @@ export interface AppliedRate {
 
 /** The rate in force on `onDate` (YYYY-MM-DD) to convert `from` into `to`; null when the table has none. */
 export function rateInForce(rates: readonly ExchangeRateEntry[], from: string, to: string, onDate: string): AppliedRate | null {
-  if (from === to) return { factor: 1, from, to, entry: { fromCurrency: from, toCurrency: to, rate: 1, validFrom: onDate }, inverted: false };
+  if (from === to)
+    return { factor: 1, from, to, entry: { fromCurrency: from, toCurrency: to, rate: 1, validFrom: onDate }, inverted: false };
   let best: AppliedRate | null = null;
   for (const r of rates) {
     if (r.validFrom > onDate || !(r.rate > 0)) continue;

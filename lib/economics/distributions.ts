@@ -62,7 +62,10 @@ function lnBeta(x: number, y: number): number {
 /** ln Γ(x), x > 0: Lanczos approximation (g = 7, n = 9; as in Press et al., Numerical Recipes, 3rd ed., §6.1). */
 function lnGamma(x: number): number {
   const g = 7;
-  const c = [0.99999999999980993, 676.5203681218851, -1259.1392167224028, 771.32342877765313, -176.61502916214059, 12.507343278686905, -0.13857109526572012, 9.9843695780195716e-6, 1.5056327351493116e-7];
+  const c = [
+    0.99999999999980993, 676.5203681218851, -1259.1392167224028, 771.32342877765313, -176.61502916214059, 12.507343278686905,
+    -0.13857109526572012, 9.9843695780195716e-6, 1.5056327351493116e-7,
+  ];
   if (x < 0.5) return Math.log(Math.PI / Math.sin(Math.PI * x)) - lnGamma(1 - x);
   x -= 1;
   let s = c[0];
@@ -77,7 +80,16 @@ function pert(spec: DistributionSpec, a: number, m: number, b: number): Distribu
   const beta = 1 + (4 * (b - m)) / w;
   const lnB = lnBeta(alpha, beta);
   // Density of the standard beta on [0, 1].
-  const pdf = (y: number) => (y <= 0 || y >= 1 ? (y <= 0 ? (alpha === 1 ? Math.exp(-lnB) : 0) : beta === 1 ? Math.exp(-lnB) : 0) : Math.exp((alpha - 1) * Math.log(y) + (beta - 1) * Math.log1p(-y) - lnB));
+  const pdf = (y: number) =>
+    y <= 0 || y >= 1
+      ? y <= 0
+        ? alpha === 1
+          ? Math.exp(-lnB)
+          : 0
+        : beta === 1
+          ? Math.exp(-lnB)
+          : 0
+      : Math.exp((alpha - 1) * Math.log(y) + (beta - 1) * Math.log1p(-y) - lnB);
   const key = `${alpha}|${beta}`;
   let cdf = pertTables.get(key);
   if (!cdf) {
@@ -110,7 +122,8 @@ function pert(spec: DistributionSpec, a: number, m: number, b: number): Distribu
     degenerate: false,
     quantile: (u) => {
       // Cell by bisection, linear start inside it, one Newton step on the exact density.
-      let lo = 0, hi = PERT_CELLS;
+      let lo = 0,
+        hi = PERT_CELLS;
       while (hi - lo > 1) {
         const mid = (lo + hi) >> 1;
         if (table[mid] <= u) lo = mid;

@@ -22,7 +22,12 @@ import type { MoneyTerms, PricePath } from "../schemas/study";
 export type { MoneyTerms, PricePath } from "../schemas/study";
 
 /** Discount rate in the wanted terms from one stated in other terms (Fisher relation), % per year. */
-export function discountRateInTerms(ratePercent: number, statedTerms: MoneyTerms, wantedTerms: MoneyTerms, inflationPercent: number): number {
+export function discountRateInTerms(
+  ratePercent: number,
+  statedTerms: MoneyTerms,
+  wantedTerms: MoneyTerms,
+  inflationPercent: number,
+): number {
   if (statedTerms === wantedTerms) return ratePercent;
   const i = inflationPercent / 100;
   const r = ratePercent / 100;
@@ -44,7 +49,8 @@ export function pathValues(path: PricePath, level: number, years: number, field:
   if (path.kind === "table") {
     if (pts[0].year !== 1) throw new InputError(`${field}.points`, "a table starts at year 1");
     for (let k = 1; k < pts.length; k++) {
-      if (pts[k].year !== pts[k - 1].year + 1) throw new InputError(`${field}.points`, `a table has one value per year: year ${pts[k - 1].year + 1} is missing`);
+      if (pts[k].year !== pts[k - 1].year + 1)
+        throw new InputError(`${field}.points`, `a table has one value per year: year ${pts[k - 1].year + 1} is missing`);
     }
   }
   for (let t = 0; t < years; t++) {
@@ -54,7 +60,8 @@ export function pathValues(path: PricePath, level: number, years: number, field:
     else {
       let k = 0;
       while (pts[k + 1].year < year) k++;
-      const a = pts[k], b = pts[k + 1];
+      const a = pts[k],
+        b = pts[k + 1];
       if (year === b.year) v[t] = b.value;
       else if (path.kind === "linear") v[t] = a.value + ((b.value - a.value) * (year - a.year)) / (b.year - a.year);
       else v[t] = a.value;
@@ -163,7 +170,8 @@ export function pathScenarioState(
   out?: PathScenarioState,
 ): PathScenarioState {
   const fuel = usefulMWh / efficiencyNet;
-  let y1 = 0, pv = 0;
+  let y1 = 0,
+    pv = 0;
   const parts = s.priceParts;
   for (let k = 0; k < parts.length; k++) {
     const p = parts[k];
@@ -209,11 +217,19 @@ export function abatementCostFromPaths(base: PathScenarioState, cand: PathScenar
 }
 
 /** Yearly cash flows of switching (years 1 … N), for payback and the report. */
-export function switchingCashFlows(base: PathScenario, cand: PathScenario, f: PathFactors, baseFuelMWh: number, candFuelMWh: number): Float64Array {
+export function switchingCashFlows(
+  base: PathScenario,
+  cand: PathScenario,
+  f: PathFactors,
+  baseFuelMWh: number,
+  candFuelMWh: number,
+): Float64Array {
   const n = f.discount.length;
   const flows = new Float64Array(n);
-  const tonnes = (s: PathScenario, fuel: number) => (fuel * GJ_per_MWh * (s.co2Fossil_kg_per_GJ_net + (s.includeUpstream ? s.upstreamCo2e_kg_per_GJ_net : 0))) / 1000;
-  const tb = tonnes(base, baseFuelMWh), tc = tonnes(cand, candFuelMWh);
+  const tonnes = (s: PathScenario, fuel: number) =>
+    (fuel * GJ_per_MWh * (s.co2Fossil_kg_per_GJ_net + (s.includeUpstream ? s.upstreamCo2e_kg_per_GJ_net : 0))) / 1000;
+  const tb = tonnes(base, baseFuelMWh),
+    tc = tonnes(cand, candFuelMWh);
   for (let t = 0; t < n; t++) {
     let cost = 0;
     for (const p of base.priceParts) cost += baseFuelMWh * p.perMWh_net * f.sourceIndex[p.source][t];

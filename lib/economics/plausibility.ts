@@ -53,7 +53,10 @@ export function priceWarning(
   }
   const eur = deliveredAmount * eurFactor;
   if (eur >= lo && eur <= hi) return null;
-  const shown = currency === PLAUSIBILITY_CURRENCY ? `${deliveredAmount} ${currency}/${unit}` : `${deliveredAmount} ${currency}/${unit} (${Number(eur.toPrecision(4))} ${PLAUSIBILITY_CURRENCY}/${unit})`;
+  const shown =
+    currency === PLAUSIBILITY_CURRENCY
+      ? `${deliveredAmount} ${currency}/${unit}`
+      : `${deliveredAmount} ${currency}/${unit} (${Number(eur.toPrecision(4))} ${PLAUSIBILITY_CURRENCY}/${unit})`;
   return {
     field: "amount",
     message: `${shown} is ${eur < lo ? "below" : "above"} the plausible range ${range} (delivered price: amount plus adders); check the figure and the unit, or confirm it`,

@@ -103,7 +103,10 @@ export function priceQuoteIssues(
       if (fuel.kind === "solid" && unit !== "m3") {
         issues.push({ field: "unit", message: `a solid fuel is not priced per ${unit}; use t, kg, m³ (bulk) or an energy unit` });
       } else if (!fuel.hasDensity) {
-        issues.push({ field: "density", message: `a price per volume needs the fuel's ${fuel.kind === "solid" ? "bulk " : ""}density; enter it on the fuel first` });
+        issues.push({
+          field: "density",
+          message: `a price per volume needs the fuel's ${fuel.kind === "solid" ? "bulk " : ""}density; enter it on the fuel first`,
+        });
       }
     }
   }
@@ -182,7 +185,9 @@ export function normalisePrice(terms: PriceQuoteTerms, fuel: FuelEnergyContent):
  * mix of each part (commodity, transport, handling), restated for the blend's own energy content.
  */
 export function mixPrices(parts: readonly { massFraction: number; price: NormalisedPrice }[], blend: FuelEnergyContent): NormalisedPrice {
-  let commodity = 0, transport = 0, handling = 0;
+  let commodity = 0,
+    transport = 0,
+    handling = 0;
   for (const { massFraction: w, price } of parts) {
     commodity += w * price.parts.commodity.perKg;
     transport += w * price.parts.transport.perKg;

@@ -28,7 +28,8 @@ export function cholesky(a: Float64Array, n: number, field = "correlations"): Fl
       let s = a[i * n + j];
       for (let k = 0; k < j; k++) s -= l[i * n + k] * l[j * n + k];
       if (i === j) {
-        if (!(s > 1e-12)) throw new InputError(field, "the stated correlations contradict each other (the correlation matrix is not positive definite)");
+        if (!(s > 1e-12))
+          throw new InputError(field, "the stated correlations contradict each other (the correlation matrix is not positive definite)");
         l[i * n + i] = Math.sqrt(s);
       } else {
         l[i * n + j] = s / l[j * n + j];
@@ -86,7 +87,14 @@ function orderOf(x: Float64Array, off: number, n: number): Int32Array {
  * place) so that the normal scores of their ranks have the target correlation `target`
  * (row-major dims × dims, unit diagonal). Columns keep their values, only the pairing changes.
  */
-export function imanConover(x: Float64Array, n: number, dims: number, target: Float64Array, rng: Xoshiro128ss, field = "correlations"): void {
+export function imanConover(
+  x: Float64Array,
+  n: number,
+  dims: number,
+  target: Float64Array,
+  rng: Xoshiro128ss,
+  field = "correlations",
+): void {
   if (dims < 2) return;
   const p = cholesky(target, dims, field);
   // Scores: van der Waerden scores, randomly permuted per column.
@@ -140,7 +148,8 @@ export function imanConover(x: Float64Array, n: number, dims: number, target: Fl
 
 /** First index of `sorted` whose value is ≥ x (or > x when `strict`). */
 function bound(sorted: Float64Array, x: number, strict: boolean): number {
-  let lo = 0, hi = sorted.length;
+  let lo = 0,
+    hi = sorted.length;
   while (lo < hi) {
     const mid = (lo + hi) >> 1;
     if (strict ? sorted[mid] <= x : sorted[mid] < x) lo = mid + 1;
@@ -167,16 +176,20 @@ export function ranks(v: ArrayLike<number>): Float64Array {
 /** Pearson correlation of two equally long samples; null when either does not vary. */
 export function pearson(x: ArrayLike<number>, y: ArrayLike<number>): number | null {
   const n = x.length;
-  let mx = 0, my = 0;
+  let mx = 0,
+    my = 0;
   for (let i = 0; i < n; i++) {
     mx += x[i];
     my += y[i];
   }
   mx /= n;
   my /= n;
-  let sxy = 0, sxx = 0, syy = 0;
+  let sxy = 0,
+    sxx = 0,
+    syy = 0;
   for (let i = 0; i < n; i++) {
-    const dx = x[i] - mx, dy = y[i] - my;
+    const dx = x[i] - mx,
+      dy = y[i] - my;
     sxy += dx * dy;
     sxx += dx * dx;
     syy += dy * dy;
@@ -209,7 +222,8 @@ function selectKth(a: Float64Array, k: number, lo = 0, hi = a.length - 1): void 
     if (a[hi] < a[lo]) swap(a, hi, lo);
     if (a[hi] < a[mid]) swap(a, hi, mid);
     const pivot = a[mid];
-    let i = lo, j = hi;
+    let i = lo,
+      j = hi;
     while (i <= j) {
       while (a[i] < pivot) i++;
       while (a[j] > pivot) j--;

@@ -31,7 +31,6 @@ export function metricValue(metric: RankingMetric, base: CostInputs, cand: CostI
   }
 }
 
-
 export type TornadoParameter =
   | "candidate-fuel-price"
   | "baseline-fuel-price"
@@ -75,7 +74,15 @@ export function tornado(
   const notes: string[] = [];
   const pct = (v: number, p: number, sign: -1 | 1) => v * (1 + (sign * p) / 100);
   const effClamp = (e: number) => Math.min(1.2, Math.max(0.05, e));
-  type Variation = { parameter: TornadoParameter; label: string; unit: string; value: number; apply: (v: number) => [CostInputs, CostInputs]; lo: number; hi: number };
+  type Variation = {
+    parameter: TornadoParameter;
+    label: string;
+    unit: string;
+    value: number;
+    apply: (v: number) => [CostInputs, CostInputs];
+    lo: number;
+    hi: number;
+  };
   const carbon = base.carbonPrice_per_t;
   const variations: Variation[] = [
     {
@@ -101,7 +108,10 @@ export function tornado(
       label: "carbon price",
       unit: "currency/t CO2",
       value: carbon,
-      apply: (v) => [{ ...base, carbonPrice_per_t: v }, { ...cand, carbonPrice_per_t: v }],
+      apply: (v) => [
+        { ...base, carbonPrice_per_t: v },
+        { ...cand, carbonPrice_per_t: v },
+      ],
       lo: Math.max(0, pct(carbon, ranges.carbonPricePercent, -1)),
       hi: pct(carbon, ranges.carbonPricePercent, 1),
     },

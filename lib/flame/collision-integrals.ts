@@ -26,12 +26,12 @@ const DELTA_MAX = DELTA_STAR[ND - 1];
 
 /** Neufeld, Janzen & Aziz (1972): Ω(2,2)* of the LJ 12-6 potential. */
 export function omega22NJA(Ts: number): number {
-  const p = Math.pow(Ts, 0.14874);
+  const p = Ts ** 0.14874;
   return (
     1.16145 / p +
     0.52487 * Math.exp(-0.7732 * Ts) +
     2.16178 * Math.exp(-2.43787 * Ts) -
-    6.435e-4 * p * Math.sin(18.0323 * Math.pow(Ts, -0.7683) - 7.27371)
+    6.435e-4 * p * Math.sin(18.0323 * Ts ** -0.7683 - 7.27371)
   );
 }
 
@@ -41,7 +41,7 @@ const NJA11 = [1.06036, 0.1561, 0.193, 0.47635, 1.03587, 1.52996, 1.76474, 3.894
 /** Neufeld, Janzen & Aziz (1972): Ω(1,1)* of the LJ 12-6 potential, with its first and second T*-derivatives. */
 function omega11NJAWithDerivatives(Ts: number): [number, number, number] {
   const [a, b, c, d, e, f, g, h] = NJA11;
-  const pw = a * Math.pow(Ts, -b);
+  const pw = a * Ts ** -b;
   const ed = c * Math.exp(-d * Ts);
   const ef = e * Math.exp(-f * Ts);
   const eh = g * Math.exp(-h * Ts);
@@ -78,8 +78,12 @@ function stencil(g: readonly number[], v: number): number {
 function table2(table: readonly number[], Ts: number, ds: number): number {
   const j0 = stencil(DELTA_STAR, ds);
   const i0 = stencil(TSTAR, Ts);
-  const d0 = DELTA_STAR[j0], d1 = DELTA_STAR[j0 + 1], d2 = DELTA_STAR[j0 + 2];
-  let r0 = 0, r1 = 0, r2 = 0;
+  const d0 = DELTA_STAR[j0],
+    d1 = DELTA_STAR[j0 + 1],
+    d2 = DELTA_STAR[j0 + 2];
+  let r0 = 0,
+    r1 = 0,
+    r2 = 0;
   for (let r = 0; r < 3; r++) {
     const o = (i0 + r) * ND + j0;
     const v = ds === 0 ? table[o - j0] : quad(ds, d0, d1, d2, table[o], table[o + 1], table[o + 2]);
@@ -93,7 +97,7 @@ function table2(table: readonly number[], Ts: number, ds: number): number {
 function checkDelta(ds: number): number {
   if (!(ds >= 0)) throw new Error(`collision integrals: reduced dipole δ* = ${ds} is not ≥ 0`);
   // Beyond the tables (no GRI-Mech species comes near): hold the last column.
-  return ds > DELTA_MAX ? DELTA_MAX : ds;
+  return Math.min(ds, DELTA_MAX);
 }
 
 /** Ω(2,2)*(T*, δ*), the viscosity collision integral. */

@@ -23,7 +23,16 @@ import { DEFAULT_GRID_CRITERIA, type GridCriteria } from "./grid";
 import { createKinetics, type Kinetics } from "./kinetics";
 import { loadMechanism, type Mechanism } from "./mechanism";
 import { DEFAULT_POST_FLAME_RESIDENCE_MS, DEFAULT_REFERENCE_O2_PERCENT, integratePostFlame, noReport, type NOReport } from "./post-flame";
-import { DEFAULT_SOLVER_SETTINGS, inletDensity, solvePremixed, type SolverSettings, type FlameSolution, type PremixedProblem, type ProgressInfo, type SolveStats } from "./premixed";
+import {
+  DEFAULT_SOLVER_SETTINGS,
+  inletDensity,
+  solvePremixed,
+  type SolverSettings,
+  type FlameSolution,
+  type PremixedProblem,
+  type ProgressInfo,
+  type SolveStats,
+} from "./premixed";
 import { coldStart, massFractionsFromMoles, thinSolution, warmStart } from "./start";
 import { speciesThermoInto } from "./thermo";
 import { createMixtureTransport, type MixtureTransport } from "./transport";
@@ -130,7 +139,10 @@ function mechName(key: string): string {
 }
 
 /** The fresh mixture of a request; refuses fuels with species outside the mechanism, naming them. */
-export function flameMixture(req: Pick<FlameSpeedRequest, "fuel" | "oxidizer" | "phi" | "excessAirPercent" | "flueO2DryPercent">, mech: Mechanism): FlameMixture {
+export function flameMixture(
+  req: Pick<FlameSpeedRequest, "fuel" | "oxidizer" | "phi" | "excessAirPercent" | "flueO2DryPercent">,
+  mech: Mechanism,
+): FlameMixture {
   const fuel: ResolvedFuel = resolveFuel(req.fuel, "fuel");
   if (fuel.kind !== "gas" || !fuel.gasComposition) {
     throw new InputError("fuel", `the flame engine takes gaseous fuels only (this is a ${fuel.kind} fuel)`);
@@ -191,7 +203,15 @@ export function computeFlameSpeed(input: FlameSpeedInput, opts: FlameSpeedOption
   const rhoU = inletDensity(prob);
 
   // Stoke's equilibrium solver: the burnt state at the inlet enthalpy (start profile and check)
-  const eq = flameTemperature({ fuel: mix.fuel, oxidizer: mix.oxidizer, phi: 1 / mix.lambda, fuelTemperatureK: Tu, oxidizerTemperatureK: Tu, pressurePa: p, method: "equilibrium" });
+  const eq = flameTemperature({
+    fuel: mix.fuel,
+    oxidizer: mix.oxidizer,
+    phi: 1 / mix.lambda,
+    fuelTemperatureK: Tu,
+    oxidizerTemperatureK: Tu,
+    pressurePa: p,
+    method: "equilibrium",
+  });
   const burntX: Record<string, number> = {};
   for (const [k, v] of Object.entries(eq.products)) {
     const name = mechName(k);
@@ -243,7 +263,11 @@ export function computeFlameSpeed(input: FlameSpeedInput, opts: FlameSpeedOption
   // the flame must sit inside the domain: no temperature rise at the inlet
   const inletRiseK = x[n] - Tu;
   if (inletRiseK > 0.01 * (Tb - Tu) || !(S > 0)) {
-    throw new NotConvergedError("premixed-flame", "the flame is not contained in the domain (it reaches the inlet)", { inletRiseK, burningVelocity_m_per_s: S, gridPoints: N });
+    throw new NotConvergedError("premixed-flame", "the flame is not contained in the domain (it reaches the inlet)", {
+      inletRiseK,
+      burningVelocity_m_per_s: S,
+      gridPoints: N,
+    });
   }
 
   // checks: Σ Y, elements, enthalpy
@@ -325,7 +349,10 @@ export function computeFlameSpeed(input: FlameSpeedInput, opts: FlameSpeedOption
       enthalpyBalanceRelError: enthalpyErr,
       equilibriumTemperatureK: eq.temperatureK,
       burntMinusEquilibriumK: Tb - eq.temperatureK,
-      refinementHistory: run.velocityHistory.map((h) => ({ gridPoints: h.gridPoints, burningVelocity_cm_per_s: 100 * h.burningVelocity_m_per_s })),
+      refinementHistory: run.velocityHistory.map((h) => ({
+        gridPoints: h.gridPoints,
+        burningVelocity_cm_per_s: 100 * h.burningVelocity_m_per_s,
+      })),
     },
     solution: { flame: sol, unburntTemperatureK: Tu, inletDensity_kg_per_m3: rhoU, inletY, burntEstimate: burnt, mechanism: mech.name },
     diagnostics: { ...run.stats, refinementPasses: run.refinementPasses, ...(cpu ? { cpuSeconds: (cpu.user + cpu.system) / 1e6 } : {}) },

@@ -74,15 +74,28 @@ export function createKinetics(mech: Mechanism): Kinetics {
   const nR = rx.length;
 
   // ---- flattened reaction data ----
-  const A = new Float64Array(nR), B = new Float64Array(nR), EaR = new Float64Array(nR);
-  const A0 = new Float64Array(nR), B0 = new Float64Array(nR), Ea0R = new Float64Array(nR);
+  const A = new Float64Array(nR),
+    B = new Float64Array(nR),
+    EaR = new Float64Array(nR);
+  const A0 = new Float64Array(nR),
+    B0 = new Float64Array(nR),
+    Ea0R = new Float64Array(nR);
   const kind = new Uint8Array(nR); // 0 elementary, 1 three-body, 2 fall-off
   const reversible = new Uint8Array(nR);
   const troeKind = new Uint8Array(nR); // 0 Lindemann, 1 Troe without T2, 2 Troe with T2
-  const troeA = new Float64Array(nR), troeT3 = new Float64Array(nR), troeT1 = new Float64Array(nR), troeT2 = new Float64Array(nR);
+  const troeA = new Float64Array(nR),
+    troeT3 = new Float64Array(nR),
+    troeT1 = new Float64Array(nR),
+    troeT2 = new Float64Array(nR);
   const dNu = new Float64Array(nR);
-  const fOff = new Int32Array(nR + 1), rOff = new Int32Array(nR + 1), sOff = new Int32Array(nR + 1), eOff = new Int32Array(nR + 1);
-  let nf = 0, nr = 0, ns = 0, ne = 0;
+  const fOff = new Int32Array(nR + 1),
+    rOff = new Int32Array(nR + 1),
+    sOff = new Int32Array(nR + 1),
+    eOff = new Int32Array(nR + 1);
+  let nf = 0,
+    nr = 0,
+    ns = 0,
+    ne = 0;
   for (const r of rx) {
     nf += r.forwardOrderIndex.length;
     nr += r.productIndex.length;
@@ -90,60 +103,103 @@ export function createKinetics(mech: Mechanism): Kinetics {
     if (r.efficiencies) for (let k = 0; k < nS; k++) if (r.efficiencies[k] !== 1) ne++;
   }
   // forward-rate factors (species, order), reverse-rate factors (species, product coefficient)
-  const fIdx = new Int32Array(nf), fOrd = new Float64Array(nf);
-  const rIdx = new Int32Array(nr), rOrd = new Float64Array(nr);
+  const fIdx = new Int32Array(nf),
+    fOrd = new Float64Array(nf);
+  const rIdx = new Int32Array(nr),
+    rOrd = new Float64Array(nr);
   // net stoichiometry (species, ν'' − ν'), one entry per appearance
-  const sIdx = new Int32Array(ns), sNu = new Float64Array(ns);
+  const sIdx = new Int32Array(ns),
+    sNu = new Float64Array(ns);
   // third-body efficiencies as default × C_total + Σ (ε_j − default) C_j; the default is 1 for GRI but kept general
   const effDefault = new Float64Array(nR);
-  const eIdx = new Int32Array(ne), eVal = new Float64Array(ne);
+  const eIdx = new Int32Array(ne),
+    eVal = new Float64Array(ne);
   const effFull = new Float64Array(nR * nS); // ε_j for every species (Jacobian)
   nf = nr = ns = ne = 0;
   for (let i = 0; i < nR; i++) {
     const r = rx[i];
-    A[i] = r.rate.A; B[i] = r.rate.b; EaR[i] = r.rate.Ea_J_per_mol / R_J_per_molK;
+    A[i] = r.rate.A;
+    B[i] = r.rate.b;
+    EaR[i] = r.rate.Ea_J_per_mol / R_J_per_molK;
     kind[i] = r.type === "elementary" ? 0 : r.type === "three-body" ? 1 : 2;
     reversible[i] = r.reversible ? 1 : 0;
     if (r.lowRate) {
-      A0[i] = r.lowRate.A; B0[i] = r.lowRate.b; Ea0R[i] = r.lowRate.Ea_J_per_mol / R_J_per_molK;
+      A0[i] = r.lowRate.A;
+      B0[i] = r.lowRate.b;
+      Ea0R[i] = r.lowRate.Ea_J_per_mol / R_J_per_molK;
     }
     if (r.troe) {
       troeKind[i] = r.troe[3] === null ? 1 : 2;
-      troeA[i] = r.troe[0]; troeT3[i] = r.troe[1]; troeT1[i] = r.troe[2]; troeT2[i] = r.troe[3] ?? 0;
+      troeA[i] = r.troe[0];
+      troeT3[i] = r.troe[1];
+      troeT1[i] = r.troe[2];
+      troeT2[i] = r.troe[3] ?? 0;
     }
     fOff[i] = nf;
-    for (let j = 0; j < r.forwardOrderIndex.length; j++) { fIdx[nf] = r.forwardOrderIndex[j]; fOrd[nf] = r.forwardOrder[j]; nf++; }
+    for (let j = 0; j < r.forwardOrderIndex.length; j++) {
+      fIdx[nf] = r.forwardOrderIndex[j];
+      fOrd[nf] = r.forwardOrder[j];
+      nf++;
+    }
     rOff[i] = nr;
-    for (let j = 0; j < r.productIndex.length; j++) { rIdx[nr] = r.productIndex[j]; rOrd[nr] = r.productCoeff[j]; nr++; }
+    for (let j = 0; j < r.productIndex.length; j++) {
+      rIdx[nr] = r.productIndex[j];
+      rOrd[nr] = r.productCoeff[j];
+      nr++;
+    }
     sOff[i] = ns;
     let dn = 0;
-    for (let j = 0; j < r.reactantIndex.length; j++) { sIdx[ns] = r.reactantIndex[j]; sNu[ns] = -r.reactantCoeff[j]; dn -= r.reactantCoeff[j]; ns++; }
-    for (let j = 0; j < r.productIndex.length; j++) { sIdx[ns] = r.productIndex[j]; sNu[ns] = r.productCoeff[j]; dn += r.productCoeff[j]; ns++; }
+    for (let j = 0; j < r.reactantIndex.length; j++) {
+      sIdx[ns] = r.reactantIndex[j];
+      sNu[ns] = -r.reactantCoeff[j];
+      dn -= r.reactantCoeff[j];
+      ns++;
+    }
+    for (let j = 0; j < r.productIndex.length; j++) {
+      sIdx[ns] = r.productIndex[j];
+      sNu[ns] = r.productCoeff[j];
+      dn += r.productCoeff[j];
+      ns++;
+    }
     dNu[i] = dn;
     eOff[i] = ne;
     if (r.efficiencies) {
       effDefault[i] = 1;
       for (let k = 0; k < nS; k++) {
         effFull[i * nS + k] = r.efficiencies[k];
-        if (r.efficiencies[k] !== 1) { eIdx[ne] = k; eVal[ne] = r.efficiencies[k] - 1; ne++; }
+        if (r.efficiencies[k] !== 1) {
+          eIdx[ne] = k;
+          eVal[ne] = r.efficiencies[k] - 1;
+          ne++;
+        }
       }
     }
   }
-  fOff[nR] = nf; rOff[nR] = nr; sOff[nR] = ns; eOff[nR] = ne;
+  fOff[nR] = nf;
+  rOff[nR] = nr;
+  sOff[nR] = ns;
+  eOff[nR] = ne;
 
   // ---- work arrays ----
-  const cpR = new Float64Array(nS), hRT = new Float64Array(nS), sR = new Float64Array(nS), gRT = new Float64Array(nS);
+  const cpR = new Float64Array(nS),
+    hRT = new Float64Array(nS),
+    sR = new Float64Array(nS),
+    gRT = new Float64Array(nS);
   const kInf = new Float64Array(nR); // k_f (elementary, three-body) or k_∞ (fall-off) at T
   const k0 = new Float64Array(nR);
   const invKc = new Float64Array(nR); // 1/K_c (0 for irreversible reactions)
   const fcent = new Float64Array(nR);
   // temperature derivatives at constant concentrations (for the Jacobian's ∂ω̇/∂T)
-  const dlnkInf = new Float64Array(nR), dlnk0 = new Float64Array(nR), dfcent = new Float64Array(nR), dlnInvKc = new Float64Array(nR);
+  const dlnkInf = new Float64Array(nR),
+    dlnk0 = new Float64Array(nR),
+    dfcent = new Float64Array(nR),
+    dlnInvKc = new Float64Array(nR);
   const dlnkf = new Float64Array(nR); // d ln k_f,eff/dT at constant C
   const kfEff = new Float64Array(nR); // effective k_f at (T, C)
   const dkfdM = new Float64Array(nR); // ∂k_f,eff/∂[M] (fall-off)
   const conc3 = new Float64Array(nR); // [M] (three-body, fall-off)
-  const qf = new Float64Array(nR), qr = new Float64Array(nR);
+  const qf = new Float64Array(nR),
+    qr = new Float64Array(nR);
   const w0 = new Float64Array(nS);
   let lastT = Number.NaN;
   const stdConc = (T: number) => mech.standardPressurePa / (R_J_per_molK * T);
@@ -152,12 +208,14 @@ export function createKinetics(mech: Mechanism): Kinetics {
     if (T === lastT) return;
     if (!(T > 0) || !Number.isFinite(T)) throw new Error(`kinetics: temperature must be a positive finite number, got ${T}`);
     lastT = T;
-    const lnT = Math.log(T), invT = 1 / T;
+    const lnT = Math.log(T),
+      invT = 1 / T;
     speciesThermoInto(mech, T, cpR, hRT, sR);
     for (let k = 0; k < nS; k++) gRT[k] = hRT[k] - sR[k];
     const lnC0 = Math.log(stdConc(T));
     for (let i = 0; i < nR; i++) {
-      const bi = B[i], ei = EaR[i];
+      const bi = B[i],
+        ei = EaR[i];
       kInf[i] = bi === 0 && ei === 0 ? A[i] : A[i] * Math.exp(bi * lnT - ei * invT);
       dlnkInf[i] = (bi + ei * invT) * invT;
       if (kind[i] === 2) {
@@ -166,7 +224,8 @@ export function createKinetics(mech: Mechanism): Kinetics {
         const tk = troeKind[i];
         if (tk > 0) {
           const a = troeA[i];
-          const e3 = Math.exp(-T / troeT3[i]), e1 = Math.exp(-T / troeT1[i]);
+          const e3 = Math.exp(-T / troeT3[i]),
+            e1 = Math.exp(-T / troeT1[i]);
           let fc = (1 - a) * e3 + a * e1;
           let dfc = (-(1 - a) * e3) / troeT3[i] - (a * e1) / troeT1[i];
           if (tk === 2) {
@@ -179,7 +238,8 @@ export function createKinetics(mech: Mechanism): Kinetics {
         }
       }
       if (reversible[i]) {
-        let dG = 0, dH = 0;
+        let dG = 0,
+          dH = 0;
         for (let p = sOff[i]; p < sOff[i + 1]; p++) {
           dG += sNu[p] * gRT[sIdx[p]];
           dH += sNu[p] * hRT[sIdx[p]];
@@ -200,11 +260,19 @@ export function createKinetics(mech: Mechanism): Kinetics {
     for (let k = 0; k < nS; k++) Ctot += C[k];
     for (let i = 0; i < nR; i++) {
       const kd = kind[i];
-      if (kd === 0) { kfEff[i] = kInf[i]; dlnkf[i] = dlnkInf[i]; continue; }
+      if (kd === 0) {
+        kfEff[i] = kInf[i];
+        dlnkf[i] = dlnkInf[i];
+        continue;
+      }
       let M = effDefault[i] * Ctot;
       for (let p = eOff[i]; p < eOff[i + 1]; p++) M += eVal[p] * C[eIdx[p]];
       conc3[i] = M;
-      if (kd === 1) { kfEff[i] = kInf[i]; dlnkf[i] = dlnkInf[i]; continue; }
+      if (kd === 1) {
+        kfEff[i] = kInf[i];
+        dlnkf[i] = dlnkInf[i];
+        continue;
+      }
       // fall-off
       const ki = kInf[i];
       const PrRaw = (k0[i] * M) / ki;
@@ -212,7 +280,9 @@ export function createKinetics(mech: Mechanism): Kinetics {
       const lind = Pr / (1 + Pr);
       // d ln P_r/dT at constant [M] (0 where P_r sits on its floor)
       const dlnPr = PrRaw > PR_FLOOR ? dlnk0[i] - dlnkInf[i] : 0;
-      let F = 1, dlnFdx = 0, dlnFdT = 0;
+      let F = 1,
+        dlnFdx = 0,
+        dlnFdT = 0;
       if (troeKind[i] > 0) {
         const fc = Math.max(fcent[i], 1e-300);
         const lfc = Math.log10(fc);
@@ -248,7 +318,10 @@ export function createKinetics(mech: Mechanism): Kinetics {
         r = kfEff[i] * invKc[i];
         for (let p = rOff[i]; p < rOff[i + 1]; p++) r *= powOrder(C[rIdx[p]], rOrd[p]);
       }
-      if (kind[i] === 1) { f *= conc3[i]; r *= conc3[i]; }
+      if (kind[i] === 1) {
+        f *= conc3[i];
+        r *= conc3[i];
+      }
       qf[i] = f;
       qr[i] = r;
     }
@@ -300,7 +373,8 @@ export function createKinetics(mech: Mechanism): Kinetics {
       if (kd === 0) continue;
       // dependence through [M]: ∂q/∂C_j += ε_j · ∂q/∂[M]
       // q = k(M) (Π_f − Π_r/K_c) with k = [M] k_f (three-body) or k_f,eff([M]) (fall-off)
-      let f = 1, r = 0;
+      let f = 1,
+        r = 0;
       for (let p = fOff[i]; p < fOff[i + 1]; p++) f *= powOrder(C[fIdx[p]], fOrd[p]);
       if (reversible[i]) {
         r = invKc[i];

@@ -135,20 +135,31 @@ export function integratePostFlame(mech: Mechanism, kin: Kinetics, input: PostFl
   const energy = input.energy ?? "adiabatic";
   const adiabatic = energy === "adiabatic";
   const refO2 = input.referenceO2Percent ?? DEFAULT_REFERENCE_O2_PERCENT;
-  if (!(residenceMs >= 0) || !Number.isFinite(residenceMs)) throw new InputError("postFlameResidenceMs", `must be a finite number of ms ≥ 0, got ${residenceMs}`);
+  if (!(residenceMs >= 0) || !Number.isFinite(residenceMs))
+    throw new InputError("postFlameResidenceMs", `must be a finite number of ms ≥ 0, got ${residenceMs}`);
   if (!(refO2 >= 0 && refO2 < 21)) throw new InputError("referenceO2Percent", `must be ≥ 0 and below 21 %, got ${refO2}`);
-  if (!(input.temperatureK > 0) || !(input.pressurePa > 0)) throw new InputError("", "post-flame: temperature and pressure must be positive");
+  if (!(input.temperatureK > 0) || !(input.pressurePa > 0))
+    throw new InputError("", "post-flame: temperature and pressure must be positive");
   const tEnd = residenceMs / 1000;
 
   const sys = createPlugFlowSystem(mech, kin, p, adiabatic);
   const { rhs, Jf } = sys;
   const jacobian = sys.jacobian;
-  const cpR = new Float64Array(n), hRT = new Float64Array(n), sR = new Float64Array(n);
+  const cpR = new Float64Array(n),
+    hRT = new Float64Array(n),
+    sR = new Float64Array(n);
   const Mx = new Float64Array(N * N);
   const piv = new Int32Array(N);
-  const y0 = new Float64Array(N), y1 = new Float64Array(N), z = new Float64Array(N);
-  const f0 = new Float64Array(N), fg = new Float64Array(N), f1 = new Float64Array(N);
-  const r = new Float64Array(N), res = new Float64Array(N), dy = new Float64Array(N), err = new Float64Array(N);
+  const y0 = new Float64Array(N),
+    y1 = new Float64Array(N),
+    z = new Float64Array(N);
+  const f0 = new Float64Array(N),
+    fg = new Float64Array(N),
+    f1 = new Float64Array(N);
+  const r = new Float64Array(N),
+    res = new Float64Array(N),
+    dy = new Float64Array(N),
+    err = new Float64Array(N);
 
   /** Newton matrix I − (γ/2) h J, factored in place (dense LU of the block solver). */
   function factor(h: number): boolean {
@@ -206,32 +217,57 @@ export function integratePostFlame(mech: Mechanism, kin: Kinetics, input: PostFl
 
   let t = 0;
   let h = Math.min(1e-8, tEnd);
-  let steps = 0, rejected = 0, newtonFailures = 0;
+  let steps = 0,
+    rejected = 0,
+    newtonFailures = 0;
   while (t < tEnd * (1 - 1e-12)) {
     if (input.signal?.aborted) throw new NotConvergedError("post-flame", "cancelled", { cancelled: true, timeMs: t * 1000, steps });
     if (steps + rejected > MAX_STEPS) {
-      throw new NotConvergedError("post-flame", `the post-flame integration did not reach ${residenceMs} ms in ${MAX_STEPS} steps`, { timeMs: t * 1000, steps, rejected, newtonFailures, stepS: h, temperatureK: y0[n] }, "postFlameResidenceMs");
+      throw new NotConvergedError(
+        "post-flame",
+        `the post-flame integration did not reach ${residenceMs} ms in ${MAX_STEPS} steps`,
+        { timeMs: t * 1000, steps, rejected, newtonFailures, stepS: h, temperatureK: y0[n] },
+        "postFlameResidenceMs",
+      );
     }
     // do not step over the next sample time or the end
     const tStop = nextSample < samplesMs.length ? Math.min(samplesMs[nextSample] / 1000, tEnd) : tEnd;
     if (t + h > tStop) h = tStop - t;
     if (h < 1e-16 * Math.max(tEnd, 1e-9) || h < 1e-20) {
-      throw new NotConvergedError("post-flame", "the post-flame integration step fell below round-off", { timeMs: t * 1000, steps, rejected, newtonFailures, stepS: h, temperatureK: y0[n] }, "postFlameResidenceMs");
+      throw new NotConvergedError(
+        "post-flame",
+        "the post-flame integration step fell below round-off",
+        { timeMs: t * 1000, steps, rejected, newtonFailures, stepS: h, temperatureK: y0[n] },
+        "postFlameResidenceMs",
+      );
     }
     jacobian(y0, f0);
-    if (!factor(h)) { h *= 0.25; rejected++; continue; }
+    if (!factor(h)) {
+      h *= 0.25;
+      rejected++;
+      continue;
+    }
     // stage 1: trapezoid to t + γh
     for (let i = 0; i < N; i++) r[i] = y0[i] + D * h * f0[i];
     z.set(y0);
     let ok = newton(z, r, h, fg);
     if (ok) {
       // stage 2: BDF2 to t + h
-      const a = 1 / (GAMMA * (2 - GAMMA)), b = ((1 - GAMMA) * (1 - GAMMA)) / (GAMMA * (2 - GAMMA));
+      const a = 1 / (GAMMA * (2 - GAMMA)),
+        b = ((1 - GAMMA) * (1 - GAMMA)) / (GAMMA * (2 - GAMMA));
       // predictor: the line through y_n and y_{n+γ}
-      for (let i = 0; i < N; i++) { res[i] = a * z[i] - b * y0[i]; y1[i] = y0[i] + (z[i] - y0[i]) / GAMMA; }
+      for (let i = 0; i < N; i++) {
+        res[i] = a * z[i] - b * y0[i];
+        y1[i] = y0[i] + (z[i] - y0[i]) / GAMMA;
+      }
       ok = newton(y1, res, h, f1);
     }
-    if (!ok) { h *= 0.5; rejected++; newtonFailures++; continue; }
+    if (!ok) {
+      h *= 0.5;
+      rejected++;
+      newtonFailures++;
+      continue;
+    }
     // error estimate, filtered through the Newton matrix
     for (let i = 0; i < N; i++) err[i] = 2 * ERR_C * h * (f0[i] / GAMMA - fg[i] / (GAMMA * (1 - GAMMA)) + f1[i] / (1 - GAMMA));
     solve(err);
@@ -241,9 +277,17 @@ export function integratePostFlame(mech: Mechanism, kin: Kinetics, input: PostFl
       en += e * e;
     }
     en = Math.sqrt(en / N);
-    if (!Number.isFinite(en)) { h *= 0.25; rejected++; continue; }
+    if (!Number.isFinite(en)) {
+      h *= 0.25;
+      rejected++;
+      continue;
+    }
     const fac = Math.min(5, Math.max(0.2, 0.9 * Math.cbrt(1 / Math.max(en, 1e-12))));
-    if (en > 1) { h *= fac; rejected++; continue; }
+    if (en > 1) {
+      h *= fac;
+      rejected++;
+      continue;
+    }
     t += h;
     steps++;
     y0.set(y1);
@@ -256,7 +300,10 @@ export function integratePostFlame(mech: Mechanism, kin: Kinetics, input: PostFl
   const X = new Float64Array(n);
   molesOf(y0, X);
   const Yend = y0.slice(0, n);
-  const iNO = idx(mech, "NO"), iNO2 = idx(mech, "NO2"), iO2 = idx(mech, "O2"), iH2O = idx(mech, "H2O");
+  const iNO = idx(mech, "NO"),
+    iNO2 = idx(mech, "NO2"),
+    iO2 = idx(mech, "O2"),
+    iH2O = idx(mech, "H2O");
   const dry = 1 - Math.max(X[iH2O], 0);
   const NO = (1e6 * Math.max(X[iNO], 0)) / dry;
   const NO2 = (1e6 * Math.max(X[iNO2], 0)) / dry;
@@ -314,10 +361,15 @@ export function createPlugFlowSystem(mech: Mechanism, kin: Kinetics, p: number, 
   const n = mech.nSpecies;
   const N = n + 1;
   const W = mech.molarMass_kg_per_mol;
-  const C = new Float64Array(n), wdot = new Float64Array(n);
-  const cpR = new Float64Array(n), hRT = new Float64Array(n), sR = new Float64Array(n);
-  const hk = new Float64Array(n), cpk = new Float64Array(n);
-  const dWdC = new Float64Array(n * n), dWdT = new Float64Array(n);
+  const C = new Float64Array(n),
+    wdot = new Float64Array(n);
+  const cpR = new Float64Array(n),
+    hRT = new Float64Array(n),
+    sR = new Float64Array(n);
+  const hk = new Float64Array(n),
+    cpk = new Float64Array(n);
+  const dWdC = new Float64Array(n * n),
+    dWdT = new Float64Array(n);
   const Jf = new Float64Array(N * N);
 
   let rhoLast = 0;
@@ -334,7 +386,8 @@ export function createPlugFlowSystem(mech: Mechanism, kin: Kinetics, p: number, 
     for (let k = 0; k < n; k++) out[k] = (wdot[k] * W[k]) / rho;
     if (adiabatic) {
       speciesThermoInto(mech, T, cpR, hRT, sR);
-      let cp = 0, q = 0;
+      let cp = 0,
+        q = 0;
       for (let k = 0; k < n; k++) {
         hk[k] = (hRT[k] * R_J_per_molK * T) / W[k];
         cpk[k] = (cpR[k] * R_J_per_molK) / W[k];

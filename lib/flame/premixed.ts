@@ -208,7 +208,14 @@ export class FlameGridSolver {
   /** Use the kinetics' analytic Jacobian for the source terms (when it has one). */
   analyticKinetics: boolean;
 
-  constructor(prob: PremixedProblem, z: Float64Array, x: Float64Array, jFix: number, tFix: number, settings: SolverSettings = DEFAULT_SOLVER_SETTINGS) {
+  constructor(
+    prob: PremixedProblem,
+    z: Float64Array,
+    x: Float64Array,
+    jFix: number,
+    tFix: number,
+    settings: SolverSettings = DEFAULT_SOLVER_SETTINGS,
+  ) {
     const K = prob.mech.nSpecies;
     this.prob = prob;
     this.K = K;
@@ -448,7 +455,11 @@ export class FlameGridSolver {
     const lm = 0.5 * (this.lambda[j - 1] + this.lambda[j]);
     const lp = 0.5 * (this.lambda[j] + this.lambda[j + 1]);
     const dTc = (Tp - Tm) / (2 * dzc);
-    let rT = (mdot * this.cpMass[j] * (T - Tm)) / dzc - (lp * (Tp - T) / dzp - lm * (T - Tm) / dzm) / dzc + sumFluxCp * R_J_per_molK * dTc + heat * RT;
+    let rT =
+      (mdot * this.cpMass[j] * (T - Tm)) / dzc -
+      ((lp * (Tp - T)) / dzp - (lm * (T - Tm)) / dzm) / dzc +
+      sumFluxCp * R_J_per_molK * dTc +
+      heat * RT;
     if (rdt !== 0) rT += rho * this.cpMass[j] * (T - xo[o]) * rdt;
     out[o] = rT;
   }
@@ -799,7 +810,15 @@ export function solvePremixed(prob: PremixedProblem, start: FlameSolution, opts:
   const tFix = start.tFix;
   const zFix = start.zFix;
   const rhoU = inletDensity(prob);
-  const stats: SolveStats = { residualEvaluations: 0, jacobianEvaluations: 0, newtonIterations: 0, timeSteps: 0, jacobianSeconds: 0, factorSeconds: 0, residualSeconds: 0 };
+  const stats: SolveStats = {
+    residualEvaluations: 0,
+    jacobianEvaluations: 0,
+    newtonIterations: 0,
+    timeSteps: 0,
+    jacobianSeconds: 0,
+    factorSeconds: 0,
+    residualSeconds: 0,
+  };
   const history: PremixedRunResult["velocityHistory"] = [];
   const criteria = opts.criteria;
   for (let pass = 0; ; pass++) {
@@ -807,7 +826,11 @@ export function solvePremixed(prob: PremixedProblem, start: FlameSolution, opts:
     const settings = (pass === 0 ? opts.firstGridSettings : undefined) ?? opts.settings ?? DEFAULT_SOLVER_SETTINGS;
     const solver = new FlameGridSolver(prob, z, x, jFix, tFix, settings);
     solver.signal = opts.signal;
-    opts.onProgress?.({ stage: pass === 0 ? "solving on the starting grid" : `refinement pass ${pass}`, fraction: Math.min(0.95, z.length / criteria.maxPoints), gridPoints: z.length });
+    opts.onProgress?.({
+      stage: pass === 0 ? "solving on the starting grid" : `refinement pass ${pass}`,
+      fraction: Math.min(0.95, z.length / criteria.maxPoints),
+      gridPoints: z.length,
+    });
     try {
       solver.solve();
     } finally {
@@ -828,7 +851,12 @@ export function solvePremixed(prob: PremixedProblem, start: FlameSolution, opts:
         });
       }
       opts.onProgress?.({ stage: "converged", fraction: 1, gridPoints: z.length });
-      return { solution: { z, x, nSpecies: K, zFix, tFix, speciesNames: prob.mech.speciesNames }, stats, refinementPasses: pass, velocityHistory: history };
+      return {
+        solution: { z, x, nSpecies: K, zFix, tFix, speciesNames: prob.mech.speciesNames },
+        stats,
+        refinementPasses: pass,
+        velocityHistory: history,
+      };
     }
     x = interpolateField(z, x, n, zNew);
     z = zNew;

@@ -45,7 +45,12 @@ export interface BurntState {
  * Cold start: fresh mixture at T_u on [0, ramp start], the burnt state beyond the ramp, linear in
  * between; ṁ = ρ_u·S_guess. The anchor temperature is the start's temperature at the anchor point.
  */
-export function coldStart(prob: PremixedProblem, burnt: BurntState, burningVelocityGuess_m_per_s: number, length_m = domainLength_m(prob.pressurePa)): FlameSolution {
+export function coldStart(
+  prob: PremixedProblem,
+  burnt: BurntState,
+  burningVelocityGuess_m_per_s: number,
+  length_m = domainLength_m(prob.pressurePa),
+): FlameSolution {
   const { mech } = prob;
   const K = mech.nSpecies;
   const n = K + 2;
@@ -111,7 +116,14 @@ export function warmStart(
     x[o + K + 1] *= newInletDensity / fromInletDensity;
   }
   const wFix = progress(from.tFix);
-  return { z: Float64Array.from(from.z), x, nSpecies: K, zFix: from.zFix, tFix: from.tFix + (1 - wFix) * dTu + wFix * dTb, speciesNames: from.speciesNames };
+  return {
+    z: Float64Array.from(from.z),
+    x,
+    nSpecies: K,
+    zFix: from.zFix,
+    tFix: from.tFix + (1 - wFix) * dTu + wFix * dTb,
+    speciesNames: from.speciesNames,
+  };
 }
 
 /**

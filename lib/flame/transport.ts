@@ -129,7 +129,8 @@ function kineticData(mech: Mechanism): KineticData {
   const alphaStar = new Float64Array(K);
   for (let k = 0; k < K; k++) {
     const name = mech.speciesNames[k];
-    const e = tr.wellDepthK[k], s = tr.diameterAngstrom[k];
+    const e = tr.wellDepthK[k],
+      s = tr.diameterAngstrom[k];
     if (!(e > 0) || !(s > 0) || !(W[k] > 0)) {
       throw new Error(`transport: species ${name} of mechanism ${mech.name} lacks Lennard-Jones data (ε/k=${e}, σ=${s})`);
     }
@@ -151,12 +152,14 @@ function kineticData(mech: Mechanism): KineticData {
     for (let k = j; k < K; k++) {
       let e = Math.sqrt(eps[j] * eps[k]);
       let s = 0.5 * (sigma[j] + sigma[k]);
-      const polarJ = tr.dipoleDebye[j] > 0, polarK = tr.dipoleDebye[k] > 0;
+      const polarJ = tr.dipoleDebye[j] > 0,
+        polarK = tr.dipoleDebye[k] > 0;
       if (polarJ !== polarK) {
-        const p = polarJ ? j : k, n = polarJ ? k : j;
+        const p = polarJ ? j : k,
+          n = polarJ ? k : j;
         const xi = 1 + 0.25 * alphaStar[n] * muStar2[p] * Math.sqrt(eps[p] / eps[n]);
         e *= xi * xi;
-        s *= Math.pow(xi, -1 / 6);
+        s *= xi ** (-1 / 6);
       }
       // δ*_jk = μ_j μ_k / (2 ε_jk σ_jk³), zero unless both are polar
       let d = 0;
@@ -173,7 +176,20 @@ function kineticData(mech: Mechanism): KineticData {
       }
     }
   }
-  return { K, W, mass, eps, sigma, deltaSelf, geometry: new Uint8Array(tr.geometry), zrot298: new Float64Array(tr.rotationalRelaxation), pairEps, pairSigma, pairDelta, pairMass };
+  return {
+    K,
+    W,
+    mass,
+    eps,
+    sigma,
+    deltaSelf,
+    geometry: new Uint8Array(tr.geometry),
+    zrot298: new Float64Array(tr.rotationalRelaxation),
+    pairEps,
+    pairSigma,
+    pairDelta,
+    pairMass,
+  };
 }
 
 /** Chapman–Enskog binary diffusion coefficient times pressure, D_jk·p [m²·Pa/s], from kinetic theory. */
@@ -227,7 +243,8 @@ function soretTheta(kd: KineticData, k: number, j: number, T: number): number {
   const A = aStar(Ts, d);
   const C = cStar(Ts, d);
   const B = ratiosLJFromRecursion(Ts).bStar;
-  const Wk = kd.W[k], Wj = kd.W[j];
+  const Wk = kd.W[k],
+    Wj = kd.W[j];
   return ((7.5 * (2 * A + 5) * (6 * C - 5)) / (A * (16 * A - 12 * B + 55))) * ((Wk - Wj) / (Wk + Wj));
 }
 
@@ -310,7 +327,8 @@ function buildFits(mech: Mechanism, soret: boolean): TransportFits {
   const kd = kineticData(mech);
   const K = kd.K;
   const [Tmin, Tmax] = TRANSPORT_FIT_RANGE_K;
-  const lnMin = Math.log(Tmin), lnMax = Math.log(Tmax);
+  const lnMin = Math.log(Tmin),
+    lnMax = Math.log(Tmax);
   const uc = 0.5 * (lnMin + lnMax);
   const uh = 0.5 * (lnMax - lnMin);
 
@@ -324,7 +342,9 @@ function buildFits(mech: Mechanism, soret: boolean): TransportFits {
   }
   const cpR = new Float64Array(FIT_POINTS * K);
   {
-    const cp = new Float64Array(K), h = new Float64Array(K), s = new Float64Array(K);
+    const cp = new Float64Array(K),
+      h = new Float64Array(K),
+      s = new Float64Array(K);
     for (let i = 0; i < FIT_POINTS; i++) {
       speciesThermoInto(mech, Tfit[i], cp, h, s);
       cpR.set(cp, i * K);
@@ -338,7 +358,7 @@ function buildFits(mech: Mechanism, soret: boolean): TransportFits {
   const w = new Float64Array(FIT_POINTS);
   for (let k = 0; k < K; k++) {
     for (let i = 0; i < FIT_POINTS; i++) {
-      y[i] = Math.sqrt(viscosityKT(kd, k, Tfit[i])) / Math.pow(Tfit[i], 0.25);
+      y[i] = Math.sqrt(viscosityKT(kd, k, Tfit[i])) / Tfit[i] ** 0.25;
       w[i] = 1 / y[i];
     }
     fitPoly(ufit, y, w, viscFit, k * NC);
@@ -378,7 +398,7 @@ function buildFits(mech: Mechanism, soret: boolean): TransportFits {
   for (let k = 0; k < K; k++) {
     for (let j = 0; j < K; j++) {
       wr[k * K + j] = kd.W[k] / kd.W[j];
-      wq[k * K + j] = Math.pow(kd.W[j] / kd.W[k], 0.25);
+      wq[k * K + j] = (kd.W[j] / kd.W[k]) ** 0.25;
       wd[k * K + j] = 1 / Math.sqrt(8 * (1 + kd.W[k] / kd.W[j]));
     }
   }
@@ -436,7 +456,9 @@ export function createMixtureTransport(mech: Mechanism, options: TransportOption
 
   function temperaturePart(T: number): void {
     const u = uOf(T);
-    const u2 = u * u, u3 = u2 * u, u4 = u3 * u;
+    const u2 = u * u,
+      u3 = u2 * u,
+      u4 = u3 * u;
     const sqrtT = Math.sqrt(T);
     for (let k = 0; k < K; k++) {
       const o = k * NC;
@@ -445,7 +467,12 @@ export function createMixtureTransport(mech: Mechanism, options: TransportOption
       invSv[k] = 1 / s;
       etaK[k] = s * s;
       const c = k * NCL;
-      lamK[k] = sqrtT * (condFit[c] + u * (condFit[c + 1] + u * (condFit[c + 2] + u * (condFit[c + 3] + u * (condFit[c + 4] + u * (condFit[c + 5] + u * condFit[c + 6]))))));
+      lamK[k] =
+        sqrtT *
+        (condFit[c] +
+          u *
+            (condFit[c + 1] +
+              u * (condFit[c + 2] + u * (condFit[c + 3] + u * (condFit[c + 4] + u * (condFit[c + 5] + u * condFit[c + 6]))))));
     }
     // Wilke: Φ_kj = [1 + (η_k/η_j)^½ (W_j/W_k)^¼]² / √(8(1 + W_k/W_j)); Φ_jk = Φ_kj (η_j/η_k)(W_k/W_j)
     for (let k = 0; k < K; k++) {
@@ -473,7 +500,8 @@ export function createMixtureTransport(mech: Mechanism, options: TransportOption
     for (let l = 0; l < nL; l++) {
       for (let j = 0; j < K; j++) {
         const o = (l * K + j) * NC;
-        theta[l * K + j] = j === light[l] ? 0 : thetaFit[o] + thetaFit[o + 1] * u + thetaFit[o + 2] * u2 + thetaFit[o + 3] * u3 + thetaFit[o + 4] * u4;
+        theta[l * K + j] =
+          j === light[l] ? 0 : thetaFit[o] + thetaFit[o + 1] * u + thetaFit[o + 2] * u2 + thetaFit[o + 3] * u3 + thetaFit[o + 4] * u4;
       }
     }
     lastT = T;
@@ -490,7 +518,9 @@ export function createMixtureTransport(mech: Mechanism, options: TransportOption
       sumX += x;
     }
     const invSumX = 1 / sumX;
-    let Wbar = 0, sumXlam = 0, sumXoverLam = 0;
+    let Wbar = 0,
+      sumXlam = 0,
+      sumXoverLam = 0;
     for (let k = 0; k < K; k++) {
       const x = Xc[k] * invSumX;
       Xc[k] = x;
@@ -506,7 +536,8 @@ export function createMixtureTransport(mech: Mechanism, options: TransportOption
     let eta = 0;
     for (let k = 0; k < K; k++) {
       const row = k * K;
-      let den = 0, dsum = 0;
+      let den = 0,
+        dsum = 0;
       for (let j = 0; j < K; j++) {
         const x = Xc[j];
         den += x * phi[row + j];

@@ -4,7 +4,16 @@
  */
 import type { FuelDefinition } from "../schemas/fuel";
 
-export type HazardKey = "hydrogen" | "biogas" | "ammonia" | "methanol" | "lpg" | "carbon-monoxide" | "solid-biomass" | "liquid-fuel" | "burner-change";
+export type HazardKey =
+  | "hydrogen"
+  | "biogas"
+  | "ammonia"
+  | "methanol"
+  | "lpg"
+  | "carbon-monoxide"
+  | "solid-biomass"
+  | "liquid-fuel"
+  | "burner-change";
 
 export interface Caution {
   hazard: HazardKey;
@@ -12,24 +21,20 @@ export interface Caution {
   text: string;
 }
 
-export const DEFER =
-  "Stoke is a screening and feasibility tool: local codes, the equipment maker and licensed engineers decide.";
+export const DEFER = "Stoke is a screening and feasibility tool: local codes, the equipment maker and licensed engineers decide.";
 
 const TEXT: Record<HazardKey, Omit<Caution, "hazard">> = {
   hydrogen: {
     title: "Hydrogen",
-    text:
-      "Wide flammability range (about 4–75 % in air), very low ignition energy, a nearly invisible flame, higher flame speed with risk of flashback, embrittlement of some steels, and leaks that are hard to detect. Fuel train, leak detection, flame supervision and hazardous-area zoning must be reviewed for hydrogen service.",
+    text: "Wide flammability range (about 4–75 % in air), very low ignition energy, a nearly invisible flame, higher flame speed with risk of flashback, embrittlement of some steels, and leaks that are hard to detect. Fuel train, leak detection, flame supervision and hazardous-area zoning must be reviewed for hydrogen service.",
   },
   biogas: {
     title: "Biogas and landfill gas",
-    text:
-      "Raw biogas can carry hydrogen sulfide (toxic even at low concentrations, corrosive, forms SO2 and acid condensate) and siloxanes (silica deposits on burners and heat-transfer surfaces). Gas clean-up, H2S monitoring and material compatibility need review.",
+    text: "Raw biogas can carry hydrogen sulfide (toxic even at low concentrations, corrosive, forms SO2 and acid condensate) and siloxanes (silica deposits on burners and heat-transfer surfaces). Gas clean-up, H2S monitoring and material compatibility need review.",
   },
   ammonia: {
     title: "Ammonia",
-    text:
-      "Toxic and corrosive; narrow flammability range and slow flame, hard to stabilise; fuel nitrogen raises NOx. Storage and handling fall under toxic-substance rules.",
+    text: "Toxic and corrosive; narrow flammability range and slow flame, hard to stabilise; fuel nitrogen raises NOx. Storage and handling fall under toxic-substance rules.",
   },
   methanol: {
     title: "Methanol",
@@ -86,7 +91,11 @@ export function cautionsFor(def: FuelDefinition): Caution[] {
   if (f.species.has("NH3")) keys.push("ammonia");
   if (f.species.has("CH3OH") || f.compounds.has("CH3OH")) keys.push("methanol");
   if (f.species.has("C3H8") || f.species.has("nC4H10") || f.species.has("iC4H10")) {
-    if (!f.species.has("CH4") || "composition" in def && ((def.composition.C3H8 ?? 0) + (def.composition.nC4H10 ?? 0) + (def.composition.iC4H10 ?? 0)) > 0.5) keys.push("lpg");
+    if (
+      !f.species.has("CH4") ||
+      ("composition" in def && (def.composition.C3H8 ?? 0) + (def.composition.nC4H10 ?? 0) + (def.composition.iC4H10 ?? 0) > 0.5)
+    )
+      keys.push("lpg");
   }
   if (f.species.has("CO")) keys.push("carbon-monoxide");
   if (f.ultimate?.kind === "solid") keys.push("solid-biomass");

@@ -44,7 +44,8 @@ export const LIQUID_COMPOUNDS: Record<string, LiquidCompound> = {
     normalBoilingPointK: 337.8,
     vaporizationEnthalpy_J_per_mol: 35.2e3,
     role: "pure compound",
-    source: "ΔfH°(l) −239.2 kJ/mol, cp(l) 81.1 J/(mol·K): NIST Chemistry WebBook, methanol (value from memory); density: common practice, no source; Tb 337.8 K, ΔvapH(Tb) 35.2 kJ/mol: NIST Chemistry WebBook, methanol (value from memory)",
+    source:
+      "ΔfH°(l) −239.2 kJ/mol, cp(l) 81.1 J/(mol·K): NIST Chemistry WebBook, methanol (value from memory); density: common practice, no source; Tb 337.8 K, ΔvapH(Tb) 35.2 kJ/mol: NIST Chemistry WebBook, methanol (value from memory)",
   },
   C2H5OH: {
     key: "C2H5OH",
@@ -57,7 +58,8 @@ export const LIQUID_COMPOUNDS: Record<string, LiquidCompound> = {
     normalBoilingPointK: 351.4,
     vaporizationEnthalpy_J_per_mol: 38.6e3,
     role: "pure compound",
-    source: "ΔfH°(l) −277.0 kJ/mol, cp(l) 112.3 J/(mol·K): NIST Chemistry WebBook, ethanol (value from memory); density: common practice, no source; Tb 351.4 K, ΔvapH(Tb) 38.6 kJ/mol: NIST Chemistry WebBook, ethanol (value from memory)",
+    source:
+      "ΔfH°(l) −277.0 kJ/mol, cp(l) 112.3 J/(mol·K): NIST Chemistry WebBook, ethanol (value from memory); density: common practice, no source; Tb 351.4 K, ΔvapH(Tb) 38.6 kJ/mol: NIST Chemistry WebBook, ethanol (value from memory)",
   },
   C12H26: {
     key: "C12H26",
@@ -68,7 +70,8 @@ export const LIQUID_COMPOUNDS: Record<string, LiquidCompound> = {
     density15C_kg_per_m3: 753,
     normalBoilingPointK: 489.5,
     role: "n-alkane surrogate for gas oil",
-    source: "ΔfH°(l) −350.9 kJ/mol, cp(l) 375.8 J/(mol·K): NIST Chemistry WebBook, dodecane (value from memory); Tb 489.5 K: NIST Chemistry WebBook, dodecane (value from memory)",
+    source:
+      "ΔfH°(l) −350.9 kJ/mol, cp(l) 375.8 J/(mol·K): NIST Chemistry WebBook, dodecane (value from memory); Tb 489.5 K: NIST Chemistry WebBook, dodecane (value from memory)",
   },
   C16H34: {
     key: "C16H34",
@@ -79,7 +82,8 @@ export const LIQUID_COMPOUNDS: Record<string, LiquidCompound> = {
     density15C_kg_per_m3: 777,
     normalBoilingPointK: 560.0,
     role: "n-alkane surrogate for hydrotreated vegetable oil (HVO)",
-    source: "ΔfH°(l) −456.1 kJ/mol, cp(l) 501.6 J/(mol·K): NIST Chemistry WebBook, hexadecane (value from memory); Tb 560 K: NIST Chemistry WebBook, hexadecane (value from memory)",
+    source:
+      "ΔfH°(l) −456.1 kJ/mol, cp(l) 501.6 J/(mol·K): NIST Chemistry WebBook, hexadecane (value from memory); Tb 560 K: NIST Chemistry WebBook, hexadecane (value from memory)",
   },
   C19H36O2: {
     key: "C19H36O2",
@@ -91,7 +95,8 @@ export const LIQUID_COMPOUNDS: Record<string, LiquidCompound> = {
     density15C_kg_per_m3: 877,
     normalBoilingPointK: 617,
     role: "methyl ester (FAME biodiesel) component",
-    source: "from gross heat of combustion ≈ 40.1 MJ/kg of methyl oleate (value from memory); cp(l) ≈ 2.0 kJ/(kg·K) (value from memory); Tb ≈ 617 K (value from memory)",
+    source:
+      "from gross heat of combustion ≈ 40.1 MJ/kg of methyl oleate (value from memory); cp(l) ≈ 2.0 kJ/(kg·K) (value from memory); Tb ≈ 617 K (value from memory)",
   },
   C17H34O2: {
     key: "C17H34O2",
@@ -102,7 +107,8 @@ export const LIQUID_COMPOUNDS: Record<string, LiquidCompound> = {
     density15C_kg_per_m3: 865,
     normalBoilingPointK: 611,
     role: "methyl ester (FAME biodiesel) component",
-    source: "from gross heat of combustion ≈ 39.45 MJ/kg of methyl palmitate (value from memory); cp(l) ≈ 2.0 kJ/(kg·K) (value from memory); Tb ≈ 611 K (value from memory)",
+    source:
+      "from gross heat of combustion ≈ 39.45 MJ/kg of methyl palmitate (value from memory); cp(l) ≈ 2.0 kJ/(kg·K) (value from memory); Tb ≈ 611 K (value from memory)",
   },
   C19H34O2: {
     key: "C19H34O2",
@@ -113,7 +119,8 @@ export const LIQUID_COMPOUNDS: Record<string, LiquidCompound> = {
     density15C_kg_per_m3: 892,
     normalBoilingPointK: 639,
     role: "methyl ester (FAME biodiesel) component",
-    source: "from gross heat of combustion ≈ 39.7 MJ/kg of methyl linoleate (value from memory); cp(l) ≈ 2.0 kJ/(kg·K) (value from memory); Tb ≈ 639 K (value from memory)",
+    source:
+      "from gross heat of combustion ≈ 39.7 MJ/kg of methyl linoleate (value from memory); cp(l) ≈ 2.0 kJ/(kg·K) (value from memory); Tb ≈ 639 K (value from memory)",
   },
 };
 

@@ -63,7 +63,14 @@ export { MAX_BLEND_NESTING };
 const ZERO = (): ElementMoles => ({ C: 0, H: 0, O: 0, N: 0, S: 0, Ar: 0 });
 
 /** Channiwala & Parikh (2002), Fuel 81, 1051–1063, eq. (HHV, dry basis, mass %): MJ/kg. */
-export function channiwalaParikhHHV_MJ_per_kg(dryMassPercent: { C: number; H: number; O: number; N: number; S: number; ash: number }): number {
+export function channiwalaParikhHHV_MJ_per_kg(dryMassPercent: {
+  C: number;
+  H: number;
+  O: number;
+  N: number;
+  S: number;
+  ash: number;
+}): number {
   const { C, H, O, N, S, ash } = dryMassPercent;
   return 0.3491 * C + 1.1783 * H + 0.1005 * S - 0.1034 * O - 0.0151 * N - 0.0211 * ash;
 }
@@ -151,7 +158,15 @@ function resolveLiquidCompound(key: string, field: string): ResolvedFuel {
 
 function resolveUltimate(def: Extract<FuelDefinition, { ultimate: unknown }>, label: string, field: string): ResolvedFuel {
   const given = def.ultimate;
-  const u = { C: given.C, H: given.H, O: given.O ?? 0, N: given.N ?? 0, S: given.S ?? 0, moisture: given.moisture ?? 0, ash: given.ash ?? 0 };
+  const u = {
+    C: given.C,
+    H: given.H,
+    O: given.O ?? 0,
+    N: given.N ?? 0,
+    S: given.S ?? 0,
+    moisture: given.moisture ?? 0,
+    ash: given.ash ?? 0,
+  };
   const W = ATOMIC_WEIGHT_g_per_mol;
   const Mw = 2 * W.H + W.O;
   const moistMol = (u.moisture * 1000) / Mw;
@@ -177,7 +192,8 @@ function resolveUltimate(def: Extract<FuelDefinition, { ultimate: unknown }>, la
     const dry = 1 - u.moisture;
     if (dry <= 0) throw new InputError(joinPath(field, "ultimate", "moisture"), "must be < 1 for a correlation");
     const pct = (v: number) => (100 * v) / dry;
-    hhv_MJ_per_kg = channiwalaParikhHHV_MJ_per_kg({ C: pct(u.C), H: pct(u.H), O: pct(u.O), N: pct(u.N), S: pct(u.S), ash: pct(u.ash) }) * dry;
+    hhv_MJ_per_kg =
+      channiwalaParikhHHV_MJ_per_kg({ C: pct(u.C), H: pct(u.H), O: pct(u.O), N: pct(u.N), S: pct(u.S), ash: pct(u.ash) }) * dry;
     origin = "channiwala-parikh-2002";
     notes.push("gross heating value by the Channiwala & Parikh (2002) correlation, Fuel 81:1051–1063, on dry basis, scaled to as received");
   }
@@ -200,7 +216,10 @@ function resolveUltimate(def: Extract<FuelDefinition, { ultimate: unknown }>, la
     sensibleEnthalpy_J_per_kg: (T) => cp * (T - T298K),
     heatingValueOrigin: origin,
     h2MoleFraction: 0,
-    notes: (def.kind ?? "solid") === "liquid" ? [...notes, "no boiling data for a liquid by ultimate analysis: it is taken as liquid at the feed temperature given"] : notes,
+    notes:
+      (def.kind ?? "solid") === "liquid"
+        ? [...notes, "no boiling data for a liquid by ultimate analysis: it is taken as liquid at the feed temperature given"]
+        : notes,
   };
 }
 
@@ -227,16 +246,20 @@ function resolveBlend(def: BlendFuelDefinition, label: string, field: string, de
   else if (def.basis === "energy") {
     massPerShare = parts.map((p, i) => {
       const e = energyShareWeight_MJ_per_kg(p.f);
-      if (!(e > 0)) throw new InputError(`${field}.blend.${i}.share`, "this component releases no heat, so it cannot carry a share of the energy; blend it by volume or mass");
+      if (!(e > 0))
+        throw new InputError(
+          `${field}.blend.${i}.share`,
+          "this component releases no heat, so it cannot carry a share of the energy; blend it by volume or mass",
+        );
       return 1 / e;
     });
-  }
-  else {
+  } else {
     if (kind === "gas") massPerShare = parts.map((p) => p.f.molarMass_g_per_mol! / 1000);
     else if (kind === "liquid") {
       massPerShare = parts.map((p, i) => {
         const rho = p.f.density_kg_per_m3;
-        if (!rho) throw new InputError(`${field}.blend.${i}.fuel.densityKgPerM3`, "a volume blend of liquids needs each component's density");
+        if (!rho)
+          throw new InputError(`${field}.blend.${i}.fuel.densityKgPerM3`, "a volume blend of liquids needs each component's density");
         return rho;
       });
     } else throw new InputError(`${field}.basis`, "solids blend by mass or energy, not by volume");
@@ -245,7 +268,11 @@ function resolveBlend(def: BlendFuelDefinition, label: string, field: string, de
   const totalMass = masses.reduce((a, b) => a + b, 0);
   const w = masses.map((m) => m / totalMass);
   const el = ZERO();
-  let hf = 0, moist = 0, ash = 0, carbon = 0, bioCarbon = 0;
+  let hf = 0,
+    moist = 0,
+    ash = 0,
+    carbon = 0,
+    bioCarbon = 0;
   parts.forEach((p, i) => {
     for (const e of ELEMENTS) el[e] += w[i] * p.f.elements_mol_per_kg[e];
     hf += w[i] * p.f.formationEnthalpy_J_per_kg;
@@ -277,7 +304,9 @@ function resolveBlend(def: BlendFuelDefinition, label: string, field: string, de
     const e = energy.reduce((a, b) => a + b, 0);
     out.upstreamCo2e_kg_per_GJ = parts.reduce((s, _p, i) => s + (energy[i] / e) * (upstream[i] as number), 0);
   } else if (missing.length < parts.length) {
-    out.notes.push(`upstream CO2e unknown: component${missing.length > 1 ? "s" : ""} ${missing.join(", ")} state${missing.length > 1 ? "" : "s"} no factor`);
+    out.notes.push(
+      `upstream CO2e unknown: component${missing.length > 1 ? "s" : ""} ${missing.join(", ")} state${missing.length > 1 ? "" : "s"} no factor`,
+    );
   }
   if (kind === "gas") {
     const molesPerKg = parts.map((p, i) => (w[i] * 1000) / p.f.molarMass_g_per_mol!);
@@ -305,12 +334,15 @@ function resolveBlend(def: BlendFuelDefinition, label: string, field: string, de
 function resolveFuelAt(def: FuelDefinition, field: string, depth: number): ResolvedFuel {
   const label = def.name ?? "";
   let f: ResolvedFuel;
-  if ("composition" in def) f = resolveGas(def.composition, label || describeComposition(def.composition), (k) => joinPath(field, "composition", k));
+  if ("composition" in def)
+    f = resolveGas(def.composition, label || describeComposition(def.composition), (k) => joinPath(field, "composition", k));
   else if ("compound" in def) {
     if (def.phase === "liquid") f = resolveLiquidCompound(def.compound, `${field}.compound`);
     else {
       if (SPECIES[def.compound]?.phase !== "gas") {
-        const hint = LIQUID_COMPOUNDS[def.compound] ? ` — ${def.compound} is known as a liquid: set phase "liquid"` : ` (known gases: ${gasSpeciesKeys().join(", ")})`;
+        const hint = LIQUID_COMPOUNDS[def.compound]
+          ? ` — ${def.compound} is known as a liquid: set phase "liquid"`
+          : ` (known gases: ${gasSpeciesKeys().join(", ")})`;
         throw new InputError(`${field}.compound`, `unknown species "${def.compound}"${hint}`);
       }
       f = resolveGas({ [def.compound]: 1 }, label || def.compound, () => joinPath(field, "compound"));

@@ -78,7 +78,8 @@ function flameAt(g: BurnerGas, lambda: number, input: BurnerShiftInput): Pick<Bu
     });
     return { adiabaticFlameTemperatureK: r.temperatureK };
   } catch (e) {
-    if (e instanceof NotConvergedError || e instanceof InfeasibleChargeError) return { adiabaticFlameTemperatureK: null, flameProblem: e.detail };
+    if (e instanceof NotConvergedError || e instanceof InfeasibleChargeError)
+      return { adiabaticFlameTemperatureK: null, flameProblem: e.detail };
     throw e;
   }
 }
@@ -115,7 +116,12 @@ export function burnerShift(input: BurnerShiftInput): BurnerShift {
   const flueUntuned = lambdaUntuned >= 1 ? flueO2DryFromLambda(c.fuel, lambdaUntuned, oxidizer) : 0;
   return {
     untuned: { lambda: lambdaUntuned, flueO2DryPercent: flueUntuned, heatInputChangePercent, ...flameAt(c, lambdaUntuned, input) },
-    retuned: { lambda: lambdaRetuned, flueO2DryPercent: input.setupFlueO2DryPercent, heatInputChangePercent: 0, ...flameAt(c, lambdaRetuned, input) },
+    retuned: {
+      lambda: lambdaRetuned,
+      flueO2DryPercent: input.setupFlueO2DryPercent,
+      heatInputChangePercent: 0,
+      ...flameAt(c, lambdaRetuned, input),
+    },
     gasVolumeRatio,
     airDemandRatio,
     notes,
@@ -132,10 +138,17 @@ export type BurnerRisk = "lean-blow-off" | "co-formation" | "sub-stoichiometric"
 export function burnerRisks(shift: BurnerShift, setupLambda: number): { risk: BurnerRisk; text: string }[] {
   const out: { risk: BurnerRisk; text: string }[] = [];
   const u = shift.untuned;
-  if (u.lambda < 1) out.push({ risk: "sub-stoichiometric", text: `λ ${u.lambda.toFixed(3)} < 1: sub-stoichiometric combustion, CO and unburnt fuel` });
+  if (u.lambda < 1)
+    out.push({ risk: "sub-stoichiometric", text: `λ ${u.lambda.toFixed(3)} < 1: sub-stoichiometric combustion, CO and unburnt fuel` });
   else if (u.lambda < 1.05) out.push({ risk: "co-formation", text: `λ ${u.lambda.toFixed(3)} close to 1: CO formation likely` });
-  if (u.lambda > 1.2 * setupLambda) out.push({ risk: "lean-blow-off", text: `λ ${u.lambda.toFixed(2)} is ${(100 * (u.lambda / setupLambda - 1)).toFixed(0)} % above its set-up value: lean blow-off and flame instability risk` });
-  if (u.heatInputChangePercent !== null && u.heatInputChangePercent < -5) out.push({ risk: "derating", text: `heat input ${u.heatInputChangePercent.toFixed(1)} %: the unit is derated until retuned` });
-  if (u.heatInputChangePercent !== null && u.heatInputChangePercent > 5) out.push({ risk: "overfiring", text: `heat input +${u.heatInputChangePercent.toFixed(1)} %: the unit is overfired until retuned` });
+  if (u.lambda > 1.2 * setupLambda)
+    out.push({
+      risk: "lean-blow-off",
+      text: `λ ${u.lambda.toFixed(2)} is ${(100 * (u.lambda / setupLambda - 1)).toFixed(0)} % above its set-up value: lean blow-off and flame instability risk`,
+    });
+  if (u.heatInputChangePercent !== null && u.heatInputChangePercent < -5)
+    out.push({ risk: "derating", text: `heat input ${u.heatInputChangePercent.toFixed(1)} %: the unit is derated until retuned` });
+  if (u.heatInputChangePercent !== null && u.heatInputChangePercent > 5)
+    out.push({ risk: "overfiring", text: `heat input +${u.heatInputChangePercent.toFixed(1)} %: the unit is overfired until retuned` });
   return out;
 }

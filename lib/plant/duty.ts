@@ -147,7 +147,13 @@ export function fuelVolume(ctx: FuelContext, mass_kg: number, meteringReferenceC
 }
 
 /** Flows of a fuel delivering `useful_kW` at efficiency `eff` (from efficiencyAtUseful at the same useful heat). */
-export function flowsForUseful(plant: Plant, ctx: FuelContext, perf: FuelPerformance, eff: EfficiencyResult, useful_kW: number): RatedFlows {
+export function flowsForUseful(
+  plant: Plant,
+  ctx: FuelContext,
+  perf: FuelPerformance,
+  eff: EfficiencyResult,
+  useful_kW: number,
+): RatedFlows {
   const net_kW = useful_kW / eff.net.efficiency;
   const MJ_per_h = (net_kW / 1000) * s_per_h;
   const p = perf.perMJ_net;
@@ -185,7 +191,13 @@ export interface AnnualDemand {
 }
 
 /** Annual fuel demand for `useful_MWh` at the efficiency `eff` of the average load. */
-export function annualDemand(plant: Plant, ctx: FuelContext, perf: FuelPerformance, eff: EfficiencyResult, useful_MWh: number): AnnualDemand {
+export function annualDemand(
+  plant: Plant,
+  ctx: FuelContext,
+  perf: FuelPerformance,
+  eff: EfficiencyResult,
+  useful_MWh: number,
+): AnnualDemand {
   const net = useful_MWh / eff.net.efficiency;
   const MJ = net * MJ_per_MWh;
   const kg = MJ * perf.perMJ_net.fuel_kg;

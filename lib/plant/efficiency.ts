@@ -26,7 +26,14 @@
 import type { ResolvedFuel } from "../fuels/resolve";
 import { stoichiometricO2_mol_per_kg } from "../combustion/stoichiometry";
 import type { HeatingValues } from "../combustion/heating-values";
-import { flueGasPerKgFuel, waterDewPointC, FLUE_SPECIES, NORMAL_MOLAR_VOLUME_m3_per_mol, type FlueGas, type FlueSpecies } from "../combustion/flue-gas";
+import {
+  flueGasPerKgFuel,
+  waterDewPointC,
+  FLUE_SPECIES,
+  NORMAL_MOLAR_VOLUME_m3_per_mol,
+  type FlueGas,
+  type FlueSpecies,
+} from "../combustion/flue-gas";
 import { OXIDIZER_SPECIES, type Oxidizer } from "../combustion/stoichiometry";
 import { h_J_per_mol, type Nasa7Species } from "../thermo/nasa7";
 import { SPECIES } from "../thermo/species-data";
@@ -166,7 +173,8 @@ export function coHeatOfCombustion_MJ_per_m3(): number {
  * is the ash plus the unburnt carbon, so m_C = ash · c / (1 − c). `field` names the input in errors.
  */
 export function unburntCarbon_kg_per_kg(fuel: ResolvedFuel, carbonInResiduePercent: number, field = "unburntCarbonInAshPercent"): number {
-  if (!(carbonInResiduePercent >= 0 && carbonInResiduePercent < 100)) throw new InputError(field, "must be ≥ 0 % and < 100 % of the residue");
+  if (!(carbonInResiduePercent >= 0 && carbonInResiduePercent < 100))
+    throw new InputError(field, "must be ≥ 0 % and < 100 % of the residue");
   if (carbonInResiduePercent === 0 || fuel.ash_kg_per_kg <= 0) return 0;
   const c = carbonInResiduePercent / 100;
   const m = (fuel.ash_kg_per_kg * c) / (1 - c);
@@ -183,16 +191,23 @@ export function unburntCarbon_kg_per_kg(fuel: ResolvedFuel, carbonInResiduePerce
 /** The part of a fuel that burns: the fuel less its unburnt carbon (kg per kg fuel as fired). */
 export function burntFuel(fuel: ResolvedFuel, unburntC_kg_per_kg: number): ResolvedFuel {
   if (unburntC_kg_per_kg <= 0) return fuel;
-  return { ...fuel, elements_mol_per_kg: { ...fuel.elements_mol_per_kg, C: fuel.elements_mol_per_kg.C - unburntC_kg_per_kg / CARBON_kg_per_mol } };
+  return {
+    ...fuel,
+    elements_mol_per_kg: { ...fuel.elements_mol_per_kg, C: fuel.elements_mol_per_kg.C - unburntC_kg_per_kg / CARBON_kg_per_mol },
+  };
 }
 
 /** Heat-loss (indirect) efficiency of a fuel at one operating condition. */
 export function heatLossEfficiency(fuel: ResolvedFuel, hv: HeatingValues, c: EfficiencyConditions): EfficiencyResult {
   if (hv.combustionReferenceC !== HEAT_BALANCE_REFERENCE_C) {
-    throw new InputError("combustionReferenceC", `the heat balance needs heating values at ${HEAT_BALANCE_REFERENCE_C} °C (got ${hv.combustionReferenceC} °C)`);
+    throw new InputError(
+      "combustionReferenceC",
+      `the heat balance needs heating values at ${HEAT_BALANCE_REFERENCE_C} °C (got ${hv.combustionReferenceC} °C)`,
+    );
   }
   if (!(c.stackTemperatureC > -40)) throw new InputError("stackTemperatureC", "must be above −40 °C");
-  if (!(c.radiationLossPercent >= 0 && c.radiationLossPercent < 100)) throw new InputError("radiationLossPercent", "must be ≥ 0 % and < 100 % of the heat input");
+  if (!(c.radiationLossPercent >= 0 && c.radiationLossPercent < 100))
+    throw new InputError("radiationLossPercent", "must be ≥ 0 % and < 100 % of the heat input");
   const coPpm = c.coDryPpm ?? 0;
   if (!(coPpm >= 0 && coPpm < 1e5)) throw new InputError("flueCODryPpm", "must be ≥ 0 and below 100 000 ppm");
   const p = c.pressurePa ?? atmospherePa;
@@ -298,7 +313,8 @@ export function heatLossEfficiency(fuel: ResolvedFuel, hv: HeatingValues, c: Eff
   const usefulDirect = hIn - hOut - radiation;
 
   return {
-    method: "heat-loss (indirect) method, concepts of EN 12952-15 / ASME PTC 4; NASA polynomial enthalpies; flue gas leaving saturated at the stack temperature (IAPWS-IF97)",
+    method:
+      "heat-loss (indirect) method, concepts of EN 12952-15 / ASME PTC 4; NASA polynomial enthalpies; flue gas leaving saturated at the stack temperature (IAPWS-IF97)",
     referenceC: HEAT_BALANCE_REFERENCE_C,
     lambda: c.lambda,
     flue,
@@ -325,7 +341,8 @@ export function heatLossEfficiency(fuel: ResolvedFuel, hv: HeatingValues, c: Eff
  * stays. Arithmetic only.
  */
 export function withRadiationShare(r: EfficiencyResult, radiationPercentNet: number): EfficiencyResult {
-  if (!(radiationPercentNet >= 0 && radiationPercentNet < 100)) throw new InputError("radiationLossPercent", "must be ≥ 0 % and < 100 % of the heat input");
+  if (!(radiationPercentNet >= 0 && radiationPercentNet < 100))
+    throw new InputError("radiationLossPercent", "must be ≥ 0 % and < 100 % of the heat input");
   const lhv = r.net.input_kJ_per_kg;
   const radiation = (radiationPercentNet / 100) * lhv;
   const dUseful = r.terms_kJ_per_kg.radiation - radiation;

@@ -83,7 +83,11 @@ const AT_LIMIT_TOLERANCE = 1e-9;
 /** Status of a one-sided "at most" limit. */
 function atMost(value: number, limit: number, warnAt: number): { status: CheckStatus; usage: number } {
   const usage = limit > 0 ? value / limit : value > AT_LIMIT_TOLERANCE ? Infinity : 0;
-  return { status: value > limit + AT_LIMIT_TOLERANCE * Math.max(1, Math.abs(limit)) ? "fail" : usage >= warnAt - AT_LIMIT_TOLERANCE ? "warn" : "pass", usage };
+  return {
+    status:
+      value > limit + AT_LIMIT_TOLERANCE * Math.max(1, Math.abs(limit)) ? "fail" : usage >= warnAt - AT_LIMIT_TOLERANCE ? "warn" : "pass",
+    usage,
+  };
 }
 
 /**
@@ -91,12 +95,16 @@ function atMost(value: number, limit: number, warnAt: number): { status: CheckSt
  * (or the operating point) is the first thing to check.
  */
 const BASELINE_LIMIT_HINT: Partial<Record<FitCheckId, string>> = {
-  "flue-gas-fan": "the baseline itself exceeds the flue-gas fan capacity, yet the plant runs on it today: check the entered capacity and its basis (actual or normal m³/h)",
-  "combustion-air-fan": "the baseline itself exceeds the combustion-air fan capacity, yet the plant runs on it today: check the entered capacity and its basis (actual or normal m³/h)",
-  "fuel-supply": "the baseline itself exceeds the fuel supply capacity, yet the plant runs on it today: check the entered capacity and its metering reference",
+  "flue-gas-fan":
+    "the baseline itself exceeds the flue-gas fan capacity, yet the plant runs on it today: check the entered capacity and its basis (actual or normal m³/h)",
+  "combustion-air-fan":
+    "the baseline itself exceeds the combustion-air fan capacity, yet the plant runs on it today: check the entered capacity and its basis (actual or normal m³/h)",
+  "fuel-supply":
+    "the baseline itself exceeds the fuel supply capacity, yet the plant runs on it today: check the entered capacity and its metering reference",
   "wobbe-range": "the baseline itself lies outside the entered Wobbe range: check the range and its reference temperatures",
   "hydrogen-share": "the baseline itself exceeds the burner maker's hydrogen limit: check the entered limit",
-  "stack-dew-point": "the baseline itself runs below its dew point in a non-condensing unit: check the stack temperature and the condensing setting",
+  "stack-dew-point":
+    "the baseline itself runs below its dew point in a non-condensing unit: check the stack temperature and the condensing setting",
 };
 
 const fmt = (v: number, d = 1) => (Number.isFinite(v) ? v.toFixed(d) : String(v));
@@ -117,7 +125,8 @@ export function fitChecks(plant: Plant, baseline: FuelInPlant, cand: FuelInPlant
   const isBaseline = cand === baseline;
   const push = (c: Omit<FitCheck, "label">) => {
     (c as FitCheck).label = FIT_CHECK_LABELS[c.id];
-    if (T && isBaseline && c.status === "fail" && c.limit !== null && BASELINE_LIMIT_HINT[c.id]) c.message = `${c.message} — ${BASELINE_LIMIT_HINT[c.id]}`;
+    if (T && isBaseline && c.status === "fail" && c.limit !== null && BASELINE_LIMIT_HINT[c.id])
+      c.message = `${c.message} — ${BASELINE_LIMIT_HINT[c.id]}`;
     out.push(c as FitCheck);
   };
 
@@ -131,18 +140,41 @@ export function fitChecks(plant: Plant, baseline: FuelInPlant, cand: FuelInPlant
     const tol = plant.wobbeTolerancePercent ?? null;
     if (!w || !wb) {
       push({
-        id: "wobbe-band", status: "not-applicable", value: null, limit: tol, unit: "%", usage: null, basis: wBasis,
+        id: "wobbe-band",
+        status: "not-applicable",
+        value: null,
+        limit: tol,
+        unit: "%",
+        usage: null,
+        basis: wBasis,
         message: !w ? "not a gaseous fuel: the Wobbe index does not apply" : "the baseline is not a gas: no Wobbe band to compare with",
       });
     } else {
       const shift = (100 * (w.gross_MJ_per_m3 - wb.gross_MJ_per_m3)) / wb.gross_MJ_per_m3;
       if (tol === null) {
-        push({ id: "wobbe-band", status: "not-checked", value: shift, limit: null, unit: "%", usage: null, basis: wBasis, message: T ? `Wobbe shift ${fmt(shift, 2)} % versus baseline; no ± band entered for this plant` : "" });
+        push({
+          id: "wobbe-band",
+          status: "not-checked",
+          value: shift,
+          limit: null,
+          unit: "%",
+          usage: null,
+          basis: wBasis,
+          message: T ? `Wobbe shift ${fmt(shift, 2)} % versus baseline; no ± band entered for this plant` : "",
+        });
       } else {
         const r = atMost(Math.abs(shift), tol, warnAt);
         push({
-          id: "wobbe-band", status: r.status, value: shift, limit: tol, unit: "%", usage: r.usage, basis: wBasis,
-          message: T ? `Wobbe ${fmt(w.gross_MJ_per_m3, 2)} MJ/m³, ${fmt(shift, 2)} % versus baseline ${fmt(wb.gross_MJ_per_m3, 2)} MJ/m³; band ±${fmt(tol, 1)} %` : "",
+          id: "wobbe-band",
+          status: r.status,
+          value: shift,
+          limit: tol,
+          unit: "%",
+          usage: r.usage,
+          basis: wBasis,
+          message: T
+            ? `Wobbe ${fmt(w.gross_MJ_per_m3, 2)} MJ/m³, ${fmt(shift, 2)} % versus baseline ${fmt(wb.gross_MJ_per_m3, 2)} MJ/m³; band ±${fmt(tol, 1)} %`
+            : "",
         });
       }
     }
@@ -151,9 +183,27 @@ export function fitChecks(plant: Plant, baseline: FuelInPlant, cand: FuelInPlant
     const lo = plant.wobbeMin_MJ_per_m3 ?? null;
     const hi = plant.wobbeMax_MJ_per_m3 ?? null;
     if (!w) {
-      push({ id: "wobbe-range", status: "not-applicable", value: null, limit: null, unit: "MJ/m³", usage: null, basis: wBasis, message: "not a gaseous fuel: the Wobbe index does not apply" });
+      push({
+        id: "wobbe-range",
+        status: "not-applicable",
+        value: null,
+        limit: null,
+        unit: "MJ/m³",
+        usage: null,
+        basis: wBasis,
+        message: "not a gaseous fuel: the Wobbe index does not apply",
+      });
     } else if (lo === null || hi === null) {
-      push({ id: "wobbe-range", status: "not-checked", value: w.gross_MJ_per_m3, limit: null, unit: "MJ/m³", usage: null, basis: wBasis, message: T ? `Wobbe ${fmt(w.gross_MJ_per_m3, 2)} MJ/m³; no absolute range entered` : "" });
+      push({
+        id: "wobbe-range",
+        status: "not-checked",
+        value: w.gross_MJ_per_m3,
+        limit: null,
+        unit: "MJ/m³",
+        usage: null,
+        basis: wBasis,
+        message: T ? `Wobbe ${fmt(w.gross_MJ_per_m3, 2)} MJ/m³; no absolute range entered` : "",
+      });
     } else {
       const v = w.gross_MJ_per_m3;
       const mid = (lo + hi) / 2;
@@ -161,7 +211,13 @@ export function fitChecks(plant: Plant, baseline: FuelInPlant, cand: FuelInPlant
       const usage = Math.abs(v - mid) / half;
       const status: CheckStatus = usage > 1 + AT_LIMIT_TOLERANCE ? "fail" : usage >= warnAt - AT_LIMIT_TOLERANCE ? "warn" : "pass";
       push({
-        id: "wobbe-range", status, value: v, limit: v < mid ? lo : hi, unit: "MJ/m³", usage, basis: wBasis,
+        id: "wobbe-range",
+        status,
+        value: v,
+        limit: v < mid ? lo : hi,
+        unit: "MJ/m³",
+        usage,
+        basis: wBasis,
         message: T ? `Wobbe ${fmt(v, 2)} MJ/m³; range ${fmt(lo, 2)}–${fmt(hi, 2)} MJ/m³` : "",
       });
     }
@@ -175,17 +231,46 @@ export function fitChecks(plant: Plant, baseline: FuelInPlant, cand: FuelInPlant
     const op = cand.perf.operatingPoint;
     if (!cf || !bf) {
       push({
-        id: "flame-temperature-rise", status: "not-checked", value: null, limit: lim, unit: "K", usage: null, basis: "chemical equilibrium",
-        message: (cand.perf.flameError ?? baseline.perf.flameError) ?? "no flame temperature",
+        id: "flame-temperature-rise",
+        status: "not-checked",
+        value: null,
+        limit: lim,
+        unit: "K",
+        usage: null,
+        basis: "chemical equilibrium",
+        message: cand.perf.flameError ?? baseline.perf.flameError ?? "no flame temperature",
       });
     } else {
       const rise = cf.temperatureK - bf.temperatureK;
-      const basis = !T ? "" : `adiabatic flame temperature, chemical equilibrium (NASA RP-1311 method), at ${fmt(op.flueO2DryPercent, 1)} % O2 dry and ${op.combustionAirC} °C combustion air, fuel at 25 °C, 101.325 kPa`;
-      const text = !T ? "" : `flame ${fmt(cf.temperatureC, 0)} °C, ${rise >= 0 ? "+" : ""}${fmt(rise, 0)} K versus baseline ${fmt(bf.temperatureC, 0)} °C`;
-      if (lim === null) push({ id: "flame-temperature-rise", status: "not-checked", value: rise, limit: null, unit: "K", usage: null, basis, message: T ? `${text}; no maximum rise entered` : "" });
+      const basis = !T
+        ? ""
+        : `adiabatic flame temperature, chemical equilibrium (NASA RP-1311 method), at ${fmt(op.flueO2DryPercent, 1)} % O2 dry and ${op.combustionAirC} °C combustion air, fuel at 25 °C, 101.325 kPa`;
+      const text = !T
+        ? ""
+        : `flame ${fmt(cf.temperatureC, 0)} °C, ${rise >= 0 ? "+" : ""}${fmt(rise, 0)} K versus baseline ${fmt(bf.temperatureC, 0)} °C`;
+      if (lim === null)
+        push({
+          id: "flame-temperature-rise",
+          status: "not-checked",
+          value: rise,
+          limit: null,
+          unit: "K",
+          usage: null,
+          basis,
+          message: T ? `${text}; no maximum rise entered` : "",
+        });
       else {
         const r = rise <= 0 ? { status: "pass" as CheckStatus, usage: 0 } : atMost(rise, lim, warnAt);
-        push({ id: "flame-temperature-rise", status: r.status, value: rise, limit: lim, unit: "K", usage: r.usage, basis, message: T ? `${text}; maximum rise ${fmt(lim, 0)} K` : "" });
+        push({
+          id: "flame-temperature-rise",
+          status: r.status,
+          value: rise,
+          limit: lim,
+          unit: "K",
+          usage: r.usage,
+          basis,
+          message: T ? `${text}; maximum rise ${fmt(lim, 0)} K` : "",
+        });
       }
     }
   }
@@ -203,24 +288,56 @@ export function fitChecks(plant: Plant, baseline: FuelInPlant, cand: FuelInPlant
   ) => {
     const v = basisKey === "actual" ? actual : normal;
     const change = (100 * (normal - baseNormal)) / baseNormal;
-    const basis = !T ? "" : (basisKey === "actual" ? `m³/h actual at ${tempC} °C, 101.325 kPa (ideal gas)` : "m³/h at 0 °C, 101.325 kPa (ideal gas)");
+    const basis = !T
+      ? ""
+      : basisKey === "actual"
+        ? `m³/h actual at ${tempC} °C, 101.325 kPa (ideal gas)`
+        : "m³/h at 0 °C, 101.325 kPa (ideal gas)";
     const text = !T ? "" : `${what} ${fmt(v, 0)} m³/h at rated duty (${change >= 0 ? "+" : ""}${fmt(change, 1)} % versus baseline)`;
     if (capacity === null || capacity === undefined) {
-      push({ id, status: "not-checked", value: v, limit: null, unit: "m³/h", usage: null, basis, message: T ? `${text}; no fan capacity entered` : "" });
+      push({
+        id,
+        status: "not-checked",
+        value: v,
+        limit: null,
+        unit: "m³/h",
+        usage: null,
+        basis,
+        message: T ? `${text}; no fan capacity entered` : "",
+      });
     } else {
       const r = atMost(v, capacity, warnAt);
-      push({ id, status: r.status, value: v, limit: capacity, unit: "m³/h", usage: r.usage, basis, message: T ? `${text}; fan capacity ${fmt(capacity, 0)} m³/h` : "" });
+      push({
+        id,
+        status: r.status,
+        value: v,
+        limit: capacity,
+        unit: "m³/h",
+        usage: r.usage,
+        basis,
+        message: T ? `${text}; fan capacity ${fmt(capacity, 0)} m³/h` : "",
+      });
     }
   };
   fan(
-    "flue-gas-fan", plant.flueGasCapacity_m3_per_h, plant.flueGasCapacityBasis,
-    cand.flows.flueGas_m3_per_h_normal, cand.flows.flueGas_m3_per_h_actual, baseline.flows.flueGas_m3_per_h_normal,
-    "wet flue gas", cand.perf.operatingPoint.stackTemperatureC,
+    "flue-gas-fan",
+    plant.flueGasCapacity_m3_per_h,
+    plant.flueGasCapacityBasis,
+    cand.flows.flueGas_m3_per_h_normal,
+    cand.flows.flueGas_m3_per_h_actual,
+    baseline.flows.flueGas_m3_per_h_normal,
+    "wet flue gas",
+    cand.perf.operatingPoint.stackTemperatureC,
   );
   fan(
-    "combustion-air-fan", plant.airCapacity_m3_per_h, plant.airCapacityBasis,
-    cand.flows.air_m3_per_h_normal, cand.flows.air_m3_per_h_actual, baseline.flows.air_m3_per_h_normal,
-    "combustion air", cand.perf.operatingPoint.combustionAirC,
+    "combustion-air-fan",
+    plant.airCapacity_m3_per_h,
+    plant.airCapacityBasis,
+    cand.flows.air_m3_per_h_normal,
+    cand.flows.air_m3_per_h_actual,
+    baseline.flows.air_m3_per_h_normal,
+    "combustion air",
+    cand.perf.operatingPoint.combustionAirC,
   );
 
   // --- Fuel supply -------------------------------------------------------------------------
@@ -232,18 +349,56 @@ export function fitChecks(plant: Plant, baseline: FuelInPlant, cand: FuelInPlant
     const baseKind = baseline.ctx.fuel.kind;
     if (candKind !== baseKind) {
       push({
-        id: "fuel-supply", status: "warn", value: v?.value ?? null, limit: null, unit: "m³/h", usage: null, basis: v?.basis ?? "fuel mass flow",
-        message: T ? `a ${candKind} fuel in a plant fed with a ${baseKind}: it needs its own fuel train, storage and burner; the supply capacity does not apply` : "",
+        id: "fuel-supply",
+        status: "warn",
+        value: v?.value ?? null,
+        limit: null,
+        unit: "m³/h",
+        usage: null,
+        basis: v?.basis ?? "fuel mass flow",
+        message: T
+          ? `a ${candKind} fuel in a plant fed with a ${baseKind}: it needs its own fuel train, storage and burner; the supply capacity does not apply`
+          : "",
       });
     } else if (!v) {
-      push({ id: "fuel-supply", status: "not-applicable", value: null, limit: cap, unit: "m³/h", usage: null, basis: "fuel mass flow", message: T ? `fuel ${fmt(cand.flows.fuel_kg_per_h, 0)} kg/h; no volume for this fuel` : "" });
+      push({
+        id: "fuel-supply",
+        status: "not-applicable",
+        value: null,
+        limit: cap,
+        unit: "m³/h",
+        usage: null,
+        basis: "fuel mass flow",
+        message: T ? `fuel ${fmt(cand.flows.fuel_kg_per_h, 0)} kg/h; no volume for this fuel` : "",
+      });
     } else {
       const change = bv ? (100 * (v.value - bv.value)) / bv.value : null;
-      const text = !T ? "" : `fuel ${fmt(v.value, 1)} m³/h at rated duty${change === null ? "" : ` (${change >= 0 ? "+" : ""}${fmt(change, 1)} % versus baseline)`}`;
-      if (cap === null) push({ id: "fuel-supply", status: "not-checked", value: v.value, limit: null, unit: "m³/h", usage: null, basis: v.basis, message: T ? `${text}; no supply capacity entered` : "" });
+      const text = !T
+        ? ""
+        : `fuel ${fmt(v.value, 1)} m³/h at rated duty${change === null ? "" : ` (${change >= 0 ? "+" : ""}${fmt(change, 1)} % versus baseline)`}`;
+      if (cap === null)
+        push({
+          id: "fuel-supply",
+          status: "not-checked",
+          value: v.value,
+          limit: null,
+          unit: "m³/h",
+          usage: null,
+          basis: v.basis,
+          message: T ? `${text}; no supply capacity entered` : "",
+        });
       else {
         const r = atMost(v.value, cap, warnAt);
-        push({ id: "fuel-supply", status: r.status, value: v.value, limit: cap, unit: "m³/h", usage: r.usage, basis: v.basis, message: T ? `${text}; supply capacity ${fmt(cap, 1)} m³/h` : "" });
+        push({
+          id: "fuel-supply",
+          status: r.status,
+          value: v.value,
+          limit: cap,
+          unit: "m³/h",
+          usage: r.usage,
+          basis: v.basis,
+          message: T ? `${text}; supply capacity ${fmt(cap, 1)} m³/h` : "",
+        });
       }
     }
   }
@@ -266,18 +421,43 @@ export function fitChecks(plant: Plant, baseline: FuelInPlant, cand: FuelInPlant
       ? `water dew point from the water partial pressure (IAPWS-IF97), acid dew point by Verhoff & Banchero (1974) with ${100 * SO3_CONVERSION_DEFAULT} % of SO2 as SO3; 101.325 kPa`
       : "water dew point of the wet flue gas from its water partial pressure (IAPWS-IF97 saturation), 101.325 kPa";
     if (dew === null) {
-      push({ id: "stack-dew-point", status: "pass", value: null, limit: null, unit: "K", usage: null, basis, message: "the flue gas holds too little water to condense above 0 °C" });
+      push({
+        id: "stack-dew-point",
+        status: "pass",
+        value: null,
+        limit: null,
+        unit: "K",
+        usage: null,
+        basis,
+        message: "the flue gas holds too little water to condense above 0 °C",
+      });
     } else if (op.condensing) {
       const margin = op.stackTemperatureC - dew;
       if (eff.condensed_mol_per_kg > 0) {
         push({
-          id: "stack-dew-point", status: sulfur ? "warn" : "pass", value: margin, limit: 0, unit: "K", usage: null, basis,
-          message: T ? `condensing unit: dew point ${fmt(dew, 1)} °C, ${fmt(100 * eff.condensedFraction, 0)} % of the flue water condenses (flue gas leaving saturated at the ${fmt(eff.condensingTemperatureC ?? 0, 1)} °C stack); condensate drain and neutralisation needed${acid}` : "",
+          id: "stack-dew-point",
+          status: sulfur ? "warn" : "pass",
+          value: margin,
+          limit: 0,
+          unit: "K",
+          usage: null,
+          basis,
+          message: T
+            ? `condensing unit: dew point ${fmt(dew, 1)} °C, ${fmt(100 * eff.condensedFraction, 0)} % of the flue water condenses (flue gas leaving saturated at the ${fmt(eff.condensingTemperatureC ?? 0, 1)} °C stack); condensate drain and neutralisation needed${acid}`
+            : "",
         });
       } else {
         push({
-          id: "stack-dew-point", status: "warn", value: margin, limit: 0, unit: "K", usage: null, basis,
-          message: T ? `condensing unit, but the stack is too warm: dew point ${fmt(dew, 1)} °C is below the ${fmt(op.stackTemperatureC, 1)} °C stack, so no condensate heat is recovered` : "",
+          id: "stack-dew-point",
+          status: "warn",
+          value: margin,
+          limit: 0,
+          unit: "K",
+          usage: null,
+          basis,
+          message: T
+            ? `condensing unit, but the stack is too warm: dew point ${fmt(dew, 1)} °C is below the ${fmt(op.stackTemperatureC, 1)} °C stack, so no condensate heat is recovered`
+            : "",
         });
       }
     } else {
@@ -285,7 +465,13 @@ export function fitChecks(plant: Plant, baseline: FuelInPlant, cand: FuelInPlant
       const need = plant.dewPointMarginK;
       const status: CheckStatus = margin < 0 ? "fail" : margin < need ? "warn" : "pass";
       push({
-        id: "stack-dew-point", status, value: margin, limit: need, unit: "K", usage: need > 0 ? Math.max(0, (need - margin) / need) : null, basis,
+        id: "stack-dew-point",
+        status,
+        value: margin,
+        limit: need,
+        unit: "K",
+        usage: need > 0 ? Math.max(0, (need - margin) / need) : null,
+        basis,
         message: !T
           ? ""
           : margin < 0
@@ -301,14 +487,50 @@ export function fitChecks(plant: Plant, baseline: FuelInPlant, cand: FuelInPlant
     const lim = plant.maxH2SharePercent ?? null;
     const basis = "mole (= volume, ideal gas) % of hydrogen in the fuel gas";
     if (cand.ctx.fuel.kind !== "gas") {
-      push({ id: "hydrogen-share", status: "not-applicable", value: 0, limit: lim, unit: "vol %", usage: null, basis, message: "not a gaseous fuel" });
+      push({
+        id: "hydrogen-share",
+        status: "not-applicable",
+        value: 0,
+        limit: lim,
+        unit: "vol %",
+        usage: null,
+        basis,
+        message: "not a gaseous fuel",
+      });
     } else if (h2 <= 0) {
-      push({ id: "hydrogen-share", status: "pass", value: 0, limit: lim, unit: "vol %", usage: 0, basis, message: "no hydrogen in the fuel" });
+      push({
+        id: "hydrogen-share",
+        status: "pass",
+        value: 0,
+        limit: lim,
+        unit: "vol %",
+        usage: 0,
+        basis,
+        message: "no hydrogen in the fuel",
+      });
     } else if (lim === null) {
-      push({ id: "hydrogen-share", status: "warn", value: h2, limit: null, unit: "vol %", usage: null, basis, message: T ? `${fmt(h2, 1)} vol % hydrogen and no burner limit entered: ask the burner maker` : "" });
+      push({
+        id: "hydrogen-share",
+        status: "warn",
+        value: h2,
+        limit: null,
+        unit: "vol %",
+        usage: null,
+        basis,
+        message: T ? `${fmt(h2, 1)} vol % hydrogen and no burner limit entered: ask the burner maker` : "",
+      });
     } else {
       const r = atMost(h2, lim, warnAt);
-      push({ id: "hydrogen-share", status: r.status, value: h2, limit: lim, unit: "vol %", usage: r.usage, basis, message: T ? `${fmt(h2, 1)} vol % hydrogen; burner maker's limit ${fmt(lim, 1)} vol %` : "" });
+      push({
+        id: "hydrogen-share",
+        status: r.status,
+        value: h2,
+        limit: lim,
+        unit: "vol %",
+        usage: r.usage,
+        basis,
+        message: T ? `${fmt(h2, 1)} vol % hydrogen; burner maker's limit ${fmt(lim, 1)} vol %` : "",
+      });
     }
   }
   return out;

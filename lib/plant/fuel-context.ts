@@ -62,8 +62,14 @@ export function fuelStateKey(f: ResolvedFuel): string {
   const el = f.elements_mol_per_kg;
   return [
     f.kind,
-    fmt(el.C), fmt(el.H), fmt(el.O), fmt(el.N), fmt(el.S), fmt(el.Ar),
-    fmt(f.moisture_kg_per_kg), fmt(f.ash_kg_per_kg),
+    fmt(el.C),
+    fmt(el.H),
+    fmt(el.O),
+    fmt(el.N),
+    fmt(el.S),
+    fmt(el.Ar),
+    fmt(f.moisture_kg_per_kg),
+    fmt(f.ash_kg_per_kg),
     fmt(f.formationEnthalpy_J_per_kg),
     attrs,
   ].join("|");
@@ -98,7 +104,12 @@ function buildContext(fuel: ResolvedFuel, key: string): FuelContext {
       if (w === undefined) {
         // Wobbe index and relative density per ISO 6976:2016, by the same function as the property sheet.
         const hvT = tc === HEAT_BALANCE_REFERENCE_C ? hv : heatingValues(fuel, tc);
-        const v = volumetricFigures(fuel.gasComposition!, fuel.molarMass_g_per_mol!, { hhv_kJ_per_mol: hvT.hhv_kJ_per_mol!, lhv_kJ_per_mol: hvT.lhv_kJ_per_mol!, combustionReferenceC: tc }, tm);
+        const v = volumetricFigures(
+          fuel.gasComposition!,
+          fuel.molarMass_g_per_mol!,
+          { hhv_kJ_per_mol: hvT.hhv_kJ_per_mol!, lhv_kJ_per_mol: hvT.lhv_kJ_per_mol!, combustionReferenceC: tc },
+          tm,
+        );
         w = {
           combustionReferenceC: tc,
           meteringReferenceC: tm,

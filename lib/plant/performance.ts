@@ -130,7 +130,12 @@ export class PerformanceCache {
   }
 }
 
-export function computePerformance(ctx: FuelContext, op: OperatingPoint, oxidizer: Oxidizer, warmStart?: EquilibriumResult): FuelPerformance {
+export function computePerformance(
+  ctx: FuelContext,
+  op: OperatingPoint,
+  oxidizer: Oxidizer,
+  warmStart?: EquilibriumResult,
+): FuelPerformance {
   checkOperatingPoint(op);
   const fuel = ctx.fuel;
   // The measured flue O2 belongs to the carbon actually burnt.
@@ -145,7 +150,7 @@ export function computePerformance(ctx: FuelContext, op: OperatingPoint, oxidize
     coDryPpm: op.flueCODryPpm,
     unburntCarbonInAshPercent: op.unburntCarbonInAshPercent,
   });
-  const canWarm = warmStart !== undefined && (fuel.elements_mol_per_kg.S > 0) === warmStart.species.includes("SO2");
+  const canWarm = warmStart !== undefined && fuel.elements_mol_per_kg.S > 0 === warmStart.species.includes("SO2");
   let flame: FlameResult | null = null;
   let flameError: string | undefined;
   try {

@@ -27,7 +27,8 @@ export const AIR_CONTROL_LABELS: Record<AirControl, string> = {
  */
 export const FLASHBACK_DEFAULTS = Object.freeze({ warnRatio: 1.2, failRatio: 1.5 });
 
-const ratio = (what: string) => z.number({ error: "must be a number" }).finite("must be a number").min(1, `${what} must be ≥ 1`).max(20, `${what} must be ≤ 20`);
+const ratio = (what: string) =>
+  z.number({ error: "must be a number" }).finite("must be a number").min(1, `${what} must be ≥ 1`).max(20, `${what} must be ≤ 20`);
 
 export const burnerSchema = z
   .object({
@@ -39,5 +40,8 @@ export const burnerSchema = z
     regulatedSupply: z.boolean({ error: "must be true or false" }).default(true),
   })
   .strict()
-  .refine((b) => b.flashbackFailRatio >= b.flashbackWarnRatio, { path: ["flashbackFailRatio"], message: "must be at least the warning ratio" });
+  .refine((b) => b.flashbackFailRatio >= b.flashbackWarnRatio, {
+    path: ["flashbackFailRatio"],
+    message: "must be at least the warning ratio",
+  });
 export type Burner = z.output<typeof burnerSchema>;

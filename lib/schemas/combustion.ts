@@ -31,7 +31,9 @@ export const flameRequestSchema = z
     fuelTemperatureK: temperatureK.default(298.15),
     oxidizerTemperatureK: temperatureK.default(298.15),
     pressurePa: z.number().finite().min(1000, "must be ≥ 1000 Pa").max(2e7, "must be ≤ 200 bar").default(101325),
-    method: z.enum(["mean-cp", "complete", "equilibrium"], { error: 'must be "mean-cp", "complete" or "equilibrium"' }).default("equilibrium"),
+    method: z
+      .enum(["mean-cp", "complete", "equilibrium"], { error: 'must be "mean-cp", "complete" or "equilibrium"' })
+      .default("equilibrium"),
   })
   .strict()
   .refine(atMostOneSupply, ONE_SUPPLY_ISSUE);

@@ -58,7 +58,11 @@ export interface Normalised {
 }
 
 /** Rescales a composition whose total is within NORMALISE_TOLERANCE_PERCENT of 100 %; null when it is not. */
-export function normaliseComposition(values: Readonly<Record<string, number>>, scale: CompositionScale, dateISO: string): Normalised | null {
+export function normaliseComposition(
+  values: Readonly<Record<string, number>>,
+  scale: CompositionScale,
+  dateISO: string,
+): Normalised | null {
   const check = checkSum(Object.values(values), scale);
   if (!check.normalisable && !check.exact) return null;
   const k = scaleFactor(scale) / check.total;

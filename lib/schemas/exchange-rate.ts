@@ -16,6 +16,7 @@ export const exchangeRateInputSchema = z
   })
   .strict()
   .superRefine((r, ctx) => {
-    if (r.fromCurrency === r.toCurrency) ctx.addIssue({ code: "custom", path: ["toCurrency"], message: "must differ from the currency converted from" });
+    if (r.fromCurrency === r.toCurrency)
+      ctx.addIssue({ code: "custom", path: ["toCurrency"], message: "must differ from the currency converted from" });
   });
 export type ExchangeRateInput = z.input<typeof exchangeRateInputSchema>;

@@ -25,7 +25,12 @@ export const flameSpeedRequestSchema = z
     excessAirPercent: flameFields.excessAirPercent,
     flueO2DryPercent: flameFields.flueO2DryPercent,
     unburntTemperatureK: z.number().finite().min(250, "must be ≥ 250 K").max(900, "must be ≤ 900 K").default(298.15),
-    pressurePa: z.number().finite().min(50_000, "must be ≥ 50 000 Pa (0.5 bar)").max(3e6, "must be ≤ 3 000 000 Pa (30 bar)").default(101325),
+    pressurePa: z
+      .number()
+      .finite()
+      .min(50_000, "must be ≥ 50 000 Pa (0.5 bar)")
+      .max(3e6, "must be ≤ 3 000 000 Pa (30 bar)")
+      .default(101325),
     /** Residence time of the post-flame plug flow for the NO figure, ms. */
     postFlameResidenceMs: z.number().finite().min(0, "must be ≥ 0").max(2000, "must be ≤ 2000 ms").optional(),
     /** Reference O2 of the mg/m³ figure, % dry. */

@@ -28,7 +28,8 @@ export const gasCompositionSchema = z
   .record(z.string().min(1), fraction)
   .refine((c) => Object.keys(c).length > 0, { message: "needs at least one component" })
   .refine((c) => sumsToOne(Object.values(c)), {
-    error: (iss) => `mole fractions must sum to 1 (±${FRACTION_SUM_TOLERANCE}); they sum to ${sumText(Object.values(iss.input as Record<string, number>))}`,
+    error: (iss) =>
+      `mole fractions must sum to 1 (±${FRACTION_SUM_TOLERANCE}); they sum to ${sumText(Object.values(iss.input as Record<string, number>))}`,
   });
 
 export const compositionFuelSchema = z.object({ composition: gasCompositionSchema, ...fuelAttributes }).strict();
@@ -107,9 +108,7 @@ export const MAX_BLEND_NESTING = 16;
 export const blendFuelSchema: z.ZodType<BlendFuelDefinition> = z.lazy(() =>
   z
     .object({
-      blend: z
-        .array(z.object({ fuel: fuelDefinitionSchema, share: fraction }).strict())
-        .min(1, "a blend needs at least one component"),
+      blend: z.array(z.object({ fuel: fuelDefinitionSchema, share: fraction }).strict()).min(1, "a blend needs at least one component"),
       basis: z.enum(BLEND_BASES, { error: 'must be "volume", "mass" or "energy"' }),
       ...fuelAttributes,
     })
@@ -134,7 +133,8 @@ function tooDeepBlend(input: unknown): (string | number)[] | undefined {
     const blend = (node as { blend: unknown }).blend;
     if (!Array.isArray(blend)) continue;
     blend.forEach((c, i) => {
-      if (typeof c === "object" && c !== null && "fuel" in c) stack.push([(c as { fuel: unknown }).fuel, [...path, "blend", i, "fuel"], depth + 1]);
+      if (typeof c === "object" && c !== null && "fuel" in c)
+        stack.push([(c as { fuel: unknown }).fuel, [...path, "blend", i, "fuel"], depth + 1]);
     });
   }
   return undefined;
@@ -178,7 +178,8 @@ export const fuelDefinitionSchema: z.ZodType<FuelDefinition, unknown> = z.lazy((
     if (!parsed.success) {
       for (const issue of parsed.error.issues) {
         // An unknown key is named itself (`fuel.nme`), not the object that holds it.
-        if (issue.code === "unrecognized_keys") ctx.addIssue({ code: "custom", message: "unknown field", path: [...issue.path, issue.keys[0]] as PropertyKey[] });
+        if (issue.code === "unrecognized_keys")
+          ctx.addIssue({ code: "custom", message: "unknown field", path: [...issue.path, issue.keys[0]] as PropertyKey[] });
         else ctx.addIssue({ code: "custom", message: issue.message, path: issue.path as PropertyKey[] });
       }
       return z.NEVER;
@@ -192,7 +193,8 @@ export const oxidizerSchema = z
   .partialRecord(z.enum(["O2", "N2", "Ar", "CO2", "H2O"], { error: "oxidiser species must be one of O2, N2, Ar, CO2, H2O" }), fraction)
   .refine((c) => (c.O2 ?? 0) > 0, { message: "the oxidiser needs O2 > 0" })
   .refine((c) => sumsToOne(Object.values(c)), {
-    error: (iss) => `oxidiser mole fractions must sum to 1 (±${FRACTION_SUM_TOLERANCE}); they sum to ${sumText(Object.values(iss.input as Record<string, number>))}`,
+    error: (iss) =>
+      `oxidiser mole fractions must sum to 1 (±${FRACTION_SUM_TOLERANCE}); they sum to ${sumText(Object.values(iss.input as Record<string, number>))}`,
   });
 export type OxidizerComposition = z.infer<typeof oxidizerSchema>;
 
@@ -201,16 +203,12 @@ export const COMBUSTION_REFERENCES_C = [0, 15, 15.55, 20, 25] as const;
 /** Metering reference temperatures (°C) at 101.325 kPa: 0 °C, 15 °C, 15.56 °C (60 °F), 20 °C (lib/units/metering.ts). */
 export const METERING_REFERENCES_C = METERING_REFERENCE_TEMPERATURES_C;
 
-export const combustionReferenceSchema = z
-  .number()
-  .refine((v) => (COMBUSTION_REFERENCES_C as readonly number[]).includes(v), {
-    message: `must be one of ${COMBUSTION_REFERENCES_C.join(", ")} °C`,
-  });
-export const meteringReferenceSchema = z
-  .number()
-  .refine((v) => METERING_REFERENCES_C.includes(v), {
-    message: `must be one of ${METERING_REFERENCES_C.join(", ")} °C (15.56 °C = 60 °F)`,
-  });
+export const combustionReferenceSchema = z.number().refine((v) => (COMBUSTION_REFERENCES_C as readonly number[]).includes(v), {
+  message: `must be one of ${COMBUSTION_REFERENCES_C.join(", ")} °C`,
+});
+export const meteringReferenceSchema = z.number().refine((v) => METERING_REFERENCES_C.includes(v), {
+  message: `must be one of ${METERING_REFERENCES_C.join(", ")} °C (15.56 °C = 60 °F)`,
+});
 
 /** Formats the first zod issue as one line naming the field, e.g. `fuel.composition: ...`. */
 export function firstIssueLine(error: z.ZodError, prefix: (string | number)[] = []): string {

@@ -128,7 +128,12 @@ export function capitalised(label: string): string {
   return label.charAt(0).toUpperCase() + label.slice(1);
 }
 
-const LIST_ITEM: Readonly<Record<string, string>> = { scenarios: "scenario", components: "component", blend: "component", componentPrices: "component price" };
+const LIST_ITEM: Readonly<Record<string, string>> = {
+  scenarios: "scenario",
+  components: "component",
+  blend: "component",
+  componentPrices: "component price",
+};
 
 /**
  * A dotted field path in words: `scenarios.2.overrides.stackTemperatureC` → "scenario 3 — stack

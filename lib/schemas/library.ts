@@ -76,7 +76,9 @@ export const fuelInputSchema = z
       ctx.addIssue({
         code: "custom",
         path: [hasDef ? "blend" : "definition"],
-        message: hasDef ? "give either a definition or a blend, not both" : "give a definition (composition, compound or ultimate analysis) or a blend",
+        message: hasDef
+          ? "give either a definition or a blend, not both"
+          : "give a definition (composition, compound or ultimate analysis) or a blend",
       });
       return;
     }
@@ -131,7 +133,9 @@ export const priceQuoteInputSchema = z
     currency: currencySchema,
     unit: z.enum(PRICE_UNITS, { error: `must be one of ${PRICE_UNITS.join(", ")}` }),
     energyBasis: z.enum(ENERGY_BASES, { error: 'must be "gross" or "net"' }).nullish(),
-    meteringReference: z.enum(METERING_REFERENCE_KEYS, { error: `must be one of ${METERING_REFERENCE_KEYS.map((k) => `"${k}"`).join(", ")}` }).nullish(),
+    meteringReference: z
+      .enum(METERING_REFERENCE_KEYS, { error: `must be one of ${METERING_REFERENCE_KEYS.map((k) => `"${k}"`).join(", ")}` })
+      .nullish(),
     transportAdder: finite().min(0, "must be ≥ 0").default(0),
     handlingAdder: finite().min(0, "must be ≥ 0").default(0),
     validFrom: isoDateSchema,

@@ -7,14 +7,7 @@ import { z } from "zod";
 import { METERING_REFERENCE_KEYS, METERING_REFERENCES, type MeteringReferenceKey } from "../units/metering";
 import { nameSchema } from "./names";
 
-export const EQUIPMENT_TYPES = [
-  "steam-boiler",
-  "hot-water-boiler",
-  "thermal-oil-heater",
-  "process-furnace",
-  "kiln",
-  "dryer",
-] as const;
+export const EQUIPMENT_TYPES = ["steam-boiler", "hot-water-boiler", "thermal-oil-heater", "process-furnace", "kiln", "dryer"] as const;
 export type EquipmentType = (typeof EQUIPMENT_TYPES)[number];
 
 export const EQUIPMENT_TYPE_LABELS: Record<EquipmentType, string> = {
@@ -41,8 +34,7 @@ export const FAN_CAPACITY_BASES = ["actual", "normal"] as const;
 export type FanCapacityBasis = (typeof FAN_CAPACITY_BASES)[number];
 
 const num = (what = "must be a number") => z.number({ error: what }).finite(what);
-const optionalPositive = (max: number, unit: string) =>
-  num().positive("must be > 0").max(max, `must be ≤ ${max} ${unit}`).nullish();
+const optionalPositive = (max: number, unit: string) => num().positive("must be > 0").max(max, `must be ≤ ${max} ${unit}`).nullish();
 
 /** The operating point; each field can also be overridden per scenario. */
 export const operatingPointShape = {
@@ -118,31 +110,38 @@ export const plantLimitsShape = {
 };
 
 export const plantSchema = z
-  .object({
-    name: nameSchema(120, "name the plant"),
-    site: z.string().max(200, "must be ≤ 200 characters").default(""),
-    equipmentType: z.enum(EQUIPMENT_TYPES, { error: `must be one of ${EQUIPMENT_TYPES.join(", ")}` }),
-    /** Rated heat input (firing rate), kW on the basis below. */
-    ratedInput_kW: num().positive("must be > 0").max(5e6, "must be ≤ 5 000 000 kW"),
-    /** Basis of the rated input: net (European convention) or gross (North American convention). */
-    ratedInputBasis: z.enum(["net", "gross"], { error: 'must be "net" or "gross"' }).default("net"),
-    /** Annual useful heat; when absent it follows from hours × load × rated input × baseline efficiency. */
-    annualUsefulHeat_MWh: num().positive("must be > 0").max(1e8, "must be ≤ 100 000 000 MWh").nullish(),
-    operatingHours: num().min(0, "must be ≥ 0 h").max(8784, "must be ≤ 8784 h"),
-    averageLoadFraction: num().min(0, "must be ≥ 0").max(1, "must be ≤ 1 (a fraction of rated input)"),
-    ...operatingPointShape,
-    condensingApproachK: operatingPointShape.condensingApproachK.default(DEFAULT_CONDENSING_APPROACH_K),
-    flueCODryPpm: operatingPointShape.flueCODryPpm.default(0),
-    unburntCarbonInAshPercent: operatingPointShape.unburntCarbonInAshPercent.default(0),
-    ambientAir: ambientAirSchema.default({ temperatureC: 15, relativeHumidityPercent: 60 }),
-    ...plantLimitsShape,
-    notes: z.string().max(5000).default(""),
-  }, { error: (iss) => (iss.input === undefined ? "required: the plant (an object)" : "must be an object describing the plant") })
+  .object(
+    {
+      name: nameSchema(120, "name the plant"),
+      site: z.string().max(200, "must be ≤ 200 characters").default(""),
+      equipmentType: z.enum(EQUIPMENT_TYPES, { error: `must be one of ${EQUIPMENT_TYPES.join(", ")}` }),
+      /** Rated heat input (firing rate), kW on the basis below. */
+      ratedInput_kW: num().positive("must be > 0").max(5e6, "must be ≤ 5 000 000 kW"),
+      /** Basis of the rated input: net (European convention) or gross (North American convention). */
+      ratedInputBasis: z.enum(["net", "gross"], { error: 'must be "net" or "gross"' }).default("net"),
+      /** Annual useful heat; when absent it follows from hours × load × rated input × baseline efficiency. */
+      annualUsefulHeat_MWh: num().positive("must be > 0").max(1e8, "must be ≤ 100 000 000 MWh").nullish(),
+      operatingHours: num().min(0, "must be ≥ 0 h").max(8784, "must be ≤ 8784 h"),
+      averageLoadFraction: num().min(0, "must be ≥ 0").max(1, "must be ≤ 1 (a fraction of rated input)"),
+      ...operatingPointShape,
+      condensingApproachK: operatingPointShape.condensingApproachK.default(DEFAULT_CONDENSING_APPROACH_K),
+      flueCODryPpm: operatingPointShape.flueCODryPpm.default(0),
+      unburntCarbonInAshPercent: operatingPointShape.unburntCarbonInAshPercent.default(0),
+      ambientAir: ambientAirSchema.default({ temperatureC: 15, relativeHumidityPercent: 60 }),
+      ...plantLimitsShape,
+      notes: z.string().max(5000).default(""),
+    },
+    { error: (iss) => (iss.input === undefined ? "required: the plant (an object)" : "must be an object describing the plant") },
+  )
   .strict()
   .superRefine((p, ctx) => {
     if (p.condensing && (p.returnWaterC === undefined || p.returnWaterC === null)) {
       ctx.addIssue({ code: "custom", path: ["returnWaterC"], message: "a condensing unit needs its return-water temperature" });
-    } else if (p.condensing && p.returnWaterC != null && p.stackTemperatureC < condensingStackFloorC(p.returnWaterC, p.condensingApproachK)) {
+    } else if (
+      p.condensing &&
+      p.returnWaterC != null &&
+      p.stackTemperatureC < condensingStackFloorC(p.returnWaterC, p.condensingApproachK)
+    ) {
       ctx.addIssue({ code: "custom", path: ["stackTemperatureC"], message: stackBelowFloorMessage(p.returnWaterC, p.condensingApproachK) });
     }
     if ((p.annualUsefulHeat_MWh ?? null) === null && p.operatingHours * p.averageLoadFraction <= 0) {
@@ -155,7 +154,11 @@ export const plantSchema = z
     const lo = p.wobbeMin_MJ_per_m3 ?? null;
     const hi = p.wobbeMax_MJ_per_m3 ?? null;
     if ((lo === null) !== (hi === null)) {
-      ctx.addIssue({ code: "custom", path: [lo === null ? "wobbeMin_MJ_per_m3" : "wobbeMax_MJ_per_m3"], message: "an absolute Wobbe range needs both minimum and maximum" });
+      ctx.addIssue({
+        code: "custom",
+        path: [lo === null ? "wobbeMin_MJ_per_m3" : "wobbeMax_MJ_per_m3"],
+        message: "an absolute Wobbe range needs both minimum and maximum",
+      });
     } else if (lo !== null && hi !== null && !(hi > lo)) {
       ctx.addIssue({ code: "custom", path: ["wobbeMax_MJ_per_m3"], message: "must be greater than wobbeMin_MJ_per_m3" });
     }

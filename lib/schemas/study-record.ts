@@ -18,20 +18,26 @@ const s = studySchema.shape;
 const sc = scenarioSchema.shape;
 
 export const scenarioRecordSchema = z
-  .object({
-    name: sc.name,
-    fuelId: id("a stored fuel"),
-    /** A stored quote of that fuel; null = the quote in force in the study's currency (for a blend without one: its components' quotes). */
-    priceQuoteId: id("a price quote").nullish(),
-    /**
-     * Without a chosen quote, the rule that picks one: "the latest quote in the study's currency
-     * valid on this date" (YYYY-MM-DD); null = on the day the study is evaluated.
-     */
-    priceValidOn: isoDateSchema.nullish(),
-    capex: sc.capex,
-    fixedOpexChange: sc.fixedOpexChange,
-    overrides: sc.overrides,
-  }, { error: (iss) => (iss.input === undefined ? "required: a scenario (an object naming a fuelId)" : "must be an object describing a scenario") })
+  .object(
+    {
+      name: sc.name,
+      fuelId: id("a stored fuel"),
+      /** A stored quote of that fuel; null = the quote in force in the study's currency (for a blend without one: its components' quotes). */
+      priceQuoteId: id("a price quote").nullish(),
+      /**
+       * Without a chosen quote, the rule that picks one: "the latest quote in the study's currency
+       * valid on this date" (YYYY-MM-DD); null = on the day the study is evaluated.
+       */
+      priceValidOn: isoDateSchema.nullish(),
+      capex: sc.capex,
+      fixedOpexChange: sc.fixedOpexChange,
+      overrides: sc.overrides,
+    },
+    {
+      error: (iss) =>
+        iss.input === undefined ? "required: a scenario (an object naming a fuelId)" : "must be an object describing a scenario",
+    },
+  )
   .strict();
 export type ScenarioRecordInput = z.input<typeof scenarioRecordSchema>;
 export type ScenarioRecord = z.output<typeof scenarioRecordSchema>;
@@ -55,7 +61,9 @@ export const studyRecordSchema = z
     reportDate: s.reportDate,
     reportNotes: s.reportNotes,
     baseline: scenarioRecordSchema,
-    scenarios: z.array(scenarioRecordSchema, { error: "required: a list of candidate scenarios (may be empty)" }).max(200, "at most 200 scenarios"),
+    scenarios: z
+      .array(scenarioRecordSchema, { error: "required: a list of candidate scenarios (may be empty)" })
+      .max(200, "at most 200 scenarios"),
   })
   .strict()
   .superRefine(checkScenarioSet);

@@ -27,24 +27,27 @@ export type StudyPriceInput = z.input<typeof studyPriceSchema>;
 export type StudyPrice = z.output<typeof studyPriceSchema>;
 
 export const scenarioSchema = z
-  .object({
-    name: nameSchema(120, "name the scenario"),
-    /** The fuel or blend, as a full definition (a stored blend becomes a blend of definitions). */
-    fuel: fuelDefinitionSchema,
-    /** Delivered-price quote; without one (and without componentPrices) the scenario gets no cost figures. */
-    price: studyPriceSchema.nullish(),
-    /**
-     * A blend without its own quote: one quote per blend component, in the blend's order; the
-     * blend's delivered price is the mass-weighted mix of the components' delivered prices per kg.
-     */
-    componentPrices: z.array(studyPriceSchema).nullish(),
-    /** Switching investment (burner, fuel train, controls …). */
-    capex: num().min(0, "must be ≥ 0").max(1e12, "must be ≤ 10^12").default(0),
-    /** Change in fixed operating cost per year versus the baseline (positive = more cost). */
-    fixedOpexChange: num().min(-1e11, "must be ≥ −10^11").max(1e11, "must be ≤ 10^11").default(0),
-    overrides: operatingOverridesSchema.default({}),
-    notes: text(5000).default(""),
-  }, { error: (iss) => (iss.input === undefined ? "required: a scenario (an object)" : "must be an object describing a scenario") })
+  .object(
+    {
+      name: nameSchema(120, "name the scenario"),
+      /** The fuel or blend, as a full definition (a stored blend becomes a blend of definitions). */
+      fuel: fuelDefinitionSchema,
+      /** Delivered-price quote; without one (and without componentPrices) the scenario gets no cost figures. */
+      price: studyPriceSchema.nullish(),
+      /**
+       * A blend without its own quote: one quote per blend component, in the blend's order; the
+       * blend's delivered price is the mass-weighted mix of the components' delivered prices per kg.
+       */
+      componentPrices: z.array(studyPriceSchema).nullish(),
+      /** Switching investment (burner, fuel train, controls …). */
+      capex: num().min(0, "must be ≥ 0").max(1e12, "must be ≤ 10^12").default(0),
+      /** Change in fixed operating cost per year versus the baseline (positive = more cost). */
+      fixedOpexChange: num().min(-1e11, "must be ≥ −10^11").max(1e11, "must be ≤ 10^11").default(0),
+      overrides: operatingOverridesSchema.default({}),
+      notes: text(5000).default(""),
+    },
+    { error: (iss) => (iss.input === undefined ? "required: a scenario (an object)" : "must be an object describing a scenario") },
+  )
   .strict();
 export type ScenarioInput = z.input<typeof scenarioSchema>;
 export type Scenario = z.output<typeof scenarioSchema>;
@@ -56,14 +59,20 @@ type ScenarioSetCore = { name: string; capex: number; fixedOpexChange: number };
  * capex or opex change, and scenario names are unique (case-insensitive).
  */
 export function checkScenarioSet(s: { baseline: ScenarioSetCore; scenarios: readonly ScenarioSetCore[] }, ctx: z.RefinementCtx): void {
-  if (s.baseline.capex !== 0) ctx.addIssue({ code: "custom", path: ["baseline", "capex"], message: "the baseline has no switching capex (must be 0)" });
+  if (s.baseline.capex !== 0)
+    ctx.addIssue({ code: "custom", path: ["baseline", "capex"], message: "the baseline has no switching capex (must be 0)" });
   if (s.baseline.fixedOpexChange !== 0) {
-    ctx.addIssue({ code: "custom", path: ["baseline", "fixedOpexChange"], message: "the baseline is the reference for opex changes (must be 0)" });
+    ctx.addIssue({
+      code: "custom",
+      path: ["baseline", "fixedOpexChange"],
+      message: "the baseline is the reference for opex changes (must be 0)",
+    });
   }
   const seen = new Map<string, string>([[s.baseline.name.toLowerCase(), "the baseline"]]);
   s.scenarios.forEach((sc, i) => {
     const k = sc.name.toLowerCase();
-    if (seen.has(k)) ctx.addIssue({ code: "custom", path: ["scenarios", i, "name"], message: `"${sc.name}" is already used by ${seen.get(k)}` });
+    if (seen.has(k))
+      ctx.addIssue({ code: "custom", path: ["scenarios", i, "name"], message: `"${sc.name}" is already used by ${seen.get(k)}` });
     else seen.set(k, `scenario ${i + 1}`);
   });
 }
@@ -124,14 +133,26 @@ export const hydrogenSweepSchema = z
  * - "stepped": each stated value holds until the next point.
  * Before the first point a path holds the first value, after the last the last value.
  */
-const pathPointSchema = z.object({ year: z.number({ error: "must be a number" }).int("must be a whole year").min(1, "must be ≥ year 1").max(100, "must be ≤ year 100"), value: num().min(0, "must be ≥ 0").max(1e6, "must be ≤ 10^6") }).strict();
-const pathPoints = z.array(pathPointSchema, { error: "must be a list of {year, value}" }).min(1, "state at least one point").max(100, "at most 100 points");
-export const pricePathSchema = z.discriminatedUnion("kind", [
-  z.object({ kind: z.literal("escalation"), percentPerYear: num().min(-20, "must be ≥ −20 %").max(50, "must be ≤ 50 %") }).strict(),
-  z.object({ kind: z.literal("table"), points: pathPoints }).strict(),
-  z.object({ kind: z.literal("linear"), points: pathPoints }).strict(),
-  z.object({ kind: z.literal("stepped"), points: pathPoints }).strict(),
-], { error: 'must be a path: kind "escalation", "table", "linear" or "stepped"' });
+const pathPointSchema = z
+  .object({
+    year: z.number({ error: "must be a number" }).int("must be a whole year").min(1, "must be ≥ year 1").max(100, "must be ≤ year 100"),
+    value: num().min(0, "must be ≥ 0").max(1e6, "must be ≤ 10^6"),
+  })
+  .strict();
+const pathPoints = z
+  .array(pathPointSchema, { error: "must be a list of {year, value}" })
+  .min(1, "state at least one point")
+  .max(100, "at most 100 points");
+export const pricePathSchema = z.discriminatedUnion(
+  "kind",
+  [
+    z.object({ kind: z.literal("escalation"), percentPerYear: num().min(-20, "must be ≥ −20 %").max(50, "must be ≤ 50 %") }).strict(),
+    z.object({ kind: z.literal("table"), points: pathPoints }).strict(),
+    z.object({ kind: z.literal("linear"), points: pathPoints }).strict(),
+    z.object({ kind: z.literal("stepped"), points: pathPoints }).strict(),
+  ],
+  { error: 'must be a path: kind "escalation", "table", "linear" or "stepped"' },
+);
 export type PricePath = z.infer<typeof pricePathSchema>;
 
 /** Whether money is stated in today's money (real) or in money of the day (nominal). */
@@ -164,16 +185,22 @@ export type PricePaths = z.infer<typeof pathsSchema>;
  * hours, percentage points for efficiency. Triangular or PERT from low / most likely / high, or
  * normal from mean and standard deviation.
  */
-export const uncertaintyRangeSchema = z.discriminatedUnion("distribution", [
-  z.object({ distribution: z.literal("triangular"), low: num(), mode: num(), high: num() }).strict(),
-  z.object({ distribution: z.literal("pert"), low: num(), mode: num(), high: num() }).strict(),
-  z.object({ distribution: z.literal("normal"), mean: num().default(0), sd: num().min(0, "must be ≥ 0") }).strict(),
-], { error: 'must be a range: distribution "triangular", "pert" (low, mode, high) or "normal" (mean, sd)' }).superRefine((r, ctx) => {
-  if (r.distribution !== "normal") {
-    if (r.low > r.mode) ctx.addIssue({ code: "custom", path: ["low"], message: "must be ≤ the most likely value" });
-    if (r.mode > r.high) ctx.addIssue({ code: "custom", path: ["high"], message: "must be ≥ the most likely value" });
-  }
-});
+export const uncertaintyRangeSchema = z
+  .discriminatedUnion(
+    "distribution",
+    [
+      z.object({ distribution: z.literal("triangular"), low: num(), mode: num(), high: num() }).strict(),
+      z.object({ distribution: z.literal("pert"), low: num(), mode: num(), high: num() }).strict(),
+      z.object({ distribution: z.literal("normal"), mean: num().default(0), sd: num().min(0, "must be ≥ 0") }).strict(),
+    ],
+    { error: 'must be a range: distribution "triangular", "pert" (low, mode, high) or "normal" (mean, sd)' },
+  )
+  .superRefine((r, ctx) => {
+    if (r.distribution !== "normal") {
+      if (r.low > r.mode) ctx.addIssue({ code: "custom", path: ["low"], message: "must be ≤ the most likely value" });
+      if (r.mode > r.high) ctx.addIssue({ code: "custom", path: ["high"], message: "must be ≥ the most likely value" });
+    }
+  });
 export type UncertaintyRange = z.infer<typeof uncertaintyRangeSchema>;
 
 /** Default change of operating hours, ± % (common practice for screening studies, no source). */
@@ -204,36 +231,63 @@ export const uncertaintySchema = z
      * Correlations between inputs (of their normal scores): keys "price:<quote key>", "carbon",
      * "hours", "capex:<scenario name>", "efficiency:<scenario name>".
      */
-    correlations: z.array(z.object({ a: z.string().min(1, "name an input"), b: z.string().min(1, "name an input"), rho: num().min(-0.999, "must be > −1").max(0.999, "must be < 1") }).strict()).max(500, "at most 500 correlations").default([]),
+    correlations: z
+      .array(
+        z
+          .object({
+            a: z.string().min(1, "name an input"),
+            b: z.string().min(1, "name an input"),
+            rho: num().min(-0.999, "must be > −1").max(0.999, "must be < 1"),
+          })
+          .strict(),
+      )
+      .max(500, "at most 500 correlations")
+      .default([]),
   })
   .strict();
 export type UncertaintySettings = z.infer<typeof uncertaintySchema>;
 
 export const studySchema = z
-  .object({
-    format: z.literal(STUDY_FORMAT, { error: `must be "${STUDY_FORMAT}"` }).optional(),
-    version: z.literal(STUDY_FORMAT_VERSION, { error: `must be ${STUDY_FORMAT_VERSION}` }).optional(),
-    name: nameSchema(200, "name the study"),
-    currency: currencySchema,
-    carbonPrice_per_t: num().min(0, "must be ≥ 0").max(10000, "must be ≤ 10000 per t").default(0),
-    discountRatePercent: num().min(-5, "must be ≥ −5 %").max(50, "must be ≤ 50 %"),
-    horizonYears: z.number({ error: "must be a number" }).int("must be a whole number of years").min(1, "must be ≥ 1 year").max(60, "must be ≤ 60 years"),
-    priceEscalationPercent: num().min(-20, "must be ≥ −20 %").max(50, "must be ≤ 50 %").default(0),
-    rankingMetric: z.enum(RANKING_METRICS, { error: `must be one of ${RANKING_METRICS.join(", ")}` }).default("cost-per-useful-MWh"),
-    /** Count upstream (well-to-tank) CO2e in CO2 avoided and price it at the carbon price. */
-    includeUpstream: z.boolean({ error: "must be true or false" }).default(false),
-    sensitivity: sensitivitySchema.default({ ...SENSITIVITY_DEFAULTS }),
-    hydrogenSweep: hydrogenSweepSchema.default({ enabled: true, stepPercent: 1, hydrogen: { compound: "H2", phase: "gas" } as FuelDefinition }),
-    plant: plantSchema,
-    baseline: scenarioSchema,
-    scenarios: z.array(scenarioSchema, { error: (iss) => (iss.input === undefined ? "required: a list of candidate scenarios (may be empty)" : "must be a list of scenarios") }).max(200, "at most 200 scenarios"),
-    notes: text(10000).default(""),
-    ...coverShape,
-    /** Price and carbon paths over the horizon; absent = flat prices escalating at priceEscalationPercent. */
-    paths: pathsSchema.nullish(),
-    /** Ranges of the uncertain inputs for the Monte Carlo ranking; absent = defaults from `sensitivity`. */
-    uncertainty: uncertaintySchema.nullish(),
-  }, { error: "a study must be a JSON object" })
+  .object(
+    {
+      format: z.literal(STUDY_FORMAT, { error: `must be "${STUDY_FORMAT}"` }).optional(),
+      version: z.literal(STUDY_FORMAT_VERSION, { error: `must be ${STUDY_FORMAT_VERSION}` }).optional(),
+      name: nameSchema(200, "name the study"),
+      currency: currencySchema,
+      carbonPrice_per_t: num().min(0, "must be ≥ 0").max(10000, "must be ≤ 10000 per t").default(0),
+      discountRatePercent: num().min(-5, "must be ≥ −5 %").max(50, "must be ≤ 50 %"),
+      horizonYears: z
+        .number({ error: "must be a number" })
+        .int("must be a whole number of years")
+        .min(1, "must be ≥ 1 year")
+        .max(60, "must be ≤ 60 years"),
+      priceEscalationPercent: num().min(-20, "must be ≥ −20 %").max(50, "must be ≤ 50 %").default(0),
+      rankingMetric: z.enum(RANKING_METRICS, { error: `must be one of ${RANKING_METRICS.join(", ")}` }).default("cost-per-useful-MWh"),
+      /** Count upstream (well-to-tank) CO2e in CO2 avoided and price it at the carbon price. */
+      includeUpstream: z.boolean({ error: "must be true or false" }).default(false),
+      sensitivity: sensitivitySchema.default({ ...SENSITIVITY_DEFAULTS }),
+      hydrogenSweep: hydrogenSweepSchema.default({
+        enabled: true,
+        stepPercent: 1,
+        hydrogen: { compound: "H2", phase: "gas" } as FuelDefinition,
+      }),
+      plant: plantSchema,
+      baseline: scenarioSchema,
+      scenarios: z
+        .array(scenarioSchema, {
+          error: (iss) =>
+            iss.input === undefined ? "required: a list of candidate scenarios (may be empty)" : "must be a list of scenarios",
+        })
+        .max(200, "at most 200 scenarios"),
+      notes: text(10000).default(""),
+      ...coverShape,
+      /** Price and carbon paths over the horizon; absent = flat prices escalating at priceEscalationPercent. */
+      paths: pathsSchema.nullish(),
+      /** Ranges of the uncertain inputs for the Monte Carlo ranking; absent = defaults from `sensitivity`. */
+      uncertainty: uncertaintySchema.nullish(),
+    },
+    { error: "a study must be a JSON object" },
+  )
   .strict()
   .superRefine((s, ctx) => {
     checkScenarioSet(s, ctx);
@@ -242,9 +296,17 @@ export const studySchema = z
       if (!("blend" in sc.fuel)) {
         ctx.addIssue({ code: "custom", path: [...path, "componentPrices"], message: "component prices apply only to a blend" });
       } else if (sc.componentPrices.length !== sc.fuel.blend.length) {
-        ctx.addIssue({ code: "custom", path: [...path, "componentPrices"], message: `give one price per blend component (${sc.fuel.blend.length}), got ${sc.componentPrices.length}` });
+        ctx.addIssue({
+          code: "custom",
+          path: [...path, "componentPrices"],
+          message: `give one price per blend component (${sc.fuel.blend.length}), got ${sc.componentPrices.length}`,
+        });
       } else if (sc.price) {
-        ctx.addIssue({ code: "custom", path: [...path, "componentPrices"], message: "give either a price for the blend or component prices, not both" });
+        ctx.addIssue({
+          code: "custom",
+          path: [...path, "componentPrices"],
+          message: "give either a price for the blend or component prices, not both",
+        });
       }
     };
     checkComponents(s.baseline, ["baseline"]);
@@ -253,7 +315,11 @@ export const studySchema = z
     });
     const checkCurrency = (price: { currency: string } | null | undefined, path: (string | number)[]) => {
       if (price && price.currency !== s.currency) {
-        ctx.addIssue({ code: "custom", path: [...path, "currency"], message: `must be ${s.currency}, the study's currency (a study file carries its prices already converted)` });
+        ctx.addIssue({
+          code: "custom",
+          path: [...path, "currency"],
+          message: `must be ${s.currency}, the study's currency (a study file carries its prices already converted)`,
+        });
       }
     };
     checkCurrency(s.baseline.price, ["baseline", "price"]);

@@ -16,11 +16,18 @@ export async function listExchangeRates(db: Db): Promise<ExchangeRateJson[]> {
 const COLUMNS = ["fromCurrency", "toCurrency", "rate", "validFrom", "source"] as const;
 
 /** Adds rates from a JSON body (one object or a list) or a file; all or nothing. */
-export function addExchangeRates(db: Db, input: { text: string; format: TableFormat } | { value: unknown }): Promise<Result<ExchangeRateJson[]>> {
+export function addExchangeRates(
+  db: Db,
+  input: { text: string; format: TableFormat } | { value: unknown },
+): Promise<Result<ExchangeRateJson[]>> {
   let rows: TableRow[];
   if ("value" in input) {
     const list = Array.isArray(input.value) ? input.value : [input.value];
-    rows = list.map((v, i) => ({ where: list.length === 1 && !Array.isArray(input.value) ? "" : `item ${i + 1}`, values: v as Record<string, unknown>, columnOf: (f) => f }));
+    rows = list.map((v, i) => ({
+      where: list.length === 1 && !Array.isArray(input.value) ? "" : `item ${i + 1}`,
+      values: v as Record<string, unknown>,
+      columnOf: (f) => f,
+    }));
   } else {
     const t = readTable(input.text, input.format, ["rate"], COLUMNS);
     if (!t.ok) return Promise.resolve(t);
@@ -49,7 +56,11 @@ export function addExchangeRates(db: Db, input: { text: string; format: TableFor
     }
     if (Object.keys(errs).length) {
       const [k, v] = Object.entries(errs)[0];
-      return problem(Object.values(errs).some((m) => m.includes("already stored")) && Object.keys(errs).length === 1 ? "conflict" : "invalid", `Nothing was stored: ${k}: ${v}`, errs);
+      return problem(
+        Object.values(errs).some((m) => m.includes("already stored")) && Object.keys(errs).length === 1 ? "conflict" : "invalid",
+        `Nothing was stored: ${k}: ${v}`,
+        errs,
+      );
     }
     return ok(out);
   });

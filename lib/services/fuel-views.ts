@@ -286,11 +286,18 @@ export async function quoteComparison(
   // Without a carbon price set on the page: the latest study that uses the fuel (its currency too), else 0.
   const usedBy = opts.carbonPrice_per_t === undefined || opts.currency === undefined ? await latestStudyUsingFuel(db, fuelId) : null;
   const currency =
-    opts.currency ?? usedBy?.currency ?? currencies.sort((a, b) => currencies.filter((c) => c === b).length - currencies.filter((c) => c === a).length)[0] ?? "EUR";
+    opts.currency ??
+    usedBy?.currency ??
+    currencies.sort((a, b) => currencies.filter((c) => c === b).length - currencies.filter((c) => c === a).length)[0] ??
+    "EUR";
   const carbon = opts.carbonPrice_per_t ?? usedBy?.carbonPrice_per_t ?? 0;
   const carbonSource =
     opts.carbonPriceSource ??
-    (opts.carbonPrice_per_t !== undefined ? "set on this page" : usedBy ? `from study "${usedBy.name}", the latest that uses this fuel` : "0: no carbon price set and no study uses this fuel");
+    (opts.carbonPrice_per_t !== undefined
+      ? "set on this page"
+      : usedBy
+        ? `from study "${usedBy.name}", the latest that uses this fuel`
+        : "0: no carbon price set and no study uses this fuel");
   let co2: QuoteComparison["fossilCo2_kg_per_GJ"] = null;
   if (sheet.resolved) {
     const f = co2Factors(sheet.resolved, heatingValues(sheet.resolved, PRICE_COMBUSTION_REFERENCE_C));
@@ -299,7 +306,12 @@ export async function quoteComparison(
   const rates = (await listRates(db)).map(rateJson);
   const rows: QuoteComparisonRow[] = [...bySupplier.values()].map((q) => {
     const stated = `${q.amount}${q.transportAdder || q.handlingAdder ? ` + ${q.transportAdder + q.handlingAdder} adders` : ""} ${q.currency}/${priceUnitLabel(quoteTerms(q))}`;
-    const base = { supplier: q.supplier || "(no supplier named)", quoteId: q.id, validFrom: q.validFrom.toISOString().slice(0, 10), stated };
+    const base = {
+      supplier: q.supplier || "(no supplier named)",
+      quoteId: q.id,
+      validFrom: q.validFrom.toISOString().slice(0, 10),
+      stated,
+    };
     const empty = { perMWh_gross: null, perMWh_net: null, withCarbon_gross: null, withCarbon_net: null };
     const c = inCurrency(q, { currency, rates });
     if (!c.ok) return { ...base, ...empty, conversion: null, problem: c.reason };
@@ -307,7 +319,15 @@ export async function quoteComparison(
     let n: NormalisedPrice;
     try {
       const factor = c.price.amount / (q.amount || 1);
-      n = normalised({ ...q, amount: c.price.amount, transportAdder: q.transportAdder * (q.amount ? factor : 1), handlingAdder: q.handlingAdder * (q.amount ? factor : 1) }, sheet.resolved);
+      n = normalised(
+        {
+          ...q,
+          amount: c.price.amount,
+          transportAdder: q.transportAdder * (q.amount ? factor : 1),
+          handlingAdder: q.handlingAdder * (q.amount ? factor : 1),
+        },
+        sheet.resolved,
+      );
     } catch (e) {
       return { ...base, ...empty, conversion: c.note, problem: reasonOf(e) };
     }

@@ -216,7 +216,9 @@ async function withNameCheck(tx: DbOrTx, failure: Problem, raw: unknown, exceptI
 }
 
 const nameConflict = (taken: string) =>
-  problem("conflict", `A fuel named "${taken}" already exists.`, { name: `a fuel named "${taken}" already exists (or one that looks the same)` });
+  problem("conflict", `A fuel named "${taken}" already exists.`, {
+    name: `a fuel named "${taken}" already exists (or one that looks the same)`,
+  });
 
 /** Re-derives every blend that depends on `fuelId` (after an edit of that fuel). */
 async function refreshDependentBlends(tx: Tx, fuelId: number): Promise<Result<null>> {
@@ -295,7 +297,13 @@ export function deleteFuel(db: Db, id: number): Promise<Result<FuelRow>> {
     const existing = await findFuel(tx, id);
     if (!existing) return problem("not-found", `No fuel with id ${id}.`);
     const usage = await fuelUsage(tx, id);
-    const revs = [...new Set((await revisionsUsingFuelQuotes(tx, id)).map((u) => `revision ${u.revision.number} of study "${u.revision.study.name}" (its quotes)`))];
+    const revs = [
+      ...new Set(
+        (await revisionsUsingFuelQuotes(tx, id)).map(
+          (u) => `revision ${u.revision.number} of study "${u.revision.study.name}" (its quotes)`,
+        ),
+      ),
+    ];
     usage.push(...revs);
     if (usage.length) {
       return problem("conflict", `"${existing.name}" is in use: ${usage.join("; ")}. Change or delete those first.`, {
@@ -407,14 +415,22 @@ export async function quotePlausibility(tx: DbOrTx, q: PriceQuoteInputParsed): P
 }
 
 /** Validates a quote for its fuel and checks its plausibility; an implausible price needs `confirmImplausible: true`. */
-export async function checkQuoteWrite(tx: DbOrTx, fuel: FuelRow, raw: unknown): Promise<Result<{ quote: PriceQuoteInputParsed; warnings: string[] }>> {
+export async function checkQuoteWrite(
+  tx: DbOrTx,
+  fuel: FuelRow,
+  raw: unknown,
+): Promise<Result<{ quote: PriceQuoteInputParsed; warnings: string[] }>> {
   const { body, confirm } = confirmation(raw);
   const checked = checkQuoteForFuel(fuel, body);
   if (!checked.ok) return checked;
   const w = await quotePlausibility(tx, checked.value);
   if (w?.blocking && !confirm) {
     return {
-      ...problem("unprocessable", `The price looks implausible; nothing was saved. Check it, or send it again with "confirmImplausible": true to store it.`, { [w.field]: w.message }),
+      ...problem(
+        "unprocessable",
+        `The price looks implausible; nothing was saved. Check it, or send it again with "confirmImplausible": true to store it.`,
+        { [w.field]: w.message },
+      ),
       warnings: [w.message],
     };
   }
@@ -445,9 +461,15 @@ export function correctPriceQuote(db: Db, fuelId: number, quoteId: number, raw: 
     if (!existing || existing.fuelId !== fuelId) return problem("not-found", `No price quote ${quoteId} for fuel ${fuelId}.`);
     const later = await quoteSuccessors(tx, quoteId);
     if (later.length)
-      return problem("conflict", `Quote #${quoteId} was already corrected by quote #${later[0].id}; correct that one.`, { _: `superseded by quote #${later[0].id}` });
+      return problem("conflict", `Quote #${quoteId} was already corrected by quote #${later[0].id}; correct that one.`, {
+        _: `superseded by quote #${later[0].id}`,
+      });
     if (existing.withdrawnAt)
-      return problem("conflict", `Quote #${quoteId} was withdrawn on ${existing.withdrawnAt.toISOString().slice(0, 10)}; add a new quote instead.`, { _: "withdrawn" });
+      return problem(
+        "conflict",
+        `Quote #${quoteId} was withdrawn on ${existing.withdrawnAt.toISOString().slice(0, 10)}; add a new quote instead.`,
+        { _: "withdrawn" },
+      );
     const checked = await checkQuoteWrite(tx, existing.fuel, raw);
     if (!checked.ok) return checked;
     return ok({ ...(await insertQuoteVersion(tx, fuelId, quoteId, checked.value.quote)), warnings: checked.value.warnings });
@@ -470,16 +492,24 @@ export function deletePriceQuote(db: Db, fuelId: number, quoteId: number): Promi
     if (!existing || existing.fuelId !== fuelId) return problem("not-found", `No price quote ${quoteId} for fuel ${fuelId}.`);
     const revs = await revisionUsers(tx, quoteId);
     if (revs.length)
-      return problem("conflict", `Quote #${quoteId} cannot be deleted: ${revs.join(", ")} used it. Withdraw it instead.`, { _: `used by ${revs.join(", ")}` });
+      return problem("conflict", `Quote #${quoteId} cannot be deleted: ${revs.join(", ")} used it. Withdraw it instead.`, {
+        _: `used by ${revs.join(", ")}`,
+      });
     const studies = await scenariosChoosingQuote(tx, quoteId);
     if (studies.length) {
       const names = [...new Set(studies.map((s) => `study "${s.study.name}" (scenario "${s.name}")`))];
-      return problem("conflict", `Quote #${quoteId} is chosen by ${names.join(", ")}. Withdraw it instead: those studies then say which quote they use.`, {
-        _: `chosen by ${names.join(", ")}`,
-      });
+      return problem(
+        "conflict",
+        `Quote #${quoteId} is chosen by ${names.join(", ")}. Withdraw it instead: those studies then say which quote they use.`,
+        {
+          _: `chosen by ${names.join(", ")}`,
+        },
+      );
     }
     if (existing.supersedesId !== null || (await quoteSuccessors(tx, quoteId)).length)
-      return problem("conflict", `Quote #${quoteId} is part of a correction history; withdraw it instead.`, { _: "part of a correction history" });
+      return problem("conflict", `Quote #${quoteId} is part of a correction history; withdraw it instead.`, {
+        _: "part of a correction history",
+      });
     await deleteQuoteRow(tx, quoteId);
     return ok(existing);
   });

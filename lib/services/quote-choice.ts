@@ -69,7 +69,11 @@ export function inCurrency(q: PriceQuoteRow, ctx: PricingContext): Converted {
   if (q.currency === ctx.currency) return { ok: true, price: p, note: null };
   const on = day(q.validFrom);
   const r = rateInForce(ctx.rates, q.currency, ctx.currency, on);
-  if (!r) return { ok: false, reason: `quote #${q.id} is in ${q.currency} and no exchange rate from ${q.currency} to ${ctx.currency} is in force on ${on}` };
+  if (!r)
+    return {
+      ok: false,
+      reason: `quote #${q.id} is in ${q.currency} and no exchange rate from ${q.currency} to ${ctx.currency} is in force on ${on}`,
+    };
   const f = r.factor;
   const note = `quote #${q.id} converted from ${q.amount} ${q.currency} at ${rateText(r)}`;
   return {

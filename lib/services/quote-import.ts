@@ -62,12 +62,18 @@ export function importQuotes(
       const { fuel, confirmImplausible, ...quote } = row.values;
       const f = typeof fuel === "string" ? byName.get(fuel.trim().toLowerCase()) : undefined;
       if (!f) {
-        Object.assign(errs, rowErrors(row, { fuel: typeof fuel === "string" && fuel.trim() ? `no fuel named "${fuel}" in the library` : "name a fuel of the library" }));
+        Object.assign(
+          errs,
+          rowErrors(row, {
+            fuel: typeof fuel === "string" && fuel.trim() ? `no fuel named "${fuel}" in the library` : "name a fuel of the library",
+          }),
+        );
         continue;
       }
       const fuelRow = await findFuel(tx, f.id);
       if (!fuelRow) throw new Error(`fuel ${f.id} vanished during the import`);
-      const confirm = opts.confirmImplausible === true || confirmImplausible === true || confirmImplausible === "true" || confirmImplausible === "1";
+      const confirm =
+        opts.confirmImplausible === true || confirmImplausible === true || confirmImplausible === "true" || confirmImplausible === "1";
       const checked = await checkQuoteWrite(tx, fuelRow, { ...quote, confirmImplausible: confirm });
       if (!checked.ok) {
         Object.assign(errs, rowErrors(row, checked.fieldErrors));

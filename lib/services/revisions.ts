@@ -58,12 +58,20 @@ export async function issueRevision(db: Db, studyId: number): Promise<Result<{ r
     // Evaluate the stored document itself (canonical key order), exactly as it will be read again.
     result = evaluateFrozen(studySchema.parse(JSON.parse(inputs)));
   } catch (e) {
-    return problemFromError(e, { kind: "unprocessable", message: (s, field) => `The study cannot be issued: ${field ? `${field}: ` : ""}${s}.` });
+    return problemFromError(e, {
+      kind: "unprocessable",
+      message: (s, field) => `The study cannot be issued: ${field ? `${field}: ` : ""}${s}.`,
+    });
   }
   const { updatedAt: _u, revision: _r, ...meta } = loaded.bundle.meta;
   const hash = sha256(inputs);
   return inTransaction(db, async (tx) => {
-    const row = await insertRevision(tx, studyId, { hash, inputs, results: JSON.stringify(result), meta: JSON.stringify(meta) }, meta.quoteIds);
+    const row = await insertRevision(
+      tx,
+      studyId,
+      { hash, inputs, results: JSON.stringify(result), meta: JSON.stringify(meta) },
+      meta.quoteIds,
+    );
     return ok({ revision: row.number, hash: row.hash });
   });
 }
@@ -120,7 +128,10 @@ export async function studyReportData(
       result,
     };
   } catch (e) {
-    return problemFromError(e, { kind: "unprocessable", message: (s, field) => `Revision ${row.number} cannot be evaluated: ${field ? `${field}: ` : ""}${s}.` });
+    return problemFromError(e, {
+      kind: "unprocessable",
+      message: (s, field) => `Revision ${row.number} cannot be evaluated: ${field ? `${field}: ` : ""}${s}.`,
+    });
   }
 }
 

@@ -73,7 +73,14 @@ function priceFor(
         return {
           price: c.price,
           componentPrices: null,
-          source: { kind: "quote", quoteId: q.id, invented: q.isInvented, validFrom: day(q.validFrom), rule: `chosen quote #${chosen.id}`, notes },
+          source: {
+            kind: "quote",
+            quoteId: q.id,
+            invented: q.isInvented,
+            validFrom: day(q.validFrom),
+            rule: `chosen quote #${chosen.id}`,
+            notes,
+          },
           quoteIds: [q.id],
         };
       }
@@ -102,15 +109,28 @@ function priceFor(
       return {
         price: null,
         componentPrices: qs.map((p) => p.converted.price),
-        source: { kind: "components", quoteIds: qs.map((p) => p.quote.id), invented: qs.some((p) => p.quote.isInvented), rule: `components: ${rule}`, notes },
+        source: {
+          kind: "components",
+          quoteIds: qs.map((p) => p.quote.id),
+          invented: qs.some((p) => p.quote.isInvented),
+          rule: `components: ${rule}`,
+          notes,
+        },
         quoteIds: qs.map((p) => p.quote.id),
       };
     }
-    notes.push(`${fuel.name}: ${(byRule as { reason: string }).reason}; component ${missing.name}: ${(missing.pick as { reason: string }).reason}`);
+    notes.push(
+      `${fuel.name}: ${(byRule as { reason: string }).reason}; component ${missing.name}: ${(missing.pick as { reason: string }).reason}`,
+    );
   } else {
     notes.push(`${fuel.name}: ${(byRule as { reason: string }).reason}`);
   }
-  return { price: null, componentPrices: null, source: { kind: "none", invented: false, currency: ctx.currency, rule, notes }, quoteIds: [] };
+  return {
+    price: null,
+    componentPrices: null,
+    source: { kind: "none", invented: false, currency: ctx.currency, rule, notes },
+    quoteIds: [],
+  };
 }
 
 type HydrogenRow = FuelRow & { priceQuotes: PriceQuoteRow[] };
@@ -196,24 +216,27 @@ interface ScenarioSource {
   overrides: StoredScenario["overrides"];
 }
 
-type StudyFields = Omit<Pick<
-  StoredStudy,
-  | "name"
-  | "currency"
-  | "carbonPrice_per_t"
-  | "discountRatePercent"
-  | "horizonYears"
-  | "priceEscalationPercent"
-  | "rankingMetric"
-  | "includeUpstream"
-  | "sensitivity"
-  | "notes"
-  | "reportTitle"
-  | "preparedFor"
-  | "preparedBy"
-  | "reportDate"
-  | "reportNotes"
->, "reportDate"> & { reportDate?: string | null };
+type StudyFields = Omit<
+  Pick<
+    StoredStudy,
+    | "name"
+    | "currency"
+    | "carbonPrice_per_t"
+    | "discountRatePercent"
+    | "horizonYears"
+    | "priceEscalationPercent"
+    | "rankingMetric"
+    | "includeUpstream"
+    | "sensitivity"
+    | "notes"
+    | "reportTitle"
+    | "preparedFor"
+    | "preparedBy"
+    | "reportDate"
+    | "reportNotes"
+  >,
+  "reportDate"
+> & { reportDate?: string | null };
 
 function build(
   fields: StudyFields,
@@ -292,17 +315,22 @@ function build(
     hydrogen: {
       fuelId: hydrogen?.id ?? null,
       fuelName: hydrogen?.name ?? null,
-      price:
-        h2?.quote
-          ? {
-              kind: "current",
-              quoteId: h2.quote.id,
-              invented: h2.quote.isInvented,
-              validFrom: day(h2.quote.validFrom),
-              rule: ruleText(fields.currency, null),
-              notes: h2.converted.note ? [h2.converted.note] : [],
-            }
-          : { kind: "none", invented: false, currency: fields.currency, rule: ruleText(fields.currency, null), notes: h2 && !h2.quote ? [h2.reason] : [] },
+      price: h2?.quote
+        ? {
+            kind: "current",
+            quoteId: h2.quote.id,
+            invented: h2.quote.isInvented,
+            validFrom: day(h2.quote.validFrom),
+            rule: ruleText(fields.currency, null),
+            notes: h2.converted.note ? [h2.converted.note] : [],
+          }
+        : {
+            kind: "none",
+            invented: false,
+            currency: fields.currency,
+            rule: ruleText(fields.currency, null),
+            notes: h2 && !h2.quote ? [h2.reason] : [],
+          },
     },
     quoteIds: [...quoteIds].sort((a, b) => a - b),
   };
@@ -515,7 +543,8 @@ async function prepare(tx: Tx, raw: unknown, selfId?: number): Promise<Result<St
       const q = quotes.get(s.priceQuoteId);
       if (!q || q.fuelId !== s.fuelId) errs[`${path}.priceQuoteId`] = "is not a price quote of the chosen fuel";
       else if (q.currency !== r.currency && !rateInForce(rates, q.currency, r.currency, day(q.validFrom)))
-        errs[`${path}.priceQuoteId`] = `is in ${q.currency}; the study is in ${r.currency} and no exchange rate from ${q.currency} to ${r.currency} is in force on ${day(q.validFrom)} (add one, or choose a quote in ${r.currency})`;
+        errs[`${path}.priceQuoteId`] =
+          `is in ${q.currency}; the study is in ${r.currency} and no exchange rate from ${q.currency} to ${r.currency} is in force on ${day(q.validFrom)} (add one, or choose a quote in ${r.currency})`;
     }
   }
   if (Object.keys(errs).length || !plant) return problem("invalid", "The study has errors; nothing was saved.", errs);
@@ -578,9 +607,13 @@ export function deleteStudy(db: Db, id: number): Promise<Result<StudyRow>> {
     if (!existing) return problem("not-found", `No study with id ${id}.`);
     const issued = await countRevisions(tx, id);
     if (issued)
-      return problem("conflict", `Study "${existing.name}" has ${issued} issued revision${issued > 1 ? "s" : ""}; an issued study is kept on record and cannot be deleted.`, {
-        _: `${issued} issued revision${issued > 1 ? "s" : ""}`,
-      });
+      return problem(
+        "conflict",
+        `Study "${existing.name}" has ${issued} issued revision${issued > 1 ? "s" : ""}; an issued study is kept on record and cannot be deleted.`,
+        {
+          _: `${issued} issued revision${issued > 1 ? "s" : ""}`,
+        },
+      );
     await deleteStudyRow(tx, id);
     return ok(existing);
   });

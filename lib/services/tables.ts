@@ -19,7 +19,12 @@ export interface TableRow {
 }
 
 /** Columns whose CSV cells are numbers (an empty cell is left out). */
-export function readTable(text: string, format: TableFormat, numeric: readonly string[], known: readonly string[]): { ok: true; rows: TableRow[] } | Problem {
+export function readTable(
+  text: string,
+  format: TableFormat,
+  numeric: readonly string[],
+  known: readonly string[],
+): { ok: true; rows: TableRow[] } | Problem {
   if (format === "json") {
     let raw: unknown;
     try {
@@ -29,11 +34,16 @@ export function readTable(text: string, format: TableFormat, numeric: readonly s
       return problem("invalid", `The file is not JSON: ${e.message}`, { file: "not JSON" });
     }
     if (tooDeepAt(raw) !== null) return problem("invalid", "The file nests too deeply.", { file: "nested too deeply" });
-    const list = Array.isArray(raw) ? raw : raw && typeof raw === "object" && Array.isArray((raw as { rows?: unknown }).rows) ? (raw as { rows: unknown[] }).rows : null;
-    if (!list) return problem("invalid", "The file must be a JSON list of objects (or { \"rows\": [...] }).", { file: "must be a list" });
+    const list = Array.isArray(raw)
+      ? raw
+      : raw && typeof raw === "object" && Array.isArray((raw as { rows?: unknown }).rows)
+        ? (raw as { rows: unknown[] }).rows
+        : null;
+    if (!list) return problem("invalid", 'The file must be a JSON list of objects (or { "rows": [...] }).', { file: "must be a list" });
     const rows: TableRow[] = [];
     for (const [i, item] of list.entries()) {
-      if (!item || typeof item !== "object" || Array.isArray(item)) return problem("invalid", `item ${i + 1} must be an object`, { [`item ${i + 1}`]: "must be an object" });
+      if (!item || typeof item !== "object" || Array.isArray(item))
+        return problem("invalid", `item ${i + 1} must be an object`, { [`item ${i + 1}`]: "must be an object" });
       rows.push({ where: `item ${i + 1}`, values: item as Record<string, unknown>, columnOf: (f) => f });
     }
     return { ok: true, rows };
@@ -52,9 +62,13 @@ export function readTable(text: string, format: TableFormat, numeric: readonly s
   const fieldOfColumn = header.map((h) => byLower.get(h.toLowerCase()) ?? null);
   const unknown = header.filter((h, i) => h && !fieldOfColumn[i]);
   if (unknown.length)
-    return problem("invalid", `Unknown column${unknown.length > 1 ? "s" : ""} ${unknown.map((u) => `"${u}"`).join(", ")}; the columns are ${known.join(", ")}.`, {
-      "row 1": `unknown column ${unknown.map((u) => `"${u}"`).join(", ")}`,
-    });
+    return problem(
+      "invalid",
+      `Unknown column${unknown.length > 1 ? "s" : ""} ${unknown.map((u) => `"${u}"`).join(", ")}; the columns are ${known.join(", ")}.`,
+      {
+        "row 1": `unknown column ${unknown.map((u) => `"${u}"`).join(", ")}`,
+      },
+    );
   const columnOf = (f: string) => header[fieldOfColumn.indexOf(f)] ?? f;
   const rows: TableRow[] = records.slice(1).map((cells, i) => {
     const values: Record<string, unknown> = {};

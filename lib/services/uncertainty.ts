@@ -41,7 +41,9 @@ function rangeOf(w: number, shape: NonNullable<UncertaintyRequest["shape"]>): Un
 /** Runs the ranking of stored study `id` with the request's ranges (the study's own where none is stated). */
 export async function uncertaintyOfStoredStudy(db: Db, id: number, req: UncertaintyRequest): Promise<UncertaintyAnswer> {
   if (!Number.isInteger(req.draws) || req.draws < 100 || req.draws > PAGE_MAX_DRAWS) {
-    return problem("invalid", `draws: must be a whole number from 100 to ${PAGE_MAX_DRAWS}`, { draws: `must be a whole number from 100 to ${PAGE_MAX_DRAWS}` });
+    return problem("invalid", `draws: must be a whole number from 100 to ${PAGE_MAX_DRAWS}`, {
+      draws: `must be a whole number from 100 to ${PAGE_MAX_DRAWS}`,
+    });
   }
   const loaded = await studyBundle(db, id, req);
   if (!loaded.ok) return loaded;
@@ -59,9 +61,18 @@ export async function uncertaintyOfStoredStudy(db: Db, id: number, req: Uncertai
     const parsed = uncertaintySchema.safeParse(raw);
     if (!parsed.success) {
       const errs = fieldErrors(parsed.error);
-      return problem("invalid", `The ranges cannot be used: ${Object.entries(errs).map(([k, v]) => `${k}: ${v}`).join("; ")}`, errs);
+      return problem(
+        "invalid",
+        `The ranges cannot be used: ${Object.entries(errs)
+          .map(([k, v]) => `${k}: ${v}`)
+          .join("; ")}`,
+        errs,
+      );
     }
-    const result = uncertaintyRanking({ ...study, uncertainty: parsed.data }, { draws: req.draws, seed: req.seed, metric: req.metric as RankingMetric | undefined, caches: sharedCaches() });
+    const result = uncertaintyRanking(
+      { ...study, uncertainty: parsed.data },
+      { draws: req.draws, seed: req.seed, metric: req.metric as RankingMetric | undefined, caches: sharedCaches() },
+    );
     return { ok: true, bundle: loaded.bundle, result };
   } catch (e) {
     return problemFromError(e, {

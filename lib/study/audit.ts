@@ -26,7 +26,8 @@ export const STUDY_METHODS: readonly AuditMethod[] = [
   {
     quantity: "species enthalpy, heat capacity, entropy",
     method: "NASA 7-coefficient polynomials, two temperature ranges; standard state 1 bar",
-    source: "McBride, Zehe & Gordon, NASA/TP-2002-211556 (2002); GRI-Mech 3.0 / Burcat tables where stated per species; checked against NIST-JANAF (Chase 1998)",
+    source:
+      "McBride, Zehe & Gordon, NASA/TP-2002-211556 (2002); GRI-Mech 3.0 / Burcat tables where stated per species; checked against NIST-JANAF (Chase 1998)",
   },
   {
     quantity: "gross and net heating value (HHV, LHV) at 25 °C",
@@ -45,27 +46,34 @@ export const STUDY_METHODS: readonly AuditMethod[] = [
   },
   {
     quantity: "water dew point and condensed water",
-    method: "saturation pressure / temperature of water; below its dew point the flue gas leaves saturated at the stack temperature, the rest of its water condensed",
+    method:
+      "saturation pressure / temperature of water; below its dew point the flue gas leaves saturated at the stack temperature, the rest of its water condensed",
     source: "IAPWS-IF97, IAPWS R7-97(2012), region 4",
   },
   {
     quantity: "efficiency on gross and net basis",
-    method: "heat-loss (indirect) method: dry flue-gas loss, moisture loss (sensible + latent), CO and unburnt-carbon losses, condensate recovery, radiation/casing loss, combustion-air credit; reference 25 °C",
-    source: "concepts of EN 12952-15 and ASME PTC 4; species enthalpies from the NASA polynomials; unburnt carbon at 14 500 Btu/lbm (ASME PTC 4, value from memory)",
+    method:
+      "heat-loss (indirect) method: dry flue-gas loss, moisture loss (sensible + latent), CO and unburnt-carbon losses, condensate recovery, radiation/casing loss, combustion-air credit; reference 25 °C",
+    source:
+      "concepts of EN 12952-15 and ASME PTC 4; species enthalpies from the NASA polynomials; unburnt carbon at 14 500 Btu/lbm (ASME PTC 4, value from memory)",
   },
   {
     quantity: "CO and unburnt-carbon losses",
-    method: "CO: moles in the dry flue gas × heat of combustion of CO at 25 °C; carbon: residue carbon share → kg unburnt carbon per kg fuel × heating value of carbon in residue; flue gas and air of the carbon burnt",
-    source: "loss terms of ASME PTC 4 and EN 12952-15; CO heat of combustion from the NASA polynomials (NIST-JANAF formation enthalpies); carbon in residue 14 500 Btu/lbm (ASME PTC 4, value from memory)",
+    method:
+      "CO: moles in the dry flue gas × heat of combustion of CO at 25 °C; carbon: residue carbon share → kg unburnt carbon per kg fuel × heating value of carbon in residue; flue gas and air of the carbon burnt",
+    source:
+      "loss terms of ASME PTC 4 and EN 12952-15; CO heat of combustion from the NASA polynomials (NIST-JANAF formation enthalpies); carbon in residue 14 500 Btu/lbm (ASME PTC 4, value from memory)",
   },
   {
     quantity: "radiation and casing loss at part load",
-    method: "constant heat flow = rated-load % × the baseline's rated net input; share of a fuel's input = Q_rad·η₀/(U + Q_rad) at useful heat U",
+    method:
+      "constant heat flow = rated-load % × the baseline's rated net input; share of a fuel's input = Q_rad·η₀/(U + Q_rad) at useful heat U",
     source: "rated-load radiation loss as boiler makers and ABMA-type charts state it (common practice, no source)",
   },
   {
     quantity: "flue-gas loss cross-check",
-    method: "Siegert formula (rule of thumb), shown where its constants apply beside the flue-gas loss computed by the regulation's definition (sensible heat of the dry and wet flue gas from combustion-air to flue-gas temperature, net basis, no latent heat) — not beside the efficiency's loss terms",
+    method:
+      "Siegert formula (rule of thumb), shown where its constants apply beside the flue-gas loss computed by the regulation's definition (sensible heat of the dry and wet flue gas from combustion-air to flue-gas temperature, net basis, no latent heat) — not beside the efficiency's loss terms",
     source: SIEGERT_SOURCE,
   },
   {
@@ -80,12 +88,14 @@ export const STUDY_METHODS: readonly AuditMethod[] = [
   },
   {
     quantity: "delivered fuel price per MWh (gross, net) and per kg",
-    method: "commodity + transport + handling per quoted unit, converted through cost per kg with the fuel's own heating values and density",
+    method:
+      "commodity + transport + handling per quoted unit, converted through cost per kg with the fuel's own heating values and density",
     source: "unit factors exact or from NIST SP 811 (2008) App. B.8",
   },
   {
     quantity: "NPV, payback, abatement cost, break-even prices, tornado",
-    method: "end-of-year discounted cash flows; levelised abatement cost = present cost without carbon price ÷ present tonnes avoided; break-even by the exact linearity of cost in price; one-at-a-time sensitivity",
+    method:
+      "end-of-year discounted cash flows; levelised abatement cost = present cost without carbon price ÷ present tonnes avoided; break-even by the exact linearity of cost in price; one-at-a-time sensitivity",
     source: "engineering-economics practice (common practice, no source)",
   },
 ];

@@ -5,18 +5,38 @@
  * sweep and the audit trail. Pure: the command line and the pages call the same function.
  */
 import type { FuelDefinition } from "../schemas/fuel";
-import { operatingPointOf, plantWithOverrides, type OperatingPoint, type Plant, EQUIPMENT_TYPE_LABELS, METERING_REFERENCE_C } from "../schemas/plant";
+import {
+  operatingPointOf,
+  plantWithOverrides,
+  type OperatingPoint,
+  type Plant,
+  EQUIPMENT_TYPE_LABELS,
+  METERING_REFERENCE_C,
+} from "../schemas/plant";
 import type { Scenario, Study, StudyPrice } from "../schemas/study";
 import type { FuelContext, WobbeFigures } from "../plant/fuel-context";
 import type { FuelPerformance } from "../plant/performance";
 import { createEvaluationCaches, type EvaluationCaches } from "./caches";
 import { blendPriceFromComponents, normaliseStudyPrice, priceTerms } from "./pricing";
-import { annualDemand, efficiencyAtUseful, flowsForUseful, plantDuty, type AnnualDemand, type PlantDuty, type RatedFlows } from "../plant/duty";
+import {
+  annualDemand,
+  efficiencyAtUseful,
+  flowsForUseful,
+  plantDuty,
+  type AnnualDemand,
+  type PlantDuty,
+  type RatedFlows,
+} from "../plant/duty";
 import { checkOperatingPoint, type FuelPerformance as Perf } from "../plant/performance";
 import { InputError, rethrowUnder } from "../errors";
 import { fitChecks, worstStatus, type CheckStatus, type FitCheck, type FuelInPlant } from "../plant/fit-checks";
 import { siegertClassOf, siegertLossPercent, SIEGERT_COMPARISON_DEFINITION, SIEGERT_CONSTANTS } from "../plant/siegert";
-import { coHeatOfCombustion_MJ_per_m3, UNBURNT_CARBON_HEATING_VALUE_J_per_kg, type EfficiencyResult, type LossTerms } from "../plant/efficiency";
+import {
+  coHeatOfCombustion_MJ_per_m3,
+  UNBURNT_CARBON_HEATING_VALUE_J_per_kg,
+  type EfficiencyResult,
+  type LossTerms,
+} from "../plant/efficiency";
 import { priceUnitLabel, type NormalisedPrice } from "../economics/prices";
 import { compare, scenarioCosts, type Comparison, type CostInputs, type FinanceAssumptions, type ScenarioCosts } from "../economics/costs";
 import { RANKING_METRIC_INFO, tornado, type RankingMetric, type SensitivityRanges, type Tornado } from "../economics/sensitivity";
@@ -107,7 +127,15 @@ export interface ScenarioResult {
   /** t CO2 per year at the annual useful heat (needs no price; kg/GJ of useful heat × GJ per year): fossil, biogenic, upstream CO2e (null: unknown). */
   annualCo2_t: { fossil: number; biogenic: number; upstream: number | null };
   /** Delivered price, from the scenario's quote or (blends) from its components' quotes. */
-  price: (NormalisedPrice & { unitLabel: string; currency: string; origin: "quote" | "blend of component quotes"; quote: StudyPrice | null; componentQuotes: StudyPrice[] | null }) | null;
+  price:
+    | (NormalisedPrice & {
+        unitLabel: string;
+        currency: string;
+        origin: "quote" | "blend of component quotes";
+        quote: StudyPrice | null;
+        componentQuotes: StudyPrice[] | null;
+      })
+    | null;
   /** The numbers the economics ran on (for other metrics' tornadoes or what-ifs via lib/economics). */
   costInputs: CostInputs | null;
   costs: ScenarioCosts | null;
@@ -121,7 +149,14 @@ export interface ScenarioResult {
   /** Hazards of this fuel (cautions texts in StudyResult.cautions). */
   cautions: HazardKey[];
   audit: {
-    inputs: { fuel: FuelDefinition; price: StudyPrice | null; componentPrices: StudyPrice[] | null; capex: number; fixedOpexChange: number; overrides: Scenario["overrides"] };
+    inputs: {
+      fuel: FuelDefinition;
+      price: StudyPrice | null;
+      componentPrices: StudyPrice[] | null;
+      capex: number;
+      fixedOpexChange: number;
+      overrides: Scenario["overrides"];
+    };
     notes: string[];
   };
 }
@@ -173,12 +208,22 @@ interface Prepared {
 }
 
 /** Operating-point fields whose errors are blamed on the scenario override or on the plant, wherever the value came from. */
-const OPERATING_POINT_FIELDS = new Set(["stackTemperatureC", "returnWaterC", "condensingApproachK", "flueCODryPpm", "unburntCarbonInAshPercent", "radiationLossPercent", "combustionAirC", "flueO2DryPercent"]);
+const OPERATING_POINT_FIELDS = new Set([
+  "stackTemperatureC",
+  "returnWaterC",
+  "condensingApproachK",
+  "flueCODryPpm",
+  "unburntCarbonInAshPercent",
+  "radiationLossPercent",
+  "combustionAirC",
+  "flueO2DryPercent",
+]);
 
 function prepare(sc: Scenario, index: number, field: string, plant: Plant, caches: EvaluationCaches): Prepared {
   const ctx = caches.fuels.fromDefinition(sc.fuel, `${field}.fuel`);
   const op = operatingPointOf(plant, sc.overrides);
-  if (op.condensing && op.returnWaterC === null) throw new StudyInputError(`${field}.overrides.returnWaterC`, "a condensing unit needs its return-water temperature");
+  if (op.condensing && op.returnWaterC === null)
+    throw new StudyInputError(`${field}.overrides.returnWaterC`, "a condensing unit needs its return-water temperature");
   const opField = (k: string) => (sc.overrides && k in sc.overrides ? `${field}.overrides.${k}` : `plant.${k}`);
   let perf: FuelPerformance;
   try {
@@ -244,8 +289,7 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
   const upstreamOf = (p: Prepared): number | null => p.ctx.co2.upstreamCo2e_kg_per_GJ_lhv ?? null;
   /** Costs need the upstream factor only when the study counts upstream emissions. */
   const costable = (p: Prepared) => !study.includeUpstream || upstreamOf(p) !== null;
-  const costInputs = (p: Prepared, price: NormalisedPrice): CostInputs | null =>
-    costable(p) ? costInputsKnown(p, price) : null;
+  const costInputs = (p: Prepared, price: NormalisedPrice): CostInputs | null => (costable(p) ? costInputsKnown(p, price) : null);
   const costInputsKnown = (p: Prepared, price: NormalisedPrice): CostInputs => ({
     usefulHeat_MWh: duty.annualUseful_MWh,
     efficiencyNet: loadsOf(p).annual.net.efficiency,
@@ -274,7 +318,10 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
   const basePrice = priceOf(base);
   const baseCI = basePrice ? costInputs(base, basePrice) : null;
   if (!basePrice) notes.push("The baseline has no price quote: no costs, savings, NPV or break-even prices are computed.");
-  else if (!baseCI) notes.push("The baseline's upstream CO2e is unknown (no factor stated) and the study counts upstream emissions: its costs, savings, NPV and break-even prices are unknown.");
+  else if (!baseCI)
+    notes.push(
+      "The baseline's upstream CO2e is unknown (no factor stated) and the study counts upstream emissions: its costs, savings, NPV and break-even prices are unknown.",
+    );
 
   const evaluate = (p: Prepared): ScenarioResult => {
     const isBaseline = p.index === -1;
@@ -297,7 +344,11 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
       fossil: ctx.co2.fossil_kg_per_GJ_lhv / etaN,
       biogenic: ctx.co2.biogenic_kg_per_GJ_lhv / etaN,
       upstream: up === null ? null : up / etaN,
-      ranked: study.includeUpstream ? (up === null ? null : (ctx.co2.fossil_kg_per_GJ_lhv + up) / etaN) : ctx.co2.fossil_kg_per_GJ_lhv / etaN,
+      ranked: study.includeUpstream
+        ? up === null
+          ? null
+          : (ctx.co2.fossil_kg_per_GJ_lhv + up) / etaN
+        : ctx.co2.fossil_kg_per_GJ_lhv / etaN,
     };
     const sClass = siegertClassOf(ctx.fuel);
     const op = p.op;
@@ -390,7 +441,11 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
       },
       flame:
         p.perf.flame && base.perf.flame
-          ? { temperatureC: p.perf.flame.temperatureC, shiftK: p.perf.flame.temperatureK - base.perf.flame.temperatureK, method: p.perf.flame.methodLabel }
+          ? {
+              temperatureC: p.perf.flame.temperatureC,
+              shiftK: p.perf.flame.temperatureK - base.perf.flame.temperatureK,
+              method: p.perf.flame.methodLabel,
+            }
           : null,
       ...(p.perf.flameError ? { flameError: p.perf.flameError } : {}),
       wobbeShiftPercent: w && wb ? pct(w.gross_MJ_per_m3, wb.gross_MJ_per_m3) : null,
@@ -398,7 +453,9 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
       flowChangePercent: {
         fuelMass: pct(f.flows.fuel_kg_per_h, baseFip.flows.fuel_kg_per_h),
         fuelVolume:
-          f.flows.fuelVolume_per_h && baseFip.flows.fuelVolume_per_h && f.flows.fuelVolume_per_h.kind === baseFip.flows.fuelVolume_per_h.kind
+          f.flows.fuelVolume_per_h &&
+          baseFip.flows.fuelVolume_per_h &&
+          f.flows.fuelVolume_per_h.kind === baseFip.flows.fuelVolume_per_h.kind
             ? pct(f.flows.fuelVolume_per_h.value, baseFip.flows.fuelVolume_per_h.value)
             : null,
         air: pct(f.flows.air_m3_per_h_normal, baseFip.flows.air_m3_per_h_normal),
@@ -413,8 +470,22 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
       },
       price: price
         ? p.scenario.price
-          ? { ...price, unitLabel: priceUnitLabel(priceTerms(p.scenario.price)), currency: p.scenario.price.currency, origin: "quote", quote: p.scenario.price, componentQuotes: null }
-          : { ...price, unitLabel: "kg", currency: study.currency, origin: "blend of component quotes", quote: null, componentQuotes: p.scenario.componentPrices ?? null }
+          ? {
+              ...price,
+              unitLabel: priceUnitLabel(priceTerms(p.scenario.price)),
+              currency: p.scenario.price.currency,
+              origin: "quote",
+              quote: p.scenario.price,
+              componentQuotes: null,
+            }
+          : {
+              ...price,
+              unitLabel: "kg",
+              currency: study.currency,
+              origin: "blend of component quotes",
+              quote: null,
+              componentQuotes: p.scenario.componentPrices ?? null,
+            }
         : null,
       costInputs: ci,
       costs,
@@ -425,9 +496,18 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
       worstCheck: worst,
       metricValue,
       rank: null,
-      cautions: cautionsFor(p.scenario.fuel).map((c) => c.hazard).filter((h) => h !== "burner-change"),
+      cautions: cautionsFor(p.scenario.fuel)
+        .map((c) => c.hazard)
+        .filter((h) => h !== "burner-change"),
       audit: {
-        inputs: { fuel: p.scenario.fuel, price: p.scenario.price ?? null, componentPrices: p.scenario.componentPrices ?? null, capex: p.scenario.capex, fixedOpexChange: p.scenario.fixedOpexChange, overrides: p.scenario.overrides },
+        inputs: {
+          fuel: p.scenario.fuel,
+          price: p.scenario.price ?? null,
+          componentPrices: p.scenario.componentPrices ?? null,
+          capex: p.scenario.capex,
+          fixedOpexChange: p.scenario.fixedOpexChange,
+          overrides: p.scenario.overrides,
+        },
         notes: scenarioNotes,
       },
     };
@@ -498,7 +578,7 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
   addAll(study.baseline.fuel);
   for (const sc of study.scenarios) addAll(sc.fuel);
   if (sweep?.available) addAll(study.hydrogenSweep.hydrogen);
-  if (cands.some((c) => c.ctx.key !== base.ctx.key) || (sweep?.available)) {
+  if (cands.some((c) => c.ctx.key !== base.ctx.key) || sweep?.available) {
     const bc = cautionsFor(study.baseline.fuel).find((c) => c.hazard === "burner-change");
     if (bc) byHazard.set("burner-change", bc);
   }
@@ -524,6 +604,10 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
     hydrogenSweep: sweep,
     cautions: { screening: DEFER, items: [...byHazard.values()] },
     audit: { methods: [...STUDY_METHODS], assumptions: studyAssumptions(), notes },
-    stats: { fuelStates: caches.fuels.size, performanceStates: caches.performance.size, performanceCacheHits: caches.performance.hits - hitsBefore },
+    stats: {
+      fuelStates: caches.fuels.size,
+      performanceStates: caches.performance.size,
+      performanceCacheHits: caches.performance.hits - hitsBefore,
+    },
   };
 }

@@ -10,7 +10,15 @@ import { METERING_REFERENCE_C, operatingPointOf, type Plant } from "../schemas/p
 import type { Study } from "../schemas/study";
 import type { FuelContext } from "../plant/fuel-context";
 import { efficiencyAtUseful, flowsForUseful, type PlantDuty } from "../plant/duty";
-import { FIT_CHECK_IDS, FIT_CHECK_LABELS, fitChecks, worstStatus, type CheckStatus, type FitCheckId, type FuelInPlant } from "../plant/fit-checks";
+import {
+  FIT_CHECK_IDS,
+  FIT_CHECK_LABELS,
+  fitChecks,
+  worstStatus,
+  type CheckStatus,
+  type FitCheckId,
+  type FuelInPlant,
+} from "../plant/fit-checks";
 import { normalisePrice, type NormalisedPrice } from "../economics/prices";
 import { scenarioCosts, type CostInputs, type FinanceAssumptions } from "../economics/costs";
 import type { EquilibriumResult } from "../combustion/equilibrium";
@@ -108,16 +116,27 @@ export function hydrogenSweep(env: SweepEnvironment): HydrogenSweepResult {
     cost: "fuel + carbon (+ upstream when included) per MWh of useful heat",
   };
   const empty = (reason: string): HydrogenSweepResult => ({
-    available: false, reason, baseGasLabel: baseCtx.label, hydrogenLabel: "hydrogen", stepPercent: cfg.stepPercent,
-    points: [], crossings: [], limitLines: null, basis, notes: [],
+    available: false,
+    reason,
+    baseGasLabel: baseCtx.label,
+    hydrogenLabel: "hydrogen",
+    stepPercent: cfg.stepPercent,
+    points: [],
+    crossings: [],
+    limitLines: null,
+    basis,
+    notes: [],
   });
-  if (baseCtx.fuel.kind !== "gas" || !baseCtx.fuel.molarMass_g_per_mol) return empty("the baseline fuel is not a gas: no hydrogen blending");
+  if (baseCtx.fuel.kind !== "gas" || !baseCtx.fuel.molarMass_g_per_mol)
+    return empty("the baseline fuel is not a gas: no hydrogen blending");
   const h2Ctx = caches.fuels.fromDefinition(cfg.hydrogen, "hydrogenSweep.hydrogen");
   if (h2Ctx.fuel.kind !== "gas" || !h2Ctx.fuel.molarMass_g_per_mol) throw new StudyInputError("hydrogenSweep.hydrogen", "must be a gas");
   const notes: string[] = [];
 
   // Prices per kg delivered (for mass-weighted blend prices).
-  let h2Price: NormalisedPrice | null = cfg.hydrogenPrice ? normaliseStudyPrice(cfg.hydrogenPrice, h2Ctx, "hydrogenSweep.hydrogenPrice") : null;
+  let h2Price: NormalisedPrice | null = cfg.hydrogenPrice
+    ? normaliseStudyPrice(cfg.hydrogenPrice, h2Ctx, "hydrogenSweep.hydrogenPrice")
+    : null;
   if (!h2Price) {
     const s = env.scenarios.find((x) => x.ctx.key === h2Ctx.key && x.price);
     if (s) {
@@ -154,7 +173,13 @@ export function hydrogenSweep(env: SweepEnvironment): HydrogenSweepResult {
           ? h2Ctx
           : caches.fuels.fromKeyedDefinition(
               `h2-sweep:${baseCtx.key}:${h2Ctx.key}:${share}`,
-              () => ({ blend: [{ fuel: env.baseline.definition, share: 1 - x }, { fuel: cfg.hydrogen, share: x }], basis: "volume" }),
+              () => ({
+                blend: [
+                  { fuel: env.baseline.definition, share: 1 - x },
+                  { fuel: cfg.hydrogen, share: x },
+                ],
+                basis: "volume",
+              }),
               "hydrogenSweep",
             );
     const perf = caches.performance.get(ctx, op, warm);
@@ -221,10 +246,14 @@ export function hydrogenSweep(env: SweepEnvironment): HydrogenSweepResult {
 
   const tol = plant.wobbeTolerancePercent ?? null;
   const limitLines: SweepLimitLines = {
-    wobbeBand_MJ_per_m3: tol !== null && wb ? { min: wb.gross_MJ_per_m3 * (1 - tol / 100), max: wb.gross_MJ_per_m3 * (1 + tol / 100) } : null,
+    wobbeBand_MJ_per_m3:
+      tol !== null && wb ? { min: wb.gross_MJ_per_m3 * (1 - tol / 100), max: wb.gross_MJ_per_m3 * (1 + tol / 100) } : null,
     wobbeRange_MJ_per_m3:
-      plant.wobbeMin_MJ_per_m3 != null && plant.wobbeMax_MJ_per_m3 != null ? { min: plant.wobbeMin_MJ_per_m3, max: plant.wobbeMax_MJ_per_m3 } : null,
-    maxFlameTemperatureC: plant.maxFlameTempRiseK != null && baseFip.perf.flame ? baseFip.perf.flame.temperatureC + plant.maxFlameTempRiseK : null,
+      plant.wobbeMin_MJ_per_m3 != null && plant.wobbeMax_MJ_per_m3 != null
+        ? { min: plant.wobbeMin_MJ_per_m3, max: plant.wobbeMax_MJ_per_m3 }
+        : null,
+    maxFlameTemperatureC:
+      plant.maxFlameTempRiseK != null && baseFip.perf.flame ? baseFip.perf.flame.temperatureC + plant.maxFlameTempRiseK : null,
     flueGasCapacity_m3_per_h: plant.flueGasCapacity_m3_per_h ?? null,
     airCapacity_m3_per_h: plant.airCapacity_m3_per_h ?? null,
     fuelSupplyCapacity_m3_per_h: plant.fuelSupplyCapacity_m3_per_h ?? null,

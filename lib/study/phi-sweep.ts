@@ -94,7 +94,8 @@ function goldenMax(f: (x: number) => number, a: number, b: number, tol = 1e-4): 
 }
 
 export function phiSweep(opts: PhiSweepOptions): PhiSweepResult {
-  const fuel: ResolvedFuel = (opts.fuel as ResolvedFuel).elements_mol_per_kg !== undefined ? (opts.fuel as ResolvedFuel) : resolveFuel(opts.fuel as FuelDefinition);
+  const fuel: ResolvedFuel =
+    (opts.fuel as ResolvedFuel).elements_mol_per_kg !== undefined ? (opts.fuel as ResolvedFuel) : resolveFuel(opts.fuel as FuelDefinition);
   const phiMin = opts.phiMin ?? PHI_SWEEP_DEFAULTS.phiMin;
   const phiMax = opts.phiMax ?? PHI_SWEEP_DEFAULTS.phiMax;
   const steps = Math.max(2, Math.round(opts.steps ?? PHI_SWEEP_DEFAULTS.steps));
@@ -110,12 +111,21 @@ export function phiSweep(opts: PhiSweepOptions): PhiSweepResult {
   // One input error for the whole sweep, not the same refusal at every point.
   checkLiquidFeed(fuel, common.fuelTemperatureK, common.pressurePa);
   let warm: EquilibriumResult | undefined;
-  const solve = (phi: number, method: FlameMethod) => flameTemperature({ ...common, phi, method, warmStart: method === "equilibrium" ? warm : undefined });
+  const solve = (phi: number, method: FlameMethod) =>
+    flameTemperature({ ...common, phi, method, warmStart: method === "equilibrium" ? warm : undefined });
 
   const points: PhiSweepPoint[] = [];
   for (let i = 0; i <= steps; i++) {
     const phi = Math.round((phiMin + ((phiMax - phiMin) * i) / steps) * 1e9) / 1e9;
-    const p: PhiSweepPoint = { phi, equilibriumK: null, completeK: null, meanCpK: null, equilibriumCO: null, equilibriumH2: null, errors: [] };
+    const p: PhiSweepPoint = {
+      phi,
+      equilibriumK: null,
+      completeK: null,
+      meanCpK: null,
+      equilibriumCO: null,
+      equilibriumH2: null,
+      errors: [],
+    };
     try {
       const r = solve(phi, "equilibrium");
       p.equilibriumK = r.temperatureK;
@@ -162,7 +172,11 @@ export function phiSweep(opts: PhiSweepOptions): PhiSweepResult {
   return {
     points,
     peak: { equilibrium: peakOf("equilibriumK", "equilibrium"), complete: peakOf("completeK", "complete") },
-    methods: { equilibrium: FLAME_METHOD_LABELS.equilibrium, complete: FLAME_METHOD_LABELS.complete, "mean-cp": FLAME_METHOD_LABELS["mean-cp"] },
+    methods: {
+      equilibrium: FLAME_METHOD_LABELS.equilibrium,
+      complete: FLAME_METHOD_LABELS.complete,
+      "mean-cp": FLAME_METHOD_LABELS["mean-cp"],
+    },
     basis: `adiabatic, at ${(common.pressurePa / 1000).toFixed(3)} kPa; fuel at ${kelvinToCelsius(common.fuelTemperatureK).toFixed(0)} °C, oxidiser at ${kelvinToCelsius(common.oxidizerTemperatureK).toFixed(0)} °C`,
   };
 }
@@ -174,7 +188,12 @@ export interface PlantPhiSweep extends PhiSweepResult {
   conditions: { combustionAirC: number; flueO2DryPercent: number; ambientAir: { temperatureC: number; relativeHumidityPercent: number } };
 }
 
-export function phiSweepInPlant(fuel: FuelDefinition, plant: Plant, overrides: OperatingOverrides = {}, opts: Pick<PhiSweepOptions, "phiMin" | "phiMax" | "steps"> = {}): PlantPhiSweep {
+export function phiSweepInPlant(
+  fuel: FuelDefinition,
+  plant: Plant,
+  overrides: OperatingOverrides = {},
+  opts: Pick<PhiSweepOptions, "phiMin" | "phiMax" | "steps"> = {},
+): PlantPhiSweep {
   const op = operatingPointOf(plant, overrides);
   const oxidizer = plantOxidizer(op);
   const resolved = resolveFuel(fuel);

@@ -55,7 +55,12 @@ export interface StudyPricePaths {
   applied: { carbon_per_t: number[]; fuelIndex: { key: string; label: string; values: number[] }[] };
 }
 
-const quoteDouble = (q: StudyPrice): StudyPrice => ({ ...q, amount: 2 * q.amount, transportAdder: 2 * q.transportAdder, handlingAdder: 2 * q.handlingAdder });
+const quoteDouble = (q: StudyPrice): StudyPrice => ({
+  ...q,
+  amount: 2 * q.amount,
+  transportAdder: 2 * q.transportAdder,
+  handlingAdder: 2 * q.handlingAdder,
+});
 
 /** Sources, price parts, paths and factors of an evaluated study (`results`: baseline first). */
 export function studyPricePaths(study: Study, caches: EvaluationCaches, results: readonly PricedScenario[]): StudyPricePaths {
@@ -63,7 +68,16 @@ export function studyPricePaths(study: Study, caches: EvaluationCaches, results:
   const sources: PriceSource[] = [];
   const byIdentity = new Map<string, number>();
   const sourceOf = (fuel: unknown, quote: StudyPrice, key: string, label: string): number => {
-    const id = JSON.stringify([fuel, quote.amount, quote.unit, quote.energyBasis ?? null, quote.meteringReference ?? null, quote.transportAdder, quote.handlingAdder, quote.currency]);
+    const id = JSON.stringify([
+      fuel,
+      quote.amount,
+      quote.unit,
+      quote.energyBasis ?? null,
+      quote.meteringReference ?? null,
+      quote.transportAdder,
+      quote.handlingAdder,
+      quote.currency,
+    ]);
     let k = byIdentity.get(id);
     if (k === undefined) {
       k = sources.length;
@@ -80,7 +94,10 @@ export function studyPricePaths(study: Study, caches: EvaluationCaches, results:
     const ci = r.costInputs;
     const parts: PathScenario["priceParts"] = [];
     if (sc.price) {
-      parts.push({ source: sourceOf(sc.fuel, sc.price, `${field}.price`, `${sc.fuel.name ?? r.fuel.label} (${sc.name})`), perMWh_net: r.price.perMWh_net });
+      parts.push({
+        source: sourceOf(sc.fuel, sc.price, `${field}.price`, `${sc.fuel.name ?? r.fuel.label} (${sc.name})`),
+        perMWh_net: r.price.perMWh_net,
+      });
     } else if (sc.componentPrices && "blend" in sc.fuel) {
       const blend = sc.fuel;
       const ctx = caches.fuels.fromDefinition(sc.fuel, `${field}.fuel`);
@@ -92,9 +109,13 @@ export function studyPricePaths(study: Study, caches: EvaluationCaches, results:
         const part = blendPriceFromComponents(ctx, comps, doubled, field).perMWh_net - nominal;
         sum += part;
         const compName = blend.blend[j].fuel.name ?? comps[j].label;
-        parts.push({ source: sourceOf(blend.blend[j].fuel, q, `${field}.componentPrices.${j}`, `${compName} (component of ${sc.name})`), perMWh_net: part });
+        parts.push({
+          source: sourceOf(blend.blend[j].fuel, q, `${field}.componentPrices.${j}`, `${compName} (component of ${sc.name})`),
+          perMWh_net: part,
+        });
       });
-      if (Math.abs(sum - nominal) > 1e-9 * Math.max(1, Math.abs(nominal))) throw new Error(`blend price of ${field} is not the sum of its component parts: ${sum} vs ${nominal}`);
+      if (Math.abs(sum - nominal) > 1e-9 * Math.max(1, Math.abs(nominal)))
+        throw new Error(`blend price of ${field} is not the sum of its component parts: ${sum} vs ${nominal}`);
     }
     return {
       priceParts: parts,
@@ -120,17 +141,27 @@ export function studyPricePaths(study: Study, caches: EvaluationCaches, results:
   const escalation: PricePath = { kind: "escalation", percentPerYear: study.priceEscalationPercent };
   const known = new Set(sources.map((s) => s.key));
   for (const key of Object.keys(paths?.fuelPrices ?? {})) {
-    if (!known.has(key)) throw new InputError(`paths.fuelPrices.${key}`, `no priced quote has this key; the keys are ${[...known].join(", ") || "(none: no scenario has a price)"}`);
+    if (!known.has(key))
+      throw new InputError(
+        `paths.fuelPrices.${key}`,
+        `no priced quote has this key; the keys are ${[...known].join(", ") || "(none: no scenario has a price)"}`,
+      );
   }
   const sourceIndex = sources.map((s) => pathValues(paths?.fuelPrices?.[s.key] ?? escalation, 1, N, `paths.fuelPrices.${s.key}`));
   const carbon = pathValues(paths?.carbon ?? escalation, study.carbonPrice_per_t, N, "paths.carbon");
   if (paths?.carbon && paths.carbon.kind !== "escalation" && carbon[0] !== study.carbonPrice_per_t) {
-    notes.push(`the carbon path's year 1 (${carbon[0]} per t) differs from the study's carbon price (${study.carbonPrice_per_t} per t): the path is used`);
+    notes.push(
+      `the carbon path's year 1 (${carbon[0]} per t) differs from the study's carbon price (${study.carbonPrice_per_t} per t): the path is used`,
+    );
   }
   sources.forEach((s, i) => {
-    if (sourceIndex[i][0] !== 1 && paths?.fuelPrices?.[s.key]) notes.push(`the path of ${s.key} starts at ${sourceIndex[i][0]} × the quote in year 1`);
+    if (sourceIndex[i][0] !== 1 && paths?.fuelPrices?.[s.key])
+      notes.push(`the path of ${s.key} starts at ${sourceIndex[i][0]} × the quote in year 1`);
   });
-  if (!paths) notes.push(`no paths stated: every price and the carbon price escalate at ${study.priceEscalationPercent} % a year (${terms} terms assumed for the discount rate of ${study.discountRatePercent} %)`);
+  if (!paths)
+    notes.push(
+      `no paths stated: every price and the carbon price escalate at ${study.priceEscalationPercent} % a year (${terms} terms assumed for the discount rate of ${study.discountRatePercent} %)`,
+    );
   return {
     sources,
     scenarios,
@@ -157,7 +188,11 @@ export interface PathEconomics {
  * candidate or the baseline has no costs). Without stated paths they equal the flat-escalation
  * closed forms of lib/economics/costs.ts.
  */
-export function pathEconomicsOf(p: StudyPricePaths, results: readonly PricedScenario[], annualUseful_MWh: number): (PathEconomics | null)[] {
+export function pathEconomicsOf(
+  p: StudyPricePaths,
+  results: readonly PricedScenario[],
+  annualUseful_MWh: number,
+): (PathEconomics | null)[] {
   const f = p.factors;
   const [bp, ...cps] = p.scenarios;
   const [br, ...crs] = results;

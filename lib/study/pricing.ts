@@ -42,7 +42,8 @@ export function blendPriceFromComponents(
   field: string,
 ): NormalisedPrice {
   const w = blend.fuel.componentMassFractions;
-  if (!w || w.length !== parts.length) throw new StudyInputError(`${field}.componentPrices`, "component prices need a blend with one price per component");
+  if (!w || w.length !== parts.length)
+    throw new StudyInputError(`${field}.componentPrices`, "component prices need a blend with one price per component");
   return mixPrices(
     parts.map((c, i) => ({ massFraction: w[i], price: normaliseStudyPrice(prices[i], c, `${field}.componentPrices.${i}`) })),
     blend.energyContent,

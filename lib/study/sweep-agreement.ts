@@ -22,7 +22,11 @@ export interface SweepScenarioAgreement {
 /** Relative difference under which two costs are the same figure (rounding of the shown digits). */
 const SAME = 5e-4;
 
-function atShare<T>(points: readonly { h2Percent: number }[], share: number, value: (i: number) => T | null): { v: number | null; exact: boolean } {
+function atShare<T>(
+  points: readonly { h2Percent: number }[],
+  share: number,
+  value: (i: number) => T | null,
+): { v: number | null; exact: boolean } {
   const i = points.findIndex((p) => p.h2Percent >= share - 1e-9);
   if (i < 0) return { v: null, exact: false };
   const exact = Math.abs(points[i].h2Percent - share) < 1e-9;
@@ -59,7 +63,15 @@ export function sweepAgreement(result: StudyResult): SweepScenarioAgreement[] {
     if (!agrees && comparisonCost !== null && cost.v !== null && reasons.length === 0) {
       reasons.push("the scenario's blend components are priced from quotes other than the sweep's baseline and hydrogen prices");
     }
-    out.push({ scenario: r.name, h2Percent: share, comparisonCost, sweepCost: cost.v, exactPoint: cost.exact, agrees, reasons: agrees ? [] : reasons });
+    out.push({
+      scenario: r.name,
+      h2Percent: share,
+      comparisonCost,
+      sweepCost: cost.v,
+      exactPoint: cost.exact,
+      agrees,
+      reasons: agrees ? [] : reasons,
+    });
   }
   return out;
 }

@@ -30,7 +30,16 @@ import { InputError } from "../errors";
 import { RANKING_METRIC_INFO } from "../economics/sensitivity";
 import { distributionOf, type Distribution, type DistributionSpec } from "../economics/distributions";
 import { Xoshiro128ss } from "../economics/random";
-import { imanConover, latinHypercube, pearson, percentileSorted, percentilesUnsorted, proportionStandardError, ranks, spearman } from "../economics/sampling";
+import {
+  imanConover,
+  latinHypercube,
+  pearson,
+  percentileSorted,
+  percentilesUnsorted,
+  proportionStandardError,
+  ranks,
+  spearman,
+} from "../economics/sampling";
 import {
   abatementCostFromPaths,
   costPerUsefulMWhYear1,
@@ -99,7 +108,16 @@ export function studyPathSetup(study: Study, caches: EvaluationCaches = createEv
     }
     return { result: r, scenario: sc, field, eta0, radiation_kW: q, path: pp.scenarios[k] };
   });
-  return { evaluation, sources: pp.sources, factors: pp.factors, scenarios, duty, baseFuel: { ctx: baseCtx, perf: basePerf }, notes: pp.notes, applied: pp.applied };
+  return {
+    evaluation,
+    sources: pp.sources,
+    factors: pp.factors,
+    scenarios,
+    duty,
+    baseFuel: { ctx: baseCtx, perf: basePerf },
+    notes: pp.notes,
+    applied: pp.applied,
+  };
 }
 
 /**
@@ -108,8 +126,22 @@ export function studyPathSetup(study: Study, caches: EvaluationCaches = createEv
  */
 export function pathEconomics(setup: StudyPathSetup): { terms: string; discountRatePercent: number; scenarios: (PathEconomics | null)[] } {
   const f = setup.factors;
-  const pp: StudyPricePaths = { sources: setup.sources, scenarios: setup.scenarios.map((s) => s.path), factors: f, notes: setup.notes, applied: setup.applied };
-  return { terms: f.finance.terms, discountRatePercent: f.finance.discountRatePercent, scenarios: pathEconomicsOf(pp, setup.scenarios.map((s) => s.result), setup.duty.annualUseful_MWh) };
+  const pp: StudyPricePaths = {
+    sources: setup.sources,
+    scenarios: setup.scenarios.map((s) => s.path),
+    factors: f,
+    notes: setup.notes,
+    applied: setup.applied,
+  };
+  return {
+    terms: f.finance.terms,
+    discountRatePercent: f.finance.discountRatePercent,
+    scenarios: pathEconomicsOf(
+      pp,
+      setup.scenarios.map((s) => s.result),
+      setup.duty.annualUseful_MWh,
+    ),
+  };
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -127,7 +159,10 @@ export interface UncertainInput {
   origin: string;
 }
 
-const specOf = (r: UncertaintyRange): DistributionSpec => (r.distribution === "normal" ? { distribution: "normal", mean: r.mean, sd: r.sd } : { distribution: r.distribution, low: r.low, mode: r.mode, high: r.high });
+const specOf = (r: UncertaintyRange): DistributionSpec =>
+  r.distribution === "normal"
+    ? { distribution: "normal", mean: r.mean, sd: r.sd }
+    : { distribution: r.distribution, low: r.low, mode: r.mode, high: r.high };
 const symmetric = (w: number): DistributionSpec => ({ distribution: "triangular", low: -w, mode: 0, high: w });
 
 /** The uncertain inputs of a study: stated ranges, else the defaults from its sensitivity ranges. */
@@ -137,7 +172,11 @@ export function uncertainInputs(study: Study, setup: StudyPathSetup): UncertainI
   const inputs: UncertainInput[] = [];
   const known = new Set(setup.sources.map((s) => s.key));
   for (const key of Object.keys(u?.fuelPrices ?? {})) {
-    if (!known.has(key)) throw new InputError(`uncertainty.fuelPrices.${key}`, `no priced quote has this key; the keys are ${[...known].join(", ") || "(none)"}`);
+    if (!known.has(key))
+      throw new InputError(
+        `uncertainty.fuelPrices.${key}`,
+        `no priced quote has this key; the keys are ${[...known].join(", ") || "(none)"}`,
+      );
   }
   for (const s of setup.sources) {
     const own = u?.fuelPrices?.[s.key];
@@ -183,7 +222,11 @@ export function uncertainInputs(study: Study, setup: StudyPathSetup): UncertainI
       kind: "efficiency",
       unit: "points",
       spec: own ? specOf(own) : u?.efficiencyPoints ? specOf(u.efficiencyPoints) : symmetric(sens.efficiencyPoints),
-      origin: own ? "stated for this scenario" : u?.efficiencyPoints ? "stated" : `± ${sens.efficiencyPoints} points (sensitivity range), triangular`,
+      origin: own
+        ? "stated for this scenario"
+        : u?.efficiencyPoints
+          ? "stated"
+          : `± ${sens.efficiencyPoints} points (sensitivity range), triangular`,
     });
   }
   const hoursMatter = !(study.plant.annualUsefulHeat_MWh != null && study.plant.averageLoadFraction > 0);
@@ -317,8 +360,10 @@ export const CDF_OPTIONS = 5;
 export function uncertaintyRanking(study: Study, options: UncertaintyOptions): UncertaintyResult {
   const t0 = performance.now();
   const draws = options.draws;
-  if (!Number.isInteger(draws) || draws < 10 || draws > MAX_DRAWS) throw new InputError("draws", `must be a whole number from 10 to ${MAX_DRAWS}`);
-  if (!Number.isInteger(options.seed) || options.seed < 0 || options.seed > 0xffffffff) throw new InputError("seed", "must be a whole number from 0 to 4294967295");
+  if (!Number.isInteger(draws) || draws < 10 || draws > MAX_DRAWS)
+    throw new InputError("draws", `must be a whole number from 10 to ${MAX_DRAWS}`);
+  if (!Number.isInteger(options.seed) || options.seed < 0 || options.seed > 0xffffffff)
+    throw new InputError("seed", "must be a whole number from 0 to 4294967295");
   const metric = options.metric ?? study.rankingMetric;
   const info = RANKING_METRIC_INFO[metric];
   const setup = studyPathSetup(study, options.caches);
@@ -352,15 +397,27 @@ export function uncertaintyRanking(study: Study, options: UncertaintyOptions): U
     const said = new Set(explicit.flatMap((c) => [`${c.a}|${c.b}`, `${c.b}|${c.a}`]));
     const prices = inputs.filter((inp, j) => inp.kind === "price" && !dists[j].degenerate).map((inp) => inp.key);
     for (let a = 0; a < prices.length; a++) {
-      for (let b = a + 1; b < prices.length; b++) if (!said.has(`${prices[a]}|${prices[b]}`)) stated.push({ a: prices[a], b: prices[b], rho: shared });
+      for (let b = a + 1; b < prices.length; b++)
+        if (!said.has(`${prices[a]}|${prices[b]}`)) stated.push({ a: prices[a], b: prices[b], rho: shared });
     }
   }
   const corrInputs: number[] = [];
   stated.forEach((c, k) => {
-    for (const [which, key] of [["a", c.a], ["b", c.b]] as const) {
+    for (const [which, key] of [
+      ["a", c.a],
+      ["b", c.b],
+    ] as const) {
       const j = keyIndex.get(key);
-      if (j === undefined) throw new InputError(k < explicit.length ? `uncertainty.correlations.${k}.${which}` : "uncertainty.fuelPriceCorrelation", `no uncertain input "${key}"; the inputs are ${inputs.map((i) => i.key).join(", ")}`);
-      if (dists[j].degenerate) throw new InputError(k < explicit.length ? `uncertainty.correlations.${k}.${which}` : "uncertainty.fuelPriceCorrelation", `"${key}" does not vary: nothing to correlate`);
+      if (j === undefined)
+        throw new InputError(
+          k < explicit.length ? `uncertainty.correlations.${k}.${which}` : "uncertainty.fuelPriceCorrelation",
+          `no uncertain input "${key}"; the inputs are ${inputs.map((i) => i.key).join(", ")}`,
+        );
+      if (dists[j].degenerate)
+        throw new InputError(
+          k < explicit.length ? `uncertainty.correlations.${k}.${which}` : "uncertainty.fuelPriceCorrelation",
+          `"${key}" does not vary: nothing to correlate`,
+        );
       if (!corrInputs.includes(j)) corrInputs.push(j);
     }
     if (c.a === c.b) throw new InputError(`uncertainty.correlations.${k}.b`, "an input is fully correlated with itself");
@@ -403,7 +460,9 @@ export function uncertaintyRanking(study: Study, options: UncertaintyOptions): U
   const npv = setup.scenarios.map(() => new Float64Array(draws));
   const abate = setup.scenarios.map(() => new Float64Array(draws));
   const co2 = setup.scenarios.map(() => new Float64Array(draws));
-  let clippedPrices = 0, clippedEff = 0, clippedHours = 0;
+  let clippedPrices = 0,
+    clippedEff = 0,
+    clippedHours = 0;
   const plant = study.plant;
   const basePlantDuty = setup.duty;
   const hoursDuty = (factor: number, draw: number): PlantDuty => {
@@ -411,14 +470,26 @@ export function uncertaintyRanking(study: Study, options: UncertaintyOptions): U
     try {
       return plantDuty(p, setup.baseFuel.ctx, setup.baseFuel.perf);
     } catch (e) {
-      if (e instanceof InputError) throw new InputError("uncertainty.operatingHours", `draw ${draw + 1}: ${(100 * (factor - 1)).toFixed(1)} % hours: ${e.detail}`);
+      if (e instanceof InputError)
+        throw new InputError("uncertainty.operatingHours", `draw ${draw + 1}: ${(100 * (factor - 1)).toFixed(1)} % hours: ${e.detail}`);
       throw e;
     }
   };
   const states: (PathScenarioState | null)[] = new Array(S).fill(null);
   // Reused per-scenario states and local bindings of the hot functions (no allocation per draw).
-  const pool = setup.scenarios.map(() => pathScenarioState({ priceParts: [], co2Fossil_kg_per_GJ_net: 0, upstreamCo2e_kg_per_GJ_net: 0, includeUpstream: false, capex: 0, fixedOpexChange: 0 }, f, 1, 1, null));
-  const stateOf = pathScenarioState, costYear1 = costPerUsefulMWhYear1, npvOf = switchingNpvFromPaths, abatementOf = abatementCostFromPaths;
+  const pool = setup.scenarios.map(() =>
+    pathScenarioState(
+      { priceParts: [], co2Fossil_kg_per_GJ_net: 0, upstreamCo2e_kg_per_GJ_net: 0, includeUpstream: false, capex: 0, fixedOpexChange: 0 },
+      f,
+      1,
+      1,
+      null,
+    ),
+  );
+  const stateOf = pathScenarioState,
+    costYear1 = costPerUsefulMWhYear1,
+    npvOf = switchingNpvFromPaths,
+    abatementOf = abatementCostFromPaths;
   for (let i = 0; i < draws; i++) {
     for (let k = 0; k < levels.length; k++) {
       let l = 1 + priceCols[k][i] / 100;
@@ -484,7 +555,8 @@ export function uncertaintyRanking(study: Study, options: UncertaintyOptions): U
       abate[s][i] = a === null ? NaN : a;
     }
   }
-  if (clippedPrices) notes.push(`${clippedPrices} sampled price, carbon or capex values below zero were set to zero (a normal range reaching below −100 %)`);
+  if (clippedPrices)
+    notes.push(`${clippedPrices} sampled price, carbon or capex values below zero were set to zero (a normal range reaching below −100 %)`);
   if (clippedEff) notes.push(`${clippedEff} sampled efficiencies below 5 % were set to 5 %`);
   if (clippedHours) notes.push(`${clippedHours} sampled operating hours below 1 % of the stated hours were set to 1 %`);
 
@@ -494,9 +566,12 @@ export function uncertaintyRanking(study: Study, options: UncertaintyOptions): U
 
   // Who ranks first in each draw.
   const rankedFlags = setup.scenarios.map((s) => {
-    if (s.result.status === "infeasible") return { ranked: false, reason: "infeasible at the stated operating point (fit checks): never ranks first" };
-    if (metric === "abatement-cost" && s.result.isBaseline) return { ranked: false, reason: "the baseline is the reference of the abatement cost" };
-    if (s.result.metricValue === null && !(metric === "abatement-cost")) return { ranked: false, reason: "its metric cannot be computed (no price, or an unknown upstream factor the study counts)" };
+    if (s.result.status === "infeasible")
+      return { ranked: false, reason: "infeasible at the stated operating point (fit checks): never ranks first" };
+    if (metric === "abatement-cost" && s.result.isBaseline)
+      return { ranked: false, reason: "the baseline is the reference of the abatement cost" };
+    if (s.result.metricValue === null && !(metric === "abatement-cost"))
+      return { ranked: false, reason: "its metric cannot be computed (no price, or an unknown upstream factor the study counts)" };
     if (metric !== "co2-per-useful-MJ" && !s.path) return { ranked: false, reason: "no price: no costs" };
     return { ranked: true, reason: null };
   });
@@ -565,14 +640,18 @@ export function uncertaintyRanking(study: Study, options: UncertaintyOptions): U
   });
 
   // The top two and what decides between them.
-  const order = scenarios.map((_, s) => s).filter((s) => scenarios[s].ranked && firstCount[s] > 0).sort((p, q) => firstCount[q] - firstCount[p] || p - q);
+  const order = scenarios
+    .map((_, s) => s)
+    .filter((s) => scenarios[s].ranked && firstCount[s] > 0)
+    .sort((p, q) => firstCount[q] - firstCount[p] || p - q);
   let topTwo: UncertaintyResult["topTwo"] = null;
   if (order.length >= 2) {
     const [A, B] = order;
     const diff: number[] = [];
     const rows: number[] = [];
     for (let i = 0; i < draws; i++) {
-      const va = metricArr[A][i], vb = metricArr[B][i];
+      const va = metricArr[A][i],
+        vb = metricArr[B][i];
       if (Number.isNaN(va) || Number.isNaN(vb)) continue;
       diff.push(va - vb);
       rows.push(i);
@@ -584,7 +663,9 @@ export function uncertaintyRanking(study: Study, options: UncertaintyOptions): U
       const nBetter = aBetter.reduce((n, b) => n + (b ? 1 : 0), 0);
       // Inputs that can move the difference: the two scenarios' own, the prices they burn, carbon,
       // hours, and (abatement cost only) the baseline's, its reference. The others cancel exactly.
-      const sa = setup.scenarios[A], sb = setup.scenarios[B], s0 = setup.scenarios[0];
+      const sa = setup.scenarios[A],
+        sb = setup.scenarios[B],
+        s0 = setup.scenarios[0];
       const involved = metric === "abatement-cost" ? [sa, sb, s0] : [sa, sb];
       const relevant = new Set<string>(["carbon", "hours"]);
       for (const sc of involved) {
@@ -604,7 +685,14 @@ export function uncertaintyRanking(study: Study, options: UncertaintyOptions): U
           for (let r = 0; r < rows.length; r++) if (aBetter[r] === want) sel[k++] = v[r];
           return sel.length ? percentileSorted(sel.sort(), 0.5) : null;
         };
-        drivers.push({ key: inp.key, label: inp.label, spearman: rho, medianWhenFirstBetter: med(true), medianWhenSecondBetter: med(false), unit: inp.unit });
+        drivers.push({
+          key: inp.key,
+          label: inp.label,
+          spearman: rho,
+          medianWhenFirstBetter: med(true),
+          medianWhenSecondBetter: med(false),
+          unit: inp.unit,
+        });
       });
       drivers.sort((p, q) => Math.abs(q.spearman) - Math.abs(p.spearman));
     }
@@ -616,7 +704,8 @@ export function uncertaintyRanking(study: Study, options: UncertaintyOptions): U
   if (excluded.length) notes.push(`left out of "ranks first": ${excluded.map((s) => `${s.name} (${s.excludedReason})`).join("; ")}`);
 
   const correlations = stated.map((c) => {
-    const a = col(c.a)!, b = col(c.b)!;
+    const a = col(c.a)!,
+      b = col(c.b)!;
     return { a: c.a, b: c.b, rho: c.rho, sampled: spearman(a, b) };
   });
 
@@ -647,7 +736,8 @@ export function uncertaintyRanking(study: Study, options: UncertaintyOptions): U
   };
 }
 
-const fmt = (v: number | null | undefined) => (v === null || v === undefined || !Number.isFinite(v) ? "" : String(Number(v.toPrecision(6))));
+const fmt = (v: number | null | undefined) =>
+  v === null || v === undefined || !Number.isFinite(v) ? "" : String(Number(v.toPrecision(6)));
 
 /** One row per scenario (with a header row): what `stoke evaluate --uncertainty N --format csv` prints. */
 export function uncertaintyCsvRows(r: UncertaintyResult): string[][] {

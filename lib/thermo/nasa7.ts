@@ -86,7 +86,9 @@ export function evalInto(
 ): void {
   const T = temperatureK;
   const lnT = Math.log(T);
-  const T2 = T * T, T3 = T2 * T, T4 = T3 * T;
+  const T2 = T * T,
+    T3 = T2 * T,
+    T4 = T3 * T;
   for (let i = 0; i < species.length; i++) {
     const sp = species[i];
     const a = T < sp.rangesK[1] ? sp.lowCoeffs : sp.highCoeffs;
@@ -114,12 +116,18 @@ export function evalPackedInto(
 ): void {
   const T = temperatureK;
   const lnT = Math.log(T);
-  const T2 = T * T, T3 = T2 * T, T4 = T3 * T;
+  const T2 = T * T,
+    T3 = T2 * T,
+    T4 = T3 * T;
   const invT = 1 / T;
   for (let i = 0; i < n; i++) {
     const base = i * NASA7_PACKED_STRIDE;
     const o = T < packed[base + 1] ? base + 3 : base + 10;
-    const a0 = packed[o], a1 = packed[o + 1], a2 = packed[o + 2], a3 = packed[o + 3], a4 = packed[o + 4];
+    const a0 = packed[o],
+      a1 = packed[o + 1],
+      a2 = packed[o + 2],
+      a3 = packed[o + 3],
+      a4 = packed[o + 4];
     cpR[i] = a0 + a1 * T + a2 * T2 + a3 * T3 + a4 * T4;
     hRT[i] = a0 + (a1 * T) / 2 + (a2 * T2) / 3 + (a3 * T3) / 4 + (a4 * T4) / 5 + packed[o + 5] * invT;
     sR[i] = a0 * lnT + a1 * T + (a2 * T2) / 2 + (a3 * T3) / 3 + (a4 * T4) / 4 + packed[o + 6];

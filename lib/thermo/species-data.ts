@@ -333,9 +333,7 @@ const species: Nasa7Species[] = [
 ];
 
 /** All species by key. */
-export const SPECIES: Readonly<Record<string, Nasa7Species>> = Object.freeze(
-  Object.fromEntries(species.map((sp) => [sp.key, sp])),
-);
+export const SPECIES: Readonly<Record<string, Nasa7Species>> = Object.freeze(Object.fromEntries(species.map((sp) => [sp.key, sp])));
 
 /** Molar mass of every species, g/mol, computed once from its atoms (hot paths use this table). */
 export const MOLAR_MASS_g_per_mol: Readonly<Record<string, number>> = Object.freeze(

@@ -7,8 +7,8 @@ import { InputError } from "../errors";
 import { T0CK } from "../units/constants";
 
 const n = [
-  0.11670521452767e4, -0.72421316598162e6, -0.17073846940092e2, 0.12020824702470e5, -0.32325550322333e7,
-  0.14915108613530e2, -0.48232657361591e4, 0.40511340542057e6, -0.23855557567849, 0.65017534844798e3,
+  0.11670521452767e4, -0.72421316598162e6, -0.17073846940092e2, 0.1202082470247e5, -0.32325550322333e7, 0.1491510861353e2,
+  -0.48232657361591e4, 0.40511340542057e6, -0.23855557567849, 0.65017534844798e3,
 ];
 
 export const WATER_TRIPLE_POINT_K = 273.16;
@@ -39,7 +39,10 @@ export function saturationPressurePa(temperatureK: number): number {
  */
 export function saturationTemperatureK(pressurePa: number): number {
   if (!(pressurePa >= WATER_SATURATION_MIN_PA && pressurePa <= WATER_CRITICAL_PA)) {
-    throw new InputError("pressurePa", `${pressurePa} Pa is outside the saturation line of water (${WATER_SATURATION_MIN_PA} Pa – ${WATER_CRITICAL_PA / 1e6} MPa)`);
+    throw new InputError(
+      "pressurePa",
+      `${pressurePa} Pa is outside the saturation line of water (${WATER_SATURATION_MIN_PA} Pa – ${WATER_CRITICAL_PA / 1e6} MPa)`,
+    );
   }
   const beta = (pressurePa / 1e6) ** 0.25;
   const E = beta * beta + n[2] * beta + n[5];

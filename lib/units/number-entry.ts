@@ -36,7 +36,8 @@ export function parseNumberEntry(text: string, decimal: DecimalSeparator = "."):
   if (hasPoint && hasComma) {
     // Both present: the one that comes last is the decimal separator, the other groups thousands.
     dec = t.lastIndexOf(".") > t.lastIndexOf(",") ? "." : ",";
-    if (!groupedBy(t, other(dec), dec)) return { ok: false, reason: `is not a number (thousands separators must group three digits: "${text.trim()}")` };
+    if (!groupedBy(t, other(dec), dec))
+      return { ok: false, reason: `is not a number (thousands separators must group three digits: "${text.trim()}")` };
   } else if (hasPoint || hasComma) {
     const sep: DecimalSeparator = hasPoint ? "." : ",";
     const count = t.split(sep).length - 1;

@@ -53,7 +53,11 @@ afterAll(async () => {
 });
 
 const req = (url: string, method = "GET", body?: unknown, type = "application/json") =>
-  new Request(`http://localhost${url}`, { method, body: body === undefined ? undefined : typeof body === "string" ? body : JSON.stringify(body), headers: { "content-type": type } });
+  new Request(`http://localhost${url}`, {
+    method,
+    body: body === undefined ? undefined : typeof body === "string" ? body : JSON.stringify(body),
+    headers: { "content-type": type },
+  });
 const ctx = (id: number | string) => ({ params: Promise.resolve({ id: String(id) }) });
 const qctx = (id: number, priceId: number) => ({ params: Promise.resolve({ id: String(id), priceId: String(priceId) }) });
 const rctx = (id: number, n: number | string) => ({ params: Promise.resolve({ id: String(id), number: String(n) }) });
@@ -114,13 +118,18 @@ describe("a study whose currency has no quote or rate", () => {
 
 describe("currencies", () => {
   it('refuses the currency "DOL" naming the field (quote, study, exchange rate)', async () => {
-    const q = await routes.prices.POST(req("/x", "POST", { amount: 30, currency: "DOL", unit: "MWh", energyBasis: "gross", validFrom: "2025-01-01" }), ctx(fuel["Pipeline natural gas"]));
+    const q = await routes.prices.POST(
+      req("/x", "POST", { amount: 30, currency: "DOL", unit: "MWh", energyBasis: "gross", validFrom: "2025-01-01" }),
+      ctx(fuel["Pipeline natural gas"]),
+    );
     expect(q.status).toBe(400);
     expect((await q.json()).fieldErrors.currency).toMatch(/"DOL" is not an ISO 4217 currency code/);
     const s = await routes.studies.POST(req("/api/studies", "POST", study("DOL study", "DOL", [])));
     expect(s.status).toBe(400);
     expect((await s.json()).fieldErrors.currency).toMatch(/ISO 4217/);
-    const r = await routes.rates.POST(req("/api/exchange-rates", "POST", { fromCurrency: "DOL", toCurrency: "EUR", rate: 0.9, validFrom: "2025-01-01" }));
+    const r = await routes.rates.POST(
+      req("/api/exchange-rates", "POST", { fromCurrency: "DOL", toCurrency: "EUR", rate: 0.9, validFrom: "2025-01-01" }),
+    );
     expect(r.status).toBe(400);
     expect((await r.json()).fieldErrors.fromCurrency).toMatch(/ISO 4217/);
   });
@@ -136,10 +145,24 @@ describe("currencies", () => {
     );
     expect(add.status).toBe(201);
     expect((await (await routes.rates.GET()).json()).rates).toHaveLength(3);
-    const gbpQ = await routes.prices.POST(req("/x", "POST", { amount: 60, transportAdder: 5, currency: "GBP", unit: "MWh", energyBasis: "gross", validFrom: "2025-03-01", supplier: "UK supplier" }), ctx(fuel.Biomethane));
+    const gbpQ = await routes.prices.POST(
+      req("/x", "POST", {
+        amount: 60,
+        transportAdder: 5,
+        currency: "GBP",
+        unit: "MWh",
+        energyBasis: "gross",
+        validFrom: "2025-03-01",
+        supplier: "UK supplier",
+      }),
+      ctx(fuel.Biomethane),
+    );
     expect(gbpQ.status).toBe(201);
     const gbpId = (await gbpQ.json()).id;
-    const usdQ = await routes.prices.POST(req("/x", "POST", { amount: 54, currency: "USD", unit: "MWh", energyBasis: "gross", validFrom: "2025-03-01" }), ctx(fuel["Landfill gas"]));
+    const usdQ = await routes.prices.POST(
+      req("/x", "POST", { amount: 54, currency: "USD", unit: "MWh", energyBasis: "gross", validFrom: "2025-03-01" }),
+      ctx(fuel["Landfill gas"]),
+    );
     expect(usdQ.status).toBe(201);
     const usdId = (await usdQ.json()).id;
     const id = await createStudy(
@@ -211,12 +234,20 @@ describe("issued revisions", () => {
     const liveBefore = await results(id);
     // Change the fuel of the candidate …
     const put = await routes.fuel.PUT(
-      req("/x", "PUT", { name: "Biomethane", definition: { composition: { CH4: 0.9, CO2: 0.08, N2: 0.02 } }, biogenicCarbonShare: 1, upstreamCo2e_kg_per_GJ: 12 }),
+      req("/x", "PUT", {
+        name: "Biomethane",
+        definition: { composition: { CH4: 0.9, CO2: 0.08, N2: 0.02 } },
+        biogenicCarbonShare: 1,
+        upstreamCo2e_kg_per_GJ: 12,
+      }),
       ctx(fuel.Biomethane),
     );
     expect(put.status).toBe(200);
     // … correct the baseline's quote (a new version) …
-    const fix = await routes.price.PUT(req("/x", "PUT", { amount: 41, currency: "EUR", unit: "MWh", energyBasis: "gross", transportAdder: 6.2, validFrom: "2025-01-01" }), qctx(fuel["Pipeline natural gas"], ngQuote));
+    const fix = await routes.price.PUT(
+      req("/x", "PUT", { amount: 41, currency: "EUR", unit: "MWh", energyBasis: "gross", transportAdder: 6.2, validFrom: "2025-01-01" }),
+      qctx(fuel["Pipeline natural gas"], ngQuote),
+    );
     expect(fix.status).toBe(201);
     const fixed = await fix.json();
     expect(fixed.supersedes).toBe(ngQuote);
@@ -242,13 +273,19 @@ describe("issued revisions", () => {
     const base = (r: { result: { baseline: { price: { quote: { amount: number } } } } }) => r.result.baseline;
     expect(base(liveBefore).price.quote.amount).toBe(38.5);
     expect(base(liveAfter).price.quote.amount).toBe(41);
-    expect(liveAfter.priceSources.baseline.label).toMatch(new RegExp(`quote #${ngQuote} was corrected: its newest version #${fixed.id} applies`));
+    expect(liveAfter.priceSources.baseline.label).toMatch(
+      new RegExp(`quote #${ngQuote} was corrected: its newest version #${fixed.id} applies`),
+    );
     const status = await revisionStatus(db(), id);
     expect(status.latest?.number).toBe(1);
     const paths = status.differences.map((d) => d.path);
     expect(paths).toContain("baseline.price.amount");
     expect(paths).toContain("scenarios.0.fuel.composition.CH4");
-    expect(status.differences.find((d) => d.path === "baseline.price.amount")).toMatchObject({ before: 38.5, after: 41, label: "baseline — price — amount" });
+    expect(status.differences.find((d) => d.path === "baseline.price.amount")).toMatchObject({
+      before: 38.5,
+      after: 41,
+      label: "baseline — price — amount",
+    });
   });
 
   it("evaluates its exported inputs with the command line to the same figures", async () => {
@@ -287,12 +324,18 @@ describe("quote versions and withdrawal", () => {
     expect(neu.supersedesId).toBe(old.id);
     expect(neu.inForce).toBe(true);
     // A superseded quote cannot be corrected again.
-    const again = await routes.price.PUT(req("/x", "PUT", { amount: 40, currency: "EUR", unit: "MWh", energyBasis: "gross", validFrom: "2025-01-01" }), qctx(fuel["Pipeline natural gas"], old.id));
+    const again = await routes.price.PUT(
+      req("/x", "PUT", { amount: 40, currency: "EUR", unit: "MWh", energyBasis: "gross", validFrom: "2025-01-01" }),
+      qctx(fuel["Pipeline natural gas"], old.id),
+    );
     expect(again.status).toBe(409);
   });
 
   it("withdraws a quote chosen only by a live study; the study then says which quote it uses", async () => {
-    const add = await routes.prices.POST(req("/x", "POST", { amount: 0.09, currency: "EUR", unit: "kWh", energyBasis: "gross", validFrom: "2025-06-01" }), ctx(fuel.Biomethane));
+    const add = await routes.prices.POST(
+      req("/x", "POST", { amount: 0.09, currency: "EUR", unit: "kWh", energyBasis: "gross", validFrom: "2025-06-01" }),
+      ctx(fuel.Biomethane),
+    );
     const q = (await add.json()).id;
     const id = await createStudy(study("Withdrawal study", "EUR", [{ name: "Biomethane", fuelId: fuel.Biomethane, priceQuoteId: q }]));
     const del = await routes.price.DELETE(req("/x", "DELETE"), qctx(fuel.Biomethane, q));
@@ -309,7 +352,10 @@ describe("quote versions and withdrawal", () => {
   });
 
   it("deletes a quote nothing relies on", async () => {
-    const add = await routes.prices.POST(req("/x", "POST", { amount: 5.5, currency: "EUR", unit: "GJ", energyBasis: "net", validFrom: "2020-01-01" }), ctx(fuel["Landfill gas"]));
+    const add = await routes.prices.POST(
+      req("/x", "POST", { amount: 5.5, currency: "EUR", unit: "GJ", energyBasis: "net", validFrom: "2020-01-01" }),
+      ctx(fuel["Landfill gas"]),
+    );
     const q = (await add.json()).id;
     expect((await routes.price.DELETE(req("/x", "DELETE"), qctx(fuel["Landfill gas"], q))).status).toBe(200);
   });
@@ -336,12 +382,20 @@ describe("bulk quote import", () => {
     const p = await pre.json();
     expect(pre.status).toBe(200);
     expect(p.preview).toBe(true);
-    expect(p.added.map((a: { where: string; fuelName: string }) => `${a.where}: ${a.fuelName}`)).toEqual(["row 2: Pipeline natural gas", "row 3: Biomethane"]);
+    expect(p.added.map((a: { where: string; fuelName: string }) => `${a.where}: ${a.fuelName}`)).toEqual([
+      "row 2: Pipeline natural gas",
+      "row 3: Biomethane",
+    ]);
     expect(await t.client.priceQuote.count()).toBe(before);
     const real = await routes.quoteImport.POST(req("/api/fuels/quotes/import?format=csv", "POST", csv, "text/csv"));
     expect(real.status).toBe(201);
     expect(await t.client.priceQuote.count()).toBe(before + 2);
-    const json = await routes.quoteImport.POST(req("/api/fuels/quotes/import?format=json", "POST", [{ fuel: "Methanol", amount: 430, currency: "EUR", unit: "t", validFrom: "2025-10-01" }, { fuel: "Methanol", amount: -1, currency: "EUR", unit: "t", validFrom: "2025-10-01" }]));
+    const json = await routes.quoteImport.POST(
+      req("/api/fuels/quotes/import?format=json", "POST", [
+        { fuel: "Methanol", amount: 430, currency: "EUR", unit: "t", validFrom: "2025-10-01" },
+        { fuel: "Methanol", amount: -1, currency: "EUR", unit: "t", validFrom: "2025-10-01" },
+      ]),
+    );
     expect(json.status).toBe(400);
     expect((await json.json()).fieldErrors["item 2, amount"]).toMatch(/≥ 0/);
     expect(await t.client.priceQuote.count()).toBe(before + 2);
@@ -360,7 +414,9 @@ describe("the quote rule of a scenario", () => {
   });
 
   it("does not overwrite a stored exchange rate (409)", async () => {
-    const res = await routes.rates.POST(req("/api/exchange-rates", "POST", { fromCurrency: "GBP", toCurrency: "EUR", rate: 2, validFrom: "2025-01-01" }));
+    const res = await routes.rates.POST(
+      req("/api/exchange-rates", "POST", { fromCurrency: "GBP", toCurrency: "EUR", rate: 2, validFrom: "2025-01-01" }),
+    );
     expect(res.status).toBe(409);
     expect((await res.json()).fieldErrors.validFrom).toMatch(/already stored/);
   });

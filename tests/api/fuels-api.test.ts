@@ -29,8 +29,10 @@ afterAll(async () => {
 });
 
 const base = "http://localhost/api/fuels";
-const post = (url: string, body: unknown) => new Request(url, { method: "POST", body: JSON.stringify(body), headers: { "content-type": "application/json" } });
-const put = (url: string, body: unknown) => new Request(url, { method: "PUT", body: JSON.stringify(body), headers: { "content-type": "application/json" } });
+const post = (url: string, body: unknown) =>
+  new Request(url, { method: "POST", body: JSON.stringify(body), headers: { "content-type": "application/json" } });
+const put = (url: string, body: unknown) =>
+  new Request(url, { method: "PUT", body: JSON.stringify(body), headers: { "content-type": "application/json" } });
 const ctx = (id: number | string) => ({ params: Promise.resolve({ id: String(id) }) });
 const pctx = (id: number, priceId: number | string) => ({ params: Promise.resolve({ id: String(id), priceId: String(priceId) }) });
 
@@ -73,16 +75,20 @@ describe("POST /api/fuels and GET /api/fuels/{id}", () => {
     const before = await count();
     const unknown = await (await routes.fuels.POST(post(base, { name: "X", definition: { composition: { CH4: 0.5, XY: 0.5 } } }))).json();
     expect(unknown.fieldErrors["definition.composition.XY"]).toMatch(/unknown species "XY"/);
-    const neg = await routes.fuels.POST(post(base, { name: "Y", kind: "liquid", definition: { compound: "CH3OH", phase: "liquid" }, densityKgPerM3: -5 }));
+    const neg = await routes.fuels.POST(
+      post(base, { name: "Y", kind: "liquid", definition: { compound: "CH3OH", phase: "liquid" }, densityKgPerM3: -5 }),
+    );
     expect(neg.status).toBe(400);
     expect((await neg.json()).fieldErrors.densityKgPerM3).toMatch(/> 0/);
     const kind = await (await routes.fuels.POST(post(base, { name: "Z", kind: "liquid", definition: { composition: { CH4: 1 } } }))).json();
     expect(kind.fieldErrors.kind).toMatch(/gas/);
-    const empty = await (await routes.fuels.POST(post(base, { name: "" , definition: { composition: { N2: 1 } } }))).json();
+    const empty = await (await routes.fuels.POST(post(base, { name: "", definition: { composition: { N2: 1 } } }))).json();
     expect(empty.fieldErrors.name).toBeDefined();
     const inert = await (await routes.fuels.POST(post(base, { name: "Nitrogen", definition: { composition: { N2: 1 } } }))).json();
     expect(inert.fieldErrors.definition).toMatch(/no heat/);
-    const notJson = await routes.fuels.POST(new Request(base, { method: "POST", body: "{", headers: { "content-type": "application/json" } }));
+    const notJson = await routes.fuels.POST(
+      new Request(base, { method: "POST", body: "{", headers: { "content-type": "application/json" } }),
+    );
     expect(notJson.status).toBe(400);
     expect(await count()).toBe(before);
   });
@@ -113,7 +119,12 @@ describe("POST /api/fuels and GET /api/fuels/{id}", () => {
 
   it("a rejected fuel names every problem at once, including a taken name and missing numbers", async () => {
     const res = await routes.fuels.POST(
-      post(base, { name: "methane", kind: "liquid", definition: { ultimate: { C: 0.86, H: "abc" }, kind: "liquid", lhv_MJ_per_kg: null }, densityKgPerM3: -3 }),
+      post(base, {
+        name: "methane",
+        kind: "liquid",
+        definition: { ultimate: { C: 0.86, H: "abc" }, kind: "liquid", lhv_MJ_per_kg: null },
+        densityKgPerM3: -3,
+      }),
     );
     expect(res.status).toBe(400);
     const errs = (await res.json()).fieldErrors;
@@ -126,16 +137,24 @@ describe("POST /api/fuels and GET /api/fuels/{id}", () => {
   it("404 for a missing or malformed id", async () => {
     expect((await routes.fuel.GET(new Request(`${base}/99999`), ctx(99999))).status).toBe(404);
     expect((await routes.fuel.GET(new Request(`${base}/abc`), ctx("abc"))).status).toBe(404);
-    expect((await routes.fuel.PUT(put(`${base}/99999`, { name: "q", definition: { composition: { CH4: 1 } } }), ctx(99999))).status).toBe(404);
+    expect((await routes.fuel.PUT(put(`${base}/99999`, { name: "q", definition: { composition: { CH4: 1 } } }), ctx(99999))).status).toBe(
+      404,
+    );
     expect((await routes.fuel.DELETE(new Request(`${base}/99999`, { method: "DELETE" }), ctx(99999))).status).toBe(404);
     expect((await routes.prices.GET(new Request(`${base}/99999/prices`), ctx(99999))).status).toBe(404);
     expect((await routes.prices.POST(post(`${base}/99999/prices`, {}), ctx(99999))).status).toBe(404);
   });
 
   it("PUT updates; a rejected PUT changes nothing", async () => {
-    const ok = await routes.fuel.PUT(put(`${base}/${methaneId}`, { name: "Methane", definition: { composition: { CH4: 1 } }, notes: "pure methane" }), ctx(methaneId));
+    const ok = await routes.fuel.PUT(
+      put(`${base}/${methaneId}`, { name: "Methane", definition: { composition: { CH4: 1 } }, notes: "pure methane" }),
+      ctx(methaneId),
+    );
     expect(ok.status).toBe(200);
-    const bad = await routes.fuel.PUT(put(`${base}/${methaneId}`, { name: "Methane", definition: { composition: { CH4: 0.5 } }, notes: "changed" }), ctx(methaneId));
+    const bad = await routes.fuel.PUT(
+      put(`${base}/${methaneId}`, { name: "Methane", definition: { composition: { CH4: 0.5 } }, notes: "changed" }),
+      ctx(methaneId),
+    );
     expect(bad.status).toBe(400);
     const row = await t.client.fuel.findUniqueOrThrow({ where: { id: methaneId } });
     expect(row.notes).toBe("pure methane");
@@ -146,13 +165,46 @@ describe("blends", () => {
   it("builds a blend of stored fuels; refuses bad shares; protects components", async () => {
     const ng = await (await routes.fuels.POST(post(base, { name: "NG", definition: { composition: { CH4: 0.95, C2H6: 0.05 } } }))).json();
     const h2 = await (await routes.fuels.POST(post(base, { name: "H2", definition: { composition: { H2: 1 } } }))).json();
-    const badShares = await routes.fuels.POST(post(base, { name: "Bad blend", blend: { basis: "volume", components: [{ fuelId: ng.id, share: 0.8 }, { fuelId: h2.id, share: 0.1 }] } }));
+    const badShares = await routes.fuels.POST(
+      post(base, {
+        name: "Bad blend",
+        blend: {
+          basis: "volume",
+          components: [
+            { fuelId: ng.id, share: 0.8 },
+            { fuelId: h2.id, share: 0.1 },
+          ],
+        },
+      }),
+    );
     expect(badShares.status).toBe(400);
     expect((await badShares.json()).fieldErrors["blend.components"]).toMatch(/sum to 1/);
-    const missing = await routes.fuels.POST(post(base, { name: "Bad blend", blend: { basis: "volume", components: [{ fuelId: ng.id, share: 0.8 }, { fuelId: 4242, share: 0.2 }] } }));
+    const missing = await routes.fuels.POST(
+      post(base, {
+        name: "Bad blend",
+        blend: {
+          basis: "volume",
+          components: [
+            { fuelId: ng.id, share: 0.8 },
+            { fuelId: 4242, share: 0.2 },
+          ],
+        },
+      }),
+    );
     expect((await missing.json()).fieldErrors["blend.components.1.fuelId"]).toMatch(/no stored fuel/);
 
-    const res = await routes.fuels.POST(post(base, { name: "NG + 20 % H2", blend: { basis: "volume", components: [{ fuelId: ng.id, share: 0.8 }, { fuelId: h2.id, share: 0.2 }] } }));
+    const res = await routes.fuels.POST(
+      post(base, {
+        name: "NG + 20 % H2",
+        blend: {
+          basis: "volume",
+          components: [
+            { fuelId: ng.id, share: 0.8 },
+            { fuelId: h2.id, share: 0.2 },
+          ],
+        },
+      }),
+    );
     expect(res.status).toBe(201);
     const blendId = (await res.json()).id;
     const sheet = await (await routes.fuel.GET(new Request(`${base}/${blendId}`), ctx(blendId))).json();
@@ -187,16 +239,24 @@ describe("prices", () => {
     expect((await litre.json()).fieldErrors.unit).toMatch(/not priced per L/);
     const negative = await routes.prices.POST(post(url, { amount: -1, currency: "EUR", unit: "t", validFrom: "2025-01-01" }), ctx(gas.id));
     expect((await negative.json()).fieldErrors.amount).toMatch(/≥ 0/);
-    const both = await (await routes.prices.POST(post(url, { amount: -1, currency: "EUR", unit: "MWh", validFrom: "2025-01-01" }), ctx(gas.id))).json();
+    const both = await (
+      await routes.prices.POST(post(url, { amount: -1, currency: "EUR", unit: "MWh", validFrom: "2025-01-01" }), ctx(gas.id))
+    ).json();
     expect(both.fieldErrors.amount).toMatch(/≥ 0/);
     expect(both.fieldErrors.energyBasis).toMatch(/needs a basis/);
     const badDate = await routes.prices.POST(post(url, { amount: 1, currency: "EUR", unit: "t", validFrom: "2025-02-30" }), ctx(gas.id));
     expect((await badDate.json()).fieldErrors.validFrom).toBeDefined();
     expect(await t.client.priceQuote.count({ where: { fuelId: gas.id } })).toBe(0);
 
-    const a = await routes.prices.POST(post(url, { amount: 40, currency: "eur", unit: "MWh", energyBasis: "gross", transportAdder: 5, validFrom: "2024-01-01" }), ctx(gas.id));
+    const a = await routes.prices.POST(
+      post(url, { amount: 40, currency: "eur", unit: "MWh", energyBasis: "gross", transportAdder: 5, validFrom: "2024-01-01" }),
+      ctx(gas.id),
+    );
     expect(a.status).toBe(201);
-    const b = await routes.prices.POST(post(url, { amount: 0.45, currency: "EUR", unit: "m3", meteringReference: "15C", validFrom: "2025-01-01", isInvented: true }), ctx(gas.id));
+    const b = await routes.prices.POST(
+      post(url, { amount: 0.45, currency: "EUR", unit: "m3", meteringReference: "15C", validFrom: "2025-01-01", isInvented: true }),
+      ctx(gas.id),
+    );
     expect(b.status).toBe(201);
     const list = await (await routes.prices.GET(new Request(url), ctx(gas.id))).json();
     expect(list.prices).toHaveLength(2);
@@ -208,13 +268,19 @@ describe("prices", () => {
     expect(list.prices[0].unitLabel).toBe("m³ at 15 °C");
 
     const priceId = list.prices[1].id;
-    const fix = await routes.price.PUT(put(`${url}/${priceId}`, { amount: 41, currency: "EUR", unit: "MWh", energyBasis: "net", validFrom: "2024-01-01" }), pctx(gas.id, priceId));
+    const fix = await routes.price.PUT(
+      put(`${url}/${priceId}`, { amount: 41, currency: "EUR", unit: "MWh", energyBasis: "net", validFrom: "2024-01-01" }),
+      pctx(gas.id, priceId),
+    );
     // A correction is a new version; the corrected quote stays as it was.
     expect(fix.status).toBe(201);
     const fixId = (await fix.json()).id;
     expect((await t.client.priceQuote.findUniqueOrThrow({ where: { id: fixId } })).energyBasis).toBe("net");
     expect((await t.client.priceQuote.findUniqueOrThrow({ where: { id: priceId } })).energyBasis).toBe("gross");
-    const badFix = await routes.price.PUT(put(`${url}/${fixId}`, { amount: 41, currency: "EUR", unit: "MWh", validFrom: "2024-01-01" }), pctx(gas.id, fixId));
+    const badFix = await routes.price.PUT(
+      put(`${url}/${fixId}`, { amount: 41, currency: "EUR", unit: "MWh", validFrom: "2024-01-01" }),
+      pctx(gas.id, fixId),
+    );
     expect(badFix.status).toBe(400);
     // Part of a correction history: withdrawn, not deleted.
     expect((await routes.price.DELETE(new Request(`${url}/${fixId}`, { method: "DELETE" }), pctx(gas.id, fixId))).status).toBe(409);
@@ -224,8 +290,15 @@ describe("prices", () => {
   });
 
   it("a liquid priced per litre needs a density", async () => {
-    const oil = await (await routes.fuels.POST(post(base, { name: "Oil by analysis", definition: { ultimate: { C: 0.86, H: 0.14 }, kind: "liquid", lhv_MJ_per_kg: 43 } }))).json();
-    const res = await routes.prices.POST(post(`${base}/${oil.id}/prices`, { amount: 0.9, currency: "EUR", unit: "L", validFrom: "2025-01-01" }), ctx(oil.id));
+    const oil = await (
+      await routes.fuels.POST(
+        post(base, { name: "Oil by analysis", definition: { ultimate: { C: 0.86, H: 0.14 }, kind: "liquid", lhv_MJ_per_kg: 43 } }),
+      )
+    ).json();
+    const res = await routes.prices.POST(
+      post(`${base}/${oil.id}/prices`, { amount: 0.9, currency: "EUR", unit: "L", validFrom: "2025-01-01" }),
+      ctx(oil.id),
+    );
     expect(res.status).toBe(400);
     expect((await res.json()).fieldErrors.unit).toMatch(/density/);
   });
@@ -251,9 +324,13 @@ describe("writes from elsewhere are refused", () => {
   });
   it("403 for a write whose Origin is another site, 2xx/4xx as usual from this server's own origin", async () => {
     const host = new URL(base).host;
-    const evil = await routes.fuels.POST(new Request(base, { method: "POST", body, headers: { "content-type": "application/json", origin: "http://evil.example", host } }));
+    const evil = await routes.fuels.POST(
+      new Request(base, { method: "POST", body, headers: { "content-type": "application/json", origin: "http://evil.example", host } }),
+    );
     expect(evil.status).toBe(403);
-    const own = await routes.fuels.POST(new Request(base, { method: "POST", body, headers: { "content-type": "application/json", origin: `http://${host}`, host } }));
+    const own = await routes.fuels.POST(
+      new Request(base, { method: "POST", body, headers: { "content-type": "application/json", origin: `http://${host}`, host } }),
+    );
     expect(own.status).toBe(201);
   });
   it("413 for a body past the 1 MiB limit, without storing anything", async () => {

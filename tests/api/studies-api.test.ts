@@ -45,7 +45,11 @@ afterAll(async () => {
 });
 
 const req = (url: string, method = "GET", body?: unknown) =>
-  new Request(`http://localhost${url}`, { method, body: body === undefined ? undefined : typeof body === "string" ? body : JSON.stringify(body), headers: { "content-type": "application/json" } });
+  new Request(`http://localhost${url}`, {
+    method,
+    body: body === undefined ? undefined : typeof body === "string" ? body : JSON.stringify(body),
+    headers: { "content-type": "application/json" },
+  });
 const ctx = (id: number | string) => ({ params: Promise.resolve({ id: String(id) }) });
 
 describe("plants API", () => {
@@ -120,7 +124,9 @@ describe("studies API", () => {
     expect(csv.headers.get("content-type")).toMatch(/text\/csv/);
     expect(csv.headers.get("content-disposition")).toMatch(/api-study-checks\.csv/);
     expect((await csv.text()).split("\n")[0]).toMatch(/^scenario,check,/);
-    const sweep = await (await routes.exporter.GET(req(`/api/studies/${demoStudyId}/export?format=csv&table=sweep`), ctx(demoStudyId))).text();
+    const sweep = await (
+      await routes.exporter.GET(req(`/api/studies/${demoStudyId}/export?format=csv&table=sweep`), ctx(demoStudyId))
+    ).text();
     expect(sweep.trim().split("\n")).toHaveLength(102); // header + 0..100 % in 1 % steps
     const json = await (await routes.exporter.GET(req(`/api/studies/${id}/export?format=json`), ctx(id))).json();
     expect(json.format).toBe("stoke-study-results");
@@ -132,7 +138,9 @@ describe("studies API", () => {
 
   it("study CSV: CRLF line ends, and a scenario name a spreadsheet would run as a formula gets a leading apostrophe", async () => {
     // RFC 4180 (2005), section 2: CRLF line breaks. OWASP, "CSV Injection": =, +, -, @ start a formula.
-    const made = await routes.studies.POST(req("/api/studies", "POST", { ...body(), name: "Formula names", scenarios: [{ name: "=1+1", fuelId: fuel["LPG (propane)"] }] }));
+    const made = await routes.studies.POST(
+      req("/api/studies", "POST", { ...body(), name: "Formula names", scenarios: [{ name: "=1+1", fuelId: fuel["LPG (propane)"] }] }),
+    );
     expect(made.status).toBe(201);
     const sid = (await made.json()).id;
     const text = await (await routes.exporter.GET(req(`/api/studies/${sid}/export?format=csv`), ctx(sid))).text();
@@ -147,12 +155,17 @@ describe("studies API", () => {
     const dupId = (await dup.json()).id;
     const named = await routes.duplicate.POST(req(`/api/studies/${id}/duplicate`, "POST", { name: "API study" }), ctx(id));
     expect(named.status).toBe(409);
-    const up = await routes.study.PUT(req(`/api/studies/${dupId}`, "PUT", { ...body(), name: "API study, one option", scenarios: body().scenarios.slice(0, 1) }), ctx(dupId));
+    const up = await routes.study.PUT(
+      req(`/api/studies/${dupId}`, "PUT", { ...body(), name: "API study, one option", scenarios: body().scenarios.slice(0, 1) }),
+      ctx(dupId),
+    );
     expect(up.status).toBe(200);
     expect((await (await routes.study.GET(req(`/api/studies/${dupId}`), ctx(dupId))).json()).scenarios).toHaveLength(1);
     expect((await routes.study.DELETE(req(`/api/studies/${dupId}`, "DELETE"), ctx(dupId))).status).toBe(200);
     expect((await routes.study.GET(req(`/api/studies/${dupId}`), ctx(dupId))).status).toBe(404);
     const list = await (await routes.studies.GET(req(`/api/studies?plant=${plantId}`))).json();
-    expect(list.studies.map((s: { name: string }) => s.name)).toEqual(expect.arrayContaining(["API study", "Hydrogen blending and biomethane"]));
+    expect(list.studies.map((s: { name: string }) => s.name)).toEqual(
+      expect.arrayContaining(["API study", "Hydrogen blending and biomethane"]),
+    );
   });
 });

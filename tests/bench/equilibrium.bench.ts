@@ -10,7 +10,12 @@
  * Each sample is the mean over a batch of solves (timer resolution); set-up of the problems (element
  * amounts and reactant enthalpy) happens outside the timed region.
  */
-import { createEquilibriumSolver, DEFAULT_PRODUCT_SPECIES, type EquilibriumProblem, type EquilibriumResult } from "../../lib/combustion/equilibrium";
+import {
+  createEquilibriumSolver,
+  DEFAULT_PRODUCT_SPECIES,
+  type EquilibriumProblem,
+  type EquilibriumResult,
+} from "../../lib/combustion/equilibrium";
 import { h_J_per_mol } from "../../lib/thermo/nasa7";
 import { SPECIES } from "../../lib/thermo/species-data";
 import type { BenchResult } from "./bench-types";

@@ -26,29 +26,62 @@ export async function benchKinetics(): Promise<BenchResult[]> {
   const kin = createKinetics(mech);
   const nS = mech.nSpecies;
   const X = new Float64Array(nS).fill(1e-6);
-  const major: Record<string, number> = { N2: 0.7, O2: 0.08, CH4: 0.03, H2O: 0.1, CO2: 0.04, CO: 0.02, H2: 0.01, OH: 0.003, H: 0.002, O: 0.001, AR: 0.008 };
+  const major: Record<string, number> = {
+    N2: 0.7,
+    O2: 0.08,
+    CH4: 0.03,
+    H2O: 0.1,
+    CO2: 0.04,
+    CO: 0.02,
+    H2: 0.01,
+    OH: 0.003,
+    H: 0.002,
+    O: 0.001,
+    AR: 0.008,
+  };
   for (const [n, x] of Object.entries(major)) X[mech.speciesIndex.get(n) as number] = x;
   const s = X.reduce((a, b) => a + b, 0);
   const C = X.map((x) => (x / s) * (101325 / (R_J_per_molK * 1500)));
-  const w = new Float64Array(nS), J = new Float64Array(nS * nS), dT = new Float64Array(nS);
+  const w = new Float64Array(nS),
+    J = new Float64Array(nS * nS),
+    dT = new Float64Array(nS);
   let sink = 0;
   let t = 1500;
   const next = () => (t = t === 1500 ? 1500.5 : 1500);
-  for (let i = 0; i < 5000; i++) { kin.netProductionRates(next(), C, w); sink += w[0]; }
-  for (let i = 0; i < 500; i++) { kin.jacobian(next(), C, J, dT); sink += J[0]; }
-  const rates: number[] = [], jac: number[] = [];
+  for (let i = 0; i < 5000; i++) {
+    kin.netProductionRates(next(), C, w);
+    sink += w[0];
+  }
+  for (let i = 0; i < 500; i++) {
+    kin.jacobian(next(), C, J, dT);
+    sink += J[0];
+  }
+  const rates: number[] = [],
+    jac: number[] = [];
   for (let sIdx = 0; sIdx < 30; sIdx++) {
     let t0 = performance.now();
-    for (let i = 0; i < 1000; i++) { kin.netProductionRates(next(), C, w); sink += w[0]; }
+    for (let i = 0; i < 1000; i++) {
+      kin.netProductionRates(next(), C, w);
+      sink += w[0];
+    }
     rates.push(performance.now() - t0); // ms per 1000 calls = µs per call
     t0 = performance.now();
-    for (let i = 0; i < 200; i++) { kin.jacobian(next(), C, J, dT); sink += J[0]; }
+    for (let i = 0; i < 200; i++) {
+      kin.jacobian(next(), C, J, dT);
+      sink += J[0];
+    }
     jac.push(((performance.now() - t0) * 1000) / 200);
   }
   // post-flame run from stoichiometric methane-air equilibrium products
   const AIR: Record<string, number> = { O2: 0.2095, N2: 0.7809, Ar: 0.0093, CO2: 0.0003 }; // common practice, no source
   const air = 2 / AIR.O2;
-  const elementMoles: Record<string, number> = { C: 1 + air * AIR.CO2, H: 4, O: air * 2 * (AIR.O2 + AIR.CO2), N: air * 2 * AIR.N2, Ar: air * AIR.Ar };
+  const elementMoles: Record<string, number> = {
+    C: 1 + air * AIR.CO2,
+    H: 4,
+    O: air * 2 * (AIR.O2 + AIR.CO2),
+    N: air * 2 * AIR.N2,
+    Ar: air * AIR.Ar,
+  };
   let enthalpyJ = h_J_per_mol(SPECIES.CH4, 298.15);
   for (const [k, x] of Object.entries(AIR)) enthalpyJ += air * x * h_J_per_mol(SPECIES[k], 298.15);
   const eq = solveEquilibriumHP({ elementMoles, enthalpyJ, pressurePa: 101325 });

@@ -79,7 +79,10 @@ export async function benchPages(): Promise<BenchResult[]> {
       const res = await fetch(page);
       const html = await res.text();
       const ms = performance.now() - t0;
-      if (!res.ok) throw new Error(`comparison page answered ${res.status}${res.status === 404 ? " (is the build older than the study pages? run `npm run build`)" : ""}`);
+      if (!res.ok)
+        throw new Error(
+          `comparison page answered ${res.status}${res.status === 404 ? " (is the build older than the study pages? run `npm run build`)" : ""}`,
+        );
       // The streamed page must hold the ranked table with all 21 scenarios, not just the loading state.
       const rows = html.match(/data-scenario="/g)?.length ?? 0;
       if (rows < 21) throw new Error(`comparison page shows ${rows} scenario rows, expected at least 21`);

@@ -21,7 +21,13 @@ export function twentyScenarioStudy(): StudyInput {
   for (const x of [0.05, 0.1, 0.15, 0.2, 0.25, 0.3, 0.125, 0.175, 0.4, 0.6]) {
     scenarios.push({
       name: `H2 ${100 * x} %`,
-      fuel: { blend: [{ fuel: ng, share: 1 - x }, { fuel: h2, share: x }], basis: "volume" },
+      fuel: {
+        blend: [
+          { fuel: ng, share: 1 - x },
+          { fuel: h2, share: x },
+        ],
+        basis: "volume",
+      },
       componentPrices: [gasPrice, h2Price],
       capex: 400_000 * x,
       fixedOpexChange: 20_000 * x,
@@ -29,16 +35,57 @@ export function twentyScenarioStudy(): StudyInput {
   }
   const eur = (amount: number, unit: string, extra: Record<string, unknown> = {}) => ({ amount, currency: "EUR", unit, ...extra }) as never;
   scenarios.push(
-    { name: "biomethane", fuel: { composition: { CH4: 0.97, CO2: 0.02, N2: 0.01 }, biogenicCarbonShare: 1, upstreamCo2e_kg_per_GJ: 12 }, price: eur(92, "MWh", { energyBasis: "gross" }) },
-    { name: "biogas 60/40", fuel: { composition: { CH4: 0.598, CO2: 0.4, H2S: 0.002 }, biogenicCarbonShare: 1 }, price: eur(0.26, "m3", { meteringReference: "0C" }), capex: 250_000 },
-    { name: "LPG", fuel: { composition: { C3H8: 0.95, nC4H10: 0.03, iC4H10: 0.02 } }, price: eur(720, "t", { transportAdder: 45 }), capex: 90_000 },
+    {
+      name: "biomethane",
+      fuel: { composition: { CH4: 0.97, CO2: 0.02, N2: 0.01 }, biogenicCarbonShare: 1, upstreamCo2e_kg_per_GJ: 12 },
+      price: eur(92, "MWh", { energyBasis: "gross" }),
+    },
+    {
+      name: "biogas 60/40",
+      fuel: { composition: { CH4: 0.598, CO2: 0.4, H2S: 0.002 }, biogenicCarbonShare: 1 },
+      price: eur(0.26, "m3", { meteringReference: "0C" }),
+      capex: 250_000,
+    },
+    {
+      name: "LPG",
+      fuel: { composition: { C3H8: 0.95, nC4H10: 0.03, iC4H10: 0.02 } },
+      price: eur(720, "t", { transportAdder: 45 }),
+      capex: 90_000,
+    },
     { name: "methanol", fuel: { compound: "CH3OH", phase: "liquid" }, price: eur(420, "t"), capex: 300_000 },
     { name: "ethanol", fuel: { compound: "C2H5OH", phase: "liquid", biogenicCarbonShare: 1 }, price: eur(0.78, "L"), capex: 300_000 },
-    { name: "gas oil", fuel: { ultimate: { C: 0.8655, H: 0.133, O: 0, N: 0.0005, S: 0.001, moisture: 0, ash: 0 }, kind: "liquid", lhv_MJ_per_kg: 42.9, densityKgPerM3: 845 }, price: eur(0.92, "L"), capex: 150_000 },
-    { name: "HVO", fuel: { compound: "C16H34", phase: "liquid", densityKgPerM3: 780, biogenicCarbonShare: 1 }, price: eur(2150, "t"), capex: 150_000 },
+    {
+      name: "gas oil",
+      fuel: {
+        ultimate: { C: 0.8655, H: 0.133, O: 0, N: 0.0005, S: 0.001, moisture: 0, ash: 0 },
+        kind: "liquid",
+        lhv_MJ_per_kg: 42.9,
+        densityKgPerM3: 845,
+      },
+      price: eur(0.92, "L"),
+      capex: 150_000,
+    },
+    {
+      name: "HVO",
+      fuel: { compound: "C16H34", phase: "liquid", densityKgPerM3: 780, biogenicCarbonShare: 1 },
+      price: eur(2150, "t"),
+      capex: 150_000,
+    },
     { name: "natural gas, economiser upgrade", fuel: ng, price: gasPrice, capex: 120_000, overrides: { stackTemperatureC: 110 } },
     { name: "natural gas, O2 trim", fuel: ng, price: gasPrice, capex: 40_000, overrides: { flueO2DryPercent: 2 } },
-    { name: "H2 20 %, condensing retrofit", fuel: { blend: [{ fuel: ng, share: 0.8 }, { fuel: h2, share: 0.2 }], basis: "volume" }, componentPrices: [gasPrice, h2Price], capex: 350_000, overrides: { condensing: true, returnWaterC: 40, stackTemperatureC: 55 } },
+    {
+      name: "H2 20 %, condensing retrofit",
+      fuel: {
+        blend: [
+          { fuel: ng, share: 0.8 },
+          { fuel: h2, share: 0.2 },
+        ],
+        basis: "volume",
+      },
+      componentPrices: [gasPrice, h2Price],
+      capex: 350_000,
+      overrides: { condensing: true, returnWaterC: 40, stackTemperatureC: 55 },
+    },
   );
   return { ...ex, name: "benchmark: 20 scenarios", scenarios };
 }

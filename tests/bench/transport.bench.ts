@@ -18,18 +18,37 @@ export async function benchTransport(): Promise<BenchResult[]> {
   const tr = createMixtureTransport(mech);
   const nS = mech.nSpecies;
   const X = new Float64Array(nS).fill(1e-6);
-  const major: Record<string, number> = { N2: 0.7, O2: 0.08, CH4: 0.03, H2O: 0.1, CO2: 0.04, CO: 0.02, H2: 0.01, OH: 0.003, H: 0.002, O: 0.001, AR: 0.008 };
+  const major: Record<string, number> = {
+    N2: 0.7,
+    O2: 0.08,
+    CH4: 0.03,
+    H2O: 0.1,
+    CO2: 0.04,
+    CO: 0.02,
+    H2: 0.01,
+    OH: 0.003,
+    H: 0.002,
+    O: 0.001,
+    AR: 0.008,
+  };
   for (const [n, x] of Object.entries(major)) X[mech.speciesIndex.get(n) as number] = x;
   const out = tr.newOutput();
   let sink = 0;
   let t = 1500;
   const next = () => (t = t === 1500 ? 1500.5 : 1500);
   const o2 = mech.speciesIndex.get("O2") as number;
-  for (let i = 0; i < 5000; i++) { tr.evaluate(next(), 101325, X, out); sink += out.viscosity_Pa_s; }
-  const newT: number[] = [], sameT: number[] = [];
+  for (let i = 0; i < 5000; i++) {
+    tr.evaluate(next(), 101325, X, out);
+    sink += out.viscosity_Pa_s;
+  }
+  const newT: number[] = [],
+    sameT: number[] = [];
   for (let s = 0; s < 30; s++) {
     let t0 = performance.now();
-    for (let i = 0; i < 1000; i++) { tr.evaluate(next(), 101325, X, out); sink += out.Dkm_m2_per_s[0]; }
+    for (let i = 0; i < 1000; i++) {
+      tr.evaluate(next(), 101325, X, out);
+      sink += out.Dkm_m2_per_s[0];
+    }
     newT.push(performance.now() - t0); // ms per 1000 calls = µs per call
     t0 = performance.now();
     for (let i = 0; i < 1000; i++) {

@@ -56,7 +56,11 @@ async function createStudyThroughApi(): Promise<number> {
       { name: "Biomethane", fuelId: fuel("Biomethane") },
     ],
   };
-  const res = await fetch(`${base}/api/studies`, { method: "POST", headers: { "content-type": "application/json", origin: base }, body: JSON.stringify(body) });
+  const res = await fetch(`${base}/api/studies`, {
+    method: "POST",
+    headers: { "content-type": "application/json", origin: base },
+    body: JSON.stringify(body),
+  });
   if (res.status !== 201) throw new Error(`creating the test study answered ${res.status}: ${await res.text()}`);
   return ((await res.json()) as { id: number }).id;
 }
@@ -79,10 +83,16 @@ describe("decision pages in the browser", () => {
     expect(await baseline.getByLabel("Fuel or blend").locator("option:checked").textContent()).toContain("Pipeline natural gas");
 
     await page.getByTestId("scenario-card-0").getByLabel("Fuel or blend").selectOption({ label: "Natural gas + 10 % H2 (blend)" });
-    await page.getByTestId("scenario-card-0").getByLabel(/Switching capex/).fill("60000");
+    await page
+      .getByTestId("scenario-card-0")
+      .getByLabel(/Switching capex/)
+      .fill("60000");
     await page.getByRole("button", { name: "+ Add candidate" }).click();
     await page.getByTestId("scenario-card-1").getByLabel("Fuel or blend").selectOption({ label: "Natural gas + 30 % H2 (blend)" });
-    await page.getByTestId("scenario-card-1").getByLabel(/Switching capex/).fill("420000");
+    await page
+      .getByTestId("scenario-card-1")
+      .getByLabel(/Switching capex/)
+      .fill("420000");
     await page.getByRole("button", { name: "+ Add candidate" }).click();
     await page.getByTestId("scenario-card-2").getByLabel("Fuel or blend").selectOption({ label: "Biomethane" });
     // Choosing a fuel names the scenario after it.
@@ -91,7 +101,9 @@ describe("decision pages in the browser", () => {
     await page.getByRole("button", { name: "Create study" }).click();
     await page.waitForURL(/\/studies\/\d+$/);
     await page.getByRole("heading", { level: 1, name: FORM_STUDY }).waitFor();
-    expect((await rankedNames()).sort()).toEqual(["Biomethane", "Natural gas + 10 % H2", "Natural gas + 30 % H2", "Pipeline natural gas (today)"].sort());
+    expect((await rankedNames()).sort()).toEqual(
+      ["Biomethane", "Natural gas + 10 % H2", "Natural gas + 30 % H2", "Pipeline natural gas (today)"].sort(),
+    );
     // Charts rendered (recharts draws SVG).
     expect(await page.locator("figure.chart svg.recharts-surface").count()).toBeGreaterThanOrEqual(3);
   });
@@ -101,7 +113,10 @@ describe("decision pages in the browser", () => {
     await page.goto(`${base}/studies/new?plant=${plantId}`);
     await page.getByLabel("Study name").fill("Rejected study");
     await page.getByTestId("scenario-card-0").getByLabel("Fuel or blend").selectOption({ label: "Biomethane" });
-    await page.getByTestId("scenario-card-0").getByLabel(/Switching capex/).fill("-5");
+    await page
+      .getByTestId("scenario-card-0")
+      .getByLabel(/Switching capex/)
+      .fill("-5");
     await page.getByRole("button", { name: "Create study" }).click();
     await page.locator(".form-errors").waitFor();
     expect(await page.getByTestId("scenario-card-0").locator(".field-error").first().textContent()).toMatch(/≥ 0/);
@@ -148,7 +163,13 @@ describe("decision pages in the browser", () => {
     // The burner maker's limit is drawn as a line on every panel, and red dots mark first failures.
     // (A vertical line has no width, so it is checked as drawn rather than "visible".)
     await page.locator(".sweep-burner-limit line").first().waitFor({ state: "attached" });
-    const lines = await page.locator(".sweep-burner-limit line").evaluateAll((ls) => ls.map((l) => ({ x1: Number(l.getAttribute("x1")), x2: Number(l.getAttribute("x2")), len: Math.abs(Number(l.getAttribute("y1")) - Number(l.getAttribute("y2"))) })));
+    const lines = await page.locator(".sweep-burner-limit line").evaluateAll((ls) =>
+      ls.map((l) => ({
+        x1: Number(l.getAttribute("x1")),
+        x2: Number(l.getAttribute("x2")),
+        len: Math.abs(Number(l.getAttribute("y1")) - Number(l.getAttribute("y2"))),
+      })),
+    );
     expect(lines.length).toBeGreaterThanOrEqual(6);
     for (const l of lines) {
       expect(l.x1).toBe(l.x2);
@@ -192,7 +213,19 @@ describe("decision pages in the browser", () => {
     const css = await page.locator("style").evaluateAll((s) => s.map((x) => x.textContent ?? "").join("\n"));
     expect(css).toMatch(/@page\s*{\s*size:\s*A4/);
     const text = (await page.getByTestId("report").textContent()) ?? "";
-    for (const s of ["Plant", "Assumptions", "Ranked scenarios", "Fit checks", "Methods", "Sources", "Safety cautions", "NASA RP-1311", "ISO 6976", "invented"]) expect(text).toContain(s);
+    for (const s of [
+      "Plant",
+      "Assumptions",
+      "Ranked scenarios",
+      "Fit checks",
+      "Methods",
+      "Sources",
+      "Safety cautions",
+      "NASA RP-1311",
+      "ISO 6976",
+      "invented",
+    ])
+      expect(text).toContain(s);
     expect(await page.locator(".report .caution h3", { hasText: "Hydrogen" }).count()).toBe(1);
     const pdf = await page.pdf({ preferCSSPageSize: true, printBackground: true });
     expect(pdf.subarray(0, 5).toString()).toBe("%PDF-");
@@ -207,7 +240,11 @@ describe("decision pages in the browser", () => {
     const csv = await (await fetch(`${base}/api/studies/${studyId}/export?format=csv`)).text();
     expect(csv.split("\n")[0]).toMatch(/^rank,scenario,/);
     expect(csv).toContain("Natural gas + 30 % H2");
-    const json = (await (await fetch(`${base}/api/studies/${studyId}/export?format=json`)).json()) as { format: string; study: { scenarios: unknown[] }; results: { ranking: { entries: unknown[] } } };
+    const json = (await (await fetch(`${base}/api/studies/${studyId}/export?format=json`)).json()) as {
+      format: string;
+      study: { scenarios: unknown[] };
+      results: { ranking: { entries: unknown[] } };
+    };
     expect(json.format).toBe("stoke-study-results");
     expect(json.study.scenarios).toHaveLength(3);
     expect(json.results.ranking.entries).toHaveLength(4);

@@ -62,7 +62,9 @@ describe("migration runner", () => {
     const file = path.join(dir, "c.db");
     expect(() => migrateSqlite({ databaseUrl: `file:${file}`, migrationsDir: migDir })).toThrow(/99990101000000_broken failed/);
     const db = new Database(file, { readonly: true });
-    const names = (db.prepare(`SELECT migration_name FROM "_prisma_migrations"`).all() as { migration_name: string }[]).map((r) => r.migration_name);
+    const names = (db.prepare(`SELECT migration_name FROM "_prisma_migrations"`).all() as { migration_name: string }[]).map(
+      (r) => r.migration_name,
+    );
     const x = db.prepare(`SELECT name FROM sqlite_master WHERE name = 'X'`).get();
     db.close();
     expect(names).not.toContain("99990101000000_broken");

@@ -47,7 +47,15 @@ describe("plants", () => {
 
   it("rejects bad input field by field and stores nothing", async () => {
     const before = await t.client.plant.count();
-    const r = await createPlant(t.client, { ...valid(), name: "Broken", ratedInput_kW: -5, flueO2DryPercent: 25, condensing: true, returnWaterC: null, baselineFuelId: 99999 });
+    const r = await createPlant(t.client, {
+      ...valid(),
+      name: "Broken",
+      ratedInput_kW: -5,
+      flueO2DryPercent: 25,
+      condensing: true,
+      returnWaterC: null,
+      baselineFuelId: 99999,
+    });
     expect(r.ok).toBe(false);
     if (r.ok) return;
     expect(r.kind).toBe("invalid");

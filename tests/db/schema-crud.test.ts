@@ -69,7 +69,9 @@ describe("schema matches the migrations", () => {
 
   it("Plant, Study, Scenario", async () => {
     const fuel = await db.fuel.create({ data: { name: "NG", kind: "gas", definition: "{}" } });
-    const quote = await db.priceQuote.create({ data: { fuelId: fuel.id, amount: 1, currency: "EUR", unit: "MWh", energyBasis: "gross", validFrom: new Date() } });
+    const quote = await db.priceQuote.create({
+      data: { fuelId: fuel.id, amount: 1, currency: "EUR", unit: "MWh", energyBasis: "gross", validFrom: new Date() },
+    });
     const plant = await db.plant.create({
       data: {
         name: "P",
@@ -112,16 +114,62 @@ describe("schema matches the migrations", () => {
       },
     });
     const readPlant = await db.plant.findUniqueOrThrow({ where: { id: plant.id } });
-    expect(readPlant).toMatchObject({ wobbeMin_MJ_per_m3: 47.2, condensing: true, returnWaterC: 40, condensingApproachK: 4, flueCODryPpm: 120, unburntCarbonInAshPercent: 8, warnAtFractionOfLimit: 0.85, flueGasCapacityBasis: "normal" });
-    const study = await db.study.create({
-      data: { plantId: plant.id, name: "S1", carbonPrice_per_t: 80, currency: "EUR", discountRatePercent: 8, horizonYears: 15, priceEscalationPercent: 2, rankingMetric: "npv", includeUpstream: true, sensitivityRanges: '{"fuelPricePercent":25}', notes: "", reportTitle: "T", preparedFor: "Client Ltd", preparedBy: "A. Consultant", reportDate: "2026-11-30", reportNotes: "Scope." },
+    expect(readPlant).toMatchObject({
+      wobbeMin_MJ_per_m3: 47.2,
+      condensing: true,
+      returnWaterC: 40,
+      condensingApproachK: 4,
+      flueCODryPpm: 120,
+      unburntCarbonInAshPercent: 8,
+      warnAtFractionOfLimit: 0.85,
+      flueGasCapacityBasis: "normal",
     });
-    expect(await db.study.findUniqueOrThrow({ where: { id: study.id } })).toMatchObject({ includeUpstream: true, sensitivityRanges: '{"fuelPricePercent":25}', reportTitle: "T", preparedFor: "Client Ltd", preparedBy: "A. Consultant", reportDate: "2026-11-30", reportNotes: "Scope." });
-    const bare = await db.study.create({ data: { plantId: plant.id, name: "S0", currency: "EUR", discountRatePercent: 8, horizonYears: 15, rankingMetric: "npv" } });
+    const study = await db.study.create({
+      data: {
+        plantId: plant.id,
+        name: "S1",
+        carbonPrice_per_t: 80,
+        currency: "EUR",
+        discountRatePercent: 8,
+        horizonYears: 15,
+        priceEscalationPercent: 2,
+        rankingMetric: "npv",
+        includeUpstream: true,
+        sensitivityRanges: '{"fuelPricePercent":25}',
+        notes: "",
+        reportTitle: "T",
+        preparedFor: "Client Ltd",
+        preparedBy: "A. Consultant",
+        reportDate: "2026-11-30",
+        reportNotes: "Scope.",
+      },
+    });
+    expect(await db.study.findUniqueOrThrow({ where: { id: study.id } })).toMatchObject({
+      includeUpstream: true,
+      sensitivityRanges: '{"fuelPricePercent":25}',
+      reportTitle: "T",
+      preparedFor: "Client Ltd",
+      preparedBy: "A. Consultant",
+      reportDate: "2026-11-30",
+      reportNotes: "Scope.",
+    });
+    const bare = await db.study.create({
+      data: { plantId: plant.id, name: "S0", currency: "EUR", discountRatePercent: 8, horizonYears: 15, rankingMetric: "npv" },
+    });
     expect(bare).toMatchObject({ reportTitle: "", preparedFor: "", preparedBy: "", reportDate: null, reportNotes: "" });
     await db.study.delete({ where: { id: bare.id } });
     const sc = await db.scenario.create({
-      data: { studyId: study.id, name: "base", fuelId: fuel.id, priceQuoteId: quote.id, capex: 1e5, fixedOpexChange: -500, overrides: '{"stackTemperatureC":120}', isBaseline: true, position: 0 },
+      data: {
+        studyId: study.id,
+        name: "base",
+        fuelId: fuel.id,
+        priceQuoteId: quote.id,
+        capex: 1e5,
+        fixedOpexChange: -500,
+        overrides: '{"stackTemperatureC":120}',
+        isBaseline: true,
+        position: 0,
+      },
     });
     expect(JSON.parse((await db.scenario.findUniqueOrThrow({ where: { id: sc.id } })).overrides)).toEqual({ stackTemperatureC: 120 });
     await expect(db.scenario.create({ data: { studyId: study.id, name: "base", fuelId: fuel.id } })).rejects.toThrow();
@@ -140,30 +188,90 @@ describe("schema matches the migrations", () => {
 
   it("quote versions, ExchangeRate, StudyRevision, RevisionQuote, Scenario.priceValidOn", async () => {
     const fuel = await db.fuel.create({ data: { name: "NG2", kind: "gas", definition: "{}" } });
-    const q1 = await db.priceQuote.create({ data: { fuelId: fuel.id, amount: 30, currency: "EUR", unit: "MWh", energyBasis: "gross", validFrom: new Date("2026-01-01T00:00:00Z") } });
+    const q1 = await db.priceQuote.create({
+      data: {
+        fuelId: fuel.id,
+        amount: 30,
+        currency: "EUR",
+        unit: "MWh",
+        energyBasis: "gross",
+        validFrom: new Date("2026-01-01T00:00:00Z"),
+      },
+    });
     const withdrawnAt = new Date("2026-03-01T10:00:00Z");
-    const q2 = await db.priceQuote.create({ data: { fuelId: fuel.id, amount: 31, currency: "EUR", unit: "MWh", energyBasis: "gross", validFrom: new Date("2026-01-01T00:00:00Z"), supersedesId: q1.id, withdrawnAt, supplier: "Gas Co" } });
-    expect(await db.priceQuote.findUniqueOrThrow({ where: { id: q2.id } })).toMatchObject({ supersedesId: q1.id, withdrawnAt, supplier: "Gas Co" });
+    const q2 = await db.priceQuote.create({
+      data: {
+        fuelId: fuel.id,
+        amount: 31,
+        currency: "EUR",
+        unit: "MWh",
+        energyBasis: "gross",
+        validFrom: new Date("2026-01-01T00:00:00Z"),
+        supersedesId: q1.id,
+        withdrawnAt,
+        supplier: "Gas Co",
+      },
+    });
+    expect(await db.priceQuote.findUniqueOrThrow({ where: { id: q2.id } })).toMatchObject({
+      supersedesId: q1.id,
+      withdrawnAt,
+      supplier: "Gas Co",
+    });
     expect((await db.priceQuote.findUniqueOrThrow({ where: { id: q1.id } })).supplier).toBe("");
-    expect((await db.priceQuote.findUniqueOrThrow({ where: { id: q1.id }, include: { supersededBy: true } })).supersededBy.map((q) => q.id)).toEqual([q2.id]);
+    expect(
+      (await db.priceQuote.findUniqueOrThrow({ where: { id: q1.id }, include: { supersededBy: true } })).supersededBy.map((q) => q.id),
+    ).toEqual([q2.id]);
     // A quote that a later version supersedes cannot be deleted (Restrict).
     await expect(db.priceQuote.delete({ where: { id: q1.id } })).rejects.toThrow();
 
     const rateDate = new Date("2026-02-02T00:00:00Z");
-    const rate = await db.exchangeRate.create({ data: { fromCurrency: "GBP", toCurrency: "EUR", rate: 1.1612, validFrom: rateDate, source: "test" } });
-    expect(await db.exchangeRate.findUniqueOrThrow({ where: { id: rate.id } })).toMatchObject({ fromCurrency: "GBP", toCurrency: "EUR", rate: 1.1612, validFrom: rateDate, source: "test" });
-    await expect(db.exchangeRate.create({ data: { fromCurrency: "GBP", toCurrency: "EUR", rate: 1.2, validFrom: rateDate } })).rejects.toThrow();
+    const rate = await db.exchangeRate.create({
+      data: { fromCurrency: "GBP", toCurrency: "EUR", rate: 1.1612, validFrom: rateDate, source: "test" },
+    });
+    expect(await db.exchangeRate.findUniqueOrThrow({ where: { id: rate.id } })).toMatchObject({
+      fromCurrency: "GBP",
+      toCurrency: "EUR",
+      rate: 1.1612,
+      validFrom: rateDate,
+      source: "test",
+    });
+    await expect(
+      db.exchangeRate.create({ data: { fromCurrency: "GBP", toCurrency: "EUR", rate: 1.2, validFrom: rateDate } }),
+    ).rejects.toThrow();
 
     const plant = await db.plant.create({
-      data: { name: "P2", equipmentType: "steam-boiler", ratedInput_kW: 1000, operatingHours: 8000, averageLoadFraction: 0.6, stackTemperatureC: 150, flueO2DryPercent: 3, combustionAirC: 20, radiationLossPercent: 1 },
+      data: {
+        name: "P2",
+        equipmentType: "steam-boiler",
+        ratedInput_kW: 1000,
+        operatingHours: 8000,
+        averageLoadFraction: 0.6,
+        stackTemperatureC: 150,
+        flueO2DryPercent: 3,
+        combustionAirC: 20,
+        radiationLossPercent: 1,
+      },
     });
-    const study = await db.study.create({ data: { plantId: plant.id, name: "S2", currency: "EUR", discountRatePercent: 8, horizonYears: 15, rankingMetric: "npv" } });
+    const study = await db.study.create({
+      data: { plantId: plant.id, name: "S2", currency: "EUR", discountRatePercent: 8, horizonYears: 15, rankingMetric: "npv" },
+    });
     const on = new Date("2026-02-15T00:00:00Z");
     const sc = await db.scenario.create({ data: { studyId: study.id, name: "base", fuelId: fuel.id, priceValidOn: on, isBaseline: true } });
     expect((await db.scenario.findUniqueOrThrow({ where: { id: sc.id } })).priceValidOn).toEqual(on);
-    const rev = await db.studyRevision.create({ data: { studyId: study.id, number: 1, hash: "ab", inputs: "{}", results: "[]", meta: '{"m":1}' } });
-    expect(await db.studyRevision.findUniqueOrThrow({ where: { id: rev.id } })).toMatchObject({ studyId: study.id, number: 1, hash: "ab", inputs: "{}", results: "[]", meta: '{"m":1}' });
-    await expect(db.studyRevision.create({ data: { studyId: study.id, number: 1, hash: "cd", inputs: "{}", results: "[]", meta: "{}" } })).rejects.toThrow();
+    const rev = await db.studyRevision.create({
+      data: { studyId: study.id, number: 1, hash: "ab", inputs: "{}", results: "[]", meta: '{"m":1}' },
+    });
+    expect(await db.studyRevision.findUniqueOrThrow({ where: { id: rev.id } })).toMatchObject({
+      studyId: study.id,
+      number: 1,
+      hash: "ab",
+      inputs: "{}",
+      results: "[]",
+      meta: '{"m":1}',
+    });
+    await expect(
+      db.studyRevision.create({ data: { studyId: study.id, number: 1, hash: "cd", inputs: "{}", results: "[]", meta: "{}" } }),
+    ).rejects.toThrow();
     await db.revisionQuote.create({ data: { revisionId: rev.id, quoteId: q2.id } });
     expect(await db.revisionQuote.findMany({ where: { quoteId: q2.id } })).toEqual([{ revisionId: rev.id, quoteId: q2.id }]);
     // A quote an issued revision used cannot be deleted, nor can a study with revisions (Restrict).

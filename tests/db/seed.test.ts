@@ -21,7 +21,25 @@ describe("demo seed", () => {
 
   it("holds the fuels the story needs, every price marked invented, units mixed", async () => {
     const names = (await t.client.fuel.findMany()).map((f) => f.name);
-    for (const n of ["Pipeline natural gas", "Hydrogen", "Natural gas + 10 % H2", "Natural gas + 20 % H2", "Natural gas + 30 % H2", "Biomethane", "Biogas 60/40", "Landfill gas", "LPG (propane)", "Methanol", "Ethanol", "FAME biodiesel", "HVO", "Gas oil", "Heavy fuel oil", "Ammonia", "Wood pellets"]) {
+    for (const n of [
+      "Pipeline natural gas",
+      "Hydrogen",
+      "Natural gas + 10 % H2",
+      "Natural gas + 20 % H2",
+      "Natural gas + 30 % H2",
+      "Biomethane",
+      "Biogas 60/40",
+      "Landfill gas",
+      "LPG (propane)",
+      "Methanol",
+      "Ethanol",
+      "FAME biodiesel",
+      "HVO",
+      "Gas oil",
+      "Heavy fuel oil",
+      "Ammonia",
+      "Wood pellets",
+    ]) {
       expect(names).toContain(n);
     }
     const quotes = await t.client.priceQuote.findMany();
@@ -54,7 +72,8 @@ describe("demo seed", () => {
     // By hand: 10 vol % H2 in the pipeline gas → mass fractions from the molar masses.
     const ng = list.find((f) => f.name === "Pipeline natural gas")!;
     const h2 = list.find((f) => f.name === "Hydrogen")!;
-    const mNg = 0.9 * ng.properties!.molarMass_g_per_mol!, mH2 = 0.1 * h2.properties!.molarMass_g_per_mol!;
+    const mNg = 0.9 * ng.properties!.molarMass_g_per_mol!,
+      mH2 = 0.1 * h2.properties!.molarMass_g_per_mol!;
     const perKg = (mNg * ng.price!.normalised!.perKg + mH2 * h2.price!.normalised!.perKg) / (mNg + mH2);
     expect(est.normalised.perKg).toBeCloseTo(perKg, 10);
     expect(est.normalised.perMWh_net).toBeCloseTo((perKg * 3600) / blend.properties!.lhv.MJ_per_kg, 8);

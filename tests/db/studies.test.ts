@@ -2,7 +2,16 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { tempDb } from "./temp-db";
 import { seedIfEmpty } from "../../seed/index";
-import { createStudy, deleteStudy, duplicateStudy, evaluateStoredStudy, listStudies, recordFieldOf, studyRecord, updateStudy } from "../../lib/services/studies";
+import {
+  createStudy,
+  deleteStudy,
+  duplicateStudy,
+  evaluateStoredStudy,
+  listStudies,
+  recordFieldOf,
+  studyRecord,
+  updateStudy,
+} from "../../lib/services/studies";
 
 const t = tempDb();
 const fuel: Record<string, number> = {};

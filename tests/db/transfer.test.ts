@@ -19,18 +19,29 @@ afterAll(async () => {
 describe("CSV reader and writer", () => {
   it("writes RFC 4180 records: CRLF after each, quotes around a comma, quote or line break, quotes doubled", () => {
     // RFC 4180 (2005), section 2, rules 1, 6 and 7.
-    expect(writeCsv([["a", "b,c"], ['say "hi"', "two\nlines"]])).toBe('a,"b,c"\r\n"say ""hi""","two\nlines"\r\n');
+    expect(
+      writeCsv([
+        ["a", "b,c"],
+        ['say "hi"', "two\nlines"],
+      ]),
+    ).toBe('a,"b,c"\r\n"say ""hi""","two\nlines"\r\n');
   });
 
   it("reads back what it writes, and reads LF line ends, a byte-order mark and blank lines", () => {
-    const rows = [["a", "b,c", 'say "hi"', "line\nbreak", "", " padded "], ["1", "2", "3", "4", "5", "6"]];
+    const rows = [
+      ["a", "b,c", 'say "hi"', "line\nbreak", "", " padded "],
+      ["1", "2", "3", "4", "5", "6"],
+    ];
     expect(readCsv(writeCsv(rows))).toEqual(rows);
-    expect(readCsv("\ufeffx,y\n\na,b\n")).toEqual([["x", "y"], ["a", "b"]]);
+    expect(readCsv("\ufeffx,y\n\na,b\n")).toEqual([
+      ["x", "y"],
+      ["a", "b"],
+    ]);
   });
 
   it("puts an apostrophe before cells a spreadsheet would run as formulas, not before plain numbers, and reads them back unchanged", () => {
     // OWASP, "CSV Injection": cells starting with =, +, -, @, tab or carriage return are read as formulas.
-    const cells = ["=HYPERLINK(\"http://x\")", "+1+2", "-2+3", "@SUM(A1)", "\tx", "-5", "+1.5e3", "'=already quoted", "plain"];
+    const cells = ['=HYPERLINK("http://x")', "+1+2", "-2+3", "@SUM(A1)", "\tx", "-5", "+1.5e3", "'=already quoted", "plain"];
     expect(writeCsv([cells])).toBe(`"'=HYPERLINK(""http://x"")",'+1+2,'-2+3,'@SUM(A1),'\tx,-5,+1.5e3,''=already quoted,plain\r\n`);
     expect(readCsv(writeCsv([cells]))).toEqual([cells]);
   });
@@ -60,7 +71,14 @@ describe("library export and import", () => {
       notes: "line one\nline two, with comma",
     });
     expect(extra.ok).toBe(true);
-    if (extra.ok) await addPriceQuote(a.client, extra.value.id, { amount: 1 / 3, currency: "USD", unit: "MMBtu", energyBasis: "net", validFrom: "2023-12-31" });
+    if (extra.ok)
+      await addPriceQuote(a.client, extra.value.id, {
+        amount: 1 / 3,
+        currency: "USD",
+        unit: "MMBtu",
+        energyBasis: "net",
+        validFrom: "2023-12-31",
+      });
     const first = await exportLibraryText(a.client, "json");
 
     const b = fresh();

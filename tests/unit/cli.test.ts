@@ -10,7 +10,10 @@ const run = (args: string[], stdin = "") => runCli(args, () => stdin);
 
 describe("stoke properties", () => {
   it("prints the property sheet of the issue's example (90 % CH4, 10 % H2)", async () => {
-    const r = await run(["properties", "--input", "-"], JSON.stringify({ fuel: { composition: { CH4: 0.9, H2: 0.1 } }, combustionReferenceC: 25, meteringReferenceC: 15 }));
+    const r = await run(
+      ["properties", "--input", "-"],
+      JSON.stringify({ fuel: { composition: { CH4: 0.9, H2: 0.1 } }, combustionReferenceC: 25, meteringReferenceC: 15 }),
+    );
     expect(r.exitCode).toBe(0);
     const p = JSON.parse(r.stdout);
     for (const k of ["kJ_per_mol", "MJ_per_kg", "MJ_per_m3", "kJ_per_mol_O2", "MJ_per_kg_O2"]) {
@@ -32,7 +35,13 @@ describe("stoke properties", () => {
     for (const fuel of [
       { compound: "C2H5OH", phase: "liquid" },
       { ultimate: { C: 0.47, H: 0.058, O: 0.38, N: 0.002, S: 0.0002, moisture: 0.08, ash: 0.0098 }, correlation: "channiwala-parikh-2002" },
-      { blend: [{ fuel: { compound: "CH4" }, share: 0.8 }, { fuel: { compound: "H2" }, share: 0.2 }], basis: "volume" },
+      {
+        blend: [
+          { fuel: { compound: "CH4" }, share: 0.8 },
+          { fuel: { compound: "H2" }, share: 0.2 },
+        ],
+        basis: "volume",
+      },
     ]) {
       const r = await run(["properties", "--input", "-"], JSON.stringify({ fuel }));
       expect(r.stderr).toBe("");
@@ -46,7 +55,18 @@ describe("stoke properties", () => {
     [{ fuel: { compound: "C99" } }, /fuel\.compound: unknown species "C99"/],
     [{ fuel: {} }, /fuel: a fuel needs one of/],
     [{ fuel: { compound: "CH4" }, meteringReferenceC: 17 }, /meteringReferenceC: must be one of/],
-    [{ fuel: { blend: [{ fuel: { compound: "CH4" }, share: 0.7 }, { fuel: { compound: "H2" }, share: 0.2 }], basis: "volume" } }, /fuel\.blend: blend shares must sum to 1/],
+    [
+      {
+        fuel: {
+          blend: [
+            { fuel: { compound: "CH4" }, share: 0.7 },
+            { fuel: { compound: "H2" }, share: 0.2 },
+          ],
+          basis: "volume",
+        },
+      },
+      /fuel\.blend: blend shares must sum to 1/,
+    ],
   ];
   for (const [input, message] of bad) {
     it(`rejects ${JSON.stringify(input)} with exit 2 and one line naming the field`, async () => {
@@ -92,7 +112,10 @@ describe("the npm script end to end", () => {
     const r = spawnSync("npm", ["run", "-s", "stoke", "--", "properties", "--input", good], { encoding: "utf8" });
     expect(r.status).toBe(0);
     expect(JSON.parse(r.stdout).hhv.kJ_per_mol).toBeCloseTo(890.58, 0); // ISO 6976:2016, methane GCV 25 °C
-    const bad = spawnSync("npm", ["run", "-s", "stoke", "--", "properties", "--input", "-"], { encoding: "utf8", input: '{"fuel":{"composition":{"CH4":1.2}}}' });
+    const bad = spawnSync("npm", ["run", "-s", "stoke", "--", "properties", "--input", "-"], {
+      encoding: "utf8",
+      input: '{"fuel":{"composition":{"CH4":1.2}}}',
+    });
     expect(bad.status).toBe(2);
     expect(bad.stderr.trim()).toMatch(/^stoke: fuel\.composition\.CH4: must be ≤ 1$/);
   }, 30000);

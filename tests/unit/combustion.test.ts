@@ -79,7 +79,7 @@ describe("real-gas volumetric figures and Wobbe index (ISO 6976:2016 method)", (
   const Z = 1 - sum((k) => s15[k]) ** 2;
   const Mmix = sum((k) => M[k]);
   const Vm = (8.3144621 * 288.15) / 101325; // ISO 6976:2016 R, 15 °C
-  const Hv = (sum((k) => G15[k]) / (Z * Vm)) / 1000; // MJ/m³
+  const Hv = sum((k) => G15[k]) / (Z * Vm) / 1000; // MJ/m³
   const d = (Mmix / AIR_MOLAR_MASS_g_per_mol) * (0.999595 / Z); // Z_air(15 °C) 0.999595 (value from memory)
   const W = Hv / Math.sqrt(d);
 
@@ -120,7 +120,11 @@ describe("real-gas volumetric figures and Wobbe index (ISO 6976:2016 method)", (
 describe("CO2 factors against IPCC 2006 and EPA 40 CFR 98", () => {
   const naturalGas: FuelDefinition = { composition: { CH4: 0.93, C2H6: 0.035, C3H8: 0.008, nC4H10: 0.002, N2: 0.015, CO2: 0.01 } };
   // A gas oil by ultimate analysis with the Channiwala & Parikh HHV (composition: common practice, no source).
-  const gasOil: FuelDefinition = { ultimate: { C: 0.866, H: 0.133, S: 0.001, O: 0, N: 0, moisture: 0, ash: 0 }, kind: "liquid", correlation: "channiwala-parikh-2002" };
+  const gasOil: FuelDefinition = {
+    ultimate: { C: 0.866, H: 0.133, S: 0.001, O: 0, N: 0, moisture: 0, ash: 0 },
+    kind: "liquid",
+    correlation: "channiwala-parikh-2002",
+  };
   const lpg: FuelDefinition = { composition: { C3H8: 0.95, nC4H10: 0.03, C2H6: 0.02 } };
 
   it("natural gas: IPCC 2006 Vol. 2 Table 1.4, 56 100 kg/TJ (NCV), range 54 300–58 300; EPA Table C-1 53.06 kg CO2/mmBtu (HHV)", () => {
@@ -295,7 +299,9 @@ describe("adiabatic flame temperature, three methods", () => {
     }
   });
   it("a rich limit stated as excess air names excessAirPercent", () => {
-    expect(() => flameTemperature({ fuel: { compound: "CH4" }, excessAirPercent: -80, method: "equilibrium" })).toThrow(/^excessAirPercent: /);
+    expect(() => flameTemperature({ fuel: { compound: "CH4" }, excessAirPercent: -80, method: "equilibrium" })).toThrow(
+      /^excessAirPercent: /,
+    );
   });
   it("pure N2, O2 or CO2 as the fuel is refused by every method, naming the fuel", () => {
     for (const compound of ["N2", "O2", "CO2"]) {
@@ -328,7 +334,15 @@ import { cautionsFor } from "../../lib/fuels/cautions";
 describe("safety cautions follow the fuel's content (brief, Cautions)", () => {
   const hazards = (d: FuelDefinition) => cautionsFor(d).map((c) => c.hazard);
   it("hydrogen blends, biogas, ammonia, methanol, LPG each carry their caution; every fuel the burner-change caution", () => {
-    expect(hazards({ blend: [{ fuel: { compound: "CH4" }, share: 0.8 }, { fuel: { compound: "H2" }, share: 0.2 }], basis: "volume" })).toContain("hydrogen");
+    expect(
+      hazards({
+        blend: [
+          { fuel: { compound: "CH4" }, share: 0.8 },
+          { fuel: { compound: "H2" }, share: 0.2 },
+        ],
+        basis: "volume",
+      }),
+    ).toContain("hydrogen");
     expect(hazards({ composition: { CH4: 0.6, CO2: 0.4 } })).toContain("biogas");
     expect(hazards({ compound: "NH3" })).toContain("ammonia");
     expect(hazards({ compound: "CH3OH", phase: "liquid" })).toContain("methanol");
@@ -339,7 +353,9 @@ describe("safety cautions follow the fuel's content (brief, Cautions)", () => {
 
 describe("biomethane is not raw biogas", () => {
   it("upgraded biomethane (97 % CH4, biogenic) carries no biogas H2S caution (common practice, no source)", () => {
-    expect(cautionsFor({ composition: { CH4: 0.97, CO2: 0.02, N2: 0.01 }, biogenicCarbonShare: 1 }).map((c) => c.hazard)).not.toContain("biogas");
+    expect(cautionsFor({ composition: { CH4: 0.97, CO2: 0.02, N2: 0.01 }, biogenicCarbonShare: 1 }).map((c) => c.hazard)).not.toContain(
+      "biogas",
+    );
   });
 });
 
@@ -365,7 +381,11 @@ describe("sulfuric-acid dew point (Verhoff & Banchero 1974, Chem. Eng. Prog. 70(
     expect(acidDewPointC(0, 10e-6)).toBeNull();
   });
   it("heavy fuel oil with 1 % S: acid dew point far above the water dew point; sulfur-free fuels have none", () => {
-    const hfo = computeFuelProperties({ ultimate: { C: 0.87, H: 0.11, S: 0.01, O: 0.005, N: 0.004, moisture: 0.0005, ash: 0.0005 }, kind: "liquid", lhv_MJ_per_kg: 40.4 });
+    const hfo = computeFuelProperties({
+      ultimate: { C: 0.87, H: 0.11, S: 0.01, O: 0.005, N: 0.004, moisture: 0.0005, ash: 0.0005 },
+      kind: "liquid",
+      lhv_MJ_per_kg: 40.4,
+    });
     expect(hfo.flueGas.acidDewPoint_C!).toBeGreaterThan(hfo.flueGas.dewPoint_C! + 60);
     expect(hfo.flueGas.acidDewPoint_C!).toBeGreaterThan(120);
     expect(hfo.flueGas.acidDewPoint_C!).toBeLessThan(160);

@@ -64,8 +64,12 @@ function hp(fuel: Mix, phi: number, oxidizer: Mix, pressurePa = atmospherePa): E
  * by a 1-D Newton iteration on the enthalpy with temperature-dependent cp. Test-local on purpose.
  */
 function completeCombustionTemperatureK(elementMoles: Partial<Record<Element, number>>, enthalpyJ: number): number {
-  const C = elementMoles.C ?? 0, H = elementMoles.H ?? 0, O = elementMoles.O ?? 0;
-  const N = elementMoles.N ?? 0, S = elementMoles.S ?? 0, Ar = elementMoles.Ar ?? 0;
+  const C = elementMoles.C ?? 0,
+    H = elementMoles.H ?? 0,
+    O = elementMoles.O ?? 0;
+  const N = elementMoles.N ?? 0,
+    S = elementMoles.S ?? 0,
+    Ar = elementMoles.Ar ?? 0;
   const products: Mix = { CO2: C, H2O: H / 2, SO2: S, N2: N / 2, Ar, O2: O / 2 - C - H / 4 - S };
   if (products.O2 < -1e-12) throw new Error("complete combustion needs φ ≤ 1");
   let T = 2000;
@@ -184,9 +188,11 @@ describe("equilibrium adiabatic flame temperature against published values (298.
     }
     const lean = charge({ CH4: 1 }, 0.5, TEXTBOOK_AIR);
     const stoich = charge({ CH4: 1 }, 1, TEXTBOOK_AIR);
-    const gapLean = completeCombustionTemperatureK(lean.elementMoles, lean.enthalpyJ) -
+    const gapLean =
+      completeCombustionTemperatureK(lean.elementMoles, lean.enthalpyJ) -
       solveEquilibriumHP({ ...lean, pressurePa: atmospherePa }).temperatureK;
-    const gapStoich = completeCombustionTemperatureK(stoich.elementMoles, stoich.enthalpyJ) -
+    const gapStoich =
+      completeCombustionTemperatureK(stoich.elementMoles, stoich.enthalpyJ) -
       solveEquilibriumHP({ ...stoich, pressurePa: atmospherePa }).temperatureK;
     expect(gapLean).toBeLessThan(5);
     expect(gapStoich).toBeGreaterThan(60);
@@ -197,9 +203,7 @@ describe("equilibrium adiabatic flame temperature against published values (298.
     for (const fuel of [{ CH4: 1 }, { H2: 1 }, { NH3: 1 }] as Mix[]) {
       expect(hp(fuel, 1, OXYGEN).temperatureK).toBeGreaterThan(hp(fuel, 1, TEXTBOOK_AIR).temperatureK + 400);
     }
-    expect(hp({ CH4: 1 }, 1, OXYGEN, 20 * atmospherePa).temperatureK).toBeGreaterThan(
-      hp({ CH4: 1 }, 1, OXYGEN).temperatureK + 100,
-    );
+    expect(hp({ CH4: 1 }, 1, OXYGEN, 20 * atmospherePa).temperatureK).toBeGreaterThan(hp({ CH4: 1 }, 1, OXYGEN).temperatureK + 100);
   });
 
   it("preheating the air raises T_ad", () => {
@@ -220,8 +224,18 @@ describe("equilibrium compositions against published values", () => {
     // the original table is not at hand). Majors within 1 %, minors within 10 % (the minor species carry
     // the differences between thermochemical databases, and the values are given to two figures).
     const x = hp({ CH4: 1 }, 1, TEXTBOOK_AIR).moleFractions;
-    const majors: [string, number][] = [["CO2", 0.0853], ["H2O", 0.1834], ["N2", 0.7085]];
-    const minors: [string, number][] = [["CO", 0.0089], ["O2", 0.0045], ["H2", 0.0036], ["OH", 0.003], ["NO", 0.002]];
+    const majors: [string, number][] = [
+      ["CO2", 0.0853],
+      ["H2O", 0.1834],
+      ["N2", 0.7085],
+    ];
+    const minors: [string, number][] = [
+      ["CO", 0.0089],
+      ["O2", 0.0045],
+      ["H2", 0.0036],
+      ["OH", 0.003],
+      ["NO", 0.002],
+    ];
     for (const [k, v] of majors) expect(Math.abs(x[k] / v - 1), k).toBeLessThan(0.01);
     for (const [k, v] of minors) expect(Math.abs(x[k] / v - 1), k).toBeLessThan(0.1);
   });
@@ -237,7 +251,8 @@ describe("equilibrium compositions against published values", () => {
     const K = Math.exp(-((-327.245 + 396.152) * 1000) / (R_J_per_molK * 2500));
     const pr = atmospherePa / standardPressurePa;
     const f = (a: number) => ((a * Math.sqrt(a / 2)) / (1 - a)) * Math.sqrt(pr / (1 + a / 2)) - K;
-    let lo = 0, hi = 0.999;
+    let lo = 0,
+      hi = 0.999;
     for (let i = 0; i < 100; i++) {
       const m = (lo + hi) / 2;
       if (f(m) > 0) hi = m;
@@ -245,7 +260,12 @@ describe("equilibrium compositions against published values", () => {
     }
     const alpha = (lo + hi) / 2;
     const xCO = alpha / (1 + alpha / 2);
-    const r = solveEquilibriumTP({ elementMoles: { C: 1, O: 2 }, pressurePa: atmospherePa, temperatureK: 2500, productSpecies: ["CO2", "CO", "O2"] });
+    const r = solveEquilibriumTP({
+      elementMoles: { C: 1, O: 2 },
+      pressurePa: atmospherePa,
+      temperatureK: 2500,
+      productSpecies: ["CO2", "CO", "O2"],
+    });
     expect(Math.abs(r.moleFractions.CO / xCO - 1)).toBeLessThan(0.03);
     expect(Math.abs(r.moleFractions.O2 / (xCO / 2) - 1)).toBeLessThan(0.03);
   });
@@ -293,7 +313,12 @@ describe("equilibrium at fixed temperature and pressure", () => {
       { OH: 1, H: 1, H2O: -1 }, // H2O = H + OH
       { O: 2, O2: -1 }, // O2 = 2 O
     ];
-    for (const [T, P] of [[2500, atmospherePa], [2000, 1e4], [1800, 5e6], [3200, atmospherePa]] as const) {
+    for (const [T, P] of [
+      [2500, atmospherePa],
+      [2000, 1e4],
+      [1800, 5e6],
+      [3200, atmospherePa],
+    ] as const) {
       const r = solveEquilibriumTP({ ...charge({ CH4: 1 }, 1, DRY_AIR), pressurePa: P, temperatureK: T });
       for (const nu of reactions) {
         const rel = Math.abs(Math.expm1(lnQ(nu, r) - lnK(nu, T)));
@@ -315,11 +340,15 @@ describe("equilibrium at fixed temperature and pressure", () => {
       const total = moles.reduce((a, b) => a + b, 0);
       let g = 0;
       r.species.forEach((key, k) => {
-        g += moles[k] * (g_J_per_mol(SPECIES[key], T) / (R_J_per_molK * T) + Math.log((moles[k] / total) * (atmospherePa / standardPressurePa)));
+        g +=
+          moles[k] *
+          (g_J_per_mol(SPECIES[key], T) / (R_J_per_molK * T) + Math.log((moles[k] / total) * (atmospherePa / standardPressurePa)));
       });
       return g;
     };
-    const iCO2 = r.species.indexOf("CO2"), iCO = r.species.indexOf("CO"), iO2 = r.species.indexOf("O2");
+    const iCO2 = r.species.indexOf("CO2"),
+      iCO = r.species.indexOf("CO"),
+      iO2 = r.species.indexOf("O2");
     const g0 = G(r.moles);
     for (const eps of [1e-4, -1e-4]) {
       const m = Float64Array.from(r.moles);
@@ -495,12 +524,10 @@ describe("solver API", () => {
     const c = charge({ CH4: 1 }, 1, DRY_AIR);
     expect(() => solveEquilibriumHP({ ...c, pressurePa: -1 })).toThrow(/pressurePa/);
     expect(() => solveEquilibriumHP({ ...c, pressurePa: atmospherePa, enthalpyJ: NaN })).toThrow(/enthalpyJ/);
-    expect(() =>
-      solveEquilibriumHP({ elementMoles: { C: 1, Xe: 1 } as never, enthalpyJ: 0, pressurePa: atmospherePa }),
-    ).toThrow(/elementMoles.*Xe/);
-    expect(() => solveEquilibriumHP({ elementMoles: { C: -1 }, enthalpyJ: 0, pressurePa: atmospherePa })).toThrow(
-      /elementMoles\.C/,
+    expect(() => solveEquilibriumHP({ elementMoles: { C: 1, Xe: 1 } as never, enthalpyJ: 0, pressurePa: atmospherePa })).toThrow(
+      /elementMoles.*Xe/,
     );
+    expect(() => solveEquilibriumHP({ elementMoles: { C: -1 }, enthalpyJ: 0, pressurePa: atmospherePa })).toThrow(/elementMoles\.C/);
     expect(() => solveEquilibriumTP({ ...c, pressurePa: atmospherePa, temperatureK: 100 })).toThrow(/temperatureK/);
     expect(() => solveEquilibriumHP({ ...c, pressurePa: atmospherePa, productSpecies: ["CO2", "Unobtainium"] })).toThrow(
       /productSpecies.*Unobtainium/,

@@ -30,13 +30,25 @@ describe("blends against hand computations from ISO 6976:2016 component values (
   // Stoke's molar heating values agree with the ISO 6976:2016 table within 0.02 % per component
   // (combustion.test.ts); a blend computed by hand from the table agrees within the same 0.02 %.
   it("80/20 by volume CH4/H2: NCV 0.8 × 802.60 + 0.2 × 241.81 = 690.442 kJ/mol, H2 mole fraction 0.2", () => {
-    const f = resolveFuel({ blend: [{ fuel: CH4, share: 0.8 }, { fuel: H2, share: 0.2 }], basis: "volume" });
+    const f = resolveFuel({
+      blend: [
+        { fuel: CH4, share: 0.8 },
+        { fuel: H2, share: 0.2 },
+      ],
+      basis: "volume",
+    });
     expect(f.h2MoleFraction).toBeCloseTo(0.2, 12);
     expect(rel(heatingValues(f).lhv_kJ_per_mol!, 0.8 * 802.6 + 0.2 * 241.81)).toBeLessThan(2e-4);
   });
 
   it("80/20 by mass CH4/H2: NCV 0.8 × 50.0297 + 0.2 × 119.9526 = 64.0143 MJ/kg; carbon 0.8 × 1000 / 16.04246 = 49.868 mol/kg", () => {
-    const f = resolveFuel({ blend: [{ fuel: CH4, share: 0.8 }, { fuel: H2, share: 0.2 }], basis: "mass" });
+    const f = resolveFuel({
+      blend: [
+        { fuel: CH4, share: 0.8 },
+        { fuel: H2, share: 0.2 },
+      ],
+      basis: "mass",
+    });
     expect(f.componentMassFractions).toEqual([0.8, 0.2]);
     const byHand = 0.8 * NCV_CH4_MJ_per_kg + 0.2 * NCV_H2_MJ_per_kg;
     expect(byHand).toBeCloseTo(64.0143, 3);
@@ -54,7 +66,13 @@ describe("blends against hand computations from ISO 6976:2016 component values (
     const wCH4 = mCH4 / (mCH4 + mH2);
     expect(wCH4).toBeCloseTo(0.7057, 4);
     expect(1 / (mCH4 + mH2)).toBeCloseTo(70.609, 2);
-    const f = resolveFuel({ blend: [{ fuel: CH4, share: 0.5 }, { fuel: H2, share: 0.5 }], basis: "energy" });
+    const f = resolveFuel({
+      blend: [
+        { fuel: CH4, share: 0.5 },
+        { fuel: H2, share: 0.5 },
+      ],
+      basis: "energy",
+    });
     expect(rel(f.componentMassFractions![0], wCH4)).toBeLessThan(2e-4);
     expect(rel(f.componentMassFractions![1], 1 - wCH4)).toBeLessThan(5e-4);
     expect(rel(heatingValues(f).lhv_MJ_per_kg, 1 / (mCH4 + mH2))).toBeLessThan(2e-4);
@@ -67,15 +85,33 @@ describe("upstream CO2e of a blend", () => {
   const unstated: FuelDefinition = { compound: "H2" };
 
   it("50/50 by energy of 10 and 20 kg/GJ is 15 kg/GJ (energy-weighted by hand)", () => {
-    const p = computeFuelProperties({ blend: [{ fuel: a, share: 0.5 }, { fuel: b, share: 0.5 }], basis: "energy" });
+    const p = computeFuelProperties({
+      blend: [
+        { fuel: a, share: 0.5 },
+        { fuel: b, share: 0.5 },
+      ],
+      basis: "energy",
+    });
     expect(p.co2.upstreamCo2e_kg_per_GJ_lhv).toBeCloseTo(15, 9);
   });
 
   it("a component with no stated factor makes the blend's upstream CO2e unknown (undefined), not 0, and says so", () => {
-    const f = resolveFuel({ blend: [{ fuel: a, share: 0.9 }, { fuel: unstated, share: 0.1 }], basis: "energy" });
+    const f = resolveFuel({
+      blend: [
+        { fuel: a, share: 0.9 },
+        { fuel: unstated, share: 0.1 },
+      ],
+      basis: "energy",
+    });
     expect(f.upstreamCo2e_kg_per_GJ).toBeUndefined();
     expect(f.notes.join(" ")).toMatch(/upstream CO2e unknown: component 1 states no factor/);
-    const p = computeFuelProperties({ blend: [{ fuel: a, share: 0.9 }, { fuel: unstated, share: 0.1 }], basis: "energy" });
+    const p = computeFuelProperties({
+      blend: [
+        { fuel: a, share: 0.9 },
+        { fuel: unstated, share: 0.1 },
+      ],
+      basis: "energy",
+    });
     expect(p.co2.upstreamCo2e_kg_per_GJ_lhv).toBeUndefined();
   });
 });
@@ -106,7 +142,13 @@ describe("Channiwala & Parikh (2002) correlation against ISO 6976:2016 gross cal
 
 describe("input errors name the field as the user wrote it", () => {
   it("an unknown species in a blend component: fuel.blend.1.fuel.composition.XY", () => {
-    const def = { blend: [{ fuel: CH4, share: 0.5 }, { fuel: { composition: { XY: 1 } }, share: 0.5 }], basis: "volume" } as FuelDefinition;
+    const def = {
+      blend: [
+        { fuel: CH4, share: 0.5 },
+        { fuel: { composition: { XY: 1 } }, share: 0.5 },
+      ],
+      basis: "volume",
+    } as FuelDefinition;
     expect(() => resolveFuel(def)).toThrow(InputError);
     expect(() => resolveFuel(def)).toThrow(/^fuel\.blend\.1\.fuel\.composition\.XY: unknown species "XY"/);
   });
@@ -133,7 +175,13 @@ describe("input errors name the field as the user wrote it", () => {
 
 describe("energy-share blends need components that release heat", () => {
   it("nitrogen in a blend by energy share is an InputError naming its share", () => {
-    const def: FuelDefinition = { blend: [{ fuel: CH4, share: 0.9 }, { fuel: { compound: "N2" }, share: 0.1 }], basis: "energy" };
+    const def: FuelDefinition = {
+      blend: [
+        { fuel: CH4, share: 0.9 },
+        { fuel: { compound: "N2" }, share: 0.1 },
+      ],
+      basis: "energy",
+    };
     expect(() => resolveFuel(def)).toThrow(InputError);
     expect(() => resolveFuel(def)).toThrow(/^fuel\.blend\.1\.share: /);
   });

@@ -14,7 +14,17 @@ function keysOf(schema: z.ZodType): string[] {
 
 describe("labels people read", () => {
   it("every field of the plant, study and library schemas has a label", () => {
-    const schemas = { plantSchema, operatingOverridesSchema, ambientAirSchema, studySchema, scenarioSchema, sensitivitySchema, hydrogenSweepSchema, fuelInputSchema, priceQuoteInputSchema };
+    const schemas = {
+      plantSchema,
+      operatingOverridesSchema,
+      ambientAirSchema,
+      studySchema,
+      scenarioSchema,
+      sensitivitySchema,
+      hydrogenSweepSchema,
+      fuelInputSchema,
+      priceQuoteInputSchema,
+    };
     const missing: string[] = [];
     for (const [name, schema] of Object.entries(schemas)) {
       const keys = keysOf(schema as z.ZodType);

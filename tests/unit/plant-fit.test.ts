@@ -8,7 +8,13 @@ import { efficiencyAtUseful, flowsForUseful, plantDuty } from "../../lib/plant/d
 import { operatingPointOf } from "../../lib/schemas/plant";
 
 const METHANE = { composition: { CH4: 1 } };
-const blend = (x: number) => ({ blend: [{ fuel: METHANE, share: 1 - x }, { fuel: { compound: "H2", phase: "gas" as const }, share: x }], basis: "volume" as const });
+const blend = (x: number) => ({
+  blend: [
+    { fuel: METHANE, share: 1 - x },
+    { fuel: { compound: "H2", phase: "gas" as const }, share: x },
+  ],
+  basis: "volume" as const,
+});
 
 function evaluate(plant: Record<string, unknown>, scenarios: StudyInput["scenarios"]) {
   const study = studySchema.parse({
@@ -34,7 +40,8 @@ function evaluate(plant: Record<string, unknown>, scenarios: StudyInput["scenari
   });
   return evaluateStudy(study, { sweep: false });
 }
-const check = (r: ReturnType<typeof evaluate>, i: number, id: string) => (i < 0 ? r.baseline : r.scenarios[i]).checks.find((c) => c.id === id)!;
+const check = (r: ReturnType<typeof evaluate>, i: number, id: string) =>
+  (i < 0 ? r.baseline : r.scenarios[i]).checks.find((c) => c.id === id)!;
 
 describe("fit checks: pass / warn / fail against the plant's limits", () => {
   it("without limits every limit check is not-checked but still reports its number", () => {
@@ -53,7 +60,9 @@ describe("fit checks: pass / warn / fail against the plant's limits", () => {
     const probe = evaluate({}, []);
     const flow = probe.baseline.ratedFlows.flueGas_m3_per_h_actual;
     const air = probe.baseline.ratedFlows.air_m3_per_h_actual;
-    expect(check(evaluate({ flueGasCapacity_m3_per_h: flow * 1.2, airCapacity_m3_per_h: air * 1.2 }, []), -1, "flue-gas-fan").status).toBe("pass");
+    expect(check(evaluate({ flueGasCapacity_m3_per_h: flow * 1.2, airCapacity_m3_per_h: air * 1.2 }, []), -1, "flue-gas-fan").status).toBe(
+      "pass",
+    );
     expect(check(evaluate({ flueGasCapacity_m3_per_h: flow * 1.0 }, []), -1, "flue-gas-fan").status).toBe("warn");
     expect(check(evaluate({ flueGasCapacity_m3_per_h: flow * 0.99 }, []), -1, "flue-gas-fan").status).toBe("fail");
     expect(check(evaluate({ airCapacity_m3_per_h: air * 0.95 }, []), -1, "combustion-air-fan").status).toBe("fail");
@@ -81,9 +90,15 @@ describe("fit checks: pass / warn / fail against the plant's limits", () => {
     const rise = check(probe, 0, "flame-temperature-rise").value!;
     expect(rise).toBeGreaterThan(5);
     expect(probe.scenarios[0].flame!.shiftK).toBeCloseTo(rise, 10);
-    expect(check(evaluate({ maxFlameTempRiseK: rise * 2 }, [{ name: "30 %", fuel: blend(0.3) }]), 0, "flame-temperature-rise").status).toBe("pass");
-    expect(check(evaluate({ maxFlameTempRiseK: rise * 1.05 }, [{ name: "30 %", fuel: blend(0.3) }]), 0, "flame-temperature-rise").status).toBe("warn");
-    expect(check(evaluate({ maxFlameTempRiseK: rise * 0.9 }, [{ name: "30 %", fuel: blend(0.3) }]), 0, "flame-temperature-rise").status).toBe("fail");
+    expect(check(evaluate({ maxFlameTempRiseK: rise * 2 }, [{ name: "30 %", fuel: blend(0.3) }]), 0, "flame-temperature-rise").status).toBe(
+      "pass",
+    );
+    expect(
+      check(evaluate({ maxFlameTempRiseK: rise * 1.05 }, [{ name: "30 %", fuel: blend(0.3) }]), 0, "flame-temperature-rise").status,
+    ).toBe("warn");
+    expect(
+      check(evaluate({ maxFlameTempRiseK: rise * 0.9 }, [{ name: "30 %", fuel: blend(0.3) }]), 0, "flame-temperature-rise").status,
+    ).toBe("fail");
   });
 
   it("Wobbe: ± band relative to the baseline and an absolute range", () => {
@@ -126,8 +141,23 @@ describe("fit checks: pass / warn / fail against the plant's limits", () => {
 
   it("a flame temperature that did not converge is reported as not-checked with the solver's message, never guessed", () => {
     const study = studySchema.parse({
-      name: "x", currency: "EUR", discountRatePercent: 5, horizonYears: 5,
-      plant: { name: "u", equipmentType: "kiln", ratedInput_kW: 1000, operatingHours: 1000, averageLoadFraction: 1, stackTemperatureC: 200, flueO2DryPercent: 3, combustionAirC: 20, radiationLossPercent: 1, condensing: false, maxFlameTempRiseK: 50 },
+      name: "x",
+      currency: "EUR",
+      discountRatePercent: 5,
+      horizonYears: 5,
+      plant: {
+        name: "u",
+        equipmentType: "kiln",
+        ratedInput_kW: 1000,
+        operatingHours: 1000,
+        averageLoadFraction: 1,
+        stackTemperatureC: 200,
+        flueO2DryPercent: 3,
+        combustionAirC: 20,
+        radiationLossPercent: 1,
+        condensing: false,
+        maxFlameTempRiseK: 50,
+      },
       baseline: { name: "m", fuel: METHANE },
       scenarios: [],
     });
@@ -136,7 +166,10 @@ describe("fit checks: pass / warn / fail against the plant's limits", () => {
     const duty = plantDuty(study.plant, ctx, perf);
     const rated = efficiencyAtUseful(perf, duty, duty.ratedUseful_kW);
     const ok: FuelInPlant = { ctx, perf, rated, flows: flowsForUseful(study.plant, ctx, perf, rated, duty.ratedUseful_kW) };
-    const failed: FuelInPlant = { ...ok, perf: { ...perf, flame: null, flameError: "equilibrium flame temperature did not converge: test" } };
+    const failed: FuelInPlant = {
+      ...ok,
+      perf: { ...perf, flame: null, flameError: "equilibrium flame temperature did not converge: test" },
+    };
     const c = fitChecks(study.plant, ok, failed).find((x) => x.id === "flame-temperature-rise")!;
     expect(c.status).toBe("not-checked");
     expect(c.value).toBeNull();

@@ -19,10 +19,24 @@ import type { FuelDefinition } from "../../lib/schemas/fuel";
 // Typical pipeline natural gas (H-gas), mole fractions (common practice, no source).
 const NATURAL_GAS: FuelDefinition = { composition: { CH4: 0.93, C2H6: 0.04, C3H8: 0.01, CO2: 0.01, N2: 0.01 } };
 // Heating gas oil by ultimate analysis with a net heating value of 42.9 MJ/kg (typical EN 590 values, value from memory).
-const GAS_OIL: FuelDefinition = { ultimate: { C: 0.8655, H: 0.133, N: 0.0005, S: 0.001, O: 0, moisture: 0, ash: 0 }, kind: "liquid", lhv_MJ_per_kg: 42.9 };
+const GAS_OIL: FuelDefinition = {
+  ultimate: { C: 0.8655, H: 0.133, N: 0.0005, S: 0.001, O: 0, moisture: 0, ash: 0 },
+  kind: "liquid",
+  lhv_MJ_per_kg: 42.9,
+};
 // Wood pellets, 8 % moisture as received (typical values, value from memory).
-const PELLETS: FuelDefinition = { ultimate: { C: 0.4646, H: 0.0561, O: 0.3911, N: 0.003, S: 0.0002, moisture: 0.08, ash: 0.005 }, kind: "solid", lhv_MJ_per_kg: 17.0 };
-const H2_BLEND: FuelDefinition = { blend: [{ fuel: { composition: { CH4: 1 } }, share: 0.8 }, { fuel: { compound: "H2", phase: "gas" }, share: 0.2 }], basis: "volume" };
+const PELLETS: FuelDefinition = {
+  ultimate: { C: 0.4646, H: 0.0561, O: 0.3911, N: 0.003, S: 0.0002, moisture: 0.08, ash: 0.005 },
+  kind: "solid",
+  lhv_MJ_per_kg: 17.0,
+};
+const H2_BLEND: FuelDefinition = {
+  blend: [
+    { fuel: { composition: { CH4: 1 } }, share: 0.8 },
+    { fuel: { compound: "H2", phase: "gas" }, share: 0.2 },
+  ],
+  basis: "volume",
+};
 
 function run(def: FuelDefinition, o2: number, c: Partial<EfficiencyConditions> & { stackTemperatureC: number }) {
   const fuel = resolveFuel(def);
@@ -45,7 +59,13 @@ function run(def: FuelDefinition, o2: number, c: Partial<EfficiencyConditions> &
 describe("heat-loss efficiency: energy conservation", () => {
   it("the loss account equals the direct balance of absolute enthalpies in and out, with every term active", () => {
     // A wet solid fuel with ash, unburnt carbon and CO, preheated air, stack below the dew point.
-    const { r } = run(PELLETS, 6, { stackTemperatureC: 40, combustionAirC: 60, coDryPpm: 300, unburntCarbonInAshPercent: 20, radiationLossPercent: 1.5 });
+    const { r } = run(PELLETS, 6, {
+      stackTemperatureC: 40,
+      combustionAirC: 60,
+      coDryPpm: 300,
+      unburntCarbonInAshPercent: 20,
+      radiationLossPercent: 1.5,
+    });
     expect(r.condensed_mol_per_kg).toBeGreaterThan(0);
     expect(r.terms_kJ_per_kg.unburntCO).toBeGreaterThan(0);
     expect(r.terms_kJ_per_kg.unburntCarbon).toBeGreaterThan(0);
@@ -169,8 +189,17 @@ describe("condensing: the flue gas leaves saturated at the stack temperature", (
   });
 
   const op = (o: Partial<OperatingPoint>): OperatingPoint => ({
-    stackTemperatureC: 45, flueO2DryPercent: 3, combustionAirC: 20, radiationLossPercent: 1, condensing: true, returnWaterC: 30,
-    condensingApproachK: 5, flueCODryPpm: 0, unburntCarbonInAshPercent: 0, ambientAir: { temperatureC: 15, relativeHumidityPercent: 60 }, ...o,
+    stackTemperatureC: 45,
+    flueO2DryPercent: 3,
+    combustionAirC: 20,
+    radiationLossPercent: 1,
+    condensing: true,
+    returnWaterC: 30,
+    condensingApproachK: 5,
+    flueCODryPpm: 0,
+    unburntCarbonInAshPercent: 0,
+    ambientAir: { temperatureC: 15, relativeHumidityPercent: 60 },
+    ...o,
   });
   it("a condensing unit's stack below return water + approach is an input error naming stackTemperatureC", () => {
     expect(() => checkOperatingPoint(op({ stackTemperatureC: 34 }))).toThrow(InputError);
@@ -197,7 +226,11 @@ describe("unburnt losses", () => {
   });
 
   it("unburnt carbon beyond the fuel's carbon is an input error naming the field", () => {
-    const coal = resolveFuel({ ultimate: { C: 0.05, H: 0.01, O: 0.04, N: 0, S: 0, moisture: 0.1, ash: 0.8 }, kind: "solid", lhv_MJ_per_kg: 1.5 });
+    const coal = resolveFuel({
+      ultimate: { C: 0.05, H: 0.01, O: 0.04, N: 0, S: 0, moisture: 0.1, ash: 0.8 },
+      kind: "solid",
+      lhv_MJ_per_kg: 1.5,
+    });
     expect(() => unburntCarbon_kg_per_kg(coal, 20)).toThrow(/unburntCarbonInAshPercent: 20 % carbon in the residue/);
   });
 
@@ -210,7 +243,13 @@ describe("guards", () => {
   it("refuses heating values at another reference than the balance's 25 °C", () => {
     const fuel = resolveFuel(NATURAL_GAS);
     expect(() =>
-      heatLossEfficiency(fuel, heatingValues(fuel, 15), { lambda: 1.15, oxidizer: DRY_AIR, combustionAirC: 20, stackTemperatureC: 150, radiationLossPercent: 1 }),
+      heatLossEfficiency(fuel, heatingValues(fuel, 15), {
+        lambda: 1.15,
+        oxidizer: DRY_AIR,
+        combustionAirC: 20,
+        stackTemperatureC: 150,
+        radiationLossPercent: 1,
+      }),
     ).toThrow(/25 °C/);
   });
 });

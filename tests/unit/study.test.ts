@@ -14,7 +14,14 @@ const example = (): StudyInput => JSON.parse(readFileSync(EXAMPLE_PATH, "utf8"))
 
 const METHANE = { composition: { CH4: 1 }, name: "methane" };
 const H2 = { compound: "H2", phase: "gas" as const };
-const blend = (x: number) => ({ blend: [{ fuel: METHANE, share: 1 - x }, { fuel: H2, share: x }], basis: "volume" as const, name: `methane + ${100 * x} % H2` });
+const blend = (x: number) => ({
+  blend: [
+    { fuel: METHANE, share: 1 - x },
+    { fuel: H2, share: x },
+  ],
+  basis: "volume" as const,
+  name: `methane + ${100 * x} % H2`,
+});
 const perMWh = (amount: number) => ({ amount, currency: "EUR", unit: "MWh" as const, energyBasis: "gross" as const });
 
 function baseStudy(over: Partial<StudyInput> = {}): StudyInput {
@@ -141,7 +148,8 @@ describe("study evaluation", () => {
     expect(sw.points[20].flameShiftK).toBeGreaterThan(0);
     expect(sw.limitLines!.maxH2SharePercent).toBe(20);
     // Volume flow of fuel gas rises with hydrogen (lower volumetric heating value).
-    for (let i = 1; i < sw.points.length; i++) expect(sw.points[i].fuelVolume_m3_per_h!).toBeGreaterThan(sw.points[i - 1].fuelVolume_m3_per_h!);
+    for (let i = 1; i < sw.points.length; i++)
+      expect(sw.points[i].fuelVolume_m3_per_h!).toBeGreaterThan(sw.points[i - 1].fuelVolume_m3_per_h!);
   });
 
   it("audit trail: methods with sources, assumptions, and each scenario's inputs", () => {
@@ -185,7 +193,9 @@ describe("blends priced from their components", () => {
     const perKgGas = r.baseline.price!.perKg;
     expect(s.price!.origin).toBe("blend of component quotes");
     expect(s.price!.perKg).toBeCloseTo((1 - wH2) * perKgGas + wH2 * 6, 6);
-    expect(() => studySchema.parse(baseStudy({ scenarios: [{ name: "x", fuel: METHANE, componentPrices: [gasPrice] }] }))).toThrow(/only to a blend/);
+    expect(() => studySchema.parse(baseStudy({ scenarios: [{ name: "x", fuel: METHANE, componentPrices: [gasPrice] }] }))).toThrow(
+      /only to a blend/,
+    );
   });
 });
 
@@ -222,7 +232,9 @@ describe("condensing plant", () => {
 describe("radiation and casing loss at part load", () => {
   const at = (load: number) => {
     const base = baseStudy();
-    return evaluateStudy(studySchema.parse({ ...base, plant: { ...base.plant, averageLoadFraction: load, radiationLossPercent: 2 } }), { sweep: false });
+    return evaluateStudy(studySchema.parse({ ...base, plant: { ...base.plant, averageLoadFraction: load, radiationLossPercent: 2 } }), {
+      sweep: false,
+    });
   };
   it("the baseline's annual radiation share is the rated share ÷ the average load, and the rated-load efficiency does not change", () => {
     const full = at(1);
@@ -236,7 +248,9 @@ describe("radiation and casing loss at part load", () => {
   it("without a load, the load follows from the annual useful heat and the hours; beyond rated input it is refused naming plant.annualUsefulHeat_MWh", () => {
     const base = baseStudy();
     const withAnnual = (annualUsefulHeat_MWh: number) =>
-      evaluateStudy(studySchema.parse({ ...base, plant: { ...base.plant, averageLoadFraction: 0, annualUsefulHeat_MWh } }), { sweep: false });
+      evaluateStudy(studySchema.parse({ ...base, plant: { ...base.plant, averageLoadFraction: 0, annualUsefulHeat_MWh } }), {
+        sweep: false,
+      });
     const r = withAnnual(4000);
     expect(r.duty.averageLoadOrigin).toBe("annual useful heat ÷ operating hours");
     expect(r.duty.averageUseful_kW).toBeCloseTo((4000 * 1000) / 5000, 9);
@@ -286,8 +300,16 @@ describe("bad input: exit 2, one line naming the field", () => {
   const cases: [string, (s: Doc) => void, RegExp][] = [
     ["mole fractions", (s) => (s.scenarios[3].fuel.composition.CH4 = 0.5), /^stoke: scenarios\.3\.fuel\.composition: /],
     ["a number", (s) => (s.plant.flueO2DryPercent = "x"), /^stoke: plant\.flueO2DryPercent: must be a number/],
-    ["a gas priced per litre", (s) => (s.scenarios[3].price = { amount: 1, currency: "EUR", unit: "L" }), /^stoke: scenarios\.3\.price\.unit: /],
-    ["unknown species in a blend", (s) => (s.scenarios[2].fuel.blend[0].fuel.composition = { XX: 1 }), /^stoke: scenarios\.2\.fuel\.blend\.0\.fuel\.composition\.XX: unknown species/],
+    [
+      "a gas priced per litre",
+      (s) => (s.scenarios[3].price = { amount: 1, currency: "EUR", unit: "L" }),
+      /^stoke: scenarios\.3\.price\.unit: /,
+    ],
+    [
+      "unknown species in a blend",
+      (s) => (s.scenarios[2].fuel.blend[0].fuel.composition = { XX: 1 }),
+      /^stoke: scenarios\.2\.fuel\.blend\.0\.fuel\.composition\.XX: unknown species/,
+    ],
     ["currency", (s) => (s.baseline.price.currency = "USD"), /^stoke: baseline\.price\.currency: must be EUR/],
     ["missing plant", (s) => delete s.plant, /^stoke: plant: required/],
     ["condensing without return water", (s) => (s.plant.condensing = true), /^stoke: plant\.returnWaterC: /],
@@ -315,7 +337,10 @@ describe("the hydrogen sweep and the comparison agree for the same blend, or say
   const h2Price = { amount: 5, currency: "EUR", unit: "kg" as const };
   it("a blend priced from the baseline gas and hydrogen prices agrees with the sweep at its share", () => {
     const study = studySchema.parse(
-      baseStudy({ hydrogenSweep: { enabled: true, stepPercent: 5, hydrogenPrice: h2Price }, scenarios: [{ name: "20 %", fuel: blend(0.2), componentPrices: [perMWh(40), h2Price] }] }),
+      baseStudy({
+        hydrogenSweep: { enabled: true, stepPercent: 5, hydrogenPrice: h2Price },
+        scenarios: [{ name: "20 %", fuel: blend(0.2), componentPrices: [perMWh(40), h2Price] }],
+      }),
     );
     const [a] = sweepAgreement(evaluateStudy(study));
     expect(a.h2Percent).toBeCloseTo(20, 9);
@@ -342,7 +367,13 @@ describe("upstream CO2e that no one stated is unknown, never 0", () => {
   it("a study counting upstream emissions leaves cost and ranked CO2 unknown for a fuel without a factor", () => {
     const withFactor = { ...METHANE, upstreamCo2e_kg_per_GJ: 10 };
     const r = evaluateStudy(
-      studySchema.parse(baseStudy({ includeUpstream: true, baseline: { name: "methane", fuel: withFactor, price: perMWh(40) }, scenarios: [{ name: "no factor", fuel: METHANE, price: perMWh(40) }] })),
+      studySchema.parse(
+        baseStudy({
+          includeUpstream: true,
+          baseline: { name: "methane", fuel: withFactor, price: perMWh(40) },
+          scenarios: [{ name: "no factor", fuel: METHANE, price: perMWh(40) }],
+        }),
+      ),
       { sweep: false },
     );
     expect(r.baseline.costs).not.toBeNull();
@@ -351,7 +382,9 @@ describe("upstream CO2e that no one stated is unknown, never 0", () => {
     expect(s.co2PerUsefulMJ_g.ranked).toBeNull();
     expect(s.costs).toBeNull();
     // Left out of the count, the same fuel's fossil CO2 is still known.
-    const r2 = evaluateStudy(studySchema.parse(baseStudy({ scenarios: [{ name: "no factor", fuel: METHANE, price: perMWh(40) }] })), { sweep: false });
+    const r2 = evaluateStudy(studySchema.parse(baseStudy({ scenarios: [{ name: "no factor", fuel: METHANE, price: perMWh(40) }] })), {
+      sweep: false,
+    });
     expect(r2.scenarios[0].co2PerUsefulMJ_g.ranked).toBeCloseTo(r2.scenarios[0].co2PerUsefulMJ_g.fossil, 12);
     expect(r2.scenarios[0].co2PerUsefulMJ_g.upstream).toBeNull();
   });

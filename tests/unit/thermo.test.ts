@@ -28,8 +28,32 @@ const kJ = (J: number) => J / 1000;
 describe("species table", () => {
   it("carries exactly the keys Stoke needs (plus NO2 and N2O)", () => {
     const required = [
-      "CH4", "C2H6", "C3H8", "nC4H10", "iC4H10", "nC5H12", "nC6H14", "H2", "CO", "CO2", "H2O", "N2", "O2",
-      "Ar", "H2S", "SO2", "NH3", "NO", "OH", "H", "O", "CH3OH", "C2H5OH", "H2O(L)", "NO2", "N2O",
+      "CH4",
+      "C2H6",
+      "C3H8",
+      "nC4H10",
+      "iC4H10",
+      "nC5H12",
+      "nC6H14",
+      "H2",
+      "CO",
+      "CO2",
+      "H2O",
+      "N2",
+      "O2",
+      "Ar",
+      "H2S",
+      "SO2",
+      "NH3",
+      "NO",
+      "OH",
+      "H",
+      "O",
+      "CH3OH",
+      "C2H5OH",
+      "H2O(L)",
+      "NO2",
+      "N2O",
     ];
     expect([...SPECIES_KEYS].sort()).toEqual([...required].sort());
     expect(Object.keys(SPECIES).sort()).toEqual([...required].sort());
@@ -94,20 +118,20 @@ describe("NIST-JANAF 4th ed. (Chase 1998), 1 bar: cp and H − H°(298.15 K)", (
     { key: "N2", T: 1000, cp: 32.697, dH_kJ: 21.463, cpTol: 0.003, dHTol: 0.003, note: "JANAF, confirmed" },
     { key: "N2", T: 2000, cp: 35.971, dH_kJ: 56.137, cpTol: 0.003, dHTol: 0.003, note: "JANAF, confirmed" },
     // O2: JANAF 4th ed., O2 table (confirmed)
-    { key: "O2", T: 1000, cp: 34.870, dH_kJ: 22.703, cpTol: 0.003, dHTol: 0.003, note: "JANAF, confirmed" },
+    { key: "O2", T: 1000, cp: 34.87, dH_kJ: 22.703, cpTol: 0.003, dHTol: 0.003, note: "JANAF, confirmed" },
     // cp at 2000 K: the NASA Glenn 9-coefficient record lies 0.11 % above JANAF (37.784) and the
     // 7-coefficient fit adds 0.19 %: 0.302 % in all, so 0.35 % here.
     { key: "O2", T: 2000, cp: 37.741, dH_kJ: 59.175, cpTol: 0.0035, dHTol: 0.003, note: "JANAF, confirmed" },
     // CO2: JANAF 4th ed., CO2 table; cp values from memory, H − H298 confirmed
     { key: "CO2", T: 1000, cp: 54.308, dH_kJ: 33.397, cpTol: 0.003, dHTol: 0.003, note: "cp value from memory" },
-    { key: "CO2", T: 2000, cp: 60.350, dH_kJ: 91.439, cpTol: 0.003, dHTol: 0.003, note: "cp value from memory" },
+    { key: "CO2", T: 2000, cp: 60.35, dH_kJ: 91.439, cpTol: 0.003, dHTol: 0.003, note: "cp value from memory" },
     // H2O(g): JANAF 4th ed., H2O(g) table (confirmed)
-    { key: "H2O", T: 1000, cp: 41.268, dH_kJ: 26.000, cpTol: 0.003, dHTol: 0.003, note: "JANAF, confirmed" },
+    { key: "H2O", T: 1000, cp: 41.268, dH_kJ: 26.0, cpTol: 0.003, dHTol: 0.003, note: "JANAF, confirmed" },
     // At 2000 K the NASA Glenn water data differ from JANAF by themselves: the parent 9-coefficient
     // record gives cp = 51.755 J/(mol·K) and H − H298 = 73.043 kJ/mol, 1.1 % and 0.35 %
     // above JANAF (NASA Glenn takes water from a later evaluation than JANAF's; value from memory).
     // So the tolerance is the database difference, not the fit: 1.2 % on cp, 0.5 % on H − H298.
-    { key: "H2O", T: 2000, cp: 51.180, dH_kJ: 72.790, cpTol: 0.012, dHTol: 0.005, note: "JANAF, confirmed" },
+    { key: "H2O", T: 2000, cp: 51.18, dH_kJ: 72.79, cpTol: 0.012, dHTol: 0.005, note: "JANAF, confirmed" },
   ];
   for (const r of rows) {
     it(`${r.key} at ${r.T} K (${r.note})`, () => {
@@ -261,16 +285,28 @@ describe("fidelity to the NASA Glenn 9-coefficient records", () => {
     const [a, b] = pick(r, T);
     return (
       R_J_per_molK *
-      (-a[0] / T + a[1] * Math.log(T) + a[2] * T + (a[3] * T ** 2) / 2 + (a[4] * T ** 3) / 3 + (a[5] * T ** 4) / 4 +
-        (a[6] * T ** 5) / 5 + b[0])
+      (-a[0] / T +
+        a[1] * Math.log(T) +
+        a[2] * T +
+        (a[3] * T ** 2) / 2 +
+        (a[4] * T ** 3) / 3 +
+        (a[5] * T ** 4) / 4 +
+        (a[6] * T ** 5) / 5 +
+        b[0])
     );
   };
   const s9 = (r: Nasa9, T: number) => {
     const [a, b] = pick(r, T);
     return (
       R_J_per_molK *
-      (-a[0] / (2 * T ** 2) - a[1] / T + a[2] * Math.log(T) + a[3] * T + (a[4] * T ** 2) / 2 + (a[5] * T ** 3) / 3 +
-        (a[6] * T ** 4) / 4 + b[1])
+      (-a[0] / (2 * T ** 2) -
+        a[1] / T +
+        a[2] * Math.log(T) +
+        a[3] * T +
+        (a[4] * T ** 2) / 2 +
+        (a[5] * T ** 3) / 3 +
+        (a[6] * T ** 4) / 4 +
+        b[1])
     );
   };
 

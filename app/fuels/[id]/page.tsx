@@ -94,7 +94,9 @@ function Definition({ sheet }: { sheet: FuelSheet }) {
           : "Channiwala & Parikh (2002) correlation";
     return (
       <>
-        <p className="basis">Ultimate analysis, mass fractions as received ({def.kind ?? "solid"}). Heating value: {hv}.</p>
+        <p className="basis">
+          Ultimate analysis, mass fractions as received ({def.kind ?? "solid"}). Heating value: {hv}.
+        </p>
         <div className="table-wrap">
           <table>
             <thead>
@@ -122,7 +124,10 @@ function Definition({ sheet }: { sheet: FuelSheet }) {
   }
   return (
     <>
-      <p className="basis">Blend of stored fuels by {sheet.components[0]?.basis ?? "volume"} share{sheet.components[0]?.basis === "energy" ? " (net basis)" : ""}.</p>
+      <p className="basis">
+        Blend of stored fuels by {sheet.components[0]?.basis ?? "volume"} share
+        {sheet.components[0]?.basis === "energy" ? " (net basis)" : ""}.
+      </p>
       <div className="table-wrap">
         <table>
           <thead>
@@ -196,7 +201,12 @@ export default async function FuelSheetPage({ params, searchParams }: Props) {
           <Link className="button secondary" href={`/fuels/${fuel.id}/edit`}>
             Edit fuel
           </Link>
-          <DeleteButton url={`/api/fuels/${fuel.id}`} after="/fuels" label="Delete fuel" confirmText={`Delete “${fuel.name}” and its price history? This cannot be undone.`} />
+          <DeleteButton
+            url={`/api/fuels/${fuel.id}`}
+            after="/fuels"
+            label="Delete fuel"
+            confirmText={`Delete “${fuel.name}” and its price history? This cannot be undone.`}
+          />
         </div>
       </div>
 
@@ -224,7 +234,11 @@ export default async function FuelSheetPage({ params, searchParams }: Props) {
             )}
             <dt>Upstream CO2e</dt>
             <dd>
-              {fuel.upstreamCo2e_kg_per_GJ === null ? <span className="na">not stated</span> : `${fmtUpTo(fuel.upstreamCo2e_kg_per_GJ, 2)} kg/GJ (net)`}
+              {fuel.upstreamCo2e_kg_per_GJ === null ? (
+                <span className="na">not stated</span>
+              ) : (
+                `${fmtUpTo(fuel.upstreamCo2e_kg_per_GJ, 2)} kg/GJ (net)`
+              )}
             </dd>
             {sheet.usedInBlends.length > 0 && (
               <>
@@ -287,8 +301,8 @@ export default async function FuelSheetPage({ params, searchParams }: Props) {
             </button>
           </form>
           <p className="basis">
-            Combustion reference {p.reference.combustionReferenceC} °C. {gas || liquid ? `Volumes: ${p.reference.volumetricBasis}.` : ""} Air:{" "}
-            {p.reference.airBasis}.
+            Combustion reference {p.reference.combustionReferenceC} °C. {gas || liquid ? `Volumes: ${p.reference.volumetricBasis}.` : ""}{" "}
+            Air: {p.reference.airBasis}.
           </p>
           <div className="table-wrap">
             <table>
@@ -348,11 +362,20 @@ export default async function FuelSheetPage({ params, searchParams }: Props) {
           <div className="grid2">
             <section>
               <h2>{gas ? "Interchangeability" : "Physical data"}</h2>
-              {gas && <p className="basis">Real gas at {meteringLabel(tm)}, 101.325 kPa (ISO 6976:2016); Wobbe index at the combustion reference above.</p>}
+              {gas && (
+                <p className="basis">
+                  Real gas at {meteringLabel(tm)}, 101.325 kPa (ISO 6976:2016); Wobbe index at the combustion reference above.
+                </p>
+              )}
               <KV
                 rows={[
                   ["Molar mass", p.molarMass_g_per_mol, "g/mol", 3],
-                  ["Density", gas ? p.gasDensity_kg_per_m3 : p.density_kg_per_m3 ?? null, gas ? "kg/m³" : fuel.kind === "solid" ? "kg/m³ (bulk)" : "kg/m³ (15 °C)", gas ? 4 : 1],
+                  [
+                    "Density",
+                    gas ? p.gasDensity_kg_per_m3 : (p.density_kg_per_m3 ?? null),
+                    gas ? "kg/m³" : fuel.kind === "solid" ? "kg/m³ (bulk)" : "kg/m³ (15 °C)",
+                    gas ? 4 : 1,
+                  ],
                   ["Relative density (air = 1)", p.relativeDensity, "", 4],
                   ["Compression factor Z", p.compressionFactor, "", 5],
                   ["Wobbe index, gross", p.wobbe?.gross_MJ_per_m3, "MJ/m³", 2],
@@ -391,7 +414,14 @@ export default async function FuelSheetPage({ params, searchParams }: Props) {
                   ["Water vapour, wet", p.flueGas.water_wet_percent, "vol %", 2],
                   ["Water dew point", p.flueGas.dewPoint_C, "°C", 1],
                   ...(p.flueGas.acidDewPoint_C !== null
-                    ? [["Acid dew point (2 % of SO2 as SO3; Verhoff & Banchero)", p.flueGas.acidDewPoint_C, "°C", 0] as [string, number, string, number]]
+                    ? [
+                        ["Acid dew point (2 % of SO2 as SO3; Verhoff & Banchero)", p.flueGas.acidDewPoint_C, "°C", 0] as [
+                          string,
+                          number,
+                          string,
+                          number,
+                        ],
+                      ]
                     : []),
                 ]}
               />
@@ -430,7 +460,13 @@ export default async function FuelSheetPage({ params, searchParams }: Props) {
                   <tr>
                     <th scope="row">Upstream CO2e (stated)</th>
                     <td className="num na">–</td>
-                    <td className="num">{p.co2.upstreamCo2e_kg_per_GJ_lhv !== undefined ? fmt(p.co2.upstreamCo2e_kg_per_GJ_lhv, 1) : <span className="na">–</span>}</td>
+                    <td className="num">
+                      {p.co2.upstreamCo2e_kg_per_GJ_lhv !== undefined ? (
+                        fmt(p.co2.upstreamCo2e_kg_per_GJ_lhv, 1)
+                      ) : (
+                        <span className="na">–</span>
+                      )}
+                    </td>
                   </tr>
                   <tr>
                     <th scope="row">CO2 per kg fuel</th>
@@ -445,8 +481,8 @@ export default async function FuelSheetPage({ params, searchParams }: Props) {
 
           <h2>Adiabatic flame temperature in air</h2>
           <p className="basis">
-            Fuel and dry air at 25 °C, 101.325 kPa. Three methods, each labelled; they differ by design (dissociation lowers the equilibrium value).{" "}
-            <Link href={`/fuels/${fuel.id}/phi`}>Flame temperature against φ (lean to rich) →</Link>
+            Fuel and dry air at 25 °C, 101.325 kPa. Three methods, each labelled; they differ by design (dissociation lowers the equilibrium
+            value). <Link href={`/fuels/${fuel.id}/phi`}>Flame temperature against φ (lean to rich) →</Link>
           </p>
           <div className="table-wrap">
             <table>
@@ -489,7 +525,11 @@ export default async function FuelSheetPage({ params, searchParams }: Props) {
 
       <h2 id="prices">Prices</h2>
       <h3>Current quotes side by side</h3>
-      <QuoteComparison fuelId={fuel.id} carbon={typeof sp.carbon === "string" ? sp.carbon : undefined} currency={typeof sp.currency === "string" ? sp.currency : undefined} />
+      <QuoteComparison
+        fuelId={fuel.id}
+        carbon={typeof sp.carbon === "string" ? sp.carbon : undefined}
+        currency={typeof sp.currency === "string" ? sp.currency : undefined}
+      />
       <h3>Price history</h3>
       <PriceHistory fuelId={fuel.id} fuelKind={fuel.kind} prices={sheet.prices} />
 

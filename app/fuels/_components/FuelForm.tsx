@@ -5,7 +5,14 @@ import { saveAndOpen } from "@/app/_ui/save";
 import { useRouter } from "next/navigation";
 import { useMemo, useState } from "react";
 import { ErrorSummary, Field, FieldError, invalid, toNumber, type Errors } from "./fields";
-import { COMPOSITION_SCALES, NORMALISE_TOLERANCE_PERCENT, checkSum, normaliseComposition, scaleFactor, type CompositionScale } from "@/lib/schemas/composition-entry";
+import {
+  COMPOSITION_SCALES,
+  NORMALISE_TOLERANCE_PERCENT,
+  checkSum,
+  normaliseComposition,
+  scaleFactor,
+  type CompositionScale,
+} from "@/lib/schemas/composition-entry";
 
 export interface FuelFormOptions {
   species: { key: string; name: string }[];
@@ -170,7 +177,10 @@ export function FuelForm({ options, initial }: { options: FuelFormOptions; initi
   const [message, setMessage] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
 
-  const candidates = useMemo(() => options.storedFuels.filter((f) => f.kind === kind && f.id !== initial?.id), [options.storedFuels, kind, initial?.id]);
+  const candidates = useMemo(
+    () => options.storedFuels.filter((f) => f.kind === kind && f.id !== initial?.id),
+    [options.storedFuels, kind, initial?.id],
+  );
   const isBlend = form === "blend";
 
   function changeKind(k: Kind) {
@@ -179,10 +189,16 @@ export function FuelForm({ options, initial }: { options: FuelFormOptions; initi
   }
 
   function placed(key: string): boolean {
-    if (["name", "kind", "densityKgPerM3", "biogenicCarbonShare", "upstreamCo2e_kg_per_GJ", "notes", "source", "definition"].includes(key)) return true;
+    if (["name", "kind", "densityKgPerM3", "biogenicCarbonShare", "upstreamCo2e_kg_per_GJ", "notes", "source", "definition"].includes(key))
+      return true;
     if (key === "definition.composition" || key.startsWith("definition.composition.")) return form === "composition";
     if (key === "definition.compound") return form === "compound";
-    if (key === "definition.ultimate" || key.startsWith("definition.ultimate.") || /^definition\.(hhv|lhv)_MJ_per_kg$|^definition\.correlation$/.test(key)) return form === "ultimate";
+    if (
+      key === "definition.ultimate" ||
+      key.startsWith("definition.ultimate.") ||
+      /^definition\.(hhv|lhv)_MJ_per_kg$|^definition\.correlation$/.test(key)
+    )
+      return form === "ultimate";
     if (key === "blend" || key.startsWith("blend.")) return isBlend;
     return false;
   }
@@ -269,7 +285,14 @@ export function FuelForm({ options, initial }: { options: FuelFormOptions; initi
         <legend>Fuel</legend>
         <div className="row">
           <Field label="Name" name="name" errors={errors}>
-            <input id="f-name" name="name" value={name} onChange={(e) => setName(e.target.value)} maxLength={120} {...invalid(errors, "name")} />
+            <input
+              id="f-name"
+              name="name"
+              value={name}
+              onChange={(e) => setName(e.target.value)}
+              maxLength={120}
+              {...invalid(errors, "name")}
+            />
           </Field>
           <div className="field">
             <span className="label">Kind</span>
@@ -300,12 +323,18 @@ export function FuelForm({ options, initial }: { options: FuelFormOptions; initi
           <legend>Composition</legend>
           <div className="row" style={{ alignItems: "center", marginTop: 0 }}>
             <p className="hint muted" style={{ margin: 0 }}>
-              Mole (= volume, ideal gas) shares, as fractions summing to 1 or in mol % summing to 100 (within 0.1 %); a certificate a little off
-              (up to ±{NORMALISE_TOLERANCE_PERCENT} mol %) can be normalised, and the residual is recorded in the notes.
+              Mole (= volume, ideal gas) shares, as fractions summing to 1 or in mol % summing to 100 (within 0.1 %); a certificate a little
+              off (up to ±{NORMALISE_TOLERANCE_PERCENT} mol %) can be normalised, and the residual is recorded in the notes.
             </p>
             <span className="segmented" role="group" aria-label="Composition entered as">
               {COMPOSITION_SCALES.map((sc) => (
-                <button key={sc} type="button" aria-pressed={scale === sc} className={`seg${scale === sc ? " on" : ""}`} onClick={() => setScale(sc)}>
+                <button
+                  key={sc}
+                  type="button"
+                  aria-pressed={scale === sc}
+                  className={`seg${scale === sc ? " on" : ""}`}
+                  onClick={() => setScale(sc)}
+                >
                   {sc === "percent" ? "mol %" : "fraction"}
                 </button>
               ))}
@@ -352,7 +381,12 @@ export function FuelForm({ options, initial }: { options: FuelFormOptions; initi
                       />
                     </td>
                     <td>
-                      <button type="button" className="secondary small" aria-label={`Remove row ${i + 1}`} onClick={() => setRows(rows.filter((_, j) => j !== i))}>
+                      <button
+                        type="button"
+                        className="secondary small"
+                        aria-label={`Remove row ${i + 1}`}
+                        onClick={() => setRows(rows.filter((_, j) => j !== i))}
+                      >
                         ✕
                       </button>
                     </td>
@@ -375,7 +409,12 @@ export function FuelForm({ options, initial }: { options: FuelFormOptions; initi
         <fieldset>
           <legend>Compound</legend>
           <Field label="Liquid compound" name="definition.compound" errors={errors} htmlFor="f-compound">
-            <select id="f-compound" value={compound} onChange={(e) => setCompound(e.target.value)} {...invalid(errors, "definition.compound")}>
+            <select
+              id="f-compound"
+              value={compound}
+              onChange={(e) => setCompound(e.target.value)}
+              {...invalid(errors, "definition.compound")}
+            >
               {options.compounds.map((c) => (
                 <option key={c.key} value={c.key}>
                   {c.name} ({c.key}) — {c.role}
@@ -419,7 +458,8 @@ export function FuelForm({ options, initial }: { options: FuelFormOptions; initi
                 <input type="radio" name="hv" checked={hvMode === "hhv"} onChange={() => setHvMode("hhv")} /> measured gross (HHV)
               </label>
               <label>
-                <input type="radio" name="hv" checked={hvMode === "correlation"} onChange={() => setHvMode("correlation")} /> estimate (Channiwala &amp; Parikh 2002)
+                <input type="radio" name="hv" checked={hvMode === "correlation"} onChange={() => setHvMode("correlation")} /> estimate
+                (Channiwala &amp; Parikh 2002)
               </label>
             </div>
           </div>
@@ -450,11 +490,18 @@ export function FuelForm({ options, initial }: { options: FuelFormOptions; initi
           <legend>Blend</legend>
           {candidates.length < 2 ? (
             <p className="note warn">
-              A blend is built from stored {kind === "gas" ? "gases" : `${kind}s`}; there are fewer than two. <Link href="/fuels/new">Add the components first</Link>.
+              A blend is built from stored {kind === "gas" ? "gases" : `${kind}s`}; there are fewer than two.{" "}
+              <Link href="/fuels/new">Add the components first</Link>.
             </p>
           ) : null}
           <Field label="Shares by" name="blend.basis" errors={errors} htmlFor="f-basis">
-            <select id="f-basis" value={basis} onChange={(e) => setBasis(e.target.value)} style={{ maxWidth: "16rem" }} {...invalid(errors, "blend.basis")}>
+            <select
+              id="f-basis"
+              value={basis}
+              onChange={(e) => setBasis(e.target.value)}
+              style={{ maxWidth: "16rem" }}
+              {...invalid(errors, "blend.basis")}
+            >
               {kind !== "solid" && <option value="volume">volume{kind === "gas" ? " (= mole)" : ""}</option>}
               <option value="mass">mass</option>
               <option value="energy">energy (net basis)</option>
@@ -499,7 +546,12 @@ export function FuelForm({ options, initial }: { options: FuelFormOptions; initi
                     <FieldError errors={errors} name={`blend.components.${i}.share`} />
                   </td>
                   <td>
-                    <button type="button" className="secondary small" aria-label={`Remove component ${i + 1}`} onClick={() => setBlendRows(blendRows.filter((_, j) => j !== i))}>
+                    <button
+                      type="button"
+                      className="secondary small"
+                      aria-label={`Remove component ${i + 1}`}
+                      onClick={() => setBlendRows(blendRows.filter((_, j) => j !== i))}
+                    >
                       ✕
                     </button>
                   </td>
@@ -531,14 +583,35 @@ export function FuelForm({ options, initial }: { options: FuelFormOptions; initi
                 errors={errors}
                 hint={kind === "liquid" ? "needed for prices per litre; a pure compound has its own" : "needed for prices per m³"}
               >
-                <input id="f-densityKgPerM3" inputMode="decimal" className="num" value={density} onChange={(e) => setDensity(e.target.value)} {...invalid(errors, "densityKgPerM3")} />
+                <input
+                  id="f-densityKgPerM3"
+                  inputMode="decimal"
+                  className="num"
+                  value={density}
+                  onChange={(e) => setDensity(e.target.value)}
+                  {...invalid(errors, "densityKgPerM3")}
+                />
               </Field>
             )}
             <Field label="Biogenic carbon share (0–1)" name="biogenicCarbonShare" errors={errors} hint="1 = all carbon from biomass">
-              <input id="f-biogenicCarbonShare" inputMode="decimal" className="num" value={biogenic} onChange={(e) => setBiogenic(e.target.value)} {...invalid(errors, "biogenicCarbonShare")} />
+              <input
+                id="f-biogenicCarbonShare"
+                inputMode="decimal"
+                className="num"
+                value={biogenic}
+                onChange={(e) => setBiogenic(e.target.value)}
+                {...invalid(errors, "biogenicCarbonShare")}
+              />
             </Field>
             <Field label="Upstream CO2e, kg/GJ (net)" name="upstreamCo2e_kg_per_GJ" errors={errors} hint="optional well-to-tank factor">
-              <input id="f-upstreamCo2e_kg_per_GJ" inputMode="decimal" className="num" value={upstream} onChange={(e) => setUpstream(e.target.value)} {...invalid(errors, "upstreamCo2e_kg_per_GJ")} />
+              <input
+                id="f-upstreamCo2e_kg_per_GJ"
+                inputMode="decimal"
+                className="num"
+                value={upstream}
+                onChange={(e) => setUpstream(e.target.value)}
+                {...invalid(errors, "upstreamCo2e_kg_per_GJ")}
+              />
             </Field>
           </div>
         </fieldset>

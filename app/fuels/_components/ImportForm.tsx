@@ -49,17 +49,23 @@ export function ImportForm() {
         <legend>Import a library file</legend>
         <div className="field">
           <label htmlFor="f-file">File (.json or .csv, as exported by Stoke)</label>
-          <input id="f-file" type="file" accept=".json,.csv,application/json,text/csv" onChange={(e) => setFile(e.target.files?.[0] ?? null)} />
+          <input
+            id="f-file"
+            type="file"
+            accept=".json,.csv,application/json,text/csv"
+            onChange={(e) => setFile(e.target.files?.[0] ?? null)}
+          />
         </div>
         <div className="field" style={{ marginTop: "0.75rem" }}>
           <span className="label">Fuels whose name is already in the library</span>
           <div className="radio-row">
             <label>
-              <input type="radio" name="onExisting" checked={onExisting === "reject"} onChange={() => setOnExisting("reject")} /> stop the import
+              <input type="radio" name="onExisting" checked={onExisting === "reject"} onChange={() => setOnExisting("reject")} /> stop the
+              import
             </label>
             <label>
-              <input type="radio" name="onExisting" checked={onExisting === "skip"} onChange={() => setOnExisting("skip")} /> skip them (keep the
-              library&apos;s version)
+              <input type="radio" name="onExisting" checked={onExisting === "skip"} onChange={() => setOnExisting("skip")} /> skip them
+              (keep the library&apos;s version)
             </label>
           </div>
         </div>

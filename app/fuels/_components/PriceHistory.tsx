@@ -71,7 +71,19 @@ function emptyDraft(currency: string, kind: string): Draft {
   };
 }
 
-const PLACED = new Set(["amount", "currency", "unit", "energyBasis", "meteringReference", "transportAdder", "handlingAdder", "validFrom", "sourceNote", "supplier", "isInvented"]);
+const PLACED = new Set([
+  "amount",
+  "currency",
+  "unit",
+  "energyBasis",
+  "meteringReference",
+  "transportAdder",
+  "handlingAdder",
+  "validFrom",
+  "sourceNote",
+  "supplier",
+  "isInvented",
+]);
 
 export function PriceHistory({ fuelId, fuelKind, prices }: { fuelId: number; fuelKind: string; prices: PriceView[] }) {
   const router = useRouter();
@@ -142,7 +154,11 @@ export function PriceHistory({ fuelId, fuelKind, prices }: { fuelId: number; fue
       ...(confirmImplausible ? { confirmImplausible: true } : {}),
     };
     const url = editing === null ? `/api/fuels/${fuelId}/prices` : `/api/fuels/${fuelId}/prices/${editing}`;
-    const res = await fetch(url, { method: editing === null ? "POST" : "PUT", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
+    const res = await fetch(url, {
+      method: editing === null ? "POST" : "PUT",
+      headers: { "content-type": "application/json" },
+      body: JSON.stringify(body),
+    });
     const out = await res.json().catch(() => ({}));
     setBusy(false);
     if (!res.ok) {
@@ -155,7 +171,9 @@ export function PriceHistory({ fuelId, fuelKind, prices }: { fuelId: number; fue
     setMessage(null);
     setWarnings(null);
     const noted = Array.isArray(out.warnings) && out.warnings.length ? ` Note: ${out.warnings.join("; ")}.` : "";
-    setSaved(`${editing === null ? "Quote added." : `Correction stored as quote #${out.id}; quote #${editing} stays on record, marked superseded.`}${noted}`);
+    setSaved(
+      `${editing === null ? "Quote added." : `Correction stored as quote #${out.id}; quote #${editing} stays on record, marked superseded.`}${noted}`,
+    );
     setEditing(null);
     setDraft(emptyDraft(draft.currency, fuelKind));
     setFormOpen(false);
@@ -163,18 +181,26 @@ export function PriceHistory({ fuelId, fuelKind, prices }: { fuelId: number; fue
   }
 
   async function withdraw(p: PriceView) {
-    if (!window.confirm(`Withdraw the quote of ${p.quote.validFrom}? It stays on record but prices nothing; studies that chose it fall back to their rule.`)) return;
+    if (
+      !window.confirm(
+        `Withdraw the quote of ${p.quote.validFrom}? It stays on record but prices nothing; studies that chose it fall back to their rule.`,
+      )
+    )
+      return;
     const res = await fetch(`/api/fuels/${fuelId}/prices/${p.quote.id}/withdraw`, { method: "POST" });
     const out = await res.json().catch(() => ({}));
     if (res.ok) {
       const affected: { name: string; scenario: string }[] = out.affectedStudies ?? [];
-      setSaved(`Quote #${p.quote.id} withdrawn.${affected.length ? ` Now priced by their rule: ${affected.map((a) => `${a.name} (${a.scenario})`).join(", ")}.` : ""}`);
+      setSaved(
+        `Quote #${p.quote.id} withdrawn.${affected.length ? ` Now priced by their rule: ${affected.map((a) => `${a.name} (${a.scenario})`).join(", ")}.` : ""}`,
+      );
       router.refresh();
     } else setMessage(out.error ?? `Could not withdraw (HTTP ${res.status}).`);
   }
 
   async function remove(p: PriceView) {
-    if (!window.confirm(`Delete the quote of ${p.quote.validFrom} (${fmtUpTo(p.quote.amount, 4)} ${p.quote.currency}/${p.unitLabel})?`)) return;
+    if (!window.confirm(`Delete the quote of ${p.quote.validFrom} (${fmtUpTo(p.quote.amount, 4)} ${p.quote.currency}/${p.unitLabel})?`))
+      return;
     const res = await fetch(`/api/fuels/${fuelId}/prices/${p.quote.id}`, { method: "DELETE" });
     if (res.ok) {
       setSaved("Quote deleted.");
@@ -189,17 +215,21 @@ export function PriceHistory({ fuelId, fuelKind, prices }: { fuelId: number; fue
   return (
     <>
       <p className="basis">
-        Delivered cost = commodity + transport + handling, converted with this fuel&apos;s own heating values (25 °C combustion
-        reference) and density. Newest first; the quote in force today is marked. Currency as quoted. A correction adds a new
-        version and keeps the old one (marked superseded); a withdrawn quote stays on record but prices nothing; a quote an issued
-        study revision used cannot be deleted. A price outside the plausible range for its unit asks for a confirmation.
+        Delivered cost = commodity + transport + handling, converted with this fuel&apos;s own heating values (25 °C combustion reference)
+        and density. Newest first; the quote in force today is marked. Currency as quoted. A correction adds a new version and keeps the old
+        one (marked superseded); a withdrawn quote stays on record but prices nothing; a quote an issued study revision used cannot be
+        deleted. A price outside the plausible range for its unit asks for a confirmation.
       </p>
       {anyInvented && (
         <p className="note warn">
           <span className="badge invented">invented</span> quotes are demo figures, not market prices.
         </p>
       )}
-      {saved && <p className="form-ok" role="status">{saved}</p>}
+      {saved && (
+        <p className="form-ok" role="status">
+          {saved}
+        </p>
+      )}
       {prices.length > 0 ? (
         <div className="table-wrap">
           <table>
@@ -252,7 +282,10 @@ export function PriceHistory({ fuelId, fuelKind, prices }: { fuelId: number; fue
                         </>
                       )}
                       <br />
-                      <small className="muted">#{q.id}{q.supersedesId !== null ? `, corrects #${q.supersedesId}` : ""}</small>
+                      <small className="muted">
+                        #{q.id}
+                        {q.supersedesId !== null ? `, corrects #${q.supersedesId}` : ""}
+                      </small>
                     </td>
                     <td>
                       <span style={{ whiteSpace: "nowrap" }}>
@@ -305,7 +338,9 @@ export function PriceHistory({ fuelId, fuelKind, prices }: { fuelId: number; fue
       ) : (
         <p className="muted">No price quotes yet.</p>
       )}
-      {prices.length > 0 && prices.every((p) => !p.current) && <p className="note">No quote is in force today (all are dated in the future).</p>}
+      {prices.length > 0 && prices.every((p) => !p.current) && (
+        <p className="note">No quote is in force today (all are dated in the future).</p>
+      )}
 
       {!formOpen ? (
         <p className="no-print" style={{ marginTop: "0.75rem" }}>
@@ -330,10 +365,31 @@ export function PriceHistory({ fuelId, fuelKind, prices }: { fuelId: number; fue
             )}
             <div className="row" style={{ marginTop: "0.5rem" }}>
               <Field label="Price" name="amount" errors={errors} hint="commodity price per unit">
-                <input id="f-amount" name="amount" inputMode="decimal" className="num" value={draft.amount} onChange={set("amount")} {...invalid(errors, "amount")} />
+                <input
+                  id="f-amount"
+                  name="amount"
+                  inputMode="decimal"
+                  className="num"
+                  value={draft.amount}
+                  onChange={set("amount")}
+                  {...invalid(errors, "amount")}
+                />
               </Field>
-              <Field label="Currency" name="currency" errors={errors} hint="ISO 4217 code, e.g. EUR; converted into a study's currency with the exchange-rate table">
-                <input id="f-currency" name="currency" value={draft.currency} onChange={set("currency")} maxLength={3} style={{ textTransform: "uppercase" }} {...invalid(errors, "currency")} />
+              <Field
+                label="Currency"
+                name="currency"
+                errors={errors}
+                hint="ISO 4217 code, e.g. EUR; converted into a study's currency with the exchange-rate table"
+              >
+                <input
+                  id="f-currency"
+                  name="currency"
+                  value={draft.currency}
+                  onChange={set("currency")}
+                  maxLength={3}
+                  style={{ textTransform: "uppercase" }}
+                  {...invalid(errors, "currency")}
+                />
               </Field>
               <Field label="Per unit" name="unit" errors={errors}>
                 <select id="f-unit" name="unit" value={draft.unit} onChange={set("unit")} {...invalid(errors, "unit")}>
@@ -350,7 +406,13 @@ export function PriceHistory({ fuelId, fuelKind, prices }: { fuelId: number; fue
               </Field>
               {isEnergy && (
                 <Field label="Energy basis" name="energyBasis" errors={errors}>
-                  <select id="f-energyBasis" name="energyBasis" value={draft.energyBasis} onChange={set("energyBasis")} {...invalid(errors, "energyBasis")}>
+                  <select
+                    id="f-energyBasis"
+                    name="energyBasis"
+                    value={draft.energyBasis}
+                    onChange={set("energyBasis")}
+                    {...invalid(errors, "energyBasis")}
+                  >
                     <option value="">— choose —</option>
                     <option value="gross">gross (HHV)</option>
                     <option value="net">net (LHV)</option>
@@ -359,7 +421,13 @@ export function PriceHistory({ fuelId, fuelKind, prices }: { fuelId: number; fue
               )}
               {showMetering && (
                 <Field label="Metering reference" name="meteringReference" errors={errors} hint="at 101.325 kPa">
-                  <select id="f-meteringReference" name="meteringReference" value={draft.meteringReference} onChange={set("meteringReference")} {...invalid(errors, "meteringReference")}>
+                  <select
+                    id="f-meteringReference"
+                    name="meteringReference"
+                    value={draft.meteringReference}
+                    onChange={set("meteringReference")}
+                    {...invalid(errors, "meteringReference")}
+                  >
                     <option value="">— choose —</option>
                     {METERING.map((m) => (
                       <option key={m.value} value={m.value}>
@@ -372,24 +440,53 @@ export function PriceHistory({ fuelId, fuelKind, prices }: { fuelId: number; fue
             </div>
             <div className="row">
               <Field label="Transport / network adder" name="transportAdder" errors={errors} hint="same currency and unit as the price">
-                <input id="f-transportAdder" name="transportAdder" inputMode="decimal" className="num" value={draft.transportAdder} onChange={set("transportAdder")} {...invalid(errors, "transportAdder")} />
+                <input
+                  id="f-transportAdder"
+                  name="transportAdder"
+                  inputMode="decimal"
+                  className="num"
+                  value={draft.transportAdder}
+                  onChange={set("transportAdder")}
+                  {...invalid(errors, "transportAdder")}
+                />
               </Field>
               <Field label="Handling / storage adder" name="handlingAdder" errors={errors} hint="same currency and unit as the price">
-                <input id="f-handlingAdder" name="handlingAdder" inputMode="decimal" className="num" value={draft.handlingAdder} onChange={set("handlingAdder")} {...invalid(errors, "handlingAdder")} />
+                <input
+                  id="f-handlingAdder"
+                  name="handlingAdder"
+                  inputMode="decimal"
+                  className="num"
+                  value={draft.handlingAdder}
+                  onChange={set("handlingAdder")}
+                  {...invalid(errors, "handlingAdder")}
+                />
               </Field>
               <Field label="Valid from" name="validFrom" errors={errors}>
-                <input id="f-validFrom" name="validFrom" type="date" value={draft.validFrom} onChange={set("validFrom")} {...invalid(errors, "validFrom")} />
+                <input
+                  id="f-validFrom"
+                  name="validFrom"
+                  type="date"
+                  value={draft.validFrom}
+                  onChange={set("validFrom")}
+                  {...invalid(errors, "validFrom")}
+                />
               </Field>
             </div>
             <Field label="Supplier" name="supplier" errors={errors} hint="who offers the price (quotes are compared per supplier)">
               <input id="f-supplier" name="supplier" value={draft.supplier} onChange={set("supplier")} {...invalid(errors, "supplier")} />
             </Field>
             <Field label="Source" name="sourceNote" errors={errors} hint="offer reference, index …">
-              <input id="f-sourceNote" name="sourceNote" value={draft.sourceNote} onChange={set("sourceNote")} {...invalid(errors, "sourceNote")} />
+              <input
+                id="f-sourceNote"
+                name="sourceNote"
+                value={draft.sourceNote}
+                onChange={set("sourceNote")}
+                {...invalid(errors, "sourceNote")}
+              />
             </Field>
             <label style={{ display: "inline-flex", gap: "0.4rem", marginTop: "0.5rem", fontWeight: 400 }}>
-              <input type="checkbox" name="isInvented" checked={draft.isInvented} onChange={set("isInvented")} /> Example figure, not a real quote (shown as
-              “invented”)
+              <input type="checkbox" name="isInvented" checked={draft.isInvented} onChange={set("isInvented")} /> Example figure, not a real
+              quote (shown as “invented”)
             </label>
             <div className="row" style={{ marginTop: "0.75rem" }}>
               <button type="submit" disabled={busy}>

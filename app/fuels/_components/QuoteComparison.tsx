@@ -7,7 +7,15 @@ import { quoteComparison } from "@/lib/services/fuel-views";
 import { isCurrencyCode } from "@/lib/schemas/currencies";
 import { fmtUpTo, money } from "../../_ui/format";
 
-export async function QuoteComparison({ fuelId, carbon, currency }: { fuelId: number; carbon: string | undefined; currency: string | undefined }) {
+export async function QuoteComparison({
+  fuelId,
+  carbon,
+  currency,
+}: {
+  fuelId: number;
+  carbon: string | undefined;
+  currency: string | undefined;
+}) {
   const carbonPrice = carbon !== undefined && /^\d+(\.\d+)?$/.test(carbon) ? Number(carbon) : undefined;
   const cur = currency && isCurrencyCode(currency.toUpperCase()) ? currency.toUpperCase() : undefined;
   const c = await quoteComparison(db(), fuelId, { carbonPrice_per_t: carbonPrice, currency: cur });
@@ -28,10 +36,12 @@ export async function QuoteComparison({ fuelId, carbon, currency }: { fuelId: nu
         </button>
       </form>
       <p className="basis">
-        Latest live quote valid today of each supplier, in {c.currency} (other currencies converted at the rate in force on the
-        quote&apos;s date). Carbon cost on the fossil CO2
-        {c.fossilCo2_kg_per_GJ ? ` (${fmtUpTo(c.fossilCo2_kg_per_GJ.gross, 2)} kg/GJ gross, ${fmtUpTo(c.fossilCo2_kg_per_GJ.net, 2)} kg/GJ net)` : ""} at{" "}
-        {c.carbonPrice_per_t} {c.currency}/t — {c.carbonPriceSource}.
+        Latest live quote valid today of each supplier, in {c.currency} (other currencies converted at the rate in force on the quote&apos;s
+        date). Carbon cost on the fossil CO2
+        {c.fossilCo2_kg_per_GJ
+          ? ` (${fmtUpTo(c.fossilCo2_kg_per_GJ.gross, 2)} kg/GJ gross, ${fmtUpTo(c.fossilCo2_kg_per_GJ.net, 2)} kg/GJ net)`
+          : ""}{" "}
+        at {c.carbonPrice_per_t} {c.currency}/t — {c.carbonPriceSource}.
       </p>
       <div className="table-wrap">
         <table>
@@ -51,7 +61,11 @@ export async function QuoteComparison({ fuelId, carbon, currency }: { fuelId: nu
                 <td>{r.supplier}</td>
                 <td>
                   #{r.quoteId}, {r.stated}, from {r.validFrom}
-                  {r.conversion && <small className="muted" style={{ display: "block" }}>{r.conversion}</small>}
+                  {r.conversion && (
+                    <small className="muted" style={{ display: "block" }}>
+                      {r.conversion}
+                    </small>
+                  )}
                 </td>
                 {r.problem ? (
                   <td colSpan={4} className="field-error">

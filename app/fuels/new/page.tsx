@@ -16,9 +16,8 @@ export default async function NewFuelPage() {
       </div>
       <h1>New fuel or blend</h1>
       <p className="lede">
-        Describe a gas by its composition, a liquid as a pure compound or by ultimate analysis, a solid by ultimate analysis, or
-        build a blend from fuels already in the library. Stoke computes the properties when you save; nothing is stored while a
-        field is in error.
+        Describe a gas by its composition, a liquid as a pure compound or by ultimate analysis, a solid by ultimate analysis, or build a
+        blend from fuels already in the library. Stoke computes the properties when you save; nothing is stored while a field is in error.
       </p>
       <FuelForm options={options} />
     </>

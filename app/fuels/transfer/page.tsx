@@ -16,9 +16,8 @@ export default async function TransferPage() {
       </div>
       <h1>Import and export</h1>
       <p className="lede">
-        Move the fuel library between Stoke installations or into a spreadsheet. A file holds every fuel (with its definition),
-        every blend (by component names) and the full price history. Exporting, importing into an empty library and exporting
-        again gives the same file.
+        Move the fuel library between Stoke installations or into a spreadsheet. A file holds every fuel (with its definition), every blend
+        (by component names) and the full price history. Exporting, importing into an empty library and exporting again gives the same file.
       </p>
 
       <h2>Export</h2>
@@ -34,8 +33,8 @@ export default async function TransferPage() {
         </a>
       </p>
       <p className="basis">
-        CSV: one <code>fuel</code> row per fuel followed by one <code>price</code> row per quote. The definition and the blend
-        components are JSON text inside their cells, so that nothing is lost.
+        CSV: one <code>fuel</code> row per fuel followed by one <code>price</code> row per quote. The definition and the blend components
+        are JSON text inside their cells, so that nothing is lost.
       </p>
 
       <h2>Import</h2>

@@ -26,7 +26,6 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
   return { title: name ?? "Plant" };
 }
 
-
 export default async function PlantPage({ params }: Props) {
   const id = Number((await params).id);
   const rec = Number.isInteger(id) && id > 0 ? await getPlant(db(), id) : null;
@@ -64,7 +63,12 @@ export default async function PlantPage({ params }: Props) {
           <Link className="button secondary" href={`/plants/${rec.id}/edit`}>
             Edit plant
           </Link>
-          <DeleteButton url={`/api/plants/${rec.id}`} after="/plants" label="Delete plant" confirmText={`Delete the plant “${p.name}”? This cannot be undone.`} />
+          <DeleteButton
+            url={`/api/plants/${rec.id}`}
+            after="/plants"
+            label="Delete plant"
+            confirmText={`Delete the plant “${p.name}”? This cannot be undone.`}
+          />
         </div>
       </div>
       <UnitSwitch units={units} />
@@ -89,7 +93,10 @@ export default async function PlantPage({ params }: Props) {
                     </>
                   ) : b ? (
                     <>
-                      {d.energy(b.duty.annualUseful_MWh)} {d.energyUnit} <span className="unit">({fmt(p.operatingHours, 0)} h × {fmt(p.averageLoadFraction, 2)} load)</span>
+                      {d.energy(b.duty.annualUseful_MWh)} {d.energyUnit}{" "}
+                      <span className="unit">
+                        ({fmt(p.operatingHours, 0)} h × {fmt(p.averageLoadFraction, 2)} load)
+                      </span>
                     </>
                   ) : (
                     `${fmt(p.operatingHours, 0)} h × ${fmt(p.averageLoadFraction, 2)} load`
@@ -109,7 +116,8 @@ export default async function PlantPage({ params }: Props) {
               <tr>
                 <th>Combustion air</th>
                 <td className="num">
-                  {d.temp(p.combustionAirC)} {d.tempUnit}; ambient {d.temp(p.ambientAir.temperatureC)} {d.tempUnit}, {fmt(p.ambientAir.relativeHumidityPercent, 0)} % RH
+                  {d.temp(p.combustionAirC)} {d.tempUnit}; ambient {d.temp(p.ambientAir.temperatureC)} {d.tempUnit},{" "}
+                  {fmt(p.ambientAir.relativeHumidityPercent, 0)} % RH
                 </td>
               </tr>
               <tr>
@@ -173,7 +181,8 @@ export default async function PlantPage({ params }: Props) {
                 <tr>
                   <th>Flame temperature</th>
                   <td className="num">
-                    {b.baseline.flame ? `${d.temp(b.baseline.flame.temperatureC)} ${d.tempUnit}` : "–"} <span className="unit">(equilibrium)</span>
+                    {b.baseline.flame ? `${d.temp(b.baseline.flame.temperatureC)} ${d.tempUnit}` : "–"}{" "}
+                    <span className="unit">(equilibrium)</span>
                   </td>
                 </tr>
                 <tr>
@@ -194,7 +203,8 @@ export default async function PlantPage({ params }: Props) {
                 <tr>
                   <th>Flue gas</th>
                   <td className="num">
-                    {d.vol(b.baseline.ratedFlows.flueGas_m3_per_h_actual)} {d.volUnit}/h actual · {d.vol(b.baseline.ratedFlows.flueGas_m3_per_h_normal)} {d.volUnit}/h at 0 °C
+                    {d.vol(b.baseline.ratedFlows.flueGas_m3_per_h_actual)} {d.volUnit}/h actual ·{" "}
+                    {d.vol(b.baseline.ratedFlows.flueGas_m3_per_h_normal)} {d.volUnit}/h at 0 °C
                   </td>
                 </tr>
               </tbody>
@@ -214,7 +224,7 @@ export default async function PlantPage({ params }: Props) {
         <ul>
           {rec.studies.map((s) => (
             <li key={s.id}>
-              <Link href={`/studies/${s.id}`}>{s.name}</Link> <span className="muted">({Math.max(s.scenarioCount - 1 , 0)} candidates)</span>
+              <Link href={`/studies/${s.id}`}>{s.name}</Link> <span className="muted">({Math.max(s.scenarioCount - 1, 0)} candidates)</span>
             </li>
           ))}
         </ul>

@@ -112,11 +112,22 @@ export function PlantForm({ options, initial }: { options: PlantFormOptions; ini
   const [capacityUnit, setCapacityUnit] = useState<CapacityUnit>("kW");
 
   const setNum = (k: NumField) => (e: React.ChangeEvent<HTMLInputElement>) => setNums((s) => ({ ...s, [k]: e.target.value }));
-  const setTxt = (k: keyof typeof text) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement | HTMLTextAreaElement>) => setText((s) => ({ ...s, [k]: e.target.value }));
+  const setTxt = (k: keyof typeof text) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement | HTMLTextAreaElement>) =>
+    setText((s) => ({ ...s, [k]: e.target.value }));
 
   const numInput = (k: NumField, label: React.ReactNode, hint?: React.ReactNode, step = "any") => (
     <Field label={label} name={k} errors={errors} hint={hint}>
-      <input id={`f-${k}`} name={k} inputMode="decimal" type="text" className="num" value={nums[k]} onChange={setNum(k)} data-step={step} {...invalid(errors, k)} />
+      <input
+        id={`f-${k}`}
+        name={k}
+        inputMode="decimal"
+        type="text"
+        className="num"
+        value={nums[k]}
+        onChange={setNum(k)}
+        data-step={step}
+        {...invalid(errors, k)}
+      />
     </Field>
   );
   const select = (k: keyof typeof text, label: React.ReactNode, opts: { value: string; label: string }[]) => (
@@ -217,7 +228,13 @@ export function PlantForm({ options, initial }: { options: PlantFormOptions; ini
         <div className="row">
           {select("equipmentType", "Equipment", options.equipmentTypes)}
           <Field label="Fuel burnt today (baseline)" name="baselineFuelId" errors={errors}>
-            <select id="f-baselineFuelId" name="baselineFuelId" value={text.baselineFuelId} onChange={setTxt("baselineFuelId")} {...invalid(errors, "baselineFuelId")}>
+            <select
+              id="f-baselineFuelId"
+              name="baselineFuelId"
+              value={text.baselineFuelId}
+              onChange={setTxt("baselineFuelId")}
+              {...invalid(errors, "baselineFuelId")}
+            >
               <option value="">— choose a fuel —</option>
               {options.fuels.map((f) => (
                 <option key={f.id} value={f.id}>
@@ -234,8 +251,21 @@ export function PlantForm({ options, initial }: { options: PlantFormOptions; ini
         <div className="row">
           <Field label="Rated heat input" name="ratedInput_kW" errors={errors} hint={capacityUnit === "kW" ? undefined : "stored in kW"}>
             <span className="input-with-unit">
-              <input id="f-ratedInput_kW" name="ratedInput_kW" inputMode="decimal" type="text" className="num" value={nums.ratedInput_kW} onChange={setNum("ratedInput_kW")} {...invalid(errors, "ratedInput_kW")} />
-              <select aria-label="Unit of the rated heat input" value={capacityUnit} onChange={(e) => setCapacityUnit(e.target.value as CapacityUnit)}>
+              <input
+                id="f-ratedInput_kW"
+                name="ratedInput_kW"
+                inputMode="decimal"
+                type="text"
+                className="num"
+                value={nums.ratedInput_kW}
+                onChange={setNum("ratedInput_kW")}
+                {...invalid(errors, "ratedInput_kW")}
+              />
+              <select
+                aria-label="Unit of the rated heat input"
+                value={capacityUnit}
+                onChange={(e) => setCapacityUnit(e.target.value as CapacityUnit)}
+              >
                 {(Object.keys(CAPACITY_UNITS_KW) as CapacityUnit[]).map((u) => (
                   <option key={u} value={u}>
                     {u}
@@ -251,21 +281,23 @@ export function PlantForm({ options, initial }: { options: PlantFormOptions; ini
         </div>
         <div className="radio-row" role="radiogroup" aria-label="Annual useful heat">
           <label>
-            <input type="radio" name="dutyMode" checked={dutyMode === "hours"} onChange={() => setDutyMode("hours")} /> from operating hours × average load
+            <input type="radio" name="dutyMode" checked={dutyMode === "hours"} onChange={() => setDutyMode("hours")} /> from operating hours
+            × average load
           </label>
           <label>
-            <input type="radio" name="dutyMode" checked={dutyMode === "annual"} onChange={() => setDutyMode("annual")} /> annual useful heat known
+            <input type="radio" name="dutyMode" checked={dutyMode === "annual"} onChange={() => setDutyMode("annual")} /> annual useful heat
+            known
           </label>
         </div>
         <div className="row">
-          {dutyMode === "annual"
-            ? numInput("annualUsefulHeat_MWh", "Annual useful heat, MWh", "heat delivered to the process or network per year")
-            : (
-              <>
-                {numInput("operatingHours", "Operating hours per year, h")}
-                {numInput("averageLoadFraction", "Average load, fraction of rated input", "e.g. 0.6")}
-              </>
-            )}
+          {dutyMode === "annual" ? (
+            numInput("annualUsefulHeat_MWh", "Annual useful heat, MWh", "heat delivered to the process or network per year")
+          ) : (
+            <>
+              {numInput("operatingHours", "Operating hours per year, h")}
+              {numInput("averageLoadFraction", "Average load, fraction of rated input", "e.g. 0.6")}
+            </>
+          )}
         </div>
         {dutyMode === "hours" && <FieldError errors={errors} name="annualUsefulHeat_MWh" />}
       </fieldset>
@@ -276,7 +308,11 @@ export function PlantForm({ options, initial }: { options: PlantFormOptions; ini
           {numInput("stackTemperatureC", "Stack temperature, °C", "flue gas leaving the unit")}
           {numInput("flueO2DryPercent", "Flue-gas O2, vol % dry")}
           {numInput("combustionAirC", "Combustion-air temperature, °C", "at the burner, after any preheater")}
-          {numInput("radiationLossPercent", "Radiation and casing loss, % of input at rated load", "a constant heat flow: its share grows at part load")}
+          {numInput(
+            "radiationLossPercent",
+            "Radiation and casing loss, % of input at rated load",
+            "a constant heat flow: its share grows at part load",
+          )}
         </div>
         <div className="row">
           {numInput("flueCODryPpm", "CO in the flue gas, ppm dry", "charged as an unburnt loss; 0 if not measured")}
@@ -286,11 +322,13 @@ export function PlantForm({ options, initial }: { options: PlantFormOptions; ini
           <div className="field">
             <span className="label">Condensing</span>
             <label style={{ fontWeight: 400 }}>
-              <input type="checkbox" name="condensing" checked={condensing} onChange={(e) => setCondensing(e.target.checked)} /> condensing heat exchanger fitted
+              <input type="checkbox" name="condensing" checked={condensing} onChange={(e) => setCondensing(e.target.checked)} /> condensing
+              heat exchanger fitted
             </label>
           </div>
           {condensing && numInput("returnWaterC", "Return-water temperature, °C")}
-          {condensing && numInput("condensingApproachK", "Approach to the return water, K", "the stack cannot be colder than return water + approach")}
+          {condensing &&
+            numInput("condensingApproachK", "Approach to the return water, K", "the stack cannot be colder than return water + approach")}
           {numInput("ambientAir.temperatureC", "Ambient air, °C")}
           {numInput("ambientAir.relativeHumidityPercent", "Ambient relative humidity, %")}
         </div>
@@ -301,10 +339,12 @@ export function PlantForm({ options, initial }: { options: PlantFormOptions; ini
         <p className="basis">Leave a limit empty when it is not known: the check then shows the number without pass or fail.</p>
         <div className="radio-row" role="radiogroup" aria-label="Wobbe limit">
           <label>
-            <input type="radio" name="wobbeMode" checked={wobbeMode === "band"} onChange={() => setWobbeMode("band")} /> Wobbe band ± % of the baseline gas
+            <input type="radio" name="wobbeMode" checked={wobbeMode === "band"} onChange={() => setWobbeMode("band")} /> Wobbe band ± % of
+            the baseline gas
           </label>
           <label>
-            <input type="radio" name="wobbeMode" checked={wobbeMode === "range"} onChange={() => setWobbeMode("range")} /> absolute Wobbe range
+            <input type="radio" name="wobbeMode" checked={wobbeMode === "range"} onChange={() => setWobbeMode("range")} /> absolute Wobbe
+            range
           </label>
           <label>
             <input type="radio" name="wobbeMode" checked={wobbeMode === "none"} onChange={() => setWobbeMode("none")} /> none
@@ -318,12 +358,7 @@ export function PlantForm({ options, initial }: { options: PlantFormOptions; ini
               {numInput("wobbeMax_MJ_per_m3", "Wobbe maximum, MJ/m³ (gross)")}
             </>
           )}
-          {wobbeMode !== "none" &&
-            select(
-              "wobbeMeteringReference",
-              "Wobbe metering reference",
-              refOpts,
-            )}
+          {wobbeMode !== "none" && select("wobbeMeteringReference", "Wobbe metering reference", refOpts)}
           {wobbeMode !== "none" &&
             select(
               "wobbeCombustionReferenceC",
@@ -342,7 +377,11 @@ export function PlantForm({ options, initial }: { options: PlantFormOptions; ini
           {select("airCapacityBasis", "Air fan basis", fanBasis)}
         </div>
         <div className="row">
-          {numInput("fuelSupplyCapacity_m3_per_h", "Fuel supply / meter capacity, m³/h", "gases at the reference below; liquids m³/h of liquid")}
+          {numInput(
+            "fuelSupplyCapacity_m3_per_h",
+            "Fuel supply / meter capacity, m³/h",
+            "gases at the reference below; liquids m³/h of liquid",
+          )}
           {select("fuelSupplyMeteringReference", "Supply metering reference", refOpts)}
         </div>
         <div className="row">

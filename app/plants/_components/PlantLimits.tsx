@@ -21,7 +21,8 @@ export function PlantLimitsTable({ p, d }: { p: Plant; d: Display }) {
                 : na}
             {(p.wobbeTolerancePercent != null || p.wobbeMin_MJ_per_m3 != null) && (
               <div className="unit">
-                combustion {p.wobbeCombustionReferenceC} °C, metering {meteringLabelWithPressure(METERING_REFERENCES[p.wobbeMeteringReference].temperatureC)}
+                combustion {p.wobbeCombustionReferenceC} °C, metering{" "}
+                {meteringLabelWithPressure(METERING_REFERENCES[p.wobbeMeteringReference].temperatureC)}
               </div>
             )}
           </td>
@@ -32,11 +33,17 @@ export function PlantLimitsTable({ p, d }: { p: Plant; d: Display }) {
         </tr>
         <tr>
           <th>Flue-gas fan</th>
-          <td className="num">{p.flueGasCapacity_m3_per_h != null ? `${d.vol(p.flueGasCapacity_m3_per_h)} ${d.volUnit}/h (${fanBasis(p.flueGasCapacityBasis)})` : na}</td>
+          <td className="num">
+            {p.flueGasCapacity_m3_per_h != null
+              ? `${d.vol(p.flueGasCapacity_m3_per_h)} ${d.volUnit}/h (${fanBasis(p.flueGasCapacityBasis)})`
+              : na}
+          </td>
         </tr>
         <tr>
           <th>Combustion-air fan</th>
-          <td className="num">{p.airCapacity_m3_per_h != null ? `${d.vol(p.airCapacity_m3_per_h)} ${d.volUnit}/h (${fanBasis(p.airCapacityBasis)})` : na}</td>
+          <td className="num">
+            {p.airCapacity_m3_per_h != null ? `${d.vol(p.airCapacity_m3_per_h)} ${d.volUnit}/h (${fanBasis(p.airCapacityBasis)})` : na}
+          </td>
         </tr>
         <tr>
           <th>Fuel supply / meter</th>

@@ -10,10 +10,7 @@ export const dynamic = "force-dynamic";
 
 export default async function StudyLayout({ children, params }: { children: React.ReactNode; params: Promise<{ id: string }> }) {
   const id = Number((await params).id);
-  const study =
-    Number.isInteger(id) && id > 0
-      ? await studyHeader(db(), id)
-      : null;
+  const study = Number.isInteger(id) && id > 0 ? await studyHeader(db(), id) : null;
   if (!study) notFound();
   return (
     <>
@@ -26,7 +23,8 @@ export default async function StudyLayout({ children, params }: { children: Reac
             {study.name} {study.isDemo && <span className="badge demo">demo</span>}
           </h1>
           <p className="lede" style={{ margin: 0 }}>
-            Plant <Link href={`/plants/${study.plant.id}`}>{study.plant.name}</Link> · baseline and {Math.max(0, study._count.scenarios - 1)} candidate
+            Plant <Link href={`/plants/${study.plant.id}`}>{study.plant.name}</Link> · baseline and{" "}
+            {Math.max(0, study._count.scenarios - 1)} candidate
             {study._count.scenarios - 1 === 1 ? "" : "s"} · prices in {study.currency}
           </p>
         </div>
@@ -38,7 +36,12 @@ export default async function StudyLayout({ children, params }: { children: Reac
             JSON
           </a>
           <DuplicateButton id={study.id} />
-          <DeleteButton url={`/api/studies/${study.id}`} after="/studies" label="Delete" confirmText={`Delete the study “${study.name}” and its scenarios? This cannot be undone.`} />
+          <DeleteButton
+            url={`/api/studies/${study.id}`}
+            after="/studies"
+            label="Delete"
+            confirmText={`Delete the study “${study.name}” and its scenarios? This cannot be undone.`}
+          />
         </div>
       </div>
       <StudyTabs id={study.id} />

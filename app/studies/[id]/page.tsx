@@ -31,7 +31,10 @@ export default async function ComparisonPage({ params, searchParams }: Props) {
   const id = Number((await params).id);
   if (!Number.isInteger(id) || id <= 0) notFound();
   const view = viewChoice(await searchParams);
-  const [ev, units] = await Promise.all([evaluateStoredStudy(db(), id, { metric: view.metric, includeUpstream: view.includeUpstream }), displayUnits()]);
+  const [ev, units] = await Promise.all([
+    evaluateStoredStudy(db(), id, { metric: view.metric, includeUpstream: view.includeUpstream }),
+    displayUnits(),
+  ]);
   if (!ev.ok) {
     if (ev.kind === "not-found") notFound();
     return <EvaluationProblem id={id} message={ev.message} fieldErrors={ev.fieldErrors} />;
@@ -51,7 +54,12 @@ export default async function ComparisonPage({ params, searchParams }: Props) {
           <span className="choice-label">Rank by</span>
           <span className="segmented" role="group" aria-label="Rank by">
             {RANKING_METRICS.map((m) => (
-              <Link key={m} href={`/studies/${id}${viewQuery({ ...view, metric: m })}`} aria-current={m === metric ? "true" : undefined} scroll={false}>
+              <Link
+                key={m}
+                href={`/studies/${id}${viewQuery({ ...view, metric: m })}`}
+                aria-current={m === metric ? "true" : undefined}
+                scroll={false}
+              >
                 {METRIC_SHORT[m]}
               </Link>
             ))}
@@ -60,10 +68,18 @@ export default async function ComparisonPage({ params, searchParams }: Props) {
         <span>
           <span className="choice-label">Upstream CO2e</span>
           <span className="segmented" role="group" aria-label="Upstream CO2e">
-            <Link href={`/studies/${id}${viewQuery({ ...view, includeUpstream: false })}`} aria-current={!result.study.includeUpstream ? "true" : undefined} scroll={false}>
+            <Link
+              href={`/studies/${id}${viewQuery({ ...view, includeUpstream: false })}`}
+              aria-current={!result.study.includeUpstream ? "true" : undefined}
+              scroll={false}
+            >
               not counted
             </Link>
-            <Link href={`/studies/${id}${viewQuery({ ...view, includeUpstream: true })}`} aria-current={result.study.includeUpstream ? "true" : undefined} scroll={false}>
+            <Link
+              href={`/studies/${id}${viewQuery({ ...view, includeUpstream: true })}`}
+              aria-current={result.study.includeUpstream ? "true" : undefined}
+              scroll={false}
+            >
               counted and priced
             </Link>
           </span>
@@ -73,7 +89,10 @@ export default async function ComparisonPage({ params, searchParams }: Props) {
 
       <section className="assumptions" aria-label="Study assumptions">
         <span>
-          Useful heat <b>{d.energy(result.duty.annualUseful_MWh)} {d.energyUnit}/yr</b>
+          Useful heat{" "}
+          <b>
+            {d.energy(result.duty.annualUseful_MWh)} {d.energyUnit}/yr
+          </b>
         </span>
         <span>
           Carbon price <b>{money(result.study.carbonPrice_per_t, d.currency, 0)}/t</b>
@@ -94,8 +113,8 @@ export default async function ComparisonPage({ params, searchParams }: Props) {
 
       {bundle.meta.anyInventedPrice && (
         <p className="note warn">
-          Some prices are <span className="badge invented">invented</span> demo figures, not market quotes: the costs show how Stoke works, not what
-          fuels cost.
+          Some prices are <span className="badge invented">invented</span> demo figures, not market quotes: the costs show how Stoke works,
+          not what fuels cost.
         </p>
       )}
       {result.audit.notes.map((n) => (
@@ -123,9 +142,12 @@ export default async function ComparisonPage({ params, searchParams }: Props) {
             ) : (
               h.best.r.comparison && (
                 <p>
-                  Against {base.name} it {savingText(h.best.r.comparison.annualNetSaving, d.currency)},{" "}
-                  avoids {fmt(h.best.r.comparison.annualCo2Avoided_t, 0)} t CO2/yr; payback{" "}
-                  {h.best.r.comparison.simplePaybackYears === null ? "never (no saving)" : `${fmt(h.best.r.comparison.simplePaybackYears, 1)} yr`}.
+                  Against {base.name} it {savingText(h.best.r.comparison.annualNetSaving, d.currency)}, avoids{" "}
+                  {fmt(h.best.r.comparison.annualCo2Avoided_t, 0)} t CO2/yr; payback{" "}
+                  {h.best.r.comparison.simplePaybackYears === null
+                    ? "never (no saving)"
+                    : `${fmt(h.best.r.comparison.simplePaybackYears, 1)} yr`}
+                  .
                 </p>
               )
             )}
@@ -141,7 +163,9 @@ export default async function ComparisonPage({ params, searchParams }: Props) {
                 <>
                   {" "}
                   ({signed(h.lowestCo2.r.comparison.co2ChangePercent, 0)} %), abatement cost{" "}
-                  {h.lowestCo2.r.comparison.abatementCost_per_t === null ? "–" : `${money(h.lowestCo2.r.comparison.abatementCost_per_t, d.currency, 0)}/t`}
+                  {h.lowestCo2.r.comparison.abatementCost_per_t === null
+                    ? "–"
+                    : `${money(h.lowestCo2.r.comparison.abatementCost_per_t, d.currency, 0)}/t`}
                 </>
               )}
             </p>
@@ -209,24 +233,34 @@ export default async function ComparisonPage({ params, searchParams }: Props) {
             </tbody>
           </table>
         </div>
-        <p className="table-note">Delivered = commodity + transport + handling, converted with each fuel&apos;s own heating values and density. Quotes are managed in the fuel library.</p>
+        <p className="table-note">
+          Delivered = commodity + transport + handling, converted with each fuel&apos;s own heating values and density. Quotes are managed
+          in the fuel library.
+        </p>
       </details>
 
       <h2>Charts</h2>
       <div className="charts-grid">
         <section className="panel">
           <h3 className="chart-title">
-            Cost per useful {d.energyUnit} <span className="unit">({d.costPerEnergyUnit}, fuel + carbon{result.study.includeUpstream ? " + upstream" : ""})</span>
+            Cost per useful {d.energyUnit}{" "}
+            <span className="unit">
+              ({d.costPerEnergyUnit}, fuel + carbon{result.study.includeUpstream ? " + upstream" : ""})
+            </span>
           </h3>
           <CostStackChart rows={costRows(list, d)} unit={`${d.costPerEnergyUnit} useful`} includeUpstream={result.study.includeUpstream} />
-          <p className="basis">Delivered fuel price ÷ efficiency (net basis); carbon on fossil CO2. Faded bars and ✕: infeasible in this plant.</p>
+          <p className="basis">
+            Delivered fuel price ÷ efficiency (net basis); carbon on fossil CO2. Faded bars and ✕: infeasible in this plant.
+          </p>
         </section>
         <section className="panel">
           <h3 className="chart-title">
             CO2 per useful MJ <span className="unit">(g/MJ)</span>
           </h3>
           <Co2Chart rows={co2Rows(list)} includeUpstream={result.study.includeUpstream} />
-          <p className="basis">Per MJ of useful heat: fuel CO2 per MJ (net basis) ÷ efficiency. Biogenic CO2 is shown, not counted or priced.</p>
+          <p className="basis">
+            Per MJ of useful heat: fuel CO2 per MJ (net basis) ÷ efficiency. Biogenic CO2 is shown, not counted or priced.
+          </p>
         </section>
       </div>
       <section className="panel" style={{ marginTop: "1rem" }}>

@@ -43,10 +43,22 @@ export function CheckTable({ checks, d }: { checks: FitCheck[]; d: Display }) {
                 <td className="num">
                   {v.value} <span className="unit">{v.unit}</span>
                 </td>
-                <td className="num">{c.limit === null ? <span className="na">–</span> : <>{v.limit} <span className="unit">{v.unit}</span></>}</td>
+                <td className="num">
+                  {c.limit === null ? (
+                    <span className="na">–</span>
+                  ) : (
+                    <>
+                      {v.limit} <span className="unit">{v.unit}</span>
+                    </>
+                  )}
+                </td>
                 <td>
                   {c.message}
-                  {c.basis && <div className="basis" style={{ margin: 0 }}>{c.basis}</div>}
+                  {c.basis && (
+                    <div className="basis" style={{ margin: 0 }}>
+                      {c.basis}
+                    </div>
+                  )}
                 </td>
               </tr>
             );

@@ -28,7 +28,9 @@ export function CrossingTable({ crossings, testId }: { crossings: readonly Sweep
               <td>
                 <Status status={c.statusAtZero} />
               </td>
-              <td className="num">{c.statusAtZero === "not-checked" ? <span className="na">no limit entered</span> : shareText(c.firstWarnPercent)}</td>
+              <td className="num">
+                {c.statusAtZero === "not-checked" ? <span className="na">no limit entered</span> : shareText(c.firstWarnPercent)}
+              </td>
               <td className="num">{c.statusAtZero === "not-checked" ? <span className="na">–</span> : shareText(c.firstFailPercent)}</td>
             </tr>
           ))}

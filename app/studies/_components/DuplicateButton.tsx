@@ -11,7 +11,11 @@ export function DuplicateButton({ id }: { id: number }) {
   async function onClick() {
     setBusy(true);
     setError(null);
-    const res = await fetch(`/api/studies/${id}/duplicate`, { method: "POST", headers: { "content-type": "application/json" }, body: "{}" });
+    const res = await fetch(`/api/studies/${id}/duplicate`, {
+      method: "POST",
+      headers: { "content-type": "application/json" },
+      body: "{}",
+    });
     const out = await res.json().catch(() => ({}));
     setBusy(false);
     if (!res.ok) {

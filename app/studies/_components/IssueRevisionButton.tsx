@@ -27,7 +27,12 @@ export function IssueRevisionButton({ id }: { id: number }) {
       <button type="button" onClick={onClick} disabled={busy}>
         {busy ? "Issuing…" : "Issue revision"}
       </button>
-      {message && <span role="status" className="note"> {message}</span>}
+      {message && (
+        <span role="status" className="note">
+          {" "}
+          {message}
+        </span>
+      )}
       {error && (
         <span role="alert" className="field-error" style={{ display: "block" }}>
           {error}

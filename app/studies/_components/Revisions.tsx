@@ -44,7 +44,10 @@ export async function Revisions({ id }: { id: number }) {
       )}
       {status.problem && <p className="note">The live inputs cannot be compared with the revisions: {status.problem}</p>}
       {revisions.length === 0 ? (
-        <p className="note">No revision issued yet. Issuing stores a numbered, unchangeable copy of the inputs (plant, fuels, the quotes used, settings) and results.</p>
+        <p className="note">
+          No revision issued yet. Issuing stores a numbered, unchangeable copy of the inputs (plant, fuels, the quotes used, settings) and
+          results.
+        </p>
       ) : (
         <table className="data">
           <thead>
@@ -71,7 +74,10 @@ export async function Revisions({ id }: { id: number }) {
                     JSON
                   </a>{" "}
                   ·{" "}
-                  <a href={`/api/studies/${id}/revisions/${r.number}?part=inputs`} download={`study-${id}-revision-${r.number}-inputs.json`}>
+                  <a
+                    href={`/api/studies/${id}/revisions/${r.number}?part=inputs`}
+                    download={`study-${id}-revision-${r.number}-inputs.json`}
+                  >
                     Study file
                   </a>
                 </td>

@@ -160,9 +160,16 @@ export function StudyForm({
   const [baseline, setBaseline] = useState<ScenarioState>(() =>
     initial
       ? scenarioState(0, initial.baseline)
-      : scenarioState(0, firstPlant?.baselineFuelId ? { name: `${baselineFuelName(firstPlant.baselineFuelId)} (today)`, fuelId: firstPlant.baselineFuelId } : undefined),
+      : scenarioState(
+          0,
+          firstPlant?.baselineFuelId
+            ? { name: `${baselineFuelName(firstPlant.baselineFuelId)} (today)`, fuelId: firstPlant.baselineFuelId }
+            : undefined,
+        ),
   );
-  const [scenarios, setScenarios] = useState<ScenarioState[]>(() => (initial ? initial.scenarios.map((x, i) => scenarioState(i + 1, x)) : [scenarioState(1)]));
+  const [scenarios, setScenarios] = useState<ScenarioState[]>(() =>
+    initial ? initial.scenarios.map((x, i) => scenarioState(i + 1, x)) : [scenarioState(1)],
+  );
   const [errors, setErrors] = useState<Errors>({});
   const [message, setMessage] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
@@ -174,7 +181,8 @@ export function StudyForm({
     return [...m.entries()];
   }, [options.fuels]);
 
-  const setH = (k: keyof typeof head) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement | HTMLTextAreaElement>) => setHead((h) => ({ ...h, [k]: e.target.value }));
+  const setH = (k: keyof typeof head) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement | HTMLTextAreaElement>) =>
+    setHead((h) => ({ ...h, [k]: e.target.value }));
 
   function changePlant(e: React.ChangeEvent<HTMLSelectElement>) {
     const id = e.target.value;
@@ -308,8 +316,12 @@ export function StudyForm({
         />
         {limit && (
           <label className="inline-check">
-            <input type="checkbox" checked={n.isNull} onChange={(e) => setOverride(which, x, k, { isNull: e.target.checked, text: e.target.checked ? "" : n.text })} /> no limit in
-            this scenario
+            <input
+              type="checkbox"
+              checked={n.isNull}
+              onChange={(e) => setOverride(which, x, k, { isNull: e.target.checked, text: e.target.checked ? "" : n.text })}
+            />{" "}
+            no limit in this scenario
           </label>
         )}
       </Field>
@@ -320,18 +332,35 @@ export function StudyForm({
     const p = which === "baseline" ? "baseline" : `scenarios.${which}`;
     const fuel = options.fuels.find((f) => String(f.id) === x.fuelId);
     const quotes = fuel?.quotes ?? [];
-    const setCount = NUMBER_OVERRIDE_KEYS.filter((k) => x.overrides[k].text.trim() !== "" || x.overrides[k].isNull).length + (x.condensing ? 1 : 0);
+    const setCount =
+      NUMBER_OVERRIDE_KEYS.filter((k) => x.overrides[k].text.trim() !== "" || x.overrides[k].isNull).length + (x.condensing ? 1 : 0);
     const hasOverrideError = Object.keys(errors).some((k) => k.startsWith(`${p}.overrides`));
     return (
-      <div className={`scenario-card${which === "baseline" ? " baseline" : ""}`} key={x.key} data-testid={which === "baseline" ? "baseline-card" : `scenario-card-${which}`}>
+      <div
+        className={`scenario-card${which === "baseline" ? " baseline" : ""}`}
+        key={x.key}
+        data-testid={which === "baseline" ? "baseline-card" : `scenario-card-${which}`}
+      >
         <header>
           <span className="who">{which === "baseline" ? "Baseline — what the plant does today" : `Candidate ${which + 1}`}</span>
           {which !== "baseline" && (
             <span className="form-actions">
-              <button type="button" className="secondary small" onClick={() => move(which, -1)} disabled={which === 0} aria-label={`Move candidate ${which + 1} up`}>
+              <button
+                type="button"
+                className="secondary small"
+                onClick={() => move(which, -1)}
+                disabled={which === 0}
+                aria-label={`Move candidate ${which + 1} up`}
+              >
                 ↑
               </button>
-              <button type="button" className="secondary small" onClick={() => move(which, 1)} disabled={which === scenarios.length - 1} aria-label={`Move candidate ${which + 1} down`}>
+              <button
+                type="button"
+                className="secondary small"
+                onClick={() => move(which, 1)}
+                disabled={which === scenarios.length - 1}
+                aria-label={`Move candidate ${which + 1} down`}
+              >
                 ↓
               </button>
               <button
@@ -349,7 +378,12 @@ export function StudyForm({
         </header>
         <div className="row">
           <Field label="Fuel or blend" name={`${p}.fuelId`} errors={errors} htmlFor={dash(`${p}.fuelId`)}>
-            <select id={dash(`${p}.fuelId`)} value={x.fuelId} onChange={(e) => update(which, { fuelId: e.target.value })} {...invalid(errors, `${p}.fuelId`)}>
+            <select
+              id={dash(`${p}.fuelId`)}
+              value={x.fuelId}
+              onChange={(e) => update(which, { fuelId: e.target.value })}
+              {...invalid(errors, `${p}.fuelId`)}
+            >
               <option value="">— choose from the library —</option>
               {fuelsByKind.map(([kind, list]) => (
                 <optgroup key={kind} label={kind === "gas" ? "Gases" : kind === "liquid" ? "Liquids" : "Solids"}>
@@ -364,12 +398,29 @@ export function StudyForm({
             </select>
           </Field>
           <Field label="Scenario name" name={`${p}.name`} errors={errors} htmlFor={dash(`${p}.name`)}>
-            <input id={dash(`${p}.name`)} value={x.name} onChange={(e) => update(which, { name: e.target.value })} maxLength={120} {...invalid(errors, `${p}.name`)} />
+            <input
+              id={dash(`${p}.name`)}
+              value={x.name}
+              onChange={(e) => update(which, { name: e.target.value })}
+              maxLength={120}
+              {...invalid(errors, `${p}.name`)}
+            />
           </Field>
         </div>
         <div className="row">
-          <Field label="Price" name={`${p}.priceQuoteId`} errors={errors} htmlFor={dash(`${p}.priceQuoteId`)} hint={<span data-testid="quote-rule">{quoteRule(x, fuel)}</span>}>
-            <select id={dash(`${p}.priceQuoteId`)} value={x.priceQuoteId} onChange={(e) => update(which, { priceQuoteId: e.target.value })} {...invalid(errors, `${p}.priceQuoteId`)}>
+          <Field
+            label="Price"
+            name={`${p}.priceQuoteId`}
+            errors={errors}
+            htmlFor={dash(`${p}.priceQuoteId`)}
+            hint={<span data-testid="quote-rule">{quoteRule(x, fuel)}</span>}
+          >
+            <select
+              id={dash(`${p}.priceQuoteId`)}
+              value={x.priceQuoteId}
+              onChange={(e) => update(which, { priceQuoteId: e.target.value })}
+              {...invalid(errors, `${p}.priceQuoteId`)}
+            >
               <option value="">latest {head.currency || "study currency"} quote valid on the day evaluated</option>
               {quotes.map((q) => (
                 <option key={q.id} value={q.id}>
@@ -380,16 +431,42 @@ export function StudyForm({
             </select>
           </Field>
           {HAS_RULE_DATE && x.priceQuoteId === "" && (
-            <Field label={label(RULE_DATE_KEY)} name={`${p}.${RULE_DATE_KEY}`} errors={errors} htmlFor={dash(`${p}.${RULE_DATE_KEY}`)} hint="empty: the day the study is evaluated">
-              <input id={dash(`${p}.${RULE_DATE_KEY}`)} type="date" value={x.priceValidOn} onChange={(e) => update(which, { priceValidOn: e.target.value })} style={{ maxWidth: "11rem" }} {...invalid(errors, `${p}.${RULE_DATE_KEY}`)} />
+            <Field
+              label={label(RULE_DATE_KEY)}
+              name={`${p}.${RULE_DATE_KEY}`}
+              errors={errors}
+              htmlFor={dash(`${p}.${RULE_DATE_KEY}`)}
+              hint="empty: the day the study is evaluated"
+            >
+              <input
+                id={dash(`${p}.${RULE_DATE_KEY}`)}
+                type="date"
+                value={x.priceValidOn}
+                onChange={(e) => update(which, { priceValidOn: e.target.value })}
+                style={{ maxWidth: "11rem" }}
+                {...invalid(errors, `${p}.${RULE_DATE_KEY}`)}
+              />
             </Field>
           )}
           {which !== "baseline" && (
             <>
               <Field label={`Switching capex, ${head.currency}`} name={`${p}.capex`} errors={errors} htmlFor={dash(`${p}.capex`)}>
-                <input id={dash(`${p}.capex`)} className="num" inputMode="decimal" value={x.capex.text} onChange={(e) => update(which, { capex: { ...x.capex, text: e.target.value } })} {...invalid(errors, `${p}.capex`)} />
+                <input
+                  id={dash(`${p}.capex`)}
+                  className="num"
+                  inputMode="decimal"
+                  value={x.capex.text}
+                  onChange={(e) => update(which, { capex: { ...x.capex, text: e.target.value } })}
+                  {...invalid(errors, `${p}.capex`)}
+                />
               </Field>
-              <Field label={`Fixed opex change, ${head.currency}/yr`} name={`${p}.fixedOpexChange`} errors={errors} htmlFor={dash(`${p}.fixedOpexChange`)} hint="+ = more cost than the baseline">
+              <Field
+                label={`Fixed opex change, ${head.currency}/yr`}
+                name={`${p}.fixedOpexChange`}
+                errors={errors}
+                htmlFor={dash(`${p}.fixedOpexChange`)}
+                hint="+ = more cost than the baseline"
+              >
                 <input
                   id={dash(`${p}.fixedOpexChange`)}
                   className="num"
@@ -408,8 +485,17 @@ export function StudyForm({
           <div className="row">{LIMIT_KEYS.map((k) => numberField(which, p, x, k))}</div>
           <div className="row">
             {OPERATING_KEYS.map((k) => numberField(which, p, x, k))}
-            <Field label={label("condensing")} name={`${p}.overrides.condensing`} errors={errors} htmlFor={dash(`${p}.overrides.condensing`)}>
-              <select id={dash(`${p}.overrides.condensing`)} value={x.condensing} onChange={(e) => update(which, { condensing: e.target.value as ScenarioState["condensing"] })}>
+            <Field
+              label={label("condensing")}
+              name={`${p}.overrides.condensing`}
+              errors={errors}
+              htmlFor={dash(`${p}.overrides.condensing`)}
+            >
+              <select
+                id={dash(`${p}.overrides.condensing`)}
+                value={x.condensing}
+                onChange={(e) => update(which, { condensing: e.target.value as ScenarioState["condensing"] })}
+              >
                 <option value="">plant&apos;s value</option>
                 <option value="yes">condensing</option>
                 <option value="no">not condensing</option>
@@ -431,7 +517,13 @@ export function StudyForm({
   }
 
   return (
-    <form className="stack decision-form" onSubmit={submit} noValidate aria-label={initial?.id ? "Edit study" : "New study"} style={{ maxWidth: 1000 }}>
+    <form
+      className="stack decision-form"
+      onSubmit={submit}
+      noValidate
+      aria-label={initial?.id ? "Edit study" : "New study"}
+      style={{ maxWidth: 1000 }}
+    >
       <ErrorSummary message={message} errors={errors} placed={placed} />
 
       <fieldset>
@@ -452,16 +544,44 @@ export function StudyForm({
         </div>
         <div className="row">
           <Field label="Currency" name="currency" errors={errors} hint="three letters; quotes must be in this currency">
-            <input id="f-currency" value={head.currency} onChange={setH("currency")} maxLength={3} style={{ maxWidth: "6rem" }} {...invalid(errors, "currency")} />
+            <input
+              id="f-currency"
+              value={head.currency}
+              onChange={setH("currency")}
+              maxLength={3}
+              style={{ maxWidth: "6rem" }}
+              {...invalid(errors, "currency")}
+            />
           </Field>
           <Field label="Carbon price, per t CO2" name="carbonPrice_per_t" errors={errors}>
-            <input id="f-carbonPrice_per_t" className="num" inputMode="decimal" value={head.carbonPrice_per_t} onChange={setH("carbonPrice_per_t")} {...invalid(errors, "carbonPrice_per_t")} />
+            <input
+              id="f-carbonPrice_per_t"
+              className="num"
+              inputMode="decimal"
+              value={head.carbonPrice_per_t}
+              onChange={setH("carbonPrice_per_t")}
+              {...invalid(errors, "carbonPrice_per_t")}
+            />
           </Field>
           <Field label="Discount rate, %" name="discountRatePercent" errors={errors}>
-            <input id="f-discountRatePercent" className="num" inputMode="decimal" value={head.discountRatePercent} onChange={setH("discountRatePercent")} {...invalid(errors, "discountRatePercent")} />
+            <input
+              id="f-discountRatePercent"
+              className="num"
+              inputMode="decimal"
+              value={head.discountRatePercent}
+              onChange={setH("discountRatePercent")}
+              {...invalid(errors, "discountRatePercent")}
+            />
           </Field>
           <Field label="Horizon, years" name="horizonYears" errors={errors}>
-            <input id="f-horizonYears" className="num" inputMode="numeric" value={head.horizonYears} onChange={setH("horizonYears")} {...invalid(errors, "horizonYears")} />
+            <input
+              id="f-horizonYears"
+              className="num"
+              inputMode="numeric"
+              value={head.horizonYears}
+              onChange={setH("horizonYears")}
+              {...invalid(errors, "horizonYears")}
+            />
           </Field>
           <Field label="Price escalation, %/yr" name="priceEscalationPercent" errors={errors}>
             <input
@@ -484,7 +604,12 @@ export function StudyForm({
               ))}
             </select>
           </Field>
-          <Field label="Upstream CO2e" name="includeUpstream" errors={errors} hint="well-to-tank emissions of each fuel, where the library states them">
+          <Field
+            label="Upstream CO2e"
+            name="includeUpstream"
+            errors={errors}
+            hint="well-to-tank emissions of each fuel, where the library states them"
+          >
             <select id="f-includeUpstream" value={head.includeUpstream} onChange={setH("includeUpstream")}>
               <option value="no">reported, not counted</option>
               <option value="yes">counted and priced</option>
@@ -493,8 +618,22 @@ export function StudyForm({
         </div>
         <div className="row">
           {SENSITIVITY_KEYS.map((k) => (
-            <Field key={k} label={label(k)} name={`sensitivity.${k}`} htmlFor={`f-sensitivity-${k}`} errors={errors} hint={k === "fuelPricePercent" ? "ranges of the sensitivity (tornado) page" : undefined}>
-              <input id={`f-sensitivity-${k}`} className="num" inputMode="decimal" value={head[k]} onChange={setH(k)} {...invalid(errors, `sensitivity.${k}`)} />
+            <Field
+              key={k}
+              label={label(k)}
+              name={`sensitivity.${k}`}
+              htmlFor={`f-sensitivity-${k}`}
+              errors={errors}
+              hint={k === "fuelPricePercent" ? "ranges of the sensitivity (tornado) page" : undefined}
+            >
+              <input
+                id={`f-sensitivity-${k}`}
+                className="num"
+                inputMode="decimal"
+                value={head[k]}
+                onChange={setH(k)}
+                {...invalid(errors, `sensitivity.${k}`)}
+              />
             </Field>
           ))}
         </div>
@@ -505,21 +644,49 @@ export function StudyForm({
 
       <fieldset>
         <legend>Report cover</legend>
-        <p className="hint small-note">What the first page of the report shows. An empty title is the study&apos;s name; an empty date is the day the report is opened.</p>
+        <p className="hint small-note">
+          What the first page of the report shows. An empty title is the study&apos;s name; an empty date is the day the report is opened.
+        </p>
         <div className="row">
           <Field label={label("reportTitle")} name="reportTitle" errors={errors}>
-            <input id="f-reportTitle" value={head.reportTitle} onChange={setH("reportTitle")} maxLength={200} placeholder={head.name} {...invalid(errors, "reportTitle")} />
+            <input
+              id="f-reportTitle"
+              value={head.reportTitle}
+              onChange={setH("reportTitle")}
+              maxLength={200}
+              placeholder={head.name}
+              {...invalid(errors, "reportTitle")}
+            />
           </Field>
           <Field label={label("reportDate")} name="reportDate" errors={errors}>
-            <input id="f-reportDate" type="date" value={head.reportDate} onChange={setH("reportDate")} style={{ maxWidth: "11rem" }} {...invalid(errors, "reportDate")} />
+            <input
+              id="f-reportDate"
+              type="date"
+              value={head.reportDate}
+              onChange={setH("reportDate")}
+              style={{ maxWidth: "11rem" }}
+              {...invalid(errors, "reportDate")}
+            />
           </Field>
         </div>
         <div className="row">
           <Field label={label("preparedFor")} name="preparedFor" errors={errors}>
-            <input id="f-preparedFor" value={head.preparedFor} onChange={setH("preparedFor")} maxLength={300} {...invalid(errors, "preparedFor")} />
+            <input
+              id="f-preparedFor"
+              value={head.preparedFor}
+              onChange={setH("preparedFor")}
+              maxLength={300}
+              {...invalid(errors, "preparedFor")}
+            />
           </Field>
           <Field label={label("preparedBy")} name="preparedBy" errors={errors}>
-            <input id="f-preparedBy" value={head.preparedBy} onChange={setH("preparedBy")} maxLength={300} {...invalid(errors, "preparedBy")} />
+            <input
+              id="f-preparedBy"
+              value={head.preparedBy}
+              onChange={setH("preparedBy")}
+              maxLength={300}
+              {...invalid(errors, "preparedBy")}
+            />
           </Field>
         </div>
         <Field label={label("reportNotes")} name="reportNotes" errors={errors}>
@@ -543,7 +710,9 @@ export function StudyForm({
           >
             + Add candidate
           </button>
-          <span className="muted small-note">{scenarios.length} candidate{scenarios.length === 1 ? "" : "s"}</span>
+          <span className="muted small-note">
+            {scenarios.length} candidate{scenarios.length === 1 ? "" : "s"}
+          </span>
         </div>
         {errors.scenarios && <span className="field-error">{errors.scenarios}</span>}
       </fieldset>

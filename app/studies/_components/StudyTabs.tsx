@@ -29,7 +29,12 @@ export function StudyTabs({ id }: { id: number }) {
       {TABS.map((t) => {
         const href = base + t.path;
         return (
-          <Link key={t.label} href={t.path === "/edit" ? href : href + q} aria-current={pathname === href ? "page" : undefined} prefetch={false}>
+          <Link
+            key={t.label}
+            href={t.path === "/edit" ? href : href + q}
+            aria-current={pathname === href ? "page" : undefined}
+            prefetch={false}
+          >
             {t.label}
           </Link>
         );

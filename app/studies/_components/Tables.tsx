@@ -24,7 +24,21 @@ function payback(v: number | null | undefined, hasComparison: boolean): string {
 
 type Part = "all" | "economics" | "technical";
 
-export function RankTable({ list, result, d, metric, links = true, part = "all" }: { list: Ranked[]; result: StudyResult; d: Display; metric: RankingMetric; links?: boolean; part?: Part }) {
+export function RankTable({
+  list,
+  result,
+  d,
+  metric,
+  links = true,
+  part = "all",
+}: {
+  list: Ranked[];
+  result: StudyResult;
+  d: Display;
+  metric: RankingMetric;
+  links?: boolean;
+  part?: Part;
+}) {
   const cur = d.currency;
   const hi = (col: string) => (metricCol[metric] === col ? "num metric" : "num");
   const mark = (col: string) => (metricCol[metric] === col ? " ▲" : "");
@@ -96,7 +110,12 @@ export function RankTable({ list, result, d, metric, links = true, part = "all" 
             const k = r.comparison;
             const c = r.costs;
             return (
-              <tr key={r.index} className={`${r.status === "infeasible" ? "infeasible" : ""}${r.isBaseline ? " baseline-row" : ""}`} data-scenario={r.name} data-status={r.status}>
+              <tr
+                key={r.index}
+                className={`${r.status === "infeasible" ? "infeasible" : ""}${r.isBaseline ? " baseline-row" : ""}`}
+                data-scenario={r.name}
+                data-status={r.status}
+              >
                 <td className="sticky scen-name">
                   <span className="rank-no">{r.rank}.</span> {r.name} {r.isBaseline && <span className="badge demo">baseline</span>}
                   <div className="scen-status">
@@ -119,7 +138,15 @@ export function RankTable({ list, result, d, metric, links = true, part = "all" 
                 {eco && (
                   <>
                     <td className={hi("cost")} data-col="cost">
-                      {c ? d.costPerEnergy(c.costPerUsefulMWh.total) : meta.price.kind === "none" ? <small className="muted" title={priceSourceLabel(meta.price)}>no price: {meta.price.notes[0] ?? `no quote in ${meta.price.currency}`}</small> : "–"}
+                      {c ? (
+                        d.costPerEnergy(c.costPerUsefulMWh.total)
+                      ) : meta.price.kind === "none" ? (
+                        <small className="muted" title={priceSourceLabel(meta.price)}>
+                          no price: {meta.price.notes[0] ?? `no quote in ${meta.price.currency}`}
+                        </small>
+                      ) : (
+                        "–"
+                      )}
                     </td>
                     <td className={hi("co2")} data-col="co2">
                       {fmt(co2Ranked(r), 1)}
@@ -129,7 +156,9 @@ export function RankTable({ list, result, d, metric, links = true, part = "all" 
                     <td className="num">{k ? signed(k.annualNetSaving, 0) : r.isBaseline ? "—" : "–"}</td>
                     <td className="num">{r.isBaseline ? "—" : payback(k?.simplePaybackYears, k !== null)}</td>
                     <td className={hi("npv")}>{k ? signed(k.npv, 0) : r.isBaseline ? "—" : "–"}</td>
-                    <td className={hi("abatement")}>{k ? (k.abatementCost_per_t === null ? "no CO2 avoided" : fmt(k.abatementCost_per_t, 0)) : r.isBaseline ? "—" : "–"}</td>
+                    <td className={hi("abatement")}>
+                      {k ? (k.abatementCost_per_t === null ? "no CO2 avoided" : fmt(k.abatementCost_per_t, 0)) : r.isBaseline ? "—" : "–"}
+                    </td>
                   </>
                 )}
                 {tech && (
@@ -137,7 +166,9 @@ export function RankTable({ list, result, d, metric, links = true, part = "all" 
                     <td className="num">{r.isBaseline ? "—" : r.flame ? d.dT(r.flame.shiftK, 0) : "–"}</td>
                     <td className="num">{r.isBaseline ? "—" : r.wobbeShiftPercent !== null ? signed(r.wobbeShiftPercent, 1) : "n/a"}</td>
                     <td className="num">{r.isBaseline ? "—" : signed(r.flowChangePercent.flueGas, 1)}</td>
-                    <td className="num">{r.isBaseline ? "—" : r.flowChangePercent.fuelVolume !== null ? signed(r.flowChangePercent.fuelVolume, 1) : "n/a"}</td>
+                    <td className="num">
+                      {r.isBaseline ? "—" : r.flowChangePercent.fuelVolume !== null ? signed(r.flowChangePercent.fuelVolume, 1) : "n/a"}
+                    </td>
                     <td className="num">{fmt(r.efficiency.net * 100, 1)}</td>
                     {part === "technical" && <td className="num">{d.temp(r.efficiency.dewPointC, 1)}</td>}
                   </>
@@ -154,14 +185,14 @@ export function RankTable({ list, result, d, metric, links = true, part = "all" 
 export function RankTableNotes({ result, d }: { result: StudyResult; d: Display }) {
   return (
     <p className="table-note">
-      Ranked by {result.ranking.label}; {result.ranking.better} is better; infeasible scenarios (a fit check fails) rank after the feasible ones
-      and stay in the table. Cost = fuel + carbon{result.study.includeUpstream ? " + upstream CO2e" : ""} per {d.energyUnit} of useful heat, delivered
-      prices, carbon at {money(result.study.carbonPrice_per_t, d.currency, 0)}/t on fossil CO2. Annual cost includes any fixed operating-cost change.
-      Saving, payback, NPV ({result.study.horizonYears} years at {fmt(result.study.discountRatePercent, 1)} %, prices escalating{" "}
-      {fmt(result.study.priceEscalationPercent, 1)} %/yr) and abatement cost (carbon price excluded) are against the baseline. Flame: equilibrium
-      adiabatic flame temperature at the plant&apos;s O2 and air temperature; Wobbe: gross, at the plant&apos;s Wobbe references; flue gas: wet,
-      normal m³ at rated duty; fuel flow: volume at rated duty (gas at the supply metering reference, liquids as liquid). Efficiency by the heat-loss
-      method on the net (LHV) basis.
+      Ranked by {result.ranking.label}; {result.ranking.better} is better; infeasible scenarios (a fit check fails) rank after the feasible
+      ones and stay in the table. Cost = fuel + carbon{result.study.includeUpstream ? " + upstream CO2e" : ""} per {d.energyUnit} of useful
+      heat, delivered prices, carbon at {money(result.study.carbonPrice_per_t, d.currency, 0)}/t on fossil CO2. Annual cost includes any
+      fixed operating-cost change. Saving, payback, NPV ({result.study.horizonYears} years at {fmt(result.study.discountRatePercent, 1)} %,
+      prices escalating {fmt(result.study.priceEscalationPercent, 1)} %/yr) and abatement cost (carbon price excluded) are against the
+      baseline. Flame: equilibrium adiabatic flame temperature at the plant&apos;s O2 and air temperature; Wobbe: gross, at the plant&apos;s
+      Wobbe references; flue gas: wet, normal m³ at rated duty; fuel flow: volume at rated duty (gas at the supply metering reference,
+      liquids as liquid). Efficiency by the heat-loss method on the net (LHV) basis.
     </p>
   );
 }
@@ -237,13 +268,11 @@ export function RankCards({ list, d, metric }: { list: Ranked[]; d: Display; met
               <span>
                 {fmt(co2Ranked(r), 1)} g CO2/MJ{metric === "co2-per-useful-MJ" && " ▲"}
               </span>
-              {k && (
-                <span>
-                  {savingText(k.annualNetSaving, d.currency)}
-                </span>
-              )}
+              {k && <span>{savingText(k.annualNetSaving, d.currency)}</span>}
               {k && metric === "npv" && <span>NPV {signed(k.npv, 0)} ▲</span>}
-              {k && metric === "abatement-cost" && <span>{k.abatementCost_per_t === null ? "no CO2 avoided" : `${fmt(k.abatementCost_per_t, 0)} ${d.currency}/t`} ▲</span>}
+              {k && metric === "abatement-cost" && (
+                <span>{k.abatementCost_per_t === null ? "no CO2 avoided" : `${fmt(k.abatementCost_per_t, 0)} ${d.currency}/t`} ▲</span>
+              )}
             </div>
           </li>
         );

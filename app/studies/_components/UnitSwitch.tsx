@@ -19,7 +19,13 @@ import {
 } from "@/lib/units/display";
 import { UNITS_COOKIE } from "./units-cookie";
 
-export function UnitSwitch({ units, groups = ["energy", "temperature", "volume"] }: { units: DisplayUnits; groups?: (keyof DisplayUnits)[] }) {
+export function UnitSwitch({
+  units,
+  groups = ["energy", "temperature", "volume"],
+}: {
+  units: DisplayUnits;
+  groups?: (keyof DisplayUnits)[];
+}) {
   const router = useRouter();
   const [pending, start] = useTransition();
   const set = (next: DisplayUnits) => {
@@ -27,7 +33,13 @@ export function UnitSwitch({ units, groups = ["energy", "temperature", "volume"]
     document.cookie = `${UNITS_COOKIE}=${encodeURIComponent(formatDisplayUnits(next))}; path=/; max-age=31536000; samesite=lax`;
     start(() => router.refresh());
   };
-  const group = <K extends keyof DisplayUnits>(key: K, label: string, options: readonly DisplayUnits[K][], labels: Record<string, string>, title?: string) => (
+  const group = <K extends keyof DisplayUnits>(
+    key: K,
+    label: string,
+    options: readonly DisplayUnits[K][],
+    labels: Record<string, string>,
+    title?: string,
+  ) => (
     <span className="unit-group" role="group" aria-label={label} title={title}>
       <span className="unit-group-label">{label}</span>
       {options.map((o) => (

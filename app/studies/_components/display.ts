@@ -72,7 +72,11 @@ export function makeDisplay(units: DisplayUnits, currency: string): Display {
     dTUnit: TEMPERATURE_DIFFERENCE_LABEL[units.temperature],
     dTValue: (v) => temperatureDifferenceFromK(v, units.temperature),
     dT: (v, decimals = 0, withSign = true) =>
-      ok(v) ? (withSign ? signed(temperatureDifferenceFromK(v, units.temperature), decimals) : fmt(temperatureDifferenceFromK(v, units.temperature), decimals)) : "–",
+      ok(v)
+        ? withSign
+          ? signed(temperatureDifferenceFromK(v, units.temperature), decimals)
+          : fmt(temperatureDifferenceFromK(v, units.temperature), decimals)
+        : "–",
     volUnit,
     volValue: (v) => volumeFromM3(v, units.volume),
     vol: (v, decimals = 0) => (ok(v) ? fmt(volumeFromM3(v, units.volume), decimals) : "–"),
@@ -86,12 +90,17 @@ export function makeDisplay(units: DisplayUnits, currency: string): Display {
         case "°C":
           return { value: d.temp(c.value, 1), limit: d.temp(c.limit, 0), unit: d.tempUnit };
         case "m³/h":
-          return { value: d.vol(c.value, c.value !== null && Math.abs(c.value) < 10 ? 2 : 0), limit: d.vol(c.limit, c.limit !== null && Math.abs(c.limit) < 10 ? 2 : 0), unit: `${volUnit}/h` };
+          return {
+            value: d.vol(c.value, c.value !== null && Math.abs(c.value) < 10 ? 2 : 0),
+            limit: d.vol(c.limit, c.limit !== null && Math.abs(c.limit) < 10 ? 2 : 0),
+            unit: `${volUnit}/h`,
+          };
         case "MJ/m³":
           return { value: d.wobbe(c.value), limit: d.wobbe(c.limit), unit: d.wobbeUnit };
         default:
           // A ± band (the Wobbe band) reads "±5.0 %" for every scenario, the shift with its sign.
-          if (c.id === "wobbe-band") return { value: signed(c.value, 1), limit: c.limit === null ? "–" : `±${fmt(Math.abs(c.limit), 1)}`, unit: c.unit };
+          if (c.id === "wobbe-band")
+            return { value: signed(c.value, 1), limit: c.limit === null ? "–" : `±${fmt(Math.abs(c.limit), 1)}`, unit: c.unit };
           return { value: fmt(c.value, 1), limit: fmt(c.limit, 1), unit: c.unit };
       }
     },

@@ -54,7 +54,13 @@ export function scatterPoints(list: Ranked[], d: Display): ScatterPoint[] {
   return list
     .filter(({ r }) => r.costs)
     .filter(({ r }) => co2Ranked(r) !== null)
-    .map(({ r }) => ({ name: r.name, status: r.status, isBaseline: r.isBaseline, cost: d.costPerEnergyValue(r.costs!.costPerUsefulMWh.total), co2: co2Ranked(r) as number }));
+    .map(({ r }) => ({
+      name: r.name,
+      status: r.status,
+      isBaseline: r.isBaseline,
+      cost: d.costPerEnergyValue(r.costs!.costPerUsefulMWh.total),
+      co2: co2Ranked(r) as number,
+    }));
 }
 
 /** The ranking metric's value of a scenario, formatted with its unit, in display units. */
@@ -84,8 +90,17 @@ export function headline(list: Ranked[]): Headline {
   const feasible = list.filter((x) => x.r.status !== "infeasible" && x.r.metricValue !== null);
   const best = feasible[0] ?? null;
   const bestCandidate = feasible.find((x) => !x.r.isBaseline) ?? null;
-  const lowestCo2 = [...list.filter((x) => x.r.status !== "infeasible" && co2Ranked(x.r) !== null)].sort((a, b) => (co2Ranked(a.r) as number) - (co2Ranked(b.r) as number))[0] ?? null;
-  return { best, bestIsBaseline: best?.r.isBaseline ?? false, bestCandidate, lowestCo2, infeasible: list.filter((x) => x.r.status === "infeasible") };
+  const lowestCo2 =
+    [...list.filter((x) => x.r.status !== "infeasible" && co2Ranked(x.r) !== null)].sort(
+      (a, b) => (co2Ranked(a.r) as number) - (co2Ranked(b.r) as number),
+    )[0] ?? null;
+  return {
+    best,
+    bestIsBaseline: best?.r.isBaseline ?? false,
+    bestCandidate,
+    lowestCo2,
+    infeasible: list.filter((x) => x.r.status === "infeasible"),
+  };
 }
 
 export function failingChecks(r: ScenarioResult): string[] {

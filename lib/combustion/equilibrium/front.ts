@@ -5,7 +5,13 @@
 import { InputError } from "../../errors";
 import type { Element } from "../../thermo/nasa7";
 import { solveEquilibrium } from "./newton";
-import { DEFAULT_PRODUCT_SPECIES, DEFAULT_WITH_SULFUR, type EquilibriumProblem, type EquilibriumResult, type EquilibriumTPProblem } from "./types";
+import {
+  DEFAULT_PRODUCT_SPECIES,
+  DEFAULT_WITH_SULFUR,
+  type EquilibriumProblem,
+  type EquilibriumResult,
+  type EquilibriumTPProblem,
+} from "./types";
 import { Workspace } from "./workspace";
 
 function fail(field: string, msg: string): never {
@@ -92,4 +98,3 @@ export function solveEquilibriumTP(p: EquilibriumTPProblem): EquilibriumResult {
   const s = solverFor(p);
   return s.solveTP(p);
 }
-

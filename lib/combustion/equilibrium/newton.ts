@@ -31,7 +31,13 @@ function allocMoles(length: number): Float64Array {
   return v;
 }
 
-export function solveEquilibrium(ws: Workspace, p: Omit<EquilibriumProblem, "enthalpyJ">, hp: boolean, H0_J: number, Tgiven: number): EquilibriumResult {
+export function solveEquilibrium(
+  ws: Workspace,
+  p: Omit<EquilibriumProblem, "enthalpyJ">,
+  hp: boolean,
+  H0_J: number,
+  Tgiven: number,
+): EquilibriumResult {
   // the settings and the row stride of M as local constants for the inner loops
   const S = MATRIX_STRIDE;
   const { LIMIT_ELEMENT_BALANCE, LIMIT_ENTHALPY_BALANCE, LN_1E4, LN_FLOOR, MAX_ITERATIONS, MAX_POLISH_ITERATIONS } = settings;
@@ -233,11 +239,7 @@ export function solveEquilibrium(ws: Workspace, p: Omit<EquilibriumProblem, "ent
     // ---- convergence tests (RP-1311 ch. 3) on this correction
     const cN = (Ntot * Math.abs(dlnN)) / sumN;
     rp1311Converged =
-      lambda === 1 &&
-      convMoles <= TOL_MOLES &&
-      cN <= TOL_MOLES &&
-      Math.abs(dlnT) <= TOL_LNT &&
-      elemRes <= TOL_ELEMENT_RP1311;
+      lambda === 1 && convMoles <= TOL_MOLES && cN <= TOL_MOLES && Math.abs(dlnT) <= TOL_LNT && elemRes <= TOL_ELEMENT_RP1311;
     lastResidual = Math.max(maxStep, Math.abs(dlnN), Math.abs(dlnT), convMoles, cN);
 
     // ---- update

@@ -29,7 +29,12 @@ export function coldGuess(ws: Workspace): number {
   const sn = ws.scratchN;
   const b = ws.b0All;
   sn.fill(0);
-  const C = b[E_C], Hh = b[E_H], O = b[E_O], N = b[E_N], S = b[E_S], Ar = b[E_AR];
+  const C = b[E_C],
+    Hh = b[E_H],
+    O = b[E_O],
+    N = b[E_N],
+    S = b[E_S],
+    Ar = b[E_AR];
   const majorsAvailable =
     (C === 0 || (ws.iCO2 >= 0 && ws.iCO >= 0)) &&
     (Hh === 0 || (ws.iH2O >= 0 && ws.iH2 >= 0)) &&
@@ -89,7 +94,8 @@ export function coldGuess(ws: Workspace): number {
 export function seedNearStoichiometric(ws: Workspace, T: number, lnNtot: number): number {
   if (T < T_SEED_MIN) return lnNtot;
   const b = ws.b0All;
-  const C = b[E_C], Hh = b[E_H];
+  const C = b[E_C],
+    Hh = b[E_H];
   const ref = C + Hh / 2;
   const kO2 = ws.iO2 >= 0 ? ws.kOf[ws.iO2] : -1;
   const kCO = ws.iCO >= 0 ? ws.kOf[ws.iCO] : -1;

@@ -70,7 +70,5 @@ export class EquilibriumInfeasibleError extends InfeasibleChargeError {
 }
 
 /** Default product species: products of hydrocarbon, hydrogen and ammonia flames in air or oxygen. */
-export const DEFAULT_PRODUCT_SPECIES: readonly string[] = Object.freeze([
-  "CO2", "CO", "H2O", "H2", "O2", "N2", "OH", "H", "O", "NO", "Ar",
-]);
+export const DEFAULT_PRODUCT_SPECIES: readonly string[] = Object.freeze(["CO2", "CO", "H2O", "H2", "O2", "N2", "OH", "H", "O", "NO", "Ar"]);
 export const DEFAULT_WITH_SULFUR: readonly string[] = Object.freeze([...DEFAULT_PRODUCT_SPECIES, "SO2", "H2S"]);

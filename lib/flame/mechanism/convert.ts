@@ -109,7 +109,19 @@ function num(v: unknown, dflt: number): number {
   return typeof v === "number" ? v : dflt;
 }
 
-const KNOWN_REACTION_KEYS = new Set(["equation", "type", "rate-constant", "low-P-rate-constant", "high-P-rate-constant", "Troe", "efficiencies", "duplicate", "orders", "default-efficiency", "note"]);
+const KNOWN_REACTION_KEYS = new Set([
+  "equation",
+  "type",
+  "rate-constant",
+  "low-P-rate-constant",
+  "high-P-rate-constant",
+  "Troe",
+  "efficiencies",
+  "duplicate",
+  "orders",
+  "default-efficiency",
+  "note",
+]);
 
 /** The JSON text of a converted mechanism: one species or reaction per line, so that diffs stay readable. */
 export function mechanismJsonText(raw: RawMechanism): string {
@@ -136,8 +148,10 @@ export function convertMechanismYaml(text: string, name: string, citation: strin
     if (th.model !== "NASA7") fail(`species ${n}: thermo model ${String(th.model)} not supported`);
     const ranges = th["temperature-ranges"] as number[];
     const data = th.data as number[][];
-    if (ranges.length !== 3 || data.length !== 2 || data[0].length !== 7 || data[1].length !== 7) fail(`species ${n}: NASA7 needs two ranges of 7 coefficients`);
-    if (th["reference-pressure"] !== undefined) fail(`species ${n}: a reference-pressure other than the mechanism default is not supported`);
+    if (ranges.length !== 3 || data.length !== 2 || data[0].length !== 7 || data[1].length !== 7)
+      fail(`species ${n}: NASA7 needs two ranges of 7 coefficients`);
+    if (th["reference-pressure"] !== undefined)
+      fail(`species ${n}: a reference-pressure other than the mechanism default is not supported`);
     const tr = sp.transport as Y;
     if (tr?.model !== "gas") fail(`species ${n}: gas transport data missing`);
     const geometry = tr.geometry as string;

@@ -140,7 +140,9 @@ describe("quote checks", () => {
     expect(priceQuoteIssues({ unit: "m3", meteringReferenceC: 15 }, { kind: "gas", hasDensity: false })).toEqual([]);
     expect(priceQuoteIssues({ unit: "L" }, { kind: "liquid", hasDensity: false })[0].field).toBe("density");
     expect(priceQuoteIssues({ unit: "USgal" }, { kind: "solid", hasDensity: true })[0].field).toBe("unit");
-    expect(priceQuoteIssues({ unit: "t", meteringReferenceC: 15 }, { kind: "liquid", hasDensity: true })[0].field).toBe("meteringReferenceC");
+    expect(priceQuoteIssues({ unit: "t", meteringReferenceC: 15 }, { kind: "liquid", hasDensity: true })[0].field).toBe(
+      "meteringReferenceC",
+    );
   });
 
   it("normalisePrice refuses a quote it cannot convert, naming the field", () => {

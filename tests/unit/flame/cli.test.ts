@@ -23,10 +23,24 @@ describe("stoke flame-speed (runner)", () => {
   });
 
   it("prints one JSON object with the burning velocity and the NO figure (coarse grid)", async () => {
-    const r = await run({ fuel: { composition: { CH4: 1 } }, excessAirPercent: 10, postFlameResidenceMs: 5, grid: { slope: 0.3, curve: 0.6 } });
+    const r = await run({
+      fuel: { composition: { CH4: 1 } },
+      excessAirPercent: 10,
+      postFlameResidenceMs: 5,
+      grid: { slope: 0.3, curve: 0.6 },
+    });
     expect(r.exitCode).toBe(0);
     const out = JSON.parse(r.stdout);
-    for (const key of ["burningVelocity_cm_per_s", "burntTemperatureK", "flameThickness_mm", "gridPoints", "mechanism", "transport", "products", "NO"]) {
+    for (const key of [
+      "burningVelocity_cm_per_s",
+      "burntTemperatureK",
+      "flameThickness_mm",
+      "gridPoints",
+      "mechanism",
+      "transport",
+      "products",
+      "NO",
+    ]) {
       expect(out).toHaveProperty(key);
     }
     expect(out.unburnt.phi).toBeCloseTo(1 / 1.1, 10); // excess air 10 % ⇒ λ = 1.1 (definition)

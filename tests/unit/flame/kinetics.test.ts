@@ -9,7 +9,8 @@ import { mechanismEquilibrium } from "./mech-equilibrium";
 
 const mech = loadMechanism();
 const kin = createKinetics(mech);
-const nS = mech.nSpecies, nR = mech.reactions.length;
+const nS = mech.nSpecies,
+  nR = mech.reactions.length;
 const idx = (n: string) => mech.speciesIndex.get(n) as number;
 const CAL = 4.184; // thermochemical calorie, J (the calorie of CHEMKIN files)
 
@@ -38,7 +39,9 @@ describe("GRI-Mech 3.0 kinetics", () => {
     [1.3, 1900, 50000],
   ])("detailed balance: at equilibrium (φ %s, %s K, %s Pa) every reversible reaction's net rate vanishes", (phi, T, p) => {
     const { C } = equilibriumState(phi, T, p);
-    const f = new Float64Array(nR), r = new Float64Array(nR), q = new Float64Array(nR);
+    const f = new Float64Array(nR),
+      r = new Float64Array(nR),
+      q = new Float64Array(nR);
     kin.ratesOfProgress(T, C, f, r, q);
     let worst = 0;
     for (let i = 0; i < nR; i++) {
@@ -66,7 +69,8 @@ describe("GRI-Mech 3.0 kinetics", () => {
         [37, { H: -1, O2: -1, O: 1, OH: 1 }], // H + O2 <=> O + OH
       ];
       for (const [i, nu] of cases) {
-        let dG = 0, dn = 0;
+        let dG = 0,
+          dn = 0;
         for (const [k, v] of Object.entries(nu)) {
           dG += v * g_J_per_mol(SPECIES[k], T);
           dn += v;
@@ -88,7 +92,8 @@ describe("GRI-Mech 3.0 kinetics", () => {
   it("H + O2 <=> O + OH: forward rate constant from the GRI-Mech 3.0 reaction list", () => {
     // GRI-Mech 3.0 (Smith et al. 1999), reaction 38: A = 2.65e16 cm3/(mol s), b = −0.6707, Ea = 17041 cal/mol.
     const T = 1500;
-    const kf = new Float64Array(nR), kr = new Float64Array(nR);
+    const kf = new Float64Array(nR),
+      kr = new Float64Array(nR);
     kin.rateConstants(T, new Float64Array(nS), kf, kr);
     const expected_cm3 = 2.65e16 * T ** -0.6707 * Math.exp((-17041 * CAL) / (R_J_per_molK * T));
     expect(kf[37] / (expected_cm3 * 1e-6)).toBeCloseTo(1, 12);
@@ -98,7 +103,8 @@ describe("GRI-Mech 3.0 kinetics", () => {
     // GRI-Mech 3.0 reaction 3: A = 3.87e4 cm3/(mol s), b = 2.7, Ea = 6260 cal/mol;
     // reaction 84 OH + H2 <=> H + H2O: A = 2.16e8, b = 1.51, Ea = 3430 cal/mol.
     const T = 1200;
-    const kf = new Float64Array(nR), kr = new Float64Array(nR);
+    const kf = new Float64Array(nR),
+      kr = new Float64Array(nR);
     kin.rateConstants(T, new Float64Array(nS), kf, kr);
     expect(mech.reactions[2].equation).toBe("O + H2 <=> H + OH");
     expect(kf[2] / (3.87e4 * 1e-6 * T ** 2.7 * Math.exp((-6260 * CAL) / (R_J_per_molK * T)))).toBeCloseTo(1, 12);
@@ -112,7 +118,8 @@ describe("GRI-Mech 3.0 kinetics", () => {
     // efficiencies H2 2, H2O 6, CH4 3, CO 1.5, CO2 2, C2H6 3, AR 0.7.
     // Troe form: R. G. Gilbert, K. Luther, J. Troe, Ber. Bunsenges. Phys. Chem. 87 (1983) 169, as written
     // in the CHEMKIN-II manual (Kee, Rupley, Miller, SAND89-8009, 1989).
-    const T = 1800, p = 101325;
+    const T = 1800,
+      p = 101325;
     const C = new Float64Array(nS);
     const ctot = p / (R_J_per_molK * T);
     C[idx("N2")] = 0.7 * ctot;
@@ -129,7 +136,8 @@ describe("GRI-Mech 3.0 kinetics", () => {
     const f1 = (Math.log10(Pr) + c) / (n - 0.14 * (Math.log10(Pr) + c));
     const F = 10 ** (Math.log10(Fcent) / (1 + f1 * f1));
     const k_cm3 = kinf * (Pr / (1 + Pr)) * F;
-    const kf = new Float64Array(nR), kr = new Float64Array(nR);
+    const kf = new Float64Array(nR),
+      kr = new Float64Array(nR);
     kin.rateConstants(T, C, kf, kr);
     expect(mech.reactions[51].equation).toBe("H + CH3 (+M) <=> CH4 (+M)");
     expect(kf[51] / (k_cm3 * 1e-6)).toBeCloseTo(1, 10);
@@ -141,13 +149,15 @@ describe("GRI-Mech 3.0 kinetics", () => {
   it("O + CO (+M) <=> CO2 (+M): Lindemann fall-off constant evaluated by hand", () => {
     // GRI-Mech 3.0 reaction 12: k_inf A = 1.8e10 cm3/(mol s), b = 0, Ea = 2385 cal/mol; k_0 A = 6.02e14 cm6/(mol2 s),
     // b = 0, Ea = 3000 cal/mol; no Troe parameters (Lindemann, F = 1); efficiency of N2 = 1.
-    const T = 1500, p = 5e5;
+    const T = 1500,
+      p = 5e5;
     const C = new Float64Array(nS);
     C[idx("N2")] = p / (R_J_per_molK * T);
     const RT_cal = (R_J_per_molK / CAL) * T;
     const kinf = 1.8e10 * Math.exp(-2385 / RT_cal);
     const Pr = (6.02e14 * Math.exp(-3000 / RT_cal) * C[idx("N2")] * 1e-6) / kinf;
-    const kf = new Float64Array(nR), kr = new Float64Array(nR);
+    const kf = new Float64Array(nR),
+      kr = new Float64Array(nR);
     kin.rateConstants(T, C, kf, kr);
     expect(kf[11] / (kinf * (Pr / (1 + Pr)) * 1e-6)).toBeCloseTo(1, 10);
   });
@@ -174,7 +184,8 @@ describe("GRI-Mech 3.0 kinetics", () => {
     const w = new Float64Array(nS);
     kin.netProductionRates(1500, C, w);
     for (let e = 0; e < mech.elementNames.length; e++) {
-      let sum = 0, scale = 0;
+      let sum = 0,
+        scale = 0;
       for (let k = 0; k < nS; k++) {
         const a = mech.elementMatrix[e * nS + k];
         sum += a * w[k];
@@ -187,25 +198,37 @@ describe("GRI-Mech 3.0 kinetics", () => {
   it("analytic ∂ω̇/∂C and ∂ω̇/∂T agree with central finite differences of ω̇ (consistency of the derivative code)", () => {
     const T = 1500;
     const C = reactingState();
-    const J = new Float64Array(nS * nS), dT = new Float64Array(nS);
+    const J = new Float64Array(nS * nS),
+      dT = new Float64Array(nS);
     kin.jacobian(T, C, J, dT);
-    const wp = new Float64Array(nS), wm = new Float64Array(nS);
-    const Cp = new Float64Array(nS), Cm = new Float64Array(nS);
+    const wp = new Float64Array(nS),
+      wm = new Float64Array(nS);
+    const Cp = new Float64Array(nS),
+      Cm = new Float64Array(nS);
     // round-off floor of a difference quotient: relative precision of ω̇_k (set by its gross production
     // and destruction rates, which cancel) divided by the step
-    const f = new Float64Array(nR), r = new Float64Array(nR), q = new Float64Array(nR);
+    const f = new Float64Array(nR),
+      r = new Float64Array(nR),
+      q = new Float64Array(nR);
     kin.ratesOfProgress(T, C, f, r, q);
     const gross = new Float64Array(nS);
     mech.reactions.forEach((rx, i) => {
-      for (const [list, coeffs] of [[rx.reactantIndex, rx.reactantCoeff], [rx.productIndex, rx.productCoeff]] as const) {
-        list.forEach((k, m) => (gross[k] += coeffs[m] * (f[i] + r[i])));
+      for (const [list, coeffs] of [
+        [rx.reactantIndex, rx.reactantCoeff],
+        [rx.productIndex, rx.productCoeff],
+      ] as const) {
+        list.forEach((k, m) => {
+          gross[k] += coeffs[m] * (f[i] + r[i]);
+        });
       }
     });
     let worst = 0;
     for (let j = 0; j < nS; j++) {
-      Cp.set(C); Cm.set(C);
+      Cp.set(C);
+      Cm.set(C);
       const h = 1e-6 * Math.abs(C[j]);
-      Cp[j] += h; Cm[j] -= h;
+      Cp[j] += h;
+      Cm[j] -= h;
       kin.netProductionRates(T, Cp, wp);
       kin.netProductionRates(T, Cm, wm);
       for (let k = 0; k < nS; k++) {
@@ -218,7 +241,8 @@ describe("GRI-Mech 3.0 kinetics", () => {
     }
     expect(worst).toBeLessThan(1);
     // ∂ω̇/∂T against a central difference
-    const wT1 = new Float64Array(nS), wT2 = new Float64Array(nS);
+    const wT1 = new Float64Array(nS),
+      wT2 = new Float64Array(nS);
     kin.netProductionRates(T + 0.01, C, wT1);
     kin.netProductionRates(T - 0.01, C, wT2);
     let worstT = 0;
@@ -233,10 +257,25 @@ describe("GRI-Mech 3.0 kinetics", () => {
 
 /** A partly burnt methane-air mixture with every species present (radicals at ppm levels). */
 function reactingState(): Float64Array {
-  const T = 1500, p = 101325;
+  const T = 1500,
+    p = 101325;
   const ctot = p / (R_J_per_molK * T);
   const X = new Float64Array(nS).fill(1e-6);
-  const major: Record<string, number> = { N2: 0.7, O2: 0.08, CH4: 0.03, H2O: 0.1, CO2: 0.04, CO: 0.02, H2: 0.01, OH: 0.003, H: 0.002, O: 0.001, AR: 0.008, CH3: 0.0005, HO2: 0.0002 };
+  const major: Record<string, number> = {
+    N2: 0.7,
+    O2: 0.08,
+    CH4: 0.03,
+    H2O: 0.1,
+    CO2: 0.04,
+    CO: 0.02,
+    H2: 0.01,
+    OH: 0.003,
+    H: 0.002,
+    O: 0.001,
+    AR: 0.008,
+    CH3: 0.0005,
+    HO2: 0.0002,
+  };
   for (const [n, x] of Object.entries(major)) X[idx(n)] = x;
   const s = X.reduce((a, b) => a + b, 0);
   return X.map((x) => (x / s) * ctot);

@@ -19,8 +19,12 @@ export function mechanismEquilibrium(
   /** ln λ guesses: species whose mole fractions fix one element each, in element order of `pivots` */
   startX: Record<string, number>,
 ): { C: Float64Array; X: Float64Array } {
-  const nS = mech.nSpecies, nE = mech.elementNames.length;
-  const cp = new Float64Array(nS), h = new Float64Array(nS), s = new Float64Array(nS), g = new Float64Array(nS);
+  const nS = mech.nSpecies,
+    nE = mech.elementNames.length;
+  const cp = new Float64Array(nS),
+    h = new Float64Array(nS),
+    s = new Float64Array(nS),
+    g = new Float64Array(nS);
   speciesThermoInto(mech, T, cp, h, s);
   const lnP = Math.log(pPa / mech.standardPressurePa);
   for (let k = 0; k < nS; k++) g[k] = h[k] - s[k];
@@ -29,18 +33,22 @@ export function mechanismEquilibrium(
   // start: least squares λ from ln X_k + g_k + lnP = Σ a_ek λ_e over the given species
   const lam = new Float64Array(nE);
   {
-    const rows: number[][] = [], rhs: number[] = [];
+    const rows: number[][] = [],
+      rhs: number[] = [];
     for (const [name, x] of Object.entries(startX)) {
       const k = mech.speciesIndex.get(name) as number;
       rows.push(mech.elementNames.map((_, e) => a(e, k)));
       rhs.push(Math.log(x) + g[k] + lnP);
     }
     const AtA = Array.from({ length: nE }, () => new Array(nE + 1).fill(0));
-    for (let r = 0; r < rows.length; r++) for (let i = 0; i < nE; i++) {
-      for (let j = 0; j < nE; j++) AtA[i][j] += rows[r][i] * rows[r][j];
-      AtA[i][nE] += rows[r][i] * rhs[r];
-    }
-    solveInPlace(AtA, nE).forEach((v, i) => (lam[i] = v));
+    for (let r = 0; r < rows.length; r++)
+      for (let i = 0; i < nE; i++) {
+        for (let j = 0; j < nE; j++) AtA[i][j] += rows[r][i] * rows[r][j];
+        AtA[i][nE] += rows[r][i] * rhs[r];
+      }
+    solveInPlace(AtA, nE).forEach((v, i) => {
+      lam[i] = v;
+    });
   }
   const X = new Float64Array(nS);
   const fill = () => {

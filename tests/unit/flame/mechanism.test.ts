@@ -4,14 +4,23 @@ import { MECHANISM_CITATIONS } from "../../../lib/flame/mechanism/citations";
 import { convertMechanismYaml, mechanismJsonText } from "../../../lib/flame/mechanism/convert";
 import { createKinetics } from "../../../lib/flame/kinetics";
 import { buildMechanism, loadMechanism } from "../../../lib/flame/mechanism";
-import { massToMole, meanMolarMass, meanMolarMassFromMole, mixtureCp_J_per_kgK, moleToMass, speciesThermoInto } from "../../../lib/flame/thermo";
+import {
+  massToMole,
+  meanMolarMass,
+  meanMolarMassFromMole,
+  mixtureCp_J_per_kgK,
+  moleToMass,
+  speciesThermoInto,
+} from "../../../lib/flame/thermo";
 import { R_J_per_molK } from "../../../lib/units/constants";
 
 const dir = new URL("../../../lib/flame/mechanism/", import.meta.url);
 
 describe("GRI-Mech 3.0 data file", () => {
   it("the committed JSON equals a fresh conversion of the YAML", () => {
-    const fresh = mechanismJsonText(convertMechanismYaml(readFileSync(new URL("gri30.yaml", dir), "utf8"), "gri30", MECHANISM_CITATIONS.gri30));
+    const fresh = mechanismJsonText(
+      convertMechanismYaml(readFileSync(new URL("gri30.yaml", dir), "utf8"), "gri30", MECHANISM_CITATIONS.gri30),
+    );
     expect(readFileSync(new URL("gri30.json", dir), "utf8")).toBe(fresh);
   });
 
@@ -53,7 +62,9 @@ describe("GRI-Mech 3.0 data file", () => {
   it("dry air on the mechanism thermo: molar mass 28.96 g/mol, c_p 1.005 kJ/(kg K) at 300 K; mass/mole round trip", () => {
     const m = loadMechanism();
     const n = m.nSpecies;
-    const X = new Float64Array(n), Y = new Float64Array(n), X2 = new Float64Array(n);
+    const X = new Float64Array(n),
+      Y = new Float64Array(n),
+      X2 = new Float64Array(n);
     // dry air by volume (common practice, no source: rounded standard composition)
     const air: Record<string, number> = { O2: 0.2095, N2: 0.7809, AR: 0.0093, CO2: 0.0003 };
     for (const [k, x] of Object.entries(air)) X[m.speciesIndex.get(k) as number] = x;
@@ -62,7 +73,9 @@ describe("GRI-Mech 3.0 data file", () => {
     for (let k = 0; k < n; k++) expect(X2[k]).toBeCloseTo(X[k], 14);
     // ISO 2533:1975 (standard atmosphere): molar mass of dry air 28.96442 g/mol (value from memory)
     expect(meanMolarMass(m, Y) * 1000).toBeCloseTo(28.964, 2);
-    const cp = new Float64Array(n), h = new Float64Array(n), s = new Float64Array(n);
+    const cp = new Float64Array(n),
+      h = new Float64Array(n),
+      s = new Float64Array(n);
     speciesThermoInto(m, 300, cp, h, s);
     // ideal-gas c_p of air at 300 K: 1.005 kJ/(kg K) (Çengel & Boles, Thermodynamics, Table A-2b; value from memory)
     expect(mixtureCp_J_per_kgK(m, cp, Y) / 1000).toBeCloseTo(1.005, 2);
@@ -71,8 +84,11 @@ describe("GRI-Mech 3.0 data file", () => {
   it("mechanism thermo reproduces NIST-JANAF values for H2O and N2", () => {
     const m = loadMechanism();
     const n = m.nSpecies;
-    const cp = new Float64Array(n), h = new Float64Array(n), s = new Float64Array(n);
-    const iH2O = m.speciesIndex.get("H2O") as number, iN2 = m.speciesIndex.get("N2") as number;
+    const cp = new Float64Array(n),
+      h = new Float64Array(n),
+      s = new Float64Array(n);
+    const iH2O = m.speciesIndex.get("H2O") as number,
+      iN2 = m.speciesIndex.get("N2") as number;
     speciesThermoInto(m, 298.15, cp, h, s);
     // NIST-JANAF Thermochemical Tables, 4th ed. (Chase 1998), H2O(g): ΔfH°(298.15) = −241.826 kJ/mol,
     // S°(298.15) = 188.834 J/(mol K) at 1 bar (the mechanism's records are used at CHEMKIN's 1 atm standard

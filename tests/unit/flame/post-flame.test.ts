@@ -30,7 +30,16 @@ function elementsOf(X: Float64Array): Record<string, number> {
   return out;
 }
 function startFrom(X: Float64Array): Record<string, number> {
-  return { CO2: X[idx("CO2")], H2O: X[idx("H2O")], O2: X[idx("O2")], N2: X[idx("N2")], AR: X[idx("AR")], CO: X[idx("CO")], H2: X[idx("H2")], OH: X[idx("OH")] };
+  return {
+    CO2: X[idx("CO2")],
+    H2O: X[idx("H2O")],
+    O2: X[idx("O2")],
+    N2: X[idx("N2")],
+    AR: X[idx("AR")],
+    CO: X[idx("CO")],
+    H2: X[idx("H2")],
+    OH: X[idx("OH")],
+  };
 }
 
 /**
@@ -44,7 +53,16 @@ function nitrogenFreeBurntGas(T: number, p: number): Float64Array {
 function burntGas(T: number, p: number): { X0: Float64Array; equilibriumNO: number } {
   const el = methaneAir(0.9);
   const st = solveEquilibriumTP({ elementMoles: el, pressurePa: p, temperatureK: T }).moleFractions;
-  const eq = mechanismEquilibrium(mech, T, p, el, { CO2: st.CO2, H2O: st.H2O, O2: st.O2, N2: st.N2, AR: st.Ar, CO: st.CO, H2: st.H2, OH: st.OH });
+  const eq = mechanismEquilibrium(mech, T, p, el, {
+    CO2: st.CO2,
+    H2O: st.H2O,
+    O2: st.O2,
+    N2: st.N2,
+    AR: st.Ar,
+    CO: st.CO,
+    H2: st.H2,
+    OH: st.OH,
+  });
   const X = eq.X.slice();
   for (let k = 0; k < n; k++) if (mech.elementMatrix[iN * n + k] > 0 && k !== idx("N2")) X[k] = 0;
   const s = X.reduce((a, b) => a + b, 0);
@@ -62,7 +80,14 @@ describe("post-flame NO (plug flow with the full mechanism)", () => {
     (T) => {
       const p = 101325;
       const { X0, equilibriumNO } = burntGas(T, p);
-      const r = integratePostFlame(mech, kin, { temperatureK: T, pressurePa: p, massFractions: massFractions(X0), residenceMs: 0.5, energy: "isothermal", sampleTimesMs: [0.1, 0.5] });
+      const r = integratePostFlame(mech, kin, {
+        temperatureK: T,
+        pressurePa: p,
+        massFractions: massFractions(X0),
+        residenceMs: 0.5,
+        energy: "isothermal",
+        sampleTimesMs: [0.1, 0.5],
+      });
       const ctot = p / (R_J_per_molK * T);
       const [a, b] = r.samples;
       const rate = ((b.moleFractions[idx("NO")] - a.moleFractions[idx("NO")]) * ctot) / 0.4e-3; // mol/(m³ s)
@@ -80,9 +105,16 @@ describe("post-flame NO (plug flow with the full mechanism)", () => {
   );
 
   it("NO approaches its equilibrium value at constant T and p for a long residence (2400 K, 3 s)", () => {
-    const T = 2400, p = 101325;
+    const T = 2400,
+      p = 101325;
     const X0 = nitrogenFreeBurntGas(T, p);
-    const r = integratePostFlame(mech, kin, { temperatureK: T, pressurePa: p, massFractions: massFractions(X0), residenceMs: 3000, energy: "isothermal" });
+    const r = integratePostFlame(mech, kin, {
+      temperatureK: T,
+      pressurePa: p,
+      massFractions: massFractions(X0),
+      residenceMs: 3000,
+      energy: "isothermal",
+    });
     // equilibrium of the same element amounts at the same T, p (mechanism thermo)
     const eq = mechanismEquilibrium(mech, T, p, elementsOf(X0), startFrom(X0));
     expect(r.moleFractions[idx("NO")] / eq.X[idx("NO")]).toBeCloseTo(1, 2);
@@ -91,10 +123,20 @@ describe("post-flame NO (plug flow with the full mechanism)", () => {
   });
 
   it("adiabatic run started at equilibrium stays there: T within 0.05 K, NO within 0.1 %", () => {
-    const T = 2100, p = 101325;
+    const T = 2100,
+      p = 101325;
     const el = methaneAir(0.95);
     const st = solveEquilibriumTP({ elementMoles: el, pressurePa: p, temperatureK: T }).moleFractions;
-    const eq = mechanismEquilibrium(mech, T, p, el, { CO2: st.CO2, H2O: st.H2O, O2: st.O2, N2: st.N2, AR: st.Ar, CO: st.CO, H2: st.H2, OH: st.OH });
+    const eq = mechanismEquilibrium(mech, T, p, el, {
+      CO2: st.CO2,
+      H2O: st.H2O,
+      O2: st.O2,
+      N2: st.N2,
+      AR: st.Ar,
+      CO: st.CO,
+      H2: st.H2,
+      OH: st.OH,
+    });
     const r = integratePostFlame(mech, kin, { temperatureK: T, pressurePa: p, massFractions: massFractions(eq.X), residenceMs: 50 });
     expect(Math.abs(r.temperatureK - T)).toBeLessThan(0.05);
     expect(r.moleFractions[idx("NO")] / eq.X[idx("NO")]).toBeCloseTo(1, 3);
@@ -103,7 +145,8 @@ describe("post-flame NO (plug flow with the full mechanism)", () => {
 
   it("reports dry ppm and NOx as NO2 at 3 % O2: 100 ppm NO dry at 3 % O2 dry is 205.3 mg/m³", () => {
     // Wet gas with 15 % H2O; dry-basis NO 100 ppm and O2 3 %.
-    const T = 1500, p = 101325;
+    const T = 1500,
+      p = 101325;
     const X = new Float64Array(n);
     const dry = 0.85;
     X[idx("H2O")] = 0.15;
@@ -120,14 +163,22 @@ describe("post-flame NO (plug flow with the full mechanism)", () => {
     expect(rep.mg_per_m3_dry_at_ref_O2).toBeCloseTo(205.25, 1);
     expect(rep.label).toMatch(/screening indicator/i);
     // at 6 % O2 reference: × 15/18
-    const r6 = integratePostFlame(mech, kin, { temperatureK: T, pressurePa: p, massFractions: massFractions(X), residenceMs: 0, referenceO2Percent: 6 });
+    const r6 = integratePostFlame(mech, kin, {
+      temperatureK: T,
+      pressurePa: p,
+      massFractions: massFractions(X),
+      residenceMs: 0,
+      referenceO2Percent: 6,
+    });
     expect(noReport(r6).mg_per_m3_dry_at_ref_O2).toBeCloseTo((205.25 * 15) / 18, 1);
   });
 
   it("a negative residence time is refused naming postFlameResidenceMs", () => {
     const X = new Float64Array(n);
     X[idx("N2")] = 1;
-    expect(() => integratePostFlame(mech, kin, { temperatureK: 1500, pressurePa: 101325, massFractions: massFractions(X), residenceMs: -1 })).toThrow(InputError);
+    expect(() =>
+      integratePostFlame(mech, kin, { temperatureK: 1500, pressurePa: 101325, massFractions: massFractions(X), residenceMs: -1 }),
+    ).toThrow(InputError);
     try {
       integratePostFlame(mech, kin, { temperatureK: 1500, pressurePa: 101325, massFractions: massFractions(X), residenceMs: -1 });
     } catch (e) {
@@ -141,7 +192,13 @@ describe("post-flame NO (plug flow with the full mechanism)", () => {
     ac.abort();
     let err: unknown;
     try {
-      integratePostFlame(mech, kin, { temperatureK: 2200, pressurePa: 101325, massFractions: massFractions(X0), residenceMs: 20, signal: ac.signal });
+      integratePostFlame(mech, kin, {
+        temperatureK: 2200,
+        pressurePa: 101325,
+        massFractions: massFractions(X0),
+        residenceMs: 20,
+        signal: ac.signal,
+      });
     } catch (e) {
       err = e;
     }

@@ -38,13 +38,17 @@ describe("methane/air flames at 298 K, 1 atm", () => {
     within(r1.burningVelocity_cm_per_s, 36, 0.12);
   });
 
-  it("burns at φ = 0.8 and 1.2 within 12 % of the measured 26 and 31.5 cm/s", () => {
-    // Bosschaart & de Goey (2004), heat-flux burner: ≈ 26 cm/s at φ = 0.8, ≈ 31.5 cm/s at φ = 1.2 (values from memory)
-    const lean = computeFlameSpeed({ fuel: CH4, phi: 0.8, grid: GRID });
-    const rich = computeFlameSpeed({ fuel: CH4, phi: 1.2, grid: GRID });
-    within(lean.burningVelocity_cm_per_s, 26, 0.12);
-    within(rich.burningVelocity_cm_per_s, 31.5, 0.12);
-  }, T);
+  it(
+    "burns at φ = 0.8 and 1.2 within 12 % of the measured 26 and 31.5 cm/s",
+    () => {
+      // Bosschaart & de Goey (2004), heat-flux burner: ≈ 26 cm/s at φ = 0.8, ≈ 31.5 cm/s at φ = 1.2 (values from memory)
+      const lean = computeFlameSpeed({ fuel: CH4, phi: 0.8, grid: GRID });
+      const rich = computeFlameSpeed({ fuel: CH4, phi: 1.2, grid: GRID });
+      within(lean.burningVelocity_cm_per_s, 26, 0.12);
+      within(rich.burningVelocity_cm_per_s, 31.5, 0.12);
+    },
+    T,
+  );
 
   it("conserves mass and every element between the inlet and the burnt end, and the enthalpy to 1 %", () => {
     // ΣY = 1 and the element fluxes follow exactly from the conservative (finite-volume) equations;
@@ -63,28 +67,40 @@ describe("methane/air flames at 298 K, 1 atm", () => {
     within(r1.products.CO2, eq.products.CO2, 0.03);
   });
 
-  it("moves by less than 1 % on a finer grid (slope 0.05, curve 0.1)", () => {
-    const fine = computeFlameSpeed({ fuel: CH4, phi: 1, grid: { slope: 0.05, curve: 0.1 } }, { warmStart: r1.solution });
-    expect(fine.gridPoints).toBeGreaterThan(r1.gridPoints * 1.4);
-    expect(Math.abs(fine.burningVelocity_cm_per_s / r1.burningVelocity_cm_per_s - 1)).toBeLessThan(0.01);
-  }, T);
+  it(
+    "moves by less than 1 % on a finer grid (slope 0.05, curve 0.1)",
+    () => {
+      const fine = computeFlameSpeed({ fuel: CH4, phi: 1, grid: { slope: 0.05, curve: 0.1 } }, { warmStart: r1.solution });
+      expect(fine.gridPoints).toBeGreaterThan(r1.gridPoints * 1.4);
+      expect(Math.abs(fine.burningVelocity_cm_per_s / r1.burningVelocity_cm_per_s - 1)).toBeLessThan(0.01);
+    },
+    T,
+  );
 
-  it("rises with preheat like (T_u/298 K)^α with α within 1.3–2.1", () => {
-    // Gu, Haq, Lawes & Woolley, Combust. Flame 121 (2000) 41–58: α = 1.612 at φ = 1 (value from memory);
-    // Metghalchi & Keck, Combust. Flame 48 (1982) 191–210: the power-law form, α ≈ 1.5–2.2 for their fuels
-    const hot = computeFlameSpeed({ fuel: CH4, phi: 1, unburntTemperatureK: 450, grid: GRID }, { warmStart: r1.solution });
-    const alpha = Math.log(hot.burningVelocity_cm_per_s / r1.burningVelocity_cm_per_s) / Math.log(450 / 298.15);
-    expect(alpha).toBeGreaterThan(1.3);
-    expect(alpha).toBeLessThan(2.1);
-  }, T);
+  it(
+    "rises with preheat like (T_u/298 K)^α with α within 1.3–2.1",
+    () => {
+      // Gu, Haq, Lawes & Woolley, Combust. Flame 121 (2000) 41–58: α = 1.612 at φ = 1 (value from memory);
+      // Metghalchi & Keck, Combust. Flame 48 (1982) 191–210: the power-law form, α ≈ 1.5–2.2 for their fuels
+      const hot = computeFlameSpeed({ fuel: CH4, phi: 1, unburntTemperatureK: 450, grid: GRID }, { warmStart: r1.solution });
+      const alpha = Math.log(hot.burningVelocity_cm_per_s / r1.burningVelocity_cm_per_s) / Math.log(450 / 298.15);
+      expect(alpha).toBeGreaterThan(1.3);
+      expect(alpha).toBeLessThan(2.1);
+    },
+    T,
+  );
 
-  it("falls with pressure like (p/1 atm)^β with β within −0.55 … −0.25", () => {
-    // Gu, Haq, Lawes & Woolley (2000): β = −0.374 at φ = 1, 1–10 bar (value from memory)
-    const p5 = computeFlameSpeed({ fuel: CH4, phi: 1, pressurePa: 5 * 101325, grid: GRID });
-    const beta = Math.log(p5.burningVelocity_cm_per_s / r1.burningVelocity_cm_per_s) / Math.log(5);
-    expect(beta).toBeGreaterThan(-0.55);
-    expect(beta).toBeLessThan(-0.25);
-  }, T);
+  it(
+    "falls with pressure like (p/1 atm)^β with β within −0.55 … −0.25",
+    () => {
+      // Gu, Haq, Lawes & Woolley (2000): β = −0.374 at φ = 1, 1–10 bar (value from memory)
+      const p5 = computeFlameSpeed({ fuel: CH4, phi: 1, pressurePa: 5 * 101325, grid: GRID });
+      const beta = Math.log(p5.burningVelocity_cm_per_s / r1.burningVelocity_cm_per_s) / Math.log(5);
+      expect(beta).toBeGreaterThan(-0.55);
+      expect(beta).toBeLessThan(-0.25);
+    },
+    T,
+  );
 
   it("reports the figures the command line prints, with units in their names", () => {
     expect(r1.flameThickness_mm).toBeGreaterThan(0.3); // thermal thickness of CH4/air ≈ 0.4–0.5 mm (common practice, no source)
@@ -97,34 +113,50 @@ describe("methane/air flames at 298 K, 1 atm", () => {
 });
 
 describe("other fuels at φ = 1, 298 K, 1 atm", () => {
-  it("hydrogen/air burns within 12 % of the measured 2.15 m/s", () => {
-    // Kwon & Faeth, Combust. Flame 124 (2001) 590–610, and Dahoe, J. Loss Prev. Process Ind. 18 (2005)
-    // 152–166: ≈ 2.1–2.2 m/s at φ = 1 (values from memory)
-    const r = computeFlameSpeed({ fuel: { composition: { H2: 1 } }, phi: 1, grid: GRID });
-    within(r.burningVelocity_cm_per_s, 215, 0.12);
-  }, T);
+  it(
+    "hydrogen/air burns within 12 % of the measured 2.15 m/s",
+    () => {
+      // Kwon & Faeth, Combust. Flame 124 (2001) 590–610, and Dahoe, J. Loss Prev. Process Ind. 18 (2005)
+      // 152–166: ≈ 2.1–2.2 m/s at φ = 1 (values from memory)
+      const r = computeFlameSpeed({ fuel: { composition: { H2: 1 } }, phi: 1, grid: GRID });
+      within(r.burningVelocity_cm_per_s, 215, 0.12);
+    },
+    T,
+  );
 
-  it("methane with 20 vol % hydrogen burns within 12 % of the measured 41 cm/s", () => {
-    // Halter, Chauveau, Djebaïli-Chaumeix & Gökalp, Proc. Combust. Inst. 30 (2005) 201–208, and
-    // Hermanns, Konnov, Bastiaans & de Goey, Energy Fuels 21 (2007) 1977–1981: ≈ 40–42 cm/s (values from memory)
-    const r = computeFlameSpeed({ fuel: { composition: { CH4: 0.8, H2: 0.2 } }, phi: 1, grid: GRID });
-    within(r.burningVelocity_cm_per_s, 41, 0.12);
-  }, T);
+  it(
+    "methane with 20 vol % hydrogen burns within 12 % of the measured 41 cm/s",
+    () => {
+      // Halter, Chauveau, Djebaïli-Chaumeix & Gökalp, Proc. Combust. Inst. 30 (2005) 201–208, and
+      // Hermanns, Konnov, Bastiaans & de Goey, Energy Fuels 21 (2007) 1977–1981: ≈ 40–42 cm/s (values from memory)
+      const r = computeFlameSpeed({ fuel: { composition: { CH4: 0.8, H2: 0.2 } }, phi: 1, grid: GRID });
+      within(r.burningVelocity_cm_per_s, 41, 0.12);
+    },
+    T,
+  );
 
-  it("ethane/air burns within 12 % of the measured 40 cm/s", () => {
-    // Vagelopoulos & Egolfopoulos, Proc. Combust. Inst. 27 (1998) 513–519: ≈ 40 cm/s at φ = 1 (value from memory)
-    const r = computeFlameSpeed({ fuel: { composition: { C2H6: 1 } }, phi: 1, grid: GRID });
-    within(r.burningVelocity_cm_per_s, 40, 0.12);
-  }, T);
+  it(
+    "ethane/air burns within 12 % of the measured 40 cm/s",
+    () => {
+      // Vagelopoulos & Egolfopoulos, Proc. Combust. Inst. 27 (1998) 513–519: ≈ 40 cm/s at φ = 1 (value from memory)
+      const r = computeFlameSpeed({ fuel: { composition: { C2H6: 1 } }, phi: 1, grid: GRID });
+      within(r.burningVelocity_cm_per_s, 40, 0.12);
+    },
+    T,
+  );
 
-  it("propane/air comes out 5–35 % above the measured 39 cm/s, as the mechanism is known to", () => {
-    // Vagelopoulos, Egolfopoulos & Law, Proc. Combust. Inst. 25 (1994) 1341–1347, and Jomaas, Zheng,
-    // Zhu & Law, Proc. Combust. Inst. 30 (2005) 193–200: ≈ 38–40 cm/s at φ = 1 (values from memory);
-    // GRI-Mech 3.0's propane burning velocities are about a fifth above measurements (its data notes)
-    const r = computeFlameSpeed({ fuel: { composition: { C3H8: 1 } }, phi: 1, grid: GRID });
-    expect(r.burningVelocity_cm_per_s).toBeGreaterThan(39 * 1.05);
-    expect(r.burningVelocity_cm_per_s).toBeLessThan(39 * 1.35);
-  }, T);
+  it(
+    "propane/air comes out 5–35 % above the measured 39 cm/s, as the mechanism is known to",
+    () => {
+      // Vagelopoulos, Egolfopoulos & Law, Proc. Combust. Inst. 25 (1994) 1341–1347, and Jomaas, Zheng,
+      // Zhu & Law, Proc. Combust. Inst. 30 (2005) 193–200: ≈ 38–40 cm/s at φ = 1 (values from memory);
+      // GRI-Mech 3.0's propane burning velocities are about a fifth above measurements (its data notes)
+      const r = computeFlameSpeed({ fuel: { composition: { C3H8: 1 } }, phi: 1, grid: GRID });
+      expect(r.burningVelocity_cm_per_s).toBeGreaterThan(39 * 1.05);
+      expect(r.burningVelocity_cm_per_s).toBeLessThan(39 * 1.35);
+    },
+    T,
+  );
 });
 
 describe("what the flame engine refuses, flags and reports", () => {

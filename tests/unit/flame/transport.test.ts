@@ -76,12 +76,64 @@ describe("collision integrals", () => {
 describe("pure-species viscosity", () => {
   // [CRC-V] at 300, 400, 500, 600 K
   const cases: Array<[string, Array<[number, number]>, number]> = [
-    ["N2", [[300, 17.9], [400, 22.2], [500, 26.1], [600, 29.6]], 0.02],
-    ["O2", [[300, 20.7], [400, 25.8], [500, 30.5], [600, 34.7]], 0.025],
-    ["H2", [[300, 8.9], [400, 10.9], [500, 12.8], [600, 14.5]], 0.03], // normal hydrogen, P = 0
-    ["CH4", [[300, 11.1], [400, 14.2]], 0.04], // P = 0
-    ["H2O", [[300, 9.8], [400, 13.4], [500, 17.3], [600, 21.4]], 0.06], // steam, P = 0
-    ["CO2", [[300, 15.0], [400, 19.7], [500, 24.0], [600, 28.0]], 0.02],
+    [
+      "N2",
+      [
+        [300, 17.9],
+        [400, 22.2],
+        [500, 26.1],
+        [600, 29.6],
+      ],
+      0.02,
+    ],
+    [
+      "O2",
+      [
+        [300, 20.7],
+        [400, 25.8],
+        [500, 30.5],
+        [600, 34.7],
+      ],
+      0.025,
+    ],
+    [
+      "H2",
+      [
+        [300, 8.9],
+        [400, 10.9],
+        [500, 12.8],
+        [600, 14.5],
+      ],
+      0.03,
+    ], // normal hydrogen, P = 0
+    [
+      "CH4",
+      [
+        [300, 11.1],
+        [400, 14.2],
+      ],
+      0.04,
+    ], // P = 0
+    [
+      "H2O",
+      [
+        [300, 9.8],
+        [400, 13.4],
+        [500, 17.3],
+        [600, 21.4],
+      ],
+      0.06,
+    ], // steam, P = 0
+    [
+      "CO2",
+      [
+        [300, 15.0],
+        [400, 19.7],
+        [500, 24.0],
+        [600, 28.0],
+      ],
+      0.02,
+    ],
   ];
   for (const [name, points, tol] of cases) {
     it(`${name} within ${tol * 100} % of the CRC table [CRC-V] at ${points.map((p) => p[0]).join("/")} K`, () => {
@@ -102,11 +154,54 @@ describe("pure-species viscosity", () => {
 describe("pure-species thermal conductivity", () => {
   // [CRC-L] at 300, 400, 500, 600 K
   const cases: Array<[string, Array<[number, number]>, number]> = [
-    ["N2", [[300, 26.0], [400, 32.3], [500, 38.3], [600, 44.0]], 0.04],
-    ["O2", [[300, 26.3], [400, 33.7], [500, 41.0], [600, 48.1]], 0.03],
-    ["H2", [[300, 186.9], [400, 230.4]], 0.02], // P = 0
-    ["CH4", [[300, 34.1], [400, 49.1], [500, 66.5], [600, 84.1]], 0.06],
-    ["CO2", [[300, 16.8], [400, 25.1], [500, 33.5], [600, 41.6]], 0.05],
+    [
+      "N2",
+      [
+        [300, 26.0],
+        [400, 32.3],
+        [500, 38.3],
+        [600, 44.0],
+      ],
+      0.04,
+    ],
+    [
+      "O2",
+      [
+        [300, 26.3],
+        [400, 33.7],
+        [500, 41.0],
+        [600, 48.1],
+      ],
+      0.03,
+    ],
+    [
+      "H2",
+      [
+        [300, 186.9],
+        [400, 230.4],
+      ],
+      0.02,
+    ], // P = 0
+    [
+      "CH4",
+      [
+        [300, 34.1],
+        [400, 49.1],
+        [500, 66.5],
+        [600, 84.1],
+      ],
+      0.06,
+    ],
+    [
+      "CO2",
+      [
+        [300, 16.8],
+        [400, 25.1],
+        [500, 33.5],
+        [600, 41.6],
+      ],
+      0.05,
+    ],
   ];
   for (const [name, points, tol] of cases) {
     it(`${name} within ${tol * 100} % of the CRC table [CRC-L] at ${points.map((p) => p[0]).join("/")} K`, () => {
@@ -121,7 +216,11 @@ describe("pure-species thermal conductivity", () => {
     // strongly polar gas resonant rotational exchange makes that transport much slower, so the
     // standard mixture-averaged model overestimates steam's conductivity, less so at flame
     // temperatures. This test pins the size of that known deficit rather than hiding it.
-    for (const [T, ref] of [[400, 27.1], [500, 35.7], [600, 47.1]] as const) {
+    for (const [T, ref] of [
+      [400, 27.1],
+      [500, 35.7],
+      [600, 47.1],
+    ] as const) {
       const r = (tr.pureConductivity_W_per_mK(idx("H2O"), T) * 1e3) / ref;
       expect(r).toBeGreaterThan(1.2);
       expect(r).toBeLessThan(1.45);
@@ -135,7 +234,9 @@ describe("binary diffusion coefficients at 101.325 kPa", () => {
 
   it("CH4–N2 within 5 % of [CRC-D] from 293 to 673 K", () => {
     const ref = [0.208, 0.317, 0.48, 0.671, 0.89];
-    TT.forEach((T, i) => expect(Math.abs(relErr(D("CH4", "N2", T), ref[i]))).toBeLessThan(0.05));
+    TT.forEach((T, i) => {
+      expect(Math.abs(relErr(D("CH4", "N2", T), ref[i]))).toBeLessThan(0.05);
+    });
   });
 
   it("Ar–N2 and Ar–O2 within 4 % of [CRC-D] from 293 to 673 K", () => {
@@ -170,7 +271,12 @@ describe("mixture rules", () => {
   const out = tr.newOutput();
 
   it("air viscosity by Wilke's rule within 1.5 % of [CRC-V] air at 300–600 K and of [LJ04] air at 1000 K", () => {
-    for (const [T, ref] of [[300, 18.5], [400, 23.1], [500, 27.1], [600, 30.8]] as const) {
+    for (const [T, ref] of [
+      [300, 18.5],
+      [400, 23.1],
+      [500, 27.1],
+      [600, 30.8],
+    ] as const) {
       tr.evaluate(T, P_ATM, airX(), out);
       expect(Math.abs(relErr(out.viscosity_Pa_s * 1e6, ref))).toBeLessThan(0.015);
     }
@@ -180,7 +286,12 @@ describe("mixture rules", () => {
   });
 
   it("air conductivity by the combination rule within 2 % of [CRC-L] air at 300–600 K", () => {
-    for (const [T, ref] of [[300, 26.2], [400, 33.3], [500, 39.7], [600, 45.7]] as const) {
+    for (const [T, ref] of [
+      [300, 26.2],
+      [400, 33.3],
+      [500, 39.7],
+      [600, 45.7],
+    ] as const) {
       tr.evaluate(T, P_ATM, airX(), out);
       expect(Math.abs(relErr(out.conductivity_W_per_mK * 1e3, ref))).toBeLessThan(0.02);
     }

@@ -20,14 +20,25 @@ import { burnerShift, burnerRisks, type BurnerGas } from "../../../lib/plant/bur
  *   O2 trim (3 % restored):             1.7(λ − 1) = 0.03(8.116119·0.79054·λ + 0.8 + 1.7λ − 1.7) → λ = 1.148631
  */
 const d = (M: number) => M / 28.96546;
-const methane: BurnerGas = { fuel: resolveFuel({ composition: { CH4: 1 } }), relativeDensity: d(16.04246), wobbeNet_MJ_per_m3: 802.6 / Math.sqrt(d(16.04246)) };
+const methane: BurnerGas = {
+  fuel: resolveFuel({ composition: { CH4: 1 } }),
+  relativeDensity: d(16.04246),
+  wobbeNet_MJ_per_m3: 802.6 / Math.sqrt(d(16.04246)),
+};
 const blendM = 0.8 * 16.04246 + 0.2 * 2.01588;
 const blend: BurnerGas = {
   fuel: resolveFuel({ composition: { CH4: 0.8, H2: 0.2 } }),
   relativeDensity: d(blendM),
   wobbeNet_MJ_per_m3: (0.8 * 802.6 + 0.2 * 241.81) / Math.sqrt(d(blendM)),
 };
-const common = { baseline: methane, candidate: blend, regulatedSupply: true, setupFlueO2DryPercent: 3, oxidizer: DRY_AIR, oxidizerTemperatureK: 298.15 };
+const common = {
+  baseline: methane,
+  candidate: blend,
+  regulatedSupply: true,
+  setupFlueO2DryPercent: 3,
+  oxidizer: DRY_AIR,
+  oxidizerTemperatureK: 298.15,
+};
 
 describe("the untuned burner on the day the gas changes", () => {
   it("heat input follows the Wobbe index and the air factor the control type (hand calculation above)", () => {
@@ -55,7 +66,11 @@ describe("the untuned burner on the day the gas changes", () => {
     // λ rises by 1.352542/1.149661 − 1 = 17.6 %, inside the 20 % rule of thumb; the input falls 5.3 %.
     expect(burnerRisks(s, 1.149661).map((r) => r.risk)).toEqual(["derating"]);
     // 40 % H2: air demand ratio (0.6·2 + 0.4·0.5)/2 = 0.7, so λ = 1.149661/0.7 = 1.6424, 42.9 % above set-up.
-    const h40: BurnerGas = { fuel: resolveFuel({ composition: { CH4: 0.6, H2: 0.4 } }), relativeDensity: d(0.6 * 16.04246 + 0.4 * 2.01588), wobbeNet_MJ_per_m3: 1 };
+    const h40: BurnerGas = {
+      fuel: resolveFuel({ composition: { CH4: 0.6, H2: 0.4 } }),
+      relativeDensity: d(0.6 * 16.04246 + 0.4 * 2.01588),
+      wobbeNet_MJ_per_m3: 1,
+    };
     const s40 = burnerShift({ ...common, candidate: h40, airControl: "pneumatic-ratio", regulatedSupply: false });
     expect(s40.untuned.lambda).toBeCloseTo(1.149661 / 0.7, 4);
     expect(burnerRisks(s40, 1.149661).map((r) => r.risk)).toContain("lean-blow-off");

@@ -72,8 +72,12 @@ describe("phi sweep", () => {
   });
 
   it("rejects an impossible range with an input error naming the field", () => {
-    expect(() => phiSweep({ fuel: { composition: { CH4: 1 } }, phiMin: 1.2, phiMax: 1.0 })).toThrow(expect.objectContaining({ kind: "input", field: "phiMax" }));
-    expect(() => phiSweep({ fuel: { composition: { CH4: 1 } }, phiMin: 0, phiMax: 1.0 })).toThrow(expect.objectContaining({ kind: "input", field: "phiMin" }));
+    expect(() => phiSweep({ fuel: { composition: { CH4: 1 } }, phiMin: 1.2, phiMax: 1.0 })).toThrow(
+      expect.objectContaining({ kind: "input", field: "phiMax" }),
+    );
+    expect(() => phiSweep({ fuel: { composition: { CH4: 1 } }, phiMin: 0, phiMax: 1.0 })).toThrow(
+      expect.objectContaining({ kind: "input", field: "phiMin" }),
+    );
   });
 });
 
@@ -82,8 +86,16 @@ describe("phi sweep in a plant", () => {
     const { plantSchema } = await import("../../../lib/schemas/plant");
     // Invented plant (common practice, no source): 3 % O2 dry, air preheated to 200 °C.
     const plant = plantSchema.parse({
-      name: "p", equipmentType: "steam-boiler", ratedInput_kW: 1000, operatingHours: 1000, averageLoadFraction: 0.5,
-      stackTemperatureC: 150, flueO2DryPercent: 3, combustionAirC: 200, radiationLossPercent: 1, condensing: false,
+      name: "p",
+      equipmentType: "steam-boiler",
+      ratedInput_kW: 1000,
+      operatingHours: 1000,
+      averageLoadFraction: 0.5,
+      stackTemperatureC: 150,
+      flueO2DryPercent: 3,
+      combustionAirC: 200,
+      radiationLossPercent: 1,
+      condensing: false,
     });
     const { phiSweepInPlant } = await import("../../../lib/study/phi-sweep");
     const r = phiSweepInPlant({ composition: { CH4: 1 } }, plant, {}, { steps: 10, phiMin: 0.6, phiMax: 1.4 });

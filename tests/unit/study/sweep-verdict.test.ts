@@ -4,12 +4,20 @@ import { sweepVerdict, type SweepCrossing, type SweepPoint } from "../../../lib/
 // Only h2Percent matters to the verdict; the other fields are placeholders of the point shape.
 const point = (h2Percent: number) => ({ h2Percent }) as SweepPoint;
 const points = [0, 10, 20, 30, 40].map(point);
-const crossing = (checkId: string, statusAtZero: SweepCrossing["statusAtZero"], firstWarnPercent: number | null, firstFailPercent: number | null) =>
-  ({ checkId, label: checkId, statusAtZero, firstWarnPercent, firstFailPercent }) as SweepCrossing;
+const crossing = (
+  checkId: string,
+  statusAtZero: SweepCrossing["statusAtZero"],
+  firstWarnPercent: number | null,
+  firstFailPercent: number | null,
+) => ({ checkId, label: checkId, statusAtZero, firstWarnPercent, firstFailPercent }) as SweepCrossing;
 
 describe("hydrogen-sweep verdict", () => {
   it("orders failures by the share at which they first fail and stops just below the first", () => {
-    const v = sweepVerdict(points, [crossing("wobbe", "pass", 10, 30), crossing("burner", "pass", 20, 20), crossing("stack", "pass", null, null)]);
+    const v = sweepVerdict(points, [
+      crossing("wobbe", "pass", 10, 30),
+      crossing("burner", "pass", 20, 20),
+      crossing("stack", "pass", null, null),
+    ]);
     expect(v.firstFailures.map((c) => c.checkId)).toEqual(["burner", "wobbe"]);
     expect(v.largestPassingPoint?.h2Percent).toBe(10);
   });

@@ -24,11 +24,18 @@ afterAll(async () => {
   await t.cleanup();
 });
 
-const get = (q: string) => route.GET(new Request(`http://x/api/studies/${id}/uncertainty${q}`), { params: Promise.resolve({ id: String(id) }) });
+const get = (q: string) =>
+  route.GET(new Request(`http://x/api/studies/${id}/uncertainty${q}`), { params: Promise.resolve({ id: String(id) }) });
 
 describe("uncertainty of a stored study", () => {
   it("ranks the demo study with ranges stated for the view, and names the field of a bad request", async () => {
-    const ans = await uncertaintyOfStoredStudy(t.client, id, { draws: 500, seed: 2, shape: "pert", ranges: { fuelPricePercent: 30 }, fuelPriceCorrelation: 0.5 });
+    const ans = await uncertaintyOfStoredStudy(t.client, id, {
+      draws: 500,
+      seed: 2,
+      shape: "pert",
+      ranges: { fuelPricePercent: 30 },
+      fuelPriceCorrelation: 0.5,
+    });
     if (!ans.ok) throw new Error(ans.message);
     expect(ans.result.scenarios.reduce((s, x) => s + x.pFirst, 0)).toBeCloseTo(1, 12);
     const price = ans.result.inputs.find((i) => i.kind === "price")!;

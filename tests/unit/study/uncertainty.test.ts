@@ -23,7 +23,10 @@ function twoOptions(rho: number | null): StudyInput {
     baseline: { ...example.baseline, price: q(40) },
     scenarios: [{ name: "B", fuel: example.baseline.fuel, price: q(42) }],
     uncertainty: {
-      fuelPrices: { "baseline.price": { distribution: "normal", mean: 0, sd: 5 }, "scenarios.0.price": { distribution: "normal", mean: 0, sd: 5 } },
+      fuelPrices: {
+        "baseline.price": { distribution: "normal", mean: 0, sd: 5 },
+        "scenarios.0.price": { distribution: "normal", mean: 0, sd: 5 },
+      },
       efficiencyPoints: fixed,
       carbonPrice: fixed,
       operatingHours: fixed,
@@ -125,14 +128,20 @@ describe("Monte Carlo ranking of the 20-scenario study", () => {
   });
 
   it("names the field of an unknown quote key and of an unknown correlated input", () => {
-    const bad = studySchema.parse({ ...twentyScenarioStudy(), uncertainty: { fuelPrices: { "scenarios.99.price": { distribution: "normal", sd: 5 } } } });
+    const bad = studySchema.parse({
+      ...twentyScenarioStudy(),
+      uncertainty: { fuelPrices: { "scenarios.99.price": { distribution: "normal", sd: 5 } } },
+    });
     expect(() => uncertaintyRanking(bad, { draws: 100, seed: 1 })).toThrow(InputError);
     try {
       uncertaintyRanking(bad, { draws: 100, seed: 1 });
     } catch (e) {
       expect((e as InputError).field).toBe("uncertainty.fuelPrices.scenarios.99.price");
     }
-    const bad2 = studySchema.parse({ ...twentyScenarioStudy(), uncertainty: { correlations: [{ a: "carbon", b: "price:nowhere", rho: 0.5 }] } });
+    const bad2 = studySchema.parse({
+      ...twentyScenarioStudy(),
+      uncertainty: { correlations: [{ a: "carbon", b: "price:nowhere", rho: 0.5 }] },
+    });
     try {
       uncertaintyRanking(bad2, { draws: 100, seed: 1 });
       expect.unreachable();
@@ -176,7 +185,13 @@ describe("paths in the study", () => {
     // Hand relation: NPV(with path) − NPV(flat) = Σ_t Δt_CO2 · (path_t − flat_t) / (1 + d)^t.
     const input = twentyScenarioStudy();
     const flat = studyPathSetup(studySchema.parse({ ...input, priceEscalationPercent: 0 }));
-    const path = { kind: "stepped", points: [{ year: 1, value: input.carbonPrice_per_t ?? 0 }, { year: 6, value: 200 }] } as const;
+    const path = {
+      kind: "stepped",
+      points: [
+        { year: 1, value: input.carbonPrice_per_t ?? 0 },
+        { year: 6, value: 200 },
+      ],
+    } as const;
     const stepped = studyPathSetup(studySchema.parse({ ...input, priceEscalationPercent: 0, paths: { carbon: path } }));
     const i = flat.evaluation.scenarios.findIndex((s) => s.name === "biomethane");
     const avoided = flat.evaluation.scenarios[i].comparison!.annualCo2Avoided_t;
@@ -187,7 +202,10 @@ describe("paths in the study", () => {
     const npvPath = pathEconomics(stepped).scenarios[i]!.npv;
     expect(npvPath - npvFlat).toBeCloseTo(extra, 4);
     // The comparison of evaluateStudy follows the stated path as well, and says so.
-    const ev = evaluateStudy(studySchema.parse({ ...input, priceEscalationPercent: 0, paths: { carbon: path } }), { sweep: false, tornado: false });
+    const ev = evaluateStudy(studySchema.parse({ ...input, priceEscalationPercent: 0, paths: { carbon: path } }), {
+      sweep: false,
+      tornado: false,
+    });
     expect(ev.scenarios[i].comparison!.npv - npvFlat).toBeCloseTo(extra, 4);
     expect(ev.audit.notes.join(" ")).toMatch(/price paths stated/);
   });
@@ -197,7 +215,8 @@ describe("paths in the study", () => {
     const plain = evaluateStudy(studySchema.parse(input), { sweep: false, tornado: false });
     const withPaths = evaluateStudy(studySchema.parse({ ...input, paths: {} }), { sweep: false, tornado: false });
     plain.scenarios.forEach((s, i) => {
-      const a = s.comparison, b = withPaths.scenarios[i].comparison;
+      const a = s.comparison,
+        b = withPaths.scenarios[i].comparison;
       if (!a || !b) {
         expect(b).toBe(a);
         return;

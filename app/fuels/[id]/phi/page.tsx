@@ -43,34 +43,56 @@ export default async function FuelPhiPage({ params }: Props) {
       </p>
       <h1>{row.name}: flame temperature against φ</h1>
       <p className="lede">
-        Adiabatic flame temperature from lean (φ &lt; 1) to rich (φ &gt; 1) in dry air, fuel and air at 25 °C, 101.325 kPa: chemical equilibrium
-        (dissociation; it peaks slightly on the rich side), complete combustion (peaks at φ = 1) and the mean-cp hand estimate (dashed). For the
-        conditions of a particular plant, open the φ sweep of a study scenario.
+        Adiabatic flame temperature from lean (φ &lt; 1) to rich (φ &gt; 1) in dry air, fuel and air at 25 °C, 101.325 kPa: chemical
+        equilibrium (dissociation; it peaks slightly on the rich side), complete combustion (peaks at φ = 1) and the mean-cp hand estimate
+        (dashed). For the conditions of a particular plant, open the φ sweep of a study scenario.
       </p>
       {error && <p className="note bad">The sweep could not be computed: {error}</p>}
       {sweep && (
         <>
           <section className="panel" data-testid="fuel-phi-peaks">
             <p>
-              Equilibrium peak: <strong>{eq ? `${fmt(kelvinToCelsius(eq.temperatureK), 0)} °C (${fmt(eq.temperatureK, 0)} K) at φ = ${fmt(eq.phi, 3)}` : "–"}</strong>
-              {" · "}Complete-combustion peak: <strong>{co ? `${fmt(kelvinToCelsius(co.temperatureK), 0)} °C at φ = ${fmt(co.phi, 3)}` : "–"}</strong>
+              Equilibrium peak:{" "}
+              <strong>
+                {eq ? `${fmt(kelvinToCelsius(eq.temperatureK), 0)} °C (${fmt(eq.temperatureK, 0)} K) at φ = ${fmt(eq.phi, 3)}` : "–"}
+              </strong>
+              {" · "}Complete-combustion peak:{" "}
+              <strong>{co ? `${fmt(kelvinToCelsius(co.temperatureK), 0)} °C at φ = ${fmt(co.phi, 3)}` : "–"}</strong>
             </p>
             <PhiChart
               unit="°C"
               operatingPhi={null}
-              data={sweep.points.map((p) => ({ phi: p.phi, equilibrium: toC(p.equilibriumK), complete: toC(p.completeK), meanCp: toC(p.meanCpK) }))}
+              data={sweep.points.map((p) => ({
+                phi: p.phi,
+                equilibrium: toC(p.equilibriumK),
+                complete: toC(p.completeK),
+                meanCp: toC(p.meanCpK),
+              }))}
               peaks={[
-                ...(eq ? [{ phi: eq.phi, value: kelvinToCelsius(eq.temperatureK), which: "equilibrium" as const, label: `peak φ = ${fmt(eq.phi, 3)}` }] : []),
-                ...(co ? [{ phi: co.phi, value: kelvinToCelsius(co.temperatureK), which: "complete" as const, label: `φ = ${fmt(co.phi, 2)}` }] : []),
+                ...(eq
+                  ? [
+                      {
+                        phi: eq.phi,
+                        value: kelvinToCelsius(eq.temperatureK),
+                        which: "equilibrium" as const,
+                        label: `peak φ = ${fmt(eq.phi, 3)}`,
+                      },
+                    ]
+                  : []),
+                ...(co
+                  ? [{ phi: co.phi, value: kelvinToCelsius(co.temperatureK), which: "complete" as const, label: `φ = ${fmt(co.phi, 2)}` }]
+                  : []),
               ]}
             />
             <p className="basis">
-              {sweep.basis}. Methods: equilibrium — {sweep.methods.equilibrium}; complete — {sweep.methods.complete}; hand estimate — {sweep.methods["mean-cp"]}.
+              {sweep.basis}. Methods: equilibrium — {sweep.methods.equilibrium}; complete — {sweep.methods.complete}; hand estimate —{" "}
+              {sweep.methods["mean-cp"]}.
             </p>
           </section>
           {failed.length > 0 && (
             <p className="note warn">
-              No value at {failed.map((p) => `φ = ${fmt(p.phi, 2)} (${p.errors.join("; ")})`).join(", ")}: no number is shown where a method has none.
+              No value at {failed.map((p) => `φ = ${fmt(p.phi, 2)} (${p.errors.join("; ")})`).join(", ")}: no number is shown where a method
+              has none.
             </p>
           )}
         </>

@@ -20,7 +20,9 @@ export default async function EditPlantPage({ params }: { params: Promise<{ id: 
         <Link href="/plants">Plants</Link> / <Link href={`/plants/${p.id}`}>{p.plant.name}</Link> / edit
       </div>
       <h1>Edit {p.plant.name}</h1>
-      {p.studies.length > 0 && <p className="note">Studies of this plant ({p.studies.map((s) => s.name).join(", ")}) will show the new figures.</p>}
+      {p.studies.length > 0 && (
+        <p className="note">Studies of this plant ({p.studies.map((s) => s.name).join(", ")}) will show the new figures.</p>
+      )}
       <PlantForm options={options} initial={{ ...p.plant, id: p.id, baselineFuelId: p.baselineFuelId }} />
     </>
   );

@@ -70,9 +70,9 @@ export default async function PhiPage({ params, searchParams }: Props) {
     <>
       <h2 style={{ marginTop: 0, border: 0 }}>Flame temperature against the equivalence ratio</h2>
       <p className="lede">
-        Adiabatic flame temperature of one scenario&apos;s fuel from lean (φ &lt; 1, excess air) to rich (φ &gt; 1), solved two ways: chemical
-        equilibrium, which dissociates CO2 and H2O and so peaks slightly on the rich side, and complete combustion, which peaks at φ = 1. The
-        dashed grey line is the mean-cp hand estimate.
+        Adiabatic flame temperature of one scenario&apos;s fuel from lean (φ &lt; 1, excess air) to rich (φ &gt; 1), solved two ways:
+        chemical equilibrium, which dissociates CO2 and H2O and so peaks slightly on the rich side, and complete combustion, which peaks at
+        φ = 1. The dashed grey line is the mean-cp hand estimate.
       </p>
       <div className="choice-bar">
         <span>
@@ -81,7 +81,12 @@ export default async function PhiPage({ params, searchParams }: Props) {
             {all.map((s, i) => {
               const k = i - 1;
               return (
-                <Link key={s.name} href={`/studies/${id}/phi${viewQuery(view, { scenario: k === -1 ? undefined : k })}`} aria-current={k === idx ? "true" : undefined} scroll={false}>
+                <Link
+                  key={s.name}
+                  href={`/studies/${id}/phi${viewQuery(view, { scenario: k === -1 ? undefined : k })}`}
+                  aria-current={k === idx ? "true" : undefined}
+                  scroll={false}
+                >
                   {s.name}
                 </Link>
               );
@@ -91,25 +96,36 @@ export default async function PhiPage({ params, searchParams }: Props) {
         <UnitSwitch units={units} groups={["temperature"]} />
       </div>
 
-      {error && <p className="note bad">The sweep could not be computed for {sc.name}: {error}</p>}
+      {error && (
+        <p className="note bad">
+          The sweep could not be computed for {sc.name}: {error}
+        </p>
+      )}
       {sweep && (
         <>
           <section className="verdict" aria-label="Peaks">
             <div className="card" data-testid="phi-peak">
               <h3>Equilibrium peak</h3>
               <div className="big">{eq ? `${d.temp(kelvinToCelsius(eq.temperatureK))} ${d.tempUnit} at φ = ${fmt(eq.phi, 3)}` : "–"}</div>
-              <p>{eq ? (eq.phi > 1 ? "on the rich side of stoichiometric, as dissociation predicts" : "at or below stoichiometric") : ""}</p>
+              <p>
+                {eq ? (eq.phi > 1 ? "on the rich side of stoichiometric, as dissociation predicts" : "at or below stoichiometric") : ""}
+              </p>
             </div>
             <div className="card">
               <h3>Complete-combustion peak</h3>
               <div className="big">{co ? `${d.temp(kelvinToCelsius(co.temperatureK))} ${d.tempUnit} at φ = ${fmt(co.phi, 3)}` : "–"}</div>
-              <p>{eq && co ? `${d.dT(co.temperatureK - eq.temperatureK, 0, false)} ${d.dTUnit} above the equilibrium peak: the heat dissociation absorbs` : ""}</p>
+              <p>
+                {eq && co
+                  ? `${d.dT(co.temperatureK - eq.temperatureK, 0, false)} ${d.dTUnit} above the equilibrium peak: the heat dissociation absorbs`
+                  : ""}
+              </p>
             </div>
             <div className="card">
               <h3>The plant runs at</h3>
               <div className="big">{sweep.operatingPhi ? `φ = ${fmt(sweep.operatingPhi, 3)}` : "–"}</div>
               <p>
-                {fmt(sweep.conditions.flueO2DryPercent, 1)} % O2 in the dry flue gas, combustion air at {d.temp(sweep.conditions.combustionAirC)} {d.tempUnit}.
+                {fmt(sweep.conditions.flueO2DryPercent, 1)} % O2 in the dry flue gas, combustion air at{" "}
+                {d.temp(sweep.conditions.combustionAirC)} {d.tempUnit}.
               </p>
             </div>
           </section>
@@ -120,9 +136,16 @@ export default async function PhiPage({ params, searchParams }: Props) {
             <PhiChart
               unit={d.tempUnit}
               operatingPhi={sweep.operatingPhi}
-              data={sweep.points.map((p) => ({ phi: p.phi, equilibrium: toC(p.equilibriumK), complete: toC(p.completeK), meanCp: toC(p.meanCpK) }))}
+              data={sweep.points.map((p) => ({
+                phi: p.phi,
+                equilibrium: toC(p.equilibriumK),
+                complete: toC(p.completeK),
+                meanCp: toC(p.meanCpK),
+              }))}
               peaks={[
-                ...(eq ? [{ phi: eq.phi, value: toC(eq.temperatureK)!, which: "equilibrium" as const, label: `peak φ = ${fmt(eq.phi, 3)}` }] : []),
+                ...(eq
+                  ? [{ phi: eq.phi, value: toC(eq.temperatureK)!, which: "equilibrium" as const, label: `peak φ = ${fmt(eq.phi, 3)}` }]
+                  : []),
                 ...(co ? [{ phi: co.phi, value: toC(co.temperatureK)!, which: "complete" as const, label: `φ = ${fmt(co.phi, 2)}` }] : []),
               ]}
             />
@@ -133,8 +156,8 @@ export default async function PhiPage({ params, searchParams }: Props) {
           </section>
           {failed.length > 0 && (
             <p className="note warn">
-              No value at {failed.map((p) => `φ = ${fmt(p.phi, 2)} (${p.errors.join("; ")})`).join(", ")}: the solver did not converge there, so no number is
-              shown.
+              No value at {failed.map((p) => `φ = ${fmt(p.phi, 2)} (${p.errors.join("; ")})`).join(", ")}: the solver did not converge
+              there, so no number is shown.
             </p>
           )}
           <details style={{ marginTop: "1rem" }}>

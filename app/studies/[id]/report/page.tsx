@@ -55,57 +55,58 @@ function CompactRanking({ list, result, d }: { list: Ranked[]; result: StudyResu
     <section className="keep compact-ranking" data-testid="compact-ranking">
       <h2>Ranking at a glance</h2>
       <div className="table-wrap">
-      <table className="compact">
-        <thead>
-          <tr>
-            <th className="num">#</th>
-            <th>Scenario</th>
-            <th>Fit</th>
-            <th className="num">
-              {METRIC_SHORT[metric]} <span className="unit">ranked by</span>
-            </th>
-            <th className="num">
-              Cost <span className="unit">{d.costPerEnergyUnit} useful</span>
-            </th>
-            <th className="num">
-              CO2 <span className="unit">g/MJ useful</span>
-            </th>
-            <th className="num">
-              CO2 avoided <span className="unit">t/yr</span>
-            </th>
-            <th className="num">
-              Capex <span className="unit">thousand {d.currency}</span>
-            </th>
-            <th className="num">
-              NPV <span className="unit">thousand {d.currency}</span>
-            </th>
-          </tr>
-        </thead>
-        <tbody>
-          {shown.map(({ r }) => (
-            <tr key={r.index} className={r.status === "infeasible" ? "infeasible" : undefined}>
-              <td className="num">{r.rank}</td>
-              <td>
-                {r.name}
-                {r.isBaseline && <span className="muted"> (baseline)</span>}
-              </td>
-              <td>
-                <Status status={r.status} />
-              </td>
-              <td className="num">{metricText(metric, r.metricValue, d)}</td>
-              <td className="num">{r.costs ? d.costPerEnergy(r.costs.costPerUsefulMWh.total) : "–"}</td>
-              <td className="num">{fmt(co2Ranked(r), 1)}</td>
-              <td className="num">{r.isBaseline ? "—" : fmt(r.comparison?.annualCo2Avoided_t, 0)}</td>
-              <td className="num">{r.isBaseline ? "—" : thousands(r.audit.inputs.capex)}</td>
-              <td className="num">{r.isBaseline ? "—" : thousands(r.comparison?.npv)}</td>
+        <table className="compact">
+          <thead>
+            <tr>
+              <th className="num">#</th>
+              <th>Scenario</th>
+              <th>Fit</th>
+              <th className="num">
+                {METRIC_SHORT[metric]} <span className="unit">ranked by</span>
+              </th>
+              <th className="num">
+                Cost <span className="unit">{d.costPerEnergyUnit} useful</span>
+              </th>
+              <th className="num">
+                CO2 <span className="unit">g/MJ useful</span>
+              </th>
+              <th className="num">
+                CO2 avoided <span className="unit">t/yr</span>
+              </th>
+              <th className="num">
+                Capex <span className="unit">thousand {d.currency}</span>
+              </th>
+              <th className="num">
+                NPV <span className="unit">thousand {d.currency}</span>
+              </th>
             </tr>
-          ))}
-        </tbody>
-      </table>
+          </thead>
+          <tbody>
+            {shown.map(({ r }) => (
+              <tr key={r.index} className={r.status === "infeasible" ? "infeasible" : undefined}>
+                <td className="num">{r.rank}</td>
+                <td>
+                  {r.name}
+                  {r.isBaseline && <span className="muted"> (baseline)</span>}
+                </td>
+                <td>
+                  <Status status={r.status} />
+                </td>
+                <td className="num">{metricText(metric, r.metricValue, d)}</td>
+                <td className="num">{r.costs ? d.costPerEnergy(r.costs.costPerUsefulMWh.total) : "–"}</td>
+                <td className="num">{fmt(co2Ranked(r), 1)}</td>
+                <td className="num">{r.isBaseline ? "—" : fmt(r.comparison?.annualCo2Avoided_t, 0)}</td>
+                <td className="num">{r.isBaseline ? "—" : thousands(r.audit.inputs.capex)}</td>
+                <td className="num">{r.isBaseline ? "—" : thousands(r.comparison?.npv)}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
       </div>
       <p className="table-note">
         {list.length > COMPACT_MAX ? `The first ${COMPACT_MAX} of ${list.length} scenarios; the full tables follow. ` : ""}
-        Infeasible scenarios (a fit check fails) rank after the feasible ones. NPV over {result.study.horizonYears} years at {fmt(result.study.discountRatePercent, 1)} % against the baseline.
+        Infeasible scenarios (a fit check fails) rank after the feasible ones. NPV over {result.study.horizonYears} years at{" "}
+        {fmt(result.study.discountRatePercent, 1)} % against the baseline.
       </p>
     </section>
   );
@@ -119,7 +120,10 @@ export default async function ReportPage({ params, searchParams }: Props) {
   const paper = sp.paper === "letter" ? "letter" : "a4";
   const orientation = sp.orient === "landscape" ? "landscape" : "portrait";
   const revision = typeof sp.revision === "string" && /^[1-9]\d{0,8}$/.test(sp.revision) ? Number(sp.revision) : undefined;
-  const [ev, units] = await Promise.all([studyReportData(db(), id, { revision, metric: view.metric, includeUpstream: view.includeUpstream, sweep: true, tornado: false }), displayUnits()]);
+  const [ev, units] = await Promise.all([
+    studyReportData(db(), id, { revision, metric: view.metric, includeUpstream: view.includeUpstream, sweep: true, tornado: false }),
+    displayUnits(),
+  ]);
   if (!ev.ok) {
     if (ev.kind === "not-found") notFound();
     return <EvaluationProblem id={id} message={ev.message} fieldErrors={ev.fieldErrors} />;
@@ -136,7 +140,9 @@ export default async function ReportPage({ params, searchParams }: Props) {
   const cover = bundle.study;
   // An issued revision names itself on the cover; the live study is not issued.
   const rev = bundle.meta.revision;
-  const revisionText = rev ? `Revision ${rev.number} of ${rev.issuedAt.slice(0, 10)}, SHA-256 ${rev.hash.slice(0, 16)}…` : "live inputs, not an issued revision";
+  const revisionText = rev
+    ? `Revision ${rev.number} of ${rev.issuedAt.slice(0, 10)}, SHA-256 ${rev.hash.slice(0, 16)}…`
+    : "live inputs, not an issued revision";
   const layout = { paper: paper === "a4" ? undefined : paper, orient: orientation === "portrait" ? undefined : orientation };
   const sourceTexts = [
     ...result.audit.methods.map((m) => m.source),
@@ -160,19 +166,33 @@ export default async function ReportPage({ params, searchParams }: Props) {
         <PrintButton />
         <span className="segmented" role="group" aria-label="Paper">
           {(["a4", "letter"] as const).map((k) => (
-            <Link key={k} href={`/studies/${id}/report${viewQuery(view, { ...layout, paper: k === "a4" ? undefined : k })}`} aria-current={paper === k ? "true" : undefined} scroll={false}>
+            <Link
+              key={k}
+              href={`/studies/${id}/report${viewQuery(view, { ...layout, paper: k === "a4" ? undefined : k })}`}
+              aria-current={paper === k ? "true" : undefined}
+              scroll={false}
+            >
               {PAPER[k]}
             </Link>
           ))}
         </span>
         <span className="segmented" role="group" aria-label="Orientation">
           {(["portrait", "landscape"] as const).map((k) => (
-            <Link key={k} href={`/studies/${id}/report${viewQuery(view, { ...layout, orient: k === "portrait" ? undefined : k })}`} aria-current={orientation === k ? "true" : undefined} scroll={false}>
+            <Link
+              key={k}
+              href={`/studies/${id}/report${viewQuery(view, { ...layout, orient: k === "portrait" ? undefined : k })}`}
+              aria-current={orientation === k ? "true" : undefined}
+              scroll={false}
+            >
               {ORIENTATION[k]}
             </Link>
           ))}
         </span>
-        <a className="button secondary" href={`/api/studies/${id}/export?format=csv&table=scenarios${view.metric ? `&metric=${view.metric}` : ""}${view.includeUpstream !== undefined ? `&upstream=${view.includeUpstream ? 1 : 0}` : ""}`} download>
+        <a
+          className="button secondary"
+          href={`/api/studies/${id}/export?format=csv&table=scenarios${view.metric ? `&metric=${view.metric}` : ""}${view.includeUpstream !== undefined ? `&upstream=${view.includeUpstream ? 1 : 0}` : ""}`}
+          download
+        >
           Scenarios CSV
         </a>
         <a className="button secondary" href={`/api/studies/${id}/export?format=csv&table=checks`} download>
@@ -181,11 +201,16 @@ export default async function ReportPage({ params, searchParams }: Props) {
         <a className="button secondary" href={`/api/studies/${id}/export?format=csv&table=sweep`} download>
           Sweep CSV
         </a>
-        <a className="button secondary" href={`/api/studies/${id}/export?format=json${view.metric ? `&metric=${view.metric}` : ""}${view.includeUpstream !== undefined ? `&upstream=${view.includeUpstream ? 1 : 0}` : ""}`} download>
+        <a
+          className="button secondary"
+          href={`/api/studies/${id}/export?format=json${view.metric ? `&metric=${view.metric}` : ""}${view.includeUpstream !== undefined ? `&upstream=${view.includeUpstream ? 1 : 0}` : ""}`}
+          download
+        >
           Everything as JSON
         </a>
         <span className="muted small-note">
-          Units follow the unit switch; the cover&apos;s title, client, author, date and notes are edited with the study. The print stylesheet drops the controls.
+          Units follow the unit switch; the cover&apos;s title, client, author, date and notes are edited with the study. The print
+          stylesheet drops the controls.
         </span>
       </div>
 
@@ -240,7 +265,9 @@ export default async function ReportPage({ params, searchParams }: Props) {
         </header>
 
         {bundle.meta.anyInventedPrice && (
-          <p className="note warn">This report uses invented demo prices (marked “invented”): the costs illustrate the method, not the market.</p>
+          <p className="note warn">
+            This report uses invented demo prices (marked “invented”): the costs illustrate the method, not the market.
+          </p>
         )}
 
         <section className="keep">
@@ -255,18 +282,28 @@ export default async function ReportPage({ params, searchParams }: Props) {
                     {fmt(h.best.r.comparison.annualCo2Avoided_t, 0)} t CO2/yr
                   </>
                 )}
-                {h.bestIsBaseline && h.bestCandidate && <>; best feasible candidate {h.bestCandidate.r.name} ({metricText(metric, h.bestCandidate.r.metricValue, d)})</>}.
+                {h.bestIsBaseline && h.bestCandidate && (
+                  <>
+                    ; best feasible candidate {h.bestCandidate.r.name} ({metricText(metric, h.bestCandidate.r.metricValue, d)})
+                  </>
+                )}
+                .
               </li>
             )}
             {h.lowestCo2 && (
               <li>
                 <b>Lowest CO2 among feasible options:</b> {h.lowestCo2.r.name}, {fmt(h.lowestCo2.r.co2PerUsefulMJ_g.ranked, 1)} g/MJ useful
-                {h.lowestCo2.r.comparison?.abatementCost_per_t != null && <> at {money(h.lowestCo2.r.comparison.abatementCost_per_t, d.currency, 0)}/t abated</>}.
+                {h.lowestCo2.r.comparison?.abatementCost_per_t != null && (
+                  <> at {money(h.lowestCo2.r.comparison.abatementCost_per_t, d.currency, 0)}/t abated</>
+                )}
+                .
               </li>
             )}
             <li>
               <b>Infeasible in this plant:</b>{" "}
-              {h.infeasible.length === 0 ? "none." : `${h.infeasible.map((x) => `${x.r.name} (fails ${failingChecks(x.r).join("; ")})`).join("; ")}.`}
+              {h.infeasible.length === 0
+                ? "none."
+                : `${h.infeasible.map((x) => `${x.r.name} (fails ${failingChecks(x.r).join("; ")})`).join("; ")}.`}
             </li>
             {sw && (
               <li>
@@ -311,7 +348,8 @@ export default async function ReportPage({ params, searchParams }: Props) {
                 <tr>
                   <th>Combustion air</th>
                   <td className="num">
-                    {d.temp(p.combustionAirC)} {d.tempUnit}; ambient {d.temp(p.ambientAir.temperatureC)} {d.tempUnit}, {fmt(p.ambientAir.relativeHumidityPercent, 0)} % RH
+                    {d.temp(p.combustionAirC)} {d.tempUnit}; ambient {d.temp(p.ambientAir.temperatureC)} {d.tempUnit},{" "}
+                    {fmt(p.ambientAir.relativeHumidityPercent, 0)} % RH
                   </td>
                 </tr>
                 <tr>
@@ -331,7 +369,8 @@ export default async function ReportPage({ params, searchParams }: Props) {
           <p>
             Currency {d.currency}; carbon price {money(result.study.carbonPrice_per_t, d.currency, 0)}/t fossil CO2; discount rate{" "}
             {fmt(result.study.discountRatePercent, 1)} %; horizon {result.study.horizonYears} years; fuel and carbon prices escalating{" "}
-            {fmt(result.study.priceEscalationPercent, 1)} %/yr; upstream CO2e {result.study.includeUpstream ? "counted and priced" : "reported, not counted"}.
+            {fmt(result.study.priceEscalationPercent, 1)} %/yr; upstream CO2e{" "}
+            {result.study.includeUpstream ? "counted and priced" : "reported, not counted"}.
           </p>
           <ul>
             {result.audit.assumptions.map((a) => (
@@ -366,15 +405,25 @@ export default async function ReportPage({ params, searchParams }: Props) {
                       <td>
                         {q ? (
                           <>
-                            {fmtUpTo(q.amount, 4)} + {fmtUpTo(q.transportAdder, 4)} + {fmtUpTo(q.handlingAdder, 4)} {q.currency}/{r.price?.unitLabel ?? q.unit}
-                            {q.isInvented && <> <span className="badge invented">invented</span></>}
+                            {fmtUpTo(q.amount, 4)} + {fmtUpTo(q.transportAdder, 4)} + {fmtUpTo(q.handlingAdder, 4)} {q.currency}/
+                            {r.price?.unitLabel ?? q.unit}
+                            {q.isInvented && (
+                              <>
+                                {" "}
+                                <span className="badge invented">invented</span>
+                              </>
+                            )}
                           </>
                         ) : (
                           priceSourceLabel(meta.price)
                         )}
-                        <div className="unit">{meta.priceQuoteId !== null ? "chosen quote, fixed" : `rule: the latest ${d.currency} quote valid on ${today}`}</div>
+                        <div className="unit">
+                          {meta.priceQuoteId !== null ? "chosen quote, fixed" : `rule: the latest ${d.currency} quote valid on ${today}`}
+                        </div>
                       </td>
-                      <td className="num">{r.price ? `${d.costPerEnergy(r.price.perMWh_net)} net / ${d.costPerEnergy(r.price.perMWh_gross)} gross` : "–"}</td>
+                      <td className="num">
+                        {r.price ? `${d.costPerEnergy(r.price.perMWh_net)} net / ${d.costPerEnergy(r.price.perMWh_gross)} gross` : "–"}
+                      </td>
                       <td className="num">{r.isBaseline ? "—" : fmt(r.audit.inputs.capex, 0)}</td>
                       <td className="num">{r.isBaseline ? "—" : fmt(r.audit.inputs.fixedOpexChange, 0)}</td>
                       <td>{ov.length ? ov.map(([k, v]) => fieldValueText(k, v)).join("; ") : "none"}</td>
@@ -402,7 +451,12 @@ export default async function ReportPage({ params, searchParams }: Props) {
               <h3 className="chart-title">
                 Cost per useful {d.energyUnit} <span className="unit">({d.costPerEnergyUnit})</span>
               </h3>
-              <CostStackChart rows={costRows(list, d)} unit={`${d.costPerEnergyUnit} useful`} includeUpstream={result.study.includeUpstream} isStatic />
+              <CostStackChart
+                rows={costRows(list, d)}
+                unit={`${d.costPerEnergyUnit} useful`}
+                includeUpstream={result.study.includeUpstream}
+                isStatic
+              />
             </div>
             <div className="chart-box">
               <h3 className="chart-title">
@@ -466,20 +520,28 @@ export default async function ReportPage({ params, searchParams }: Props) {
                     <td className="num">{fmt(r.efficiency.excessAirPercent, 0)}</td>
                     <td className="num">{d.temp(r.efficiency.dewPointC, 1)}</td>
                     <td className="num">{r.flame ? d.temp(r.flame.temperatureC) : "–"}</td>
-                    <td className="num">{r.efficiency.siegert ? `${fmt(r.efficiency.siegert.siegertPercent, 2)} / ${fmt(r.efficiency.siegert.heatLossMethodPercent, 2)}` : "n/a"}</td>
+                    <td className="num">
+                      {r.efficiency.siegert
+                        ? `${fmt(r.efficiency.siegert.siegertPercent, 2)} / ${fmt(r.efficiency.siegert.heatLossMethodPercent, 2)}`
+                        : "n/a"}
+                    </td>
                   </tr>
                 ))}
               </tbody>
             </table>
           </div>
-          <p className="table-note">{result.baseline.efficiency.basis}. Siegert: rule-of-thumb flue loss (German 1. BImSchV), where its constants apply, beside the {SIEGERT_COMPARISON_DEFINITION}.</p>
+          <p className="table-note">
+            {result.baseline.efficiency.basis}. Siegert: rule-of-thumb flue loss (German 1. BImSchV), where its constants apply, beside the{" "}
+            {SIEGERT_COMPARISON_DEFINITION}.
+          </p>
         </section>
 
         {sw && (
           <section className="keep">
             <h2>Hydrogen blending: where each limit is crossed</h2>
             <p className="basis">
-              {sw.baseGasLabel} with {sw.hydrogenLabel}, 0–100 vol % in {fmt(sw.stepPercent, 0)} % steps, at the plant&apos;s operating point. {sw.basis.wobbe}.
+              {sw.baseGasLabel} with {sw.hydrogenLabel}, 0–100 vol % in {fmt(sw.stepPercent, 0)} % steps, at the plant&apos;s operating
+              point. {sw.basis.wobbe}.
             </p>
             <CrossingTable crossings={sw.crossings} />
             <div className="table-wrap" style={{ marginTop: "0.6rem" }}>
@@ -540,13 +602,20 @@ export default async function ReportPage({ params, searchParams }: Props) {
                 <b>{r.name}:</b> {r.audit.notes.map(plain).join("; ")}
               </li>
             ))}
-            {sw && <li>Hydrogen sweep: {hydrogenPriceLabel(bundle.meta.hydrogen)}{sw.notes.length ? `; ${sw.notes.map(plain).join("; ")}` : ""}.</li>}
+            {sw && (
+              <li>
+                Hydrogen sweep: {hydrogenPriceLabel(bundle.meta.hydrogen)}
+                {sw.notes.length ? `; ${sw.notes.map(plain).join("; ")}` : ""}.
+              </li>
+            )}
           </ul>
         </section>
 
         <section className="sources-appendix" data-testid="sources">
           <h2>Sources</h2>
-          <p className="table-note">The standards, papers and tables the computations of this report rest on, numbered as cited under Methods.</p>
+          <p className="table-note">
+            The standards, papers and tables the computations of this report rest on, numbered as cited under Methods.
+          </p>
           <ol className="citations">
             {citations.map((c) => (
               <li key={c.key} data-citation={c.key}>

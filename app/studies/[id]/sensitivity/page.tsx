@@ -64,9 +64,14 @@ export default async function SensitivityPage({ params, searchParams }: Props) {
     const v = numParam(sp, r.q);
     if (v !== undefined) ranges[r.key] = v;
   }
-  const badRange = RANGE_KEYS.filter((r) => ranges[r.key] !== undefined && !(ranges[r.key] >= 0 && ranges[r.key] <= (r.key === "efficiencyPoints" ? 20 : 200)));
+  const badRange = RANGE_KEYS.filter(
+    (r) => ranges[r.key] !== undefined && !(ranges[r.key] >= 0 && ranges[r.key] <= (r.key === "efficiencyPoints" ? 20 : 200)),
+  );
   for (const r of badRange) delete ranges[r.key];
-  const [ev, units] = await Promise.all([evaluateStoredStudy(db(), id, { metric: view.metric, includeUpstream: view.includeUpstream, sensitivity: ranges }), displayUnits()]);
+  const [ev, units] = await Promise.all([
+    evaluateStoredStudy(db(), id, { metric: view.metric, includeUpstream: view.includeUpstream, sensitivity: ranges }),
+    displayUnits(),
+  ]);
   if (!ev.ok) {
     if (ev.kind === "not-found") notFound();
     return <EvaluationProblem id={id} message={ev.message} fieldErrors={ev.fieldErrors} />;
@@ -98,15 +103,20 @@ export default async function SensitivityPage({ params, searchParams }: Props) {
     <>
       <h2 style={{ marginTop: 0, border: 0 }}>How robust is the answer?</h2>
       <p className="lede">
-        One input at a time moves to its low and high value while everything else stays; the bars show where the ranking metric lands. Break-even
-        prices say how far a price must move before the candidate costs the same as the baseline.
+        One input at a time moves to its low and high value while everything else stays; the bars show where the ranking metric lands.
+        Break-even prices say how far a price must move before the candidate costs the same as the baseline.
       </p>
       <div className="choice-bar">
         <span>
           <span className="choice-label">Candidate</span>
           <span className="segmented" role="group" aria-label="Candidate">
             {cands.map((c, i) => (
-              <Link key={c.name} href={`/studies/${id}/sensitivity${extra({ scenario: i })}`} aria-current={i === idx ? "true" : undefined} scroll={false}>
+              <Link
+                key={c.name}
+                href={`/studies/${id}/sensitivity${extra({ scenario: i })}`}
+                aria-current={i === idx ? "true" : undefined}
+                scroll={false}
+              >
                 {c.name}
               </Link>
             ))}
@@ -116,7 +126,12 @@ export default async function SensitivityPage({ params, searchParams }: Props) {
           <span className="choice-label">Metric</span>
           <span className="segmented" role="group" aria-label="Metric">
             {RANKING_METRICS.map((m) => (
-              <Link key={m} href={`/studies/${id}/sensitivity${viewQuery({ ...view, metric: m }, { scenario: idx, ...Object.fromEntries(RANGE_KEYS.map((r) => [r.q, ranges[r.key]])) })}`} aria-current={m === metric ? "true" : undefined} scroll={false}>
+              <Link
+                key={m}
+                href={`/studies/${id}/sensitivity${viewQuery({ ...view, metric: m }, { scenario: idx, ...Object.fromEntries(RANGE_KEYS.map((r) => [r.q, ranges[r.key]])) })}`}
+                aria-current={m === metric ? "true" : undefined}
+                scroll={false}
+              >
                 {METRIC_SHORT[m]}
               </Link>
             ))}
@@ -124,28 +139,43 @@ export default async function SensitivityPage({ params, searchParams }: Props) {
         </span>
         <UnitSwitch units={units} groups={["energy"]} />
       </div>
-      <form method="get" className="row no-print" style={{ alignItems: "flex-end", marginBottom: "0.75rem" }} aria-label="Sensitivity ranges">
+      <form
+        method="get"
+        className="row no-print"
+        style={{ alignItems: "flex-end", marginBottom: "0.75rem" }}
+        aria-label="Sensitivity ranges"
+      >
         {view.metric && <input type="hidden" name="metric" value={view.metric} />}
         {view.includeUpstream !== undefined && <input type="hidden" name="upstream" value={view.includeUpstream ? "1" : "0"} />}
         <input type="hidden" name="scenario" value={idx} />
         {RANGE_KEYS.map((r) => (
           <div className="field" key={r.q} style={{ flex: "0 1 150px" }}>
             <label htmlFor={`r-${r.q}`}>{r.label}</label>
-            <input id={`r-${r.q}`} name={r.q} className="num" inputMode="decimal" defaultValue={String(ranges[r.key] ?? result.study.sensitivity[r.key] ?? SENSITIVITY_DEFAULTS[r.key])} />
+            <input
+              id={`r-${r.q}`}
+              name={r.q}
+              className="num"
+              inputMode="decimal"
+              defaultValue={String(ranges[r.key] ?? result.study.sensitivity[r.key] ?? SENSITIVITY_DEFAULTS[r.key])}
+            />
           </div>
         ))}
         <button type="submit" className="secondary">
           Apply ranges
         </button>
       </form>
-      {badRange.length > 0 && <p className="note warn">Out of range and ignored: {badRange.map((r) => r.label).join(", ")} (0–200 %, efficiency 0–20 points).</p>}
+      {badRange.length > 0 && (
+        <p className="note warn">Out of range and ignored: {badRange.map((r) => r.label).join(", ")} (0–200 %, efficiency 0–20 points).</p>
+      )}
 
       <p>
         <b>{sc.name}</b> <Status status={sc.status} /> — {metricText(metric, sc.metricValue, d)} ({result.ranking.label}).
       </p>
       {!tor || tor.baseValue === null ? (
         <p className="note">
-          {sc.price ? `The ${METRIC_SHORT[metric].toLowerCase()} is not defined for this candidate (e.g. it avoids no CO2).` : "This candidate has no price: no sensitivity of cost figures."}
+          {sc.price
+            ? `The ${METRIC_SHORT[metric].toLowerCase()} is not defined for this candidate (e.g. it avoids no CO2).`
+            : "This candidate has no price: no sensitivity of cost figures."}
         </p>
       ) : (
         <div className="grid2">
@@ -182,15 +212,24 @@ export default async function SensitivityPage({ params, searchParams }: Props) {
                   <tr>
                     <th>Break-even fuel price, same cost per useful {d.energyUnit}</th>
                     <td className="num">
-                      {k.breakEven.fuelPriceOperating_per_MWh_net === null ? "none" : `${d.costPerEnergy(k.breakEven.fuelPriceOperating_per_MWh_net)} ${d.costPerEnergyUnit} (net)`}
+                      {k.breakEven.fuelPriceOperating_per_MWh_net === null
+                        ? "none"
+                        : `${d.costPerEnergy(k.breakEven.fuelPriceOperating_per_MWh_net)} ${d.costPerEnergyUnit} (net)`}
                       {k.breakEven.fuelPriceOperating_per_MWh_net !== null && sc.price && (
-                        <div className="unit">{signed((100 * (k.breakEven.fuelPriceOperating_per_MWh_net - sc.price.perMWh_net)) / sc.price.perMWh_net, 0)} % from today</div>
+                        <div className="unit">
+                          {signed((100 * (k.breakEven.fuelPriceOperating_per_MWh_net - sc.price.perMWh_net)) / sc.price.perMWh_net, 0)} %
+                          from today
+                        </div>
                       )}
                     </td>
                   </tr>
                   <tr>
                     <th>Break-even fuel price, NPV = 0 over {result.study.horizonYears} yr</th>
-                    <td className="num">{k.breakEven.fuelPriceNpv_per_MWh_net === null ? "none" : `${d.costPerEnergy(k.breakEven.fuelPriceNpv_per_MWh_net)} ${d.costPerEnergyUnit} (net)`}</td>
+                    <td className="num">
+                      {k.breakEven.fuelPriceNpv_per_MWh_net === null
+                        ? "none"
+                        : `${d.costPerEnergy(k.breakEven.fuelPriceNpv_per_MWh_net)} ${d.costPerEnergyUnit} (net)`}
+                    </td>
                   </tr>
                   <tr>
                     <th>Carbon price today</th>
@@ -198,22 +237,32 @@ export default async function SensitivityPage({ params, searchParams }: Props) {
                   </tr>
                   <tr>
                     <th>Break-even carbon price, same cost per useful {d.energyUnit}</th>
-                    <td className="num">{k.breakEven.carbonPriceOperating_per_t === null ? "none (CO2 does not differ)" : `${money(k.breakEven.carbonPriceOperating_per_t, d.currency, 0)}/t`}</td>
+                    <td className="num">
+                      {k.breakEven.carbonPriceOperating_per_t === null
+                        ? "none (CO2 does not differ)"
+                        : `${money(k.breakEven.carbonPriceOperating_per_t, d.currency, 0)}/t`}
+                    </td>
                   </tr>
                   <tr>
                     <th>Break-even carbon price, NPV = 0</th>
-                    <td className="num">{k.breakEven.carbonPriceNpv_per_t === null ? "none (CO2 does not differ)" : `${money(k.breakEven.carbonPriceNpv_per_t, d.currency, 0)}/t`}</td>
+                    <td className="num">
+                      {k.breakEven.carbonPriceNpv_per_t === null
+                        ? "none (CO2 does not differ)"
+                        : `${money(k.breakEven.carbonPriceNpv_per_t, d.currency, 0)}/t`}
+                    </td>
                   </tr>
                   <tr>
                     <th>Abatement cost (carbon price excluded)</th>
-                    <td className="num">{k.abatementCost_per_t === null ? "no CO2 avoided" : `${money(k.abatementCost_per_t, d.currency, 0)}/t`}</td>
+                    <td className="num">
+                      {k.abatementCost_per_t === null ? "no CO2 avoided" : `${money(k.abatementCost_per_t, d.currency, 0)}/t`}
+                    </td>
                   </tr>
                 </tbody>
               </table>
             )}
             <p className="basis">
-              Prices are delivered (commodity + transport + handling) per MWh of fuel on the net (LHV) basis, shown per {d.energyUnit}. A negative
-              break-even carbon price means the candidate is already cheaper at no carbon price.
+              Prices are delivered (commodity + transport + handling) per MWh of fuel on the net (LHV) basis, shown per {d.energyUnit}. A
+              negative break-even carbon price means the candidate is already cheaper at no carbon price.
             </p>
           </section>
         </div>

@@ -24,25 +24,33 @@ export const metadata: Metadata = { title: "Hydrogen-share sweep" };
 
 type Props = { params: Promise<{ id: string }>; searchParams: Promise<SearchParams> };
 
-function markersFor(points: SweepPoint[], crossings: SweepCrossing[], ids: FitCheckId[], y: (p: SweepPoint) => number | null): SweepMarker[] {
+function markersFor(
+  points: SweepPoint[],
+  crossings: SweepCrossing[],
+  ids: FitCheckId[],
+  y: (p: SweepPoint) => number | null,
+): SweepMarker[] {
   const out: SweepMarker[] = [];
   for (const c of crossings) {
     if (!ids.includes(c.checkId)) continue;
     const at = (x: number | null) => (x === null ? undefined : points.find((p) => p.h2Percent === x));
     const w = at(c.firstWarnPercent);
     const f = at(c.firstFailPercent);
-    if (w && c.firstWarnPercent !== c.firstFailPercent && c.statusAtZero !== "warn" && c.statusAtZero !== "fail") out.push({ x: w.h2Percent, y: y(w), kind: "warn", label: c.label });
+    if (w && c.firstWarnPercent !== c.firstFailPercent && c.statusAtZero !== "warn" && c.statusAtZero !== "fail")
+      out.push({ x: w.h2Percent, y: y(w), kind: "warn", label: c.label });
     if (f && c.statusAtZero !== "fail") out.push({ x: f.h2Percent, y: y(f), kind: "fail", label: c.label });
   }
   return out;
 }
 
-
 export default async function SweepPage({ params, searchParams }: Props) {
   const id = Number((await params).id);
   if (!Number.isInteger(id) || id <= 0) notFound();
   const view = viewChoice(await searchParams);
-  const [ev, units] = await Promise.all([evaluateStoredStudy(db(), id, { metric: view.metric, includeUpstream: view.includeUpstream, sweep: true, tornado: false }), displayUnits()]);
+  const [ev, units] = await Promise.all([
+    evaluateStoredStudy(db(), id, { metric: view.metric, includeUpstream: view.includeUpstream, sweep: true, tornado: false }),
+    displayUnits(),
+  ]);
   if (!ev.ok) {
     if (ev.kind === "not-found") notFound();
     return <EvaluationProblem id={id} message={ev.message} fieldErrors={ev.fieldErrors} />;
@@ -55,8 +63,8 @@ export default async function SweepPage({ params, searchParams }: Props) {
       <>
         <h2 style={{ marginTop: 0 }}>Hydrogen-share sweep</h2>
         <p className="note">
-          No hydrogen sweep for this study: {sw?.reason ?? "the sweep is not available"}. The sweep blends hydrogen into the baseline gas of a gas-fired
-          plant; compare liquid or solid candidates on the <Link href={`/studies/${id}`}>comparison</Link>.
+          No hydrogen sweep for this study: {sw?.reason ?? "the sweep is not available"}. The sweep blends hydrogen into the baseline gas of
+          a gas-fired plant; compare liquid or solid candidates on the <Link href={`/studies/${id}`}>comparison</Link>.
         </p>
       </>
     );
@@ -64,7 +72,8 @@ export default async function SweepPage({ params, searchParams }: Props) {
   const pts = sw.points;
   const lim = sw.limitLines!;
   const plant = result.plant;
-  const vLines = lim.maxH2SharePercent !== null ? [{ x: lim.maxH2SharePercent, label: `burner limit ${fmt(lim.maxH2SharePercent, 0)} %` }] : [];
+  const vLines =
+    lim.maxH2SharePercent !== null ? [{ x: lim.maxH2SharePercent, label: `burner limit ${fmt(lim.maxH2SharePercent, 0)} %` }] : [];
 
   // First failure at a share above 0 % (checks already failing on the baseline gas are listed apart).
   const verdict = sweepVerdict(pts, sw.crossings);
@@ -85,8 +94,9 @@ export default async function SweepPage({ params, searchParams }: Props) {
         <div>
           <h2 style={{ marginTop: 0, border: 0 }}>How much hydrogen can {plant.name} take?</h2>
           <p className="lede">
-            {sw.baseGasLabel} blended with {sw.hydrogenLabel} from 0 to 100 vol % in {fmt(sw.stepPercent, sw.stepPercent % 1 ? 1 : 0)} % steps, each share
-            evaluated in this plant at its operating point. Red markers: the first share at which a limit fails; amber: the first warning.
+            {sw.baseGasLabel} blended with {sw.hydrogenLabel} from 0 to 100 vol % in {fmt(sw.stepPercent, sw.stepPercent % 1 ? 1 : 0)} %
+            steps, each share evaluated in this plant at its operating point. Red markers: the first share at which a limit fails; amber:
+            the first warning.
           </p>
         </div>
         <div className="actions">
@@ -105,7 +115,17 @@ export default async function SweepPage({ params, searchParams }: Props) {
             {firstFail ? (
               <>
                 First failure at {shareText(firstFail.firstFailPercent)}: <b>{firstFail.label}</b>.
-                {fails.length > 1 && <> Then {fails.slice(1, 3).map((c) => `${c.label} at ${shareText(c.firstFailPercent)}`).join("; ")}.</>}
+                {fails.length > 1 && (
+                  <>
+                    {" "}
+                    Then{" "}
+                    {fails
+                      .slice(1, 3)
+                      .map((c) => `${c.label} at ${shareText(c.firstFailPercent)}`)
+                      .join("; ")}
+                    .
+                  </>
+                )}
               </>
             ) : (
               "No limit entered for this plant fails anywhere between 0 and 100 vol %."
@@ -117,12 +137,13 @@ export default async function SweepPage({ params, searchParams }: Props) {
             <h3>At {fmt(lastOk.h2Percent, 0)} vol % H2</h3>
             <div className="big">{signed(lastOk.co2ChangePercent, 1)} % CO2</div>
             <p>
-              Hydrogen supplies {fmt(lastOk.h2EnergySharePercent, 1)} % of the energy (net basis): CO2 per useful MJ falls much less than the volume
-              share.
+              Hydrogen supplies {fmt(lastOk.h2EnergySharePercent, 1)} % of the energy (net basis): CO2 per useful MJ falls much less than
+              the volume share.
               {lastOk.costPerUsefulMWh !== null && p0.costPerUsefulMWh !== null && (
                 <>
                   {" "}
-                  Cost {d.costPerEnergy(lastOk.costPerUsefulMWh)} {d.costPerEnergyUnit} useful ({signed((100 * (lastOk.costPerUsefulMWh - p0.costPerUsefulMWh)) / p0.costPerUsefulMWh, 1)} %).
+                  Cost {d.costPerEnergy(lastOk.costPerUsefulMWh)} {d.costPerEnergyUnit} useful (
+                  {signed((100 * (lastOk.costPerUsefulMWh - p0.costPerUsefulMWh)) / p0.costPerUsefulMWh, 1)} %).
                 </>
               )}
             </p>
@@ -132,7 +153,9 @@ export default async function SweepPage({ params, searchParams }: Props) {
           <h3>First warning</h3>
           <div className="big">{warns.length ? shareText(warns[0].firstWarnPercent) : "none"}</div>
           <p>{warns.length ? warns[0].label : "No limit comes within the warning margin."}</p>
-          {atZero.length > 0 && <p className="muted">Already at 0 % H2: {atZero.map((c) => `${c.label} (${c.statusAtZero})`).join("; ")}.</p>}
+          {atZero.length > 0 && (
+            <p className="muted">Already at 0 % H2: {atZero.map((c) => `${c.label} (${c.statusAtZero})`).join("; ")}.</p>
+          )}
         </div>
       </section>
 
@@ -149,8 +172,9 @@ export default async function SweepPage({ params, searchParams }: Props) {
           <ul className="plain">
             {agreement.map((a) => (
               <li key={a.scenario}>
-                <b>{a.scenario}</b> ({fmt(a.h2Percent, 0)} vol % H2): {d.costPerEnergy(a.comparisonCost)} {d.costPerEnergyUnit} useful on the comparison,{" "}
-                {d.costPerEnergy(a.sweepCost)} on the sweep{a.exactPoint ? "" : " (interpolated)"} — {a.agrees ? "the same figure." : `they differ because ${a.reasons.join("; ")}.`}
+                <b>{a.scenario}</b> ({fmt(a.h2Percent, 0)} vol % H2): {d.costPerEnergy(a.comparisonCost)} {d.costPerEnergyUnit} useful on
+                the comparison, {d.costPerEnergy(a.sweepCost)} on the sweep{a.exactPoint ? "" : " (interpolated)"} —{" "}
+                {a.agrees ? "the same figure." : `they differ because ${a.reasons.join("; ")}.`}
               </li>
             ))}
           </ul>
@@ -164,8 +188,18 @@ export default async function SweepPage({ params, searchParams }: Props) {
             yUnit={d.wobbeUnit}
             decimals={2}
             data={series((p) => (p.wobbeGross_MJ_per_m3 === null ? null : d.wobbeValue(p.wobbeGross_MJ_per_m3)))}
-            band={wobbeBand ? { min: d.wobbeValue(wobbeBand.min), max: d.wobbeValue(wobbeBand.max), label: lim.wobbeBand_MJ_per_m3 ? `± ${fmt(plant.wobbeTolerancePercent, 0)} % band` : "allowed range" } : undefined}
-            markers={markersFor(pts, sw.crossings, ["wobbe-band", "wobbe-range"], (p) => (p.wobbeGross_MJ_per_m3 === null ? null : d.wobbeValue(p.wobbeGross_MJ_per_m3)))}
+            band={
+              wobbeBand
+                ? {
+                    min: d.wobbeValue(wobbeBand.min),
+                    max: d.wobbeValue(wobbeBand.max),
+                    label: lim.wobbeBand_MJ_per_m3 ? `± ${fmt(plant.wobbeTolerancePercent, 0)} % band` : "allowed range",
+                  }
+                : undefined
+            }
+            markers={markersFor(pts, sw.crossings, ["wobbe-band", "wobbe-range"], (p) =>
+              p.wobbeGross_MJ_per_m3 === null ? null : d.wobbeValue(p.wobbeGross_MJ_per_m3),
+            )}
             vLines={vLines}
           />
           <p className="basis">{sw.basis.wobbe}</p>
@@ -176,15 +210,28 @@ export default async function SweepPage({ params, searchParams }: Props) {
             yUnit={d.tempUnit}
             decimals={0}
             data={series((p) => (p.flameTemperatureC === null ? null : d.tempValue(p.flameTemperatureC)))}
-            limits={lim.maxFlameTemperatureC !== null ? [{ y: d.tempValue(lim.maxFlameTemperatureC), label: `baseline + ${d.dT(plant.maxFlameTempRiseK ?? 0, 0, false)} ${d.dTUnit}` }] : []}
-            markers={markersFor(pts, sw.crossings, ["flame-temperature-rise"], (p) => (p.flameTemperatureC === null ? null : d.tempValue(p.flameTemperatureC)))}
+            limits={
+              lim.maxFlameTemperatureC !== null
+                ? [
+                    {
+                      y: d.tempValue(lim.maxFlameTemperatureC),
+                      label: `baseline + ${d.dT(plant.maxFlameTempRiseK ?? 0, 0, false)} ${d.dTUnit}`,
+                    },
+                  ]
+                : []
+            }
+            markers={markersFor(pts, sw.crossings, ["flame-temperature-rise"], (p) =>
+              p.flameTemperatureC === null ? null : d.tempValue(p.flameTemperatureC),
+            )}
             vLines={vLines}
           />
           <p className="basis">{sw.basis.flame}</p>
         </section>
         <section className="panel">
           <SweepChart title="CO2 per useful MJ" yUnit="g/MJ" decimals={1} data={series((p) => p.co2PerUsefulMJ_g)} vLines={vLines} />
-          <p className="basis">Fossil CO2{result.study.includeUpstream ? " plus upstream CO2e" : ""} per MJ of useful heat, net-basis efficiency at each share.</p>
+          <p className="basis">
+            Fossil CO2{result.study.includeUpstream ? " plus upstream CO2e" : ""} per MJ of useful heat, net-basis efficiency at each share.
+          </p>
         </section>
         <section className="panel">
           <SweepChart
@@ -192,11 +239,18 @@ export default async function SweepPage({ params, searchParams }: Props) {
             yUnit={`${d.volUnit}/h`}
             decimals={0}
             data={series((p) => (p.fuelVolume_m3_per_h === null ? null : d.volValue(p.fuelVolume_m3_per_h)))}
-            limits={lim.fuelSupplyCapacity_m3_per_h !== null ? [{ y: d.volValue(lim.fuelSupplyCapacity_m3_per_h), label: "supply capacity" }] : []}
-            markers={markersFor(pts, sw.crossings, ["fuel-supply"], (p) => (p.fuelVolume_m3_per_h === null ? null : d.volValue(p.fuelVolume_m3_per_h)))}
+            limits={
+              lim.fuelSupplyCapacity_m3_per_h !== null ? [{ y: d.volValue(lim.fuelSupplyCapacity_m3_per_h), label: "supply capacity" }] : []
+            }
+            markers={markersFor(pts, sw.crossings, ["fuel-supply"], (p) =>
+              p.fuelVolume_m3_per_h === null ? null : d.volValue(p.fuelVolume_m3_per_h),
+            )}
             vLines={vLines}
           />
-          <p className="basis">At rated useful duty; gas at the supply metering reference ({meteringLabelWithPressure(METERING_REFERENCES[plant.fuelSupplyMeteringReference].temperatureC)}), real gas.</p>
+          <p className="basis">
+            At rated useful duty; gas at the supply metering reference (
+            {meteringLabelWithPressure(METERING_REFERENCES[plant.fuelSupplyMeteringReference].temperatureC)}), real gas.
+          </p>
         </section>
         <section className="panel">
           <SweepChart
@@ -208,7 +262,10 @@ export default async function SweepPage({ params, searchParams }: Props) {
             markers={markersFor(pts, sw.crossings, ["flue-gas-fan"], (p) => d.volValue(p.flueGas_m3_per_h))}
             vLines={vLines}
           />
-          <p className="basis">Wet flue gas at rated useful duty, {plant.flueGasCapacityBasis === "actual" ? "actual volume at the stack temperature" : "normal m³ (0 °C)"}.</p>
+          <p className="basis">
+            Wet flue gas at rated useful duty,{" "}
+            {plant.flueGasCapacityBasis === "actual" ? "actual volume at the stack temperature" : "normal m³ (0 °C)"}.
+          </p>
         </section>
         <section className="panel">
           <SweepChart
@@ -220,7 +277,10 @@ export default async function SweepPage({ params, searchParams }: Props) {
             markers={markersFor(pts, sw.crossings, ["combustion-air-fan"], (p) => d.volValue(p.air_m3_per_h))}
             vLines={vLines}
           />
-          <p className="basis">Humid air at rated useful duty, {plant.airCapacityBasis === "actual" ? "actual volume at the air temperature" : "normal m³ (0 °C)"}.</p>
+          <p className="basis">
+            Humid air at rated useful duty,{" "}
+            {plant.airCapacityBasis === "actual" ? "actual volume at the air temperature" : "normal m³ (0 °C)"}.
+          </p>
         </section>
         {pts.some((p) => p.costPerUsefulMWh !== null) && (
           <section className="panel">
@@ -231,7 +291,10 @@ export default async function SweepPage({ params, searchParams }: Props) {
               data={series((p) => (p.costPerUsefulMWh === null ? null : d.costPerEnergyValue(p.costPerUsefulMWh)))}
               vLines={vLines}
             />
-            <p className="basis">{sw.basis.cost}; blend priced as the mass-weighted mix of the delivered prices per kg ({hydrogenPriceLabel(bundle.meta.hydrogen)}).</p>
+            <p className="basis">
+              {sw.basis.cost}; blend priced as the mass-weighted mix of the delivered prices per kg (
+              {hydrogenPriceLabel(bundle.meta.hydrogen)}).
+            </p>
           </section>
         )}
       </div>

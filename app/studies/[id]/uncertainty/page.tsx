@@ -50,8 +50,8 @@ export default async function UncertaintyPage({ params, searchParams }: Props) {
     <>
       <h2 style={{ marginTop: 0, border: 0 }}>How sure is the ranking?</h2>
       <p className="lede">
-        Every uncertain input is drawn from its range at once, {r.draws.toLocaleString("en-GB")} times; each draw ranks the options again through the plant
-        model&apos;s efficiencies and the price paths. The bars say how often each option comes out first.
+        Every uncertain input is drawn from its range at once, {r.draws.toLocaleString("en-GB")} times; each draw ranks the options again
+        through the plant model&apos;s efficiencies and the price paths. The bars say how often each option comes out first.
       </p>
       <p className="note warn" role="note">
         {r.caution}
@@ -61,14 +61,24 @@ export default async function UncertaintyPage({ params, searchParams }: Props) {
           <span className="choice-label">Metric</span>
           <span className="segmented" role="group" aria-label="Metric">
             {RANKING_METRICS.map((m) => (
-              <Link key={m} href={`/studies/${id}/uncertainty${viewQuery({ ...view, metric: m }, { draws, seed, shape, rho, ...Object.fromEntries(RANGES.map((x) => [x.q, ranges[x.key]])) })}`} aria-current={m === r.metric ? "true" : undefined} scroll={false}>
+              <Link
+                key={m}
+                href={`/studies/${id}/uncertainty${viewQuery({ ...view, metric: m }, { draws, seed, shape, rho, ...Object.fromEntries(RANGES.map((x) => [x.q, ranges[x.key]])) })}`}
+                aria-current={m === r.metric ? "true" : undefined}
+                scroll={false}
+              >
                 {METRIC_SHORT[m]}
               </Link>
             ))}
           </span>
         </span>
       </div>
-      <form method="get" className="row no-print" style={{ alignItems: "flex-end", marginBottom: "0.75rem", flexWrap: "wrap" }} aria-label="Uncertainty ranges">
+      <form
+        method="get"
+        className="row no-print"
+        style={{ alignItems: "flex-end", marginBottom: "0.75rem", flexWrap: "wrap" }}
+        aria-label="Uncertainty ranges"
+      >
         {view.metric && <input type="hidden" name="metric" value={view.metric} />}
         {view.includeUpstream !== undefined && <input type="hidden" name="upstream" value={view.includeUpstream ? "1" : "0"} />}
         {RANGES.map((x) => (
@@ -103,28 +113,42 @@ export default async function UncertaintyPage({ params, searchParams }: Props) {
       </form>
       {ignored.length > 0 && <p className="note warn">Out of range and ignored: {ignored.map((x) => x.label).join(", ")}.</p>}
       <p className="basis">
-        Ranges are changes from the study&apos;s values; without an entry they come from the study&apos;s sensitivity ranges (fuel ± {sens.fuelPricePercent} %,
-        carbon ± {sens.carbonPricePercent} %, capex ± {sens.capexPercent} %, efficiency ± {sens.efficiencyPoints} points) and ± {OPERATING_HOURS_DEFAULT_PERCENT} % on
-        operating hours. Each scenario&apos;s capex and efficiency vary independently; a quote used by several options (e.g. natural gas in its blends) is one
-        price. Finished in {fmt(r.elapsedMs / 1000, 2)} s.
+        Ranges are changes from the study&apos;s values; without an entry they come from the study&apos;s sensitivity ranges (fuel ±{" "}
+        {sens.fuelPricePercent} %, carbon ± {sens.carbonPricePercent} %, capex ± {sens.capexPercent} %, efficiency ± {sens.efficiencyPoints}{" "}
+        points) and ± {OPERATING_HOURS_DEFAULT_PERCENT} % on operating hours. Each scenario&apos;s capex and efficiency vary independently;
+        a quote used by several options (e.g. natural gas in its blends) is one price. Finished in {fmt(r.elapsedMs / 1000, 2)} s.
       </p>
 
       <div className="grid2">
         <section className="panel">
           <h3 className="chart-title">Chance of ranking first ({METRIC_SHORT[r.metric]})</h3>
-          <FirstChanceChart rows={byFirst.filter((s) => s.ranked).map((s) => ({ label: s.name + (s.isBaseline ? " (baseline)" : ""), pFirst: 100 * s.pFirst, se: 100 * s.pFirstSE }))} />
+          <FirstChanceChart
+            rows={byFirst
+              .filter((s) => s.ranked)
+              .map((s) => ({ label: s.name + (s.isBaseline ? " (baseline)" : ""), pFirst: 100 * s.pFirst, se: 100 * s.pFirstSE }))}
+          />
         </section>
         <section className="panel">
           <h3 className="chart-title">
             P10 – P90 of {METRIC_SHORT[r.metric].toLowerCase()} <span className="unit">({r.metricUnit})</span>
           </h3>
-          <IntervalChart unit={r.metricUnit} rows={withMetric.map((s) => ({ label: s.name + (s.status === "infeasible" ? " ✕" : ""), p10: s.metric!.p10, p50: s.metric!.p50, p90: s.metric!.p90, deterministic: s.deterministicValue }))} />
+          <IntervalChart
+            unit={r.metricUnit}
+            rows={withMetric.map((s) => ({
+              label: s.name + (s.status === "infeasible" ? " ✕" : ""),
+              p10: s.metric!.p10,
+              p50: s.metric!.p50,
+              p90: s.metric!.p90,
+              deterministic: s.deterministicValue,
+            }))}
+          />
         </section>
       </div>
       {cdf.length > 0 && (
         <section className="panel">
           <h3 className="chart-title">
-            Cumulative distribution of {METRIC_SHORT[r.metric].toLowerCase()}, options most often first <span className="unit">({r.metricUnit})</span>
+            Cumulative distribution of {METRIC_SHORT[r.metric].toLowerCase()}, options most often first{" "}
+            <span className="unit">({r.metricUnit})</span>
           </h3>
           <CdfChart series={cdf} unit={r.metricUnit} />
         </section>
@@ -165,7 +189,9 @@ export default async function UncertaintyPage({ params, searchParams }: Props) {
                 <td className="num">{s.pNpvPositive === null ? "–" : `${pct(s.pNpvPositive)} ± ${pct(s.pNpvPositiveSE ?? 0)}`}</td>
                 <td className="num">
                   {band(s.abatementCost_per_t, (v) => fmt(v, 0))}
-                  {s.abatementCost_per_t && s.abatementCost_per_t.defined < r.draws && <div className="unit">CO2 avoided in {pct(s.abatementCost_per_t.defined / r.draws)} % of draws</div>}
+                  {s.abatementCost_per_t && s.abatementCost_per_t.defined < r.draws && (
+                    <div className="unit">CO2 avoided in {pct(s.abatementCost_per_t.defined / r.draws)} % of draws</div>
+                  )}
                 </td>
               </tr>
             ))}
@@ -182,8 +208,9 @@ export default async function UncertaintyPage({ params, searchParams }: Props) {
             What decides between {r.topTwo.first} and {r.topTwo.second}
           </h3>
           <p className="basis">
-            Spearman rank correlation of each input with the difference of their {METRIC_SHORT[r.metric].toLowerCase()} ({r.topTwo.first} minus {r.topTwo.second}),
-            over {r.topTwo.draws.toLocaleString("en-GB")} draws; the medians show where the input sits when each one wins.
+            Spearman rank correlation of each input with the difference of their {METRIC_SHORT[r.metric].toLowerCase()} ({r.topTwo.first}{" "}
+            minus {r.topTwo.second}), over {r.topTwo.draws.toLocaleString("en-GB")} draws; the medians show where the input sits when each
+            one wins.
           </p>
           <div className="table-wrap">
             <table>
@@ -212,13 +239,19 @@ export default async function UncertaintyPage({ params, searchParams }: Props) {
 
       <h3>Assumptions of this run</h3>
       <ul className="basis">
-        <li>{r.sampling}; generator {r.generator}, seed {r.seed} (the same seed gives the same figures).</li>
+        <li>
+          {r.sampling}; generator {r.generator}, seed {r.seed} (the same seed gives the same figures).
+        </li>
         {r.notes.map((n) => (
           <li key={n}>{n}</li>
         ))}
         <li>
-          Price paths: {r.paths.fuelIndex.map((p) => `${p.label}: year 1 × ${fmt(p.values[0], 2)}, year ${p.values.length} × ${fmt(p.values[p.values.length - 1], 2)}`).join("; ")}; carbon{" "}
-          {money(r.paths.carbon_per_t[0], cur, 0)}/t in year 1, {money(r.paths.carbon_per_t[r.paths.carbon_per_t.length - 1], cur, 0)}/t in year {r.paths.carbon_per_t.length}.
+          Price paths:{" "}
+          {r.paths.fuelIndex
+            .map((p) => `${p.label}: year 1 × ${fmt(p.values[0], 2)}, year ${p.values.length} × ${fmt(p.values[p.values.length - 1], 2)}`)
+            .join("; ")}
+          ; carbon {money(r.paths.carbon_per_t[0], cur, 0)}/t in year 1,{" "}
+          {money(r.paths.carbon_per_t[r.paths.carbon_per_t.length - 1], cur, 0)}/t in year {r.paths.carbon_per_t.length}.
         </li>
       </ul>
       <div className="table-wrap">
@@ -248,7 +281,8 @@ export default async function UncertaintyPage({ params, searchParams }: Props) {
         </table>
       </div>
       <p className="table-note">
-        <Link href={`/studies/${id}/uncertainty${keep({ seed: seed + 1 })}`}>Run again with seed {seed + 1}</Link> to see the sampling scatter.
+        <Link href={`/studies/${id}/uncertainty${keep({ seed: seed + 1 })}`}>Run again with seed {seed + 1}</Link> to see the sampling
+        scatter.
       </p>
     </>
   );

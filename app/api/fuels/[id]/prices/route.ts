@@ -16,7 +16,15 @@ export const GET = withErrors(async (_req: Request, ctx: Ctx): Promise<Response>
   return json({
     fuelId: id,
     name: sheet.fuel.name,
-    prices: sheet.prices.map((p) => ({ ...p.quote, unitLabel: p.unitLabel, inForce: p.current, supersededBy: p.supersededBy, withdrawn: p.withdrawn, delivered: p.normalised, error: p.error })),
+    prices: sheet.prices.map((p) => ({
+      ...p.quote,
+      unitLabel: p.unitLabel,
+      inForce: p.current,
+      supersededBy: p.supersededBy,
+      withdrawn: p.withdrawn,
+      delivered: p.normalised,
+      error: p.error,
+    })),
   });
 });
 

@@ -14,9 +14,13 @@ export const POST = withErrors(async (req: Request): Promise<Response> => {
   const url = new URL(req.url);
   const type = req.headers.get("content-type") ?? "";
   const format = url.searchParams.get("format") ?? (type.includes("csv") ? "csv" : "json");
-  if (format !== "json" && format !== "csv") return json({ error: "format must be json or csv", fieldErrors: { format: "must be json or csv" } }, 400);
+  if (format !== "json" && format !== "csv")
+    return json({ error: "format must be json or csv", fieldErrors: { format: "must be json or csv" } }, 400);
   const preview = url.searchParams.get("preview") === "1";
-  const r = await importQuotes(db(), await req.text(), format, { preview, confirmImplausible: url.searchParams.get("confirmImplausible") === "1" });
+  const r = await importQuotes(db(), await req.text(), format, {
+    preview,
+    confirmImplausible: url.searchParams.get("confirmImplausible") === "1",
+  });
   if (!r.ok) return failure(r);
   return json(r.value, preview ? 200 : 201);
 });

@@ -21,11 +21,20 @@ export const GET = withErrors(async (req: Request, { params }: { params: Promise
     return json({ error: `metric must be one of ${RANKING_METRICS.join(", ")}`, fieldErrors: { metric: "unknown metric" } }, 400);
   }
   const p = uncertaintyParams(Object.fromEntries(q.entries()));
-  if (p.ignored.length) return json({ error: `out of range: ${p.ignored.map((x) => x.label).join(", ")}`, fieldErrors: Object.fromEntries(p.ignored.map((x) => [x.field, `out of range: ${x.label}`])) }, 400);
+  if (p.ignored.length)
+    return json(
+      {
+        error: `out of range: ${p.ignored.map((x) => x.label).join(", ")}`,
+        fieldErrors: Object.fromEntries(p.ignored.map((x) => [x.field, `out of range: ${x.label}`])),
+      },
+      400,
+    );
   const ans = await uncertaintyOfStoredStudy(db(), id, p.request);
   if (!ans.ok) return failure(ans);
   if (q.get("format") === "csv") {
-    return new Response(uncertaintyCsv(ans.result), { headers: { "content-type": "text/csv; charset=utf-8", "content-disposition": `attachment; filename="study-${id}-uncertainty.csv"` } });
+    return new Response(uncertaintyCsv(ans.result), {
+      headers: { "content-type": "text/csv; charset=utf-8", "content-disposition": `attachment; filename="study-${id}-uncertainty.csv"` },
+    });
   }
   return json({ studyId: id, result: ans.result });
 });
