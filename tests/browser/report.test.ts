@@ -207,7 +207,7 @@ describe("study form round trip", () => {
     const cover = page.getByTestId("cover");
     expect(await cover.locator("h1").textContent()).toBe("Fuel options for Boiler 1");
     expect(await cover.textContent()).toContain("Example Dairy Ltd");
-    expect(await page.getByTestId("cover-revision").textContent()).toBe("live, not issued");
+    expect(await page.getByTestId("cover-revision").textContent()).toBe("live inputs, not an issued revision");
     expect(await page.getByTestId("cover-notes").locator("p").count()).toBe(2);
   });
 });
