@@ -130,4 +130,35 @@ describe("fuel library in the browser", () => {
     expect(after).toEqual(before);
     expect(after).not.toContain("Browser bad gas");
   });
+
+  it("imports a file of price quotes for library fuels after a preview, all or nothing", async () => {
+    const quotes = async () => ((await (await fetch(`${base}/api/fuels`)).json()) as { fuels: unknown[] }).fuels.length;
+    const priceCount = async (name: string) => {
+      const fuels = (await (await fetch(`${base}/api/fuels`)).json()) as { fuels: { id: number; name: string }[] };
+      const id = fuels.fuels.find((f) => f.name === name)!.id;
+      return ((await (await fetch(`${base}/api/fuels/${id}/prices`)).json()) as { prices: unknown[] }).prices.length;
+    };
+    const before = await priceCount("Biomethane");
+    const fuelsBefore = await quotes();
+    await page.goto(`${base}/fuels/transfer`);
+    // Invented demo prices.
+    const good = "fuel,amount,currency,unit,energyBasis,validFrom,supplier\r\nbiomethane,92,EUR,MWh,gross,2026-06-01,Invented Gas Co\r\n";
+    await page.setInputFiles("#f-quote-file", { name: "quotes.csv", mimeType: "text/csv", buffer: Buffer.from(good) });
+    await page.getByRole("button", { name: "Preview" }).click();
+    await page.getByTestId("quote-preview").waitFor();
+    expect(await page.getByTestId("quote-preview").textContent()).toMatch(/Biomethane/);
+    expect(await priceCount("Biomethane")).toBe(before); // a preview stores nothing
+    await page.getByRole("button", { name: /^Import 1 quotes/ }).click();
+    await page.getByRole("status").filter({ hasText: "Imported 1 price quotes" }).waitFor();
+    expect(await priceCount("Biomethane")).toBe(before + 1);
+
+    const bad = "fuel,amount,currency,unit,energyBasis\r\nBiomethane,90,EUR,MWh,gross\r\nNo such fuel,1,EUR,MWh,gross\r\n";
+    await page.setInputFiles("#f-quote-file", { name: "bad.csv", mimeType: "text/csv", buffer: Buffer.from(bad) });
+    await page.getByRole("button", { name: "Preview" }).click();
+    const alert = page.locator(".form-errors");
+    await alert.waitFor();
+    expect(await alert.textContent()).toMatch(/row 3/);
+    expect(await priceCount("Biomethane")).toBe(before + 1);
+    expect(await quotes()).toBe(fuelsBefore);
+  });
 });

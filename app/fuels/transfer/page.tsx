@@ -3,6 +3,7 @@ import Link from "next/link";
 import { db } from "@/lib/db/client";
 import { countFuelsAndQuotes } from "@/lib/services/lookups";
 import { ImportForm } from "../_components/ImportForm";
+import { QuoteImportForm } from "../_components/QuoteImportForm";
 
 export const dynamic = "force-dynamic";
 export const metadata: Metadata = { title: "Import and export" };
@@ -39,6 +40,9 @@ export default async function TransferPage() {
 
       <h2>Import</h2>
       <ImportForm />
+
+      <h2>Price quotes in bulk</h2>
+      <QuoteImportForm />
     </>
   );
 }
