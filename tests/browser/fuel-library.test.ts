@@ -161,4 +161,19 @@ describe("fuel library in the browser", () => {
     expect(await priceCount("Biomethane")).toBe(before + 1);
     expect(await quotes()).toBe(fuelsBefore);
   });
+
+  it("adds a dated exchange rate through the form, and names the field of a currency that is not ISO 4217", async () => {
+    await page.goto(`${base}/fuels/transfer`);
+    await page.locator("#f-fromCurrency").fill("DOL");
+    await page.locator("#f-rate").fill("0,92");
+    await page.locator("#f-toCurrency").fill("EUR");
+    await page.locator("#f-validFrom").fill("2026-01-01");
+    await page.getByRole("button", { name: "Add rate" }).click();
+    await page.locator("#err-fromCurrency").waitFor();
+    expect(await page.locator("#err-fromCurrency").textContent()).toMatch(/ISO 4217|currency/i);
+    await page.locator("#f-fromCurrency").fill("USD");
+    await page.getByRole("button", { name: "Add rate" }).click();
+    // Invented demo rate; "0,92" is read with the comma as the decimal separator.
+    await page.getByTestId("exchange-rates").getByRole("cell", { name: "0.92", exact: true }).waitFor();
+  });
 });

@@ -4,12 +4,14 @@ import { db } from "@/lib/db/client";
 import { countFuelsAndQuotes } from "@/lib/services/lookups";
 import { ImportForm } from "../_components/ImportForm";
 import { QuoteImportForm } from "../_components/QuoteImportForm";
+import { ExchangeRateForm } from "../_components/ExchangeRateForm";
+import { listExchangeRates } from "@/lib/services/exchange-rates";
 
 export const dynamic = "force-dynamic";
 export const metadata: Metadata = { title: "Import and export" };
 
 export default async function TransferPage() {
-  const { fuels, quotes } = await countFuelsAndQuotes(db());
+  const [{ fuels, quotes }, rates] = await Promise.all([countFuelsAndQuotes(db()), listExchangeRates(db())]);
   return (
     <>
       <div className="crumbs">
@@ -43,6 +45,42 @@ export default async function TransferPage() {
 
       <h2>Price quotes in bulk</h2>
       <QuoteImportForm />
+
+      <h2 id="exchange-rates">Exchange rates</h2>
+      <p>
+        A quote in another currency than a study&apos;s is converted at the rate in force on the quote&apos;s date, and the study says which
+        rate it used. Rates are never overwritten: a new rate from a later date takes over from then on. Files of rates go to{" "}
+        <code>POST /api/exchange-rates</code> (CSV or JSON).
+      </p>
+      {rates.length === 0 ? (
+        <p className="muted">No exchange rate stored: quotes are used only in their own currency.</p>
+      ) : (
+        <div className="table-wrap">
+          <table className="data" data-testid="exchange-rates">
+            <thead>
+              <tr>
+                <th>1 unit of</th>
+                <th className="num">buys</th>
+                <th>units of</th>
+                <th>from</th>
+                <th>Source</th>
+              </tr>
+            </thead>
+            <tbody>
+              {rates.map((r) => (
+                <tr key={`${r.fromCurrency}-${r.toCurrency}-${r.validFrom}`}>
+                  <td>{r.fromCurrency}</td>
+                  <td className="num">{r.rate}</td>
+                  <td>{r.toCurrency}</td>
+                  <td>{r.validFrom}</td>
+                  <td>{r.source || "—"}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      )}
+      <ExchangeRateForm />
     </>
   );
 }
