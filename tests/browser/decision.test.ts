@@ -144,7 +144,7 @@ describe("decision pages in the browser", () => {
     await page.goto(`${base}/studies/${studyId}`);
     const row = page.locator("[data-testid=rank-table] tbody tr[data-scenario='Natural gas + 30 % H2']");
     expect(await row.getAttribute("data-status")).toBe("infeasible");
-    expect(await row.locator(".st-infeasible").isVisible()).toBe(true);
+    await row.locator(".st-infeasible").waitFor({ state: "visible" });
     const names = await rankedNames();
     expect(names.at(-1)).toBe("Natural gas + 30 % H2");
     const cells = page.locator("[data-testid=check-matrix] td[data-check='hydrogen-share']");
