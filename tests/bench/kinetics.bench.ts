@@ -20,28 +20,14 @@ import { SPECIES } from "../../lib/thermo/species-data";
 import { loadMechanism } from "../../lib/flame/mechanism";
 import { R_J_per_molK } from "../../lib/units/constants";
 import type { BenchResult } from "./bench-types";
+import { flameZoneMoleFractions } from "../support/flame-mixture";
 
 export async function benchKinetics(): Promise<BenchResult[]> {
   const mech = loadMechanism();
   const kin = createKinetics(mech);
   const nS = mech.nSpecies;
-  const X = new Float64Array(nS).fill(1e-6);
-  const major: Record<string, number> = {
-    N2: 0.7,
-    O2: 0.08,
-    CH4: 0.03,
-    H2O: 0.1,
-    CO2: 0.04,
-    CO: 0.02,
-    H2: 0.01,
-    OH: 0.003,
-    H: 0.002,
-    O: 0.001,
-    AR: 0.008,
-  };
-  for (const [n, x] of Object.entries(major)) X[mech.speciesIndex.get(n) as number] = x;
-  const s = X.reduce((a, b) => a + b, 0);
-  const C = X.map((x) => (x / s) * (101325 / (R_J_per_molK * 1500)));
+  const X = flameZoneMoleFractions(mech);
+  const C = X.map((x) => x * (101325 / (R_J_per_molK * 1500)));
   const w = new Float64Array(nS),
     J = new Float64Array(nS * nS),
     dT = new Float64Array(nS);

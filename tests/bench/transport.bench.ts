@@ -12,26 +12,13 @@
 import { loadMechanism } from "../../lib/flame/mechanism";
 import { createMixtureTransport } from "../../lib/flame/transport";
 import type { BenchResult } from "./bench-types";
+import { flameZoneMoleFractions } from "../support/flame-mixture";
 
 export async function benchTransport(): Promise<BenchResult[]> {
   const mech = loadMechanism();
   const tr = createMixtureTransport(mech);
   const nS = mech.nSpecies;
-  const X = new Float64Array(nS).fill(1e-6);
-  const major: Record<string, number> = {
-    N2: 0.7,
-    O2: 0.08,
-    CH4: 0.03,
-    H2O: 0.1,
-    CO2: 0.04,
-    CO: 0.02,
-    H2: 0.01,
-    OH: 0.003,
-    H: 0.002,
-    O: 0.001,
-    AR: 0.008,
-  };
-  for (const [n, x] of Object.entries(major)) X[mech.speciesIndex.get(n) as number] = x;
+  const X = flameZoneMoleFractions(mech);
   const out = tr.newOutput();
   let sink = 0;
   let t = 1500;

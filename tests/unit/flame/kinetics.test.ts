@@ -6,6 +6,7 @@ import { g_J_per_mol } from "../../../lib/thermo/nasa7";
 import { SPECIES } from "../../../lib/thermo/species-data";
 import { atmospherePa, R_J_per_molK, standardPressurePa } from "../../../lib/units/constants";
 import { mechanismEquilibrium } from "./mech-equilibrium";
+import { flameZoneMoleFractions } from "../../support/flame-mixture";
 
 const mech = loadMechanism();
 const kin = createKinetics(mech);
@@ -260,23 +261,6 @@ function reactingState(): Float64Array {
   const T = 1500,
     p = 101325;
   const ctot = p / (R_J_per_molK * T);
-  const X = new Float64Array(nS).fill(1e-6);
-  const major: Record<string, number> = {
-    N2: 0.7,
-    O2: 0.08,
-    CH4: 0.03,
-    H2O: 0.1,
-    CO2: 0.04,
-    CO: 0.02,
-    H2: 0.01,
-    OH: 0.003,
-    H: 0.002,
-    O: 0.001,
-    AR: 0.008,
-    CH3: 0.0005,
-    HO2: 0.0002,
-  };
-  for (const [n, x] of Object.entries(major)) X[idx(n)] = x;
-  const s = X.reduce((a, b) => a + b, 0);
-  return X.map((x) => (x / s) * ctot);
+  const X = flameZoneMoleFractions(mech, { CH3: 0.0005, HO2: 0.0002 });
+  return X.map((x) => x * ctot);
 }
