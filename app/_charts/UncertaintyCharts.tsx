@@ -47,7 +47,9 @@ export function FirstChanceChart({ rows, isStatic }: { rows: FirstRow[]; isStati
         <Tooltip
           formatter={
             ((v: number, _n: unknown, item: { payload?: (typeof data)[number] }) =>
-              `${shortNumber(v)} % ± ${shortNumber(item?.payload?.se ?? 0)} % (1 SE)`) as never
+              item?.payload?.se === undefined
+                ? `${shortNumber(v)} %`
+                : `${shortNumber(v)} % ± ${shortNumber(item.payload.se)} % (1 SE)`) as never
           }
           isAnimationActive={false}
         />

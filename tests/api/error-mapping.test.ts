@@ -5,8 +5,7 @@
  * evaluation itself is tested elsewhere); everything else runs as in production.
  */
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
-import { tempDb, type TempDb } from "../db/temp-db";
-import { seedIfEmpty } from "../../seed/index";
+import { closeSeededApi, openSeededApi, type SeededApi } from "./seeded-api";
 import { InfeasibleChargeError, InputError, NotConvergedError } from "../../lib/errors";
 
 const control = vi.hoisted(() => ({ error: null as Error | null }));
@@ -22,7 +21,7 @@ vi.mock("../../lib/study/evaluate", async (importOriginal) => {
   };
 });
 
-let t: TempDb;
+let api: SeededApi;
 let routes: {
   studies: typeof import("../../app/api/studies/route");
   results: typeof import("../../app/api/studies/[id]/results/route");
@@ -33,12 +32,10 @@ let plantId = 0;
 let studyId = 0;
 
 beforeAll(async () => {
-  t = tempDb();
-  process.env.DATABASE_URL = t.url;
-  await seedIfEmpty(t.client);
-  for (const f of await t.client.fuel.findMany()) fuel[f.name] = f.id;
-  plantId = (await t.client.plant.findFirstOrThrow({ where: { name: "Boiler 1 (gas)" } })).id;
-  studyId = (await t.client.study.findFirstOrThrow({ where: { name: "Hydrogen blending and biomethane" } })).id;
+  api = await openSeededApi();
+  Object.assign(fuel, api.fuel);
+  plantId = api.plantId;
+  studyId = await api.studyId("Hydrogen blending and biomethane");
   routes = {
     studies: await import("../../app/api/studies/route"),
     results: await import("../../app/api/studies/[id]/results/route"),
@@ -47,9 +44,7 @@ beforeAll(async () => {
 });
 afterAll(async () => {
   control.error = null;
-  const { db } = await import("../../lib/db/client");
-  await db().$disconnect();
-  await t.cleanup();
+  await closeSeededApi(api);
 });
 
 const post = (body: unknown) =>
@@ -84,14 +79,14 @@ async function postWith(
 
 describe("POST /api/studies when the evaluation refuses", () => {
   it("a solver that did not converge: 422, says so, names the solver, stores nothing", async () => {
-    const before = await t.client.study.count();
+    const before = await api.t.client.study.count();
     const r = await postWith(
       new NotConvergedError("equilibrium", "residual 3e-2 after 60 iterations", { iterations: 60 }),
       "Not converged",
     );
     expect(r.status).toBe(422);
     expect(r.body.error).toMatch(/equilibrium solver did not converge: residual 3e-2 after 60 iterations/);
-    expect(await t.client.study.count()).toBe(before);
+    expect(await api.t.client.study.count()).toBe(before);
   });
 
   it("an infeasible charge: 422 with the scenario's fuel field named", async () => {

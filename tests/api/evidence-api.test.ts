@@ -5,11 +5,10 @@
  */
 import { createHash } from "node:crypto";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { tempDb, type TempDb } from "../db/temp-db";
-import { seedIfEmpty } from "../../seed/index";
+import { closeSeededApi, jsonRequest, openSeededApi, type SeededApi } from "./seeded-api";
 import { runEvaluate } from "../../lib/cli/evaluate-sync";
 
-let t: TempDb;
+let api: SeededApi;
 let routes: {
   studies: typeof import("../../app/api/studies/route");
   study: typeof import("../../app/api/studies/[id]/route");
@@ -27,11 +26,9 @@ const fuel: Record<string, number> = {};
 let plantId = 0;
 
 beforeAll(async () => {
-  t = tempDb();
-  process.env.DATABASE_URL = t.url;
-  await seedIfEmpty(t.client);
-  for (const f of await t.client.fuel.findMany()) fuel[f.name] = f.id;
-  plantId = (await t.client.plant.findFirstOrThrow({ where: { name: "Boiler 1 (gas)" } })).id;
+  api = await openSeededApi();
+  Object.assign(fuel, api.fuel);
+  plantId = api.plantId;
   routes = {
     studies: await import("../../app/api/studies/route"),
     study: await import("../../app/api/studies/[id]/route"),
@@ -47,23 +44,16 @@ beforeAll(async () => {
   };
 });
 afterAll(async () => {
-  const { db } = await import("../../lib/db/client");
-  await db().$disconnect();
-  await t.cleanup();
+  await closeSeededApi(api);
 });
 
-const req = (url: string, method = "GET", body?: unknown, type = "application/json") =>
-  new Request(`http://localhost${url}`, {
-    method,
-    body: body === undefined ? undefined : typeof body === "string" ? body : JSON.stringify(body),
-    headers: { "content-type": type },
-  });
+const req = jsonRequest;
 const ctx = (id: number | string) => ({ params: Promise.resolve({ id: String(id) }) });
 const qctx = (id: number, priceId: number) => ({ params: Promise.resolve({ id: String(id), priceId: String(priceId) }) });
 const rctx = (id: number, n: number | string) => ({ params: Promise.resolve({ id: String(id), number: String(n) }) });
 
 async function quoteId(fuelName: string, amount: number): Promise<number> {
-  return (await t.client.priceQuote.findFirstOrThrow({ where: { fuelId: fuel[fuelName], amount } })).id;
+  return (await api.t.client.priceQuote.findFirstOrThrow({ where: { fuelId: fuel[fuelName], amount } })).id;
 }
 async function createStudy(body: unknown): Promise<number> {
   const res = await routes.studies.POST(req("/api/studies", "POST", body));
@@ -186,14 +176,14 @@ describe("currencies", () => {
 
 describe("implausible prices", () => {
   it("warns about 1e9 EUR/MWh and stores it only when confirmed", async () => {
-    const before = await t.client.priceQuote.count();
+    const before = await api.t.client.priceQuote.count();
     const body = { amount: 1e9, currency: "EUR", unit: "MWh", energyBasis: "gross", validFrom: "2025-05-01" };
     const res = await routes.prices.POST(req("/x", "POST", body), ctx(fuel["Pipeline natural gas"]));
     expect(res.status).toBe(422);
     const b = await res.json();
     expect(b.warnings[0]).toMatch(/above the plausible range 0\.5–2000 EUR\/MWh/);
     expect(b.fieldErrors.amount).toMatch(/plausible range/);
-    expect(await t.client.priceQuote.count()).toBe(before);
+    expect(await api.t.client.priceQuote.count()).toBe(before);
     const ok = await routes.prices.POST(req("/x", "POST", { ...body, confirmImplausible: true }), ctx(fuel["Pipeline natural gas"]));
     expect(ok.status).toBe(201);
     const o = await ok.json();
@@ -364,7 +354,7 @@ describe("quote versions and withdrawal", () => {
 describe("bulk quote import", () => {
   const header = "Fuel,Amount,Currency,Unit,energyBasis,validFrom,Supplier\r\n";
   it("refuses the whole file with errors by row and column as written in the file", async () => {
-    const before = await t.client.priceQuote.count();
+    const before = await api.t.client.priceQuote.count();
     const csv = `${header}pipeline NATURAL gas,40.1,EUR,MWh,gross,2025-10-01,Supplier A\r\nBiomethane,abc,EUR,MWh,gross,2025-10-01,Supplier B\r\nNo such fuel,3,EUR,MWh,gross,2025-10-01,\r\n`;
     const res = await routes.quoteImport.POST(req("/api/fuels/quotes/import?format=csv", "POST", csv, "text/csv"));
     const b = await res.json();
@@ -372,11 +362,11 @@ describe("bulk quote import", () => {
     expect(b.fieldErrors["row 3, Amount"]).toMatch(/number/);
     expect(b.fieldErrors["row 4, Fuel"]).toMatch(/no fuel named "No such fuel"/);
     expect(Object.keys(b.fieldErrors).some((k) => k.startsWith("row 2"))).toBe(false);
-    expect(await t.client.priceQuote.count()).toBe(before);
+    expect(await api.t.client.priceQuote.count()).toBe(before);
   });
 
   it("previews what it will add, then adds it (fuel names case-insensitive); JSON as well", async () => {
-    const before = await t.client.priceQuote.count();
+    const before = await api.t.client.priceQuote.count();
     const csv = `${header}pipeline NATURAL gas,40.1,EUR,MWh,gross,2025-10-01,Supplier A\r\nBIOMETHANE,0.08,EUR,kWh,gross,2025-10-01,Supplier B\r\n`;
     const pre = await routes.quoteImport.POST(req("/api/fuels/quotes/import?format=csv&preview=1", "POST", csv, "text/csv"));
     const p = await pre.json();
@@ -386,10 +376,10 @@ describe("bulk quote import", () => {
       "row 2: Pipeline natural gas",
       "row 3: Biomethane",
     ]);
-    expect(await t.client.priceQuote.count()).toBe(before);
+    expect(await api.t.client.priceQuote.count()).toBe(before);
     const real = await routes.quoteImport.POST(req("/api/fuels/quotes/import?format=csv", "POST", csv, "text/csv"));
     expect(real.status).toBe(201);
-    expect(await t.client.priceQuote.count()).toBe(before + 2);
+    expect(await api.t.client.priceQuote.count()).toBe(before + 2);
     const json = await routes.quoteImport.POST(
       req("/api/fuels/quotes/import?format=json", "POST", [
         { fuel: "Methanol", amount: 430, currency: "EUR", unit: "t", validFrom: "2025-10-01" },
@@ -398,7 +388,7 @@ describe("bulk quote import", () => {
     );
     expect(json.status).toBe(400);
     expect((await json.json()).fieldErrors["item 2, amount"]).toMatch(/≥ 0/);
-    expect(await t.client.priceQuote.count()).toBe(before + 2);
+    expect(await api.t.client.priceQuote.count()).toBe(before + 2);
   });
 });
 

@@ -3,11 +3,10 @@
  * production and seeded with the invented demo.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { tempDb, type TempDb } from "../db/temp-db";
-import { seedIfEmpty } from "../../seed/index";
+import { closeSeededApi, jsonRequest, openSeededApi, type SeededApi } from "./seeded-api";
 import { studySchema } from "../../lib/schemas/study";
 
-let t: TempDb;
+let api: SeededApi;
 let routes: {
   plants: typeof import("../../app/api/plants/route");
   plant: typeof import("../../app/api/plants/[id]/route");
@@ -22,12 +21,10 @@ let plantId = 0;
 let demoStudyId = 0;
 
 beforeAll(async () => {
-  t = tempDb();
-  process.env.DATABASE_URL = t.url;
-  await seedIfEmpty(t.client);
-  for (const f of await t.client.fuel.findMany()) fuel[f.name] = f.id;
-  plantId = (await t.client.plant.findFirstOrThrow({ where: { name: "Boiler 1 (gas)" } })).id;
-  demoStudyId = (await t.client.study.findFirstOrThrow({ where: { name: "Hydrogen blending and biomethane" } })).id;
+  api = await openSeededApi();
+  Object.assign(fuel, api.fuel);
+  plantId = api.plantId;
+  demoStudyId = await api.studyId("Hydrogen blending and biomethane");
   routes = {
     plants: await import("../../app/api/plants/route"),
     plant: await import("../../app/api/plants/[id]/route"),
@@ -39,17 +36,10 @@ beforeAll(async () => {
   };
 });
 afterAll(async () => {
-  const { db } = await import("../../lib/db/client");
-  await db().$disconnect();
-  await t.cleanup();
+  await closeSeededApi(api);
 });
 
-const req = (url: string, method = "GET", body?: unknown) =>
-  new Request(`http://localhost${url}`, {
-    method,
-    body: body === undefined ? undefined : typeof body === "string" ? body : JSON.stringify(body),
-    headers: { "content-type": "application/json" },
-  });
+const req = jsonRequest;
 const ctx = (id: number | string) => ({ params: Promise.resolve({ id: String(id) }) });
 
 describe("plants API", () => {

@@ -5,36 +5,26 @@
  * carries a scenario whose new burner allows 30 vol % H2 (invented demo data, seed/demo.ts).
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { tempDb, type TempDb } from "../db/temp-db";
-import { seedIfEmpty } from "../../seed/index";
+import { closeSeededApi, jsonRequest, openSeededApi, type SeededApi } from "./seeded-api";
 
-let t: TempDb;
+let api: SeededApi;
 let study: typeof import("../../app/api/studies/[id]/route");
 let duplicate: typeof import("../../app/api/studies/[id]/duplicate/route");
 let results: typeof import("../../app/api/studies/[id]/results/route");
 let demoStudyId = 0;
 
 beforeAll(async () => {
-  t = tempDb();
-  process.env.DATABASE_URL = t.url;
-  await seedIfEmpty(t.client);
-  demoStudyId = (await t.client.study.findFirstOrThrow({ where: { name: "Hydrogen blending and biomethane" } })).id;
+  api = await openSeededApi();
+  demoStudyId = await api.studyId("Hydrogen blending and biomethane");
   study = await import("../../app/api/studies/[id]/route");
   duplicate = await import("../../app/api/studies/[id]/duplicate/route");
   results = await import("../../app/api/studies/[id]/results/route");
 });
 afterAll(async () => {
-  const { db } = await import("../../lib/db/client");
-  await db().$disconnect();
-  await t.cleanup();
+  await closeSeededApi(api);
 });
 
-const req = (url: string, method = "GET", body?: unknown) =>
-  new Request(`http://localhost${url}`, {
-    method,
-    body: body === undefined ? undefined : JSON.stringify(body),
-    headers: { "content-type": "application/json" },
-  });
+const req = jsonRequest;
 const ctx = (id: number) => ({ params: Promise.resolve({ id: String(id) }) });
 
 type Stored = Record<string, unknown> & { scenarios: { name: string; overrides: Record<string, unknown> }[] };
@@ -73,7 +63,7 @@ describe("study round trip through the API", () => {
     const start = body(await get(id)) as Stored;
     // The baseline gas's older quote (per MMBtu), not the one in force: a choice the form must keep.
     const baseline = start.baseline as { fuelId: number };
-    const quote = await t.client.priceQuote.findFirstOrThrow({ where: { fuelId: baseline.fuelId, unit: "MMBtu" } });
+    const quote = await api.t.client.priceQuote.findFirstOrThrow({ where: { fuelId: baseline.fuelId, unit: "MMBtu" } });
     const edited = {
       ...start,
       reportTitle: "Fuel options for Boiler 1",
