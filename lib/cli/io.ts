@@ -9,7 +9,7 @@
  *  70  internal error: a bug in Stoke (EX_SOFTWARE of sysexits.h); stack with STOKE_DEBUG=1
  * A batch run exits with the most serious status of its inputs: 70 over 2 over 1 over 0.
  */
-import { readFileSync } from "node:fs";
+import { readFileSync, writeSync } from "node:fs";
 import { z } from "zod";
 import { NotConvergedError, StokeError, type Diagnostics } from "../errors";
 
@@ -222,7 +222,7 @@ export function validate<T>(schema: z.ZodType<T>, value: unknown): T {
 // ---------------------------------------------------------------------------------------------
 // Output
 
-/** Where output goes: a string buffer in tests, a stream with back-pressure in the process. */
+/** Where output goes: a string buffer in tests, a file descriptor in the process. */
 export interface Sink {
   write(s: string): void | Promise<void>;
   flush(): void | Promise<void>;
@@ -237,26 +237,39 @@ export class StringSink implements Sink {
 }
 
 /**
- * Buffers writes to a Node stream (in chunks of `chunkChars`; 0 writes at once) and waits for
- * 'drain' when the reader is slow.
+ * Buffers writes to a file descriptor (in chunks of `chunkChars`; 0 writes at once) and writes them
+ * with blocking system calls. Node's `process.stdout` / `process.stderr` stream objects are never
+ * created: building them is a measurable part of the command's start-up. A non-blocking reader that
+ * is full (EAGAIN) is waited for; a closed reader (EPIPE) ends the process quietly, as `| head` expects.
  */
-export class StreamSink implements Sink {
+export class FdSink implements Sink {
   private buf = "";
   constructor(
-    private readonly stream: NodeJS.WritableStream,
+    private readonly fd: number,
     private readonly chunkChars = 1 << 16,
   ) {}
-  write(s: string): void | Promise<void> {
+  write(s: string): void {
     this.buf += s;
-    if (this.buf.length >= this.chunkChars) return this.flush();
+    if (this.buf.length >= this.chunkChars) this.flush();
   }
-  flush(): void | Promise<void> {
+  flush(): void {
     if (!this.buf) return;
-    const chunk = this.buf;
+    let bytes = Buffer.from(this.buf, "utf8");
     this.buf = "";
-    if (!this.stream.write(chunk)) return new Promise<void>((resolve) => this.stream.once("drain", () => resolve()));
+    while (bytes.length > 0) {
+      try {
+        const n = writeSync(this.fd, bytes);
+        bytes = bytes.subarray(n);
+      } catch (e) {
+        const code = (e as NodeJS.ErrnoException).code;
+        if (code === "EAGAIN") Atomics.wait(PAUSE, 0, 0, 2);
+        else if (code === "EPIPE") process.exit(0);
+        else throw e;
+      }
+    }
   }
 }
+const PAUSE = new Int32Array(new SharedArrayBuffer(4));
 
 export function ok(value: unknown): CliResult {
   return { stdout: `${JSON.stringify(value, null, 2)}\n`, stderr: "", exitCode: 0 };
