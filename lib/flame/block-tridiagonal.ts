@@ -64,13 +64,7 @@ export class BlockTridiagonal {
         const og = (j - 1) * nn;
         for (let r = 0; r < n; r++) {
           const ar = o + r * n;
-          const dr = o + r * n;
-          for (let k = 0; k < n; k++) {
-            const a = lower[ar + k];
-            if (a === 0) continue;
-            const gk = og + k * n;
-            for (let c = 0; c < n; c++) lu[dr + c] -= a * g[gk + c];
-          }
+          subtractCombination(lu, ar, lower, ar, g, og, 0, n, n);
         }
       }
       if (!luFactor(lu, o, n, piv, j * n)) {
@@ -95,21 +89,11 @@ export class BlockTridiagonal {
         }
         for (let i = 1; i < n; i++) {
           const ri = o + i * n;
-          for (let k = 0; k < i; k++) {
-            const l = lu[ri + k];
-            if (l === 0) continue;
-            const rk = o + k * n;
-            for (let c = 0; c < n; c++) g[ri + c] -= l * g[rk + c];
-          }
+          subtractCombination(g, ri, lu, ri, g, o, 0, i, n);
         }
         for (let i = n - 1; i >= 0; i--) {
           const ri = o + i * n;
-          for (let k = i + 1; k < n; k++) {
-            const u = lu[ri + k];
-            if (u === 0) continue;
-            const rk = o + k * n;
-            for (let c = 0; c < n; c++) g[ri + c] -= u * g[rk + c];
-          }
+          subtractCombination(g, ri, lu, ri, g, o, i + 1, n, n);
           const inv = 1 / lu[ri + i];
           for (let c = 0; c < n; c++) g[ri + c] *= inv;
         }
@@ -168,6 +152,44 @@ export class BlockTridiagonal {
         y[j * n + r] = s;
       }
     }
+  }
+}
+
+/**
+ * The kernel of the factorisation: row y (at y[yo…yo+n)) −= Σ_{k=k0}^{k1−1} coef[co+k] · row k of
+ * the n-wide rows at rows[ro + k·n …]. Four rows are combined per pass over y, so that y is loaded
+ * and stored a quarter as often (the loop is memory-bound in JavaScript); zero coefficients of a
+ * group of four are skipped.
+ */
+export function subtractCombination(
+  y: Float64Array,
+  yo: number,
+  coef: Float64Array,
+  co: number,
+  rows: Float64Array,
+  ro: number,
+  k0: number,
+  k1: number,
+  n: number,
+): void {
+  let k = k0;
+  for (; k + 3 < k1; k += 4) {
+    const a0 = coef[co + k];
+    const a1 = coef[co + k + 1];
+    const a2 = coef[co + k + 2];
+    const a3 = coef[co + k + 3];
+    if (a0 === 0 && a1 === 0 && a2 === 0 && a3 === 0) continue;
+    const r0 = ro + k * n;
+    const r1 = r0 + n;
+    const r2 = r1 + n;
+    const r3 = r2 + n;
+    for (let c = 0; c < n; c++) y[yo + c] -= a0 * rows[r0 + c] + a1 * rows[r1 + c] + a2 * rows[r2 + c] + a3 * rows[r3 + c];
+  }
+  for (; k < k1; k++) {
+    const a = coef[co + k];
+    if (a === 0) continue;
+    const r0 = ro + k * n;
+    for (let c = 0; c < n; c++) y[yo + c] -= a * rows[r0 + c];
   }
 }
 
