@@ -179,7 +179,6 @@ export class FlameGridSolver {
   private readonly x1: Float64Array;
   private readonly xOld: Float64Array;
   private readonly ewt: Float64Array;
-  private readonly delta: Float64Array;
   private readonly jac: BlockTridiagonal;
   // point work arrays
   private readonly C: Float64Array;
@@ -265,7 +264,6 @@ export class FlameGridSolver {
     this.x1 = new Float64Array(S);
     this.xOld = new Float64Array(S);
     this.ewt = new Float64Array(this.n);
-    this.delta = new Float64Array(N);
     this.jac = new BlockTridiagonal(N, this.n);
     this.C = new Float64Array(K);
     this.sR = new Float64Array(K);
@@ -488,43 +486,34 @@ export class FlameGridSolver {
     for (let j = 0; j < N; j++) this.savePoint(j);
     this.sFlux.set(this.flux);
     jac.clear();
-    for (let v = 0; v < n; v++) {
-      for (let c = 0; c < 3; c++) {
-        if (c >= N) break;
-        for (let p = c; p < N; p += 3) {
-          const i = p * n + v;
-          const xv = x[i];
-          const d = 1e-5 * Math.abs(xv) + (v === 0 ? 1e-5 : 1.5e-8);
-          this.delta[p] = d;
-          x[i] = xv + d;
-          if (v <= K) this.evalPointFast(x, p, this.analyticKinetics ? (v === 0 ? NO_KINETICS : COMPOSITION) : FULL);
+    // Column by column, point by point: a perturbation of point p changes only the residuals of
+    // p − 1, p and p + 1 (through p's own properties and the two fluxes beside it). All variables of
+    // one point are perturbed in turn, so the temperature-only part of the transport is computed
+    // twice per point (at T + δ and back at T), not once per column.
+    for (let p = 0; p < N; p++) {
+      const lo = p > 0 ? p - 1 : 0;
+      const hi = p < N - 1 ? p + 1 : N - 1;
+      for (let v = 0; v < n; v++) {
+        const i = p * n + v;
+        const xv = x[i];
+        const d = 1e-5 * Math.abs(xv) + (v === 0 ? 1e-5 : 1.5e-8);
+        x[i] = xv + d;
+        if (v <= K) this.evalPointFast(x, p, this.analyticKinetics ? (v === 0 ? NO_KINETICS : COMPOSITION) : FULL);
+        if (p > 0) this.evalFlux(x, p - 1);
+        if (p < N - 1) this.evalFlux(x, p);
+        for (let r = lo; r <= hi; r++) {
+          this.residualAt(x, r, F1);
+          const ro = r * n;
+          // block of row point r, column point p: diag (r = p), upper (p = r+1), lower (p = r−1)
+          const band = r === p ? jac.diag : p > r ? jac.upper : jac.lower;
+          const bo = r * nn + v;
+          for (let e = 0; e < n; e++) band[bo + e * n] = (F1[ro + e] - F[ro + e]) / d;
         }
-        for (let p = c; p < N; p += 3) {
-          if (p > 0) this.evalFlux(x, p - 1);
-          if (p < N - 1) this.evalFlux(x, p);
-        }
-        for (let p = c; p < N; p += 3) {
-          const d = this.delta[p];
-          const lo = p > 0 ? p - 1 : 0;
-          const hi = p < N - 1 ? p + 1 : N - 1;
-          for (let r = lo; r <= hi; r++) {
-            this.residualAt(x, r, F1);
-            const ro = r * n;
-            // block of row point r, column point p: diag (r = p), upper (p = r+1), lower (p = r−1)
-            const band = r === p ? jac.diag : p > r ? jac.upper : jac.lower;
-            const bo = r * nn + v;
-            for (let e = 0; e < n; e++) band[bo + e * n] = (F1[ro + e] - F[ro + e]) / d;
-          }
-        }
-        for (let p = c; p < N; p += 3) {
-          x[p * n + v] -= this.delta[p];
-          // exact restore of the value (avoid round-off drift)
-          if (v <= K) this.restorePoint(p);
-        }
-        for (let p = c; p < N; p += 3) {
-          if (p > 0) for (let k = 0; k < K; k++) this.flux[(p - 1) * K + k] = this.sFlux[(p - 1) * K + k];
-          if (p < N - 1) for (let k = 0; k < K; k++) this.flux[p * K + k] = this.sFlux[p * K + k];
-        }
+        x[i] = xv;
+        // exact restore of the point's evaluated properties and of the two fluxes
+        if (v <= K) this.restorePoint(p);
+        if (p > 0) for (let k = 0; k < K; k++) this.flux[(p - 1) * K + k] = this.sFlux[(p - 1) * K + k];
+        if (p < N - 1) for (let k = 0; k < K; k++) this.flux[p * K + k] = this.sFlux[p * K + k];
       }
     }
     if (this.analyticKinetics) this.addKineticsJacobian();
