@@ -39,6 +39,11 @@ export class BlockTridiagonal {
     this.g = new Float64Array(nPoints * nn);
   }
 
+  /** Whether factor() succeeded since the bands were last cleared. */
+  get isFactored(): boolean {
+    return this.factored;
+  }
+
   /** Sets all three block bands to zero. */
   clear(): void {
     this.lower.fill(0);

@@ -19,6 +19,7 @@ import type { FlameSpeedInput, FlameSpeedRequest } from "../schemas/flame-speed"
 import { flameSpeedRequestSchema } from "../schemas/flame-speed";
 import { firstIssueLine } from "../schemas/fuel";
 import { R_J_per_molK } from "../units/constants";
+import type { BlockTridiagonal } from "./block-tridiagonal";
 import { DEFAULT_GRID_CRITERIA, type GridCriteria } from "./grid";
 import { createKinetics, type Kinetics } from "./kinetics";
 import { loadMechanism, type Mechanism } from "./mechanism";
@@ -43,6 +44,22 @@ export const FLAME_SPEED_MECHANISM = "gri30" as const;
 const WARM_FIRST_GRID: SolverSettings = { ...DEFAULT_SOLVER_SETTINGS, maxTimeStepAttempts: 1 };
 /** Warm start, second try: a coarse copy of the neighbour's grid of about this many points. */
 const WARM_COARSE_POINTS = 30;
+
+/**
+ * The factorised Jacobian of the most recent solve, kept for a warm start from exactly that
+ * solution (a sweep's next step starts on the same grid): one slot, taken by its first use, so at
+ * most one Jacobian (a few tens of MB) is held however many results a caller keeps.
+ */
+let lastJacobian: { of: FlameSolution; jacobian: BlockTridiagonal } | undefined;
+function keepLastJacobian(of: FlameSolution, jacobian: BlockTridiagonal | undefined): void {
+  lastJacobian = jacobian ? { of, jacobian } : undefined;
+}
+function takeLastJacobian(of: FlameSolution): BlockTridiagonal | undefined {
+  if (lastJacobian?.of !== of) return undefined;
+  const { jacobian } = lastJacobian;
+  lastJacobian = undefined;
+  return jacobian;
+}
 
 /** Stoke's species keys that the mechanism names differently. */
 const MECHANISM_NAME: Readonly<Record<string, string>> = { Ar: "AR" };
@@ -226,8 +243,8 @@ export function computeFlameSpeed(input: FlameSpeedInput, opts: FlameSpeedOption
   const xH2 = mix.fuel.h2MoleFraction ?? 0;
   const cold = () => coldStart(prob, burnt, 0.4 + 1.6 * xH2 * xH2);
   const cpu0 = typeof process !== "undefined" && process.cpuUsage ? process.cpuUsage() : undefined;
-  const runFrom = (start: FlameSolution, firstGridSettings?: SolverSettings) =>
-    solvePremixed(prob, start, { criteria, onProgress: opts.onProgress, signal: opts.signal, firstGridSettings });
+  const runFrom = (start: FlameSolution, firstGridSettings?: SolverSettings, startJacobian?: BlockTridiagonal) =>
+    solvePremixed(prob, start, { criteria, onProgress: opts.onProgress, signal: opts.signal, firstGridSettings, startJacobian });
   let run: ReturnType<typeof solvePremixed>;
   const ws = opts.warmStart;
   if (ws && ws.mechanism === mech.name) {
@@ -235,7 +252,7 @@ export function computeFlameSpeed(input: FlameSpeedInput, opts: FlameSpeedOption
     const retryable = (e: unknown) => e instanceof NotConvergedError && !e.diagnostics.cancelled;
     try {
       // a near neighbour: Newton on its grid, at most one round of pseudo-time steps
-      run = runFrom(guess, WARM_FIRST_GRID);
+      run = runFrom(guess, WARM_FIRST_GRID, takeLastJacobian(ws.flame));
     } catch (e) {
       if (!retryable(e)) throw e;
       try {
@@ -251,6 +268,7 @@ export function computeFlameSpeed(input: FlameSpeedInput, opts: FlameSpeedOption
     run = runFrom(cold());
   }
   const sol = run.solution;
+  keepLastJacobian(sol, run.jacobian);
   const N = sol.z.length;
   const x = sol.x;
   const mdot = x[K + 1];

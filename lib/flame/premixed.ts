@@ -214,6 +214,7 @@ export class FlameGridSolver {
     jFix: number,
     tFix: number,
     settings: SolverSettings = DEFAULT_SOLVER_SETTINGS,
+    inheritedJacobian?: BlockTridiagonal,
   ) {
     const K = prob.mech.nSpecies;
     this.prob = prob;
@@ -264,7 +265,14 @@ export class FlameGridSolver {
     this.x1 = new Float64Array(S);
     this.xOld = new Float64Array(S);
     this.ewt = new Float64Array(this.n);
-    this.jac = new BlockTridiagonal(N, this.n);
+    if (inheritedJacobian && inheritedJacobian.nPoints === N && inheritedJacobian.blockSize === this.n && inheritedJacobian.isFactored) {
+      // A neighbour's factorised steady-state Jacobian on this same grid: used as if it were one
+      // step old, so that the first step it fails to reduce brings a fresh one (see newton()).
+      this.jac = inheritedJacobian;
+      this.jacobianValid = true;
+      this.jacobianRdt = 0;
+      this.jacobianAge = 1;
+    } else this.jac = new BlockTridiagonal(N, this.n);
     this.C = new Float64Array(K);
     this.sR = new Float64Array(K);
     this.Xw = new Float64Array(K);
@@ -743,6 +751,11 @@ export class FlameGridSolver {
     });
   }
 
+  /** The factorised steady-state Jacobian of the last Newton iterations, when there is one. */
+  steadyJacobian(): BlockTridiagonal | undefined {
+    return this.jacobianValid && this.jacobianRdt === 0 ? this.jac : undefined;
+  }
+
   statsDiagnostics(): Record<string, number> {
     return { ...this.stats };
   }
@@ -762,10 +775,17 @@ export interface PremixedRunOptions {
   firstGridSettings?: SolverSettings;
   onProgress?: (p: ProgressInfo) => void;
   signal?: AbortSignal;
+  /**
+   * A factorised steady-state Jacobian from a neighbouring solve on the starting grid (a warm
+   * start's): the first Newton steps use it instead of evaluating and factorising a new one.
+   */
+  startJacobian?: BlockTridiagonal;
 }
 
 export interface PremixedRunResult {
   solution: FlameSolution;
+  /** The final grid's factorised steady-state Jacobian (for a neighbour's warm start), if valid. */
+  jacobian?: BlockTridiagonal;
   stats: SolveStats;
   refinementPasses: number;
   /** Burning velocity on each grid of the refinement sequence, m/s (last = final). */
@@ -813,7 +833,7 @@ export function solvePremixed(prob: PremixedProblem, start: FlameSolution, opts:
   for (let pass = 0; ; pass++) {
     const jFix = nearestIndex(z, zFix);
     const settings = (pass === 0 ? opts.firstGridSettings : undefined) ?? opts.settings ?? DEFAULT_SOLVER_SETTINGS;
-    const solver = new FlameGridSolver(prob, z, x, jFix, tFix, settings);
+    const solver = new FlameGridSolver(prob, z, x, jFix, tFix, settings, pass === 0 ? opts.startJacobian : undefined);
     solver.signal = opts.signal;
     opts.onProgress?.({
       stage: pass === 0 ? "solving on the starting grid" : `refinement pass ${pass}`,
@@ -842,6 +862,7 @@ export function solvePremixed(prob: PremixedProblem, start: FlameSolution, opts:
       opts.onProgress?.({ stage: "converged", fraction: 1, gridPoints: z.length });
       return {
         solution: { z, x, nSpecies: K, zFix, tFix, speciesNames: prob.mech.speciesNames },
+        jacobian: solver.steadyJacobian(),
         stats,
         refinementPasses: pass,
         velocityHistory: history,
