@@ -1,11 +1,16 @@
 /**
- * The Prisma client, one per process, on the better-sqlite3 driver adapter (no native
- * Prisma engine). `DATABASE_URL` chooses the file (see paths.ts).
+ * The Prisma client, one per process, with no native Prisma engine: `DATABASE_URL` chooses the
+ * database (see paths.ts) and with it the driver adapter — better-sqlite3 for a SQLite file,
+ * pg (node-postgres) for PostgreSQL. Each provider has its own generated client (lib/db/generated
+ * from prisma/schema.prisma, lib/db/generated-pg from the derived prisma/postgres/schema.prisma);
+ * both have the same models and queries, so the rest of the code sees one type, `Db`.
  */
-import { createRequire } from "node:module";
 import { PrismaBetterSqlite3 } from "@prisma/adapter-better-sqlite3";
+import { PrismaPg } from "@prisma/adapter-pg";
 import { PrismaClient } from "./generated/client";
+import { PrismaClient as PrismaClientPg } from "./generated-pg/client";
 import { databaseTarget } from "./paths";
+import { SQLITE_BUSY_TIMEOUT_MS } from "./sqlite-settings";
 
 export type Db = PrismaClient;
 /** A client inside an open transaction (what `inTransaction` hands its callback). */
@@ -13,24 +18,44 @@ export type Tx = Omit<PrismaClient, "$connect" | "$disconnect" | "$on" | "$trans
 /** Either: queries take a plain client or one inside a transaction. */
 export type DbOrTx = Db | Tx;
 
+/** Connections each app process keeps to PostgreSQL at most (`STOKE_PG_POOL_MAX`, default 10). */
+function poolMax(): number {
+  const n = Number(process.env.STOKE_PG_POOL_MAX ?? "10");
+  return Number.isInteger(n) && n > 0 && n <= 1000 ? n : 10;
+}
+
 export function createClient(databaseUrl?: string): PrismaClient {
   const target = databaseTarget(databaseUrl);
   if (target.provider === "postgresql") {
-    // Optional: present only on a team server set up as README.md (section PostgreSQL) says.
-    let PrismaPg: new (opts: { connectionString: string }) => unknown;
-    try {
-      const adapterPackage = ["@prisma", "adapter-pg"].join("/"); // resolved at run time only, when installed
-      ({ PrismaPg } = createRequire(import.meta.url)(/* turbopackIgnore: true */ adapterPackage));
-    } catch (e) {
-      if (!(e instanceof Error && "code" in e && e.code === "MODULE_NOT_FOUND")) throw e;
-      throw new Error(
-        "DATABASE_URL points at PostgreSQL, but @prisma/adapter-pg is not installed and the client is generated for SQLite. Follow README.md, section PostgreSQL.",
-      );
-    }
-    return new PrismaClient({ adapter: new PrismaPg({ connectionString: target.url }) as never });
+    const adapter = new PrismaPg({ connectionString: target.url, max: poolMax() });
+    // Same models, fields and queries as the SQLite client (one schema, provider swapped).
+    return new PrismaClientPg({ adapter }) as unknown as PrismaClient;
   }
-  const adapter = new PrismaBetterSqlite3({ url: target.file });
+  const adapter = new PrismaBetterSqlite3({ url: target.file, timeout: SQLITE_BUSY_TIMEOUT_MS });
   return new PrismaClient({ adapter });
+}
+
+/** Which database the client of this process talks to. */
+export function currentProvider(): "sqlite" | "postgresql" {
+  return databaseTarget(process.env.DATABASE_URL).provider;
+}
+
+/**
+ * True when an error means the database was locked by another connection for longer than the
+ * busy timeout (SQLite), or PostgreSQL gave up on a lock or a serialisation conflict: the request
+ * may succeed when tried again (the HTTP layer answers 503).
+ */
+export function isDatabaseBusy(e: unknown): boolean {
+  for (let x: unknown = e, depth = 0; x && typeof x === "object" && depth < 5; x = (x as { cause?: unknown }).cause, depth++) {
+    const o = x as { code?: unknown; message?: unknown; kind?: unknown; originalCode?: unknown };
+    const code = typeof o.code === "string" ? o.code : "";
+    const message = typeof o.message === "string" ? o.message : "";
+    if (code.startsWith("SQLITE_BUSY") || /SQLITE_BUSY|database is locked/i.test(message)) return true;
+    if (o.kind === "SocketTimeout" || code === "P1008" || code === "P2034") return true;
+    // PostgreSQL: lock_not_available, serialization_failure, deadlock_detected.
+    if (code === "55P03" || code === "40001" || code === "40P01" || o.originalCode === "55P03") return true;
+  }
+  return false;
 }
 
 declare global {
