@@ -24,15 +24,26 @@ function poolMax(): number {
   return Number.isInteger(n) && n > 0 && n <= 1000 ? n : 10;
 }
 
+const providers = new WeakMap<object, "sqlite" | "postgresql">();
+
 export function createClient(databaseUrl?: string): PrismaClient {
   const target = databaseTarget(databaseUrl);
   if (target.provider === "postgresql") {
     const adapter = new PrismaPg({ connectionString: target.url, max: poolMax() });
     // Same models, fields and queries as the SQLite client (one schema, provider swapped).
-    return new PrismaClientPg({ adapter }) as unknown as PrismaClient;
+    const client = new PrismaClientPg({ adapter }) as unknown as PrismaClient;
+    providers.set(client, "postgresql");
+    return client;
   }
   const adapter = new PrismaBetterSqlite3({ url: target.file, timeout: SQLITE_BUSY_TIMEOUT_MS });
-  return new PrismaClient({ adapter });
+  const client = new PrismaClient({ adapter });
+  providers.set(client, "sqlite");
+  return client;
+}
+
+/** The database a client made by `createClient` talks to. */
+export function providerOf(client: Db): "sqlite" | "postgresql" {
+  return providers.get(client) ?? databaseTarget(process.env.DATABASE_URL).provider;
 }
 
 /** Which database the client of this process talks to. */
@@ -72,6 +83,22 @@ export function db(): PrismaClient {
   const client = createClient(url || undefined);
   globalThis.__stokeDb = { url, client };
   return client;
+}
+
+/** Advisory-lock keys of the work that must not run twice at once across app instances. */
+export const LOCK_KEYS = { seed: 0x5365656401 } as const;
+
+/**
+ * `inTransaction`, but on PostgreSQL the transaction first takes the advisory lock `key`, so that
+ * the same work started by several app instances at once runs one after the other (the lock ends
+ * with the transaction). SQLite has one writer at a time anyway.
+ */
+export async function inExclusiveTransaction<R extends { ok: boolean }>(client: Db, key: number, fn: (tx: Tx) => Promise<R>): Promise<R> {
+  const postgres = providerOf(client) === "postgresql";
+  return inTransaction(client, async (tx) => {
+    if (postgres) await tx.$executeRawUnsafe("SELECT pg_advisory_xact_lock($1::bigint)", key);
+    return fn(tx);
+  });
 }
 
 class Rollback<R> extends Error {
