@@ -8,6 +8,7 @@ import type { Db } from "../db/client";
 import {
   findFuelForSheet,
   isBlendRow,
+  countFuels,
   listFuelsWithQuotes,
   storedDefinition,
   type BlendComponentRow,
@@ -29,6 +30,9 @@ import type { FuelDefinition } from "../schemas/fuel";
 import { cautionsFor, DEFER, type Caution } from "../fuels/cautions";
 import { currentQuote, effectiveDefinition, quoteTerms, resolveRow } from "./fuels";
 import { reasonOf } from "./result";
+import type { Page } from "./paging";
+
+export { countFuels };
 
 export interface PriceView {
   quote: QuoteJson;
@@ -137,9 +141,9 @@ function propertiesOf(
   }
 }
 
-/** All fuels (optionally of one kind) with their headline figures and the price in force. */
-export async function fuelList(db: Db, opts: ViewOptions & { kind?: string } = {}): Promise<FuelListItem[]> {
-  const rows = await listFuelsWithQuotes(db, opts.kind);
+/** Fuels (optionally of one kind; a page of them when `page` is given) with their headline figures and the price in force. */
+export async function fuelList(db: Db, opts: ViewOptions & { kind?: string; page?: Page } = {}): Promise<FuelListItem[]> {
+  const rows = await listFuelsWithQuotes(db, opts.kind, opts.page);
   const asOf = opts.asOf ?? new Date();
   return rows.map((row) => {
     const { resolved, properties, error } = propertiesOf(row, opts);

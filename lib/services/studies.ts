@@ -22,6 +22,7 @@ import {
   findStudy,
   findStudyWithScenarios,
   insertStudy,
+  countStudies,
   listStudyRows,
   loadStudyGraph,
   replaceStudy,
@@ -402,7 +403,7 @@ export async function studyBundle(db: Db, id: number, settings: ViewSettings = {
 
 /* ---------------------------------------------------------------- evaluation */
 
-export { sharedCaches };
+export { sharedCaches, countStudies };
 
 export type Evaluated = { ok: true; bundle: StudyBundle; result: StudyResult } | Problem;
 
@@ -450,8 +451,12 @@ export interface StudyListItem {
   updatedAt: Date;
 }
 
-export async function listStudies(db: Db, where: { plantId?: number } = {}): Promise<StudyListItem[]> {
-  const rows = await listStudyRows(db, where.plantId);
+export async function listStudies(
+  db: Db,
+  where: { plantId?: number } = {},
+  page?: { offset: number; limit: number },
+): Promise<StudyListItem[]> {
+  const rows = await listStudyRows(db, where.plantId, page);
   return rows.map((r) => {
     const base = r.scenarios.find((s) => s.isBaseline);
     return {
