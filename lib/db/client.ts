@@ -10,7 +10,7 @@ import { PrismaPg } from "@prisma/adapter-pg";
 import { PrismaClient } from "./generated/client";
 import { PrismaClient as PrismaClientPg } from "./generated-pg/client";
 import { databaseTarget } from "./paths";
-import { SQLITE_BUSY_TIMEOUT_MS } from "./sqlite-settings";
+import { DB_BUSY_TIMEOUT_MS } from "./busy-timeout";
 
 export type Db = PrismaClient;
 /** A client inside an open transaction (what `inTransaction` hands its callback). */
@@ -29,13 +29,14 @@ const providers = new WeakMap<object, "sqlite" | "postgresql">();
 export function createClient(databaseUrl?: string): PrismaClient {
   const target = databaseTarget(databaseUrl);
   if (target.provider === "postgresql") {
-    const adapter = new PrismaPg({ connectionString: target.url, max: poolMax() });
+    // A write waiting for another's lock gives up after the busy timeout (503), as on SQLite.
+    const adapter = new PrismaPg({ connectionString: target.url, max: poolMax(), options: `-c lock_timeout=${DB_BUSY_TIMEOUT_MS}` });
     // Same models, fields and queries as the SQLite client (one schema, provider swapped).
     const client = new PrismaClientPg({ adapter }) as unknown as PrismaClient;
     providers.set(client, "postgresql");
     return client;
   }
-  const adapter = new PrismaBetterSqlite3({ url: target.file, timeout: SQLITE_BUSY_TIMEOUT_MS });
+  const adapter = new PrismaBetterSqlite3({ url: target.file, timeout: DB_BUSY_TIMEOUT_MS });
   const client = new PrismaClient({ adapter });
   providers.set(client, "sqlite");
   return client;
@@ -57,14 +58,19 @@ export function currentProvider(): "sqlite" | "postgresql" {
  * may succeed when tried again (the HTTP layer answers 503).
  */
 export function isDatabaseBusy(e: unknown): boolean {
-  for (let x: unknown = e, depth = 0; x && typeof x === "object" && depth < 5; x = (x as { cause?: unknown }).cause, depth++) {
-    const o = x as { code?: unknown; message?: unknown; kind?: unknown; originalCode?: unknown };
-    const code = typeof o.code === "string" ? o.code : "";
+  // The driver's error sits in `cause` or in Prisma's `meta.driverAdapterError`, a few levels down.
+  const queue: unknown[] = [e];
+  for (let seen = 0; queue.length && seen < 12; seen++) {
+    const x = queue.shift();
+    if (!x || typeof x !== "object") continue;
+    const o = x as { code?: unknown; message?: unknown; kind?: unknown; originalCode?: unknown; cause?: unknown; meta?: unknown };
+    const codes = [o.code, o.originalCode].filter((c): c is string => typeof c === "string");
     const message = typeof o.message === "string" ? o.message : "";
-    if (code.startsWith("SQLITE_BUSY") || /SQLITE_BUSY|database is locked/i.test(message)) return true;
-    if (o.kind === "SocketTimeout" || code === "P1008" || code === "P2034") return true;
-    // PostgreSQL: lock_not_available, serialization_failure, deadlock_detected.
-    if (code === "55P03" || code === "40001" || code === "40P01" || o.originalCode === "55P03") return true;
+    if (codes.some((c) => c.startsWith("SQLITE_BUSY")) || /SQLITE_BUSY|database is locked/i.test(message)) return true;
+    if (o.kind === "SocketTimeout" || codes.includes("P1008") || codes.includes("P2034")) return true;
+    // PostgreSQL: lock_not_available (lock_timeout), serialization_failure, deadlock_detected.
+    if (codes.some((c) => c === "55P03" || c === "40001" || c === "40P01")) return true;
+    queue.push(o.cause, (o.meta as { driverAdapterError?: unknown } | undefined)?.driverAdapterError);
   }
   return false;
 }

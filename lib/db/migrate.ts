@@ -16,7 +16,7 @@ import path from "node:path";
 import Database from "better-sqlite3";
 import pg from "pg";
 import { databaseTarget } from "./paths";
-import { SQLITE_BUSY_TIMEOUT_MS } from "./sqlite-settings";
+import { DB_BUSY_TIMEOUT_MS } from "./busy-timeout";
 
 export interface MigrationFile {
   name: string;
@@ -114,7 +114,7 @@ export function migrateSqlite(options: { databaseUrl?: string; migrationsDir?: s
   if (target.file !== ":memory:") {
     fs.mkdirSync(/*turbopackIgnore: true*/ path.dirname(target.file), { recursive: true });
   }
-  const db = new Database(target.file, { timeout: SQLITE_BUSY_TIMEOUT_MS });
+  const db = new Database(target.file, { timeout: DB_BUSY_TIMEOUT_MS });
   try {
     // Write-ahead log: readers never wait for a writer, and a writer waits (busy timeout) rather
     // than failing at once. The mode is stored in the file, so every later connection uses it.
