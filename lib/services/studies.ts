@@ -41,7 +41,7 @@ import { listRates, rateJson } from "../db/exchange-rate-rows";
 import { countRevisions } from "../db/revision-rows";
 import { rateInForce } from "../economics/currency";
 import { day, inCurrency, latestVersion, quoteByRule, ruleText, type PriceSource, type PricingContext } from "./quote-choice";
-import { sharedCaches } from "./eval-cache";
+import { contentKey, resultCache, sharedCaches } from "./eval-cache";
 import { ok, problem, problemFromError, type FieldErrors, type Problem, type Result } from "./result";
 
 /* ---------------------------------------------------------------- pricing policy */
@@ -420,11 +420,12 @@ export async function evaluateStoredStudy(db: Db, id: number, opts: EvaluateStor
   const loaded = await studyBundle(db, id, opts);
   if (!loaded.ok) return loaded;
   try {
-    const result = evaluateStudy(loaded.bundle.study, {
-      sweep: opts.sweep ?? false,
-      tornado: opts.tornado ?? true,
-      caches: sharedCaches(),
-    });
+    const options = { sweep: opts.sweep ?? false, tornado: opts.tornado ?? true };
+    // Keyed by everything the evaluation reads: the self-contained study object and the options.
+    const key = contentKey("study-result", loaded.bundle.study, options);
+    const result = resultCache<StudyResult>().getOrCompute(key, () =>
+      evaluateStudy(loaded.bundle.study, { ...options, caches: sharedCaches() }),
+    );
     return { ok: true, bundle: loaded.bundle, result };
   } catch (e) {
     return problemFromError(e, {
