@@ -38,6 +38,8 @@ for (const b of BENCHES) {
   if (!existsSync(url)) continue;
   const mod = (await import(url.href)) as Record<string, () => Promise<BenchResult[]>>;
   for (const r of await mod[b.fn]()) {
-    console.log(`${r.name}: ${fmt(r.value ?? median(r.samples))} ${r.unit} (min ${fmt(Math.min(...r.samples))}, max ${fmt(Math.max(...r.samples))})`);
+    console.log(
+      `${r.name}: ${fmt(r.value ?? median(r.samples))} ${r.unit} (min ${fmt(Math.min(...r.samples))}, max ${fmt(Math.max(...r.samples))})`,
+    );
   }
 }
