@@ -54,7 +54,7 @@ module.exports = {
       comment: "no React, Next or Prisma in lib/ outside the database module",
       severity: "error",
       from: { path: "^lib/", pathNot: "^lib/db/" },
-      to: { path: "node_modules/(react|react-dom|next|@prisma|prisma|better-sqlite3|pg)/|^lib/db/generated/" },
+      to: { path: "node_modules/(react|react-dom|next|@prisma|prisma|better-sqlite3|pg)/|^lib/db/generated(-pg)?/" },
     },
     {
       name: "app-through-services",
@@ -73,7 +73,7 @@ module.exports = {
   ],
   options: {
     // The generated Prisma client is a node (so that importing it outside lib/db is caught) but is not cruised.
-    doNotFollow: { path: "node_modules|^lib/db/generated/" },
+    doNotFollow: { path: "node_modules|^lib/db/generated(-pg)?/" },
     exclude: { path: "\\.next/" },
     tsPreCompilationDeps: true,
     tsConfig: { fileName: "tsconfig.json" },

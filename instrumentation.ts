@@ -1,18 +1,12 @@
 /**
- * Runs once when the server starts (Node.js runtime only): brings the SQLite database up to
- * date with the committed migrations and fills an empty database with the invented demo
+ * Runs once when the server starts (Node.js runtime only): brings the database (SQLite or
+ * PostgreSQL, as DATABASE_URL says) up to date with the committed migrations and fills an empty database with the invented demo
  * (set STOKE_SEED=off to start with an empty library).
  */
 export async function register(): Promise<void> {
   if (process.env.NEXT_RUNTIME !== "nodejs") return;
-  const { databaseTarget } = await import("./lib/db/paths");
-  const target = databaseTarget();
-  if (target.provider !== "sqlite") {
-    console.log("Stoke: DATABASE_URL points at PostgreSQL; migrations are applied with `prisma migrate deploy`.");
-    return;
-  }
-  const { migrateSqlite } = await import("./lib/db/migrate");
-  const r = migrateSqlite();
+  const { migrate } = await import("./lib/db/migrate");
+  const r = await migrate();
   if (r.applied.length) console.log(`Stoke: migrated ${r.file} (${r.applied.join(", ")})`);
   if ((process.env.STOKE_SEED ?? "").toLowerCase() !== "off") {
     const { db } = await import("./lib/db/client");

@@ -1,13 +1,21 @@
 import Link from "next/link";
 import { db } from "@/lib/db/client";
 import { countFuelsAndQuotes, plantsOverview } from "@/lib/services/lookups";
+import { countPlants } from "@/lib/services/plants";
+
+/** Plants the home page lists; the rest are on /plants. */
+const HOME_PLANTS = 20;
 import { EQUIPMENT_TYPE_LABELS, type EquipmentType } from "@/lib/schemas/plant";
 import { fmt } from "./_ui/format";
 
 export const dynamic = "force-dynamic";
 
 export default async function HomePage() {
-  const [{ fuels: fuelCount, quotes: quoteCount }, plants] = await Promise.all([countFuelsAndQuotes(db()), plantsOverview(db())]);
+  const [{ fuels: fuelCount, quotes: quoteCount }, plants, plantCount] = await Promise.all([
+    countFuelsAndQuotes(db()),
+    plantsOverview(db(), HOME_PLANTS),
+    countPlants(db()),
+  ]);
   return (
     <>
       <h1>Stoke</h1>
@@ -65,6 +73,11 @@ export default async function HomePage() {
                 ))}
               </tbody>
             </table>
+          )}
+          {plantCount > plants.length && (
+            <p className="muted">
+              The first {plants.length} of {plantCount}: <Link href="/plants">all plants</Link>.
+            </p>
           )}
           {plants.some((p) => p.isDemo) && (
             <p className="basis">The demo site{plants[0]?.site ? ` — ${plants[0].site}` : ""} — and all its prices are invented.</p>

@@ -3,7 +3,7 @@
  * the same validation as the forms and the API; plants through the plant schema. Nothing is
  * written when the database already holds fuels, plants or studies.
  */
-import { inTransaction, type Db } from "../lib/db/client";
+import { inExclusiveTransaction, LOCK_KEYS, type Db, type DbOrTx } from "../lib/db/client";
 import { addPriceQuoteIn, createFuelIn } from "../lib/services/fuels";
 import type { Result } from "../lib/services/result";
 import { plantSchema } from "../lib/schemas/plant";
@@ -17,7 +17,7 @@ export interface SeedOutcome {
   studies: number;
 }
 
-export async function isDatabaseEmpty(db: Db): Promise<boolean> {
+export async function isDatabaseEmpty(db: DbOrTx): Promise<boolean> {
   const [fuels, plants, studies] = await Promise.all([db.fuel.count(), db.plant.count(), db.study.count()]);
   return fuels + plants + studies === 0;
 }
@@ -26,7 +26,9 @@ export async function isDatabaseEmpty(db: Db): Promise<boolean> {
 export async function seedIfEmpty(db: Db): Promise<SeedOutcome> {
   const none: SeedOutcome = { seeded: false, fuels: 0, prices: 0, plants: 0, studies: 0 };
   if (!(await isDatabaseEmpty(db))) return none;
-  const result = await inTransaction(db, async (tx): Promise<Result<SeedOutcome>> => {
+  // Several app instances starting together on one empty PostgreSQL: one seeds, the others find it done.
+  const result = await inExclusiveTransaction(db, LOCK_KEYS.seed, async (tx): Promise<Result<SeedOutcome>> => {
+    if (!(await isDatabaseEmpty(tx))) return { ok: true, value: none };
     const out: SeedOutcome = { seeded: true, fuels: 0, prices: 0, plants: 0, studies: 0 };
     const ids = new Map<string, number>();
     for (const f of DEMO_FUELS) {

@@ -1,12 +1,10 @@
 /** `npm run db:seed`: fills an empty database with the invented demo. */
-import { databaseTarget } from "../lib/db/paths";
-import { migrateSqlite } from "../lib/db/migrate";
+import { migrate } from "../lib/db/migrate";
 import { db } from "../lib/db/client";
 import { seedIfEmpty } from "./index";
 
-const target = databaseTarget();
-if (target.provider === "sqlite") migrateSqlite();
 try {
+  await migrate();
   const r = await seedIfEmpty(db());
   console.log(
     r.seeded

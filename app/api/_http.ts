@@ -5,8 +5,11 @@
  * - A service's problem kind: invalid 400, not-found 404, conflict 409, unprocessable 422.
  * - A lib/ error thrown through a route (`withErrors`): input 400, infeasible 422, not-converged 422,
  *   answered as `{ error, fieldErrors: { [field]: detail } }`. Anything else is a bug: Next answers 500.
+ * - The database locked by another connection beyond the busy timeout (or a PostgreSQL lock
+ *   timeout, serialisation failure or deadlock): 503 "busy, try again" with Retry-After.
  */
 import type { ErrorKind, StokeError } from "@/lib/errors";
+import { isDatabaseBusy } from "@/lib/db/client";
 import { asStokeError, explain, type Problem, type ProblemKind } from "@/lib/services/result";
 import { MAX_JSON_DEPTH, tooDeepAt } from "@/lib/formats/json-depth";
 
@@ -120,9 +123,24 @@ export function withErrors<A extends unknown[]>(handler: (...args: A) => Promise
     } catch (e) {
       const se = asStokeError(e);
       if (se) return errorResponse(se);
+      if (isDatabaseBusy(e)) return busy();
       throw e;
     }
   };
+}
+
+/** Seconds a client is asked to wait before it tries again after a 503. */
+export const BUSY_RETRY_AFTER_S = 2;
+
+/** 503: the database is held by another writer; nothing was changed and the request may be sent again. */
+export function busy(): Response {
+  return Response.json(
+    {
+      error: "The database is busy (another process is writing to it); nothing was changed. Try again in a moment.",
+      fieldErrors: {},
+    },
+    { status: 503, headers: { "cache-control": "no-store", "retry-after": String(BUSY_RETRY_AFTER_S) } },
+  );
 }
 
 export function notFound(what: string): Response {

@@ -1,7 +1,9 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { db } from "@/lib/db/client";
-import { fuelList, type FuelListItem } from "@/lib/services/fuel-views";
+import { countFuels, fuelList, type FuelListItem } from "@/lib/services/fuel-views";
+import { uiPage, UI_PAGE_SIZE } from "@/lib/services/paging";
+import { Pager } from "../_ui/Pager";
 import { FUEL_KINDS } from "@/lib/schemas/library";
 import { fmt, fmtUpTo, money } from "../_ui/format";
 
@@ -42,7 +44,14 @@ function perVolume(f: FuelListItem, which: "hhv" | "lhv"): React.ReactNode {
 export default async function FuelListPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const sp = await searchParams;
   const kindParam = typeof sp.kind === "string" && (FUEL_KINDS as readonly string[]).includes(sp.kind) ? sp.kind : null;
-  const fuels = await fuelList(db(), { kind: kindParam ?? undefined });
+  const page = uiPage(sp.page);
+  const [fuels, total] = await Promise.all([
+    fuelList(db(), { kind: kindParam ?? undefined, page }),
+    countFuels(db(), kindParam ?? undefined),
+  ]);
+  const pager = (
+    <Pager path="/fuels" query={kindParam ? { kind: kindParam } : {}} page={page.number} pageSize={UI_PAGE_SIZE} total={total} />
+  );
   const anyInvented = fuels.some((f) => f.price?.quote.isInvented);
 
   return (
@@ -175,6 +184,7 @@ export default async function FuelListPage({ searchParams }: { searchParams: Pro
           </table>
         </div>
       )}
+      {pager}
     </>
   );
 }

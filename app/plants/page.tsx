@@ -1,7 +1,9 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { db } from "@/lib/db/client";
-import { listPlants } from "@/lib/services/plants";
+import { countPlants, listPlants } from "@/lib/services/plants";
+import { uiPage, UI_PAGE_SIZE } from "@/lib/services/paging";
+import { Pager } from "../_ui/Pager";
 import { EQUIPMENT_TYPE_LABELS } from "@/lib/schemas/plant";
 import { fmt } from "../_ui/format";
 import { displayUnits } from "../studies/_components/units-server";
@@ -11,8 +13,9 @@ import { UnitSwitch } from "../studies/_components/UnitSwitch";
 export const dynamic = "force-dynamic";
 export const metadata: Metadata = { title: "Plants" };
 
-export default async function PlantsPage() {
-  const [plants, units] = await Promise.all([listPlants(db()), displayUnits()]);
+export default async function PlantsPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+  const page = uiPage((await searchParams).page);
+  const [plants, total, units] = await Promise.all([listPlants(db(), page), countPlants(db()), displayUnits()]);
   const d = makeDisplay(units, "");
   return (
     <>
@@ -93,6 +96,7 @@ export default async function PlantsPage() {
           </table>
         </div>
       )}
+      <Pager path="/plants" page={page.number} pageSize={UI_PAGE_SIZE} total={total} />
     </>
   );
 }

@@ -1,15 +1,18 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { db } from "@/lib/db/client";
-import { listStudies } from "@/lib/services/studies";
+import { countStudies, listStudies } from "@/lib/services/studies";
+import { uiPage, UI_PAGE_SIZE } from "@/lib/services/paging";
+import { Pager } from "../_ui/Pager";
 import { METRIC_SHORT } from "./_components/settings";
 import type { RankingMetric } from "@/lib/economics/sensitivity";
 
 export const dynamic = "force-dynamic";
 export const metadata: Metadata = { title: "Studies" };
 
-export default async function StudiesPage() {
-  const studies = await listStudies(db());
+export default async function StudiesPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+  const page = uiPage((await searchParams).page);
+  const [studies, total] = await Promise.all([listStudies(db(), {}, page), countStudies(db())]);
   return (
     <>
       <div className="page-head">
@@ -70,6 +73,7 @@ export default async function StudiesPage() {
           </table>
         </div>
       )}
+      <Pager path="/studies" page={page.number} pageSize={UI_PAGE_SIZE} total={total} />
     </>
   );
 }

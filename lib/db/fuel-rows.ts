@@ -8,6 +8,7 @@ import type { DbOrTx, Tx } from "./client";
 import type { FuelDefinition } from "../schemas/fuel";
 import { FUEL_ATTRIBUTE_KEYS, type FuelKind } from "../schemas/library";
 import { QUOTES_NEWEST_FIRST } from "./price-quote-rows";
+import { groupBy, inChunks } from "./chunks";
 
 export type FuelRow = Fuel;
 export type BlendComponentRow = BlendComponent;
@@ -107,7 +108,7 @@ export function findFuel(db: DbOrTx, id: number): Promise<Fuel | null> {
 }
 
 export function findFuels(db: DbOrTx, ids: number[]): Promise<Fuel[]> {
-  return db.fuel.findMany({ where: { id: { in: ids } } });
+  return inChunks(ids, (chunk) => db.fuel.findMany({ where: { id: { in: chunk } } }));
 }
 
 /** Ids and names of every fuel (for name clashes and imports). */
@@ -134,7 +135,9 @@ export async function dependentBlendIds(db: DbOrTx, fuelId: number): Promise<num
   const seen = new Set<number>([fuelId]);
   let frontier = [fuelId];
   while (frontier.length) {
-    const rows = await db.blendComponent.findMany({ where: { componentFuelId: { in: frontier } }, select: { blendFuelId: true } });
+    const rows = await inChunks(frontier, (chunk) =>
+      db.blendComponent.findMany({ where: { componentFuelId: { in: chunk } }, select: { blendFuelId: true } }),
+    );
     frontier = [];
     for (const r of rows) {
       if (!seen.has(r.blendFuelId)) {
@@ -192,7 +195,46 @@ export async function fuelUsers(
   };
 }
 
-/** Include clause: a fuel's quotes newest first and its components' quotes. */
+/**
+ * Adds to fuel rows their quotes (newest first) and, for blends, their components in order with the
+ * component rows and their quotes — in chunked queries, whatever the number of fuels.
+ */
+export async function withQuotes(db: DbOrTx, fuels: Fuel[]): Promise<FuelWithQuotesRow[]> {
+  const components = groupBy(
+    await inChunks(
+      fuels.map((f) => f.id),
+      (chunk) =>
+        db.blendComponent.findMany({ where: { blendFuelId: { in: chunk } }, orderBy: [{ blendFuelId: "asc" }, { position: "asc" }] }),
+    ),
+    (c) => c.blendFuelId,
+  );
+  const known = new Map(fuels.map((f) => [f.id, f]));
+  const missing = [...components.values()]
+    .flat()
+    .map((c) => c.componentFuelId)
+    .filter((id) => !known.has(id));
+  for (const f of await findFuels(db, missing)) known.set(f.id, f);
+  const quotes = groupBy(
+    await inChunks([...known.keys()], (chunk) =>
+      db.priceQuote.findMany({ where: { fuelId: { in: chunk } }, orderBy: QUOTES_NEWEST_FIRST }),
+    ),
+    (q) => q.fuelId,
+  );
+  const quotesOf = (id: number) => quotes.get(id) ?? [];
+  return fuels.map((f) => ({
+    ...f,
+    priceQuotes: quotesOf(f.id),
+    components: (components.get(f.id) ?? []).map((c) => {
+      const component = known.get(c.componentFuelId)!;
+      return { ...c, component: { ...component, priceQuotes: quotesOf(component.id) } };
+    }),
+  }));
+}
+
+/**
+ * Include clause: a fuel's quotes newest first and its components' quotes. Only for a bounded
+ * number of fuels (one study's scenarios); lists go through `withQuotes`.
+ */
 export const WITH_QUOTES = {
   priceQuotes: { orderBy: QUOTES_NEWEST_FIRST },
   components: {
@@ -201,14 +243,31 @@ export const WITH_QUOTES = {
   },
 };
 
-/** Fuels (optionally of one kind) by kind and name, with their quotes and their components' quotes. */
-export function listFuelsWithQuotes(db: DbOrTx, kind?: string): Promise<FuelWithQuotesRow[]> {
-  return db.fuel.findMany({ where: kind ? { kind } : undefined, orderBy: [{ kind: "asc" }, { name: "asc" }], include: WITH_QUOTES });
+/** The fuel order of lists: by kind, then name. */
+const LIST_ORDER = [{ kind: "asc" as const }, { name: "asc" as const }, { id: "asc" as const }];
+
+/** Fuels (optionally of one kind) by kind and name, with their quotes and their components' quotes; a page of them when `page` is given. */
+export async function listFuelsWithQuotes(
+  db: DbOrTx,
+  kind?: string,
+  page?: { offset: number; limit: number },
+): Promise<FuelWithQuotesRow[]> {
+  const rows = await db.fuel.findMany({
+    where: kind ? { kind } : undefined,
+    orderBy: LIST_ORDER,
+    ...(page ? { skip: page.offset, take: page.limit } : {}),
+  });
+  return withQuotes(db, rows);
+}
+
+/** How many fuels (optionally of one kind) there are. */
+export function countFuels(db: DbOrTx, kind?: string): Promise<number> {
+  return db.fuel.count({ where: kind ? { kind } : undefined });
 }
 
 /** The given fuels with their quotes and their components' quotes. */
-export function fuelsWithQuotes(db: DbOrTx, ids: number[]): Promise<FuelWithQuotesRow[]> {
-  return db.fuel.findMany({ where: { id: { in: ids } }, include: WITH_QUOTES });
+export async function fuelsWithQuotes(db: DbOrTx, ids: number[]): Promise<FuelWithQuotesRow[]> {
+  return withQuotes(db, await findFuels(db, ids));
 }
 
 /** One fuel with its components (id, name, kind) and the blends that use it. */
@@ -231,21 +290,59 @@ export function findFuelWithComponents(db: DbOrTx, id: number) {
 }
 
 /** Gases whose stored definition mentions H2, oldest first, with their quotes. */
-export function gasesMentioningHydrogen(db: DbOrTx): Promise<(Fuel & { priceQuotes: PriceQuote[] })[]> {
-  return db.fuel.findMany({
-    where: { kind: "gas", definition: { contains: '"H2"' } },
-    include: { priceQuotes: { orderBy: QUOTES_NEWEST_FIRST } },
-    orderBy: { id: "asc" },
-  });
+export async function gasesMentioningHydrogen(db: DbOrTx): Promise<(Fuel & { priceQuotes: PriceQuote[] })[]> {
+  const rows = await db.fuel.findMany({ where: { kind: "gas", definition: { contains: '"H2"' } }, orderBy: { id: "asc" } });
+  return withQuotes(db, rows);
 }
 
-/** Every fuel with its components' names and its quotes oldest first (the library export). */
-export function fuelsForExport(db: DbOrTx) {
-  return db.fuel.findMany({
-    orderBy: { id: "asc" },
-    include: {
-      components: { orderBy: { position: "asc" }, include: { component: { select: { name: true } } } },
-      priceQuotes: { orderBy: [{ validFrom: "asc" }, { createdAt: "asc" }, { id: "asc" }] },
-    },
+/** Every fuel's id and the ids of its components (the export's order: a blend after what it uses). */
+export async function fuelComponentLinks(db: DbOrTx): Promise<{ ids: number[]; components: Map<number, number[]> }> {
+  const [fuels, links] = await Promise.all([
+    db.fuel.findMany({ select: { id: true }, orderBy: { id: "asc" } }),
+    db.blendComponent.findMany({
+      select: { blendFuelId: true, componentFuelId: true },
+      orderBy: [{ blendFuelId: "asc" }, { position: "asc" }],
+    }),
+  ]);
+  const components = new Map<number, number[]>();
+  for (const [id, rows] of groupBy(links, (l) => l.blendFuelId))
+    components.set(
+      id,
+      rows.map((r) => r.componentFuelId),
+    );
+  return { ids: fuels.map((f) => f.id), components };
+}
+
+export type ExportFuelRow = Fuel & {
+  components: (BlendComponent & { component: { name: string } })[];
+  priceQuotes: PriceQuote[];
+};
+
+/** The given fuels (in the given order) with their components' names and their quotes oldest first (the library export). */
+export async function fuelsForExport(db: DbOrTx, ids: number[]): Promise<ExportFuelRow[]> {
+  const fuels = new Map((await findFuels(db, ids)).map((f) => [f.id, f]));
+  const links = await inChunks(ids, (chunk) =>
+    db.blendComponent.findMany({ where: { blendFuelId: { in: chunk } }, orderBy: [{ blendFuelId: "asc" }, { position: "asc" }] }),
+  );
+  const names = new Map([...fuels.values()].map((f) => [f.id, f.name]));
+  const unnamed = links.map((l) => l.componentFuelId).filter((id) => !names.has(id));
+  for (const f of await inChunks(unnamed, (chunk) =>
+    db.fuel.findMany({ where: { id: { in: chunk } }, select: { id: true, name: true } }),
+  )) {
+    names.set(f.id, f.name);
+  }
+  const components = groupBy(
+    links.map((l) => ({ ...l, component: { name: names.get(l.componentFuelId) ?? "" } })),
+    (c) => c.blendFuelId,
+  );
+  const quotes = groupBy(
+    await inChunks(ids, (chunk) =>
+      db.priceQuote.findMany({ where: { fuelId: { in: chunk } }, orderBy: [{ validFrom: "asc" }, { createdAt: "asc" }, { id: "asc" }] }),
+    ),
+    (q) => q.fuelId,
+  );
+  return ids.flatMap((id) => {
+    const f = fuels.get(id);
+    return f ? [{ ...f, components: components.get(id) ?? [], priceQuotes: quotes.get(id) ?? [] }] : [];
   });
 }

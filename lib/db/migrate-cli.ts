@@ -1,14 +1,8 @@
-/** `npm run db:migrate`: applies pending migrations to the database named by DATABASE_URL. */
-import { databaseTarget } from "./paths";
-import { migrateSqlite } from "./migrate";
+/** `npm run db:migrate`: applies pending migrations to the database named by DATABASE_URL (SQLite or PostgreSQL). */
+import { migrate } from "./migrate";
 
-const target = databaseTarget();
-if (target.provider === "postgresql") {
-  console.error("DATABASE_URL points at PostgreSQL: apply its migrations with `npx prisma migrate deploy` (see README.md).");
-  process.exit(0);
-}
 try {
-  const r = migrateSqlite();
+  const r = await migrate();
   if (r.applied.length) console.log(`Migrated ${r.file}: applied ${r.applied.join(", ")}`);
   else console.log(`Database ${r.file} is up to date (${r.alreadyApplied.length} migrations).`);
 } catch (e) {

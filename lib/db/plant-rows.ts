@@ -5,6 +5,7 @@
 import type { Plant as PlantRow } from "./generated/client";
 import type { DbOrTx, Tx } from "./client";
 import { plantSchema, type Plant, type PlantInput } from "../schemas/plant";
+import { groupBy, inChunks } from "./chunks";
 
 export type { PlantRow };
 
@@ -112,8 +113,54 @@ function listItemOf(
 
 /* ------------------------------------------------------------------ queries */
 
-export async function listPlants(db: DbOrTx): Promise<PlantListItem[]> {
-  return (await db.plant.findMany({ orderBy: [{ name: "asc" }], include: WITH_STUDIES })).map(listItemOf);
+/** Adds to plant rows their baseline fuel's name and their studies (by name, with scenario counts), in chunked queries. */
+async function withStudies(db: DbOrTx, rows: PlantRow[]): Promise<PlantListItem[]> {
+  const fuelNames = new Map(
+    (
+      await inChunks(
+        rows.flatMap((r) => (r.baselineFuelId === null ? [] : [r.baselineFuelId])),
+        (chunk) => db.fuel.findMany({ where: { id: { in: chunk } }, select: { id: true, name: true } }),
+      )
+    ).map((f) => [f.id, f.name]),
+  );
+  const studies = await inChunks(
+    rows.map((r) => r.id),
+    (chunk) =>
+      db.study.findMany({
+        where: { plantId: { in: chunk } },
+        orderBy: [{ plantId: "asc" }, { name: "asc" }],
+        select: { id: true, name: true, plantId: true },
+      }),
+  );
+  const counts = new Map(
+    (
+      await inChunks(
+        studies.map((s) => s.id),
+        (chunk) => db.scenario.groupBy({ by: ["studyId"], where: { studyId: { in: chunk } }, _count: { _all: true } }),
+      )
+    ).map((c) => [c.studyId, c._count._all]),
+  );
+  const byPlant = groupBy(studies, (s) => s.plantId);
+  return rows.map((r) =>
+    listItemOf({
+      ...r,
+      baselineFuel: r.baselineFuelId === null ? null : { name: fuelNames.get(r.baselineFuelId) ?? "" },
+      studies: (byPlant.get(r.id) ?? []).map((s) => ({ id: s.id, name: s.name, _count: { scenarios: counts.get(s.id) ?? 0 } })),
+    }),
+  );
+}
+
+/** Plants by name with their studies; a page of them when `page` is given. */
+export async function listPlants(db: DbOrTx, page?: { offset: number; limit: number }): Promise<PlantListItem[]> {
+  const rows = await db.plant.findMany({
+    orderBy: [{ name: "asc" }, { id: "asc" }],
+    ...(page ? { skip: page.offset, take: page.limit } : {}),
+  });
+  return withStudies(db, rows);
+}
+
+export function countPlants(db: DbOrTx): Promise<number> {
+  return db.plant.count();
 }
 
 export async function getPlant(db: DbOrTx, id: number): Promise<PlantListItem | null> {
@@ -144,12 +191,30 @@ export function plantChoices(db: DbOrTx): Promise<{ id: number; name: string; ba
   return db.plant.findMany({ orderBy: { name: "asc" }, select: { id: true, name: true, baselineFuelId: true, equipmentType: true } });
 }
 
-/** Every plant with its baseline fuel and studies (ids and names), oldest first (the home page). */
-export function plantsOverview(db: DbOrTx) {
-  return db.plant.findMany({
-    orderBy: { id: "asc" },
-    include: { baselineFuel: { select: { id: true, name: true } }, studies: { select: { id: true, name: true } } },
-  });
+/** Plants with their baseline fuel and studies (ids and names), oldest first (the home page); the first `limit` when given. */
+export async function plantsOverview(db: DbOrTx, limit?: number) {
+  const rows = await db.plant.findMany({ orderBy: { id: "asc" }, ...(limit ? { take: limit } : {}) });
+  const fuels = new Map(
+    (
+      await inChunks(
+        rows.flatMap((r) => (r.baselineFuelId === null ? [] : [r.baselineFuelId])),
+        (chunk) => db.fuel.findMany({ where: { id: { in: chunk } }, select: { id: true, name: true } }),
+      )
+    ).map((f) => [f.id, f]),
+  );
+  const studies = groupBy(
+    await inChunks(
+      rows.map((r) => r.id),
+      (chunk) =>
+        db.study.findMany({ where: { plantId: { in: chunk } }, orderBy: { id: "asc" }, select: { id: true, name: true, plantId: true } }),
+    ),
+    (s) => s.plantId,
+  );
+  return rows.map((r) => ({
+    ...r,
+    baselineFuel: r.baselineFuelId === null ? null : (fuels.get(r.baselineFuelId) ?? null),
+    studies: (studies.get(r.id) ?? []).map(({ id, name }) => ({ id, name })),
+  }));
 }
 
 export function insertPlant(tx: Tx, plant: Plant, baselineFuelId: number): Promise<PlantRow> {

@@ -2,6 +2,7 @@
 import type { Fuel, PriceQuote } from "./generated/client";
 import type { DbOrTx, Tx } from "./client";
 import type { PriceQuoteInputParsed } from "../schemas/library";
+import { inChunks } from "./chunks";
 
 export type PriceQuoteRow = PriceQuote;
 
@@ -67,7 +68,7 @@ export function findQuoteWithFuel(db: DbOrTx, id: number): Promise<(PriceQuote &
 }
 
 export function findQuotes(db: DbOrTx, ids: number[]): Promise<PriceQuote[]> {
-  return db.priceQuote.findMany({ where: { id: { in: ids } } });
+  return inChunks(ids, (chunk) => db.priceQuote.findMany({ where: { id: { in: chunk } } }));
 }
 
 export function insertQuote(tx: DbOrTx, fuelId: number, q: PriceQuoteInputParsed): Promise<PriceQuote> {

@@ -8,6 +8,7 @@ import type { z } from "zod";
 import type { Scenario as ScenarioRow, Study as StudyRow } from "./generated/client";
 import type { DbOrTx, Tx } from "./client";
 import { WITH_QUOTES } from "./fuel-rows";
+import { groupBy, inChunks } from "./chunks";
 import { operatingOverridesSchema, type OperatingOverrides } from "../schemas/plant";
 import { RANKING_METRICS, sensitivitySchema, type RankingMetric } from "../schemas/study";
 import type { StudyRecord } from "../schemas/study-record";
@@ -207,16 +208,55 @@ export function studyHeader(db: DbOrTx, id: number) {
   });
 }
 
-/** Studies (optionally of one plant) by plant and name, with the plant's name and each scenario's name, role and fuel kind. */
-export function listStudyRows(db: DbOrTx, plantId?: number) {
-  return db.study.findMany({
+/**
+ * Studies (optionally of one plant) by plant and name, with the plant's name and each scenario's
+ * name, role and fuel kind; a page of them when `page` is given. Relations in chunked queries.
+ */
+export async function listStudyRows(db: DbOrTx, plantId?: number, page?: { offset: number; limit: number }) {
+  const rows = await db.study.findMany({
     where: plantId ? { plantId } : undefined,
-    orderBy: [{ plant: { name: "asc" } }, { name: "asc" }],
-    include: {
-      plant: { select: { name: true } },
-      scenarios: { select: { name: true, isBaseline: true, fuel: { select: { kind: true } } } },
-    },
+    orderBy: [{ plant: { name: "asc" } }, { name: "asc" }, { id: "asc" }],
+    ...(page ? { skip: page.offset, take: page.limit } : {}),
   });
+  const plants = new Map(
+    (
+      await inChunks(
+        rows.map((r) => r.plantId),
+        (chunk) => db.plant.findMany({ where: { id: { in: chunk } }, select: { id: true, name: true } }),
+      )
+    ).map((p) => [p.id, p.name]),
+  );
+  const scenarios = await inChunks(
+    rows.map((r) => r.id),
+    (chunk) =>
+      db.scenario.findMany({
+        where: { studyId: { in: chunk } },
+        orderBy: [{ studyId: "asc" }, { position: "asc" }, { id: "asc" }],
+        select: { studyId: true, name: true, isBaseline: true, fuelId: true },
+      }),
+  );
+  const kinds = new Map(
+    (
+      await inChunks(
+        scenarios.map((s) => s.fuelId),
+        (chunk) => db.fuel.findMany({ where: { id: { in: chunk } }, select: { id: true, kind: true } }),
+      )
+    ).map((f) => [f.id, f.kind]),
+  );
+  const byStudy = groupBy(scenarios, (s) => s.studyId);
+  return rows.map((r) => ({
+    ...r,
+    plant: { name: plants.get(r.plantId) ?? "" },
+    scenarios: (byStudy.get(r.id) ?? []).map((s) => ({
+      name: s.name,
+      isBaseline: s.isBaseline,
+      fuel: { kind: kinds.get(s.fuelId) ?? "" },
+    })),
+  }));
+}
+
+export function countStudies(db: DbOrTx, plantId?: number): Promise<number> {
+  return db.study.count({ where: plantId ? { plantId } : undefined });
 }
 
 export function studyNamesOfPlant(db: DbOrTx, plantId: number): Promise<{ id: number; name: string }[]> {

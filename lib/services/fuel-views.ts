@@ -8,6 +8,7 @@ import type { Db } from "../db/client";
 import {
   findFuelForSheet,
   isBlendRow,
+  countFuels,
   listFuelsWithQuotes,
   storedDefinition,
   type BlendComponentRow,
@@ -29,6 +30,10 @@ import type { FuelDefinition } from "../schemas/fuel";
 import { cautionsFor, DEFER, type Caution } from "../fuels/cautions";
 import { currentQuote, effectiveDefinition, quoteTerms, resolveRow } from "./fuels";
 import { reasonOf } from "./result";
+import type { Page } from "./paging";
+import { contentKey, propertyCache } from "./eval-cache";
+
+export { countFuels };
 
 export interface PriceView {
   quote: QuoteJson;
@@ -121,25 +126,32 @@ function priceViews(quotes: PriceQuoteRow[], resolved: ResolvedFuel | null, asOf
   });
 }
 
-function propertiesOf(
-  row: FuelRow,
-  opts: ViewOptions,
-): { resolved: ResolvedFuel | null; properties: FuelProperties | null; error: string | null } {
-  try {
-    const resolved = resolveRow(row);
-    const properties = fuelPropertiesFromResolved(resolved, {
-      combustionReferenceC: opts.combustionReferenceC,
-      meteringReferenceC: opts.meteringReferenceC,
-    });
-    return { resolved, properties, error: null };
-  } catch (e) {
-    return { resolved: null, properties: null, error: reasonOf(e) };
-  }
+type PropertiesOutcome = { resolved: ResolvedFuel | null; properties: FuelProperties | null; error: string | null };
+
+/**
+ * The fuel's resolved form and property sheet at the view's references, cached by the content of
+ * the definition lib/ evaluates (`effectiveDefinition`: stored definition, name, column attributes)
+ * and the references: an edited fuel has another key, so it is computed afresh at once.
+ */
+function propertiesOf(row: FuelRow, opts: ViewOptions): PropertiesOutcome {
+  const key = contentKey("fuel-properties", effectiveDefinition(row), opts.combustionReferenceC ?? null, opts.meteringReferenceC ?? null);
+  return propertyCache<PropertiesOutcome>().getOrCompute(key, () => {
+    try {
+      const resolved = resolveRow(row);
+      const properties = fuelPropertiesFromResolved(resolved, {
+        combustionReferenceC: opts.combustionReferenceC,
+        meteringReferenceC: opts.meteringReferenceC,
+      });
+      return { resolved, properties, error: null };
+    } catch (e) {
+      return { resolved: null, properties: null, error: reasonOf(e) };
+    }
+  });
 }
 
-/** All fuels (optionally of one kind) with their headline figures and the price in force. */
-export async function fuelList(db: Db, opts: ViewOptions & { kind?: string } = {}): Promise<FuelListItem[]> {
-  const rows = await listFuelsWithQuotes(db, opts.kind);
+/** Fuels (optionally of one kind; a page of them when `page` is given) with their headline figures and the price in force. */
+export async function fuelList(db: Db, opts: ViewOptions & { kind?: string; page?: Page } = {}): Promise<FuelListItem[]> {
+  const rows = await listFuelsWithQuotes(db, opts.kind, opts.page);
   const asOf = opts.asOf ?? new Date();
   return rows.map((row) => {
     const { resolved, properties, error } = propertiesOf(row, opts);

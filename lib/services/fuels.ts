@@ -175,9 +175,17 @@ async function prepareFuel(tx: DbOrTx, input: FuelInputParsed, selfId?: number):
  * The fuel that already carries this name or one that looks the same (any letter case, full-width or
  * ligature forms, repeated spaces: lookAlikeKey), other than `exceptId`.
  */
-async function nameTaken(tx: DbOrTx, name: string, exceptId?: number): Promise<string | null> {
+async function nameTaken(tx: DbOrTx, name: string, exceptId?: number, known?: NameKeys): Promise<string | null> {
   const key = lookAlikeKey(name);
+  if (known) return known.get(key) ?? null;
   return (await fuelNames(tx)).find((f) => lookAlikeKey(f.name) === key && f.id !== exceptId)?.name ?? null;
+}
+
+/** Look-alike key → name of every fuel, for a bulk writer that creates many fuels (an import) to check names without reading them all each time. */
+export type NameKeys = Map<string, string>;
+
+export async function fuelNameKeys(tx: DbOrTx): Promise<NameKeys> {
+  return new Map((await fuelNames(tx)).map((f) => [lookAlikeKey(f.name), f.name]));
 }
 
 /** zod's built-in type messages, reworded for people filling in a form. */
@@ -251,14 +259,20 @@ async function refreshDependentBlends(tx: Tx, fuelId: number): Promise<Result<nu
 }
 
 /** Creates a fuel inside an open transaction (used by the API, by imports and by the seeder). */
-export async function createFuelIn(tx: Tx, raw: unknown): Promise<Result<FuelRow>> {
+/**
+ * Creates a fuel inside an open transaction (used by the API, by imports and by the seeder).
+ * `known`: the library's names by look-alike key, kept current by the caller's writes (bulk imports).
+ */
+export async function createFuelIn(tx: Tx, raw: unknown, known?: NameKeys): Promise<Result<FuelRow>> {
   const input = parseFuelInput(raw);
   if (!input.ok) return withNameCheck(tx, input, raw);
-  const taken = await nameTaken(tx, input.value.name);
+  const taken = await nameTaken(tx, input.value.name, undefined, known);
   if (taken) return nameConflict(taken);
   const prepared = await prepareFuel(tx, input.value);
   if (!prepared.ok) return prepared;
-  return ok(await insertFuel(tx, prepared.value.columns, prepared.value.components));
+  const row = await insertFuel(tx, prepared.value.columns, prepared.value.components);
+  known?.set(lookAlikeKey(row.name), row.name);
+  return ok(row);
 }
 
 export function createFuel(db: Db, raw: unknown): Promise<Result<FuelRow>> {

@@ -12,6 +12,7 @@ import {
   findPlantWithStudyNames,
   getPlant,
   insertPlant,
+  countPlants,
   listPlants,
   plantFromRow,
   plantNames,
@@ -28,7 +29,7 @@ import type { PlantDuty } from "../plant/duty";
 import { sharedCaches } from "./eval-cache";
 import { ok, problem, reasonOf, type FieldErrors, type Result } from "./result";
 
-export { getPlant, listPlants, type PlantListItem, type PlantRecord };
+export { countPlants, getPlant, listPlants, type PlantListItem, type PlantRecord };
 
 /** What a plant form or the API sends: the plant schema's fields plus the baseline fuel's id. */
 export type PlantRecordInput = PlantInput & { baselineFuelId: number | null };

@@ -22,6 +22,7 @@ import {
   findStudy,
   findStudyWithScenarios,
   insertStudy,
+  countStudies,
   listStudyRows,
   loadStudyGraph,
   replaceStudy,
@@ -40,7 +41,7 @@ import { listRates, rateJson } from "../db/exchange-rate-rows";
 import { countRevisions } from "../db/revision-rows";
 import { rateInForce } from "../economics/currency";
 import { day, inCurrency, latestVersion, quoteByRule, ruleText, type PriceSource, type PricingContext } from "./quote-choice";
-import { sharedCaches } from "./eval-cache";
+import { contentKey, resultCache, sharedCaches } from "./eval-cache";
 import { ok, problem, problemFromError, type FieldErrors, type Problem, type Result } from "./result";
 
 /* ---------------------------------------------------------------- pricing policy */
@@ -402,7 +403,7 @@ export async function studyBundle(db: Db, id: number, settings: ViewSettings = {
 
 /* ---------------------------------------------------------------- evaluation */
 
-export { sharedCaches };
+export { sharedCaches, countStudies };
 
 export type Evaluated = { ok: true; bundle: StudyBundle; result: StudyResult } | Problem;
 
@@ -419,11 +420,12 @@ export async function evaluateStoredStudy(db: Db, id: number, opts: EvaluateStor
   const loaded = await studyBundle(db, id, opts);
   if (!loaded.ok) return loaded;
   try {
-    const result = evaluateStudy(loaded.bundle.study, {
-      sweep: opts.sweep ?? false,
-      tornado: opts.tornado ?? true,
-      caches: sharedCaches(),
-    });
+    const options = { sweep: opts.sweep ?? false, tornado: opts.tornado ?? true };
+    // Keyed by everything the evaluation reads: the self-contained study object and the options.
+    const key = contentKey("study-result", loaded.bundle.study, options);
+    const result = resultCache<StudyResult>().getOrCompute(key, () =>
+      evaluateStudy(loaded.bundle.study, { ...options, caches: sharedCaches() }),
+    );
     return { ok: true, bundle: loaded.bundle, result };
   } catch (e) {
     return problemFromError(e, {
@@ -450,8 +452,12 @@ export interface StudyListItem {
   updatedAt: Date;
 }
 
-export async function listStudies(db: Db, where: { plantId?: number } = {}): Promise<StudyListItem[]> {
-  const rows = await listStudyRows(db, where.plantId);
+export async function listStudies(
+  db: Db,
+  where: { plantId?: number } = {},
+  page?: { offset: number; limit: number },
+): Promise<StudyListItem[]> {
+  const rows = await listStudyRows(db, where.plantId, page);
   return rows.map((r) => {
     const base = r.scenarios.find((s) => s.isBaseline);
     return {

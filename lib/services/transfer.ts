@@ -6,14 +6,24 @@
  */
 import { z } from "zod";
 import { inTransaction, type Db, type DbOrTx } from "../db/client";
-import { fuelNames, fuelsForExport, isBlendRow, storedDefinition } from "../db/fuel-rows";
+import {
+  deleteFuelRow,
+  type ExportFuelRow,
+  findFuel,
+  fuelComponentLinks,
+  fuelNames,
+  fuelsForExport,
+  fuelUsers,
+  isBlendRow,
+  storedDefinition,
+} from "../db/fuel-rows";
 import { quoteJson } from "../db/price-quote-rows";
 import { fieldErrors } from "../schemas/fuel";
 import { InputError } from "../errors";
 import { readCsv, writeCsv } from "../formats/csv";
 import { MAX_JSON_DEPTH, tooDeepAt } from "../formats/json-depth";
-import { addPriceQuoteIn, createFuelIn } from "./fuels";
-import { ok, problem, type Result } from "./result";
+import { addPriceQuoteIn, createFuelIn, fuelNameKeys, type NameKeys } from "./fuels";
+import { ok, problem, type Problem, type Result } from "./result";
 
 export const LIBRARY_FORMAT = "stoke-fuel-library";
 export const LIBRARY_FORMAT_VERSION = 1;
@@ -79,49 +89,61 @@ export type LibraryDocument = z.output<typeof libraryDocumentSchema>;
 
 /* ------------------------------------------------------------------ export */
 
-export async function exportLibrary(db: DbOrTx): Promise<LibraryDocument> {
-  const rows = await fuelsForExport(db);
-  // Components first: a blend is listed after every fuel it uses.
-  const byId = new Map(rows.map((r) => [r.id, r]));
+/** Fuels per chunk of the export: what one read of the database brings at a time. */
+const EXPORT_CHUNK = 500;
+
+/** The export's fuel order: by id, each blend after every fuel it uses. Ids and links only. */
+async function exportOrder(db: DbOrTx): Promise<number[]> {
+  const { ids, components } = await fuelComponentLinks(db);
   const done = new Set<number>();
-  const ordered: typeof rows = [];
-  const visit = (r: (typeof rows)[number]) => {
-    if (done.has(r.id)) return;
-    done.add(r.id);
-    for (const c of r.components) {
-      const component = byId.get(c.componentFuelId);
-      if (component) visit(component);
-    }
-    ordered.push(r);
+  const known = new Set(ids);
+  const ordered: number[] = [];
+  const visit = (id: number) => {
+    if (done.has(id) || !known.has(id)) return;
+    done.add(id);
+    for (const c of components.get(id) ?? []) visit(c);
+    ordered.push(id);
   };
-  rows.forEach(visit);
+  ids.forEach(visit);
+  return ordered;
+}
+
+function libraryFuelOf(r: ExportFuelRow): LibraryDocument["fuels"][number] {
+  const blend = isBlendRow(r);
   return {
-    format: LIBRARY_FORMAT,
-    version: LIBRARY_FORMAT_VERSION,
-    fuels: ordered.map((r) => {
-      const blend = isBlendRow(r);
-      return {
-        name: r.name,
-        kind: r.kind,
-        definition: blend ? null : storedDefinition(r),
-        blend: blend
-          ? { basis: r.components[0]?.basis ?? "volume", components: r.components.map((c) => ({ fuel: c.component.name, share: c.share })) }
-          : null,
-        densityKgPerM3: blend ? null : r.densityKgPerM3,
-        biogenicCarbonShare: blend ? null : r.biogenicCarbonShare,
-        upstreamCo2e_kg_per_GJ: blend ? null : r.upstreamCo2e_kg_per_GJ,
-        notes: r.notes,
-        source: r.source,
-        isDemo: r.isDemo,
-        prices: r.priceQuotes.map((q) => {
-          // The quote as the API shows it, without the database's own ids and timestamps.
-          // Version links and withdrawal are this database's history, not part of the portable quote.
-          const { id: _id, fuelId: _fuelId, createdAt: _createdAt, supersedesId: _s, withdrawnAt: _w, ...portable } = quoteJson(q);
-          return portable;
-        }),
-      };
+    name: r.name,
+    kind: r.kind,
+    definition: blend ? null : storedDefinition(r),
+    blend: blend
+      ? { basis: r.components[0]?.basis ?? "volume", components: r.components.map((c) => ({ fuel: c.component.name, share: c.share })) }
+      : null,
+    densityKgPerM3: blend ? null : r.densityKgPerM3,
+    biogenicCarbonShare: blend ? null : r.biogenicCarbonShare,
+    upstreamCo2e_kg_per_GJ: blend ? null : r.upstreamCo2e_kg_per_GJ,
+    notes: r.notes,
+    source: r.source,
+    isDemo: r.isDemo,
+    prices: r.priceQuotes.map((q) => {
+      // The quote as the API shows it, without the database's own ids and timestamps.
+      // Version links and withdrawal are this database's history, not part of the portable quote.
+      const { id: _id, fuelId: _fuelId, createdAt: _createdAt, supersedesId: _s, withdrawnAt: _w, ...portable } = quoteJson(q);
+      return portable;
     }),
-  };
+  } as LibraryDocument["fuels"][number];
+}
+
+/** The library's fuels in export order, EXPORT_CHUNK at a time (each chunk a few bounded queries). */
+export async function* exportLibraryFuels(db: DbOrTx): AsyncGenerator<LibraryDocument["fuels"][number][]> {
+  const order = await exportOrder(db);
+  for (let i = 0; i < order.length; i += EXPORT_CHUNK) {
+    yield (await fuelsForExport(db, order.slice(i, i + EXPORT_CHUNK))).map(libraryFuelOf);
+  }
+}
+
+export async function exportLibrary(db: DbOrTx): Promise<LibraryDocument> {
+  const fuels: LibraryDocument["fuels"] = [];
+  for await (const chunk of exportLibraryFuels(db)) fuels.push(...chunk);
+  return { format: LIBRARY_FORMAT, version: LIBRARY_FORMAT_VERSION, fuels };
 }
 
 export function libraryToJson(doc: LibraryDocument): string {
@@ -165,9 +187,14 @@ const num = (v: number | null) => (v === null ? "" : String(v));
  * form that reads back to the same value.
  */
 export function libraryToCsv(doc: LibraryDocument): string {
-  const rows: string[][] = [[...CSV_COLUMNS]];
+  return writeCsv([[...CSV_COLUMNS], ...csvRecordsOf(doc.fuels)]);
+}
+
+/** The CSV records (without the header) of some fuels. */
+function csvRecordsOf(fuels: LibraryDocument["fuels"]): string[][] {
+  const rows: string[][] = [];
   const row = (cells: Partial<Record<CsvColumn, string>>) => CSV_COLUMNS.map((c) => cells[c] ?? "");
-  for (const f of doc.fuels) {
+  for (const f of fuels) {
     rows.push(
       row({
         record: "fuel",
@@ -204,7 +231,7 @@ export function libraryToCsv(doc: LibraryDocument): string {
       );
     }
   }
-  return writeCsv(rows);
+  return rows;
 }
 
 /* ------------------------------------------------------------------ import */
@@ -349,102 +376,176 @@ function prefixErrors(prefix: string, errs: Record<string, string>): Record<stri
   return out;
 }
 
-/** Imports a parsed library document in one transaction. */
-export function importLibrary(db: Db, doc: LibraryDocument, opts: ImportOptions = {}): Promise<Result<ImportSummary>> {
-  return inTransaction(db, async (tx): Promise<Result<ImportSummary>> => {
-    const existing = new Map((await fuelNames(tx)).map((f) => [f.name.toLowerCase(), f.id]));
-    const idByName = new Map<string, number>(); // lower-case name → id (existing or created here)
-    for (const [k, id] of existing) idByName.set(k, id);
-    const summary: ImportSummary = { fuelsCreated: 0, pricesCreated: 0, skipped: [] };
-    const seen = new Set<string>();
-    const pending = doc.fuels.map((f, i) => ({ f, i }));
-    // Process in dependency order: a blend waits until its components exist.
-    while (pending.length) {
-      const idx = pending.findIndex(({ f }) => !f.blend || f.blend.components.every((c) => idByName.has(c.fuel.toLowerCase())));
-      if (idx < 0) {
-        const { f, i } = pending[0];
-        const missing = (f.blend?.components ?? []).map((c) => c.fuel).filter((n) => !idByName.has(n.toLowerCase()));
-        return problem(
-          "invalid",
-          `Import refused, nothing was stored. fuels[${i}] "${f.name}": blend component(s) ${missing.map((m) => `"${m}"`).join(", ")} not found`,
-          {
-            [`fuels.${i}.blend.components`]: `not found: ${missing.join(", ")}`,
-          },
-        );
-      }
-      const { f, i } = pending.splice(idx, 1)[0];
-      const where = `fuels.${i}`;
-      const key = f.name.trim().toLowerCase();
-      if (seen.has(key))
-        return problem("invalid", `Import refused, nothing was stored. ${where}: "${f.name}" appears twice in the file`, {
-          [`${where}.name`]: "appears twice in the file",
-        });
-      seen.add(key);
-      if (existing.has(key)) {
-        if (opts.onExisting === "skip") {
-          summary.skipped.push(f.name);
-          continue;
-        }
-        return problem(
-          "conflict",
-          `Import refused, nothing was stored. A fuel named "${f.name}" already exists (choose "skip existing" to leave it as it is).`,
-          {
-            [`${where}.name`]: `a fuel named "${f.name}" already exists`,
-          },
-        );
-      }
-      const input: Record<string, unknown> = {
-        name: f.name,
-        notes: f.notes,
-        source: f.source,
-        isDemo: f.isDemo,
-      };
-      if (f.kind !== "") input.kind = f.kind;
-      if (f.blend) {
-        input.blend = {
-          basis: f.blend.basis,
-          components: f.blend.components.map((c) => ({ fuelId: idByName.get(c.fuel.toLowerCase()), share: c.share })),
+/** Fuels written per transaction by an import; between chunks other requests get the database. */
+export const IMPORT_CHUNK = 50;
+
+/** Lets queued requests (I/O callbacks) run before the next chunk. */
+const yieldToOthers = () => new Promise<void>((resolve) => setImmediate(resolve));
+
+/**
+ * Imports a parsed library document, all or nothing, in transactions of IMPORT_CHUNK fuels with a
+ * pause between them so that other requests are answered while a large file is stored. When a
+ * later chunk is refused, the fuels stored by the earlier ones are deleted again (newest first,
+ * their quotes with them), so nothing of the file stays.
+ */
+export async function importLibrary(db: Db, doc: LibraryDocument, opts: ImportOptions = {}): Promise<Result<ImportSummary>> {
+  const existing = new Map((await fuelNames(db)).map((f) => [f.name.toLowerCase(), f.id]));
+  const idByName = new Map<string, number>(); // lower-case name → id (existing or created here)
+  for (const [k, id] of existing) idByName.set(k, id);
+  const summary: ImportSummary = { fuelsCreated: 0, pricesCreated: 0, skipped: [] };
+  const seen = new Set<string>();
+  const pending = doc.fuels.map((f, i) => ({ f, i }));
+  const storedIds: number[] = [];
+  const nameKeys = await fuelNameKeys(db);
+  const undo = async (refusal: Problem): Promise<Problem> => {
+    const left = await removeImported(db, storedIds);
+    return left.length === 0
+      ? refusal
+      : {
+          ...refusal,
+          message: `${refusal.message} (${left.length} fuel(s) stored by this import are now in use and were kept: ${left.join(", ")})`,
         };
-      } else {
-        input.definition = f.definition ?? undefined;
-        input.densityKgPerM3 = f.densityKgPerM3;
-        input.biogenicCarbonShare = f.biogenicCarbonShare;
-        input.upstreamCo2e_kg_per_GJ = f.upstreamCo2e_kg_per_GJ;
-      }
-      const created = await createFuelIn(tx, input);
-      if (!created.ok) {
-        return problem(
-          created.kind,
-          `Import refused, nothing was stored. ${where} "${f.name}": ${
-            Object.entries(created.fieldErrors)
-              .map(([k, v]) => `${k}: ${v}`)
-              .join("; ") || created.message
-          }`,
-          prefixErrors(where, created.fieldErrors),
-        );
-      }
-      idByName.set(key, created.value.id);
-      summary.fuelsCreated++;
-      for (const [j, p] of f.prices.entries()) {
-        const q = await addPriceQuoteIn(tx, created.value.id, p);
-        if (!q.ok) {
-          const pw = `${where}.prices.${j}`;
+  };
+  while (pending.length) {
+    const chunkIds: number[] = [];
+    // Names of this chunk join `nameKeys` only when it is stored.
+    const chunkKeys: NameKeys = new Map(nameKeys);
+    const chunk = await inTransaction(db, async (tx): Promise<Result<null>> => {
+      for (let n = 0; n < IMPORT_CHUNK && pending.length; n++) {
+        const idx = pending.findIndex(({ f }) => !f.blend || f.blend.components.every((c) => idByName.has(c.fuel.toLowerCase())));
+        if (idx < 0) {
+          const { f, i } = pending[0];
+          const missing = (f.blend?.components ?? []).map((c) => c.fuel).filter((n) => !idByName.has(n.toLowerCase()));
           return problem(
             "invalid",
-            `Import refused, nothing was stored. ${pw} (price of "${f.name}"): ${Object.entries(q.fieldErrors)
-              .map(([k, v]) => `${k}: ${v}`)
-              .join("; ")}`,
-            prefixErrors(pw, q.fieldErrors),
+            `Import refused, nothing was stored. fuels[${i}] "${f.name}": blend component(s) ${missing.map((m) => `"${m}"`).join(", ")} not found`,
+            {
+              [`fuels.${i}.blend.components`]: `not found: ${missing.join(", ")}`,
+            },
           );
         }
-        summary.pricesCreated++;
+        const { f, i } = pending.splice(idx, 1)[0];
+        const where = `fuels.${i}`;
+        const key = f.name.trim().toLowerCase();
+        if (seen.has(key))
+          return problem("invalid", `Import refused, nothing was stored. ${where}: "${f.name}" appears twice in the file`, {
+            [`${where}.name`]: "appears twice in the file",
+          });
+        seen.add(key);
+        if (existing.has(key)) {
+          if (opts.onExisting === "skip") {
+            summary.skipped.push(f.name);
+            continue;
+          }
+          return problem(
+            "conflict",
+            `Import refused, nothing was stored. A fuel named "${f.name}" already exists (choose "skip existing" to leave it as it is).`,
+            {
+              [`${where}.name`]: `a fuel named "${f.name}" already exists`,
+            },
+          );
+        }
+        const input: Record<string, unknown> = {
+          name: f.name,
+          notes: f.notes,
+          source: f.source,
+          isDemo: f.isDemo,
+        };
+        if (f.kind !== "") input.kind = f.kind;
+        if (f.blend) {
+          input.blend = {
+            basis: f.blend.basis,
+            components: f.blend.components.map((c) => ({ fuelId: idByName.get(c.fuel.toLowerCase()), share: c.share })),
+          };
+        } else {
+          input.definition = f.definition ?? undefined;
+          input.densityKgPerM3 = f.densityKgPerM3;
+          input.biogenicCarbonShare = f.biogenicCarbonShare;
+          input.upstreamCo2e_kg_per_GJ = f.upstreamCo2e_kg_per_GJ;
+        }
+        const created = await createFuelIn(tx, input, chunkKeys);
+        if (!created.ok) {
+          return problem(
+            created.kind,
+            `Import refused, nothing was stored. ${where} "${f.name}": ${
+              Object.entries(created.fieldErrors)
+                .map(([k, v]) => `${k}: ${v}`)
+                .join("; ") || created.message
+            }`,
+            prefixErrors(where, created.fieldErrors),
+          );
+        }
+        idByName.set(key, created.value.id);
+        summary.fuelsCreated++;
+        chunkIds.push(created.value.id);
+        for (const [j, p] of f.prices.entries()) {
+          const q = await addPriceQuoteIn(tx, created.value.id, p);
+          if (!q.ok) {
+            const pw = `${where}.prices.${j}`;
+            return problem(
+              "invalid",
+              `Import refused, nothing was stored. ${pw} (price of "${f.name}"): ${Object.entries(q.fieldErrors)
+                .map(([k, v]) => `${k}: ${v}`)
+                .join("; ")}`,
+              prefixErrors(pw, q.fieldErrors),
+            );
+          }
+          summary.pricesCreated++;
+        }
       }
-    }
-    return ok(summary);
-  });
+      return ok(null);
+    });
+    if (!chunk.ok) return undo(chunk);
+    storedIds.push(...chunkIds);
+    for (const [k, v] of chunkKeys) nameKeys.set(k, v);
+    await yieldToOthers();
+  }
+  return ok(summary);
+}
+
+/** Deletes the fuels an import stored (newest first: blends before their components); answers the names it had to keep. */
+async function removeImported(db: Db, ids: number[]): Promise<string[]> {
+  const kept: string[] = [];
+  for (const id of [...ids].reverse()) {
+    const r = await inTransaction(db, async (tx): Promise<Result<null>> => {
+      const users = await fuelUsers(tx, id);
+      if (users.blends.length || users.plants.length || users.scenarios.length) {
+        const row = await findFuel(tx, id);
+        kept.push(row?.name ?? String(id));
+        return ok(null);
+      }
+      await deleteFuelRow(tx, id);
+      return ok(null);
+    });
+    if (!r.ok) kept.push(String(id));
+  }
+  return kept;
 }
 
 export async function exportLibraryText(db: DbOrTx, format: ImportFormat): Promise<string> {
-  const doc = await exportLibrary(db);
-  return format === "csv" ? libraryToCsv(doc) : libraryToJson(doc);
+  let text = "";
+  for await (const piece of exportLibraryPieces(db, format)) text += piece;
+  return text;
+}
+
+/**
+ * The export as consecutive pieces of text, one per chunk of fuels, so that a large library
+ * streams instead of being held whole; joined they are exactly `libraryToJson` / `libraryToCsv`
+ * of `exportLibrary`.
+ */
+export async function* exportLibraryPieces(db: DbOrTx, format: ImportFormat): AsyncGenerator<string> {
+  if (format === "csv") {
+    yield writeCsv([[...CSV_COLUMNS]]);
+    for await (const fuels of exportLibraryFuels(db)) yield writeCsv(csvRecordsOf(fuels));
+    return;
+  }
+  const head = JSON.stringify({ format: LIBRARY_FORMAT, version: LIBRARY_FORMAT_VERSION }, null, 2).slice(0, -2);
+  let first = true;
+  for await (const fuels of exportLibraryFuels(db)) {
+    if (fuels.length === 0) continue;
+    const body = fuels.map((f) => `    ${JSON.stringify(f, null, 2).replaceAll("\n", "\n    ")}`).join(",\n");
+    yield first ? `${head},\n  "fuels": [\n${body}` : `,\n${body}`;
+    first = false;
+  }
+  yield first ? `${head},\n  "fuels": []\n}\n` : "\n  ]\n}\n";
 }

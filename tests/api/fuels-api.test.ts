@@ -13,7 +13,7 @@ let routes: {
 };
 
 beforeAll(async () => {
-  t = tempDb();
+  t = await tempDb();
   process.env.DATABASE_URL = t.url;
   routes = {
     fuels: await import("../../app/api/fuels/route"),

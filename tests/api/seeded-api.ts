@@ -17,7 +17,7 @@ export interface SeededApi {
 }
 
 export async function openSeededApi(): Promise<SeededApi> {
-  const t = tempDb();
+  const t = await tempDb();
   process.env.DATABASE_URL = t.url;
   await seedIfEmpty(t.client);
   const fuel: Record<string, number> = {};

@@ -44,7 +44,7 @@ const ctx = (id: number | string) => ({ params: Promise.resolve({ id: String(id)
 
 describe("plants API", () => {
   it("lists the demo plants and answers one with its limits", async () => {
-    const list = await (await routes.plants.GET()).json();
+    const list = await (await routes.plants.GET(req("/api/plants"))).json();
     expect(list.plants.map((p: { name: string }) => p.name)).toContain("Boiler 1 (gas)");
     const one = await routes.plant.GET(req(`/api/plants/${plantId}`), ctx(plantId));
     expect(one.status).toBe(200);

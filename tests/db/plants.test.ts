@@ -5,7 +5,7 @@ import { seedIfEmpty } from "../../seed/index";
 import { createPlant, deletePlant, getPlant, listPlants, updatePlant } from "../../lib/services/plants";
 import { plantFromRow } from "../../lib/db/plant-rows";
 
-const t = tempDb();
+const t = await tempDb();
 let ngId = 0;
 beforeAll(async () => {
   await seedIfEmpty(t.client);

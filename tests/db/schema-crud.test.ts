@@ -6,7 +6,7 @@
 import { afterAll, describe, expect, it } from "vitest";
 import { tempDb } from "./temp-db";
 
-const t = tempDb();
+const t = await tempDb();
 afterAll(() => t.cleanup());
 const db = t.client;
 

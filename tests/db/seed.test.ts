@@ -5,7 +5,7 @@ import { seedIfEmpty } from "../../seed/index";
 import { fuelList, fuelSheet } from "../../lib/services/fuel-views";
 import { DEMO_FUELS } from "../../seed/demo";
 
-const t = tempDb();
+const t = await tempDb();
 afterAll(() => t.cleanup());
 
 describe("demo seed", () => {

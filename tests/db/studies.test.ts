@@ -13,7 +13,7 @@ import {
   updateStudy,
 } from "../../lib/services/studies";
 
-const t = tempDb();
+const t = await tempDb();
 const fuel: Record<string, number> = {};
 let plantId = 0;
 beforeAll(async () => {

@@ -7,8 +7,8 @@ import { readCsv, writeCsv } from "../../lib/formats/csv";
 import { InputError } from "../../lib/errors";
 
 const dbs: TempDb[] = [];
-function fresh(): TempDb {
-  const t = tempDb();
+async function fresh(): Promise<TempDb> {
+  const t = await tempDb();
   dbs.push(t);
   return t;
 }
@@ -61,7 +61,7 @@ describe("CSV reader and writer", () => {
 
 describe("library export and import", () => {
   it("JSON: export → import into an empty library → export gives the same text", async () => {
-    const a = fresh();
+    const a = await fresh();
     await seedIfEmpty(a.client);
     // An extra fuel with awkward text and numbers that need all their digits.
     const { createFuel, addPriceQuote } = await import("../../lib/services/fuels");
@@ -81,7 +81,7 @@ describe("library export and import", () => {
       });
     const first = await exportLibraryText(a.client, "json");
 
-    const b = fresh();
+    const b = await fresh();
     const parsed = parseLibrary(first, "json");
     expect(parsed.ok).toBe(true);
     if (!parsed.ok) return;
@@ -94,10 +94,10 @@ describe("library export and import", () => {
   });
 
   it("CSV: export → import into an empty library → export gives the same text", async () => {
-    const a = fresh();
+    const a = await fresh();
     await seedIfEmpty(a.client);
     const first = await exportLibraryText(a.client, "csv");
-    const b = fresh();
+    const b = await fresh();
     const parsed = parseLibrary(first, "csv");
     expect(parsed.ok).toBe(true);
     if (!parsed.ok) return;
@@ -110,13 +110,13 @@ describe("library export and import", () => {
   });
 
   it("CSV: a fuel name a spreadsheet would run as a formula is exported with an apostrophe and imported as it was", async () => {
-    const a = fresh();
+    const a = await fresh();
     const { createFuel } = await import("../../lib/services/fuels");
     const made = await createFuel(a.client, { name: "=1+1 gas", definition: { composition: { CH4: 1 } }, notes: "-test" });
     expect(made.ok).toBe(true);
     const text = await exportLibraryText(a.client, "csv");
     expect(text.split("\r\n")[1]).toMatch(/^fuel,'=1\+1 gas,gas,/);
-    const b = fresh();
+    const b = await fresh();
     const parsed = parseLibrary(text, "csv");
     expect(parsed.ok && parsed.value.fuels[0].name).toBe("=1+1 gas");
     expect(parsed.ok && parsed.value.fuels[0].notes).toBe("-test");
@@ -125,10 +125,10 @@ describe("library export and import", () => {
   });
 
   it("an error anywhere stores nothing and names the record and field", async () => {
-    const a = fresh();
+    const a = await fresh();
     await seedIfEmpty(a.client);
     const doc = await exportLibrary(a.client);
-    const b = fresh();
+    const b = await fresh();
     const broken = structuredClone(doc);
     const i = broken.fuels.findIndex((f) => f.name === "Biomethane");
     broken.fuels[i].definition = { composition: { CH4: 0.97, CO2: 0.25 } };
@@ -152,7 +152,7 @@ describe("library export and import", () => {
   });
 
   it("existing names: refused by default, skipped on request", async () => {
-    const a = fresh();
+    const a = await fresh();
     await seedIfEmpty(a.client);
     const doc = await exportLibrary(a.client);
     const again = await importLibrary(a.client, doc);
@@ -170,7 +170,7 @@ describe("library export and import", () => {
     const parsed = parseLibrary(JSON.stringify(doc), "json");
     expect(parsed.ok).toBe(false);
     if (!parsed.ok) expect(parsed.fieldErrors["fuels.0.definition"]).toMatch(/nested more than 64 levels deep/);
-    const a = fresh();
+    const a = await fresh();
     const { createFuel } = await import("../../lib/services/fuels");
     const direct = await createFuel(a.client, { name: "Deep", definition });
     expect(!direct.ok && direct.kind).toBe("invalid");

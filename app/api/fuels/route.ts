@@ -1,19 +1,30 @@
 import { db } from "@/lib/db/client";
 import { createFuel } from "@/lib/services/fuels";
-import { fuelList } from "@/lib/services/fuel-views";
+import { countFuels, fuelList } from "@/lib/services/fuel-views";
+import { pageFromQuery, pageInfo } from "@/lib/services/paging";
 import { FUEL_KINDS } from "@/lib/schemas/library";
 import { failure, json, readJson, withErrors } from "../_http";
 
 export const dynamic = "force-dynamic";
 
-/** GET /api/fuels[?kind=gas|liquid|solid]: the library with headline figures and the price in force. */
+/**
+ * GET /api/fuels[?kind=gas|liquid|solid][&limit=N&offset=M]: the library by kind and name with
+ * headline figures and the price in force, at most 1,000 a request (`page.next` is the next page's address).
+ */
 export const GET = withErrors(async (req: Request): Promise<Response> => {
-  const kind = new URL(req.url).searchParams.get("kind");
+  const params = new URL(req.url).searchParams;
+  const kind = params.get("kind");
   if (kind && !(FUEL_KINDS as readonly string[]).includes(kind)) {
     return json({ error: `kind must be one of ${FUEL_KINDS.join(", ")}`, fieldErrors: { kind: "unknown kind" } }, 400);
   }
-  const items = await fuelList(db(), { kind: kind ?? undefined });
+  const page = pageFromQuery(params);
+  if (!page.ok) return failure(page);
+  const [items, total] = await Promise.all([
+    fuelList(db(), { kind: kind ?? undefined, page: page.value }),
+    countFuels(db(), kind ?? undefined),
+  ]);
   return json({
+    page: pageInfo(page.value, total, req.url),
     basis: {
       heatingValues: "combustion reference 25 °C",
       volumes: "real gas at 15 °C, 101.325 kPa (ISO 6976); liquids per litre at 15 °C",

@@ -12,7 +12,7 @@ let id = 0;
 let route: typeof import("../../../app/api/studies/[id]/uncertainty/route");
 
 beforeAll(async () => {
-  t = tempDb();
+  t = await tempDb();
   process.env.DATABASE_URL = t.url;
   await seedIfEmpty(t.client);
   id = (await t.client.study.findFirstOrThrow({ orderBy: { id: "asc" } })).id;

@@ -1,0 +1,3 @@
+-- AlterTable
+ALTER TABLE "Study" ADD COLUMN "includeUpstream" BOOLEAN NOT NULL DEFAULT false,
+ADD COLUMN "sensitivityRanges" TEXT NOT NULL DEFAULT '{}';

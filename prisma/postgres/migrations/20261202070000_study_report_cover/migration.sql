@@ -1,0 +1,6 @@
+-- AlterTable
+ALTER TABLE "Study" ADD COLUMN "reportTitle" TEXT NOT NULL DEFAULT '',
+ADD COLUMN "preparedFor" TEXT NOT NULL DEFAULT '',
+ADD COLUMN "preparedBy" TEXT NOT NULL DEFAULT '',
+ADD COLUMN "reportDate" TEXT,
+ADD COLUMN "reportNotes" TEXT NOT NULL DEFAULT '';
