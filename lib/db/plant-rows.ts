@@ -99,9 +99,12 @@ function recordOf(row: PlantRow & { baselineFuel: { name: string } | null }): Pl
   };
 }
 
+/** Rows not in the trash. */
+const LIVE = { deletedAt: null };
+
 const WITH_STUDIES = {
   baselineFuel: { select: { name: true } },
-  studies: { orderBy: { name: "asc" as const }, select: { id: true, name: true, _count: { select: { scenarios: true } } } },
+  studies: { where: LIVE, orderBy: { name: "asc" as const }, select: { id: true, name: true, _count: { select: { scenarios: true } } } },
 };
 
 function listItemOf(
@@ -113,42 +116,66 @@ function listItemOf(
 /* ------------------------------------------------------------------ queries */
 
 export async function listPlants(db: DbOrTx): Promise<PlantListItem[]> {
-  return (await db.plant.findMany({ orderBy: [{ name: "asc" }], include: WITH_STUDIES })).map(listItemOf);
+  return (await db.plant.findMany({ where: LIVE, orderBy: [{ name: "asc" }], include: WITH_STUDIES })).map(listItemOf);
 }
 
 export async function getPlant(db: DbOrTx, id: number): Promise<PlantListItem | null> {
-  const r = await db.plant.findUnique({ where: { id }, include: WITH_STUDIES });
+  const r = await db.plant.findUnique({ where: { id, ...LIVE }, include: WITH_STUDIES });
   return r ? listItemOf(r) : null;
 }
 
 export function findPlant(db: DbOrTx, id: number): Promise<PlantRow | null> {
-  return db.plant.findUnique({ where: { id } });
+  return db.plant.findUnique({ where: { id, ...LIVE } });
+}
+
+/** A plant in the trash. */
+export function findTrashedPlant(db: DbOrTx, id: number): Promise<PlantRow | null> {
+  return db.plant.findFirst({ where: { id, deletedAt: { not: null } } });
+}
+
+/** Plants in the trash, latest first. */
+export function trashedPlants(db: DbOrTx): Promise<PlantRow[]> {
+  return db.plant.findMany({ where: { deletedAt: { not: null } }, orderBy: [{ deletedAt: "desc" }, { id: "desc" }] });
+}
+
+/** Moves a plant to the trash (`at` set) or back (`at` null). */
+export function setPlantTrashed(tx: Tx, id: number, at: Date | null, by: string | null): Promise<PlantRow> {
+  return tx.plant.update({ where: { id }, data: { deletedAt: at, deletedBy: by } });
 }
 
 /** A plant with its baseline fuel's row. */
 export function findPlantWithBaselineFuel(db: DbOrTx, id: number) {
-  return db.plant.findUnique({ where: { id }, include: { baselineFuel: true } });
+  return db.plant.findUnique({ where: { id, ...LIVE }, include: { baselineFuel: true } });
 }
 
-/** A plant with the names of the studies that use it. */
-export function findPlantWithStudyNames(db: DbOrTx, id: number) {
-  return db.plant.findUnique({ where: { id }, include: { studies: { select: { name: true } } } });
+/** A plant (live, or in the trash with `trashed`) with the names of the studies that use it, those in the trash too. */
+export function findPlantWithStudyNames(db: DbOrTx, id: number, trashed = false) {
+  return db.plant.findFirst({
+    where: { id, deletedAt: trashed ? { not: null } : null },
+    include: { studies: { select: { name: true, deletedAt: true } } },
+  });
 }
 
-export function plantNames(db: DbOrTx): Promise<{ id: number; name: string }[]> {
-  return db.plant.findMany({ select: { id: true, name: true } });
+/** Ids and names of every plant, those in the trash too (their names stay taken). */
+export function plantNames(db: DbOrTx): Promise<{ id: number; name: string; deletedAt: Date | null }[]> {
+  return db.plant.findMany({ select: { id: true, name: true, deletedAt: true } });
 }
 
 /** Plants for the study form's choices. */
 export function plantChoices(db: DbOrTx): Promise<{ id: number; name: string; baselineFuelId: number | null; equipmentType: string }[]> {
-  return db.plant.findMany({ orderBy: { name: "asc" }, select: { id: true, name: true, baselineFuelId: true, equipmentType: true } });
+  return db.plant.findMany({
+    where: LIVE,
+    orderBy: { name: "asc" },
+    select: { id: true, name: true, baselineFuelId: true, equipmentType: true },
+  });
 }
 
 /** Every plant with its baseline fuel and studies (ids and names), oldest first (the home page). */
 export function plantsOverview(db: DbOrTx) {
   return db.plant.findMany({
+    where: LIVE,
     orderBy: { id: "asc" },
-    include: { baselineFuel: { select: { id: true, name: true } }, studies: { select: { id: true, name: true } } },
+    include: { baselineFuel: { select: { id: true, name: true } }, studies: { where: LIVE, select: { id: true, name: true } } },
   });
 }
 

@@ -22,6 +22,18 @@ export function stokeMode(env: Env = process.env): Mode {
   return databaseTarget(env.DATABASE_URL).provider === "postgresql" ? "team" : "personal";
 }
 
+/**
+ * Whether deleting a fuel, plant or study moves it to the trash: in team mode, or with
+ * STOKE_TRASH=on; personal mode otherwise deletes at once, as it always did (STOKE_TRASH=off turns
+ * the trash off in team mode too).
+ */
+export function trashEnabled(env: Env = process.env): boolean {
+  const t = (env.STOKE_TRASH ?? "").trim().toLowerCase();
+  if (t === "on") return true;
+  if (t === "off") return false;
+  return stokeMode(env) === "team";
+}
+
 export const MIN_SESSION_SECRET_CHARS = 32;
 
 /** What stops team mode from starting (the session secret), or null. */
