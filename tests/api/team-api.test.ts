@@ -8,22 +8,25 @@ import { tempDb, type TempDb } from "../db/temp-db";
 
 let t: TempDb;
 const saved = { ...process.env };
-type Routes = {
-  session: typeof import("../../app/api/session/route");
-  fuels: typeof import("../../app/api/fuels/route");
-  fuel: typeof import("../../app/api/fuels/[id]/route");
-  prices: typeof import("../../app/api/fuels/[id]/prices/route");
-  exportLib: typeof import("../../app/api/fuels/export/route");
-  accounts: typeof import("../../app/api/accounts/route");
-  account: typeof import("../../app/api/accounts/[id]/route");
-  tokens: typeof import("../../app/api/tokens/route");
-  token: typeof import("../../app/api/tokens/[id]/route");
-  trash: typeof import("../../app/api/trash/route");
-  restore: typeof import("../../app/api/trash/[kind]/[id]/restore/route");
-  purge: typeof import("../../app/api/trash/[kind]/[id]/purge/route");
-  history: typeof import("../../app/api/history/[kind]/[id]/route");
-  plants: typeof import("../../app/api/plants/route");
-};
+/** A route handler as Next calls it: the request, and the route's parameters. */
+type H = (req: Request, ctx?: { params: Promise<Record<string, string>> }) => Promise<Response>;
+type Routes = Record<
+  | "session"
+  | "fuels"
+  | "fuel"
+  | "prices"
+  | "exportLib"
+  | "accounts"
+  | "account"
+  | "tokens"
+  | "token"
+  | "trash"
+  | "restore"
+  | "purge"
+  | "history"
+  | "plants",
+  Record<string, H>
+>;
 let r: Routes;
 
 const PASSWORD = "correct horse battery staple";
@@ -37,7 +40,7 @@ beforeAll(async () => {
   delete process.env.PORT;
   delete process.env.STOKE_ALLOWED_HOSTS;
   delete process.env.STOKE_TRASH;
-  r = {
+  const routes = {
     session: await import("../../app/api/session/route"),
     fuels: await import("../../app/api/fuels/route"),
     fuel: await import("../../app/api/fuels/[id]/route"),
@@ -53,6 +56,7 @@ beforeAll(async () => {
     history: await import("../../app/api/history/[kind]/[id]/route"),
     plants: await import("../../app/api/plants/route"),
   };
+  r = routes as unknown as Routes;
   const { createAccount } = await import("../../lib/services/accounts");
   for (const role of ["viewer", "editor", "admin"] as const) {
     const a = await createAccount(t.client, { email: `${role}@example.org`, role, password: PASSWORD });
@@ -225,7 +229,7 @@ describe("team mode: roles", () => {
     expect(p.status, await p.clone().text()).toBe(201);
     const plantId = (await p.json()).id;
     expect((await r.fuel.DELETE(req(`/api/fuels/${f.id}`, { method: "DELETE", cookie: editor }), ctx({ id: f.id }))).status).toBe(409);
-    const plantRoute = await import("../../app/api/plants/[id]/route");
+    const plantRoute = (await import("../../app/api/plants/[id]/route")) as unknown as Record<string, H>;
     expect(
       (await plantRoute.DELETE(req(`/api/plants/${plantId}`, { method: "DELETE", cookie: editor }), ctx({ id: plantId }))).status,
     ).toBe(200);
@@ -409,7 +413,7 @@ describe("change log", () => {
       const h = await (await r.history.GET(req(`/api/history/fuel/${f.id}`), ctx({ kind: "fuel", id: f.id }))).json();
       expect(h.entries[0]).toMatchObject({ actor: "local user", action: "create" });
       // Personal mode deletes at once, as it always did, and says so in the log.
-      const fuelRoute = await import("../../app/api/fuels/[id]/route");
+      const fuelRoute = (await import("../../app/api/fuels/[id]/route")) as unknown as Record<string, H>;
       expect((await fuelRoute.DELETE(req(`/api/fuels/${f.id}`, { method: "DELETE" }), ctx({ id: f.id }))).status).toBe(200);
       expect(await t.client.fuel.count({ where: { id: f.id } })).toBe(0);
       const after = await (await r.history.GET(req(`/api/history/fuel/${f.id}`), ctx({ kind: "fuel", id: f.id }))).json();

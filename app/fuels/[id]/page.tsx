@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { History } from "@/app/_ui/History";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/lib/db/client";
@@ -532,6 +533,8 @@ export default async function FuelSheetPage({ params, searchParams }: Props) {
       />
       <h3>Price history</h3>
       <PriceHistory fuelId={fuel.id} fuelKind={fuel.kind} prices={sheet.prices} />
+
+      <History type="fuel" id={fuel.id} />
 
       {sheet.resolved && (
         <>

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { History } from "@/app/_ui/History";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/lib/db/client";
@@ -230,6 +231,7 @@ export default async function PlantPage({ params }: Props) {
         </ul>
       )}
       {cautions.length > 0 && <Cautions items={cautions} screening={DEFER} />}
+      <History type="plant" id={rec.id} />
     </>
   );
 }
