@@ -69,7 +69,9 @@ export async function History({ type, id, limit = 20 }: { type: SubjectType; id:
     <section aria-labelledby="history" className="history">
       <h2 id="history">History</h2>
       {h.entries.length === 0 ? (
-        <p className="muted">No recorded changes (changes are recorded from the first one made after this version of Stoke was installed).</p>
+        <p className="muted">
+          No recorded changes (changes are recorded from the first one made after this version of Stoke was installed).
+        </p>
       ) : (
         <div className="table-wrap">
           <table>
@@ -100,7 +102,11 @@ export async function History({ type, id, limit = 20 }: { type: SubjectType; id:
       )}
       {h.total > h.entries.length && (
         <p className="muted">
-          The newest {h.entries.length} of {h.total} changes; all of them: <code>GET /api/history/{type}/{id}?limit=200</code>.
+          The newest {h.entries.length} of {h.total} changes; all of them:{" "}
+          <code>
+            GET /api/history/{type}/{id}?limit=200
+          </code>
+          .
         </p>
       )}
     </section>

@@ -45,7 +45,12 @@ export function AccountsAdmin({ accounts, tokens, selfId }: { accounts: Account[
     const f = new FormData(e.currentTarget);
     const form = e.currentTarget;
     const r = await run(
-      send("/api/accounts", "POST", { email: f.get("email"), displayName: f.get("displayName"), role: f.get("role"), password: f.get("password") }),
+      send("/api/accounts", "POST", {
+        email: f.get("email"),
+        displayName: f.get("displayName"),
+        role: f.get("role"),
+        password: f.get("password"),
+      }),
       `Created ${f.get("email")}.`,
     );
     if (r.ok) form.reset();
@@ -54,7 +59,10 @@ export function AccountsAdmin({ accounts, tokens, selfId }: { accounts: Account[
   async function issue(e: React.FormEvent<HTMLFormElement>) {
     e.preventDefault();
     const f = new FormData(e.currentTarget);
-    const r = await run(send("/api/tokens", "POST", { accountId: Number(f.get("accountId")), tokenName: f.get("tokenName") }), "Token issued.");
+    const r = await run(
+      send("/api/tokens", "POST", { accountId: Number(f.get("accountId")), tokenName: f.get("tokenName") }),
+      "Token issued.",
+    );
     setNewToken(r.ok ? String(r.body.token) : null);
   }
 
@@ -88,7 +96,12 @@ export function AccountsAdmin({ accounts, tokens, selfId }: { accounts: Account[
                   <select
                     aria-label={`role of ${a.email}`}
                     value={a.role}
-                    onChange={(e) => run(send(`/api/accounts/${a.id}`, "PATCH", { role: e.target.value }), `${a.email} is now ${e.target.value}; their sessions ended.`)}
+                    onChange={(e) =>
+                      run(
+                        send(`/api/accounts/${a.id}`, "PATCH", { role: e.target.value }),
+                        `${a.email} is now ${e.target.value}; their sessions ended.`,
+                      )
+                    }
                   >
                     {ROLES.map((r) => (
                       <option key={r} value={r}>
@@ -102,7 +115,10 @@ export function AccountsAdmin({ accounts, tokens, selfId }: { accounts: Account[
                   <button
                     type="button"
                     onClick={() =>
-                      run(send(`/api/accounts/${a.id}`, "PATCH", { disabled: !a.disabled }), `${a.email} ${a.disabled ? "enabled" : "disabled"}.`)
+                      run(
+                        send(`/api/accounts/${a.id}`, "PATCH", { disabled: !a.disabled }),
+                        `${a.email} ${a.disabled ? "enabled" : "disabled"}.`,
+                      )
                     }
                   >
                     {a.disabled ? "Enable" : "Disable"}
@@ -115,11 +131,21 @@ export function AccountsAdmin({ accounts, tokens, selfId }: { accounts: Account[
                       e.preventDefault();
                       const form = e.currentTarget;
                       const pw = new FormData(form).get("password");
-                      const r = await run(send(`/api/accounts/${a.id}`, "PATCH", { password: pw }), `New password set for ${a.email}; their sessions ended.`);
+                      const r = await run(
+                        send(`/api/accounts/${a.id}`, "PATCH", { password: pw }),
+                        `New password set for ${a.email}; their sessions ended.`,
+                      );
                       if (r.ok) form.reset();
                     }}
                   >
-                    <input name="password" type="password" autoComplete="new-password" aria-label={`new password for ${a.email}`} minLength={12} required />{" "}
+                    <input
+                      name="password"
+                      type="password"
+                      autoComplete="new-password"
+                      aria-label={`new password for ${a.email}`}
+                      minLength={12}
+                      required
+                    />{" "}
                     <button type="submit">Reset</button>
                   </form>
                 </td>

@@ -4,7 +4,19 @@
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 
-export function TrashActions({ kind, id, name, canRestore, canPurge }: { kind: string; id: number; name: string; canRestore: boolean; canPurge: boolean }) {
+export function TrashActions({
+  kind,
+  id,
+  name,
+  canRestore,
+  canPurge,
+}: {
+  kind: string;
+  id: number;
+  name: string;
+  canRestore: boolean;
+  canPurge: boolean;
+}) {
   const router = useRouter();
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<string | null>(null);

@@ -18,9 +18,10 @@ export default async function TrashPage() {
     <>
       <h1>Trash</h1>
       <p className="lede">
-        Deleted fuels, plants and studies wait here. An editor can restore them; an admin can delete them for good. While an item is in
-        the trash its name stays taken, and nothing else sees it: lists, exports and studies leave it out.
-        {!trashEnabled() && " This server deletes at once (personal mode): only items deleted in team mode or with STOKE_TRASH=on are here."}
+        Deleted fuels, plants and studies wait here. An editor can restore them; an admin can delete them for good. While an item is in the
+        trash its name stays taken, and nothing else sees it: lists, exports and studies leave it out.
+        {!trashEnabled() &&
+          " This server deletes at once (personal mode): only items deleted in team mode or with STOKE_TRASH=on are here."}
       </p>
       {items.length === 0 ? (
         <p className="muted">The trash is empty.</p>
@@ -46,7 +47,13 @@ export default async function TrashPage() {
                   <td style={{ whiteSpace: "nowrap" }}>{i.deletedAt.slice(0, 16).replace("T", " ")}</td>
                   <td>{i.deletedBy}</td>
                   <td>
-                    <TrashActions kind={i.kind} id={i.id} name={i.name} canRestore={roleAtLeast(role, "editor")} canPurge={roleAtLeast(role, "admin")} />
+                    <TrashActions
+                      kind={i.kind}
+                      id={i.id}
+                      name={i.name}
+                      canRestore={roleAtLeast(role, "editor")}
+                      canPurge={roleAtLeast(role, "admin")}
+                    />
                   </td>
                 </tr>
               ))}

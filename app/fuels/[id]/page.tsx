@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { trashEnabled } from "@/lib/services/mode";
 import { History } from "@/app/_ui/History";
 import Link from "next/link";
 import { notFound } from "next/navigation";
@@ -206,7 +207,9 @@ export default async function FuelSheetPage({ params, searchParams }: Props) {
             url={`/api/fuels/${fuel.id}`}
             after="/fuels"
             label="Delete fuel"
-            confirmText={`Delete “${fuel.name}” and its price history? This cannot be undone.`}
+            confirmText={
+              trashEnabled() ? `Move “${fuel.name}” to the trash?` : `Delete “${fuel.name}” and its price history? This cannot be undone.`
+            }
           />
         </div>
       </div>
