@@ -8,15 +8,15 @@ import { apiNeed, authorize, pageNeed, type Decision } from "@/lib/services/acce
 import { hostAllowed, stokeMode } from "@/lib/services/mode";
 import { bearerFrom, cookieFrom, SESSION_COOKIE, unsealSessionKey } from "./session-cookie";
 
-/** The Host a request names (the header; the URL's host for a request made in-process). */
-export function hostOf(req: Request): string {
-  return req.headers.get("host") ?? new URL(req.url).host;
-}
-
-/** A refusal for a Host not on the list (421), or null. */
+/**
+ * A refusal for a Host header not on the list (421), or null. The list guards against a browser
+ * being pointed at this server under another name (DNS rebinding) and against requests meant for
+ * another site; browsers always send Host. A request without one (a route handler called
+ * in-process) has no name to check.
+ */
 export function hostRefusal(req: Request): { status: 421; message: string } | null {
-  const host = hostOf(req);
-  if (hostAllowed(host)) return null;
+  const host = req.headers.get("host");
+  if (host === null || hostAllowed(host)) return null;
   return {
     status: 421,
     message: `This server does not answer for the host "${host.slice(0, 100)}". Add it to STOKE_ALLOWED_HOSTS if it is this server's name.`,
