@@ -3,13 +3,19 @@ import Link from "next/link";
 import "./globals.css";
 import "./studies/decision.css";
 import { NavLink } from "./_ui/NavLink";
+import { pageUser } from "./_auth/page-user";
+import { SignOutButton } from "./_auth/SignOutButton";
+import { stokeMode, trashEnabled } from "@/lib/services/mode";
+import { roleAtLeast } from "@/lib/schemas/accounts";
 
 export const metadata: Metadata = {
   title: { default: "Stoke", template: "%s · Stoke" },
   description: "Fuel-switching decisions for fired plant: fuels, prices, feasibility and CO2.",
 };
 
-export default function RootLayout({ children }: { children: React.ReactNode }) {
+export default async function RootLayout({ children }: { children: React.ReactNode }) {
+  const team = stokeMode() === "team";
+  const user = team ? await pageUser() : null;
   return (
     <html lang="en">
       <body>
@@ -27,8 +33,19 @@ export default function RootLayout({ children }: { children: React.ReactNode }) 
               <NavLink href="/fuels/transfer" exact>
                 Import / export
               </NavLink>
+              {trashEnabled() && (!team || user) && <NavLink href="/trash">Trash</NavLink>}
+              {user && roleAtLeast(user.role, "admin") && <NavLink href="/accounts">Accounts</NavLink>}
             </nav>
-            <span className="tagline">fuel switching for fired plant</span>
+            {user ? (
+              <span className="account" data-testid="signed-in">
+                <span>
+                  {user.name} <span className="muted">({user.role})</span>
+                </span>
+                <SignOutButton />
+              </span>
+            ) : (
+              <span className="tagline">fuel switching for fired plant</span>
+            )}
           </div>
         </header>
         <main>{children}</main>

@@ -12,12 +12,21 @@ import type { ErrorKind, StokeError } from "@/lib/errors";
 import { isDatabaseBusy } from "@/lib/db/client";
 import { asStokeError, explain, type Problem, type ProblemKind } from "@/lib/services/result";
 import { MAX_JSON_DEPTH, tooDeepAt } from "@/lib/formats/json-depth";
+import { actingAs } from "@/lib/services/actor";
+import { decide, hostRefusal } from "../_auth/gate";
 
-export const STATUS_OF_PROBLEM: Record<ProblemKind, number> = { invalid: 400, "not-found": 404, conflict: 409, unprocessable: 422 };
+export const STATUS_OF_PROBLEM: Record<ProblemKind, number> = {
+  invalid: 400,
+  "not-found": 404,
+  conflict: 409,
+  unprocessable: 422,
+  unauthorized: 401,
+  throttled: 429,
+};
 export const STATUS_OF_ERROR: Record<ErrorKind, number> = { input: 400, infeasible: 422, "not-converged": 422 };
 
-export function json(body: unknown, status = 200): Response {
-  return Response.json(body, { status, headers: { "cache-control": "no-store" } });
+export function json(body: unknown, status = 200, headers: Record<string, string> = {}): Response {
+  return Response.json(body, { status, headers: { "cache-control": "no-store", ...headers } });
 }
 
 /** Longest message an error answer carries: a message never echoes a huge input back in full. */
@@ -35,6 +44,7 @@ export function failure(p: Problem): Response {
   return json(
     { error: capped(p.message), fieldErrors: cappedFields(p.fieldErrors), ...(p.warnings ? { warnings: p.warnings } : {}) },
     STATUS_OF_PROBLEM[p.kind],
+    p.retryAfterS !== undefined ? { "retry-after": String(p.retryAfterS) } : {},
   );
 }
 
@@ -110,23 +120,48 @@ export async function readBodyText(
   return { ok: true, text: Buffer.concat(chunks).toString("utf8") };
 }
 
-/** The handler, with the errors lib/ throws on purpose answered by their status; a bug propagates. Cross-site writes are refused first. */
+/**
+ * The handler, with the errors lib/ throws on purpose answered by their status; a bug propagates.
+ * First, in this order: a Host not on the allowed list answers 421; in team mode a request without
+ * a valid session or API token answers 401 and one whose account lacks the route's role 403 naming
+ * it (`lib/services/access.ts`); a cross-site write answers 403 (a request with an API token is not
+ * one a browser could forge, so it skips that check). The handler then runs as the actor, whom the
+ * change log records.
+ */
 export function withErrors<A extends unknown[]>(handler: (...args: A) => Promise<Response>): (...args: A) => Promise<Response> {
   return async (...args: A) => {
     const req = args[0];
-    if (req instanceof Request) {
-      const refused = crossSiteWrite(req);
-      if (refused) return refused;
-    }
+    if (!(req instanceof Request)) return run(handler, args);
+    const host = hostRefusal(req);
+    if (host) return json({ error: host.message, fieldErrors: { host: "not on the allowed list" } }, host.status);
+    let d: Awaited<ReturnType<typeof decide>>;
     try {
-      return await handler(...args);
+      d = await decide(req, new URL(req.url).pathname);
     } catch (e) {
-      const se = asStokeError(e);
-      if (se) return errorResponse(se);
       if (isDatabaseBusy(e)) return busy();
       throw e;
     }
+    if (!d.ok) {
+      const body = { error: d.message, fieldErrors: { _: d.status === 401 ? "not signed in" : `needs the ${d.need} role` }, needs: d.need };
+      return json(body, d.status, d.status === 401 ? { "www-authenticate": 'Bearer realm="stoke"' } : {});
+    }
+    if (d.actor.via !== "token") {
+      const refused = crossSiteWrite(req);
+      if (refused) return refused;
+    }
+    return actingAs(d.actor, () => run(handler, args));
   };
+}
+
+async function run<A extends unknown[]>(handler: (...args: A) => Promise<Response>, args: A): Promise<Response> {
+  try {
+    return await handler(...args);
+  } catch (e) {
+    const se = asStokeError(e);
+    if (se) return errorResponse(se);
+    if (isDatabaseBusy(e)) return busy();
+    throw e;
+  }
 }
 
 /** Seconds a client is asked to wait before it tries again after a 503. */

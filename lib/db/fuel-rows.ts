@@ -103,29 +103,48 @@ export function fuelColumns(f: FuelFields): FuelColumns {
 
 /* ------------------------------------------------------------------ queries */
 
+/** Rows not in the trash: every query but the trash's own and the name-clash look-ups sees only these. */
+export const LIVE = { deletedAt: null };
+
 export function findFuel(db: DbOrTx, id: number): Promise<Fuel | null> {
-  return db.fuel.findUnique({ where: { id } });
+  return db.fuel.findUnique({ where: { id, ...LIVE } });
 }
 
 export function findFuels(db: DbOrTx, ids: number[]): Promise<Fuel[]> {
-  return inChunks(ids, (chunk) => db.fuel.findMany({ where: { id: { in: chunk } } }));
+  return inChunks(ids, (chunk) => db.fuel.findMany({ where: { id: { in: chunk }, ...LIVE } }));
 }
 
-/** Ids and names of every fuel (for name clashes and imports). */
-export function fuelNames(db: DbOrTx): Promise<{ id: number; name: string }[]> {
-  return db.fuel.findMany({ select: { id: true, name: true } });
+/** Ids and names of the fuels (for imports); with `includeTrash`, also those in the trash (names stay taken there). */
+export function fuelNames(db: DbOrTx, includeTrash = false): Promise<{ id: number; name: string; deletedAt: Date | null }[]> {
+  return db.fuel.findMany({ where: includeTrash ? undefined : LIVE, select: { id: true, name: true, deletedAt: true } });
+}
+
+/** A fuel in the trash. */
+export function findTrashedFuel(db: DbOrTx, id: number): Promise<Fuel | null> {
+  return db.fuel.findFirst({ where: { id, deletedAt: { not: null } } });
+}
+
+/** Fuels in the trash, latest first. */
+export function trashedFuels(db: DbOrTx): Promise<Fuel[]> {
+  return db.fuel.findMany({ where: { deletedAt: { not: null } }, orderBy: [{ deletedAt: "desc" }, { id: "desc" }] });
+}
+
+/** Moves a fuel to the trash (`at` set) or back (`at` null). */
+export function setFuelTrashed(tx: Tx, id: number, at: Date | null, by: string | null): Promise<Fuel> {
+  return tx.fuel.update({ where: { id }, data: { deletedAt: at, deletedBy: by } });
 }
 
 /** Id, name and kind of every fuel, by kind then name or by name, for the forms' choices. */
 export function fuelChoices(db: DbOrTx, order: "kind-name" | "name" = "kind-name"): Promise<{ id: number; name: string; kind: string }[]> {
   return db.fuel.findMany({
+    where: LIVE,
     select: { id: true, name: true, kind: true },
     orderBy: order === "name" ? { name: "asc" } : [{ kind: "asc" }, { name: "asc" }],
   });
 }
 
 export async function countFuelsAndQuotes(db: DbOrTx): Promise<{ fuels: number; quotes: number }> {
-  const [fuels, quotes] = await Promise.all([db.fuel.count(), db.priceQuote.count()]);
+  const [fuels, quotes] = await Promise.all([db.fuel.count({ where: LIVE }), db.priceQuote.count({ where: { fuel: LIVE } })]);
   return { fuels, quotes };
 }
 
@@ -178,20 +197,21 @@ export function deleteFuelRow(tx: Tx, id: number): Promise<Fuel> {
   return tx.fuel.delete({ where: { id } });
 }
 
-/** What refers to a fuel: blends that contain it, plants that burn it, scenarios that use it. */
+/** What refers to a fuel: blends that contain it, plants that burn it, scenarios that use it (those in the trash too, marked). */
 export async function fuelUsers(
   db: DbOrTx,
   id: number,
 ): Promise<{ blends: string[]; plants: string[]; scenarios: { scenario: string; study: string }[] }> {
   const [blends, plants, scenarios] = await Promise.all([
-    db.blendComponent.findMany({ where: { componentFuelId: id }, include: { blend: { select: { name: true } } } }),
-    db.plant.findMany({ where: { baselineFuelId: id }, select: { name: true } }),
-    db.scenario.findMany({ where: { fuelId: id }, include: { study: { select: { name: true } } } }),
+    db.blendComponent.findMany({ where: { componentFuelId: id }, include: { blend: { select: { name: true, deletedAt: true } } } }),
+    db.plant.findMany({ where: { baselineFuelId: id }, select: { name: true, deletedAt: true } }),
+    db.scenario.findMany({ where: { fuelId: id }, include: { study: { select: { name: true, deletedAt: true } } } }),
   ]);
+  const trash = (r: { name: string; deletedAt: Date | null }) => (r.deletedAt ? `${r.name} (in the trash)` : r.name);
   return {
-    blends: blends.map((b) => b.blend.name),
-    plants: plants.map((p) => p.name),
-    scenarios: scenarios.map((s) => ({ scenario: s.name, study: s.study.name })),
+    blends: blends.map((b) => trash(b.blend)),
+    plants: plants.map((p) => trash(p)),
+    scenarios: scenarios.map((s) => ({ scenario: s.name, study: trash(s.study) })),
   };
 }
 
@@ -253,7 +273,7 @@ export async function listFuelsWithQuotes(
   page?: { offset: number; limit: number },
 ): Promise<FuelWithQuotesRow[]> {
   const rows = await db.fuel.findMany({
-    where: kind ? { kind } : undefined,
+    where: kind ? { kind, ...LIVE } : LIVE,
     orderBy: LIST_ORDER,
     ...(page ? { skip: page.offset, take: page.limit } : {}),
   });
@@ -262,7 +282,7 @@ export async function listFuelsWithQuotes(
 
 /** How many fuels (optionally of one kind) there are. */
 export function countFuels(db: DbOrTx, kind?: string): Promise<number> {
-  return db.fuel.count({ where: kind ? { kind } : undefined });
+  return db.fuel.count({ where: kind ? { kind, ...LIVE } : LIVE });
 }
 
 /** The given fuels with their quotes and their components' quotes. */
@@ -273,10 +293,10 @@ export async function fuelsWithQuotes(db: DbOrTx, ids: number[]): Promise<FuelWi
 /** One fuel with its components (id, name, kind) and the blends that use it. */
 export function findFuelForSheet(db: DbOrTx, id: number) {
   return db.fuel.findUnique({
-    where: { id },
+    where: { id, ...LIVE },
     include: {
       components: { orderBy: { position: "asc" }, include: { component: { select: { id: true, name: true, kind: true } } } },
-      usedInBlends: { include: { blend: { select: { id: true, name: true } } } },
+      usedInBlends: { where: { blend: LIVE }, include: { blend: { select: { id: true, name: true } } } },
     },
   });
 }
@@ -284,21 +304,21 @@ export function findFuelForSheet(db: DbOrTx, id: number) {
 /** One fuel with its components' names (the edit form). */
 export function findFuelWithComponents(db: DbOrTx, id: number) {
   return db.fuel.findUnique({
-    where: { id },
+    where: { id, ...LIVE },
     include: { components: { orderBy: { position: "asc" }, include: { component: { select: { id: true, name: true } } } } },
   });
 }
 
 /** Gases whose stored definition mentions H2, oldest first, with their quotes. */
 export async function gasesMentioningHydrogen(db: DbOrTx): Promise<(Fuel & { priceQuotes: PriceQuote[] })[]> {
-  const rows = await db.fuel.findMany({ where: { kind: "gas", definition: { contains: '"H2"' } }, orderBy: { id: "asc" } });
+  const rows = await db.fuel.findMany({ where: { kind: "gas", definition: { contains: '"H2"' }, ...LIVE }, orderBy: { id: "asc" } });
   return withQuotes(db, rows);
 }
 
 /** Every fuel's id and the ids of its components (the export's order: a blend after what it uses). */
 export async function fuelComponentLinks(db: DbOrTx): Promise<{ ids: number[]; components: Map<number, number[]> }> {
   const [fuels, links] = await Promise.all([
-    db.fuel.findMany({ select: { id: true }, orderBy: { id: "asc" } }),
+    db.fuel.findMany({ where: LIVE, select: { id: true }, orderBy: { id: "asc" } }),
     db.blendComponent.findMany({
       select: { blendFuelId: true, componentFuelId: true },
       orderBy: [{ blendFuelId: "asc" }, { position: "asc" }],

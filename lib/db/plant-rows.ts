@@ -100,9 +100,12 @@ function recordOf(row: PlantRow & { baselineFuel: { name: string } | null }): Pl
   };
 }
 
+/** Rows not in the trash. */
+const LIVE = { deletedAt: null };
+
 const WITH_STUDIES = {
   baselineFuel: { select: { name: true } },
-  studies: { orderBy: { name: "asc" as const }, select: { id: true, name: true, _count: { select: { scenarios: true } } } },
+  studies: { where: LIVE, orderBy: { name: "asc" as const }, select: { id: true, name: true, _count: { select: { scenarios: true } } } },
 };
 
 function listItemOf(
@@ -127,7 +130,7 @@ async function withStudies(db: DbOrTx, rows: PlantRow[]): Promise<PlantListItem[
     rows.map((r) => r.id),
     (chunk) =>
       db.study.findMany({
-        where: { plantId: { in: chunk } },
+        where: { plantId: { in: chunk }, ...LIVE },
         orderBy: [{ plantId: "asc" }, { name: "asc" }],
         select: { id: true, name: true, plantId: true },
       }),
@@ -153,6 +156,7 @@ async function withStudies(db: DbOrTx, rows: PlantRow[]): Promise<PlantListItem[
 /** Plants by name with their studies; a page of them when `page` is given. */
 export async function listPlants(db: DbOrTx, page?: { offset: number; limit: number }): Promise<PlantListItem[]> {
   const rows = await db.plant.findMany({
+    where: LIVE,
     orderBy: [{ name: "asc" }, { id: "asc" }],
     ...(page ? { skip: page.offset, take: page.limit } : {}),
   });
@@ -160,40 +164,63 @@ export async function listPlants(db: DbOrTx, page?: { offset: number; limit: num
 }
 
 export function countPlants(db: DbOrTx): Promise<number> {
-  return db.plant.count();
+  return db.plant.count({ where: LIVE });
 }
 
 export async function getPlant(db: DbOrTx, id: number): Promise<PlantListItem | null> {
-  const r = await db.plant.findUnique({ where: { id }, include: WITH_STUDIES });
+  const r = await db.plant.findUnique({ where: { id, ...LIVE }, include: WITH_STUDIES });
   return r ? listItemOf(r) : null;
 }
 
 export function findPlant(db: DbOrTx, id: number): Promise<PlantRow | null> {
-  return db.plant.findUnique({ where: { id } });
+  return db.plant.findUnique({ where: { id, ...LIVE } });
+}
+
+/** A plant in the trash. */
+export function findTrashedPlant(db: DbOrTx, id: number): Promise<PlantRow | null> {
+  return db.plant.findFirst({ where: { id, deletedAt: { not: null } } });
+}
+
+/** Plants in the trash, latest first. */
+export function trashedPlants(db: DbOrTx): Promise<PlantRow[]> {
+  return db.plant.findMany({ where: { deletedAt: { not: null } }, orderBy: [{ deletedAt: "desc" }, { id: "desc" }] });
+}
+
+/** Moves a plant to the trash (`at` set) or back (`at` null). */
+export function setPlantTrashed(tx: Tx, id: number, at: Date | null, by: string | null): Promise<PlantRow> {
+  return tx.plant.update({ where: { id }, data: { deletedAt: at, deletedBy: by } });
 }
 
 /** A plant with its baseline fuel's row. */
 export function findPlantWithBaselineFuel(db: DbOrTx, id: number) {
-  return db.plant.findUnique({ where: { id }, include: { baselineFuel: true } });
+  return db.plant.findUnique({ where: { id, ...LIVE }, include: { baselineFuel: true } });
 }
 
-/** A plant with the names of the studies that use it. */
-export function findPlantWithStudyNames(db: DbOrTx, id: number) {
-  return db.plant.findUnique({ where: { id }, include: { studies: { select: { name: true } } } });
+/** A plant (live, or in the trash with `trashed`) with the names of the studies that use it, those in the trash too. */
+export function findPlantWithStudyNames(db: DbOrTx, id: number, trashed = false) {
+  return db.plant.findFirst({
+    where: { id, deletedAt: trashed ? { not: null } : null },
+    include: { studies: { select: { name: true, deletedAt: true } } },
+  });
 }
 
-export function plantNames(db: DbOrTx): Promise<{ id: number; name: string }[]> {
-  return db.plant.findMany({ select: { id: true, name: true } });
+/** Ids and names of every plant, those in the trash too (their names stay taken). */
+export function plantNames(db: DbOrTx): Promise<{ id: number; name: string; deletedAt: Date | null }[]> {
+  return db.plant.findMany({ select: { id: true, name: true, deletedAt: true } });
 }
 
 /** Plants for the study form's choices. */
 export function plantChoices(db: DbOrTx): Promise<{ id: number; name: string; baselineFuelId: number | null; equipmentType: string }[]> {
-  return db.plant.findMany({ orderBy: { name: "asc" }, select: { id: true, name: true, baselineFuelId: true, equipmentType: true } });
+  return db.plant.findMany({
+    where: LIVE,
+    orderBy: { name: "asc" },
+    select: { id: true, name: true, baselineFuelId: true, equipmentType: true },
+  });
 }
 
 /** Plants with their baseline fuel and studies (ids and names), oldest first (the home page); the first `limit` when given. */
 export async function plantsOverview(db: DbOrTx, limit?: number) {
-  const rows = await db.plant.findMany({ orderBy: { id: "asc" }, ...(limit ? { take: limit } : {}) });
+  const rows = await db.plant.findMany({ where: LIVE, orderBy: { id: "asc" }, ...(limit ? { take: limit } : {}) });
   const fuels = new Map(
     (
       await inChunks(
@@ -206,7 +233,11 @@ export async function plantsOverview(db: DbOrTx, limit?: number) {
     await inChunks(
       rows.map((r) => r.id),
       (chunk) =>
-        db.study.findMany({ where: { plantId: { in: chunk } }, orderBy: { id: "asc" }, select: { id: true, name: true, plantId: true } }),
+        db.study.findMany({
+          where: { plantId: { in: chunk }, ...LIVE },
+          orderBy: { id: "asc" },
+          select: { id: true, name: true, plantId: true },
+        }),
     ),
     (s) => s.plantId,
   );

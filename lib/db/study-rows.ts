@@ -172,10 +172,32 @@ export function scenarioColumns(studyId: number, r: StudyRecord) {
 
 /* ------------------------------------------------------------------ queries */
 
+/** Rows not in the trash. */
+const LIVE = { deletedAt: null };
+
+/** A study in the trash. */
+export function findTrashedStudy(db: DbOrTx, id: number): Promise<StudyRow | null> {
+  return db.study.findFirst({ where: { id, deletedAt: { not: null } } });
+}
+
+/** Studies in the trash with their plant's name, latest first. */
+export function trashedStudies(db: DbOrTx) {
+  return db.study.findMany({
+    where: { deletedAt: { not: null } },
+    orderBy: [{ deletedAt: "desc" }, { id: "desc" }],
+    include: { plant: { select: { id: true, name: true, deletedAt: true } } },
+  });
+}
+
+/** Moves a study to the trash (`at` set) or back (`at` null). */
+export function setStudyTrashed(tx: Tx, id: number, at: Date | null, by: string | null): Promise<StudyRow> {
+  return tx.study.update({ where: { id }, data: { deletedAt: at, deletedBy: by } });
+}
+
 /** A study with its plant (and the plant's baseline fuel name) and its scenarios with fuels, quotes and components' quotes. */
 export function loadStudyGraph(db: DbOrTx, id: number) {
   return db.study.findUnique({
-    where: { id },
+    where: { id, ...LIVE },
     include: {
       plant: { include: { baselineFuel: { select: { id: true, name: true } } } },
       scenarios: { orderBy: SCENARIO_ORDER, include: { fuel: { include: WITH_QUOTES }, priceQuote: true } },
@@ -184,19 +206,24 @@ export function loadStudyGraph(db: DbOrTx, id: number) {
 }
 export type StudyGraphRow = NonNullable<Awaited<ReturnType<typeof loadStudyGraph>>>;
 
-/** A study with its scenario rows. */
-export function findStudyWithScenarios(db: DbOrTx, id: number) {
+/** A study with its scenario rows, live or in the trash. */
+export function findStudyWithScenariosAny(db: DbOrTx, id: number) {
   return db.study.findUnique({ where: { id }, include: { scenarios: { orderBy: SCENARIO_ORDER } } });
 }
 
+/** A study with its scenario rows. */
+export function findStudyWithScenarios(db: DbOrTx, id: number) {
+  return db.study.findUnique({ where: { id, ...LIVE }, include: { scenarios: { orderBy: SCENARIO_ORDER } } });
+}
+
 export function findStudy(db: DbOrTx, id: number): Promise<StudyRow | null> {
-  return db.study.findUnique({ where: { id } });
+  return db.study.findUnique({ where: { id, ...LIVE } });
 }
 
 /** The header a study's pages show: name, plant, currency, number of scenarios. */
 export function studyHeader(db: DbOrTx, id: number) {
   return db.study.findUnique({
-    where: { id },
+    where: { id, ...LIVE },
     select: {
       id: true,
       name: true,
@@ -214,7 +241,7 @@ export function studyHeader(db: DbOrTx, id: number) {
  */
 export async function listStudyRows(db: DbOrTx, plantId?: number, page?: { offset: number; limit: number }) {
   const rows = await db.study.findMany({
-    where: plantId ? { plantId } : undefined,
+    where: plantId ? { plantId, ...LIVE } : LIVE,
     orderBy: [{ plant: { name: "asc" } }, { name: "asc" }, { id: "asc" }],
     ...(page ? { skip: page.offset, take: page.limit } : {}),
   });
@@ -256,11 +283,12 @@ export async function listStudyRows(db: DbOrTx, plantId?: number, page?: { offse
 }
 
 export function countStudies(db: DbOrTx, plantId?: number): Promise<number> {
-  return db.study.count({ where: plantId ? { plantId } : undefined });
+  return db.study.count({ where: plantId ? { plantId, ...LIVE } : LIVE });
 }
 
-export function studyNamesOfPlant(db: DbOrTx, plantId: number): Promise<{ id: number; name: string }[]> {
-  return db.study.findMany({ where: { plantId }, select: { id: true, name: true } });
+/** Ids and names of a plant's studies, those in the trash too (their names stay taken). */
+export function studyNamesOfPlant(db: DbOrTx, plantId: number): Promise<{ id: number; name: string; deletedAt: Date | null }[]> {
+  return db.study.findMany({ where: { plantId }, select: { id: true, name: true, deletedAt: true } });
 }
 
 export async function insertStudy(tx: Tx, r: StudyRecord): Promise<StudyRow> {
@@ -282,7 +310,7 @@ export function deleteStudyRow(tx: Tx, id: number): Promise<StudyRow> {
 
 /** Copies a study row and its scenario rows under a new name (not a demo). */
 export async function copyStudy(tx: Tx, src: StudyRow & { scenarios: ScenarioRow[] }, name: string): Promise<StudyRow> {
-  const { id: _id, createdAt: _c, updatedAt: _u, scenarios, ...columns } = src;
+  const { id: _id, createdAt: _c, updatedAt: _u, deletedAt: _d, deletedBy: _b, scenarios, ...columns } = src;
   const row = await tx.study.create({ data: { ...columns, name, isDemo: false } });
   for (const s of scenarios) {
     const { id: _sid, studyId: _st, createdAt: _sc, updatedAt: _su, ...sc } = s;
@@ -294,7 +322,7 @@ export async function copyStudy(tx: Tx, src: StudyRow & { scenarios: ScenarioRow
 /** The most recently changed study that uses a fuel in a scenario: its name, currency and carbon price. */
 export function latestStudyUsingFuel(db: DbOrTx, fuelId: number) {
   return db.study.findFirst({
-    where: { scenarios: { some: { fuelId } } },
+    where: { scenarios: { some: { fuelId } }, ...LIVE },
     orderBy: [{ updatedAt: "desc" }, { id: "desc" }],
     select: { id: true, name: true, currency: true, carbonPrice_per_t: true },
   });

@@ -90,6 +90,16 @@ export const FIELD_LABELS: Readonly<Record<string, string>> = Object.freeze({
   overrides: "changes to the operating point and limits",
   paths: "price and carbon paths over the horizon",
   uncertainty: "uncertainty ranges",
+  // accounts and the trash (team mode)
+  email: "e-mail (sign-in name)",
+  displayName: "display name",
+  role: "role",
+  password: "password",
+  disabled: "disabled",
+  accountId: "account",
+  tokenName: "token name",
+  deletedAt: "moved to the trash on",
+  deletedBy: "moved to the trash by",
   // library
   kind: "kind",
   definition: "definition",

@@ -18,6 +18,7 @@ import {
   fuelUsers,
   insertFuel,
   replaceFuel,
+  setFuelTrashed,
   updateFuelColumns,
   type BlendComponentColumns,
   type FuelColumns,
@@ -58,6 +59,9 @@ import { MAX_JSON_DEPTH, tooDeepAt } from "../formats/json-depth";
 import { asStokeError, ok, problem, problemFromError, type FieldErrors, type Problem, type Result } from "./result";
 import { InfeasibleChargeError } from "../errors";
 import { lookAlikeKey } from "../schemas/names";
+import { currentActor } from "./actor";
+import { trashEnabled } from "./mode";
+import { recordChange } from "./change-log";
 
 export { effectiveDefinition, findFuel, fuelJson };
 
@@ -178,15 +182,19 @@ async function prepareFuel(tx: DbOrTx, input: FuelInputParsed, selfId?: number):
 async function nameTaken(tx: DbOrTx, name: string, exceptId?: number, known?: NameKeys): Promise<string | null> {
   const key = lookAlikeKey(name);
   if (known) return known.get(key) ?? null;
-  return (await fuelNames(tx)).find((f) => lookAlikeKey(f.name) === key && f.id !== exceptId)?.name ?? null;
+  const f = (await fuelNames(tx, true)).find((f) => lookAlikeKey(f.name) === key && f.id !== exceptId);
+  return f ? takenName(f) : null;
 }
 
 /** Look-alike key → name of every fuel, for a bulk writer that creates many fuels (an import) to check names without reading them all each time. */
 export type NameKeys = Map<string, string>;
 
 export async function fuelNameKeys(tx: DbOrTx): Promise<NameKeys> {
-  return new Map((await fuelNames(tx)).map((f) => [lookAlikeKey(f.name), f.name]));
+  return new Map((await fuelNames(tx, true)).map((f) => [lookAlikeKey(f.name), takenName(f)]));
 }
+
+/** A taken name as the conflict message quotes it (the message closes the quote), saying when it is in the trash. */
+const takenName = (f: { name: string; deletedAt: Date | null }) => `${f.name}${f.deletedAt ? '" (in the trash)' : '"'}`;
 
 /** zod's built-in type messages, reworded for people filling in a form. */
 export function friendlyMessages(errs: FieldErrors): FieldErrors {
@@ -220,13 +228,32 @@ async function withNameCheck(tx: DbOrTx, failure: Problem, raw: unknown, exceptI
   if (typeof name !== "string" || name.trim() === "" || failure.fieldErrors.name) return failure;
   const taken = await nameTaken(tx, name.trim(), exceptId);
   if (!taken) return failure;
-  return { ...failure, fieldErrors: { name: `a fuel named "${taken}" already exists`, ...failure.fieldErrors } };
+  return { ...failure, fieldErrors: { name: `a fuel named "${taken} already exists`, ...failure.fieldErrors } };
 }
 
+/** `taken` is the name with its closing quote and, for a fuel in the trash, a note (nameTaken). */
 const nameConflict = (taken: string) =>
-  problem("conflict", `A fuel named "${taken}" already exists.`, {
-    name: `a fuel named "${taken}" already exists (or one that looks the same)`,
+  problem("conflict", `A fuel named "${taken} already exists.`, {
+    name: `a fuel named "${taken} already exists (or one that looks the same)`,
   });
+
+/** A fuel as the change log keeps it: its JSON form and, for a blend, its component rows. */
+async function fuelRecord(tx: DbOrTx, row: FuelRow) {
+  const comps = isBlendDefinition(row) ? await blendComponentsOf(tx, row.id) : [];
+  const { createdAt: _c, updatedAt: _u, ...rest } = fuelJson(row);
+  return {
+    ...rest,
+    blend: comps.length ? { basis: comps[0].basis, components: comps.map((c) => ({ fuelId: c.componentFuelId, share: c.share })) } : null,
+  };
+}
+
+const isBlendDefinition = (row: FuelRow) => row.definition.includes('"blend"');
+
+/** A price quote as the change log keeps it. */
+function quoteRecord(q: PriceQuoteRow) {
+  const { createdAt: _c, ...rest } = q;
+  return rest;
+}
 
 /** Re-derives every blend that depends on `fuelId` (after an edit of that fuel). */
 async function refreshDependentBlends(tx: Tx, fuelId: number): Promise<Result<null>> {
@@ -253,7 +280,17 @@ async function refreshDependentBlends(tx: Tx, fuelId: number): Promise<Result<nu
         _: `blend "${blendRow.name}" uses this fuel: ${Object.values(prepared.fieldErrors)[0] ?? prepared.message}`,
       });
     }
-    await updateFuelColumns(tx, id, prepared.value.columns);
+    const before = await fuelRecord(tx, blendRow);
+    const after = await fuelRecord(tx, await updateFuelColumns(tx, id, prepared.value.columns));
+    await recordChange(tx, {
+      subject: { type: "fuel", id },
+      entity: "fuel",
+      entityId: id,
+      action: "update",
+      summary: `re-derived after its component #${fuelId} changed`,
+      before,
+      after,
+    });
   }
   return ok(null);
 }
@@ -271,7 +308,14 @@ export async function createFuelIn(tx: Tx, raw: unknown, known?: NameKeys): Prom
   const prepared = await prepareFuel(tx, input.value);
   if (!prepared.ok) return prepared;
   const row = await insertFuel(tx, prepared.value.columns, prepared.value.components);
-  known?.set(lookAlikeKey(row.name), row.name);
+  known?.set(lookAlikeKey(row.name), takenName({ name: row.name, deletedAt: null }));
+  await recordChange(tx, {
+    subject: { type: "fuel", id: row.id },
+    entity: "fuel",
+    entityId: row.id,
+    action: "create",
+    after: await fuelRecord(tx, row),
+  });
   return ok(row);
 }
 
@@ -289,7 +333,16 @@ export async function updateFuel(db: Db, id: number, raw: unknown): Promise<Resu
     if (taken) return nameConflict(taken);
     const prepared = await prepareFuel(tx, input.value, id);
     if (!prepared.ok) return prepared;
+    const before = await fuelRecord(tx, existing);
     const fuel = await replaceFuel(tx, id, prepared.value.columns, prepared.value.components);
+    await recordChange(tx, {
+      subject: { type: "fuel", id },
+      entity: "fuel",
+      entityId: id,
+      action: "update",
+      before,
+      after: await fuelRecord(tx, fuel),
+    });
     const refreshed = await refreshDependentBlends(tx, id);
     if (!refreshed.ok) return refreshed;
     return ok(fuel);
@@ -306,27 +359,46 @@ export async function fuelUsage(db: DbOrTx, id: number): Promise<string[]> {
   ];
 }
 
+/**
+ * DELETE /api/fuels/{id}: refused while a blend, plant or scenario uses the fuel — those in the trash
+ * too, so that whatever is restored finds its fuel — or an issued revision used its quotes. With the
+ * trash on (team mode) the fuel moves there: lists, look-ups, exports and studies no longer see it,
+ * its name stays taken. Without it (personal mode) it is deleted at once with its quotes.
+ */
 export function deleteFuel(db: Db, id: number): Promise<Result<FuelRow>> {
   return inTransaction(db, async (tx): Promise<Result<FuelRow>> => {
     const existing = await findFuel(tx, id);
     if (!existing) return problem("not-found", `No fuel with id ${id}.`);
-    const usage = await fuelUsage(tx, id);
-    const revs = [
-      ...new Set(
-        (await revisionsUsingFuelQuotes(tx, id)).map(
-          (u) => `revision ${u.revision.number} of study "${u.revision.study.name}" (its quotes)`,
-        ),
-      ),
-    ];
-    usage.push(...revs);
-    if (usage.length) {
-      return problem("conflict", `"${existing.name}" is in use: ${usage.join("; ")}. Change or delete those first.`, {
-        _: `in use: ${usage.join("; ")}`,
-      });
-    }
-    await deleteFuelRow(tx, id);
-    return ok(existing);
+    if (!trashEnabled()) return purgeFuelIn(tx, existing, "delete");
+    const blocked = await fuelDeletionBlockers(tx, existing);
+    if (blocked) return blocked;
+    const trashed = await setFuelTrashed(tx, id, new Date(), currentActor().name);
+    await recordChange(tx, { subject: { type: "fuel", id }, entity: "fuel", entityId: id, action: "trash", summary: "moved to the trash" });
+    return ok(trashed);
   });
+}
+
+/** Why a fuel cannot leave the library (a conflict naming its users), or null. */
+export async function fuelDeletionBlockers(tx: DbOrTx, existing: FuelRow): Promise<Problem | null> {
+  const usage = await fuelUsage(tx, existing.id);
+  const revs = (await revisionsUsingFuelQuotes(tx, existing.id)).map(
+    (u) => `revision ${u.revision.number} of study "${u.revision.study.name}" (its quotes)`,
+  );
+  usage.push(...new Set(revs));
+  if (!usage.length) return null;
+  return problem("conflict", `"${existing.name}" is in use: ${usage.join("; ")}. Change or delete those first.`, {
+    _: `in use: ${usage.join("; ")}`,
+  });
+}
+
+/** Deletes a fuel for good with its quotes (the trash's purge, or a delete without the trash; nothing may use it). */
+export async function purgeFuelIn(tx: Tx, existing: FuelRow, action: "purge" | "delete" = "purge"): Promise<Result<FuelRow>> {
+  const blocked = await fuelDeletionBlockers(tx, existing);
+  if (blocked) return blocked;
+  const before = await fuelRecord(tx, existing);
+  await deleteFuelRow(tx, existing.id);
+  await recordChange(tx, { subject: { type: "fuel", id: existing.id }, entity: "fuel", entityId: existing.id, action, before });
+  return ok(existing);
 }
 
 /* ---------------------------------------------------------------- price quotes */
@@ -457,7 +529,15 @@ export async function addPriceQuoteIn(tx: DbOrTx, fuelId: number, raw: unknown):
   if (!fuel) return problem("not-found", `No fuel with id ${fuelId}.`);
   const checked = await checkQuoteWrite(tx, fuel, raw);
   if (!checked.ok) return checked;
-  return ok({ ...(await insertQuote(tx, fuelId, checked.value.quote)), warnings: checked.value.warnings });
+  const row = await insertQuote(tx, fuelId, checked.value.quote);
+  await recordChange(tx, {
+    subject: { type: "fuel", id: fuelId },
+    entity: "quote",
+    entityId: row.id,
+    action: "create",
+    after: quoteRecord(row),
+  });
+  return ok({ ...row, warnings: checked.value.warnings });
 }
 
 export function addPriceQuote(db: Db, fuelId: number, raw: unknown): Promise<Result<QuoteSaved>> {
@@ -472,7 +552,8 @@ export function addPriceQuote(db: Db, fuelId: number, raw: unknown): Promise<Res
 export function correctPriceQuote(db: Db, fuelId: number, quoteId: number, raw: unknown): Promise<Result<QuoteSaved>> {
   return inTransaction(db, async (tx): Promise<Result<QuoteSaved>> => {
     const existing = await findQuoteWithFuel(tx, quoteId);
-    if (!existing || existing.fuelId !== fuelId) return problem("not-found", `No price quote ${quoteId} for fuel ${fuelId}.`);
+    if (!existing || existing.fuelId !== fuelId || existing.fuel.deletedAt !== null)
+      return problem("not-found", `No price quote ${quoteId} for fuel ${fuelId}.`);
     const later = await quoteSuccessors(tx, quoteId);
     if (later.length)
       return problem("conflict", `Quote #${quoteId} was already corrected by quote #${later[0].id}; correct that one.`, {
@@ -486,7 +567,18 @@ export function correctPriceQuote(db: Db, fuelId: number, quoteId: number, raw: 
       );
     const checked = await checkQuoteWrite(tx, existing.fuel, raw);
     if (!checked.ok) return checked;
-    return ok({ ...(await insertQuoteVersion(tx, fuelId, quoteId, checked.value.quote)), warnings: checked.value.warnings });
+    const row = await insertQuoteVersion(tx, fuelId, quoteId, checked.value.quote);
+    const { fuel: _f, ...old } = existing;
+    await recordChange(tx, {
+      subject: { type: "fuel", id: fuelId },
+      entity: "quote",
+      entityId: row.id,
+      action: "correct",
+      summary: `quote #${row.id} corrects quote #${quoteId}`,
+      before: quoteRecord(old),
+      after: quoteRecord(row),
+    });
+    return ok({ ...row, warnings: checked.value.warnings });
   });
 }
 
@@ -503,7 +595,8 @@ async function revisionUsers(tx: DbOrTx, quoteId: number): Promise<string[]> {
 export function deletePriceQuote(db: Db, fuelId: number, quoteId: number): Promise<Result<PriceQuoteRow>> {
   return inTransaction(db, async (tx): Promise<Result<PriceQuoteRow>> => {
     const existing = await findQuote(tx, quoteId);
-    if (!existing || existing.fuelId !== fuelId) return problem("not-found", `No price quote ${quoteId} for fuel ${fuelId}.`);
+    if (!existing || existing.fuelId !== fuelId || !(await findFuel(tx, fuelId)))
+      return problem("not-found", `No price quote ${quoteId} for fuel ${fuelId}.`);
     const revs = await revisionUsers(tx, quoteId);
     if (revs.length)
       return problem("conflict", `Quote #${quoteId} cannot be deleted: ${revs.join(", ")} used it. Withdraw it instead.`, {
@@ -525,6 +618,13 @@ export function deletePriceQuote(db: Db, fuelId: number, quoteId: number): Promi
         _: "part of a correction history",
       });
     await deleteQuoteRow(tx, quoteId);
+    await recordChange(tx, {
+      subject: { type: "fuel", id: fuelId },
+      entity: "quote",
+      entityId: quoteId,
+      action: "delete",
+      before: quoteRecord(existing),
+    });
     return ok(existing);
   });
 }
@@ -537,9 +637,18 @@ export function withdrawPriceQuote(
 ): Promise<Result<{ quote: PriceQuoteRow; affectedStudies: { id: number; name: string; scenario: string }[] }>> {
   return inTransaction(db, async (tx) => {
     const existing = await findQuote(tx, quoteId);
-    if (!existing || existing.fuelId !== fuelId) return problem("not-found", `No price quote ${quoteId} for fuel ${fuelId}.`);
+    if (!existing || existing.fuelId !== fuelId || !(await findFuel(tx, fuelId)))
+      return problem("not-found", `No price quote ${quoteId} for fuel ${fuelId}.`);
     if (existing.withdrawnAt) return problem("conflict", `Quote #${quoteId} is already withdrawn.`, { _: "already withdrawn" });
     const quote = await withdrawQuoteRow(tx, quoteId, new Date());
+    await recordChange(tx, {
+      subject: { type: "fuel", id: fuelId },
+      entity: "quote",
+      entityId: quoteId,
+      action: "withdraw",
+      before: quoteRecord(existing),
+      after: quoteRecord(quote),
+    });
     const affected = (await scenariosChoosingQuote(tx, quoteId)).map((s) => ({ id: s.study.id, name: s.study.name, scenario: s.name }));
     return ok({ quote, affectedStudies: affected });
   });

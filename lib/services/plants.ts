@@ -3,7 +3,7 @@
  * plant does today on its baseline fuel. Every write is validated by the plant schema
  * (lib/schemas/plant.ts) and the baseline fuel must exist; nothing is stored from rejected input.
  */
-import { inTransaction, type Db, type DbOrTx } from "../db/client";
+import { inTransaction, type Db, type DbOrTx, type Tx } from "../db/client";
 import { effectiveDefinition, findFuel } from "../db/fuel-rows";
 import {
   deletePlantRow,
@@ -15,7 +15,9 @@ import {
   countPlants,
   listPlants,
   plantFromRow,
+  plantInputFromRow,
   plantNames,
+  setPlantTrashed,
   updatePlantRow,
   type PlantListItem,
   type PlantRecord,
@@ -27,7 +29,15 @@ import { studySchema } from "../schemas/study";
 import { evaluateStudy, type ScenarioResult } from "../study/evaluate";
 import type { PlantDuty } from "../plant/duty";
 import { sharedCaches } from "./eval-cache";
-import { ok, problem, reasonOf, type FieldErrors, type Result } from "./result";
+import { ok, problem, reasonOf, type FieldErrors, type Problem, type Result } from "./result";
+import { currentActor } from "./actor";
+import { trashEnabled } from "./mode";
+import { recordChange } from "./change-log";
+
+/** A plant as the change log keeps it: its fields and its baseline fuel. */
+function plantRecord(row: PlantRow) {
+  return { ...plantInputFromRow(row), baselineFuelId: row.baselineFuelId };
+}
 
 export { countPlants, getPlant, listPlants, type PlantListItem, type PlantRecord };
 
@@ -59,11 +69,13 @@ async function parsePlant(tx: DbOrTx, raw: unknown): Promise<Result<{ plant: Pla
 
 async function nameTaken(tx: DbOrTx, name: string, exceptId?: number): Promise<string | null> {
   const lower = name.toLowerCase();
-  return (await plantNames(tx)).find((p) => p.name.toLowerCase() === lower && p.id !== exceptId)?.name ?? null;
+  const p = (await plantNames(tx)).find((p) => p.name.toLowerCase() === lower && p.id !== exceptId);
+  return p ? `${p.name}"${p.deletedAt ? " (in the trash)" : ""}` : null;
 }
 
+/** `taken` is the name with its closing quote and, for a plant in the trash, a note (nameTaken). */
 const nameConflict = (taken: string) =>
-  problem("conflict", `A plant named "${taken}" already exists.`, { name: `a plant named "${taken}" already exists` });
+  problem("conflict", `A plant named "${taken} already exists.`, { name: `a plant named "${taken} already exists` });
 
 export function createPlant(db: Db, raw: unknown): Promise<Result<PlantRow>> {
   return inTransaction(db, async (tx): Promise<Result<PlantRow>> => {
@@ -71,36 +83,78 @@ export function createPlant(db: Db, raw: unknown): Promise<Result<PlantRow>> {
     if (!p.ok) return p;
     const taken = await nameTaken(tx, p.value.plant.name);
     if (taken) return nameConflict(taken);
-    return ok(await insertPlant(tx, p.value.plant, p.value.baselineFuelId));
+    const row = await insertPlant(tx, p.value.plant, p.value.baselineFuelId);
+    await recordChange(tx, {
+      subject: { type: "plant", id: row.id },
+      entity: "plant",
+      entityId: row.id,
+      action: "create",
+      after: plantRecord(row),
+    });
+    return ok(row);
   });
 }
 
 export function updatePlant(db: Db, id: number, raw: unknown): Promise<Result<PlantRow>> {
   return inTransaction(db, async (tx): Promise<Result<PlantRow>> => {
-    if (!(await findPlant(tx, id))) return problem("not-found", `No plant with id ${id}.`);
+    const existing = await findPlant(tx, id);
+    if (!existing) return problem("not-found", `No plant with id ${id}.`);
     const p = await parsePlant(tx, raw);
     if (!p.ok) return p;
     const taken = await nameTaken(tx, p.value.plant.name, id);
     if (taken) return nameConflict(taken);
-    return ok(await updatePlantRow(tx, id, p.value.plant, p.value.baselineFuelId));
+    const row = await updatePlantRow(tx, id, p.value.plant, p.value.baselineFuelId);
+    await recordChange(tx, {
+      subject: { type: "plant", id },
+      entity: "plant",
+      entityId: id,
+      action: "update",
+      before: plantRecord(existing),
+      after: plantRecord(row),
+    });
+    return ok(row);
   });
 }
 
-/** Deletes a plant that no study uses (a study's results depend on its plant). */
+/** Why a plant cannot leave: its studies (a study's results depend on its plant), those in the trash too. */
+function plantBlockers(existing: { name: string; studies: { name: string; deletedAt: Date | null }[] }): Problem | null {
+  if (!existing.studies.length) return null;
+  const names = existing.studies.map((s) => `"${s.name}"${s.deletedAt ? " (in the trash)" : ""}`).join(", ");
+  return problem("conflict", `"${existing.name}" has studies (${names}). Delete those studies first.`, {
+    _: `used by studies ${names}`,
+  });
+}
+
+/** DELETE /api/plants/{id}: a plant no study uses moves to the trash (team mode) or is deleted at once (personal mode). */
 export function deletePlant(db: Db, id: number): Promise<Result<PlantRow>> {
   return inTransaction(db, async (tx): Promise<Result<PlantRow>> => {
+    if (!trashEnabled()) return purgePlantIn(tx, id, "delete");
     const existing = await findPlantWithStudyNames(tx, id);
     if (!existing) return problem("not-found", `No plant with id ${id}.`);
-    if (existing.studies.length) {
-      const names = existing.studies.map((s) => `"${s.name}"`).join(", ");
-      return problem("conflict", `"${existing.name}" has studies (${names}). Delete those studies first.`, {
-        _: `used by studies ${names}`,
-      });
-    }
-    const { studies: _s, ...row } = existing;
-    await deletePlantRow(tx, id);
+    const blocked = plantBlockers(existing);
+    if (blocked) return blocked;
+    const row = await setPlantTrashed(tx, id, new Date(), currentActor().name);
+    await recordChange(tx, {
+      subject: { type: "plant", id },
+      entity: "plant",
+      entityId: id,
+      action: "trash",
+      summary: "moved to the trash",
+    });
     return ok(row);
   });
+}
+
+/** Deletes a plant for good: one in the trash (purge) or, without the trash, a live one (delete). */
+export async function purgePlantIn(tx: Tx, id: number, action: "purge" | "delete" = "purge"): Promise<Result<PlantRow>> {
+  const existing = await findPlantWithStudyNames(tx, id, action === "purge");
+  if (!existing) return problem("not-found", `No plant with id ${id}${action === "purge" ? " in the trash" : ""}.`);
+  const blocked = plantBlockers(existing);
+  if (blocked) return blocked;
+  const { studies: _s, ...row } = existing;
+  await deletePlantRow(tx, id);
+  await recordChange(tx, { subject: { type: "plant", id }, entity: "plant", entityId: id, action, before: plantRecord(row) });
+  return ok(row);
 }
 
 /** The JSON form of a plant for the API. */

@@ -4,6 +4,7 @@
  * (fuel known, quote valid and fitting the fuel, price plausible or confirmed) before anything is
  * stored; errors come back by row and column. A preview answers what would be added.
  */
+import { recordChange } from "./change-log";
 import { inTransaction, type Db } from "../db/client";
 import { findFuel, fuelNames } from "../db/fuel-rows";
 import { insertQuote } from "../db/price-quote-rows";
@@ -88,7 +89,21 @@ export function importQuotes(
       const p: Problem = problem("invalid", `Import refused, nothing was stored (${n} error${n > 1 ? "s" : ""}; first: ${k}: ${v}).`, errs);
       return blocked.length ? { ...p, warnings: blocked } : p;
     }
-    if (!opts.preview) for (const q of out) q.id = (await insertQuote(tx, q.fuelId, q.quote)).id;
+    if (!opts.preview) {
+      for (const q of out) {
+        const row = await insertQuote(tx, q.fuelId, q.quote);
+        q.id = row.id;
+        const { createdAt: _c, ...after } = row;
+        await recordChange(tx, {
+          subject: { type: "fuel", id: q.fuelId },
+          entity: "quote",
+          entityId: row.id,
+          action: "import",
+          summary: `bulk quote import, ${q.where}`,
+          after,
+        });
+      }
+    }
     return ok({ preview: opts.preview === true, added: out });
   });
 }

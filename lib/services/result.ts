@@ -7,7 +7,9 @@
  * - `not-found`: no such record;
  * - `conflict`: the input clashes with what is stored (a name taken, a record in use);
  * - `unprocessable`: well-formed, but it cannot be computed (infeasible charge, a solver that did
- *   not converge, a stored record that cannot be evaluated).
+ *   not converge, a stored record that cannot be evaluated);
+ * - `unauthorized`: a sign-in with a wrong e-mail or password (team mode);
+ * - `throttled`: too many failed sign-ins; `retryAfterS` says when to try again.
  */
 import { InfeasibleChargeError, InputError, NotConvergedError, StokeError } from "../errors";
 import { FuelDefinitionError } from "../fuels/resolve";
@@ -15,7 +17,7 @@ import { StudyInputError } from "../study/errors";
 import { EquilibriumInfeasibleError, EquilibriumNotConvergedError } from "../combustion/equilibrium";
 import { PriceNormalisationError } from "../economics/prices";
 
-export type ProblemKind = "invalid" | "not-found" | "conflict" | "unprocessable";
+export type ProblemKind = "invalid" | "not-found" | "conflict" | "unprocessable" | "unauthorized" | "throttled";
 
 export type FieldErrors = Record<string, string>;
 
@@ -26,6 +28,8 @@ export interface Problem {
   fieldErrors: FieldErrors;
   /** Warnings that stopped the write until the user confirms (implausible prices). */
   warnings?: string[];
+  /** Throttled: seconds until another try is accepted. */
+  retryAfterS?: number;
 }
 
 export type Result<T> = { ok: true; value: T } | Problem;

@@ -6,6 +6,7 @@
  * frozen inputs only, so its figures never move when the library changes; `stoke evaluate` on its
  * inputs gives the same results (fresh caches, sweep and tornado on, as the command line runs).
  */
+import { recordChange } from "./change-log";
 import { createHash } from "node:crypto";
 import { inTransaction, type Db } from "../db/client";
 import { findStudy } from "../db/study-rows";
@@ -72,6 +73,14 @@ export async function issueRevision(db: Db, studyId: number): Promise<Result<{ r
       { hash, inputs, results: JSON.stringify(result), meta: JSON.stringify(meta) },
       meta.quoteIds,
     );
+    await recordChange(tx, {
+      subject: { type: "study", id: studyId },
+      entity: "study",
+      entityId: studyId,
+      action: "issue",
+      summary: `revision ${row.number} issued (inputs SHA-256 ${row.hash.slice(0, 12)}…)`,
+      after: { revision: row.number, hash: row.hash, quoteIds: meta.quoteIds },
+    });
     return ok({ revision: row.number, hash: row.hash });
   });
 }

@@ -21,6 +21,8 @@ import {
   deleteStudyRow,
   findStudy,
   findStudyWithScenarios,
+  findStudyWithScenariosAny,
+  setStudyTrashed,
   insertStudy,
   countStudies,
   listStudyRows,
@@ -43,6 +45,20 @@ import { rateInForce } from "../economics/currency";
 import { day, inCurrency, latestVersion, quoteByRule, ruleText, type PriceSource, type PricingContext } from "./quote-choice";
 import { contentKey, resultCache, sharedCaches } from "./eval-cache";
 import { ok, problem, problemFromError, type FieldErrors, type Problem, type Result } from "./result";
+import { currentActor } from "./actor";
+import { trashEnabled } from "./mode";
+import { recordChange } from "./change-log";
+
+/** A study as the change log keeps it: its columns and its scenarios (without row bookkeeping). */
+async function studyLogRecord(tx: DbOrTx, id: number, includeTrashed = false) {
+  const row = includeTrashed ? await findStudyWithScenariosAny(tx, id) : await findStudyWithScenarios(tx, id);
+  if (!row) return null;
+  const { createdAt: _c, updatedAt: _u, deletedAt: _d, deletedBy: _b, scenarios, ...study } = row;
+  return {
+    ...study,
+    scenarios: scenarios.map(({ id: _i, studyId: _s, createdAt: _sc, updatedAt: _su, ...s }) => s),
+  };
+}
 
 /* ---------------------------------------------------------------- pricing policy */
 
@@ -555,10 +571,12 @@ async function prepare(tx: Tx, raw: unknown, selfId?: number): Promise<Result<St
   }
   if (Object.keys(errs).length || !plant) return problem("invalid", "The study has errors; nothing was saved.", errs);
   const clash = (await studyNamesOfPlant(tx, r.plantId)).find((o) => o.name.toLowerCase() === r.name.toLowerCase() && o.id !== selfId);
-  if (clash)
-    return problem("conflict", `This plant already has a study named "${clash.name}".`, {
-      name: `this plant already has a study named "${clash.name}"`,
+  if (clash) {
+    const where = clash.deletedAt ? " (in the trash)" : "";
+    return problem("conflict", `This plant already has a study named "${clash.name}"${where}.`, {
+      name: `this plant already has a study named "${clash.name}"${where}`,
     });
+  }
 
   // Evaluate once, so that a study that cannot be evaluated is never stored.
   const src = (s: ScenarioRecord): ScenarioSource => {
@@ -594,7 +612,15 @@ export function createStudy(db: Db, raw: unknown): Promise<Result<StudyRow>> {
   return inTransaction(db, async (tx): Promise<Result<StudyRow>> => {
     const p = await prepare(tx, raw);
     if (!p.ok) return p;
-    return ok(await insertStudy(tx, p.value));
+    const row = await insertStudy(tx, p.value);
+    await recordChange(tx, {
+      subject: { type: "study", id: row.id },
+      entity: "study",
+      entityId: row.id,
+      action: "create",
+      after: await studyLogRecord(tx, row.id),
+    });
+    return ok(row);
   });
 }
 
@@ -603,26 +629,61 @@ export function updateStudy(db: Db, id: number, raw: unknown): Promise<Result<St
     if (!(await findStudy(tx, id))) return problem("not-found", `No study with id ${id}.`);
     const p = await prepare(tx, raw, id);
     if (!p.ok) return p;
-    return ok(await replaceStudy(tx, id, p.value));
+    const before = await studyLogRecord(tx, id);
+    const row = await replaceStudy(tx, id, p.value);
+    await recordChange(tx, {
+      subject: { type: "study", id },
+      entity: "study",
+      entityId: id,
+      action: "update",
+      before,
+      after: await studyLogRecord(tx, id),
+    });
+    return ok(row);
   });
 }
 
+/** Why a study cannot leave: an issued study is kept on record. */
+async function studyBlockers(tx: DbOrTx, existing: StudyRow): Promise<Problem | null> {
+  const issued = await countRevisions(tx, existing.id);
+  if (!issued) return null;
+  return problem(
+    "conflict",
+    `Study "${existing.name}" has ${issued} issued revision${issued > 1 ? "s" : ""}; an issued study is kept on record and cannot be deleted.`,
+    {
+      _: `${issued} issued revision${issued > 1 ? "s" : ""}`,
+    },
+  );
+}
+
+/** DELETE /api/studies/{id}: to the trash (team mode) or deleted at once (personal mode); an issued study stays. */
 export function deleteStudy(db: Db, id: number): Promise<Result<StudyRow>> {
   return inTransaction(db, async (tx): Promise<Result<StudyRow>> => {
     const existing = await findStudy(tx, id);
     if (!existing) return problem("not-found", `No study with id ${id}.`);
-    const issued = await countRevisions(tx, id);
-    if (issued)
-      return problem(
-        "conflict",
-        `Study "${existing.name}" has ${issued} issued revision${issued > 1 ? "s" : ""}; an issued study is kept on record and cannot be deleted.`,
-        {
-          _: `${issued} issued revision${issued > 1 ? "s" : ""}`,
-        },
-      );
-    await deleteStudyRow(tx, id);
-    return ok(existing);
+    if (!trashEnabled()) return purgeStudyIn(tx, existing, "delete");
+    const blocked = await studyBlockers(tx, existing);
+    if (blocked) return blocked;
+    const row = await setStudyTrashed(tx, id, new Date(), currentActor().name);
+    await recordChange(tx, {
+      subject: { type: "study", id },
+      entity: "study",
+      entityId: id,
+      action: "trash",
+      summary: "moved to the trash",
+    });
+    return ok(row);
   });
+}
+
+/** Deletes a study for good with its scenarios (the trash's purge, or a delete without the trash). */
+export async function purgeStudyIn(tx: Tx, existing: StudyRow, action: "purge" | "delete" = "purge"): Promise<Result<StudyRow>> {
+  const blocked = await studyBlockers(tx, existing);
+  if (blocked) return blocked;
+  const before = await studyLogRecord(tx, existing.id, true);
+  await deleteStudyRow(tx, existing.id);
+  await recordChange(tx, { subject: { type: "study", id: existing.id }, entity: "study", entityId: existing.id, action, before });
+  return ok(existing);
 }
 
 /** Copies a study with all its scenarios under a free name ("… (copy)", "… (copy 2)", …). */
@@ -647,7 +708,16 @@ export function duplicateStudy(db: Db, id: number, name?: string): Promise<Resul
         }
       }
     }
-    return ok(await copyStudy(tx, src, newName));
+    const row = await copyStudy(tx, src, newName);
+    await recordChange(tx, {
+      subject: { type: "study", id: row.id },
+      entity: "study",
+      entityId: row.id,
+      action: "duplicate",
+      summary: `copy of study #${id} "${src.name}"`,
+      after: await studyLogRecord(tx, row.id),
+    });
+    return ok(row);
   });
 }
 

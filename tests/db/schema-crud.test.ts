@@ -282,4 +282,66 @@ describe("schema matches the migrations", () => {
     expect(await db.revisionQuote.count()).toBe(0);
     await db.study.delete({ where: { id: study.id } });
   });
+
+  it("trash columns, Account, Session, ApiToken, ChangeLog", async () => {
+    const when = new Date("2026-12-02T09:20:00Z");
+    const f = await db.fuel.create({ data: { name: "Trashed", kind: "gas", definition: "{}", deletedAt: when, deletedBy: "a@b.c" } });
+    expect(f).toMatchObject({ deletedAt: when, deletedBy: "a@b.c" });
+    const p = await db.plant.create({
+      data: {
+        name: "Trashed plant",
+        equipmentType: "steam-boiler",
+        ratedInput_kW: 1,
+        operatingHours: 1,
+        averageLoadFraction: 1,
+        stackTemperatureC: 1,
+        flueO2DryPercent: 1,
+        combustionAirC: 1,
+        radiationLossPercent: 1,
+        deletedAt: when,
+        deletedBy: "x",
+      },
+    });
+    expect(p.deletedAt?.toISOString()).toBe(when.toISOString());
+    const s = await db.study.create({
+      data: { plantId: p.id, name: "S", currency: "EUR", discountRatePercent: 1, horizonYears: 1, rankingMetric: "npv", deletedAt: when },
+    });
+    expect(s.deletedAt?.toISOString()).toBe(when.toISOString());
+    expect(s.deletedBy).toBeNull();
+
+    const a = await db.account.create({ data: { email: "a@example.org", role: "admin", passwordHash: "$argon2id$x" } });
+    expect(a).toMatchObject({ displayName: "", version: 1, disabledAt: null, failedSignIns: 0, lockedUntil: null, lastSignInAt: null });
+    await expect(db.account.create({ data: { email: "a@example.org", role: "viewer", passwordHash: "y" } })).rejects.toThrow();
+    await db.account.update({
+      where: { id: a.id },
+      data: { version: 2, disabledAt: when, failedSignIns: 3, lockedUntil: when, lastSignInAt: when },
+    });
+    expect(await db.account.findUniqueOrThrow({ where: { id: a.id } })).toMatchObject({ version: 2, failedSignIns: 3, lockedUntil: when });
+    const sess = await db.session.create({ data: { keyHash: "k1", accountId: a.id, accountVersion: 2, expiresAt: when } });
+    expect(sess.createdAt).toBeInstanceOf(Date);
+    await expect(db.session.create({ data: { keyHash: "k1", accountId: a.id, accountVersion: 2, expiresAt: when } })).rejects.toThrow();
+    const tok = await db.apiToken.create({ data: { accountId: a.id, name: "ci", tokenHash: "t1", prefix: "stk_ab" } });
+    expect(tok.lastUsedAt).toBeNull();
+    await db.apiToken.update({ where: { id: tok.id }, data: { lastUsedAt: when } });
+    const log = await db.changeLog.create({
+      data: {
+        actor: "a@example.org",
+        accountId: a.id,
+        subjectType: "fuel",
+        subjectId: 1,
+        entity: "quote",
+        entityId: 2,
+        action: "update",
+        before: "{}",
+        after: '{"x":1}',
+      },
+    });
+    expect(log).toMatchObject({ summary: "", before: "{}", after: '{"x":1}' });
+    expect(log.at).toBeInstanceOf(Date);
+    // Deleting an account deletes its sessions and tokens (Cascade); the change log keeps its lines.
+    await db.account.delete({ where: { id: a.id } });
+    expect(await db.session.count()).toBe(0);
+    expect(await db.apiToken.count()).toBe(0);
+    expect(await db.changeLog.count()).toBe(1);
+  });
 });

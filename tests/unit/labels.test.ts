@@ -4,6 +4,7 @@ import { FIELD_LABELS, labelOfPath } from "../../lib/schemas/labels";
 import { plantSchema, operatingOverridesSchema, ambientAirSchema } from "../../lib/schemas/plant";
 import { studySchema, scenarioSchema, sensitivitySchema, hydrogenSweepSchema } from "../../lib/schemas/study";
 import { fuelInputSchema, priceQuoteInputSchema } from "../../lib/schemas/library";
+import { accountChangeSchema, accountInputSchema, apiTokenInputSchema, signInSchema } from "../../lib/schemas/accounts";
 
 /** The field names of an object schema (unwrapping the wrappers zod puts around objects). */
 function keysOf(schema: z.ZodType): string[] {
@@ -13,7 +14,7 @@ function keysOf(schema: z.ZodType): string[] {
 }
 
 describe("labels people read", () => {
-  it("every field of the plant, study and library schemas has a label", () => {
+  it("every field of the plant, study, library and account schemas has a label", () => {
     const schemas = {
       plantSchema,
       operatingOverridesSchema,
@@ -24,6 +25,10 @@ describe("labels people read", () => {
       hydrogenSweepSchema,
       fuelInputSchema,
       priceQuoteInputSchema,
+      accountInputSchema,
+      accountChangeSchema,
+      signInSchema,
+      apiTokenInputSchema,
     };
     const missing: string[] = [];
     for (const [name, schema] of Object.entries(schemas)) {

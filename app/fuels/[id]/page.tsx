@@ -1,4 +1,6 @@
 import type { Metadata } from "next";
+import { trashEnabled } from "@/lib/services/mode";
+import { History } from "@/app/_ui/History";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/lib/db/client";
@@ -205,7 +207,9 @@ export default async function FuelSheetPage({ params, searchParams }: Props) {
             url={`/api/fuels/${fuel.id}`}
             after="/fuels"
             label="Delete fuel"
-            confirmText={`Delete “${fuel.name}” and its price history? This cannot be undone.`}
+            confirmText={
+              trashEnabled() ? `Move “${fuel.name}” to the trash?` : `Delete “${fuel.name}” and its price history? This cannot be undone.`
+            }
           />
         </div>
       </div>
@@ -532,6 +536,8 @@ export default async function FuelSheetPage({ params, searchParams }: Props) {
       />
       <h3>Price history</h3>
       <PriceHistory fuelId={fuel.id} fuelKind={fuel.kind} prices={sheet.prices} />
+
+      <History type="fuel" id={fuel.id} />
 
       {sheet.resolved && (
         <>

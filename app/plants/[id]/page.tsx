@@ -1,4 +1,6 @@
 import type { Metadata } from "next";
+import { trashEnabled } from "@/lib/services/mode";
+import { History } from "@/app/_ui/History";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/lib/db/client";
@@ -67,7 +69,9 @@ export default async function PlantPage({ params }: Props) {
             url={`/api/plants/${rec.id}`}
             after="/plants"
             label="Delete plant"
-            confirmText={`Delete the plant “${p.name}”? This cannot be undone.`}
+            confirmText={
+              trashEnabled() ? `Move the plant “${p.name}” to the trash?` : `Delete the plant “${p.name}”? This cannot be undone.`
+            }
           />
         </div>
       </div>
@@ -230,6 +234,7 @@ export default async function PlantPage({ params }: Props) {
         </ul>
       )}
       {cautions.length > 0 && <Cautions items={cautions} screening={DEFER} />}
+      <History type="plant" id={rec.id} />
     </>
   );
 }

@@ -1,3 +1,4 @@
+import { trashEnabled } from "@/lib/services/mode";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/lib/db/client";
@@ -40,7 +41,11 @@ export default async function StudyLayout({ children, params }: { children: Reac
             url={`/api/studies/${study.id}`}
             after="/studies"
             label="Delete"
-            confirmText={`Delete the study “${study.name}” and its scenarios? This cannot be undone.`}
+            confirmText={
+              trashEnabled()
+                ? `Move the study “${study.name}” to the trash?`
+                : `Delete the study “${study.name}” and its scenarios? This cannot be undone.`
+            }
           />
         </div>
       </div>

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { History } from "@/app/_ui/History";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/lib/db/client";
@@ -295,6 +296,8 @@ export default async function ComparisonPage({ params, searchParams }: Props) {
       <Revisions id={id} />
 
       <Cautions items={result.cautions.items} screening={result.cautions.screening} />
+
+      <History type="study" id={id} />
     </>
   );
 }
