@@ -47,11 +47,6 @@ export function providerOf(client: Db): "sqlite" | "postgresql" {
   return providers.get(client) ?? databaseTarget(process.env.DATABASE_URL).provider;
 }
 
-/** Which database the client of this process talks to. */
-export function currentProvider(): "sqlite" | "postgresql" {
-  return databaseTarget(process.env.DATABASE_URL).provider;
-}
-
 /**
  * True when an error means the database was locked by another connection for longer than the
  * busy timeout (SQLite), or PostgreSQL gave up on a lock or a serialisation conflict: the request

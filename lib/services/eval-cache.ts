@@ -10,6 +10,8 @@
  *   picks a quote — changes that object and so the key: the old entry is simply never asked for again.
  * - `propertyCache()`: fuel property sheets, keyed by the hash of the effective definition and the
  *   reference temperatures.
+ * - `parsedStudyCache()`: a stored study's assembled input as the study schema parses it, keyed by
+ *   that input's hash (the result cache is keyed by the same hash and the options).
  *
  * Entries are the caller's to read, not to change. Each cache keeps the most recently used entries
  * up to its size.
@@ -76,6 +78,7 @@ declare global {
   var __stokeStudyCaches: EvaluationCaches | undefined;
   var __stokeResultCache: ContentCache<unknown> | undefined;
   var __stokePropertyCache: ContentCache<unknown> | undefined;
+  var __stokeParsedStudyCache: ContentCache<unknown> | undefined;
 }
 
 export function sharedCaches(): EvaluationCaches {
@@ -88,6 +91,12 @@ export function sharedCaches(): EvaluationCaches {
 export function resultCache<V>(): ContentCache<V> {
   globalThis.__stokeResultCache ??= new ContentCache<unknown>(RESULT_CACHE_ENTRIES);
   return globalThis.__stokeResultCache as ContentCache<V>;
+}
+
+/** Study inputs as the study schema parsed them, keyed by the input's content (parsing a 20-scenario study takes milliseconds). */
+export function parsedStudyCache<V>(): ContentCache<V> {
+  globalThis.__stokeParsedStudyCache ??= new ContentCache<unknown>(RESULT_CACHE_ENTRIES);
+  return globalThis.__stokeParsedStudyCache as ContentCache<V>;
 }
 
 export function propertyCache<V>(): ContentCache<V> {

@@ -156,8 +156,15 @@ export async function fuelList(db: Db, opts: ViewOptions & { kind?: string; page
   return rows.map((row) => {
     const { resolved, properties, error } = propertiesOf(row, opts);
     const cur = currentQuote(row.priceQuotes, asOf);
-    const price = cur ? priceViews([cur], resolved, asOf)[0] : null;
-    const estimatedPrice = !price && resolved ? estimateBlendPrice(resolved, row.components, asOf) : null;
+    // The price views depend on the fuel, the quote in force and, for a blend without one, its components and their quotes in force.
+    const componentsInForce = cur
+      ? null
+      : row.components.map((c) => [effectiveDefinition(c.component), currentQuote(c.component.priceQuotes, asOf) ?? null]);
+    const priceKey = contentKey("fuel-list-price", effectiveDefinition(row), cur ?? null, componentsInForce);
+    const { price, estimatedPrice } = propertyCache<Pick<FuelListItem, "price" | "estimatedPrice">>().getOrCompute(priceKey, () => {
+      const price = cur ? priceViews([cur], resolved, asOf)[0] : null;
+      return { price, estimatedPrice: !price && resolved ? estimateBlendPrice(resolved, row.components, asOf) : null };
+    });
     return {
       id: row.id,
       name: row.name,

@@ -43,7 +43,7 @@ import { listRates, rateJson } from "../db/exchange-rate-rows";
 import { countRevisions } from "../db/revision-rows";
 import { rateInForce } from "../economics/currency";
 import { day, inCurrency, latestVersion, quoteByRule, ruleText, type PriceSource, type PricingContext } from "./quote-choice";
-import { contentKey, resultCache, sharedCaches } from "./eval-cache";
+import { contentKey, parsedStudyCache, resultCache, sharedCaches } from "./eval-cache";
 import { ok, problem, problemFromError, type FieldErrors, type Problem, type Result } from "./result";
 import { currentActor } from "./actor";
 import { trashEnabled } from "./mode";
@@ -193,6 +193,8 @@ export interface HydrogenMeta {
 
 export interface StudyBundle {
   study: Study;
+  /** SHA-256 of the canonical study input `study` was parsed from (what its evaluation depends on); absent for revisions. */
+  inputKey?: string;
   meta: {
     studyId: number | null;
     plantId: number;
@@ -389,7 +391,11 @@ export async function studyBundle(db: Db, id: number, settings: ViewSettings = {
   };
   const rates = (await listRates(db)).map(rateJson);
   const built = build(stored, row.plant, src(stored.baseline), stored.scenarios.map(src), await libraryHydrogen(db), settings, rates);
-  const parsed = studySchema.safeParse(built.input);
+  // The same input parses to the same study: parse each distinct input once.
+  const inputKey = contentKey("study-input", built.input);
+  const parsed = parsedStudyCache<ReturnType<typeof studySchema.safeParse>>().getOrCompute(inputKey, () =>
+    studySchema.safeParse(built.input),
+  );
   if (!parsed.success) {
     const errs = fieldErrors(parsed.error);
     const [k, v] = Object.entries(errs)[0];
@@ -400,6 +406,7 @@ export async function studyBundle(db: Db, id: number, settings: ViewSettings = {
     ok: true,
     bundle: {
       study: parsed.data,
+      inputKey,
       meta: {
         studyId: row.id,
         plantId: row.plantId,
@@ -438,7 +445,7 @@ export async function evaluateStoredStudy(db: Db, id: number, opts: EvaluateStor
   try {
     const options = { sweep: opts.sweep ?? false, tornado: opts.tornado ?? true };
     // Keyed by everything the evaluation reads: the self-contained study object and the options.
-    const key = contentKey("study-result", loaded.bundle.study, options);
+    const key = contentKey("study-result", loaded.bundle.inputKey ?? loaded.bundle.study, options);
     const result = resultCache<StudyResult>().getOrCompute(key, () =>
       evaluateStudy(loaded.bundle.study, { ...options, caches: sharedCaches() }),
     );
