@@ -38,9 +38,9 @@ export default async function RootLayout({ children }: { children: React.ReactNo
             </nav>
             {user ? (
               <span className="account" data-testid="signed-in">
-                <span>
+                <Link href="/account" style={{ color: "inherit" }}>
                   {user.name} <span className="muted">({user.role})</span>
-                </span>
+                </Link>
                 <SignOutButton />
               </span>
             ) : (

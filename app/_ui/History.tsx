@@ -4,7 +4,7 @@
  * for a creation or a deletion.
  */
 import { db } from "@/lib/db/client";
-import { historyOf, type HistoryEntry, type SubjectType } from "@/lib/services/change-log";
+import { historyOf, historyOfType, type History as HistoryData, type HistoryEntry, type SubjectType } from "@/lib/services/change-log";
 
 const ACTION_WORDS: Record<string, string> = {
   create: "created",
@@ -26,7 +26,14 @@ const show = (v: unknown): string => {
 };
 
 function What({ e }: { e: HistoryEntry }) {
-  const thing = e.entity === "quote" ? `price quote #${e.entityId}` : e.entity === "token" ? "API token" : e.entity;
+  const thing =
+    e.entity === "quote"
+      ? `price quote #${e.entityId}`
+      : e.entity === "token"
+        ? "API token"
+        : e.entity === "account"
+          ? `account ${((e.after ?? e.before) as { email?: string } | null)?.email ?? `#${e.entityId}`}`
+          : e.entity;
   return (
     <>
       {thing} {ACTION_WORDS[e.action] ?? e.action}
@@ -63,11 +70,23 @@ function Details({ e }: { e: HistoryEntry }) {
   );
 }
 
-export async function History({ type, id, limit = 20 }: { type: SubjectType; id: number; limit?: number }) {
-  const h = await historyOf(db(), type, id, limit);
+/** The history of one object (`id`), or of every object of the kind (`id` left out: the accounts page). */
+export async function History({
+  type,
+  id,
+  limit = 20,
+  title = "History",
+}: {
+  type: SubjectType;
+  id?: number;
+  limit?: number;
+  title?: string;
+}) {
+  const h: HistoryData = id === undefined ? await historyOfType(db(), type, limit) : await historyOf(db(), type, id, limit);
+  const all = id === undefined ? `GET /api/history/${type}/{id}` : `GET /api/history/${type}/${id}?limit=200`;
   return (
     <section aria-labelledby="history" className="history">
-      <h2 id="history">History</h2>
+      <h2 id="history">{title}</h2>
       {h.entries.length === 0 ? (
         <p className="muted">
           No recorded changes (changes are recorded from the first one made after this version of Stoke was installed).
@@ -102,11 +121,7 @@ export async function History({ type, id, limit = 20 }: { type: SubjectType; id:
       )}
       {h.total > h.entries.length && (
         <p className="muted">
-          The newest {h.entries.length} of {h.total} changes; all of them:{" "}
-          <code>
-            GET /api/history/{type}/{id}?limit=200
-          </code>
-          .
+          The newest {h.entries.length} of {h.total} changes; all of them: <code>{all}</code>.
         </p>
       )}
     </section>

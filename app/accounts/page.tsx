@@ -4,6 +4,7 @@ import { ROLE_DUTIES, ROLES } from "@/lib/schemas/accounts";
 import { listAccounts, listTokens } from "@/lib/services/accounts";
 import { stokeMode } from "@/lib/services/mode";
 import { pageUser } from "../_auth/page-user";
+import { History } from "../_ui/History";
 import { AccountsAdmin } from "./AccountsAdmin";
 
 export const dynamic = "force-dynamic";
@@ -31,6 +32,7 @@ export default async function AccountsPage() {
       </ul>
       <p className="muted">A role change, disabling or a new password ends every session of the account at once.</p>
       <AccountsAdmin accounts={accounts} tokens={tokens} selfId={user?.accountId ?? null} />
+      <History type="account" title="Changes to accounts and tokens" limit={30} />
     </>
   );
 }

@@ -30,6 +30,15 @@ export function changesOf(db: DbOrTx, subjectType: string, subjectId: number, li
   });
 }
 
+/** The newest changes shown on pages of one kind (all accounts, say), newest first. */
+export function changesOfType(db: DbOrTx, subjectType: string, limit: number): Promise<ChangeLog[]> {
+  return db.changeLog.findMany({ where: { subjectType }, orderBy: [{ at: "desc" }, { id: "desc" }], take: limit });
+}
+
+export function countChangesOfType(db: DbOrTx, subjectType: string): Promise<number> {
+  return db.changeLog.count({ where: { subjectType } });
+}
+
 export function countChangesOf(db: DbOrTx, subjectType: string, subjectId: number): Promise<number> {
   return db.changeLog.count({ where: { subjectType, subjectId } });
 }

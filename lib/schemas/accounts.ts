@@ -65,6 +65,12 @@ export const signInSchema = z.strictObject({
     .max(MAX_PASSWORD_CHARS, `must be ≤ ${MAX_PASSWORD_CHARS} characters`),
 });
 
+/** A signed-in person changing their own password. */
+export const ownPasswordSchema = z.strictObject({
+  currentPassword: z.string({ error: "must be text" }).min(1, "enter the current password").max(MAX_PASSWORD_CHARS),
+  newPassword: passwordSchema,
+});
+
 export const apiTokenInputSchema = z.strictObject({
   accountId: z
     .number({ error: "must be the id of an account" })

@@ -95,6 +95,8 @@ export const FIELD_LABELS: Readonly<Record<string, string>> = Object.freeze({
   displayName: "display name",
   role: "role",
   password: "password",
+  currentPassword: "current password",
+  newPassword: "new password",
   disabled: "disabled",
   accountId: "account",
   tokenName: "token name",

@@ -22,6 +22,7 @@ export function apiNeed(method: string, pathname: string): Need {
   const m = method.toUpperCase();
   const p = pathname.replace(/\/+$/, "");
   if (p === "/api/session") return m === "POST" ? "public" : "signed-in";
+  if (p === "/api/session/password") return "signed-in";
   if (p === "/api/accounts" || p.startsWith("/api/accounts/") || p === "/api/tokens" || p.startsWith("/api/tokens/")) return "admin";
   if (p.startsWith("/api/trash/") && (p.endsWith("/purge") || m === "DELETE")) return "admin";
   if (p.startsWith("/api/history/account/")) return "admin";

@@ -42,6 +42,7 @@ import {
   accountChangeSchema,
   accountInputSchema,
   apiTokenInputSchema,
+  ownPasswordSchema,
   signInSchema,
   type AccountInput,
   type Role,
@@ -179,6 +180,36 @@ export async function changeAccount(db: Db, id: number, raw: unknown): Promise<R
       action: "update",
       summary: `${what.join(", ") || "no change"}${revoke ? "; sessions ended" : ""}`,
       before,
+      after,
+    });
+    return ok(after);
+  });
+}
+
+/**
+ * A signed-in person changes their own password: the current one must match. Every session of the
+ * account ends (this one too: sign in again with the new password).
+ */
+export async function changeOwnPassword(db: Db, accountId: number, raw: unknown): Promise<Result<AccountJson>> {
+  const input = parse<{ currentPassword: string; newPassword: string }>(ownPasswordSchema as never, raw, "password change");
+  if (!input.ok) return input;
+  const existing = await findAccount(db, accountId);
+  if (!existing) return problem("not-found", "No such account.");
+  if (!(await passwordMatches(existing.passwordHash, input.value.currentPassword))) {
+    return problem("invalid", "The current password is wrong; nothing was changed.", { currentPassword: "is wrong" });
+  }
+  const passwordHash = await hashPassword(input.value.newPassword);
+  return inTransaction(db, async (tx): Promise<Result<AccountJson>> => {
+    const row = await updateAccountRow(tx, accountId, { passwordHash, failedSignIns: 0, lockedUntil: null, bumpVersion: true });
+    await deleteSessionsOf(tx, accountId);
+    const after = accountJson(row);
+    await recordChange(tx, {
+      subject: { type: "account", id: accountId },
+      entity: "account",
+      entityId: accountId,
+      action: "update",
+      summary: "password changed by the account itself; sessions ended",
+      before: accountJson(existing),
       after,
     });
     return ok(after);

@@ -5,7 +5,7 @@
  * with the fields that differ.
  */
 import type { DbOrTx } from "../db/client";
-import { changesOf, countChangesOf, insertChange } from "../db/change-log-rows";
+import { changesOf, changesOfType, countChangesOf, countChangesOfType, insertChange, type ChangeLogRow } from "../db/change-log-rows";
 import { jsonDifferences, type JsonDifference } from "../formats/canonical-json";
 import { currentActor } from "./actor";
 
@@ -84,27 +84,32 @@ const parse = (s: string | null): unknown => (s === null ? null : JSON.parse(s))
 /** The newest `limit` changes shown on an object's page, each with its differences. */
 export async function historyOf(db: DbOrTx, type: SubjectType, id: number, limit = 30): Promise<History> {
   const [rows, total] = await Promise.all([changesOf(db, type, id, limit), countChangesOf(db, type, id)]);
+  return { total, entries: rows.map(entryOf) };
+}
+
+/** The newest `limit` changes to every object of a kind (the accounts page shows those of all accounts). */
+export async function historyOfType(db: DbOrTx, type: SubjectType, limit = 30): Promise<History> {
+  const [rows, total] = await Promise.all([changesOfType(db, type, limit), countChangesOfType(db, type)]);
+  return { total, entries: rows.map(entryOf) };
+}
+
+function entryOf(r: ChangeLogRow): HistoryEntry {
+  const before = parse(r.before);
+  const after = parse(r.after);
+  const differences =
+    before !== null && after !== null
+      ? jsonDifferences(before, after, 40).filter((d) => !BOOKKEEPING.has(d.path.split(".").pop() ?? ""))
+      : [];
   return {
-    total,
-    entries: rows.map((r) => {
-      const before = parse(r.before);
-      const after = parse(r.after);
-      const differences =
-        before !== null && after !== null
-          ? jsonDifferences(before, after, 40).filter((d) => !BOOKKEEPING.has(d.path.split(".").pop() ?? ""))
-          : [];
-      return {
-        id: r.id,
-        at: r.at.toISOString(),
-        actor: r.actor,
-        entity: r.entity,
-        entityId: r.entityId,
-        action: r.action,
-        summary: r.summary,
-        before,
-        after,
-        differences,
-      };
-    }),
+    id: r.id,
+    at: r.at.toISOString(),
+    actor: r.actor,
+    entity: r.entity,
+    entityId: r.entityId,
+    action: r.action,
+    summary: r.summary,
+    before,
+    after,
+    differences,
   };
 }

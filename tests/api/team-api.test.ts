@@ -428,3 +428,37 @@ describe("change log", () => {
     }
   });
 });
+
+describe("team mode: one's own password", () => {
+  it("needs the current password, then ends every session of the account", async () => {
+    const { createAccount } = await import("../../lib/services/accounts");
+    await createAccount(t.client, { email: "self@example.org", role: "viewer", password: PASSWORD });
+    const pw = (await import("../../app/api/session/password/route")) as unknown as Record<string, H>;
+    const one = await signIn("self@example.org");
+    const two = await signIn("self@example.org");
+    const wrong = await pw.POST(
+      req("/api/session/password", {
+        method: "POST",
+        cookie: one,
+        body: { currentPassword: "nope", newPassword: "a new long passphrase" },
+      }),
+    );
+    expect(wrong.status).toBe(400);
+    expect((await wrong.json()).fieldErrors.currentPassword).toBe("is wrong");
+    const ok = await pw.POST(
+      req("/api/session/password", {
+        method: "POST",
+        cookie: one,
+        body: { currentPassword: PASSWORD, newPassword: "a new long passphrase" },
+      }),
+    );
+    expect(ok.status).toBe(200);
+    expect(ok.headers.get("set-cookie")).toMatch(/Max-Age=0/);
+    for (const c of [one, two]) expect((await r.fuels.GET(req("/api/fuels", { cookie: c }))).status).toBe(401);
+    await signIn("self@example.org", "a new long passphrase");
+    // Without a session there is nobody to change.
+    expect((await pw.POST(req("/api/session/password", { method: "POST", body: { currentPassword: "x", newPassword: "y" } }))).status).toBe(
+      401,
+    );
+  });
+});

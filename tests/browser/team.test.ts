@@ -28,6 +28,8 @@ beforeAll(async () => {
   const client = createClient(url);
   const a = await createAccount(client, { email: "editor@example.org", displayName: "Eddie", role: "editor", password: PASSWORD });
   if (!a.ok) throw new Error(a.message);
+  const admin = await createAccount(client, { email: "admin@example.org", role: "admin", password: PASSWORD });
+  if (!admin.ok) throw new Error(admin.message);
   await client.$disconnect();
   server = await startNextServer(
     {
@@ -95,5 +97,28 @@ describe("team mode in the browser", () => {
     expect(text).toMatch(/moved to the trash/);
     expect(text).toMatch(/fuel created/);
     expect(text.match(/editor@example\.org/g)?.length).toBe(3);
+  });
+
+  it("signing out ends the session; an admin creates an account on the Accounts page and its creation is listed", async () => {
+    const base = server.baseURL;
+    await page.goto(`${base}/plants`);
+    await page.getByRole("button", { name: "Sign out" }).click();
+    await page.waitForURL(/\/sign-in/);
+    expect((await page.request.get(`${base}/api/fuels`)).status()).toBe(401);
+    await page.getByLabel("E-mail").fill("admin@example.org");
+    await page.getByLabel("Password").fill(PASSWORD);
+    await page.getByRole("button", { name: "Sign in" }).click();
+    await page.waitForURL(`${base}/`);
+    await page.getByRole("link", { name: "Accounts" }).click();
+    await page.getByRole("heading", { level: 1, name: "Accounts" }).waitFor();
+    const form = page.locator("form", { has: page.getByRole("button", { name: "Create" }) });
+    await form.getByLabel("E-mail").fill("new.viewer@example.org");
+    await form.getByLabel(/^Password/).fill("another long passphrase");
+    await form.getByRole("button", { name: "Create" }).click();
+    await page.getByRole("status").filter({ hasText: "Created new.viewer@example.org" }).waitFor();
+    await page.getByRole("cell", { name: "new.viewer@example.org" }).first().waitFor();
+    const changes = page.locator("section.history");
+    await changes.getByText("account new.viewer@example.org created").waitFor();
+    expect(await changes.textContent()).toMatch(/admin@example\.org/);
   });
 });

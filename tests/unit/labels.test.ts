@@ -4,7 +4,7 @@ import { FIELD_LABELS, labelOfPath } from "../../lib/schemas/labels";
 import { plantSchema, operatingOverridesSchema, ambientAirSchema } from "../../lib/schemas/plant";
 import { studySchema, scenarioSchema, sensitivitySchema, hydrogenSweepSchema } from "../../lib/schemas/study";
 import { fuelInputSchema, priceQuoteInputSchema } from "../../lib/schemas/library";
-import { accountChangeSchema, accountInputSchema, apiTokenInputSchema, signInSchema } from "../../lib/schemas/accounts";
+import { accountChangeSchema, accountInputSchema, apiTokenInputSchema, ownPasswordSchema, signInSchema } from "../../lib/schemas/accounts";
 
 /** The field names of an object schema (unwrapping the wrappers zod puts around objects). */
 function keysOf(schema: z.ZodType): string[] {
@@ -29,6 +29,7 @@ describe("labels people read", () => {
       accountChangeSchema,
       signInSchema,
       apiTokenInputSchema,
+      ownPasswordSchema,
     };
     const missing: string[] = [];
     for (const [name, schema] of Object.entries(schemas)) {
