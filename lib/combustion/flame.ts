@@ -164,8 +164,14 @@ function assertGasPhaseCharge(fuel: ResolvedFuel, oxidizer: Oxidizer, lambda: nu
   const f = fuel.elements_mol_per_kg;
   const need = f.C + 2 * f.S; // O atoms for C → CO, S → SO2
   if (!(need > 0)) return;
-  // O atoms the oxidiser brings per unit λ, and the fuel's own
-  const perLambda = reactantCharge(fuel, 1, oxidizer, T298K, T298K).elements.O - f.O;
+  // O atoms the oxidiser brings per unit λ (summed as reactantCharge sums them, without its enthalpies), and the fuel's own
+  const nOx = stoichiometricO2_mol_per_kg(f) / (oxidizer.O2 ?? 0);
+  let withOxidizer = f.O;
+  for (const k of OXIDIZER_SPECIES) {
+    const n = nOx * (oxidizer[k] ?? 0);
+    if (n > 0) withOxidizer += n * (SPECIES[k].elements.O ?? 0);
+  }
+  const perLambda = withOxidizer - f.O;
   const have = f.O + lambda * perLambda;
   if (have > need * (1 + 1e-9)) return;
   const phiMax = need > f.O ? perLambda / (need - f.O) : Infinity;
@@ -269,7 +275,8 @@ export function flameTemperature(input: FlameInput): FlameResult {
       pressurePa: P,
       warmStart: input.warmStart,
     });
-    return { ...base, temperatureK: eq.temperatureK, products: { ...eq.moleFractions }, equilibrium: eq };
+    // The solver's own mole fractions (a fresh object of this solve, never changed after): no copy.
+    return { ...base, temperatureK: eq.temperatureK, products: eq.moleFractions, equilibrium: eq };
   }
   const lean = lambda >= 1;
   if (input.method === "complete") {
