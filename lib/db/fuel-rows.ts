@@ -179,16 +179,18 @@ export function deleteFuelRow(tx: Tx, id: number): Promise<Fuel> {
 export async function fuelUsers(
   db: DbOrTx,
   id: number,
-): Promise<{ blends: string[]; plants: string[]; scenarios: { scenario: string; study: string }[] }> {
-  const [blends, plants, scenarios] = await Promise.all([
+): Promise<{ blends: string[]; plants: string[]; scenarios: { scenario: string; study: string }[]; hydrogenOfStudies: string[] }> {
+  const [blends, plants, scenarios, hydrogenOf] = await Promise.all([
     db.blendComponent.findMany({ where: { componentFuelId: id }, include: { blend: { select: { name: true } } } }),
     db.plant.findMany({ where: { baselineFuelId: id }, select: { name: true } }),
     db.scenario.findMany({ where: { fuelId: id }, include: { study: { select: { name: true } } } }),
+    db.study.findMany({ where: { hydrogenFuelId: id }, select: { name: true }, orderBy: { id: "asc" } }),
   ]);
   return {
     blends: blends.map((b) => b.blend.name),
     plants: plants.map((p) => p.name),
     scenarios: scenarios.map((s) => ({ scenario: s.name, study: s.study.name })),
+    hydrogenOfStudies: hydrogenOf.map((s) => s.name),
   };
 }
 

@@ -51,6 +51,8 @@ export interface StoredStudy {
   preparedBy: string;
   reportDate: string | null;
   reportNotes: string;
+  /** The hydrogen the sweep blends (a stored gas); null = none chosen. */
+  hydrogenFuelId: number | null;
   isDemo: boolean;
   updatedAt: Date;
   baseline: StoredScenario | null;
@@ -122,6 +124,7 @@ export function studyFromRows(row: StudyRow, scenarioRows: ScenarioRow[]): Store
     preparedBy: row.preparedBy,
     reportDate: row.reportDate,
     reportNotes: row.reportNotes,
+    hydrogenFuelId: row.hydrogenFuelId,
     isDemo: row.isDemo,
     updatedAt: row.updatedAt,
     baseline: base ? scenario(base, "baseline") : null,
@@ -150,6 +153,7 @@ export function studyColumns(r: StudyRecord) {
     preparedBy: r.preparedBy,
     reportDate: r.reportDate ?? null,
     reportNotes: r.reportNotes,
+    hydrogenFuelId: r.hydrogenFuelId ?? null,
   };
 }
 
@@ -177,6 +181,7 @@ export function loadStudyGraph(db: DbOrTx, id: number) {
     where: { id },
     include: {
       plant: { include: { baselineFuel: { select: { id: true, name: true } } } },
+      hydrogenFuel: { include: WITH_QUOTES },
       scenarios: { orderBy: SCENARIO_ORDER, include: { fuel: { include: WITH_QUOTES }, priceQuote: true } },
     },
   });

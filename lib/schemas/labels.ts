@@ -71,6 +71,7 @@ export const FIELD_LABELS: Readonly<Record<string, string>> = Object.freeze({
   stepPercent: "step, vol % H2",
   hydrogen: "hydrogen fuel",
   hydrogenPrice: "hydrogen price",
+  hydrogenFuelId: "hydrogen for the sweep",
   plant: "plant",
   plantId: "plant",
   baseline: "baseline",

@@ -14,7 +14,14 @@ import { canonicalJson, jsonDifferences } from "../formats/canonical-json";
 import { STUDY_FORMAT, STUDY_FORMAT_VERSION, studySchema, type Study } from "../schemas/study";
 import { labelOfPath } from "../schemas/labels";
 import { createEvaluationCaches, evaluateStudy, type StudyResult } from "../study/evaluate";
-import { evaluateStoredStudy, studyBundle, type Evaluated, type StudyBundle, type ViewSettings } from "./studies";
+import {
+  evaluateStoredStudy,
+  studyBundle,
+  type EvaluateStoredOptions,
+  type Evaluated,
+  type StudyBundle,
+  type ViewSettings,
+} from "./studies";
 import { ok, problem, problemFromError, type Result } from "./result";
 
 /** How a revision is evaluated, at issue and whenever it is shown again: as `stoke evaluate` does. */
@@ -104,7 +111,7 @@ export async function getRevision(db: Db, studyId: number, number: number): Prom
 export async function studyReportData(
   db: Db,
   id: number,
-  opts: ViewSettings & { revision?: number; sweep?: boolean; tornado?: boolean } = {},
+  opts: ViewSettings & { revision?: number; sweep?: EvaluateStoredOptions["sweep"]; tornado?: boolean } = {},
 ): Promise<Evaluated> {
   if (opts.revision === undefined) return evaluateStoredStudy(db, id, opts);
   const row = await findRevisionRow(db, id, opts.revision);

@@ -121,7 +121,7 @@ export default async function ReportPage({ params, searchParams }: Props) {
   const orientation = sp.orient === "landscape" ? "landscape" : "portrait";
   const revision = typeof sp.revision === "string" && /^[1-9]\d{0,8}$/.test(sp.revision) ? Number(sp.revision) : undefined;
   const [ev, units] = await Promise.all([
-    studyReportData(db(), id, { revision, metric: view.metric, includeUpstream: view.includeUpstream, sweep: true, tornado: false }),
+    studyReportData(db(), id, { revision, metric: view.metric, includeUpstream: view.includeUpstream, sweep: "if-chosen", tornado: false }),
     displayUnits(),
   ]);
   if (!ev.ok) {
