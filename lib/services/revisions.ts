@@ -36,6 +36,12 @@ export function studyFile(study: Study): Study {
 
 export const sha256 = (text: string) => createHash("sha256").update(text, "utf8").digest("hex");
 
+/** The hash a revision of the study's live inputs would carry (canonical study file, SHA-256); null when it cannot be assembled. */
+export async function liveStudyHash(db: Db, studyId: number, asOf?: Date): Promise<string | null> {
+  const loaded = await studyBundle(db, studyId, asOf ? { asOf } : {});
+  return loaded.ok ? sha256(canonicalJson(studyFile(loaded.bundle.study))) : null;
+}
+
 type StoredMeta = Omit<StudyBundle["meta"], "updatedAt" | "revision">;
 
 export interface RevisionSummary {

@@ -351,6 +351,16 @@ function percentiles(v: Float64Array): Percentiles | null {
 /** How many options get a cumulative distribution: those ranking first most often. */
 export const CDF_OPTIONS = 5;
 
+/** Where a run stands: after the set-up (`done` 0), then every `UNCERTAINTY_CHUNK_DRAWS` draws. */
+export interface UncertaintyProgress {
+  phase: "setup" | "draws";
+  done: number;
+  total: number;
+}
+
+/** Draws between two progress reports of `uncertaintyRankingSteps`. */
+export const UNCERTAINTY_CHUNK_DRAWS = 500;
+
 /**
  * Monte Carlo ranking of a study under uncertainty: every scenario's metric per draw with the
  * plant model's efficiencies, the chance of ranking first, percentiles, the chance of a positive
@@ -358,6 +368,23 @@ export const CDF_OPTIONS = 5;
  * give the same result (apart from the measured times `elapsedMs` and `timingsMs`).
  */
 export function uncertaintyRanking(study: Study, options: UncertaintyOptions): UncertaintyResult {
+  const steps = uncertaintyRankingSteps(study, options);
+  for (;;) {
+    const s = steps.next();
+    if (s.done) return s.value;
+  }
+}
+
+/**
+ * The same ranking in steps: the generator yields its progress after the set-up and after every
+ * `UNCERTAINTY_CHUNK_DRAWS` draws, so that a caller can run it in slices (a server keeps
+ * answering, shows progress, and may stop it between two slices). Same figures as
+ * `uncertaintyRanking`, which drains it.
+ */
+export function* uncertaintyRankingSteps(
+  study: Study,
+  options: UncertaintyOptions,
+): Generator<UncertaintyProgress, UncertaintyResult, void> {
   const t0 = performance.now();
   const draws = options.draws;
   if (!Number.isInteger(draws) || draws < 10 || draws > MAX_DRAWS)
@@ -368,6 +395,7 @@ export function uncertaintyRanking(study: Study, options: UncertaintyOptions): U
   const info = RANKING_METRIC_INFO[metric];
   const setup = studyPathSetup(study, options.caches);
   const tSetup = performance.now();
+  yield { phase: "setup", done: 0, total: draws };
   const notes = [...setup.notes];
   const inputs = uncertainInputs(study, setup);
   const dists: Distribution[] = inputs.map((inp) => {
@@ -554,6 +582,7 @@ export function uncertaintyRanking(study: Study, options: UncertaintyOptions): U
       const a = abatementOf(b, st, f);
       abate[s][i] = a === null ? NaN : a;
     }
+    if ((i + 1) % UNCERTAINTY_CHUNK_DRAWS === 0 && i + 1 < draws) yield { phase: "draws", done: i + 1, total: draws };
   }
   if (clippedPrices)
     notes.push(`${clippedPrices} sampled price, carbon or capex values below zero were set to zero (a normal range reaching below −100 %)`);
