@@ -130,6 +130,31 @@ export class PerformanceCache {
   }
 }
 
+/** The heat-loss balance of a fuel at an operating point, radiation and casing apart (that loss is a heat flow: duty.ts). */
+function balanceAt(ctx: FuelContext, op: OperatingPoint, lambda: number, oxidizer: Oxidizer): EfficiencyResult {
+  return heatLossEfficiency(ctx.fuel, ctx.hv, {
+    lambda,
+    oxidizer,
+    combustionAirC: op.combustionAirC,
+    stackTemperatureC: op.stackTemperatureC,
+    radiationLossPercent: 0,
+    coDryPpm: op.flueCODryPpm,
+    unburntCarbonInAshPercent: op.unburntCarbonInAshPercent,
+  });
+}
+
+/**
+ * The balance of `perf` with the flue gas leaving at another stack temperature: the same fuel, air
+ * factor (set by the flue O2) and combustion air, the whole loss account run again (sensible
+ * losses, condensation at the new temperature, credits). Refuses, naming `stackTemperatureC`, a
+ * stack below a condensing unit's floor.
+ */
+export function balanceAtStack(ctx: FuelContext, perf: FuelPerformance, stackTemperatureC: number): EfficiencyResult {
+  const op: OperatingPoint = { ...perf.operatingPoint, stackTemperatureC };
+  checkOperatingPoint(op);
+  return balanceAt(ctx, op, perf.lambda, perf.oxidizer);
+}
+
 export function computePerformance(
   ctx: FuelContext,
   op: OperatingPoint,
@@ -141,15 +166,7 @@ export function computePerformance(
   // The measured flue O2 belongs to the carbon actually burnt.
   const burnt = burntFuel(fuel, unburntCarbon_kg_per_kg(fuel, op.unburntCarbonInAshPercent));
   const lambda = lambdaFromFlueO2Dry(burnt, op.flueO2DryPercent, oxidizer);
-  const balance = heatLossEfficiency(fuel, ctx.hv, {
-    lambda,
-    oxidizer,
-    combustionAirC: op.combustionAirC,
-    stackTemperatureC: op.stackTemperatureC,
-    radiationLossPercent: 0,
-    coDryPpm: op.flueCODryPpm,
-    unburntCarbonInAshPercent: op.unburntCarbonInAshPercent,
-  });
+  const balance = balanceAt(ctx, op, lambda, oxidizer);
   const canWarm = warmStart !== undefined && fuel.elements_mol_per_kg.S > 0 === warmStart.species.includes("SO2");
   let flame: FlameResult | null = null;
   let flameError: string | undefined;

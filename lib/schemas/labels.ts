@@ -91,6 +91,8 @@ export const FIELD_LABELS: Readonly<Record<string, string>> = Object.freeze({
   overrides: "changes to the operating point and limits",
   paths: "price and carbon paths over the horizon",
   uncertainty: "uncertainty ranges",
+  stackTemperatureK: "stack temperature after the change, ± K",
+  stackTemperatureByScenario: "stack temperature per scenario, ± K",
   // library
   kind: "kind",
   definition: "definition",
