@@ -12,7 +12,16 @@ import type { EquilibriumResult } from "../combustion/equilibrium";
 import { celsiusToKelvin, kelvinToCelsius, T0CK, T298K } from "../units/constants";
 import { condensingStackFloorC, stackBelowFloorMessage, type OperatingPoint } from "../schemas/plant";
 import { InfeasibleChargeError, InputError, NotConvergedError } from "../errors";
-import { burntFuel, heatLossEfficiency, unburntCarbon_kg_per_kg, type EfficiencyResult } from "./efficiency";
+import {
+  burntFuel,
+  heatLossEfficiency,
+  netEfficiencyOfAccount,
+  prepareLossAccount,
+  unburntCarbon_kg_per_kg,
+  type EfficiencyConditions,
+  type EfficiencyResult,
+  type LossAccountBase,
+} from "./efficiency";
 import type { FuelContext } from "./fuel-context";
 /** Fuel temperature at the burner for the flame temperature and the heat balance, K (25 °C reference). */
 export const FUEL_TEMPERATURE_K = T298K;
@@ -132,7 +141,12 @@ export class PerformanceCache {
 
 /** The heat-loss balance of a fuel at an operating point, radiation and casing apart (that loss is a heat flow: duty.ts). */
 function balanceAt(ctx: FuelContext, op: OperatingPoint, lambda: number, oxidizer: Oxidizer): EfficiencyResult {
-  return heatLossEfficiency(ctx.fuel, ctx.hv, {
+  return heatLossEfficiency(ctx.fuel, ctx.hv, conditionsAt(op, lambda, oxidizer));
+}
+
+/** The heat-loss conditions of an operating point (radiation apart). */
+function conditionsAt(op: OperatingPoint, lambda: number, oxidizer: Oxidizer): EfficiencyConditions {
+  return {
     lambda,
     oxidizer,
     combustionAirC: op.combustionAirC,
@@ -140,7 +154,7 @@ function balanceAt(ctx: FuelContext, op: OperatingPoint, lambda: number, oxidize
     radiationLossPercent: 0,
     coDryPpm: op.flueCODryPpm,
     unburntCarbonInAshPercent: op.unburntCarbonInAshPercent,
-  });
+  };
 }
 
 /**
@@ -153,6 +167,26 @@ export function balanceAtStack(ctx: FuelContext, perf: FuelPerformance, stackTem
   const op: OperatingPoint = { ...perf.operatingPoint, stackTemperatureC };
   checkOperatingPoint(op);
   return balanceAt(ctx, op, perf.lambda, perf.oxidizer);
+}
+
+const preparedAccounts = new WeakMap<FuelPerformance, LossAccountBase>();
+
+/**
+ * Net efficiency (radiation apart) of `perf` with the flue gas leaving at another stack
+ * temperature: `balanceAtStack(…).net.efficiency` to the last digit, with the stack-independent
+ * part of the account prepared once per performance (cached by the performance object, which is
+ * never changed) — for loops that vary only the stack.
+ */
+export function netEfficiencyAtStack(ctx: FuelContext, perf: FuelPerformance, stackTemperatureC: number): number {
+  const op = perf.operatingPoint;
+  if (op.condensing && op.returnWaterC !== null && stackTemperatureC < condensingStackFloorC(op.returnWaterC, op.condensingApproachK))
+    checkOperatingPoint({ ...op, stackTemperatureC }); // throws the InputError naming stackTemperatureC
+  let b = preparedAccounts.get(perf);
+  if (!b) {
+    b = prepareLossAccount(ctx.fuel, ctx.hv, conditionsAt(perf.operatingPoint, perf.lambda, perf.oxidizer));
+    preparedAccounts.set(perf, b);
+  }
+  return netEfficiencyOfAccount(b, stackTemperatureC);
 }
 
 export function computePerformance(

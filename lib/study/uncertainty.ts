@@ -25,7 +25,7 @@ import { condensingStackFloorC, operatingPointOf, type Plant } from "../schemas/
 import { OPERATING_HOURS_DEFAULT_PERCENT, type RankingMetric, type Scenario, type Study, type UncertaintyRange } from "../schemas/study";
 import { plantDuty, radiationLoss_kW, type PlantDuty } from "../plant/duty";
 import type { FuelContext } from "../plant/fuel-context";
-import { balanceAtStack, type FuelPerformance } from "../plant/performance";
+import { balanceAtStack, netEfficiencyAtStack, type FuelPerformance } from "../plant/performance";
 import { InputError } from "../errors";
 import { RANKING_METRIC_INFO } from "../economics/sensitivity";
 import { distributionOf, type Distribution, type DistributionSpec } from "../economics/distributions";
@@ -543,7 +543,7 @@ export function* uncertaintyRankingSteps(
   // temperature must give the plant model's own η₀ (the same account), else the set-up is wrong.
   setup.scenarios.forEach((sc, s) => {
     if (!stackCols[s]) return;
-    const again = balanceAtStack(sc.ctx, sc.perf, sc.perf.operatingPoint.stackTemperatureC).net.efficiency;
+    const again = netEfficiencyAtStack(sc.ctx, sc.perf, sc.perf.operatingPoint.stackTemperatureC);
     if (again !== sc.eta0) throw new Error(`loss account of ${sc.field} at its stated stack gives ${again}, the plant model ${sc.eta0}`);
   });
   const stackFloorC = setup.scenarios.map((sc) => {
@@ -622,7 +622,7 @@ export function* uncertaintyRankingSteps(
           T = floor;
           clippedStack++;
         }
-        eta0 = balanceAtStack(sc.ctx, sc.perf, T).net.efficiency;
+        eta0 = netEfficiencyAtStack(sc.ctx, sc.perf, T);
       }
       const ec = effCols[s];
       let eta = ((ec ? eta0 + ec[i] / 100 : eta0) * Uk) / (Uk + sc.radiation_kW);
