@@ -20,6 +20,9 @@ import {
 } from "../db/uncertainty-run-rows";
 import { listRevisionRows } from "../db/revision-rows";
 import { uncertaintyRankingSteps, type UncertaintyResult } from "../study/uncertainty";
+import { pathAssumptions, type PathAssumptions } from "../study/price-paths";
+import { createEvaluationCaches, type StudyResult } from "../study/evaluate";
+import type { Study } from "../schemas/study";
 import { liveStudyHash } from "./revisions";
 import { ok, problem, type Problem, type Result } from "./result";
 import { prepareUncertainty, uncertaintyProblem, type UncertaintyRequest, type UncertaintyRunSettings } from "./uncertainty";
@@ -212,4 +215,22 @@ export async function getUncertaintyRun(db: Db, studyId: number, runId: number):
 export async function runForReport(db: Db, studyId: number, revisionHash?: string): Promise<StoredRun | null> {
   const row = await latestUncertaintyRun(db, studyId, revisionHash);
   return row ? full(row, await context(db, studyId)) : null;
+}
+
+export interface ReportUncertainty {
+  /** The price and carbon paths the figures use. */
+  paths: PathAssumptions;
+  /** The stored run to print: for a revision, the newest on exactly its inputs; for the live study, the newest (maybe stale). */
+  run: StoredRun | null;
+}
+
+/** What the report prints about paths and uncertainty, beside an evaluated study (live or a revision). */
+export async function reportUncertainty(
+  db: Db,
+  studyId: number,
+  evaluated: { study: Study; result: StudyResult; revisionHash: string | null },
+): Promise<ReportUncertainty> {
+  const { study, result, revisionHash } = evaluated;
+  const paths = pathAssumptions(study, [result.baseline, ...result.scenarios], createEvaluationCaches());
+  return { paths, run: await runForReport(db, studyId, revisionHash ?? undefined) };
 }
