@@ -266,7 +266,17 @@ export function flameTemperature(input: FlameInput): FlameResult {
   const P = input.pressurePa ?? atmospherePa;
   checkLiquidFeed(fuel, Tf, P);
   const charge = reactantCharge(fuel, lambda, oxidizer, Tf, Tox);
-  const base = { method: input.method, methodLabel: FLAME_METHOD_LABELS[input.method], phi, lambda, pressurePa: P };
+  const methodLabel = FLAME_METHOD_LABELS[input.method];
+  // Fields written out (an object spread of a shared head was the costliest line of a sweep point).
+  const result = (temperatureK: number, products: Record<string, number>): FlameResult => ({
+    method: input.method,
+    methodLabel,
+    phi,
+    lambda,
+    pressurePa: P,
+    temperatureK,
+    products,
+  });
 
   if (input.method === "equilibrium") {
     const eq = solveEquilibriumHP({
@@ -276,16 +286,18 @@ export function flameTemperature(input: FlameInput): FlameResult {
       warmStart: input.warmStart,
     });
     // The solver's own mole fractions (a fresh object of this solve, never changed after): no copy.
-    return { ...base, temperatureK: eq.temperatureK, products: eq.moleFractions, equilibrium: eq };
+    const r = result(eq.temperatureK, eq.moleFractions);
+    r.equilibrium = eq;
+    return r;
   }
   const lean = lambda >= 1;
   if (input.method === "complete") {
     const fixed = lean ? leanProducts(fuel, lambda, oxidizer) : null;
     const T = solveEnergyBalance((T) => fixed ?? richShiftProducts(charge, T), charge.enthalpyJ);
-    return { ...base, temperatureK: T, products: fractions(fixed ?? richShiftProducts(charge, T)) };
+    return result(T, fractions(fixed ?? richShiftProducts(charge, T)));
   }
   // mean-cp hand estimate
   const p = lean ? leanProducts(fuel, lambda, oxidizer) : richHandProducts(charge);
   const T = T298K + (charge.enthalpyJ - enthalpyOf(p, T298K)) / cpOf(p, MEAN_CP_TEMPERATURE_K);
-  return { ...base, temperatureK: T, products: fractions(p) };
+  return result(T, fractions(p));
 }

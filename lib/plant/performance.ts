@@ -108,6 +108,7 @@ export function actualFromNormal_m3(normal_m3: number, temperatureC: number): nu
 export class PerformanceCache {
   private readonly memo = new Map<string, FuelPerformance>();
   private readonly oxidizers = new Map<string, Oxidizer>();
+  private readonly opKeys = new WeakMap<OperatingPoint, string>();
   hits = 0;
   misses = 0;
 
@@ -116,7 +117,13 @@ export class PerformanceCache {
    * neighbouring solution (same element set) when this state is not cached yet.
    */
   get(ctx: FuelContext, op: OperatingPoint, warmStart?: EquilibriumResult): FuelPerformance {
-    const key = `${ctx.key}#${operatingPointKey(op)}`;
+    // An operating point is never changed once made: its key is built once per object (a sweep asks with one object 101 times).
+    let opKey = this.opKeys.get(op);
+    if (opKey === undefined) {
+      opKey = operatingPointKey(op);
+      this.opKeys.set(op, opKey);
+    }
+    const key = `${ctx.key}#${opKey}`;
     const hit = this.memo.get(key);
     if (hit) {
       this.hits++;
