@@ -111,6 +111,8 @@ function resolveGas(composition: Record<string, number>, label: string, speciesF
   const el = ZERO();
   for (const e of ELEMENTS) el[e] = perMol[e] * molPerKg;
   const keys = Object.keys(x);
+  let lastT = Number.NaN;
+  let lastH = 0;
   return {
     kind: "gas",
     label,
@@ -121,10 +123,15 @@ function resolveGas(composition: Record<string, number>, label: string, speciesF
     molarMass_g_per_mol: M,
     biogenicCarbonShare: 0,
     formationEnthalpy_J_per_kg: hf * molPerKg,
+    // The last temperature's value is kept: a gas is asked again and again at the same few
+    // temperatures (25 °C references, the burner inlet), e.g. as a component of every sweep blend.
     sensibleEnthalpy_J_per_kg: (T) => {
+      if (T === lastT) return lastH;
       let s = 0;
       for (const k of keys) s += x[k] * sensibleH_J_per_mol(SPECIES[k], T);
-      return s * molPerKg;
+      lastT = T;
+      lastH = s * molPerKg;
+      return lastH;
     },
     heatingValueOrigin: "thermochemistry",
     h2MoleFraction: x.H2 ?? 0,
