@@ -12,6 +12,10 @@
  *   efficiency before radiation (η₀, e.g. a stack temperature reached after a retrofit); the plant
  *   model's radiation loss is a constant heat flow Q, so the efficiency at the average useful heat
  *   U is η = η₀·U/(U + Q) (lib/plant/duty.ts), linear in η₀: evaluated exactly, no linearisation;
+ * - a drawn stack temperature (a retrofit's, by default the band that moves its loss account by
+ *   the sensitivity's points) runs the scenario's heat-loss account again at that temperature
+ *   (lib/plant/performance.ts `netEfficiencyAtStack`: sensible losses and condensation, not a
+ *   linear shift) and gives its η₀;
  * - operating hours go through `plantDuty` again (annual heat, or the average load and with it
  *   the radiation share, whichever the plant states);
  * - capex scales per scenario.
