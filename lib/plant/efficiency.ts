@@ -147,6 +147,10 @@ export interface EfficiencyResult {
 
 const hOf = (sp: Nasa7Species, T: number) => h_J_per_mol(sp, T);
 const sensible = (sp: Nasa7Species, T: number, Tref: number) => hOf(sp, T) - hOf(sp, Tref);
+/** h(25 °C) of each flue species, evaluated once: the reference of every sensible term below. */
+const H_REF_J_per_mol = Object.fromEntries(FLUE_SPECIES.map((k) => [k, hOf(SPECIES[k], T298K)])) as Record<FlueSpecies, number>;
+/** Sensible heat of a flue species from 25 °C to T (the same difference as `sensible(sp, T, T298K)`). */
+const flueSensible = (k: FlueSpecies, T: number) => hOf(SPECIES[k], T) - H_REF_J_per_mol[k];
 const WATER_kg_per_mol = (2 * ATOMIC_WEIGHT_g_per_mol.H + ATOMIC_WEIGHT_g_per_mol.O) / 1000;
 const CARBON_kg_per_mol = ATOMIC_WEIGHT_g_per_mol.C / 1000;
 
@@ -273,7 +277,6 @@ export function prepareLossAccount(fuel: ResolvedFuel, hv: HeatingValues, c: Eff
 /** The stack-temperature terms of a prepared account, J/kg, and the useful heat on both bases. */
 function stackAccount(b: LossAccountBase, stackTemperatureC: number, siegert: boolean) {
   if (!(stackTemperatureC > -40)) throw new InputError("stackTemperatureC", "must be above −40 °C");
-  const T0 = T298K;
   const Ts = celsiusToKelvin(stackTemperatureC);
   const m = b.flue.mol_per_kg;
   // Condensation: the flue gas leaves saturated at the stack temperature when that is below its dew point.
@@ -285,10 +288,10 @@ function stackAccount(b: LossAccountBase, stackTemperatureC: number, siegert: bo
   let dryVsAir = 0;
   for (const k of FLUE_SPECIES) {
     if (k === "H2O" || m[k] <= 0) continue;
-    dry += m[k] * sensible(SPECIES[k], Ts, T0);
+    dry += m[k] * flueSensible(k, Ts);
     if (siegert) dryVsAir += m[k] * sensible(SPECIES[k], Ts, b.Ta);
   }
-  const moistSens = m.H2O * sensible(SPECIES.H2O, Ts, T0);
+  const moistSens = m.H2O * flueSensible("H2O", Ts);
   const condensate = condensed > 0 ? condensed * (hOf(SPECIES.H2O, Ts) - hOf(SPECIES["H2O(L)"], Ts)) : 0;
   const usefulNet = b.lhv - dry - moistSens - b.coLoss - b.carbonLoss - b.radiation + condensate + b.air;
   return { Ts, condensed, dry, dryVsAir, moistSens, condensate, usefulNet };
