@@ -308,6 +308,8 @@ export interface DemoScenario {
 export interface DemoStudy {
   plant: string;
   name: string;
+  /** The library fuel the hydrogen sweep blends (by name). */
+  hydrogenFuel?: string;
   fields: Record<string, unknown>;
   scenarios: DemoScenario[];
 }
@@ -316,6 +318,7 @@ export const DEMO_STUDIES: DemoStudy[] = [
   {
     plant: "Boiler 1 (gas)",
     name: "Hydrogen blending and biomethane",
+    hydrogenFuel: H2,
     fields: {
       carbonPrice_per_t: 80,
       currency: "EUR",

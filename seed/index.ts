@@ -81,6 +81,7 @@ export async function seedIfEmpty(db: Db): Promise<SeedOutcome> {
           plantId: plantIds.get(s.plant)!,
           name: s.name,
           ...(s.fields as { currency: string; discountRatePercent: number; horizonYears: number; rankingMetric: string }),
+          hydrogenFuelId: s.hydrogenFuel ? ids.get(s.hydrogenFuel)! : null,
           isDemo: true,
         },
       });

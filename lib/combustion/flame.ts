@@ -164,8 +164,14 @@ function assertGasPhaseCharge(fuel: ResolvedFuel, oxidizer: Oxidizer, lambda: nu
   const f = fuel.elements_mol_per_kg;
   const need = f.C + 2 * f.S; // O atoms for C → CO, S → SO2
   if (!(need > 0)) return;
-  // O atoms the oxidiser brings per unit λ, and the fuel's own
-  const perLambda = reactantCharge(fuel, 1, oxidizer, T298K, T298K).elements.O - f.O;
+  // O atoms the oxidiser brings per unit λ (summed as reactantCharge sums them, without its enthalpies), and the fuel's own
+  const nOx = stoichiometricO2_mol_per_kg(f) / (oxidizer.O2 ?? 0);
+  let withOxidizer = f.O;
+  for (const k of OXIDIZER_SPECIES) {
+    const n = nOx * (oxidizer[k] ?? 0);
+    if (n > 0) withOxidizer += n * (SPECIES[k].elements.O ?? 0);
+  }
+  const perLambda = withOxidizer - f.O;
   const have = f.O + lambda * perLambda;
   if (have > need * (1 + 1e-9)) return;
   const phiMax = need > f.O ? perLambda / (need - f.O) : Infinity;
@@ -260,7 +266,17 @@ export function flameTemperature(input: FlameInput): FlameResult {
   const P = input.pressurePa ?? atmospherePa;
   checkLiquidFeed(fuel, Tf, P);
   const charge = reactantCharge(fuel, lambda, oxidizer, Tf, Tox);
-  const base = { method: input.method, methodLabel: FLAME_METHOD_LABELS[input.method], phi, lambda, pressurePa: P };
+  const methodLabel = FLAME_METHOD_LABELS[input.method];
+  // Fields written out (an object spread of a shared head was the costliest line of a sweep point).
+  const result = (temperatureK: number, products: Record<string, number>): FlameResult => ({
+    method: input.method,
+    methodLabel,
+    phi,
+    lambda,
+    pressurePa: P,
+    temperatureK,
+    products,
+  });
 
   if (input.method === "equilibrium") {
     const eq = solveEquilibriumHP({
@@ -269,16 +285,19 @@ export function flameTemperature(input: FlameInput): FlameResult {
       pressurePa: P,
       warmStart: input.warmStart,
     });
-    return { ...base, temperatureK: eq.temperatureK, products: { ...eq.moleFractions }, equilibrium: eq };
+    // The solver's own mole fractions (a fresh object of this solve, never changed after): no copy.
+    const r = result(eq.temperatureK, eq.moleFractions);
+    r.equilibrium = eq;
+    return r;
   }
   const lean = lambda >= 1;
   if (input.method === "complete") {
     const fixed = lean ? leanProducts(fuel, lambda, oxidizer) : null;
     const T = solveEnergyBalance((T) => fixed ?? richShiftProducts(charge, T), charge.enthalpyJ);
-    return { ...base, temperatureK: T, products: fractions(fixed ?? richShiftProducts(charge, T)) };
+    return result(T, fractions(fixed ?? richShiftProducts(charge, T)));
   }
   // mean-cp hand estimate
   const p = lean ? leanProducts(fuel, lambda, oxidizer) : richHandProducts(charge);
   const T = T298K + (charge.enthalpyJ - enthalpyOf(p, T298K)) / cpOf(p, MEAN_CP_TEMPERATURE_K);
-  return { ...base, temperatureK: T, products: fractions(p) };
+  return result(T, fractions(p));
 }

@@ -201,17 +201,19 @@ export function deleteFuelRow(tx: Tx, id: number): Promise<Fuel> {
 export async function fuelUsers(
   db: DbOrTx,
   id: number,
-): Promise<{ blends: string[]; plants: string[]; scenarios: { scenario: string; study: string }[] }> {
-  const [blends, plants, scenarios] = await Promise.all([
+): Promise<{ blends: string[]; plants: string[]; scenarios: { scenario: string; study: string }[]; hydrogenOfStudies: string[] }> {
+  const [blends, plants, scenarios, hydrogenOf] = await Promise.all([
     db.blendComponent.findMany({ where: { componentFuelId: id }, include: { blend: { select: { name: true, deletedAt: true } } } }),
     db.plant.findMany({ where: { baselineFuelId: id }, select: { name: true, deletedAt: true } }),
     db.scenario.findMany({ where: { fuelId: id }, include: { study: { select: { name: true, deletedAt: true } } } }),
+    db.study.findMany({ where: { hydrogenFuelId: id }, select: { name: true, deletedAt: true }, orderBy: { id: "asc" } }),
   ]);
   const trash = (r: { name: string; deletedAt: Date | null }) => (r.deletedAt ? `${r.name} (in the trash)` : r.name);
   return {
     blends: blends.map((b) => trash(b.blend)),
     plants: plants.map((p) => trash(p)),
     scenarios: scenarios.map((s) => ({ scenario: s.name, study: trash(s.study) })),
+    hydrogenOfStudies: hydrogenOf.map((s) => trash(s)),
   };
 }
 

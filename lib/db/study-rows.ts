@@ -52,6 +52,8 @@ export interface StoredStudy {
   preparedBy: string;
   reportDate: string | null;
   reportNotes: string;
+  /** The hydrogen the sweep blends (a stored gas); null = none chosen. */
+  hydrogenFuelId: number | null;
   isDemo: boolean;
   updatedAt: Date;
   baseline: StoredScenario | null;
@@ -123,6 +125,7 @@ export function studyFromRows(row: StudyRow, scenarioRows: ScenarioRow[]): Store
     preparedBy: row.preparedBy,
     reportDate: row.reportDate,
     reportNotes: row.reportNotes,
+    hydrogenFuelId: row.hydrogenFuelId,
     isDemo: row.isDemo,
     updatedAt: row.updatedAt,
     baseline: base ? scenario(base, "baseline") : null,
@@ -151,6 +154,7 @@ export function studyColumns(r: StudyRecord) {
     preparedBy: r.preparedBy,
     reportDate: r.reportDate ?? null,
     reportNotes: r.reportNotes,
+    hydrogenFuelId: r.hydrogenFuelId ?? null,
   };
 }
 
@@ -200,6 +204,7 @@ export function loadStudyGraph(db: DbOrTx, id: number) {
     where: { id, ...LIVE },
     include: {
       plant: { include: { baselineFuel: { select: { id: true, name: true } } } },
+      hydrogenFuel: { include: WITH_QUOTES },
       scenarios: { orderBy: SCENARIO_ORDER, include: { fuel: { include: WITH_QUOTES }, priceQuote: true } },
     },
   });

@@ -168,8 +168,14 @@ export function normalisePrice(terms: PriceQuoteTerms, fuel: FuelEnergyContent):
   const transport = terms.transportAdder ?? 0;
   const handling = terms.handlingAdder ?? 0;
   const delivered = terms.amount + transport + handling;
+  const d = costPerBasis(delivered / kgPerUnit, fuel);
+  // Fields written out (not spread): an object spread here was the sweep's most expensive line.
   return {
-    ...costPerBasis(delivered / kgPerUnit, fuel),
+    perKg: d.perKg,
+    perMWh_gross: d.perMWh_gross,
+    perMWh_net: d.perMWh_net,
+    perGJ_gross: d.perGJ_gross,
+    perGJ_net: d.perGJ_net,
     kgPerUnit,
     deliveredPerUnit: delivered,
     parts: {

@@ -75,10 +75,11 @@ export function channiwalaParikhHHV_MJ_per_kg(dryMassPercent: {
   return 0.3491 * C + 1.1783 * H + 0.1005 * S - 0.1034 * O - 0.0151 * N - 0.0211 * ash;
 }
 
-function speciesOrThrow(key: string, field: string) {
+/** `fieldOf(key)` names the field to blame; it is only built when the key is refused. */
+function speciesOrThrow(key: string, fieldOf: (key: string) => string) {
   const sp = SPECIES[key];
   if (sp?.phase !== "gas") {
-    throw new InputError(field, `unknown species "${key}" (known: ${gasSpeciesKeys().join(", ")})`);
+    throw new InputError(fieldOf(key), `unknown species "${key}" (known: ${gasSpeciesKeys().join(", ")})`);
   }
   return sp;
 }
@@ -94,7 +95,7 @@ function resolveGas(composition: Record<string, number>, label: string, speciesF
   const total = Object.values(composition).reduce((a, b) => a + b, 0);
   const x: Record<string, number> = {};
   for (const [k, v] of Object.entries(composition)) {
-    speciesOrThrow(k, speciesField(k));
+    speciesOrThrow(k, speciesField);
     if (v > 0) x[k] = v / total; // normalise within the accepted ±0.001
   }
   const perMol = ZERO();
@@ -110,6 +111,8 @@ function resolveGas(composition: Record<string, number>, label: string, speciesF
   const el = ZERO();
   for (const e of ELEMENTS) el[e] = perMol[e] * molPerKg;
   const keys = Object.keys(x);
+  let lastT = Number.NaN;
+  let lastH = 0;
   return {
     kind: "gas",
     label,
@@ -120,10 +123,15 @@ function resolveGas(composition: Record<string, number>, label: string, speciesF
     molarMass_g_per_mol: M,
     biogenicCarbonShare: 0,
     formationEnthalpy_J_per_kg: hf * molPerKg,
+    // The last temperature's value is kept: a gas is asked again and again at the same few
+    // temperatures (25 °C references, the burner inlet), e.g. as a component of every sweep blend.
     sensibleEnthalpy_J_per_kg: (T) => {
+      if (T === lastT) return lastH;
       let s = 0;
       for (const k of keys) s += x[k] * sensibleH_J_per_mol(SPECIES[k], T);
-      return s * molPerKg;
+      lastT = T;
+      lastH = s * molPerKg;
+      return lastH;
     },
     heatingValueOrigin: "thermochemistry",
     h2MoleFraction: x.H2 ?? 0,
@@ -237,13 +245,28 @@ function resolveBlend(def: BlendFuelDefinition, label: string, field: string, de
     throw new InputError(joinPath(field, "blend"), `blends nest at most ${MAX_BLEND_NESTING} levels deep`);
   }
   const parts = def.blend.map((c, i) => ({ f: resolveFuelAt(c.fuel, `${field}.blend.${i}.fuel`, depth), share: c.share }));
+  return blendOfResolved(parts, def.basis, label, field);
+}
+
+/**
+ * A blend of already resolved components (shares on `basis`), exactly as `resolveFuel` blends a
+ * blend definition's components: a caller that blends the same components at many shares (a
+ * hydrogen sweep) resolves each component once. `field` is the blend's field (errors name
+ * `field.blend.N…`).
+ */
+export function blendOfResolved(
+  parts: readonly { f: ResolvedFuel; share: number }[],
+  basis: BlendFuelDefinition["basis"],
+  label: string,
+  field: string,
+): ResolvedFuel {
   const kinds = new Set(parts.map((p) => p.f.kind));
   if (kinds.size !== 1) throw new InputError(`${field}.blend`, "blend components must all be gases, all liquids or all solids");
   const kind = parts[0].f.kind;
   // Mass of each component per unit of the basis share.
   let massPerShare: number[];
-  if (def.basis === "mass") massPerShare = parts.map(() => 1);
-  else if (def.basis === "energy") {
+  if (basis === "mass") massPerShare = parts.map(() => 1);
+  else if (basis === "energy") {
     massPerShare = parts.map((p, i) => {
       const e = energyShareWeight_MJ_per_kg(p.f);
       if (!(e > 0))
@@ -293,7 +316,7 @@ function resolveBlend(def: BlendFuelDefinition, label: string, field: string, de
     heatingValueOrigin: parts.every((p) => p.f.heatingValueOrigin === "thermochemistry") ? "thermochemistry" : "blend",
     h2MoleFraction: 0,
     componentMassFractions: w,
-    notes: [`blend by ${def.basis} share of ${parts.length} components; mass fractions ${w.map((v) => v.toFixed(4)).join(" / ")}`],
+    notes: [`blend by ${basis} share of ${parts.length} components; mass fractions ${w.map((v) => v.toFixed(4)).join(" / ")}`],
   };
   // Upstream CO2e of the blend: energy-weighted over the components, known only when every component
   // states one (a component without a stated factor makes the blend's figure unknown, never 0).

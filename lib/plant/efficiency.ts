@@ -147,6 +147,10 @@ export interface EfficiencyResult {
 
 const hOf = (sp: Nasa7Species, T: number) => h_J_per_mol(sp, T);
 const sensible = (sp: Nasa7Species, T: number, Tref: number) => hOf(sp, T) - hOf(sp, Tref);
+/** h(25 °C) of each flue species, evaluated once: the reference of every sensible term below. */
+const H_REF_J_per_mol = Object.fromEntries(FLUE_SPECIES.map((k) => [k, hOf(SPECIES[k], T298K)])) as Record<FlueSpecies, number>;
+/** Sensible heat of a flue species from 25 °C to T (the same difference as `sensible(sp, T, T298K)`). */
+const flueSensible = (k: FlueSpecies, T: number) => hOf(SPECIES[k], T) - H_REF_J_per_mol[k];
 const WATER_kg_per_mol = (2 * ATOMIC_WEIGHT_g_per_mol.H + ATOMIC_WEIGHT_g_per_mol.O) / 1000;
 const CARBON_kg_per_mol = ATOMIC_WEIGHT_g_per_mol.C / 1000;
 
@@ -197,22 +201,47 @@ export function burntFuel(fuel: ResolvedFuel, unburntC_kg_per_kg: number): Resol
   };
 }
 
-/** Heat-loss (indirect) efficiency of a fuel at one operating condition. */
-export function heatLossEfficiency(fuel: ResolvedFuel, hv: HeatingValues, c: EfficiencyConditions): EfficiencyResult {
+/**
+ * What the loss account needs that does not depend on the stack temperature: the flue gas of the
+ * fuel actually burnt, where its water comes from, the unburnt losses, radiation and the air's
+ * credit. `stackAccount` adds the terms of a stack temperature; a caller that varies only the
+ * stack (a Monte Carlo draw) prepares this once (`prepareLossAccount`).
+ */
+export interface LossAccountBase {
+  fuel: ResolvedFuel;
+  hv: HeatingValues;
+  c: EfficiencyConditions;
+  p: number;
+  Ta: number;
+  unburntC: number;
+  burnt: ResolvedFuel;
+  flue: FlueGas;
+  water: WaterSplit;
+  dewPointC: number | null;
+  latent: number;
+  lhv: number;
+  hhv: number;
+  radiation: number;
+  coLoss: number;
+  carbonLoss: number;
+  nOx: number;
+  air: number;
+}
+
+/** The stack-independent part of the loss account (checks every condition but the stack temperature). */
+export function prepareLossAccount(fuel: ResolvedFuel, hv: HeatingValues, c: EfficiencyConditions): LossAccountBase {
   if (hv.combustionReferenceC !== HEAT_BALANCE_REFERENCE_C) {
     throw new InputError(
       "combustionReferenceC",
       `the heat balance needs heating values at ${HEAT_BALANCE_REFERENCE_C} °C (got ${hv.combustionReferenceC} °C)`,
     );
   }
-  if (!(c.stackTemperatureC > -40)) throw new InputError("stackTemperatureC", "must be above −40 °C");
   if (!(c.radiationLossPercent >= 0 && c.radiationLossPercent < 100))
     throw new InputError("radiationLossPercent", "must be ≥ 0 % and < 100 % of the heat input");
   const coPpm = c.coDryPpm ?? 0;
   if (!(coPpm >= 0 && coPpm < 1e5)) throw new InputError("flueCODryPpm", "must be ≥ 0 and below 100 000 ppm");
   const p = c.pressurePa ?? atmospherePa;
   const T0 = T298K;
-  const Ts = celsiusToKelvin(c.stackTemperatureC);
   const Ta = celsiusToKelvin(c.combustionAirC);
   const unburntC = unburntCarbon_kg_per_kg(fuel, c.unburntCarbonInAshPercent ?? 0);
   const burnt = burntFuel(fuel, unburntC);
@@ -227,23 +256,7 @@ export function heatLossEfficiency(fuel: ResolvedFuel, hv: HeatingValues, c: Eff
     fromFuelMoisture_mol_per_kg: moist,
     fromAirHumidity_mol_per_kg: m.H2O - fuelWater,
   };
-
-  // Condensation: the flue gas leaves saturated at the stack temperature when that is below its dew point.
   const dewPointC = waterDewPointC(flue.wetMoleFractions.H2O, p);
-  let condensed = 0;
-  if (dewPointC !== null && c.stackTemperatureC < dewPointC) {
-    condensed = Math.max(0, m.H2O - saturatedVapour_mol(flue.dry_mol_per_kg, c.stackTemperatureC, p));
-  }
-
-  // Loss and credit terms, J/kg.
-  let dry = 0;
-  let dryVsAir = 0;
-  for (const k of FLUE_SPECIES) {
-    if (k === "H2O" || m[k] <= 0) continue;
-    dry += m[k] * sensible(SPECIES[k], Ts, T0);
-    dryVsAir += m[k] * sensible(SPECIES[k], Ts, Ta);
-  }
-  const moistSens = m.H2O * sensible(SPECIES.H2O, Ts, T0);
   const latent = (hv.hhv_MJ_per_kg - hv.lhv_MJ_per_kg) * 1e6;
   const lhv = hv.lhv_MJ_per_kg * 1e6;
   const hhv = hv.hhv_MJ_per_kg * 1e6;
@@ -251,7 +264,6 @@ export function heatLossEfficiency(fuel: ResolvedFuel, hv: HeatingValues, c: Eff
   const coMol = coPpm * 1e-6 * flue.dry_mol_per_kg;
   const coLoss = coMol * coHeatOfCombustion_J_per_mol();
   const carbonLoss = unburntC * UNBURNT_CARBON_HEATING_VALUE_J_per_kg;
-  const condensate = condensed > 0 ? condensed * (hOf(SPECIES.H2O, Ts) - hOf(SPECIES["H2O(L)"], Ts)) : 0;
   const nO2 = stoichiometricO2_mol_per_kg(burnt.elements_mol_per_kg);
   const nOx = (c.lambda * nO2) / (c.oxidizer.O2 ?? 0);
   let air = 0;
@@ -259,6 +271,46 @@ export function heatLossEfficiency(fuel: ResolvedFuel, hv: HeatingValues, c: Eff
     const n = nOx * (c.oxidizer[k] ?? 0);
     if (n > 0) air += n * sensible(SPECIES[k], Ta, T0);
   }
+  return { fuel, hv, c, p, Ta, unburntC, burnt, flue, water, dewPointC, latent, lhv, hhv, radiation, coLoss, carbonLoss, nOx, air };
+}
+
+/** The stack-temperature terms of a prepared account, J/kg, and the useful heat on both bases. */
+function stackAccount(b: LossAccountBase, stackTemperatureC: number, siegert: boolean) {
+  if (!(stackTemperatureC > -40)) throw new InputError("stackTemperatureC", "must be above −40 °C");
+  const Ts = celsiusToKelvin(stackTemperatureC);
+  const m = b.flue.mol_per_kg;
+  // Condensation: the flue gas leaves saturated at the stack temperature when that is below its dew point.
+  let condensed = 0;
+  if (b.dewPointC !== null && stackTemperatureC < b.dewPointC) {
+    condensed = Math.max(0, m.H2O - saturatedVapour_mol(b.flue.dry_mol_per_kg, stackTemperatureC, b.p));
+  }
+  let dry = 0;
+  let dryVsAir = 0;
+  for (const k of FLUE_SPECIES) {
+    if (k === "H2O" || m[k] <= 0) continue;
+    dry += m[k] * flueSensible(k, Ts);
+    if (siegert) dryVsAir += m[k] * sensible(SPECIES[k], Ts, b.Ta);
+  }
+  const moistSens = m.H2O * flueSensible("H2O", Ts);
+  const condensate = condensed > 0 ? condensed * (hOf(SPECIES.H2O, Ts) - hOf(SPECIES["H2O(L)"], Ts)) : 0;
+  const usefulNet = b.lhv - dry - moistSens - b.coLoss - b.carbonLoss - b.radiation + condensate + b.air;
+  return { Ts, condensed, dry, dryVsAir, moistSens, condensate, usefulNet };
+}
+
+/** Net efficiency of a prepared account at a stack temperature: the `net.efficiency` of heatLossEfficiency, terms only. */
+export function netEfficiencyOfAccount(b: LossAccountBase, stackTemperatureC: number): number {
+  return stackAccount(b, stackTemperatureC, false).usefulNet / b.lhv;
+}
+
+/** Heat-loss (indirect) efficiency of a fuel at one operating condition. */
+export function heatLossEfficiency(fuel: ResolvedFuel, hv: HeatingValues, c: EfficiencyConditions): EfficiencyResult {
+  const b = prepareLossAccount(fuel, hv, c);
+  const { Ta, unburntC, flue, water, dewPointC, latent, lhv, hhv, radiation, coLoss, carbonLoss, nOx, air } = b;
+  const T0 = T298K;
+  const m = flue.mol_per_kg;
+  const { Ts, condensed, dry, dryVsAir, moistSens, condensate, usefulNet } = stackAccount(b, c.stackTemperatureC, true);
+
+  // Loss and credit terms, J/kg.
   const terms: LossTerms = {
     dryFlueGas: dry / 1e3,
     moistureSensible: moistSens / 1e3,
@@ -269,7 +321,6 @@ export function heatLossEfficiency(fuel: ResolvedFuel, hv: HeatingValues, c: Eff
     condensateRecovery: condensate / 1e3,
     airSensibleCredit: air / 1e3,
   };
-  const usefulNet = lhv - dry - moistSens - coLoss - carbonLoss - radiation + condensate + air;
   const usefulGross = hhv - latent - dry - moistSens - coLoss - carbonLoss - radiation + condensate + air; // equal to usefulNet
 
   const balance = (basis: "gross" | "net", input: number, useful: number): BasisBalance => {

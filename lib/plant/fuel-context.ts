@@ -148,14 +148,14 @@ export class FuelContextCache {
   }
 
   /**
-   * Like fromDefinition, but keyed by a caller's string (e.g. "sweep:20") so a generated
-   * definition is neither built nor serialised again on a hit.
+   * A fuel the caller resolves itself (e.g. a sweep's blend of resolved components), keyed by the
+   * caller's string (e.g. "h2-sweep:…:20") so that on a hit nothing is built or serialised again.
    */
-  fromKeyedDefinition(cacheKey: string, def: () => FuelDefinition, field = "fuel"): FuelContext {
+  fromKeyedResolved(cacheKey: string, resolve: () => ResolvedFuel): FuelContext {
     const dk = `#${cacheKey}`;
     const hit = this.byDefinition.get(dk);
     if (hit) return hit;
-    const ctx = this.fromResolved(resolveFuel(def(), field));
+    const ctx = this.fromResolved(resolve());
     this.byDefinition.set(dk, ctx);
     return ctx;
   }

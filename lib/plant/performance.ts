@@ -12,7 +12,16 @@ import type { EquilibriumResult } from "../combustion/equilibrium";
 import { celsiusToKelvin, kelvinToCelsius, T0CK, T298K } from "../units/constants";
 import { condensingStackFloorC, stackBelowFloorMessage, type OperatingPoint } from "../schemas/plant";
 import { InfeasibleChargeError, InputError, NotConvergedError } from "../errors";
-import { burntFuel, heatLossEfficiency, unburntCarbon_kg_per_kg, type EfficiencyResult } from "./efficiency";
+import {
+  burntFuel,
+  heatLossEfficiency,
+  netEfficiencyOfAccount,
+  prepareLossAccount,
+  unburntCarbon_kg_per_kg,
+  type EfficiencyConditions,
+  type EfficiencyResult,
+  type LossAccountBase,
+} from "./efficiency";
 import type { FuelContext } from "./fuel-context";
 /** Fuel temperature at the burner for the flame temperature and the heat balance, K (25 °C reference). */
 export const FUEL_TEMPERATURE_K = T298K;
@@ -99,6 +108,7 @@ export function actualFromNormal_m3(normal_m3: number, temperatureC: number): nu
 export class PerformanceCache {
   private readonly memo = new Map<string, FuelPerformance>();
   private readonly oxidizers = new Map<string, Oxidizer>();
+  private readonly opKeys = new WeakMap<OperatingPoint, string>();
   hits = 0;
   misses = 0;
 
@@ -107,7 +117,13 @@ export class PerformanceCache {
    * neighbouring solution (same element set) when this state is not cached yet.
    */
   get(ctx: FuelContext, op: OperatingPoint, warmStart?: EquilibriumResult): FuelPerformance {
-    const key = `${ctx.key}#${operatingPointKey(op)}`;
+    // An operating point is never changed once made: its key is built once per object (a sweep asks with one object 101 times).
+    let opKey = this.opKeys.get(op);
+    if (opKey === undefined) {
+      opKey = operatingPointKey(op);
+      this.opKeys.set(op, opKey);
+    }
+    const key = `${ctx.key}#${opKey}`;
     const hit = this.memo.get(key);
     if (hit) {
       this.hits++;
@@ -130,6 +146,56 @@ export class PerformanceCache {
   }
 }
 
+/** The heat-loss balance of a fuel at an operating point, radiation and casing apart (that loss is a heat flow: duty.ts). */
+function balanceAt(ctx: FuelContext, op: OperatingPoint, lambda: number, oxidizer: Oxidizer): EfficiencyResult {
+  return heatLossEfficiency(ctx.fuel, ctx.hv, conditionsAt(op, lambda, oxidizer));
+}
+
+/** The heat-loss conditions of an operating point (radiation apart). */
+function conditionsAt(op: OperatingPoint, lambda: number, oxidizer: Oxidizer): EfficiencyConditions {
+  return {
+    lambda,
+    oxidizer,
+    combustionAirC: op.combustionAirC,
+    stackTemperatureC: op.stackTemperatureC,
+    radiationLossPercent: 0,
+    coDryPpm: op.flueCODryPpm,
+    unburntCarbonInAshPercent: op.unburntCarbonInAshPercent,
+  };
+}
+
+/**
+ * The balance of `perf` with the flue gas leaving at another stack temperature: the same fuel, air
+ * factor (set by the flue O2) and combustion air, the whole loss account run again (sensible
+ * losses, condensation at the new temperature, credits). Refuses, naming `stackTemperatureC`, a
+ * stack below a condensing unit's floor.
+ */
+export function balanceAtStack(ctx: FuelContext, perf: FuelPerformance, stackTemperatureC: number): EfficiencyResult {
+  const op: OperatingPoint = { ...perf.operatingPoint, stackTemperatureC };
+  checkOperatingPoint(op);
+  return balanceAt(ctx, op, perf.lambda, perf.oxidizer);
+}
+
+const preparedAccounts = new WeakMap<FuelPerformance, LossAccountBase>();
+
+/**
+ * Net efficiency (radiation apart) of `perf` with the flue gas leaving at another stack
+ * temperature: `balanceAtStack(…).net.efficiency` to the last digit, with the stack-independent
+ * part of the account prepared once per performance (cached by the performance object, which is
+ * never changed) — for loops that vary only the stack.
+ */
+export function netEfficiencyAtStack(ctx: FuelContext, perf: FuelPerformance, stackTemperatureC: number): number {
+  const op = perf.operatingPoint;
+  if (op.condensing && op.returnWaterC !== null && stackTemperatureC < condensingStackFloorC(op.returnWaterC, op.condensingApproachK))
+    checkOperatingPoint({ ...op, stackTemperatureC }); // throws the InputError naming stackTemperatureC
+  let b = preparedAccounts.get(perf);
+  if (!b) {
+    b = prepareLossAccount(ctx.fuel, ctx.hv, conditionsAt(perf.operatingPoint, perf.lambda, perf.oxidizer));
+    preparedAccounts.set(perf, b);
+  }
+  return netEfficiencyOfAccount(b, stackTemperatureC);
+}
+
 export function computePerformance(
   ctx: FuelContext,
   op: OperatingPoint,
@@ -141,15 +207,7 @@ export function computePerformance(
   // The measured flue O2 belongs to the carbon actually burnt.
   const burnt = burntFuel(fuel, unburntCarbon_kg_per_kg(fuel, op.unburntCarbonInAshPercent));
   const lambda = lambdaFromFlueO2Dry(burnt, op.flueO2DryPercent, oxidizer);
-  const balance = heatLossEfficiency(fuel, ctx.hv, {
-    lambda,
-    oxidizer,
-    combustionAirC: op.combustionAirC,
-    stackTemperatureC: op.stackTemperatureC,
-    radiationLossPercent: 0,
-    coDryPpm: op.flueCODryPpm,
-    unburntCarbonInAshPercent: op.unburntCarbonInAshPercent,
-  });
+  const balance = balanceAt(ctx, op, lambda, oxidizer);
   const canWarm = warmStart !== undefined && fuel.elements_mol_per_kg.S > 0 === warmStart.species.includes("SO2");
   let flame: FlameResult | null = null;
   let flameError: string | undefined;

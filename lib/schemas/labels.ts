@@ -71,6 +71,7 @@ export const FIELD_LABELS: Readonly<Record<string, string>> = Object.freeze({
   stepPercent: "step, vol % H2",
   hydrogen: "hydrogen fuel",
   hydrogenPrice: "hydrogen price",
+  hydrogenFuelId: "hydrogen for the sweep",
   plant: "plant",
   plantId: "plant",
   baseline: "baseline",
@@ -102,6 +103,8 @@ export const FIELD_LABELS: Readonly<Record<string, string>> = Object.freeze({
   tokenName: "token name",
   deletedAt: "moved to the trash on",
   deletedBy: "moved to the trash by",
+  stackTemperatureK: "stack temperature after the change, ± K",
+  stackTemperatureByScenario: "stack temperature per scenario, ± K",
   // library
   kind: "kind",
   definition: "definition",

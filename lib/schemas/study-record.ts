@@ -60,6 +60,8 @@ export const studyRecordSchema = z
     preparedBy: s.preparedBy,
     reportDate: s.reportDate,
     reportNotes: s.reportNotes,
+    /** The stored gas the hydrogen sweep blends into the baseline gas; null = none chosen (the sweep asks for one). */
+    hydrogenFuelId: id("a hydrogen fuel").nullish(),
     baseline: scenarioRecordSchema,
     scenarios: z
       .array(scenarioRecordSchema, { error: "required: a list of candidate scenarios (may be empty)" })

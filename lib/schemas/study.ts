@@ -223,6 +223,14 @@ export const uncertaintySchema = z
     /** % change of the operating hours; default ± 10 %. */
     operatingHours: uncertaintyRangeSchema.nullish(),
     /**
+     * K change of the stack temperature of every scenario whose operating changes state one (e.g. the
+     * stack an economiser retrofit will really reach); each draw runs the heat-loss balance again at
+     * the drawn temperature. Default: the band that moves that balance by the sensitivity's ± points.
+     */
+    stackTemperatureK: uncertaintyRangeSchema.nullish(),
+    /** Per scenario by name (the baseline's name included), K change of its stack temperature, overriding stackTemperatureK. */
+    stackTemperatureByScenario: z.record(z.string(), uncertaintyRangeSchema).default({}),
+    /**
      * One correlation between every pair of varying fuel prices (a shared market factor, e.g. natural
      * gas and the blends and offers that follow it); pairs stated in `correlations` take precedence.
      */

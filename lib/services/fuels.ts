@@ -349,13 +349,14 @@ export async function updateFuel(db: Db, id: number, raw: unknown): Promise<Resu
   });
 }
 
-/** What stops a fuel from being deleted (blends, plants, scenarios that use it). */
+/** What stops a fuel from being deleted (blends, plants, scenarios and hydrogen sweeps of studies that use it). */
 export async function fuelUsage(db: DbOrTx, id: number): Promise<string[]> {
   const u = await fuelUsers(db, id);
   return [
     ...u.blends.map((b) => `blend "${b}"`),
     ...u.plants.map((p) => `baseline fuel of plant "${p}"`),
     ...u.scenarios.map((s) => `scenario "${s.scenario}" in study "${s.study}"`),
+    ...u.hydrogenOfStudies.map((s) => `hydrogen of the sweep of study "${s}"`),
   ];
 }
 

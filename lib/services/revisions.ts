@@ -15,7 +15,14 @@ import { canonicalJson, jsonDifferences } from "../formats/canonical-json";
 import { STUDY_FORMAT, STUDY_FORMAT_VERSION, studySchema, type Study } from "../schemas/study";
 import { labelOfPath } from "../schemas/labels";
 import { createEvaluationCaches, evaluateStudy, type StudyResult } from "../study/evaluate";
-import { evaluateStoredStudy, studyBundle, type Evaluated, type StudyBundle, type ViewSettings } from "./studies";
+import {
+  evaluateStoredStudy,
+  studyBundle,
+  type EvaluateStoredOptions,
+  type Evaluated,
+  type StudyBundle,
+  type ViewSettings,
+} from "./studies";
 import { ok, problem, problemFromError, type Result } from "./result";
 
 /** How a revision is evaluated, at issue and whenever it is shown again: as `stoke evaluate` does. */
@@ -29,6 +36,12 @@ export function studyFile(study: Study): Study {
 }
 
 export const sha256 = (text: string) => createHash("sha256").update(text, "utf8").digest("hex");
+
+/** The hash a revision of the study's live inputs would carry (canonical study file, SHA-256); null when it cannot be assembled. */
+export async function liveStudyHash(db: Db, studyId: number, asOf?: Date): Promise<string | null> {
+  const loaded = await studyBundle(db, studyId, asOf ? { asOf } : {});
+  return loaded.ok ? sha256(canonicalJson(studyFile(loaded.bundle.study))) : null;
+}
 
 type StoredMeta = Omit<StudyBundle["meta"], "updatedAt" | "revision">;
 
@@ -113,7 +126,7 @@ export async function getRevision(db: Db, studyId: number, number: number): Prom
 export async function studyReportData(
   db: Db,
   id: number,
-  opts: ViewSettings & { revision?: number; sweep?: boolean; tornado?: boolean } = {},
+  opts: ViewSettings & { revision?: number; sweep?: EvaluateStoredOptions["sweep"]; tornado?: boolean } = {},
 ): Promise<Evaluated> {
   if (opts.revision === undefined) return evaluateStoredStudy(db, id, opts);
   const row = await findRevisionRow(db, id, opts.revision);

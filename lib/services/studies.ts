@@ -39,6 +39,7 @@ import { studySchema, type RankingMetric, type Study, type StudyInput, type Stud
 import { studyRecordSchema, type ScenarioRecord, type StudyRecord, type StudyRecordInput } from "../schemas/study-record";
 import type { SensitivityRanges } from "../economics/sensitivity";
 import { evaluateStudy, type StudyResult } from "../study/evaluate";
+import { resolveFuel } from "../fuels/resolve";
 import { listRates, rateJson } from "../db/exchange-rate-rows";
 import { countRevisions } from "../db/revision-rows";
 import { rateInForce } from "../economics/currency";
@@ -59,6 +60,7 @@ async function studyLogRecord(tx: DbOrTx, id: number, includeTrashed = false) {
     scenarios: scenarios.map(({ id: _i, studyId: _s, createdAt: _sc, updatedAt: _su, ...s }) => s),
   };
 }
+import { isStokeError } from "../errors";
 
 /* ---------------------------------------------------------------- pricing policy */
 
@@ -150,25 +152,39 @@ function priceFor(
   };
 }
 
-type HydrogenRow = FuelRow & { priceQuotes: PriceQuoteRow[] };
+type HydrogenRow = FuelWithQuotesRow;
 
-/** The library's pure hydrogen (a gas of H2 only), if there is one, with its quotes. */
-async function libraryHydrogen(db: DbOrTx): Promise<HydrogenRow | null> {
-  for (const g of await gasesMentioningHydrogen(db)) {
-    let def: FuelDefinition;
-    try {
-      def = storedDefinition(g);
-    } catch (e) {
-      if (e instanceof SyntaxError) continue; // a record whose JSON cannot be read is not the hydrogen
-      throw e;
-    }
-    if ("composition" in def) {
-      const keys = Object.keys(def.composition);
-      if (keys.length === 1 && keys[0] === "H2") return g;
-    }
+/** Whether a stored fuel is pure hydrogen (a gas of H2 only): the default the study form offers. */
+function isPureHydrogen(row: FuelRow): boolean {
+  let def: FuelDefinition;
+  try {
+    def = storedDefinition(row);
+  } catch (e) {
+    if (e instanceof SyntaxError) return false; // a record whose JSON cannot be read is not the hydrogen
+    throw e;
   }
+  if (!("composition" in def)) return "compound" in def && def.compound === "H2" && def.phase !== "liquid";
+  const keys = Object.keys(def.composition).filter((k) => def.composition[k] > 0);
+  return keys.length === 1 && keys[0] === "H2";
+}
+
+/** The hydrogen the study form offers by default: the library's first pure hydrogen, or null. */
+export async function defaultHydrogenFuelId(db: DbOrTx): Promise<number | null> {
+  for (const g of await gasesMentioningHydrogen(db)) if (isPureHydrogen(g)) return g.id;
   return null;
 }
+
+/**
+ * A study's hydrogen must be mostly hydrogen (mole fraction of H2 at least this): the sweep's axis
+ * is "vol % of this gas" and its labels speak of hydrogen (e.g. electrolytic H2 with impurities,
+ * not a natural-gas blend with some hydrogen).
+ */
+export const HYDROGEN_FUEL_MIN_H2_FRACTION = 0.5;
+
+const h2FractionOf = (row: FuelRow, field: string) => resolveFuel(effectiveDefinition(row), field).h2MoleFraction;
+
+/** What the sweep answers when the study names no hydrogen (the field is the study form's). */
+export const NO_HYDROGEN_CHOSEN = "choose the hydrogen to blend (a stored gas) in the study's settings: the hydrogen sweep needs one";
 
 /* ---------------------------------------------------------------- assembling the study */
 
@@ -185,8 +201,8 @@ export interface ScenarioMeta {
 }
 
 export interface HydrogenMeta {
+  /** The study's hydrogen (Study.hydrogenFuelId), null when none is chosen (then there is no sweep). */
   fuelId: number | null;
-  /** The library's pure hydrogen, null when there is none (the sweep then blends pure H2 unpriced). */
   fuelName: string | null;
   price: PriceSource;
 }
@@ -310,9 +326,9 @@ function build(
     rankingMetric: settings.metric ?? fields.rankingMetric,
     includeUpstream: settings.includeUpstream ?? fields.includeUpstream,
     sensitivity: { ...fields.sensitivity, ...settings.sensitivity },
-    // Without a pure hydrogen in the library the schema's default hydrogen is blended, unpriced.
+    // The study's own hydrogen; without one there is no sweep (the sweep page asks for the field).
     hydrogenSweep: {
-      enabled: true,
+      enabled: hydrogen !== null,
       stepPercent: settings.sweepStepPercent ?? 1,
       ...(hydrogen ? { hydrogen: effectiveDefinition(hydrogen) } : {}),
       hydrogenPrice: h2?.quote ? h2.converted.price : null,
@@ -390,7 +406,7 @@ export async function studyBundle(db: Db, id: number, settings: ViewSettings = {
     };
   };
   const rates = (await listRates(db)).map(rateJson);
-  const built = build(stored, row.plant, src(stored.baseline), stored.scenarios.map(src), await libraryHydrogen(db), settings, rates);
+  const built = build(stored, row.plant, src(stored.baseline), stored.scenarios.map(src), row.hydrogenFuel, settings, rates);
   // The same input parses to the same study: parse each distinct input once.
   const inputKey = contentKey("study-input", built.input);
   const parsed = parsedStudyCache<ReturnType<typeof studySchema.safeParse>>().getOrCompute(inputKey, () =>
@@ -431,8 +447,19 @@ export { sharedCaches, countStudies };
 export type Evaluated = { ok: true; bundle: StudyBundle; result: StudyResult } | Problem;
 
 export interface EvaluateStoredOptions extends ViewSettings {
-  sweep?: boolean;
+  /**
+   * Run the hydrogen sweep: true asks for it (a study without a chosen hydrogen is then a problem
+   * naming `hydrogenFuelId`); "if-chosen" runs it when the study names its hydrogen.
+   */
+  sweep?: boolean | "if-chosen";
   tornado?: boolean;
+}
+
+/** The problem of a sweep asked for on a study that names no hydrogen. */
+export function noHydrogenProblem(name: string): Problem {
+  return problem("invalid", `Study "${name}" has no hydrogen for its sweep: ${NO_HYDROGEN_CHOSEN}.`, {
+    hydrogenFuelId: NO_HYDROGEN_CHOSEN,
+  });
 }
 
 /**
@@ -442,8 +469,10 @@ export interface EvaluateStoredOptions extends ViewSettings {
 export async function evaluateStoredStudy(db: Db, id: number, opts: EvaluateStoredOptions = {}): Promise<Evaluated> {
   const loaded = await studyBundle(db, id, opts);
   if (!loaded.ok) return loaded;
+  const chosen = loaded.bundle.meta.hydrogen.fuelId !== null;
+  if (opts.sweep === true && !chosen) return noHydrogenProblem(loaded.bundle.study.name);
   try {
-    const options = { sweep: opts.sweep ?? false, tornado: opts.tornado ?? true };
+    const options = { sweep: opts.sweep === true || (opts.sweep === "if-chosen" && chosen), tornado: opts.tornado ?? true };
     // Keyed by everything the evaluation reads: the self-contained study object and the options.
     const key = contentKey("study-result", loaded.bundle.inputKey ?? loaded.bundle.study, options);
     const result = resultCache<StudyResult>().getOrCompute(key, () =>
@@ -526,6 +555,7 @@ export async function studyRecord(db: Db, id: number): Promise<StudyRecordView |
     preparedBy: s.preparedBy,
     reportDate: s.reportDate,
     reportNotes: s.reportNotes,
+    hydrogenFuelId: s.hydrogenFuelId,
     baseline: s.baseline
       ? sc(s.baseline)
       : { name: "Baseline", fuelId: 0, priceQuoteId: null, capex: 0, fixedOpexChange: 0, overrides: {} },
@@ -547,7 +577,7 @@ export function recordFieldOf(path: string): string {
     return `${who}.${what}`;
   }
   if (path.startsWith("plant")) return "plantId";
-  if (path.startsWith("hydrogenSweep")) return "_";
+  if (path.startsWith("hydrogenSweep")) return "hydrogenFuelId";
   return path;
 }
 
@@ -562,7 +592,10 @@ async function prepare(tx: Tx, raw: unknown, selfId?: number): Promise<Result<St
     ["baseline", r.baseline],
     ...r.scenarios.map((s, i): [string, ScenarioRecord] => [`scenarios.${i}`, s]),
   ];
-  const fuels = new Map((await fuelsWithQuotes(tx, [...new Set(all.map(([, s]) => s.fuelId))])).map((f) => [f.id, f]));
+  const h2Id = r.hydrogenFuelId ?? null;
+  const fuelIds = new Set(all.map(([, s]) => s.fuelId));
+  if (h2Id !== null) fuelIds.add(h2Id);
+  const fuels = new Map((await fuelsWithQuotes(tx, [...fuelIds])).map((f) => [f.id, f]));
   const quoteIds = all.map(([, s]) => s.priceQuoteId).filter((q): q is number => typeof q === "number");
   const quotes = new Map((await findQuotes(tx, quoteIds)).map((q) => [q.id, q]));
   const rates = (await listRates(tx)).map(rateJson);
@@ -575,6 +608,14 @@ async function prepare(tx: Tx, raw: unknown, selfId?: number): Promise<Result<St
         errs[`${path}.priceQuoteId`] =
           `is in ${q.currency}; the study is in ${r.currency} and no exchange rate from ${q.currency} to ${r.currency} is in force on ${day(q.validFrom)} (add one, or choose a quote in ${r.currency})`;
     }
+  }
+  const hydrogen = h2Id === null ? null : (fuels.get(h2Id) ?? null);
+  if (h2Id !== null) {
+    if (!hydrogen) errs.hydrogenFuelId = `no stored fuel with id ${h2Id}`;
+    else if (hydrogen.kind !== "gas")
+      errs.hydrogenFuelId = `"${hydrogen.name}" is not a gas: the sweep blends a gas into the baseline gas by volume`;
+    else if (!(h2FractionOf(hydrogen, "hydrogenFuelId") >= HYDROGEN_FUEL_MIN_H2_FRACTION))
+      errs.hydrogenFuelId = `"${hydrogen.name}" is not mostly hydrogen (needs at least ${100 * HYDROGEN_FUEL_MIN_H2_FRACTION} mol % H2)`;
   }
   if (Object.keys(errs).length || !plant) return problem("invalid", "The study has errors; nothing was saved.", errs);
   const clash = (await studyNamesOfPlant(tx, r.plantId)).find((o) => o.name.toLowerCase() === r.name.toLowerCase() && o.id !== selfId);
@@ -600,7 +641,7 @@ async function prepare(tx: Tx, raw: unknown, selfId?: number): Promise<Result<St
       overrides: s.overrides,
     };
   };
-  const built = build(r, plant, src(r.baseline), r.scenarios.map(src), await libraryHydrogen(tx), { metric: r.rankingMetric }, rates);
+  const built = build(r, plant, src(r.baseline), r.scenarios.map(src), hydrogen, { metric: r.rankingMetric }, rates);
   const study = studySchema.safeParse(built.input);
   if (!study.success) {
     const e: FieldErrors = {};
@@ -751,13 +792,33 @@ export interface QuoteChoice {
 export interface StudyFormOptions {
   plants: { id: number; name: string; baselineFuelId: number | null; equipmentType: string }[];
   fuels: { id: number; name: string; kind: string; isBlend: boolean; quotes: QuoteChoice[] }[];
+  /** Stored gases that contain hydrogen (what the sweep may blend), and the default a new study is offered (pure hydrogen). */
+  hydrogenFuels: { id: number; name: string }[];
+  defaultHydrogenFuelId: number | null;
 }
 
 /** Plants, fuels and their quotes (newest first) for the study form's choices. */
 export async function studyFormOptions(db: Db): Promise<StudyFormOptions> {
-  const [plants, fuels] = await Promise.all([plantChoices(db), listFuelsWithQuotes(db)]);
+  const [plants, fuels, h2Gases, defaultH2] = await Promise.all([
+    plantChoices(db),
+    listFuelsWithQuotes(db),
+    gasesMentioningHydrogen(db),
+    defaultHydrogenFuelId(db),
+  ]);
+  const hydrogenFuels = h2Gases
+    .filter((g) => {
+      try {
+        return h2FractionOf(g, "fuel") >= HYDROGEN_FUEL_MIN_H2_FRACTION;
+      } catch (e) {
+        if (e instanceof SyntaxError || isStokeError(e)) return false; // not offered: its own page reports what is wrong
+        throw e;
+      }
+    })
+    .map((g) => ({ id: g.id, name: g.name }));
   return {
     plants,
+    hydrogenFuels,
+    defaultHydrogenFuelId: defaultH2,
     fuels: fuels.map((f) => ({
       id: f.id,
       name: f.name,

@@ -9,6 +9,7 @@ import type { FuelDefinition } from "../schemas/fuel";
 import { METERING_REFERENCE_C, operatingPointOf, type Plant } from "../schemas/plant";
 import type { Study } from "../schemas/study";
 import type { FuelContext } from "../plant/fuel-context";
+import { blendOfResolved, resolveFuel, type ResolvedFuel } from "../fuels/resolve";
 import { efficiencyAtUseful, flowsForUseful, type PlantDuty } from "../plant/duty";
 import {
   FIT_CHECK_IDS,
@@ -162,6 +163,13 @@ export function hydrogenSweep(env: SweepEnvironment): HydrogenSweepResult {
   const baseRanked = rankedCo2PerGJ(baseCtx);
   const baseCo2 = baseRanked === null ? null : baseRanked / efficiencyAtUseful(baseFip.perf, duty, duty.averageUseful_kW).net.efficiency;
 
+  // The two components, resolved once for all shares (as resolveFuel would resolve them inside each blend).
+  let resolved: { base: ResolvedFuel; hydrogen: ResolvedFuel } | null = null;
+  const components = () =>
+    (resolved ??= {
+      base: resolveFuel(env.baseline.definition, "hydrogenSweep.blend.0.fuel"),
+      hydrogen: resolveFuel(cfg.hydrogen, "hydrogenSweep.blend.1.fuel"),
+    });
   const points: SweepPoint[] = [];
   let warm: EquilibriumResult | undefined = baseFip.perf.equilibrium;
   for (const share of sweepShares(cfg.stepPercent)) {
@@ -171,16 +179,16 @@ export function hydrogenSweep(env: SweepEnvironment): HydrogenSweepResult {
         ? baseCtx
         : share === 100
           ? h2Ctx
-          : caches.fuels.fromKeyedDefinition(
-              `h2-sweep:${baseCtx.key}:${h2Ctx.key}:${share}`,
-              () => ({
-                blend: [
-                  { fuel: env.baseline.definition, share: 1 - x },
-                  { fuel: cfg.hydrogen, share: x },
+          : caches.fuels.fromKeyedResolved(`h2-sweep:${baseCtx.key}:${h2Ctx.key}:${share}`, () =>
+              blendOfResolved(
+                [
+                  { f: components().base, share: 1 - x },
+                  { f: components().hydrogen, share: x },
                 ],
-                basis: "volume",
-              }),
-              "hydrogenSweep",
+                "volume",
+                "blend",
+                "hydrogenSweep",
+              ),
             );
     const perf = caches.performance.get(ctx, op, warm);
     if (perf.equilibrium) warm = perf.equilibrium;

@@ -215,3 +215,46 @@ export function pathEconomicsOf(
     };
   });
 }
+
+/** One path as a report states it: what it is and its values, years 1 … N. */
+export interface PathAssumption {
+  key: string;
+  label: string;
+  /** The kind in words, e.g. "escalation 2 % a year (the study's rate)" or "linear between 3 points". */
+  kind: string;
+  values: number[];
+}
+
+export interface PathAssumptions {
+  terms: string;
+  discountRatePercent: number;
+  notes: string[];
+  /** Fuel prices as an index on their quote (1 = the quote). */
+  fuel: PathAssumption[];
+  /** Carbon price, currency per t. */
+  carbon: PathAssumption;
+}
+
+function pathKindText(p: PricePath | undefined, study: Study): string {
+  if (!p) return `escalation ${study.priceEscalationPercent} % a year (the study's rate)`;
+  if (p.kind === "escalation") return `escalation ${p.percentPerYear} % a year`;
+  const n = p.points.length;
+  return p.kind === "table" ? `table of ${n} years` : `${p.kind} between ${n} point${n > 1 ? "s" : ""}`;
+}
+
+/** The price and carbon paths an evaluated study uses, for the report (the same paths the figures use). */
+export function pathAssumptions(study: Study, results: readonly PricedScenario[], caches: EvaluationCaches): PathAssumptions {
+  const pp = studyPricePaths(study, caches, results);
+  return {
+    terms: pp.factors.finance.terms,
+    discountRatePercent: pp.factors.finance.discountRatePercent,
+    notes: pp.notes,
+    fuel: pp.applied.fuelIndex.map((f) => ({ ...f, kind: pathKindText(study.paths?.fuelPrices?.[f.key], study) })),
+    carbon: {
+      key: "carbon",
+      label: "carbon price",
+      kind: pathKindText(study.paths?.carbon ?? undefined, study),
+      values: pp.applied.carbon_per_t,
+    },
+  };
+}

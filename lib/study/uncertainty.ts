@@ -12,6 +12,10 @@
  *   efficiency before radiation (η₀, e.g. a stack temperature reached after a retrofit); the plant
  *   model's radiation loss is a constant heat flow Q, so the efficiency at the average useful heat
  *   U is η = η₀·U/(U + Q) (lib/plant/duty.ts), linear in η₀: evaluated exactly, no linearisation;
+ * - a drawn stack temperature (a retrofit's, by default the band that moves its loss account by
+ *   the sensitivity's points) runs the scenario's heat-loss account again at that temperature
+ *   (lib/plant/performance.ts `netEfficiencyAtStack`: sensible losses and condensation, not a
+ *   linear shift) and gives its η₀;
  * - operating hours go through `plantDuty` again (annual heat, or the average load and with it
  *   the radiation share, whichever the plant states);
  * - capex scales per scenario.
@@ -21,11 +25,11 @@
  * stated correlations imposed by Iman–Conover. Probabilities carry the standard error of N
  * independent draws, √(p(1−p)/N); an LHS estimate is at least as precise.
  */
-import { operatingPointOf, type Plant } from "../schemas/plant";
+import { condensingStackFloorC, operatingPointOf, type Plant } from "../schemas/plant";
 import { OPERATING_HOURS_DEFAULT_PERCENT, type RankingMetric, type Scenario, type Study, type UncertaintyRange } from "../schemas/study";
 import { plantDuty, radiationLoss_kW, type PlantDuty } from "../plant/duty";
 import type { FuelContext } from "../plant/fuel-context";
-import type { FuelPerformance } from "../plant/performance";
+import { balanceAtStack, netEfficiencyAtStack, type FuelPerformance } from "../plant/performance";
 import { InputError } from "../errors";
 import { RANKING_METRIC_INFO } from "../economics/sensitivity";
 import { distributionOf, type Distribution, type DistributionSpec } from "../economics/distributions";
@@ -66,6 +70,9 @@ interface ScenarioSetup {
   eta0: number;
   radiation_kW: number;
   path: PathScenario | null;
+  /** The fuel in the plant at the scenario's operating point (what a drawn stack temperature re-runs). */
+  ctx: FuelContext;
+  perf: FuelPerformance;
 }
 
 export interface StudyPathSetup {
@@ -106,7 +113,7 @@ export function studyPathSetup(study: Study, caches: EvaluationCaches = createEv
     if (Math.abs(check - r.efficiency.net) > 1e-12 * Math.max(1, r.efficiency.net)) {
       throw new Error(`efficiency of ${field} does not follow η₀·U/(U+Q): ${check} vs ${r.efficiency.net}`);
     }
-    return { result: r, scenario: sc, field, eta0, radiation_kW: q, path: pp.scenarios[k] };
+    return { result: r, scenario: sc, field, eta0, radiation_kW: q, path: pp.scenarios[k], ctx, perf };
   });
   return {
     evaluation,
@@ -147,13 +154,13 @@ export function pathEconomics(setup: StudyPathSetup): { terms: string; discountR
 // ---------------------------------------------------------------------------------------------
 // Uncertain inputs
 
-export type InputKind = "price" | "carbon" | "capex" | "efficiency" | "hours";
+export type InputKind = "price" | "carbon" | "capex" | "efficiency" | "stack" | "hours";
 
 export interface UncertainInput {
   key: string;
   label: string;
   kind: InputKind;
-  unit: "%" | "points";
+  unit: "%" | "points" | "K";
   spec: DistributionSpec;
   /** Where the range comes from. */
   origin: string;
@@ -164,6 +171,46 @@ const specOf = (r: UncertaintyRange): DistributionSpec =>
     ? { distribution: "normal", mean: r.mean, sd: r.sd }
     : { distribution: r.distribution, low: r.low, mode: r.mode, high: r.high };
 const symmetric = (w: number): DistributionSpec => ({ distribution: "triangular", low: -w, mode: 0, high: w });
+
+/**
+ * Points of net efficiency (before radiation) per K of stack temperature at the scenario's stack,
+ * from the loss account itself (a central difference of ± 1 K; one-sided at a condensing floor).
+ */
+export function efficiencyPointsPerK(s: Pick<ScenarioSetup, "ctx" | "perf">): number {
+  const T = s.perf.operatingPoint.stackTemperatureC;
+  const at = (t: number) => balanceAtStack(s.ctx, s.perf, t).net.efficiency;
+  let lo = T - 1;
+  try {
+    at(lo);
+  } catch (e) {
+    if (!(e instanceof InputError)) throw e;
+    lo = T;
+  }
+  return (100 * (at(T + 1) - at(lo))) / (T + 1 - lo);
+}
+
+/**
+ * The stack-temperature input of a scenario: a range stated for it by name, else (when its
+ * operating changes state a stack temperature, i.e. a retrofit) the stated default, else the band
+ * that moves its loss account by the sensitivity's ± points at the stated temperature. null: none.
+ */
+function stackInput(s: ScenarioSetup, u: Study["uncertainty"], efficiencyPoints: number): UncertainInput | null {
+  const name = s.scenario.name;
+  const own = Object.entries(u?.stackTemperatureByScenario ?? {}).find(([k]) => k.toLowerCase() === name.toLowerCase())?.[1];
+  const base = { key: `stack:${name}`, label: `stack temperature of ${name}`, kind: "stack" as const, unit: "K" as const };
+  const T = s.perf.operatingPoint.stackTemperatureC;
+  if (own) return { ...base, spec: specOf(own), origin: `stated for this scenario (from ${T} °C)` };
+  if (s.scenario.overrides.stackTemperatureC === undefined || s.scenario.overrides.stackTemperatureC === null) return null;
+  if (u?.stackTemperatureK) return { ...base, spec: specOf(u.stackTemperatureK), origin: `stated (from ${T} °C)` };
+  const slope = Math.abs(efficiencyPointsPerK(s));
+  if (!(slope > 1e-6) || !(efficiencyPoints > 0)) return null;
+  const w = efficiencyPoints / slope;
+  return {
+    ...base,
+    spec: symmetric(w),
+    origin: `± ${w.toFixed(1)} K from ${T} °C: the band that moves the loss account by ± ${efficiencyPoints} points (sensitivity range, ${slope.toFixed(3)} points per K there), triangular`,
+  };
+}
 
 /** The uncertain inputs of a study: stated ranges, else the defaults from its sensitivity ranges. */
 export function uncertainInputs(study: Study, setup: StudyPathSetup): UncertainInput[] {
@@ -214,8 +261,20 @@ export function uncertainInputs(study: Study, setup: StudyPathSetup): UncertainI
       });
     }
   }
+  for (const key of Object.keys(u?.stackTemperatureByScenario ?? {})) {
+    if (!names.has(key.toLowerCase())) throw new InputError(`uncertainty.stackTemperatureByScenario.${key}`, "no scenario has this name");
+  }
+  const stacks = new Set<ScenarioSetup>();
+  for (const s of setup.scenarios) {
+    const stack = stackInput(s, u, sens.efficiencyPoints);
+    if (!stack) continue;
+    stacks.add(s);
+    inputs.push(stack);
+  }
   for (const s of setup.scenarios) {
     const own = Object.entries(u?.efficiencyByScenario ?? {}).find(([k]) => k.toLowerCase() === s.scenario.name.toLowerCase())?.[1];
+    // A drawn stack temperature carries the efficiency uncertainty of its scenario; only a range stated for it is added.
+    if (stacks.has(s) && !own) continue;
     inputs.push({
       key: `efficiency:${s.scenario.name}`,
       label: `efficiency change of ${s.scenario.name}`,
@@ -351,6 +410,16 @@ function percentiles(v: Float64Array): Percentiles | null {
 /** How many options get a cumulative distribution: those ranking first most often. */
 export const CDF_OPTIONS = 5;
 
+/** Where a run stands: after the set-up (`done` 0), then every `UNCERTAINTY_CHUNK_DRAWS` draws. */
+export interface UncertaintyProgress {
+  phase: "setup" | "draws";
+  done: number;
+  total: number;
+}
+
+/** Draws between two progress reports of `uncertaintyRankingSteps`. */
+export const UNCERTAINTY_CHUNK_DRAWS = 500;
+
 /**
  * Monte Carlo ranking of a study under uncertainty: every scenario's metric per draw with the
  * plant model's efficiencies, the chance of ranking first, percentiles, the chance of a positive
@@ -358,6 +427,23 @@ export const CDF_OPTIONS = 5;
  * give the same result (apart from the measured times `elapsedMs` and `timingsMs`).
  */
 export function uncertaintyRanking(study: Study, options: UncertaintyOptions): UncertaintyResult {
+  const steps = uncertaintyRankingSteps(study, options);
+  for (;;) {
+    const s = steps.next();
+    if (s.done) return s.value;
+  }
+}
+
+/**
+ * The same ranking in steps: the generator yields its progress after the set-up and after every
+ * `UNCERTAINTY_CHUNK_DRAWS` draws, so that a caller can run it in slices (a server keeps
+ * answering, shows progress, and may stop it between two slices). Same figures as
+ * `uncertaintyRanking`, which drains it.
+ */
+export function* uncertaintyRankingSteps(
+  study: Study,
+  options: UncertaintyOptions,
+): Generator<UncertaintyProgress, UncertaintyResult, void> {
   const t0 = performance.now();
   const draws = options.draws;
   if (!Number.isInteger(draws) || draws < 10 || draws > MAX_DRAWS)
@@ -368,6 +454,7 @@ export function uncertaintyRanking(study: Study, options: UncertaintyOptions): U
   const info = RANKING_METRIC_INFO[metric];
   const setup = studyPathSetup(study, options.caches);
   const tSetup = performance.now();
+  yield { phase: "setup", done: 0, total: draws };
   const notes = [...setup.notes];
   const inputs = uncertainInputs(study, setup);
   const dists: Distribution[] = inputs.map((inp) => {
@@ -454,7 +541,19 @@ export function uncertaintyRanking(study: Study, options: UncertaintyOptions): U
   const carbonCol = col("carbon")!;
   const hoursCol = col("hours");
   const capexCols = setup.scenarios.map((s) => col(`capex:${s.scenario.name}`));
-  const effCols = setup.scenarios.map((s) => col(`efficiency:${s.scenario.name}`)!);
+  const effCols = setup.scenarios.map((s) => col(`efficiency:${s.scenario.name}`));
+  const stackCols = setup.scenarios.map((s) => col(`stack:${s.scenario.name}`));
+  // A drawn stack temperature runs the scenario's loss account again (balanceAtStack); the stated
+  // temperature must give the plant model's own η₀ (the same account), else the set-up is wrong.
+  setup.scenarios.forEach((sc, s) => {
+    if (!stackCols[s]) return;
+    const again = netEfficiencyAtStack(sc.ctx, sc.perf, sc.perf.operatingPoint.stackTemperatureC);
+    if (again !== sc.eta0) throw new Error(`loss account of ${sc.field} at its stated stack gives ${again}, the plant model ${sc.eta0}`);
+  });
+  const stackFloorC = setup.scenarios.map((sc) => {
+    const op = sc.perf.operatingPoint;
+    return op.condensing && op.returnWaterC !== null ? condensingStackFloorC(op.returnWaterC, op.condensingApproachK) : -Infinity;
+  });
   const levels = new Float64Array(setup.sources.length);
   const cost = setup.scenarios.map(() => new Float64Array(draws));
   const npv = setup.scenarios.map(() => new Float64Array(draws));
@@ -462,7 +561,8 @@ export function uncertaintyRanking(study: Study, options: UncertaintyOptions): U
   const co2 = setup.scenarios.map(() => new Float64Array(draws));
   let clippedPrices = 0,
     clippedEff = 0,
-    clippedHours = 0;
+    clippedHours = 0,
+    clippedStack = 0;
   const plant = study.plant;
   const basePlantDuty = setup.duty;
   const hoursDuty = (factor: number, draw: number): PlantDuty => {
@@ -517,7 +617,19 @@ export function uncertaintyRanking(study: Study, options: UncertaintyOptions): U
     const H = duty.annualUseful_MWh;
     for (let s = 0; s < S; s++) {
       const sc = setup.scenarios[s];
-      let eta = ((sc.eta0 + effCols[s][i] / 100) * Uk) / (Uk + sc.radiation_kW);
+      let eta0 = sc.eta0;
+      const sk = stackCols[s];
+      if (sk) {
+        let T = sc.perf.operatingPoint.stackTemperatureC + sk[i];
+        const floor = Math.max(stackFloorC[s], sc.perf.operatingPoint.combustionAirC);
+        if (T < floor) {
+          T = floor;
+          clippedStack++;
+        }
+        eta0 = netEfficiencyAtStack(sc.ctx, sc.perf, T);
+      }
+      const ec = effCols[s];
+      let eta = ((ec ? eta0 + ec[i] / 100 : eta0) * Uk) / (Uk + sc.radiation_kW);
       if (eta < 0.05) {
         eta = 0.05;
         clippedEff++;
@@ -554,10 +666,15 @@ export function uncertaintyRanking(study: Study, options: UncertaintyOptions): U
       const a = abatementOf(b, st, f);
       abate[s][i] = a === null ? NaN : a;
     }
+    if ((i + 1) % UNCERTAINTY_CHUNK_DRAWS === 0 && i + 1 < draws) yield { phase: "draws", done: i + 1, total: draws };
   }
   if (clippedPrices)
     notes.push(`${clippedPrices} sampled price, carbon or capex values below zero were set to zero (a normal range reaching below −100 %)`);
   if (clippedEff) notes.push(`${clippedEff} sampled efficiencies below 5 % were set to 5 %`);
+  if (clippedStack)
+    notes.push(
+      `${clippedStack} sampled stack temperatures below the combustion air or a condensing unit's floor (return water + approach) were set to that floor`,
+    );
   if (clippedHours) notes.push(`${clippedHours} sampled operating hours below 1 % of the stated hours were set to 1 %`);
 
   const tDraws = performance.now();
@@ -671,6 +788,7 @@ export function uncertaintyRanking(study: Study, options: UncertaintyOptions): U
       for (const sc of involved) {
         relevant.add(`capex:${sc.scenario.name}`);
         relevant.add(`efficiency:${sc.scenario.name}`);
+        relevant.add(`stack:${sc.scenario.name}`);
         for (const p of sc.path?.priceParts ?? []) relevant.add(`price:${setup.sources[p.source].key}`);
       }
       inputs.forEach((inp, j) => {

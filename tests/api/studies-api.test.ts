@@ -121,7 +121,14 @@ describe("studies API", () => {
     const json = await (await routes.exporter.GET(req(`/api/studies/${id}/export?format=json`), ctx(id))).json();
     expect(json.format).toBe("stoke-study-results");
     expect(studySchema.safeParse(json.study).success).toBe(true);
-    expect(json.results.hydrogenSweep.available).toBe(true);
+    // This study names no hydrogen: the file has no sweep, and asking for the sweep table names the field.
+    expect(json.results.hydrogenSweep).toBeNull();
+    const noSweep = await routes.exporter.GET(req(`/api/studies/${id}/export?format=csv&table=sweep`), ctx(id));
+    expect(noSweep.status).toBe(400);
+    expect(Object.keys((await noSweep.json()).fieldErrors)).toEqual(["hydrogenFuelId"]);
+    const demoJson = await (await routes.exporter.GET(req(`/api/studies/${demoStudyId}/export?format=json`), ctx(demoStudyId))).json();
+    expect(demoJson.results.hydrogenSweep.available).toBe(true);
+    expect(demoJson.study.hydrogenSweep.hydrogen.name).toBe("Hydrogen");
     expect((await routes.exporter.GET(req(`/api/studies/${id}/export?format=xml`), ctx(id))).status).toBe(400);
     expect((await routes.exporter.GET(req(`/api/studies/99999/export`), ctx(99999))).status).toBe(404);
   });

@@ -49,6 +49,7 @@ async function createStudyThroughApi(): Promise<number> {
     discountRatePercent: 8,
     horizonYears: 15,
     priceEscalationPercent: 0,
+    hydrogenFuelId: fuel("Hydrogen"),
     baseline: { name: "Pipeline natural gas (today)", fuelId: fuel("Pipeline natural gas") },
     scenarios: [
       { name: "Natural gas + 10 % H2", fuelId: fuel("Natural gas + 10 % H2"), capex: 60000 },
@@ -81,6 +82,8 @@ describe("decision pages in the browser", () => {
     // The baseline starts as the plant's present fuel.
     const baseline = page.getByTestId("baseline-card");
     expect(await baseline.getByLabel("Fuel or blend").locator("option:checked").textContent()).toContain("Pipeline natural gas");
+    // A new study is offered the library's pure hydrogen for its sweep.
+    expect(await page.locator("#f-hydrogenFuelId option:checked").textContent()).toBe("Hydrogen");
 
     await page.getByTestId("scenario-card-0").getByLabel("Fuel or blend").selectOption({ label: "Natural gas + 10 % H2 (blend)" });
     await page

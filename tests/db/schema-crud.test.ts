@@ -344,4 +344,48 @@ describe("schema matches the migrations", () => {
     expect(await db.apiToken.count()).toBe(0);
     expect(await db.changeLog.count()).toBe(1);
   });
+
+  it("Study.hydrogenFuelId, UncertaintyRun", async () => {
+    const h2 = await db.fuel.create({ data: { name: "H2 crud", kind: "gas", definition: '{"composition":{"H2":1}}' } });
+    const plant = await db.plant.create({
+      data: {
+        name: "P3",
+        equipmentType: "steam-boiler",
+        ratedInput_kW: 1000,
+        operatingHours: 8000,
+        averageLoadFraction: 0.6,
+        stackTemperatureC: 150,
+        flueO2DryPercent: 3,
+        combustionAirC: 20,
+        radiationLossPercent: 1,
+      },
+    });
+    const study = await db.study.create({
+      data: {
+        plantId: plant.id,
+        name: "S3",
+        currency: "EUR",
+        discountRatePercent: 8,
+        horizonYears: 15,
+        rankingMetric: "npv",
+        hydrogenFuelId: h2.id,
+      },
+    });
+    expect((await db.study.findUniqueOrThrow({ where: { id: study.id } })).hydrogenFuelId).toBe(h2.id);
+    // A fuel a study names as its hydrogen cannot be deleted (Restrict).
+    await expect(db.fuel.delete({ where: { id: h2.id } })).rejects.toThrow();
+    const run = await db.uncertaintyRun.create({ data: { studyId: study.id, inputsHash: "ab", settings: '{"draws":100}', results: "{}" } });
+    expect(await db.uncertaintyRun.findUniqueOrThrow({ where: { id: run.id } })).toMatchObject({
+      studyId: study.id,
+      inputsHash: "ab",
+      settings: '{"draws":100}',
+      results: "{}",
+    });
+    expect((await db.uncertaintyRun.findUniqueOrThrow({ where: { id: run.id } })).createdAt).toBeInstanceOf(Date);
+    // Deleting the study deletes its stored runs (Cascade); then the fuel is free.
+    await db.study.delete({ where: { id: study.id } });
+    expect(await db.uncertaintyRun.count()).toBe(0);
+    await db.fuel.delete({ where: { id: h2.id } });
+    await db.plant.delete({ where: { id: plant.id } });
+  });
 });

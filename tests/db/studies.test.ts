@@ -167,9 +167,9 @@ describe("studies", () => {
     expect((await listStudies(t.client, { plantId })).map((s) => s.name)).toContain("Three options (copy 2)");
   });
 
-  it("the seeded demo studies evaluate, with the hydrogen sweep priced from the library's hydrogen", async () => {
+  it("the seeded demo studies evaluate, with the hydrogen sweep priced from the study's hydrogen", async () => {
     for (const s of await listStudies(t.client)) {
-      const ev = await evaluateStoredStudy(t.client, s.id, { sweep: true });
+      const ev = await evaluateStoredStudy(t.client, s.id, { sweep: "if-chosen" });
       expect(ev.ok, s.name).toBe(true);
     }
     const demo = (await listStudies(t.client)).find((s) => s.name === "Hydrogen blending and biomethane")!;

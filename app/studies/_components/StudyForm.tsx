@@ -154,6 +154,8 @@ export function StudyForm({
     preparedBy: initial?.preparedBy ?? "",
     reportDate: initial?.reportDate ?? "",
     reportNotes: initial?.reportNotes ?? "",
+    // A new study is offered the library's pure hydrogen; a stored one keeps its choice (none included).
+    hydrogenFuelId: s(initial ? (initial.hydrogenFuelId ?? "") : (options.defaultHydrogenFuelId ?? "")),
   });
   const headNumber = (k: keyof typeof head) => numberOf({ text: head[k], initial: hi[k], isNull: false });
   const baselineFuelName = (id: number | null | undefined) => options.fuels.find((f) => f.id === id)?.name ?? "";
@@ -272,6 +274,7 @@ export function StudyForm({
       preparedBy: head.preparedBy,
       reportDate: head.reportDate.trim() === "" ? null : head.reportDate.trim(),
       reportNotes: head.reportNotes,
+      hydrogenFuelId: head.hydrogenFuelId === "" ? null : Number(head.hydrogenFuelId),
       baseline: scenarioBody(baseline, true),
       scenarios: scenarios.map((x) => scenarioBody(x, false)),
     };
@@ -613,6 +616,21 @@ export function StudyForm({
             <select id="f-includeUpstream" value={head.includeUpstream} onChange={setH("includeUpstream")}>
               <option value="no">reported, not counted</option>
               <option value="yes">counted and priced</option>
+            </select>
+          </Field>
+          <Field
+            label={label("hydrogenFuelId")}
+            name="hydrogenFuelId"
+            errors={errors}
+            hint="the stored gas the hydrogen sweep blends into the baseline gas (priced by its latest quote in the study's currency)"
+          >
+            <select id="f-hydrogenFuelId" value={head.hydrogenFuelId} onChange={setH("hydrogenFuelId")}>
+              <option value="">none: no hydrogen sweep</option>
+              {options.hydrogenFuels.map((f) => (
+                <option key={f.id} value={String(f.id)}>
+                  {f.name}
+                </option>
+              ))}
             </select>
           </Field>
         </div>

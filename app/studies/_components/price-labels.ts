@@ -28,7 +28,9 @@ export function labelledPriceSource(p: PriceSource): PriceSource & { label: stri
 /** Where the hydrogen sweep's hydrogen price comes from. */
 export function hydrogenPriceLabel(h: HydrogenMeta): string {
   if (h.price.kind === "none")
-    return h.fuelName ? `${h.fuelName} has no quote in ${h.price.currency}` : "no pure hydrogen in the fuel library";
+    return h.fuelName
+      ? `${h.fuelName} has no quote in ${h.price.currency}`
+      : "no hydrogen chosen for the study (its settings: hydrogen for the sweep)";
   return `${h.fuelName ?? "hydrogen"}: ${priceSourceLabel(h.price)}`;
 }
 

@@ -2,7 +2,13 @@ import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { studySchema, type StudyInput } from "../../../lib/schemas/study";
 import { evaluateStudy } from "../../../lib/study/evaluate";
-import { pathEconomics, studyPathSetup, uncertaintyCsvRows, uncertaintyRanking } from "../../../lib/study/uncertainty";
+import {
+  pathEconomics,
+  studyPathSetup,
+  uncertaintyCsvRows,
+  uncertaintyRanking,
+  uncertaintyRankingSteps,
+} from "../../../lib/study/uncertainty";
 import { normalCdf } from "../../../lib/economics/random";
 import { InputError } from "../../../lib/errors";
 import { twentyScenarioStudy } from "../../bench/study.bench";
@@ -82,6 +88,20 @@ describe("Monte Carlo ranking against closed forms", () => {
     const c = uncertaintyRanking(study, { draws: 400, seed: 100 });
     expect(strip(b)).toEqual(strip(a));
     expect(c.scenarios.map((s) => s.metric?.p50)).not.toEqual(a.scenarios.map((s) => s.metric?.p50));
+  });
+
+  it("run in steps, it reports the set-up and every 500 draws, and ends with the figures of the run at once", () => {
+    const study = studySchema.parse(twentyScenarioStudy());
+    const strip = (x: ReturnType<typeof uncertaintyRanking>) => ({ ...x, elapsedMs: 0, timingsMs: null });
+    const steps = uncertaintyRankingSteps(study, { draws: 1_200, seed: 99 });
+    const seen: string[] = [];
+    let s = steps.next();
+    while (!s.done) {
+      seen.push(`${s.value.phase} ${s.value.done}/${s.value.total}`);
+      s = steps.next();
+    }
+    expect(seen).toEqual(["setup 0/1200", "draws 500/1200", "draws 1000/1200"]);
+    expect(strip(s.value)).toEqual(strip(uncertaintyRanking(study, { draws: 1_200, seed: 99 })));
   });
 });
 

@@ -3,6 +3,8 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/lib/db/client";
 import { studyReportData } from "@/lib/services/revisions";
+import { reportUncertainty } from "@/lib/services/uncertainty-runs";
+import { PathsSection, UncertaintySection } from "./UncertaintySection";
 import { studyName } from "@/lib/services/lookups";
 import { fmt, fmtUpTo, money } from "../../../_ui/format";
 import { CostStackChart, Co2Chart, CostCo2Scatter } from "../../../_charts/ScenarioCharts";
@@ -121,7 +123,7 @@ export default async function ReportPage({ params, searchParams }: Props) {
   const orientation = sp.orient === "landscape" ? "landscape" : "portrait";
   const revision = typeof sp.revision === "string" && /^[1-9]\d{0,8}$/.test(sp.revision) ? Number(sp.revision) : undefined;
   const [ev, units] = await Promise.all([
-    studyReportData(db(), id, { revision, metric: view.metric, includeUpstream: view.includeUpstream, sweep: true, tornado: false }),
+    studyReportData(db(), id, { revision, metric: view.metric, includeUpstream: view.includeUpstream, sweep: "if-chosen", tornado: false }),
     displayUnits(),
   ]);
   if (!ev.ok) {
@@ -129,6 +131,7 @@ export default async function ReportPage({ params, searchParams }: Props) {
     return <EvaluationProblem id={id} message={ev.message} fieldErrors={ev.fieldErrors} />;
   }
   const { result, bundle } = ev;
+  const extras = await reportUncertainty(db(), id, { study: bundle.study, result, revisionHash: bundle.meta.revision?.hash ?? null });
   const d = makeDisplay(units, result.study.currency);
   const metric = result.ranking.metric;
   const list = ranked(result, bundle);
@@ -443,6 +446,9 @@ export default async function ReportPage({ params, searchParams }: Props) {
           <RankTable list={list} result={result} d={d} metric={metric} links={false} part="technical" />
           <RankTableNotes result={result} d={d} />
         </section>
+
+        <PathsSection paths={extras.paths} currency={d.currency} />
+        <UncertaintySection run={extras.run} revision={bundle.meta.revision?.number ?? null} />
 
         <section>
           <h2>Charts</h2>

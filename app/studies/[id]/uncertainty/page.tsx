@@ -2,7 +2,9 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/lib/db/client";
-import { uncertaintyOfStoredStudy } from "@/lib/services/uncertainty";
+import { studyBundle } from "@/lib/services/studies";
+import { getUncertaintyRun, runForReport } from "@/lib/services/uncertainty-runs";
+import { RunControl } from "./RunControl";
 import { OPERATING_HOURS_DEFAULT_PERCENT } from "@/lib/schemas/study";
 import { RANGES, uncertaintyParams } from "./params";
 import type { Percentiles } from "@/lib/study/uncertainty";
@@ -10,7 +12,7 @@ import { fmt, money } from "../../../_ui/format";
 import { CdfChart, FirstChanceChart, IntervalChart } from "../../../_charts/UncertaintyCharts";
 import { Status } from "../../_components/Checks";
 import { EvaluationProblem } from "../../_components/EvaluationProblem";
-import { METRIC_SHORT, RANKING_METRICS, viewChoice, viewQuery, type SearchParams } from "../../_components/settings";
+import { intParam, METRIC_SHORT, RANKING_METRICS, viewChoice, viewQuery, type SearchParams } from "../../_components/settings";
 
 export const dynamic = "force-dynamic";
 export const metadata: Metadata = { title: "How sure is the ranking?" };
@@ -28,52 +30,22 @@ export default async function UncertaintyPage({ params, searchParams }: Props) {
   const view = viewChoice(sp);
   const { request, ranges, shape, rho, ignored } = uncertaintyParams(sp);
   const { draws, seed } = request;
-  const ans = await uncertaintyOfStoredStudy(db(), id, request);
-  if (!ans.ok) {
-    if (ans.kind === "not-found") notFound();
-    return <EvaluationProblem id={id} message={ans.message} fieldErrors={ans.fieldErrors} />;
+  const runAsked = intParam(sp, "run");
+  const [loaded, stored] = await Promise.all([
+    studyBundle(db(), id),
+    runAsked !== null && runAsked > 0 ? getUncertaintyRun(db(), id, runAsked) : runForReport(db(), id),
+  ]);
+  if (!loaded.ok) {
+    if (loaded.kind === "not-found") notFound();
+    return <EvaluationProblem id={id} message={loaded.message} fieldErrors={loaded.fieldErrors} />;
   }
-  const r = ans.result;
-  const study = ans.bundle.study;
-  const sens = study.sensitivity;
-  const cur = r.currency;
-  const num = (v: number) => fmt(v, Math.abs(v) >= 1000 ? 0 : 2);
-  const metricNum = r.metric === "npv" ? (v: number) => money(v, cur, 0) : num;
-  const pct = (p: number) => fmt(100 * p, 1);
-  const byFirst = [...r.scenarios].sort((a, b) => b.pFirst - a.pFirst || a.index - b.index);
-  const withMetric = byFirst.filter((s) => s.metric);
-  const cdf = byFirst.filter((s) => s.cdf).map((s) => ({ label: s.name, values: s.cdf! }));
-  const keep = (extra: Record<string, string | number | undefined>) =>
-    viewQuery(view, { draws, seed, shape, ...Object.fromEntries(RANGES.map((x) => [x.q, ranges[x.key]])), rho, ...extra });
-
-  return (
+  const run = stored === null ? null : "ok" in stored ? (stored.ok ? stored.value : null) : stored;
+  const sens = loaded.bundle.study.sensitivity;
+  const formId = "uncertainty-form";
+  const form = (
     <>
-      <h2 style={{ marginTop: 0, border: 0 }}>How sure is the ranking?</h2>
-      <p className="lede">
-        Every uncertain input is drawn from its range at once, {r.draws.toLocaleString("en-GB")} times; each draw ranks the options again
-        through the plant model&apos;s efficiencies and the price paths. The bars say how often each option comes out first.
-      </p>
-      <p className="note warn" role="note">
-        {r.caution}
-      </p>
-      <div className="choice-bar">
-        <span>
-          <span className="choice-label">Metric</span>
-          <span className="segmented" role="group" aria-label="Metric">
-            {RANKING_METRICS.map((m) => (
-              <Link
-                key={m}
-                href={`/studies/${id}/uncertainty${viewQuery({ ...view, metric: m }, { draws, seed, shape, rho, ...Object.fromEntries(RANGES.map((x) => [x.q, ranges[x.key]])) })}`}
-                aria-current={m === r.metric ? "true" : undefined}
-                scroll={false}
-              >
-                {METRIC_SHORT[m]}
-              </Link>
-            ))}
-          </span>
-        </span>
-      </div>
       <form
+        id={formId}
         method="get"
         className="row no-print"
         style={{ alignItems: "flex-end", marginBottom: "0.75rem", flexWrap: "wrap" }}
@@ -84,7 +56,14 @@ export default async function UncertaintyPage({ params, searchParams }: Props) {
         {RANGES.map((x) => (
           <div className="field" key={x.q} style={{ flex: "0 1 140px" }}>
             <label htmlFor={`u-${x.q}`}>{x.label}</label>
-            <input id={`u-${x.q}`} name={x.q} className="num" inputMode="decimal" defaultValue={String(ranges[x.key] ?? x.def(sens))} />
+            <input
+              id={`u-${x.q}`}
+              name={x.q}
+              className="num"
+              inputMode="decimal"
+              defaultValue={String(ranges[x.key] ?? x.def(sens) ?? "")}
+              placeholder={x.q === "sk" ? "from ± points" : undefined}
+            />
           </div>
         ))}
         <div className="field" style={{ flex: "0 1 140px" }}>
@@ -107,17 +86,107 @@ export default async function UncertaintyPage({ params, searchParams }: Props) {
           <label htmlFor="u-seed">Seed</label>
           <input id="u-seed" name="seed" className="num" inputMode="numeric" defaultValue={String(seed)} />
         </div>
-        <button type="submit" className="secondary">
-          Run
-        </button>
+        <RunControl studyId={id} formId={formId} />
       </form>
       {ignored.length > 0 && <p className="note warn">Out of range and ignored: {ignored.map((x) => x.label).join(", ")}.</p>}
       <p className="basis">
         Ranges are changes from the study&apos;s values; without an entry they come from the study&apos;s sensitivity ranges (fuel ±{" "}
         {sens.fuelPricePercent} %, carbon ± {sens.carbonPricePercent} %, capex ± {sens.capexPercent} %, efficiency ± {sens.efficiencyPoints}{" "}
-        points) and ± {OPERATING_HOURS_DEFAULT_PERCENT} % on operating hours. Each scenario&apos;s capex and efficiency vary independently;
-        a quote used by several options (e.g. natural gas in its blends) is one price. Finished in {fmt(r.elapsedMs / 1000, 2)} s.
+        points) and ± {OPERATING_HOURS_DEFAULT_PERCENT} % on operating hours. A scenario whose operating changes state a stack temperature
+        (a retrofit) has that temperature drawn instead of its efficiency points, and each draw runs its heat-loss balance again; without an
+        entry its band is the one that moves the balance by ± {sens.efficiencyPoints} points. Each scenario&apos;s capex, efficiency and
+        stack vary independently; a quote used by several options (e.g. natural gas in its blends) is one price. A run is computed on the
+        server in slices while the page stays usable, and stored with the study.
       </p>
+    </>
+  );
+  const head = (
+    <>
+      <h2 style={{ marginTop: 0, border: 0 }}>How sure is the ranking?</h2>
+      <p className="lede">
+        Every uncertain input is drawn from its range at once, thousands of times; each draw ranks the options again through the plant
+        model&apos;s efficiencies and the price paths. The bars say how often each option comes out first.
+      </p>
+    </>
+  );
+  if (!run) {
+    return (
+      <>
+        {head}
+        {form}
+        <p className="note" data-testid="no-run">
+          {runAsked !== null
+            ? `This study has no stored run ${runAsked}.`
+            : "No stored run yet: state the ranges and press “Run and store”."}
+        </p>
+      </>
+    );
+  }
+  const r = run.result;
+  const study = loaded.bundle.study;
+  const cur = r.currency;
+  const num = (v: number) => fmt(v, Math.abs(v) >= 1000 ? 0 : 2);
+  const metricNum = r.metric === "npv" ? (v: number) => money(v, cur, 0) : num;
+  const pct = (p: number) => fmt(100 * p, 1);
+  const byFirst = [...r.scenarios].sort((a, b) => b.pFirst - a.pFirst || a.index - b.index);
+  const withMetric = byFirst.filter((s) => s.metric);
+  const cdf = byFirst.filter((s) => s.cdf).map((s) => ({ label: s.name, values: s.cdf! }));
+  const st = run.settings;
+  const keep = (extra: Record<string, string | number | undefined>) =>
+    viewQuery(
+      { metric: st.metric, includeUpstream: st.includeUpstream },
+      {
+        draws: st.draws,
+        seed: st.seed,
+        shape: st.shape,
+        ...Object.fromEntries(RANGES.map((x) => [x.q, st.ranges[x.key]])),
+        rho: st.fuelPriceCorrelation ?? undefined,
+        ...extra,
+      },
+    );
+
+  return (
+    <>
+      {head}
+      <p className="note warn" role="note">
+        {r.caution}
+      </p>
+      <div className="choice-bar">
+        <span>
+          <span className="choice-label">Metric of the next run</span>
+          <span className="segmented" role="group" aria-label="Metric">
+            {RANKING_METRICS.map((m) => (
+              <Link
+                key={m}
+                href={`/studies/${id}/uncertainty${viewQuery({ ...view, metric: m }, { draws, seed, shape, rho, ...Object.fromEntries(RANGES.map((x) => [x.q, ranges[x.key]])) })}`}
+                aria-current={m === (view.metric ?? r.metric) ? "true" : undefined}
+                scroll={false}
+              >
+                {METRIC_SHORT[m]}
+              </Link>
+            ))}
+          </span>
+        </span>
+      </div>
+      {form}
+      <section className={`panel${run.stale ? " warn" : ""}`} data-testid="stored-run">
+        <strong>
+          Stored run #{run.id} of {run.createdAt.slice(0, 16).replace("T", " ")} UTC
+        </strong>
+        : {r.draws.toLocaleString("en-GB")} draws, seed {r.seed}, {METRIC_SHORT[r.metric].toLowerCase()}, {st.shape} ranges
+        {st.fuelPriceCorrelation ? `, fuel prices correlated ${st.fuelPriceCorrelation}` : ""}; computed in {fmt(r.elapsedMs / 1000, 2)} s.{" "}
+        {run.revisions.length > 0 && <>Ran on the inputs of revision {run.revisions.join(", ")}. </>}
+        {run.stale ? (
+          <span data-testid="stale-run">
+            <strong>Stale:</strong> the study&apos;s inputs changed since this run (they are not the ones it evaluated); run it again for
+            current figures.
+          </span>
+        ) : (
+          <span>The study&apos;s inputs are still the ones it evaluated.</span>
+        )}{" "}
+        <Link href={`/api/studies/${id}/uncertainty/runs/${run.id}?format=csv`}>CSV</Link> ·{" "}
+        <Link href={`/studies/${id}/uncertainty${keep({ run: run.id })}`}>its ranges in the form</Link>
+      </section>
 
       <div className="grid2">
         <section className="panel">
@@ -281,8 +350,8 @@ export default async function UncertaintyPage({ params, searchParams }: Props) {
         </table>
       </div>
       <p className="table-note">
-        <Link href={`/studies/${id}/uncertainty${keep({ seed: seed + 1 })}`}>Run again with seed {seed + 1}</Link> to see the sampling
-        scatter.
+        <Link href={`/studies/${id}/uncertainty${keep({ seed: r.seed + 1 })}`}>The same ranges with seed {r.seed + 1}</Link>, run again,
+        show the sampling scatter.
       </p>
     </>
   );

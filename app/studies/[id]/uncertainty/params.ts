@@ -9,6 +9,8 @@ export const RANGES = [
   { q: "xp", key: "capexPercent" as const, label: "Capex ± %", max: 200, def: (s: SensitivityRanges) => s.capexPercent },
   { q: "ep", key: "efficiencyPoints" as const, label: "Efficiency ± points", max: 20, def: (s: SensitivityRanges) => s.efficiencyPoints },
   { q: "hp", key: "operatingHoursPercent" as const, label: "Operating hours ± %", max: 90, def: () => OPERATING_HOURS_DEFAULT_PERCENT },
+  // Empty = per scenario, the band that moves its loss account by the efficiency ± points.
+  { q: "sk", key: "stackTemperatureK" as const, label: "Stack after retrofit ± K", max: 150, def: () => null },
 ] as const;
 export const SHAPES = ["triangular", "pert", "normal"] as const;
 export const DEFAULT_DRAWS = 5_000;

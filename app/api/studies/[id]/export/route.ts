@@ -37,7 +37,8 @@ export const GET = withErrors(async (req: Request, { params }: { params: Promise
   const m = q.get("metric");
   if (m && !(RANKING_METRICS as readonly string[]).includes(m))
     return json({ error: `metric must be one of ${RANKING_METRICS.join(", ")}`, fieldErrors: { metric: "unknown metric" } }, 400);
-  const needSweep = format === "json" || table === "sweep";
+  // The sweep table asks for the sweep (a study without its hydrogen answers 400 naming hydrogenFuelId); the JSON file includes it when the study names its hydrogen.
+  const needSweep = format === "csv" && table === "sweep" ? true : format === "json" ? "if-chosen" : false;
   const ev = await evaluateStoredStudy(db(), id, {
     metric: (m as RankingMetric) ?? undefined,
     includeUpstream: upstreamParam(q.get("upstream")),
