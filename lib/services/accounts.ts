@@ -235,9 +235,22 @@ function noteClientFailure(client: string, now: number): void {
   if (clientFailures.size > 10_000) clientFailures.delete(clientFailures.keys().next().value as string);
 }
 
-/** Forgets the failures of every client (tests). */
+/**
+ * Failures in a row for e-mails without an account, in this process: they are slowed on the same
+ * schedule as accounts, so that a 429 does not tell which e-mails have accounts.
+ */
+const unknownEmails = new Map<string, { failures: number; lockedUntil: number }>();
+
+/** The wait after `failures` failures in a row, s (0 below `FREE_FAILURES`). */
+function waitAfter(failures: number): number {
+  const over = failures - FREE_FAILURES;
+  return over >= 0 ? Math.min(MAX_WAIT_S, FIRST_WAIT_S * 2 ** over) : 0;
+}
+
+/** Forgets the failures of every client and unknown e-mail (tests). */
 export function resetSignInThrottle(): void {
   clientFailures.clear();
+  unknownEmails.clear();
 }
 
 let dummyHash: Promise<string> | undefined;
@@ -267,8 +280,14 @@ export async function signIn(db: Db, raw: unknown, client: string, now: Date = n
   if (recent.length >= CLIENT_FAILURES) return throttled(Math.ceil((recent[0] + CLIENT_WINDOW_MS - t) / 1000), "from this address");
   const account = await findAccountByEmail(db, input.value.email);
   if (!account) {
+    const u = unknownEmails.get(input.value.email) ?? { failures: 0, lockedUntil: 0 };
+    if (u.lockedUntil > t) return throttled(Math.ceil((u.lockedUntil - t) / 1000), "for this account");
     await passwordMatches(await timingDummy(), input.value.password);
     noteClientFailure(client, t);
+    u.failures += 1;
+    u.lockedUntil = t + waitAfter(u.failures) * 1000;
+    unknownEmails.set(input.value.email, u);
+    if (unknownEmails.size > 10_000) unknownEmails.delete(unknownEmails.keys().next().value as string);
     return wrong();
   }
   if (account.lockedUntil && account.lockedUntil.getTime() > t) {
@@ -278,8 +297,7 @@ export async function signIn(db: Db, raw: unknown, client: string, now: Date = n
   if (!matches || account.disabledAt !== null) {
     noteClientFailure(client, t);
     const failures = account.failedSignIns + 1;
-    const over = failures - FREE_FAILURES;
-    const waitS = over >= 0 ? Math.min(MAX_WAIT_S, FIRST_WAIT_S * 2 ** over) : 0;
+    const waitS = waitAfter(failures);
     await updateAccountRow(db, account.id, { failedSignIns: failures, lockedUntil: waitS ? new Date(t + waitS * 1000) : null });
     return wrong();
   }

@@ -4,13 +4,14 @@
  * header, a fuel deleted from its sheet waits in the trash, Restore brings it back, and its History
  * says who did both.
  */
+import { spawnSync } from "node:child_process";
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
 import { openBrowser } from "./browser";
-import { startNextServer, type NextServer } from "../support/next-server";
+import { projectRoot, startNextServer, type NextServer } from "../support/next-server";
 import { migrateSqlite } from "../../lib/db/migrate";
 import { createClient } from "../../lib/db/client";
 import { createAccount } from "../../lib/services/accounts";
@@ -120,5 +121,24 @@ describe("team mode in the browser", () => {
     const changes = page.locator("section.history");
     await changes.getByText("account new.viewer@example.org created").waitFor();
     expect(await changes.textContent()).toMatch(/admin@example\.org/);
+  });
+
+  it("a server in team mode without a session secret of 32 characters refuses to start and says why", () => {
+    const run = spawnSync(path.join(projectRoot, "node_modules", ".bin", "next"), ["start", "-H", "127.0.0.1", "-p", "0"], {
+      cwd: projectRoot,
+      env: {
+        ...process.env,
+        NEXT_TELEMETRY_DISABLED: "1",
+        DATABASE_URL: `file:${path.join(dir, "refused.db")}`,
+        STOKE_MODE: "team",
+        STOKE_SESSION_SECRET: "too short",
+      },
+      encoding: "utf8",
+      timeout: 30_000,
+    });
+    expect(run.status).toBe(1);
+    expect(run.stderr + run.stdout).toMatch(
+      /cannot start in team mode\. Team mode needs STOKE_SESSION_SECRET of at least 32 characters \(it has 9\)/,
+    );
   });
 });

@@ -24,9 +24,14 @@ const SIGN_IN_BODY_LIMIT_BYTES = 4 * 1024;
 
 const personal = () => json({ error: "Personal mode has no sign-in: Stoke answers this machine only.", fieldErrors: {} }, 404);
 
-/** The caller's address for throttling: the first X-Forwarded-For entry (next start sets it; a reverse proxy should too). */
+/**
+ * The caller's address for the per-client throttle: the last X-Forwarded-For entry — the one the
+ * nearest reverse proxy appended, or the socket's address that next start fills in when the header
+ * is absent. A client reaching next start directly could send its own header, so this limit is a
+ * second line only: the per-account (and per-unknown-e-mail) waits do not depend on it.
+ */
 function clientOf(req: Request): string {
-  return (req.headers.get("x-forwarded-for") ?? "").split(",")[0].trim() || "unknown";
+  return (req.headers.get("x-forwarded-for") ?? "").split(",").at(-1)?.trim() || "unknown";
 }
 
 export const POST = withErrors(async (req: Request): Promise<Response> => {
