@@ -20,7 +20,9 @@ beforeAll(async () => {
 });
 afterAll(() => closeSeededApi(api));
 
-const ctx = (extra: Record<string, string> = {}) => ({ params: Promise.resolve({ id: String(studyId), ...extra }) });
+const ctx = <E extends Record<string, string> = Record<never, string>>(extra?: E) => ({
+  params: Promise.resolve({ id: String(studyId), ...(extra ?? ({} as E)) }),
+});
 
 async function jobUntilDone(jobId: string) {
   for (;;) {
