@@ -13,7 +13,7 @@ UPDATE "Study" SET "hydrogenFuelId" = (
     SELECT f."id" FROM "Fuel" f
     WHERE f."kind" = 'gas'
       AND f."definition" LIKE '{%'
-      AND (f."definition"::jsonb -> 'composition') ? 'H2'
+      AND jsonb_typeof(f."definition"::jsonb -> 'composition' -> 'H2') IS NOT NULL
       AND (SELECT count(*) FROM jsonb_object_keys(f."definition"::jsonb -> 'composition')) = 1
     ORDER BY f."id" LIMIT 1
 );
