@@ -64,7 +64,20 @@ const snapshot = (j: JobEntry): UncertaintyJob => {
   return { ...view };
 };
 
-const nextTurn = () => new Promise<void>((resolve) => setImmediate(resolve));
+/**
+ * Pacing of runs, for a shared server that should favour other requests (and for the browser test,
+ * which must see a run in progress on a fast machine): STOKE_UNCERTAINTY_SLICE_MS (longest slice,
+ * default SLICE_MS) and STOKE_UNCERTAINTY_PAUSE_MS (pause between slices, default 0: the next turn
+ * of the event loop).
+ */
+function pacing(env: NodeJS.ProcessEnv = process.env): { sliceMs: number; pauseMs: number } {
+  const num = (v: string | undefined, fallback: number) => {
+    const n = Number(v);
+    return v !== undefined && v.trim() !== "" && Number.isFinite(n) && n >= 0 ? Math.min(n, 10_000) : fallback;
+  };
+  return { sliceMs: num(env.STOKE_UNCERTAINTY_SLICE_MS, SLICE_MS), pauseMs: num(env.STOKE_UNCERTAINTY_PAUSE_MS, 0) };
+}
+const nextTurn = (pauseMs: number) => new Promise<void>((resolve) => (pauseMs > 0 ? setTimeout(resolve, pauseMs) : setImmediate(resolve)));
 
 /**
  * Starts a run of stored study `studyId`: answers at once with the job (or the problem of the
@@ -101,10 +114,11 @@ export async function startUncertaintyRun(db: Db, studyId: number, req: Uncertai
   const { study, options, settings } = prepared.value;
   void (async () => {
     let result: UncertaintyResult | null = null;
+    const { sliceMs, pauseMs } = pacing();
     try {
       const steps = uncertaintyRankingSteps(study, options);
       for (;;) {
-        await nextTurn();
+        await nextTurn(pauseMs);
         if (job.cancelRequested) return finish("cancelled");
         const t0 = performance.now();
         for (;;) {
@@ -115,7 +129,7 @@ export async function startUncertaintyRun(db: Db, studyId: number, req: Uncertai
           }
           job.phase = s.value.phase;
           job.done = s.value.done;
-          if (performance.now() - t0 > SLICE_MS) break;
+          if (performance.now() - t0 > sliceMs) break;
         }
         if (result) break;
       }

@@ -30,7 +30,14 @@ export default async function setup(project: TestProject): Promise<() => Promise
   }
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), "stoke-browser-"));
   const databaseUrl = `file:${path.join(dir, "browser.db")}`;
-  const server = await startNextServer({ DATABASE_URL: databaseUrl, STOKE_SEED: "on" });
+  const server = await startNextServer({
+    DATABASE_URL: databaseUrl,
+    STOKE_SEED: "on",
+    // an uncertainty run paced so that its progress can be seen on a fast machine: one step
+    // (500 draws) per slice, 20 ms between slices
+    STOKE_UNCERTAINTY_SLICE_MS: "0",
+    STOKE_UNCERTAINTY_PAUSE_MS: "20",
+  });
   const baseURL = server.baseURL;
   project.provide("baseURL", baseURL);
   project.provide("databaseUrl", databaseUrl);
