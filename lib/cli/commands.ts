@@ -78,10 +78,21 @@ export const COMMANDS: readonly CommandSpec[] = [
         help: "add the Monte Carlo ranking over N draws (10–100000; Latin hypercube, the study's ranges)",
       },
       { name: "seed", value: "S", help: "seed of the Monte Carlo draws (default 1; the same seed gives the same figures)" },
+      {
+        name: "no-flame-speed",
+        help: "skip the flame solves (burning velocity, flashback, NOx): quick runs; those figures are then unknown (null), never 0",
+      },
+      {
+        name: "flame-cache",
+        value: "FILE",
+        help: "read flame solves from FILE and write the new ones back (JSON; a solve is keyed by its inputs, so each is computed once)",
+      },
     ],
     checkOptions(o) {
       if (o.table !== undefined && o.format !== "csv") throw new UsageError("--table applies to --format csv only");
       if (o.seed !== undefined && o.uncertainty === undefined) throw new UsageError("--seed applies to --uncertainty only");
+      if (o["flame-cache"] !== undefined && o["no-flame-speed"] !== undefined)
+        throw new UsageError("--flame-cache and --no-flame-speed exclude each other");
     },
     examples: [
       "stoke evaluate --input study.json",

@@ -105,6 +105,8 @@ export interface BurnerInputs {
   /** Flame figures of the baseline (for ratios); undefined while unsolved. */
   baselineFlame: FlameFigures | null;
   flames: FlameLookup | undefined;
+  /** Only the untuned air factor and heat input (no flame temperatures, no flame request): sweep points between the flame shares. */
+  light?: boolean;
 }
 
 const gasView = (f: FuelInPlant, plant: Plant): BurnerGas | null =>
@@ -145,6 +147,7 @@ export function burnerFlameRequest(
       setupFlueO2DryPercent: setupO2,
       oxidizer,
       oxidizerTemperatureK: cand.perf.operatingPoint.combustionAirC + T0CK,
+      flameTemperatures: inp.light !== true,
     });
     notes.push(...shift.notes);
   } else {
@@ -158,6 +161,7 @@ export function burnerFlameRequest(
   if (flameLambda < 1) {
     return { req: { unknown: "the untuned air factor is below 1: no lean premixed flame to compare" }, shift, setupLambda, flameLambda, notes };
   }
+  if (inp.light) return { req: { unknown: "no flame solve at this point" }, shift, setupLambda, flameLambda, notes };
   const req = flameRequestFor(cand.ctx.fuel, flameLambda, cand.perf.operatingPoint.combustionAirC + T0CK, oxidizer);
   return { req, shift, setupLambda, flameLambda, notes };
 }

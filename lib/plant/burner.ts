@@ -78,6 +78,8 @@ export interface BurnerShiftInput {
   oxidizerTemperatureK: number;
   fuelTemperatureK?: number;
   pressurePa?: number;
+  /** Compute the adiabatic flame temperatures (default true; sweeps that need only λ and heat input skip them). */
+  flameTemperatures?: boolean;
 }
 
 /** Stoichiometric oxidiser per metered volume: per mole (= per m³, ideal gas) of a gas, per litre of a liquid. */
@@ -90,6 +92,7 @@ function airPerMol(g: BurnerGas, oxidizer: Oxidizer): number {
 }
 
 function flameAt(g: BurnerGas, lambda: number, input: BurnerShiftInput): Pick<BurnerState, "adiabaticFlameTemperatureK" | "flameProblem"> {
+  if (input.flameTemperatures === false) return { adiabaticFlameTemperatureK: null, flameProblem: "not computed" };
   try {
     const r = flameTemperature({
       fuel: g.fuel,
