@@ -7,6 +7,7 @@ import { inTransaction, type Db } from "../lib/db/client";
 import { addPriceQuoteIn, createFuelIn } from "../lib/services/fuels";
 import type { Result } from "../lib/services/result";
 import { plantSchema } from "../lib/schemas/plant";
+import { plantColumns } from "../lib/db/plant-rows";
 import { DEMO_FUELS, DEMO_PLANTS, DEMO_STUDIES, INVENTED_PRICE_NOTE } from "./demo";
 
 export interface SeedOutcome {
@@ -58,14 +59,9 @@ export async function seedIfEmpty(db: Db): Promise<SeedOutcome> {
     const plantIds = new Map<string, number>();
     for (const p of DEMO_PLANTS) {
       const parsed = plantSchema.parse({ name: p.name, ...p.fields });
-      const { ambientAir, ...rest } = parsed;
       const plant = await tx.plant.create({
         data: {
-          ...rest,
-          annualUsefulHeat_MWh: rest.annualUsefulHeat_MWh ?? null,
-          returnWaterC: rest.returnWaterC ?? null,
-          ambientAirTemperatureC: ambientAir.temperatureC,
-          ambientAirRelativeHumidityPercent: ambientAir.relativeHumidityPercent,
+          ...plantColumns(parsed),
           baselineFuelId: ids.get(p.baselineFuel)!,
           isDemo: true,
         },
