@@ -50,7 +50,12 @@ export const COMMANDS: readonly CommandSpec[] = [
       "burningVelocity_cm_per_s, burntTemperatureK, flameThickness_mm, gridPoints, mechanism, transport, products (burnt-end mole fractions), NO {ppm_dry, mg_per_m3_dry_at_ref_O2, referenceO2Percent, residenceMs} (a screening indicator), diagnostics; with --format csv one row per input",
     csv: true,
     folder: false,
-    options: [],
+    options: [
+      {
+        name: "warm-chain",
+        help: "batch: start each input from the previous input's converged flame (neighbouring mixtures such as a hydrogen sweep converge in a few steps)",
+      },
+],
     examples: [
       `echo '{"fuel": {"composition": {"CH4": 0.8, "H2": 0.2}}, "phi": 0.9}' | stoke flame-speed --input -`,
       "stoke flame-speed --input mixtures.ndjson --format csv > speeds.csv",

@@ -36,6 +36,7 @@ import { studySchema, type RankingMetric, type Study, type StudyInput, type Stud
 import { studyRecordSchema, type ScenarioRecord, type StudyRecord, type StudyRecordInput } from "../schemas/study-record";
 import type { SensitivityRanges } from "../economics/sensitivity";
 import { evaluateStudy, type StudyResult } from "../study/evaluate";
+import { ensureFlameSolves, flameJobStatus, flameLookup, type FlameJobStatus } from "./flames";
 import { listRates, rateJson } from "../db/exchange-rate-rows";
 import { countRevisions } from "../db/revision-rows";
 import { rateInForce } from "../economics/currency";
@@ -409,6 +410,8 @@ export type Evaluated = { ok: true; bundle: StudyBundle; result: StudyResult } |
 export interface EvaluateStoredOptions extends ViewSettings {
   sweep?: boolean;
   tornado?: boolean;
+  /** Queue the flame solves still missing (default false; pages ask for it; a background job, never awaited). */
+  solveFlames?: boolean;
 }
 
 /**
@@ -423,7 +426,9 @@ export async function evaluateStoredStudy(db: Db, id: number, opts: EvaluateStor
       sweep: opts.sweep ?? false,
       tornado: opts.tornado ?? true,
       caches: sharedCaches(),
+      flames: await flameLookup(db),
     });
+    if (result.flameSolves.pending > 0 && opts.solveFlames === true) ensureFlameSolves(db, result.flameSolves.needed);
     return { ok: true, bundle: loaded.bundle, result };
   } catch (e) {
     return problemFromError(e, {
@@ -431,6 +436,25 @@ export async function evaluateStoredStudy(db: Db, id: number, opts: EvaluateStor
       message: (s, field) => `The study cannot be evaluated: ${field ? `${field}: ` : ""}${s}. Edit the study or the fuel to fix it.`,
     });
   }
+}
+
+export interface FlameProgress {
+  needed: number;
+  solved: number;
+  failed: number;
+  pending: number;
+  job: FlameJobStatus;
+}
+
+/**
+ * How far the flame solves of a study (its scenarios and hydrogen sweep) have come; queues the
+ * missing ones (what the pages poll while they fill in).
+ */
+export async function studyFlameProgress(db: Db, id: number): Promise<Result<FlameProgress>> {
+  const ev = await evaluateStoredStudy(db, id, { sweep: true, tornado: false, solveFlames: true });
+  if (!ev.ok) return ev;
+  const f = ev.result.flameSolves;
+  return { ok: true, value: { needed: f.needed.length, solved: f.solved, failed: f.failed, pending: f.pending, job: flameJobStatus() } };
 }
 
 /* ---------------------------------------------------------------- lists and records */
