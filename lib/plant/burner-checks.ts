@@ -352,7 +352,7 @@ export function burnerChecks(plant: Plant, reference: FuelInPlant, cand: FuelInP
     const label = "NOx vs permit (screening estimate)";
     const lim = plant.noxLimit_mg_per_m3 ?? null;
     const est = r.nox.estimate_mg_per_m3;
-    const basis = `NOx as NO2, mg/m³ dry at 0 °C, 101.325 kPa and ${fmt(r.nox.referenceO2Percent, 0)} % O2: ${r.nox.estimateBasis}; screening estimate`;
+    const basis = `NOx as NO2, mg/m³ dry at 0 °C, 101.325 kPa and ${fmt(r.nox.referenceO2Percent, 0)} % O2 (reference conditions of Directive 2010/75/EU, Annex V): ${r.nox.estimateBasis}; screening estimate`;
     const fuelN = r.fuelBoundNitrogen
       ? "; the fuel carries bound nitrogen (fuel NOx), which the flame indicator does not cover: expect more, ask the burner maker"
       : "";

@@ -109,7 +109,7 @@ export async function getRevision(db: Db, studyId: number, number: number): Prom
 export async function studyReportData(
   db: Db,
   id: number,
-  opts: ViewSettings & { revision?: number; sweep?: boolean; tornado?: boolean } = {},
+  opts: ViewSettings & { revision?: number; sweep?: boolean; tornado?: boolean; solveFlames?: boolean } = {},
 ): Promise<Evaluated> {
   if (opts.revision === undefined) return evaluateStoredStudy(db, id, opts);
   const row = await findRevisionRow(db, id, opts.revision);
