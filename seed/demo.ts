@@ -284,7 +284,13 @@ const boilerCommon = {
 
 /** The gas burner of Boilers 1 and 2 and its permit (invented): a partially premixed burner on a fixed linkage. */
 const gasBurner = {
-  burner: { type: "partially-premixed", airControl: "fixed-linkage", flashbackWarnRatio: 1.2, flashbackFailRatio: 1.5, regulatedSupply: true },
+  burner: {
+    type: "partially-premixed",
+    airControl: "fixed-linkage",
+    flashbackWarnRatio: 1.2,
+    flashbackFailRatio: 1.5,
+    regulatedSupply: true,
+  },
   noxLimit_mg_per_m3: 100,
   noxReferenceO2Percent: 3,
   noxMeasuredBaseline_mg_per_m3: 70,
@@ -329,7 +335,8 @@ export const DEMO_PLANTS: DemoPlant[] = [
         flueO2DryPercent: 3.5,
         referenceFuel: gasOil(),
       },
-      notes: "Twin of Boiler 1 with a dual-fuel burner; fires gas normally, gas oil on its liquid train when the gas supply is interrupted.",
+      notes:
+        "Twin of Boiler 1 with a dual-fuel burner; fires gas normally, gas oil on its liquid train when the gas supply is interrupted.",
     },
   },
   {

@@ -55,7 +55,7 @@ export const COMMANDS: readonly CommandSpec[] = [
         name: "warm-chain",
         help: "batch: start each input from the previous input's converged flame (neighbouring mixtures such as a hydrogen sweep converge in a few steps)",
       },
-],
+    ],
     examples: [
       `echo '{"fuel": {"composition": {"CH4": 0.8, "H2": 0.2}}, "phi": 0.9}' | stoke flame-speed --input -`,
       "stoke flame-speed --input mixtures.ndjson --format csv > speeds.csv",

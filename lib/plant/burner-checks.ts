@@ -75,7 +75,12 @@ export interface BurnerResult {
   risks: { risk: BurnerRisk; text: string }[];
   /** Air factor of the flame solve: the lower of the untuned and retuned ones (the more reactive mixture). */
   flameLambda: number | null;
-  flame: { status: "solved" | "pending" | "failed" | "not-applicable"; key: string | null; reason: string | null; figures: FlameFigures | null };
+  flame: {
+    status: "solved" | "pending" | "failed" | "not-applicable";
+    key: string | null;
+    reason: string | null;
+    figures: FlameFigures | null;
+  };
   burningVelocity_cm_per_s: number | null;
   burningVelocityRatio: number | null;
   nox: {
@@ -126,9 +131,13 @@ export function so2AtReferenceO2(f: FuelInPlant, referenceO2Percent: number): nu
 }
 
 /** The flame solve a fuel in a plant needs (or why none applies), before any lookup. */
-export function burnerFlameRequest(
-  inp: Omit<BurnerInputs, "baselineFlame" | "flames">,
-): { req: FlameRequest | { unknown: string }; shift: ReturnType<typeof burnerShift> | null; setupLambda: number; flameLambda: number | null; notes: string[] } {
+export function burnerFlameRequest(inp: Omit<BurnerInputs, "baselineFlame" | "flames">): {
+  req: FlameRequest | { unknown: string };
+  shift: ReturnType<typeof burnerShift> | null;
+  setupLambda: number;
+  flameLambda: number | null;
+  notes: string[];
+} {
   const { plant, reference, cand } = inp;
   const setting = burnerSettingOf(plant);
   const oxidizer: Oxidizer = reference.perf.oxidizer;
@@ -159,7 +168,13 @@ export function burnerFlameRequest(
   }
   const flameLambda = shift ? Math.min(shift.untuned.lambda, shift.retuned.lambda) : cand.perf.lambda;
   if (flameLambda < 1) {
-    return { req: { unknown: "the untuned air factor is below 1: no lean premixed flame to compare" }, shift, setupLambda, flameLambda, notes };
+    return {
+      req: { unknown: "the untuned air factor is below 1: no lean premixed flame to compare" },
+      shift,
+      setupLambda,
+      flameLambda,
+      notes,
+    };
   }
   if (inp.light) return { req: { unknown: "no flame solve at this point" }, shift, setupLambda, flameLambda, notes };
   const req = flameRequestFor(cand.ctx.fuel, flameLambda, cand.perf.operatingPoint.combustionAirC + T0CK, oxidizer);
@@ -226,7 +241,13 @@ export function burnerResult(inp: BurnerInputs): BurnerResult {
 const fmt = (v: number, d = 1) => (Number.isFinite(v) ? v.toFixed(d) : String(v));
 
 /** The burner's fit checks: gas pressure, untuned burner, flashback, NOx and SO2 against the permit. */
-export function burnerChecks(plant: Plant, reference: FuelInPlant, cand: FuelInPlant, r: BurnerResult, options: { messages?: boolean } = {}): FitCheck[] {
+export function burnerChecks(
+  plant: Plant,
+  reference: FuelInPlant,
+  cand: FuelInPlant,
+  r: BurnerResult,
+  options: { messages?: boolean } = {},
+): FitCheck[] {
   const T = options.messages !== false;
   const warnAt = plant.warnAtFractionOfLimit;
   const out: FitCheck[] = [];
@@ -242,7 +263,17 @@ export function burnerChecks(plant: Plant, reference: FuelInPlant, cand: FuelInP
     const basis = "burner pressure for the rated heat input through the same orifice: p × (W_ref / W)², net Wobbe index (orifice equation)";
     const label = "Gas pressure needed at the burner vs supply pressure";
     if (!wc || !wb) {
-      push({ id: "gas-pressure", label, status: "not-applicable", value: null, limit: ps, unit: "kPa", usage: null, basis, message: "not a gas" });
+      push({
+        id: "gas-pressure",
+        label,
+        status: "not-applicable",
+        value: null,
+        limit: ps,
+        unit: "kPa",
+        usage: null,
+        basis,
+        message: "not a gas",
+      });
     } else if (pb === null) {
       push({
         id: "gas-pressure",
@@ -280,7 +311,17 @@ export function burnerChecks(plant: Plant, reference: FuelInPlant, cand: FuelInP
     const label = "Untuned burner on the day the fuel changes";
     const basis = `${s.airControlLabel}; ${s.regulatedSupply ? "regulated" : "unregulated"} supply; set up at λ ${fmt(r.setupLambda, 3)} on ${r.referenceLabel}`;
     if (!u) {
-      push({ id: "untuned-burner", label, status: "not-applicable", value: null, limit: null, unit: "λ", usage: null, basis, message: r.notes[0] ?? "" });
+      push({
+        id: "untuned-burner",
+        label,
+        status: "not-applicable",
+        value: null,
+        limit: null,
+        unit: "λ",
+        usage: null,
+        basis,
+        message: r.notes[0] ?? "",
+      });
     } else {
       const status: CheckStatus = r.risks.length ? "warn" : "pass";
       push({
@@ -312,7 +353,17 @@ export function burnerChecks(plant: Plant, reference: FuelInPlant, cand: FuelInP
           ? "the baseline's flame solve is pending or failed: no ratio yet"
           : (r.flame.reason ?? "unknown");
     if (cand.ctx.fuel.kind !== "gas") {
-      push({ id: "flashback", label, status: "not-applicable", value: null, limit: lim, unit: "×", usage: null, basis, message: "not a premixed gas flame" });
+      push({
+        id: "flashback",
+        label,
+        status: "not-applicable",
+        value: null,
+        limit: lim,
+        unit: "×",
+        usage: null,
+        basis,
+        message: "not a premixed gas flame",
+      });
     } else if (ratio === null) {
       push({ id: "flashback", label, status: "not-checked", value: null, limit: lim, unit: "×", usage: null, basis, message: why });
     } else if (s.type === "nozzle-mix" || s.type === null) {
@@ -392,7 +443,9 @@ export function burnerChecks(plant: Plant, reference: FuelInPlant, cand: FuelInP
         unit: "mg/m³",
         usage: a.usage,
         basis,
-        message: T ? `NOx about ${fmt(est, 0)} mg/m³ against the permit's ${fmt(lim, 0)} mg/m³${fuelN}; screening estimate, a measurement decides` : "",
+        message: T
+          ? `NOx about ${fmt(est, 0)} mg/m³ against the permit's ${fmt(lim, 0)} mg/m³${fuelN}; screening estimate, a measurement decides`
+          : "",
       });
     }
   }
@@ -404,7 +457,17 @@ export function burnerChecks(plant: Plant, reference: FuelInPlant, cand: FuelInP
     const v = r.so2.mg_per_m3_dry_at_ref_O2;
     const basis = `all fuel sulfur as SO2, mg/m³ dry at 0 °C, 101.325 kPa and ${fmt(r.so2.referenceO2Percent, 0)} % O2 (no capture); screening estimate`;
     if (v === null || !Number.isFinite(v)) {
-      push({ id: "so2-permit", label, status: "not-checked", value: null, limit: lim, unit: "mg/m³", usage: null, basis, message: "SO2 unknown" });
+      push({
+        id: "so2-permit",
+        label,
+        status: "not-checked",
+        value: null,
+        limit: lim,
+        unit: "mg/m³",
+        usage: null,
+        basis,
+        message: "SO2 unknown",
+      });
     } else if (lim === null) {
       push({
         id: "so2-permit",

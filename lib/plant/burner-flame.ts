@@ -119,9 +119,12 @@ export function flameRequestFor(
     grid: { ...grid },
   };
   const notes = lumped.length
-    ? [`flame solve: ${(100 * surrogate).toFixed(2)} vol % of the gas counted as surrogates (${lumped.join(", ")}), as GRI-Mech 3.0 does not hold them`]
+    ? [
+        `flame solve: ${(100 * surrogate).toFixed(2)} vol % of the gas counted as surrogates (${lumped.join(", ")}), as GRI-Mech 3.0 does not hold them`,
+      ]
     : [];
-  if (Tu !== unburntTemperatureK) notes.push(`flame solve: unburnt mixture taken at ${Tu.toFixed(0)} K, the nearest the flame engine accepts`);
+  if (Tu !== unburntTemperatureK)
+    notes.push(`flame solve: unburnt mixture taken at ${Tu.toFixed(0)} K, the nearest the flame engine accepts`);
   return { key: canonicalJson(request), request, notes };
 }
 

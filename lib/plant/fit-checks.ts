@@ -49,7 +49,7 @@ export const FIT_CHECK_LABELS: Record<FitCheckId, string> = {
   "liquid-flow": "Liquid flow vs liquid-train capacity",
   "liquid-viscosity": "Viscosity at the atomiser vs its range",
   "untuned-burner": "Untuned burner on the day the fuel changes",
-  "flashback": "Flashback: burning velocity vs baseline (screening estimate)",
+  flashback: "Flashback: burning velocity vs baseline (screening estimate)",
   "nox-permit": "NOx vs permit (screening estimate)",
   "so2-permit": "SO2 vs permit (from fuel sulfur)",
 };
@@ -587,7 +587,10 @@ export function fitChecks(plant: Plant, baseline: FuelInPlant, cand: FuelInPlant
  * Kinematic viscosity at a temperature from one or two stated points: ASTM D341 (Walther),
  * log10 log10(ν + 0.7) = A − B log10 T, through two points; one point serves only within 1 K of it.
  */
-export function viscosityAt(points: readonly { temperatureC: number; mm2_per_s: number }[] | undefined, temperatureC: number): number | null {
+export function viscosityAt(
+  points: readonly { temperatureC: number; mm2_per_s: number }[] | undefined,
+  temperatureC: number,
+): number | null {
   if (!points || points.length === 0) return null;
   if (points.length === 1 || points[0].temperatureC === points[1].temperatureC)
     return Math.abs(points[0].temperatureC - temperatureC) <= 1 ? points[0].mm2_per_s : null;
@@ -597,7 +600,7 @@ export function viscosityAt(points: readonly { temperatureC: number; mm2_per_s: 
   const tb = Math.log10(b.temperatureC + 273.15);
   const B = (ll(a.mm2_per_s) - ll(b.mm2_per_s)) / (tb - ta);
   const A = ll(a.mm2_per_s) + B * ta;
-  return 10 ** 10 ** (A - B * Math.log10(temperatureC + 273.15)) - 0.7;
+  return 10 ** (10 ** (A - B * Math.log10(temperatureC + 273.15))) - 0.7;
 }
 
 /** The liquid train's flow and atomiser checks of a liquid candidate. */
@@ -611,7 +614,8 @@ function liquidTrainChecks(
   const kg = cand.flows.fuel_kg_per_h;
   const rho = cand.ctx.fuel.density_kg_per_m3;
   const flow = train.flowUnit === "kg/h" ? kg : rho ? (1000 * kg) / rho : null;
-  const flowBasis = train.flowUnit === "kg/h" ? "fuel mass flow at rated duty" : "liquid volume flow at rated duty at the fuel's density at 15 °C";
+  const flowBasis =
+    train.flowUnit === "kg/h" ? "fuel mass flow at rated duty" : "liquid volume flow at rated duty at the fuel's density at 15 °C";
   if (flow === null) {
     push({
       id: "liquid-flow",
@@ -633,7 +637,9 @@ function liquidTrainChecks(
       unit: train.flowUnit,
       usage: r.usage,
       basis: flowBasis,
-      message: T ? `liquid ${fmt(flow, 0)} ${train.flowUnit} at rated duty; liquid-train capacity ${fmt(train.flowCapacity, 0)} ${train.flowUnit}` : "",
+      message: T
+        ? `liquid ${fmt(flow, 0)} ${train.flowUnit} at rated duty; liquid-train capacity ${fmt(train.flowCapacity, 0)} ${train.flowUnit}`
+        : "",
     });
   }
   const lo = train.viscosityMin_mm2_per_s ?? null;
@@ -642,7 +648,16 @@ function liquidTrainChecks(
   const nu = viscosityAt(def, train.firingTemperatureC);
   const basis = `kinematic viscosity at the atomiser (${train.firingTemperatureC} °C), ASTM D341 between the fuel's stated points`;
   if (lo === null && hi === null) {
-    push({ id: "liquid-viscosity", status: "not-checked", value: nu, limit: null, unit: "mm²/s", usage: null, basis, message: "no viscosity range entered for the atomiser" });
+    push({
+      id: "liquid-viscosity",
+      status: "not-checked",
+      value: nu,
+      limit: null,
+      unit: "mm²/s",
+      usage: null,
+      basis,
+      message: "no viscosity range entered for the atomiser",
+    });
   } else if (nu === null) {
     push({
       id: "liquid-viscosity",
@@ -666,7 +681,7 @@ function liquidTrainChecks(
       id: "liquid-viscosity",
       status,
       value: nu,
-      limit: above || (!below && hi !== null && nu > (lo ?? 0) + ((hi - (lo ?? 0)) / 2)) ? hi : (lo ?? hi),
+      limit: above || (!below && hi !== null && nu > (lo ?? 0) + (hi - (lo ?? 0)) / 2) ? hi : (lo ?? hi),
       unit: "mm²/s",
       usage: hi !== null ? nu / hi : null,
       basis,

@@ -72,12 +72,32 @@ export const liquidTrainSchema = z
   .object({
     flowCapacity: z.number({ error: "must be a number" }).finite("must be a number").positive("must be > 0").max(1e8, "must be ≤ 10^8"),
     flowUnit: z.enum(LIQUID_FLOW_UNITS, { error: 'must be "L/h" or "kg/h"' }),
-    viscosityMin_mm2_per_s: z.number({ error: "must be a number" }).finite("must be a number").positive("must be > 0").max(10_000, "must be ≤ 10 000 mm²/s").nullish(),
-    viscosityMax_mm2_per_s: z.number({ error: "must be a number" }).finite("must be a number").positive("must be > 0").max(10_000, "must be ≤ 10 000 mm²/s").nullish(),
+    viscosityMin_mm2_per_s: z
+      .number({ error: "must be a number" })
+      .finite("must be a number")
+      .positive("must be > 0")
+      .max(10_000, "must be ≤ 10 000 mm²/s")
+      .nullish(),
+    viscosityMax_mm2_per_s: z
+      .number({ error: "must be a number" })
+      .finite("must be a number")
+      .positive("must be > 0")
+      .max(10_000, "must be ≤ 10 000 mm²/s")
+      .nullish(),
     /** Temperature of the liquid at the atomiser, °C. */
-    firingTemperatureC: z.number({ error: "must be a number" }).finite("must be a number").min(-40, "must be ≥ −40 °C").max(250, "must be ≤ 250 °C").default(20),
+    firingTemperatureC: z
+      .number({ error: "must be a number" })
+      .finite("must be a number")
+      .min(-40, "must be ≥ −40 °C")
+      .max(250, "must be ≤ 250 °C")
+      .default(20),
     /** Flue O2 (dry, vol %) the liquid train is set to; absent = the plant's. */
-    flueO2DryPercent: z.number({ error: "must be a number" }).finite("must be a number").min(0, "must be ≥ 0 %").max(18, "must be ≤ 18 %").nullish(),
+    flueO2DryPercent: z
+      .number({ error: "must be a number" })
+      .finite("must be a number")
+      .min(0, "must be ≥ 0 %")
+      .max(18, "must be ≤ 18 %")
+      .nullish(),
     /** The liquid fuel the train is set up on (its flame is the liquid candidates' reference). */
     referenceFuel: z.lazy(() => fuelDefinitionSchema),
   })

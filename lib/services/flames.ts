@@ -168,7 +168,8 @@ function runJob(db: Db): void {
     await Promise.allSettled(pending);
     // What the child left unsolved (it died) goes back to be asked for again by the next page view.
     for (const b of batch) if (!s.cache.has(b.key)) s.queued.delete(b.key);
-    if (code !== 0 && code !== 1 && !s.lastProblem) s.lastProblem = `the flame solver stopped (exit ${code}): ${stderr.trim().split("\n").pop() ?? ""}`;
+    if (code !== 0 && code !== 1 && !s.lastProblem)
+      s.lastProblem = `the flame solver stopped (exit ${code}): ${stderr.trim().split("\n").pop() ?? ""}`;
     s.running = null;
     if (s.queue.length) runJob(db);
   });

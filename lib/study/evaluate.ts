@@ -355,7 +355,14 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
     if (n) n.usedBy.push(usedBy);
     else needs.set(b.flame.key, { key: b.flame.key, request: flameRequestOf(b.flame.key), usedBy: [usedBy] });
   };
-  const baseBurner = burnerResult({ plant, reference: baseFip, referenceLabel: "the baseline fuel", cand: baseFip, baselineFlame: null, flames: options.flames });
+  const baseBurner = burnerResult({
+    plant,
+    reference: baseFip,
+    referenceLabel: "the baseline fuel",
+    cand: baseFip,
+    baselineFlame: null,
+    flames: options.flames,
+  });
   const baselineFlame = baseBurner.flame.figures;
   const burnerOf = (p: Prepared, f: FuelInPlant, plantS: Plant) => {
     const liquid = liquidRef !== null && p.ctx.fuel.kind === "liquid";
@@ -534,7 +541,8 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
         p.perf.flame && (liquidOnTrain && liquidRef ? liquidRef.fip.perf.flame : base.perf.flame)
           ? {
               temperatureC: p.perf.flame.temperatureC,
-              shiftK: p.perf.flame.temperatureK - ((liquidOnTrain && liquidRef ? liquidRef.fip.perf.flame : base.perf.flame)?.temperatureK ?? 0),
+              shiftK:
+                p.perf.flame.temperatureK - ((liquidOnTrain && liquidRef ? liquidRef.fip.perf.flame : base.perf.flame)?.temperatureK ?? 0),
               method: p.perf.flame.methodLabel,
             }
           : null,

@@ -18,7 +18,10 @@ export interface FlameSolveOptions {
 }
 
 /** One solve; a refusal or non-convergence becomes a failure outcome with its reason (the figures are then unknown). */
-export function solveFlame(need: Pick<FlameSolveNeed, "request">, warm?: FlameSpeedState): { outcome: FlameOutcome; state?: FlameSpeedState } {
+export function solveFlame(
+  need: Pick<FlameSolveNeed, "request">,
+  warm?: FlameSpeedState,
+): { outcome: FlameOutcome; state?: FlameSpeedState } {
   try {
     const r = computeFlameSpeed(need.request, warm ? { warmStart: warm } : {});
     return { outcome: flameFiguresOf(r), state: r.solution };

@@ -231,7 +231,10 @@ export function hydrogenSweep(env: SweepEnvironment): HydrogenSweepResult {
       env.needFlame?.(burner, `hydrogenSweep.${share}`);
       if (burner.flame.status === "solved") flamesSolved++;
     }
-    const checks = [...fitChecks(plant, baseFip, fip, { messages: false }), ...burnerChecks(plant, baseFip, fip, burner, { messages: false })];
+    const checks = [
+      ...fitChecks(plant, baseFip, fip, { messages: false }),
+      ...burnerChecks(plant, baseFip, fip, burner, { messages: false }),
+    ];
     const statuses = {} as Record<FitCheckId, CheckStatus>;
     for (const c of checks) statuses[c.id] = c.status;
     const w = ctx.wobbe(plant.wobbeCombustionReferenceC, tmW);
@@ -289,7 +292,14 @@ export function hydrogenSweep(env: SweepEnvironment): HydrogenSweepResult {
   const noxLimit = plant.noxLimit_mg_per_m3 ?? null;
   const interpolatedCrossing = (id: FitCheckId): SweepCrossing | null => {
     if (id === "flashback" && flashbackJudged)
-      return crossingOf(id, flamePts, (p) => p.burningVelocityRatio, setting.flashbackWarnRatio, setting.flashbackFailRatio, points[0].statuses[id]);
+      return crossingOf(
+        id,
+        flamePts,
+        (p) => p.burningVelocityRatio,
+        setting.flashbackWarnRatio,
+        setting.flashbackFailRatio,
+        points[0].statuses[id],
+      );
     if (id === "nox-permit" && noxLimit !== null)
       return crossingOf(id, flamePts, (p) => p.nox_mg_per_m3, plant.warnAtFractionOfLimit * noxLimit, noxLimit, points[0].statuses[id]);
     return null;

@@ -8,7 +8,14 @@ import { useState } from "react";
 import { ErrorSummary, Field, FieldError, invalid, toNumber, type Errors } from "../../fuels/_components/fields";
 import { CAPACITY_UNITS_KW, capacityToKW, type CapacityUnit } from "@/lib/units/number-entry";
 import { DEFAULT_CONDENSING_APPROACH_K } from "@/lib/schemas/plant";
-import { AIR_CONTROL_LABELS, AIR_CONTROLS, BURNER_TYPE_LABELS, BURNER_TYPES, FLASHBACK_DEFAULTS, LIQUID_FLOW_UNITS } from "@/lib/schemas/burner";
+import {
+  AIR_CONTROL_LABELS,
+  AIR_CONTROLS,
+  BURNER_TYPE_LABELS,
+  BURNER_TYPES,
+  FLASHBACK_DEFAULTS,
+  LIQUID_FLOW_UNITS,
+} from "@/lib/schemas/burner";
 
 export interface PlantFormOptions {
   fuels: { id: number; name: string; kind: string }[];
@@ -183,9 +190,15 @@ export function PlantForm({ options, initial }: { options: PlantFormOptions; ini
   );
 
   const placed = (key: string) =>
-    [...NUMBER_FIELDS, ...Object.keys(text), "condensing", "ambientAir", "burner.type", "burner.airControl", "liquidTrain.referenceFuel"].includes(
-      key,
-    ) || key.startsWith("ambientAir.");
+    [
+      ...NUMBER_FIELDS,
+      ...Object.keys(text),
+      "condensing",
+      "ambientAir",
+      "burner.type",
+      "burner.airControl",
+      "liquidTrain.referenceFuel",
+    ].includes(key) || key.startsWith("ambientAir.");
 
   /** The rated input in kW, converted from the unit the user chose; unparseable text goes to the server as is. */
   function ratedInputKW(): number | string | null {
@@ -467,7 +480,13 @@ export function PlantForm({ options, initial }: { options: PlantFormOptions; ini
         </p>
         <div className="row">
           <Field label="Burner type" name="burner.type" errors={errors}>
-            <select id="f-burnerType" name="burnerType" value={text.burnerType} onChange={setTxt("burnerType")} {...invalid(errors, "burner.type")}>
+            <select
+              id="f-burnerType"
+              name="burnerType"
+              value={text.burnerType}
+              onChange={setTxt("burnerType")}
+              {...invalid(errors, "burner.type")}
+            >
               <option value="">— not described —</option>
               {BURNER_TYPES.map((t) => (
                 <option key={t} value={t}>
@@ -491,7 +510,12 @@ export function PlantForm({ options, initial }: { options: PlantFormOptions; ini
             <div className="field">
               <span className="label">Gas supply</span>
               <label style={{ fontWeight: 400 }}>
-                <input type="checkbox" name="regulatedSupply" checked={regulatedSupply} onChange={(e) => setRegulatedSupply(e.target.checked)} />{" "}
+                <input
+                  type="checkbox"
+                  name="regulatedSupply"
+                  checked={regulatedSupply}
+                  onChange={(e) => setRegulatedSupply(e.target.checked)}
+                />{" "}
                 pressure held by a regulator
               </label>
             </div>
@@ -504,7 +528,11 @@ export function PlantForm({ options, initial }: { options: PlantFormOptions; ini
               "Flashback: warn from burning velocity × baseline",
               `rule of thumb ${FLASHBACK_DEFAULTS.warnRatio} (common practice, no source); premixed and partially premixed burners`,
             )}
-            {numInput("burner.flashbackFailRatio", "Flashback: fail from burning velocity × baseline", `rule of thumb ${FLASHBACK_DEFAULTS.failRatio}`)}
+            {numInput(
+              "burner.flashbackFailRatio",
+              "Flashback: fail from burning velocity × baseline",
+              `rule of thumb ${FLASHBACK_DEFAULTS.failRatio}`,
+            )}
           </div>
         )}
         <div className="row">
@@ -515,7 +543,11 @@ export function PlantForm({ options, initial }: { options: PlantFormOptions; ini
           {numInput("noxLimit_mg_per_m3", "NOx permit limit, mg/m³", "as NO2, dry, 0 °C, 101.325 kPa")}
           {numInput("so2Limit_mg_per_m3", "SO2 permit limit, mg/m³")}
           {numInput("noxReferenceO2Percent", "Reference O2 of the permit, % dry", "empty: 3 % gases and liquids, 6 % solids")}
-          {numInput("noxMeasuredBaseline_mg_per_m3", "NOx measured on the baseline fuel, mg/m³", "at the reference O2; scales the estimates")}
+          {numInput(
+            "noxMeasuredBaseline_mg_per_m3",
+            "NOx measured on the baseline fuel, mg/m³",
+            "at the reference O2; scales the estimates",
+          )}
         </div>
       </fieldset>
 
@@ -529,7 +561,11 @@ export function PlantForm({ options, initial }: { options: PlantFormOptions; ini
           <>
             <div className="row">
               {numInput("liquidTrain.flowCapacity", "Liquid-train capacity")}
-              {select("liquidFlowUnit", "Unit of the capacity", LIQUID_FLOW_UNITS.map((u) => ({ value: u, label: u })))}
+              {select(
+                "liquidFlowUnit",
+                "Unit of the capacity",
+                LIQUID_FLOW_UNITS.map((u) => ({ value: u, label: u })),
+              )}
               <Field label="Liquid the train is set up on" name="liquidTrain.referenceFuel" errors={errors}>
                 <select
                   id="f-liquidReferenceFuelId"

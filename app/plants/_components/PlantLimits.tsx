@@ -78,7 +78,8 @@ export function PlantLimitsTable({ p, d }: { p: Plant; d: Display }) {
           <td className="num">
             NOx {p.noxLimit_mg_per_m3 != null ? `${fmt(p.noxLimit_mg_per_m3, 0)} mg/m³` : na}, SO2{" "}
             {p.so2Limit_mg_per_m3 != null ? `${fmt(p.so2Limit_mg_per_m3, 0)} mg/m³` : na} at{" "}
-            {p.noxReferenceO2Percent != null ? `${fmt(p.noxReferenceO2Percent, 0)} % O2` : "the fuel type's reference O2"} (dry, 0 °C, 101.325 kPa)
+            {p.noxReferenceO2Percent != null ? `${fmt(p.noxReferenceO2Percent, 0)} % O2` : "the fuel type's reference O2"} (dry, 0 °C,
+            101.325 kPa)
             {p.noxMeasuredBaseline_mg_per_m3 != null && `; NOx measured on the baseline ${fmt(p.noxMeasuredBaseline_mg_per_m3, 0)} mg/m³`}
           </td>
         </tr>

@@ -16,8 +16,8 @@ export function BurnerSection({ result, d }: { result: StudyResult; d: Display }
     <section aria-label="Burner" data-testid="burner-section">
       <h2>The burner</h2>
       <p>
-        <b>{s.described ? s.typeLabel : "Burner not described"}</b>; {s.airControlLabel}; {s.regulatedSupply ? "regulated" : "unregulated"} gas
-        supply. Set up on the baseline at flue O2 {fmt(p.flueO2DryPercent, 1)} % (λ {fmt(result.baseline.burner.setupLambda, 3)}).
+        <b>{s.described ? s.typeLabel : "Burner not described"}</b>; {s.airControlLabel}; {s.regulatedSupply ? "regulated" : "unregulated"}{" "}
+        gas supply. Set up on the baseline at flue O2 {fmt(p.flueO2DryPercent, 1)} % (λ {fmt(result.baseline.burner.setupLambda, 3)}).
         Flashback judged {s.type === "premixed" || s.type === "partially-premixed" ? "" : "not (shown only)"} from{" "}
         {fmt(s.flashbackWarnRatio, 2)} × (warn) and {fmt(s.flashbackFailRatio, 2)} × (fail) the baseline&apos;s burning velocity
         {p.burner ? " (the plant's thresholds)" : " (rules of thumb, common practice, no source)"}. Permit: NOx{" "}
@@ -56,7 +56,9 @@ export function BurnerSection({ result, d }: { result: StudyResult; d: Display }
                   <td className="num">{u?.adiabaticFlameTemperatureK == null ? "–" : d.temp(u.adiabaticFlameTemperatureK - 273.15)}</td>
                   <td className="num">{fmt(t?.lambda, 3)}</td>
                   <td className="num">{t?.adiabaticFlameTemperatureK == null ? "–" : d.temp(t.adiabaticFlameTemperatureK - 273.15)}</td>
-                  <td>{u ? (r.burner.risks.length ? r.burner.risks.map((x) => x.text).join("; ") : "no risk flagged") : r.burner.notes[0]}</td>
+                  <td>
+                    {u ? (r.burner.risks.length ? r.burner.risks.map((x) => x.text).join("; ") : "no risk flagged") : r.burner.notes[0]}
+                  </td>
                 </tr>
               );
             })}
@@ -64,8 +66,8 @@ export function BurnerSection({ result, d }: { result: StudyResult; d: Display }
         </table>
       </div>
       <p className="basis">
-        {result.baseline.burner.notes.join("; ")}. Retuned: heat input restored and flue O2 held at the set value. Flame temperatures: chemical
-        equilibrium, adiabatic.
+        {result.baseline.burner.notes.join("; ")}. Retuned: heat input restored and flue O2 held at the set value. Flame temperatures:
+        chemical equilibrium, adiabatic.
       </p>
       <h3>Flashback margin, NOx and SO2 (screening estimates)</h3>
       <div className="table-wrap">
@@ -92,20 +94,31 @@ export function BurnerSection({ result, d }: { result: StudyResult; d: Display }
               return (
                 <tr key={r.index} data-scenario={r.name}>
                   <td>{r.name}</td>
-                  <td className="num">{why ? <span className="na" title={why}>{why === "pending" ? "pending" : "–"}</span> : fmt(r.burner.burningVelocity_cm_per_s, 1)}</td>
+                  <td className="num">
+                    {why ? (
+                      <span className="na" title={why}>
+                        {why === "pending" ? "pending" : "–"}
+                      </span>
+                    ) : (
+                      fmt(r.burner.burningVelocity_cm_per_s, 1)
+                    )}
+                  </td>
                   <td className="num">{fmt(r.burner.burningVelocityRatio, 2)}</td>
                   <td>
-                    {fb && <Status status={fb.status} />} {fb && fb.limit !== null && <span className="unit">limit {fmt(fb.limit, 2)} ×</span>}
+                    {fb && <Status status={fb.status} />}{" "}
+                    {fb && fb.limit !== null && <span className="unit">limit {fmt(fb.limit, 2)} ×</span>}
                   </td>
                   <td className="num">{fmt(r.burner.nox.estimate_mg_per_m3, 0)}</td>
                   <td className="num">{fmt(r.burner.nox.ratioToBaseline, 2)}</td>
                   <td>
-                    {nx && <Status status={nx.status} />} {nx && nx.limit !== null && <span className="unit">limit {fmt(nx.limit, 0)} mg/m³</span>}
+                    {nx && <Status status={nx.status} />}{" "}
+                    {nx && nx.limit !== null && <span className="unit">limit {fmt(nx.limit, 0)} mg/m³</span>}
                     {r.burner.fuelBoundNitrogen && <div className="unit">fuel-bound nitrogen: fuel NOx not included</div>}
                   </td>
                   <td className="num">{fmt(r.burner.so2.mg_per_m3_dry_at_ref_O2, 0)}</td>
                   <td>
-                    {so && <Status status={so.status} />} {so && so.limit !== null && <span className="unit">limit {fmt(so.limit, 0)} mg/m³</span>}
+                    {so && <Status status={so.status} />}{" "}
+                    {so && so.limit !== null && <span className="unit">limit {fmt(so.limit, 0)} mg/m³</span>}
                   </td>
                 </tr>
               );
@@ -114,8 +127,8 @@ export function BurnerSection({ result, d }: { result: StudyResult; d: Display }
         </table>
       </div>
       <p className="basis">
-        Burning velocity: {check(result.baseline, "flashback")?.basis}. NOx: {result.baseline.burner.nox.estimateBasis}. SO2: all fuel sulfur as
-        SO2.
+        Burning velocity: {check(result.baseline, "flashback")?.basis}. NOx: {result.baseline.burner.nox.estimateBasis}. SO2: all fuel
+        sulfur as SO2.
       </p>
       <div className="cautions" data-testid="burner-cautions">
         <p>

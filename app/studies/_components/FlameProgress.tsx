@@ -15,7 +15,13 @@ interface Progress {
  * While flame solves of the study run in the background, shows how far they are and refreshes the
  * page's figures each time one more is done; the page stays usable meanwhile.
  */
-export function FlameProgress({ id, initial }: { id: number; initial: { needed: number; solved: number; failed: number; pending: number } }) {
+export function FlameProgress({
+  id,
+  initial,
+}: {
+  id: number;
+  initial: { needed: number; solved: number; failed: number; pending: number };
+}) {
   const router = useRouter();
   const [p, setP] = useState<Progress | null>(null);
   const seen = useRef(initial.solved + initial.failed);
@@ -48,8 +54,8 @@ export function FlameProgress({ id, initial }: { id: number; initial: { needed: 
       {cur.pending > 0 ? (
         <>
           <progress max={cur.needed} value={done} aria-label="flame solves done" /> Flame solves: {done} of {cur.needed} done
-          {cur.job.enabled ? "" : " (background solves are switched off on this server)"}. Burning velocity, flashback and NOx figures fill in as
-          each finishes; the rest of the page is ready to use.
+          {cur.job.enabled ? "" : " (background solves are switched off on this server)"}. Burning velocity, flashback and NOx figures fill
+          in as each finishes; the rest of the page is ready to use.
         </>
       ) : (
         <>

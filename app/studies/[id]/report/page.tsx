@@ -122,7 +122,14 @@ export default async function ReportPage({ params, searchParams }: Props) {
   const orientation = sp.orient === "landscape" ? "landscape" : "portrait";
   const revision = typeof sp.revision === "string" && /^[1-9]\d{0,8}$/.test(sp.revision) ? Number(sp.revision) : undefined;
   const [ev, units] = await Promise.all([
-    studyReportData(db(), id, { revision, metric: view.metric, includeUpstream: view.includeUpstream, sweep: true, tornado: false, solveFlames: true }),
+    studyReportData(db(), id, {
+      revision,
+      metric: view.metric,
+      includeUpstream: view.includeUpstream,
+      sweep: true,
+      tornado: false,
+      solveFlames: true,
+    }),
     displayUnits(),
   ]);
   if (!ev.ok) {

@@ -49,7 +49,13 @@ export default async function SweepPage({ params, searchParams }: Props) {
   if (!Number.isInteger(id) || id <= 0) notFound();
   const view = viewChoice(await searchParams);
   const [ev, units] = await Promise.all([
-    evaluateStoredStudy(db(), id, { metric: view.metric, includeUpstream: view.includeUpstream, sweep: true, tornado: false, solveFlames: true }),
+    evaluateStoredStudy(db(), id, {
+      metric: view.metric,
+      includeUpstream: view.includeUpstream,
+      sweep: true,
+      tornado: false,
+      solveFlames: true,
+    }),
     displayUnits(),
   ]);
   if (!ev.ok) {
@@ -292,13 +298,20 @@ export default async function SweepPage({ params, searchParams }: Props) {
             decimals={2}
             data={flameSeries((p) => p.burningVelocityRatio)}
             limits={[
-              ...(lim.flashbackWarnRatio !== null ? [{ y: lim.flashbackWarnRatio, label: `warn ${fmt(lim.flashbackWarnRatio, 2)} ×` }] : []),
-              ...(lim.flashbackFailRatio !== null ? [{ y: lim.flashbackFailRatio, label: `fail ${fmt(lim.flashbackFailRatio, 2)} ×` }] : []),
+              ...(lim.flashbackWarnRatio !== null
+                ? [{ y: lim.flashbackWarnRatio, label: `warn ${fmt(lim.flashbackWarnRatio, 2)} ×` }]
+                : []),
+              ...(lim.flashbackFailRatio !== null
+                ? [{ y: lim.flashbackFailRatio, label: `fail ${fmt(lim.flashbackFailRatio, 2)} ×` }]
+                : []),
             ]}
             vLines={vLines}
           />
           <p className="basis">
-            {sw.basis.burner}. {lim.flashbackFailRatio === null ? "The burner is not premixed or partially premixed (or not described): the ratio is shown, not judged." : ""}
+            {sw.basis.burner}.{" "}
+            {lim.flashbackFailRatio === null
+              ? "The burner is not premixed or partially premixed (or not described): the ratio is shown, not judged."
+              : ""}
           </p>
         </section>
         <section className="panel" data-testid="chart-nox">
@@ -307,7 +320,11 @@ export default async function SweepPage({ params, searchParams }: Props) {
             yUnit="mg/m³"
             decimals={0}
             data={flameSeries((p) => p.nox_mg_per_m3)}
-            limits={lim.noxLimit_mg_per_m3 !== null ? [{ y: lim.noxLimit_mg_per_m3, label: `permit ${fmt(lim.noxLimit_mg_per_m3, 0)} mg/m³` }] : []}
+            limits={
+              lim.noxLimit_mg_per_m3 !== null
+                ? [{ y: lim.noxLimit_mg_per_m3, label: `permit ${fmt(lim.noxLimit_mg_per_m3, 0)} mg/m³` }]
+                : []
+            }
             vLines={vLines}
           />
           <p className="basis">
@@ -330,7 +347,9 @@ export default async function SweepPage({ params, searchParams }: Props) {
         </section>
         <section className="panel" data-testid="chart-untuned-lambda">
           <SweepChart title="Untuned burner: air factor λ" yUnit="λ" decimals={3} data={series((p) => p.untunedLambda)} vLines={vLines} />
-          <p className="basis">Before retuning, with the plant&apos;s air-ratio control; retuned, the flue O2 is held at {fmt(plant.flueO2DryPercent, 1)} %.</p>
+          <p className="basis">
+            Before retuning, with the plant&apos;s air-ratio control; retuned, the flue O2 is held at {fmt(plant.flueO2DryPercent, 1)} %.
+          </p>
         </section>
         {pts.some((p) => p.costPerUsefulMWh !== null) && (
           <section className="panel">
