@@ -370,6 +370,16 @@ export function fitChecks(plant: Plant, baseline: FuelInPlant, cand: FuelInPlant
     const baseKind = baseline.ctx.fuel.kind;
     const train = plant.liquidTrain ?? null;
     if (candKind === "liquid" && train) {
+      push({
+        id: "fuel-supply",
+        status: "not-applicable",
+        value: null,
+        limit: null,
+        unit: "m³/h",
+        usage: null,
+        basis: "",
+        message: "fired on the liquid train: its capacity is the liquid-flow check",
+      });
       liquidTrainChecks(train, cand, push, warnAt, T);
     } else if (candKind !== baseKind) {
       push({
