@@ -12,6 +12,7 @@ import { studySchema, type StudyInput } from "../../../lib/schemas/study";
 import { evaluateStudy, type ScenarioResult, type StudyResult } from "../../../lib/study/evaluate";
 import type { FlameOutcome } from "../../../lib/plant/burner-flame";
 import { DEMO_FUELS, DEMO_PLANTS } from "../../../seed/demo";
+import { runEvaluate } from "../../../lib/cli/evaluate-sync";
 
 const root = join(__dirname, "..", "..", "..");
 const exampleStudy = (): StudyInput => JSON.parse(readFileSync(join(root, "seed", "example-study.json"), "utf8"));
@@ -234,5 +235,39 @@ describe("a dual-fuel plant", () => {
       expect(check(sc, "nox-permit").message).toMatch(/fuel NOx/);
     }
     expect(r.baseline.burner.fuelBoundNitrogen).toBe(false);
+  });
+});
+
+describe("stoke evaluate and the flames", () => {
+  const EXAMPLE = join(root, "seed", "example-study.json");
+  const CACHE = join(root, "tests", "fixtures", "flames", "example-study.flames.json");
+
+  it("reads the solves from --flame-cache: every scenario carries the burner figures of the issue's interface", () => {
+    const out = runEvaluate(["--input", EXAMPLE, "--flame-cache", CACHE], () => "");
+    expect(out.exitCode).toBe(0);
+    const r = JSON.parse(out.stdout) as StudyResult;
+    expect(r.flameSolves.pending).toBe(0);
+    for (const sc of [r.baseline, ...r.scenarios]) {
+      for (const k of ["lambda", "flueO2DryPercent", "heatInputChangePercent", "adiabaticFlameTemperatureK"]) {
+        expect(sc.burner.untuned).toHaveProperty(k);
+        expect(sc.burner.retuned).toHaveProperty(k);
+      }
+      expect(sc.burner.burningVelocity_cm_per_s).toBeGreaterThan(0);
+      expect(sc.burner.burningVelocityRatio).toBeGreaterThan(0);
+      expect(sc.burner.nox.mg_per_m3_dry_at_ref_O2).toBeGreaterThan(0);
+      expect(sc.burner.nox.referenceO2Percent).toBe(3);
+      expect(sc.checks.map((c) => c.id)).toEqual(expect.arrayContaining(["flashback", "nox-permit"]));
+    }
+  });
+
+  it("--no-flame-speed leaves the flame figures unknown (null), and excludes --flame-cache", () => {
+    const out = runEvaluate(["--input", EXAMPLE, "--no-flame-speed"], () => "");
+    const r = JSON.parse(out.stdout) as StudyResult;
+    expect(r.scenarios[1].burner.burningVelocityRatio).toBeNull();
+    expect(r.scenarios[1].burner.nox.ratioToBaseline).toBeNull();
+    expect(r.scenarios[1].burner.untuned!.heatInputChangePercent).toBeLessThan(0);
+    const both = runEvaluate(["--input", EXAMPLE, "--no-flame-speed", "--flame-cache", CACHE], () => "");
+    expect(both.exitCode).toBe(2);
+    expect(both.stderr).toMatch(/exclude each other/);
   });
 });
