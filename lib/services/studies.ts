@@ -450,8 +450,8 @@ export interface FlameProgress {
  * How far the flame solves of a study (its scenarios and hydrogen sweep) have come; queues the
  * missing ones (what the pages poll while they fill in).
  */
-export async function studyFlameProgress(db: Db, id: number): Promise<Result<FlameProgress>> {
-  const ev = await evaluateStoredStudy(db, id, { sweep: true, tornado: false, solveFlames: true });
+export async function studyFlameProgress(db: Db, id: number, opts: { sweep?: boolean } = {}): Promise<Result<FlameProgress>> {
+  const ev = await evaluateStoredStudy(db, id, { sweep: opts.sweep ?? true, tornado: false, solveFlames: true });
   if (!ev.ok) return ev;
   const f = ev.result.flameSolves;
   return { ok: true, value: { needed: f.needed.length, solved: f.solved, failed: f.failed, pending: f.pending, job: flameJobStatus() } };

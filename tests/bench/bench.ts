@@ -17,6 +17,7 @@ const BENCHES: Bench[] = [
   { name: "pages", file: "./pages.bench.ts", fn: "benchPages" },
   { name: "cli", file: "./cli.bench.ts", fn: "benchCli" },
   { name: "flame", file: "./flame.bench.ts", fn: "benchFlame" },
+  { name: "study-flames", file: "./study-flames.bench.ts", fn: "benchStudyFlames" },
 ];
 
 function median(v: number[]): number {

@@ -277,7 +277,7 @@ export default async function ComparisonPage({ params, searchParams }: Props) {
       </p>
       <CheckMatrix list={list} d={d} />
 
-      <FlameProgress id={id} initial={{ ...result.flameSolves, needed: result.flameSolves.needed.length }} />
+      <FlameProgress id={id} sweep={false} initial={{ ...result.flameSolves, needed: result.flameSolves.needed.length }} />
       <BurnerSection result={result} d={d} />
 
       {candidates.length === 0 && (

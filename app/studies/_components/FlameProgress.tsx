@@ -18,9 +18,12 @@ interface Progress {
 export function FlameProgress({
   id,
   initial,
+  sweep = true,
 }: {
   id: number;
   initial: { needed: number; solved: number; failed: number; pending: number };
+  /** Count the hydrogen sweep's solves too (the pages that show it). */
+  sweep?: boolean;
 }) {
   const router = useRouter();
   const [p, setP] = useState<Progress | null>(null);
@@ -30,7 +33,7 @@ export function FlameProgress({
     if (pending === 0) return;
     let stop = false;
     const tick = async () => {
-      const res = await fetch(`/api/studies/${id}/flames`, { cache: "no-store" }).catch(() => null);
+      const res = await fetch(`/api/studies/${id}/flames${sweep ? "" : "?sweep=0"}`, { cache: "no-store" }).catch(() => null);
       if (stop || !res?.ok) return;
       const next = (await res.json()) as Progress;
       setP(next);
@@ -45,7 +48,7 @@ export function FlameProgress({
       stop = true;
       clearInterval(t);
     };
-  }, [id, pending, router]);
+  }, [id, pending, router, sweep]);
   const cur = p ?? { ...initial, job: { running: false, enabled: true, problem: null } };
   if (cur.needed === 0) return null;
   const done = cur.solved + cur.failed;
