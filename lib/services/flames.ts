@@ -64,7 +64,7 @@ export async function flameLookup(db: Db): Promise<FlameLookup> {
 /** Stores one outcome (once; a second writer of the same key changes nothing). */
 export async function storeFlameOutcome(db: Db, key: string, outcome: FlameOutcome): Promise<void> {
   const isFailure = "error" in outcome;
-  await db.flameSolve.upsert({
+  const row = await db.flameSolve.upsert({
     where: { key: flameKeyHash(key) },
     create: {
       key: flameKeyHash(key),
@@ -75,7 +75,8 @@ export async function storeFlameOutcome(db: Db, key: string, outcome: FlameOutco
     },
     update: {},
   });
-  state().cache.set(key, outcome);
+  // The stored row wins: a solve is written once, whoever comes second.
+  state().cache.set(key, outcomeOfRow(row));
 }
 
 export interface FlameJobStatus {
