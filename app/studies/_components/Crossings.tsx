@@ -24,12 +24,19 @@ export function CrossingTable({ crossings, testId }: { crossings: readonly Sweep
         <tbody>
           {crossings.map((c) => (
             <tr key={c.checkId}>
-              <td>{c.label}</td>
+              <td>
+                {c.label}
+                {c.interpolated && <div className="unit">interpolated between the flame solves</div>}
+              </td>
               <td>
                 <Status status={c.statusAtZero} />
               </td>
               <td className="num">
-                {c.statusAtZero === "not-checked" ? <span className="na">no limit entered</span> : shareText(c.firstWarnPercent)}
+                {c.statusAtZero === "not-checked" ? (
+                  <span className="na">{c.checkId === "flashback" || c.checkId === "nox-permit" ? "not judged" : "no limit entered"}</span>
+                ) : (
+                  shareText(c.firstWarnPercent)
+                )}
               </td>
               <td className="num">{c.statusAtZero === "not-checked" ? <span className="na">–</span> : shareText(c.firstFailPercent)}</td>
             </tr>
