@@ -114,7 +114,7 @@ export function ensureFlameSolves(db: Db, needs: readonly FlameSolveNeed[]): num
     s.queued.add(n.key);
     added++;
   }
-  if (!s.running && s.queue.length) runJob(db);
+  if (!s.running && s.queue.length) startJob(db);
   return added;
 }
 
@@ -123,6 +123,18 @@ function solverCommand(): { cmd: string; args: string[] } {
   const launcher = join(process.cwd(), "lib", "cli", "launcher", "stoke.cjs");
   if (!existsSync(launcher)) throw new Error(`the flame solver's launcher is missing (${launcher})`);
   return { cmd: process.execPath, args: [launcher, "flame-speed", "--ndjson", "--warm-chain", "--no-progress"] };
+}
+
+/** Starts a job; a solver that cannot start is reported in the job status (the pages say so), not thrown at a page. */
+function startJob(db: Db): void {
+  const s = state();
+  try {
+    runJob(db);
+  } catch (e) {
+    s.lastProblem = `the flame solver could not start: ${(e as Error).message}`;
+    s.running = null;
+    for (const n of s.queue.splice(0, s.queue.length)) s.queued.delete(n.key);
+  }
 }
 
 function runJob(db: Db): void {
@@ -164,6 +176,8 @@ function runJob(db: Db): void {
   });
   child.on("error", (e) => {
     s.lastProblem = `the flame solver could not start: ${e.message}`;
+    for (const b of batch) if (!s.cache.has(b.key)) s.queued.delete(b.key);
+    s.running = null;
   });
   child.on("close", async (code) => {
     await Promise.allSettled(pending);
@@ -172,7 +186,7 @@ function runJob(db: Db): void {
     if (code !== 0 && code !== 1 && !s.lastProblem)
       s.lastProblem = `the flame solver stopped (exit ${code}): ${stderr.trim().split("\n").pop() ?? ""}`;
     s.running = null;
-    if (s.queue.length) runJob(db);
+    if (s.queue.length) startJob(db);
   });
   child.stdin.end(`${batch.map((b) => JSON.stringify(b.request)).join("\n")}\n`);
 }
