@@ -139,8 +139,8 @@ function startJob(db: Db): void {
 
 function runJob(db: Db): void {
   const s = state();
-  const batch = s.queue.splice(0, s.queue.length);
   const { cmd, args } = solverCommand();
+  const batch = s.queue.splice(0, s.queue.length);
   const child = spawn(cmd, args, { stdio: ["pipe", "pipe", "pipe"], env: { ...process.env, STOKE_DEBUG: "" } });
   s.running = { keys: batch.map((b) => b.key), done: 0, startedAt: new Date(), pid: child.pid };
   s.lastProblem = null;
