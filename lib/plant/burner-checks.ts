@@ -17,7 +17,7 @@ import { lambdaFromFlueO2Dry } from "../combustion/stoichiometry";
 import { MOLAR_MASS_g_per_mol } from "../thermo/species-data";
 import { atReferenceO2 } from "../units/emissions";
 import { T0CK } from "../units/constants";
-import { burnerFuel, burnerRisks, burnerShift, type BurnerRisk, type BurnerState, type BurnerGas } from "./burner";
+import { burnerFuel, burnerRisks, burnerShift, UNTUNED_RULES, type BurnerRisk, type BurnerState, type BurnerGas } from "./burner";
 import { flameRequestFor, isFlameFailure, noxAtReferenceO2, type FlameLookup, type FlameFigures, type FlameRequest } from "./burner-flame";
 import { atMost, type CheckStatus, type FitCheck, type FuelInPlant } from "./fit-checks";
 
@@ -329,10 +329,11 @@ export function burnerChecks(
         label,
         status,
         value: u.lambda,
-        limit: r.setupLambda,
+        // the lean blow-off bound; the other rules (λ < 1.05, heat input ±5 %) are named in the message
+        limit: UNTUNED_RULES.leanBlowOffFactor * r.setupLambda,
         unit: "λ",
         usage: null,
-        basis,
+        basis: `${basis}; rules of thumb (common practice, no source): λ below ${UNTUNED_RULES.coLambda} forms CO, λ above ${UNTUNED_RULES.leanBlowOffFactor} × the set-up value risks lean blow-off, heat input beyond ±${UNTUNED_RULES.heatInputPercent} % derates or overfires`,
         message: T
           ? `untuned λ ${fmt(u.lambda, 3)} (flue O2 ${fmt(u.flueO2DryPercent, 2)} %), heat input ${u.heatInputChangePercent === null ? "unknown (unregulated supply)" : `${u.heatInputChangePercent >= 0 ? "+" : ""}${fmt(u.heatInputChangePercent, 1)} %`} until retuned${r.risks.length ? `: ${r.risks.map((x) => x.text).join("; ")}` : ""}`
           : "",

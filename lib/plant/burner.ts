@@ -155,6 +155,9 @@ export function burnerShift(input: BurnerShiftInput): BurnerShift {
   };
 }
 
+/** The rules of thumb of `burnerRisks` (common practice, no source). */
+export const UNTUNED_RULES = Object.freeze({ coLambda: 1.05, leanBlowOffFactor: 1.2, heatInputPercent: 5 });
+
 export type BurnerRisk = "lean-blow-off" | "co-formation" | "sub-stoichiometric" | "derating" | "overfiring";
 
 /**
@@ -167,15 +170,15 @@ export function burnerRisks(shift: BurnerShift, setupLambda: number): { risk: Bu
   const u = shift.untuned;
   if (u.lambda < 1)
     out.push({ risk: "sub-stoichiometric", text: `λ ${u.lambda.toFixed(3)} < 1: sub-stoichiometric combustion, CO and unburnt fuel` });
-  else if (u.lambda < 1.05) out.push({ risk: "co-formation", text: `λ ${u.lambda.toFixed(3)} close to 1: CO formation likely` });
-  if (u.lambda > 1.2 * setupLambda)
+  else if (u.lambda < UNTUNED_RULES.coLambda) out.push({ risk: "co-formation", text: `λ ${u.lambda.toFixed(3)} close to 1: CO formation likely` });
+  if (u.lambda > UNTUNED_RULES.leanBlowOffFactor * setupLambda)
     out.push({
       risk: "lean-blow-off",
       text: `λ ${u.lambda.toFixed(2)} is ${(100 * (u.lambda / setupLambda - 1)).toFixed(0)} % above its set-up value: lean blow-off and flame instability risk`,
     });
-  if (u.heatInputChangePercent !== null && u.heatInputChangePercent < -5)
+  if (u.heatInputChangePercent !== null && u.heatInputChangePercent < -UNTUNED_RULES.heatInputPercent)
     out.push({ risk: "derating", text: `heat input ${u.heatInputChangePercent.toFixed(1)} %: the unit is derated until retuned` });
-  if (u.heatInputChangePercent !== null && u.heatInputChangePercent > 5)
+  if (u.heatInputChangePercent !== null && u.heatInputChangePercent > UNTUNED_RULES.heatInputPercent)
     out.push({ risk: "overfiring", text: `heat input +${u.heatInputChangePercent.toFixed(1)} %: the unit is overfired until retuned` });
   return out;
 }
