@@ -299,7 +299,7 @@ export default async function SweepPage({ params, searchParams }: Props) {
             data={flameSeries((p) => p.burningVelocityRatio)}
             limits={[
               ...(lim.flashbackWarnRatio !== null
-                ? [{ y: lim.flashbackWarnRatio, label: `warn ${fmt(lim.flashbackWarnRatio, 2)} ×` }]
+                ? [{ y: lim.flashbackWarnRatio, label: `warn ${fmt(lim.flashbackWarnRatio, 2)} ×`, labelAt: "insideTopLeft" as const }]
                 : []),
               ...(lim.flashbackFailRatio !== null
                 ? [{ y: lim.flashbackFailRatio, label: `fail ${fmt(lim.flashbackFailRatio, 2)} ×` }]
