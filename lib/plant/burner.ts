@@ -170,7 +170,8 @@ export function burnerRisks(shift: BurnerShift, setupLambda: number): { risk: Bu
   const u = shift.untuned;
   if (u.lambda < 1)
     out.push({ risk: "sub-stoichiometric", text: `λ ${u.lambda.toFixed(3)} < 1: sub-stoichiometric combustion, CO and unburnt fuel` });
-  else if (u.lambda < UNTUNED_RULES.coLambda) out.push({ risk: "co-formation", text: `λ ${u.lambda.toFixed(3)} close to 1: CO formation likely` });
+  else if (u.lambda < UNTUNED_RULES.coLambda)
+    out.push({ risk: "co-formation", text: `λ ${u.lambda.toFixed(3)} close to 1: CO formation likely` });
   if (u.lambda > UNTUNED_RULES.leanBlowOffFactor * setupLambda)
     out.push({
       risk: "lean-blow-off",
