@@ -7,6 +7,8 @@ import { inExclusiveTransaction, LOCK_KEYS, type Db, type DbOrTx } from "../lib/
 import { addPriceQuoteIn, createFuelIn } from "../lib/services/fuels";
 import type { Result } from "../lib/services/result";
 import { plantSchema } from "../lib/schemas/plant";
+import { plantColumns } from "../lib/db/plant-rows";
+import { effectiveDefinition } from "../lib/db/fuel-rows";
 import { DEMO_FUELS, DEMO_PLANTS, DEMO_STUDIES, INVENTED_PRICE_NOTE } from "./demo";
 
 export interface SeedOutcome {
@@ -59,15 +61,21 @@ export async function seedIfEmpty(db: Db): Promise<SeedOutcome> {
     }
     const plantIds = new Map<string, number>();
     for (const p of DEMO_PLANTS) {
-      const parsed = plantSchema.parse({ name: p.name, ...p.fields });
-      const { ambientAir, ...rest } = parsed;
+      // A liquid train's reference liquid is stored as the library has it (what the plant form stores too).
+      const train = p.fields.liquidTrain as { referenceFuel: { name: string } } | undefined;
+      const fields = train
+        ? {
+            ...p.fields,
+            liquidTrain: {
+              ...train,
+              referenceFuel: effectiveDefinition(await tx.fuel.findUniqueOrThrow({ where: { name: train.referenceFuel.name } })),
+            },
+          }
+        : p.fields;
+      const parsed = plantSchema.parse({ name: p.name, ...fields });
       const plant = await tx.plant.create({
         data: {
-          ...rest,
-          annualUsefulHeat_MWh: rest.annualUsefulHeat_MWh ?? null,
-          returnWaterC: rest.returnWaterC ?? null,
-          ambientAirTemperatureC: ambientAir.temperatureC,
-          ambientAirRelativeHumidityPercent: ambientAir.relativeHumidityPercent,
+          ...plantColumns(parsed),
           baselineFuelId: ids.get(p.baselineFuel)!,
           isDemo: true,
         },

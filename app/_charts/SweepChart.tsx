@@ -17,7 +17,8 @@ export interface SweepChartProps {
   yUnit: string;
   data: { x: number; y: number | null }[];
   /** Horizontal limit lines (fan capacity, supply capacity, maximum flame temperature …). */
-  limits?: { y: number; label: string }[];
+  /** Horizontal limit lines; a label sits at the lower right unless `labelAt` puts it at the upper left (two close lines). */
+  limits?: { y: number; label: string; labelAt?: "insideTopLeft" }[];
   /** A band the value must stay inside (Wobbe tolerance). */
   band?: { min: number; max: number; label: string };
   /** First shares at which a limit warns / fails. */
@@ -81,7 +82,7 @@ export function SweepChart({ title, yUnit, data, limits = [], band, markers = []
             ifOverflow="extendDomain"
             stroke={CHART_COLOURS.limit}
             strokeDasharray="6 3"
-            label={{ value: l.label, position: "insideBottomRight", fontSize: 11, fill: CHART_COLOURS.limit }}
+            label={{ value: l.label, position: l.labelAt ?? "insideBottomRight", fontSize: 11, fill: CHART_COLOURS.limit }}
           />
         ))}
         {vLines.map((v) => (

@@ -20,6 +20,8 @@ export interface CommandImpl<R = unknown> {
   csv?(result: R, options: ParsedOptions): CsvTable;
   /** The single-input CSV text, when it differs from the generic writer's (evaluate keeps its tables). */
   singleCsv?(result: R, options: ParsedOptions): string;
+  /** Batch records leave one by one as they are computed (slow commands: a reader sees each as it finishes). */
+  recordByRecord?: boolean;
 }
 
 /** Erases the result type of an implementation for the registry. */

@@ -50,7 +50,12 @@ export const COMMANDS: readonly CommandSpec[] = [
       "burningVelocity_cm_per_s, burntTemperatureK, flameThickness_mm, gridPoints, mechanism, transport, products (burnt-end mole fractions), NO {ppm_dry, mg_per_m3_dry_at_ref_O2, referenceO2Percent, residenceMs} (a screening indicator), diagnostics; with --format csv one row per input",
     csv: true,
     folder: false,
-    options: [],
+    options: [
+      {
+        name: "warm-chain",
+        help: "batch: start each input from the previous input's converged flame (neighbouring mixtures such as a hydrogen sweep converge in a few steps)",
+      },
+    ],
     examples: [
       `echo '{"fuel": {"composition": {"CH4": 0.8, "H2": 0.2}}, "phi": 0.9}' | stoke flame-speed --input -`,
       "stoke flame-speed --input mixtures.ndjson --format csv > speeds.csv",
@@ -78,10 +83,21 @@ export const COMMANDS: readonly CommandSpec[] = [
         help: "add the Monte Carlo ranking over N draws (10–100000; Latin hypercube, the study's ranges)",
       },
       { name: "seed", value: "S", help: "seed of the Monte Carlo draws (default 1; the same seed gives the same figures)" },
+      {
+        name: "no-flame-speed",
+        help: "skip the flame solves (burning velocity, flashback, NOx): quick runs; those figures are then unknown (null), never 0",
+      },
+      {
+        name: "flame-cache",
+        value: "FILE",
+        help: "read flame solves from FILE and write the new ones back (JSON; a solve is keyed by its inputs, so each is computed once)",
+      },
     ],
     checkOptions(o) {
       if (o.table !== undefined && o.format !== "csv") throw new UsageError("--table applies to --format csv only");
       if (o.seed !== undefined && o.uncertainty === undefined) throw new UsageError("--seed applies to --uncertainty only");
+      if (o["flame-cache"] !== undefined && o["no-flame-speed"] !== undefined)
+        throw new UsageError("--flame-cache and --no-flame-speed exclude each other");
     },
     examples: [
       "stoke evaluate --input study.json",

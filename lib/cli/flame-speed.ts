@@ -6,7 +6,8 @@
 import { defineCommand, type CsvTable } from "./command";
 import { validate } from "./io";
 import { flameSpeedRequestSchema } from "../schemas/flame-speed";
-import { computeFlameSpeed } from "../flame/flame-speed";
+import { computeFlameSpeed, type FlameSpeedState } from "../flame/flame-speed";
+import { NotConvergedError } from "../errors";
 
 type FlameSpeedOutput = ReturnType<typeof output>;
 
@@ -15,9 +16,22 @@ function output(r: ReturnType<typeof computeFlameSpeed>) {
   return rest;
 }
 
+/** With --warm-chain: the last converged solution of this run, the next input's starting point. */
+let chain: FlameSpeedState | undefined;
+
 export const flameSpeedCommand = defineCommand({
-  compute(input) {
-    return output(computeFlameSpeed(validate(flameSpeedRequestSchema, input)));
+  recordByRecord: true,
+  compute(input, o) {
+    const req = validate(flameSpeedRequestSchema, input);
+    if (o["warm-chain"] !== true) return output(computeFlameSpeed(req));
+    try {
+      const r = computeFlameSpeed(req, chain ? { warmStart: chain } : {});
+      chain = r.solution;
+      return output(r);
+    } catch (e) {
+      if (e instanceof NotConvergedError) chain = undefined;
+      throw e;
+    }
   },
   csv(r: FlameSpeedOutput): CsvTable {
     return {

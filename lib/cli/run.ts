@@ -218,6 +218,7 @@ async function batch(
       else {
         const w = io.out.write(`${JSON.stringify({ ...item.key, ok: true, result })}\n`);
         if (w) await w;
+        if (impl.recordByRecord) await io.out.flush();
       }
     } catch (e) {
       const f = describeFailure(e, io.debug);
@@ -234,6 +235,7 @@ async function batch(
         };
         const w = io.out.write(`${JSON.stringify({ ...item.key, ok: false, error })}\n`);
         if (w) await w;
+        if (impl.recordByRecord) await io.out.flush();
       }
     }
     progress?.tick(done, failedKeys.length);

@@ -6,6 +6,7 @@ import type { Plant as PlantRow } from "./generated/client";
 import type { DbOrTx, Tx } from "./client";
 import { plantSchema, type Plant, type PlantInput } from "../schemas/plant";
 import { groupBy, inChunks } from "./chunks";
+import type { Burner } from "../schemas/burner";
 
 export type { PlantRow };
 
@@ -64,15 +65,44 @@ export function plantInputFromRow(row: PlantRow): PlantInput {
     maxH2SharePercent: row.maxH2SharePercent,
     warnAtFractionOfLimit: row.warnAtFractionOfLimit,
     dewPointMarginK: row.dewPointMarginK,
+    burner:
+      row.burnerType === null
+        ? null
+        : {
+            type: row.burnerType as Burner["type"],
+            airControl: (row.burnerAirControl ?? "fixed-linkage") as Burner["airControl"],
+            ...(row.burnerFlashbackWarnRatio === null ? {} : { flashbackWarnRatio: row.burnerFlashbackWarnRatio }),
+            ...(row.burnerFlashbackFailRatio === null ? {} : { flashbackFailRatio: row.burnerFlashbackFailRatio }),
+            ...(row.burnerRegulatedSupply === null ? {} : { regulatedSupply: row.burnerRegulatedSupply }),
+          },
+    noxLimit_mg_per_m3: row.noxLimit_mg_per_m3,
+    noxReferenceO2Percent: row.noxReferenceO2Percent,
+    noxMeasuredBaseline_mg_per_m3: row.noxMeasuredBaseline_mg_per_m3,
+    so2Limit_mg_per_m3: row.so2Limit_mg_per_m3,
+    gasBurnerPressure_kPa: row.gasBurnerPressure_kPa,
+    gasSupplyPressure_kPa: row.gasSupplyPressure_kPa,
+    liquidTrain: row.liquidTrain === null ? null : (JSON.parse(row.liquidTrain) as PlantInput["liquidTrain"]),
     notes: row.notes,
   };
 }
 
 /** Columns of a validated plant. */
 export function plantColumns(p: Plant) {
-  const { ambientAir, ...rest } = p;
+  const { ambientAir, burner, liquidTrain, ...rest } = p;
   return {
     ...rest,
+    burnerType: burner?.type ?? null,
+    burnerAirControl: burner?.airControl ?? null,
+    burnerFlashbackWarnRatio: burner?.flashbackWarnRatio ?? null,
+    burnerFlashbackFailRatio: burner?.flashbackFailRatio ?? null,
+    burnerRegulatedSupply: burner?.regulatedSupply ?? null,
+    noxLimit_mg_per_m3: rest.noxLimit_mg_per_m3 ?? null,
+    noxReferenceO2Percent: rest.noxReferenceO2Percent ?? null,
+    noxMeasuredBaseline_mg_per_m3: rest.noxMeasuredBaseline_mg_per_m3 ?? null,
+    so2Limit_mg_per_m3: rest.so2Limit_mg_per_m3 ?? null,
+    gasBurnerPressure_kPa: rest.gasBurnerPressure_kPa ?? null,
+    gasSupplyPressure_kPa: rest.gasSupplyPressure_kPa ?? null,
+    liquidTrain: liquidTrain ? JSON.stringify(liquidTrain) : null,
     annualUsefulHeat_MWh: rest.annualUsefulHeat_MWh ?? null,
     returnWaterC: rest.returnWaterC ?? null,
     wobbeTolerancePercent: rest.wobbeTolerancePercent ?? null,

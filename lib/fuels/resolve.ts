@@ -31,6 +31,8 @@ export interface ResolvedFuel {
   molarMass_g_per_mol?: number;
   /** Liquids: density at 15 °C, kg/m³ (given, or from the compound data). */
   density_kg_per_m3?: number;
+  /** Liquids: kinematic viscosity as stated, mm²/s at one or two temperatures (°C). */
+  kinematicViscosity?: readonly { temperatureC: number; mm2_per_s: number }[];
   biogenicCarbonShare: number;
   upstreamCo2e_kg_per_GJ?: number;
   /** Standard enthalpy of formation at 298.15 K of the fuel as fed, J/kg. */
@@ -376,6 +378,7 @@ function resolveFuelAt(def: FuelDefinition, field: string, depth: number): Resol
   if (def.biogenicCarbonShare !== undefined) f.biogenicCarbonShare = def.biogenicCarbonShare;
   if (def.upstreamCo2e_kg_per_GJ !== undefined) f.upstreamCo2e_kg_per_GJ = def.upstreamCo2e_kg_per_GJ;
   if (def.densityKgPerM3 !== undefined) f.density_kg_per_m3 = def.densityKgPerM3;
+  if (def.kinematicViscosity !== undefined) f.kinematicViscosity = def.kinematicViscosity;
   return f;
 }
 

@@ -11,6 +11,9 @@
  *   trim the flue O2 set-point is restored (λ as retuned).
  * - Air demand per m³ of gas from the stoichiometric oxidiser per mole of gas (ideal-gas molar volumes,
  *   the same for air and gas at the same reference).
+ * - Liquids (the liquid train of a dual-fuel plant, pressure-jet atomiser at a fixed pump pressure):
+ *   the volume flow varies as 1/√(density), so the heat input varies with LHV per litre / √density,
+ *   the liquid counterpart of the Wobbe index, taken against the train's reference liquid.
  * - Retuned: the heat input restored and the flue O2 held at the plant's value (today's evaluation).
  */
 import type { ResolvedFuel } from "../fuels/resolve";
@@ -21,9 +24,28 @@ import type { AirControl } from "../schemas/burner";
 
 export interface BurnerGas {
   fuel: ResolvedFuel;
-  /** Net Wobbe index and relative density at the plant's references. */
+  /**
+   * Heat per metered volume divided by √(density): the net Wobbe index of a gas (MJ/m³, relative
+   * density), or LHV per litre / √(density in kg/L) of a liquid; only ratios between fuels of one
+   * train are used.
+   */
   wobbeNet_MJ_per_m3: number;
+  /** Relative density (gas) or density in kg/L (liquid): the fixed orifice passes volume ∝ 1/√ of it. */
   relativeDensity: number;
+}
+
+/** The burner view of a fuel: a gas by its net Wobbe index, a liquid by its pressure-jet counterpart. */
+export function burnerFuel(
+  fuel: ResolvedFuel,
+  wobbe: { net_MJ_per_m3: number; relativeDensity: number } | null,
+  lhv_MJ_per_kg: number,
+): BurnerGas | null {
+  if (fuel.kind === "gas") return wobbe ? { fuel, wobbeNet_MJ_per_m3: wobbe.net_MJ_per_m3, relativeDensity: wobbe.relativeDensity } : null;
+  if (fuel.kind === "liquid" && fuel.density_kg_per_m3) {
+    const rho_kg_per_L = fuel.density_kg_per_m3 / 1000;
+    return { fuel, wobbeNet_MJ_per_m3: (lhv_MJ_per_kg * rho_kg_per_L) / Math.sqrt(rho_kg_per_L), relativeDensity: rho_kg_per_L };
+  }
+  return null;
 }
 
 export interface BurnerState {
@@ -56,16 +78,21 @@ export interface BurnerShiftInput {
   oxidizerTemperatureK: number;
   fuelTemperatureK?: number;
   pressurePa?: number;
+  /** Compute the adiabatic flame temperatures (default true; sweeps that need only λ and heat input skip them). */
+  flameTemperatures?: boolean;
 }
 
-/** Stoichiometric oxidiser per mole (= per m³, ideal gas) of a gas. */
+/** Stoichiometric oxidiser per metered volume: per mole (= per m³, ideal gas) of a gas, per litre of a liquid. */
 function airPerMol(g: BurnerGas, oxidizer: Oxidizer): number {
-  const d = oxidizerDemand(g.fuel, oxidizer).oxidizer_mol_per_mol;
-  if (d === undefined) throw new InputError("fuel", "the burner shift is computed for gases only");
+  const demand = oxidizerDemand(g.fuel, oxidizer);
+  if (g.fuel.kind === "liquid") return demand.oxidizer_mol_per_kg * g.relativeDensity;
+  const d = demand.oxidizer_mol_per_mol;
+  if (d === undefined) throw new InputError("fuel", "the burner shift is computed for gases and liquids only");
   return d;
 }
 
 function flameAt(g: BurnerGas, lambda: number, input: BurnerShiftInput): Pick<BurnerState, "adiabaticFlameTemperatureK" | "flameProblem"> {
+  if (input.flameTemperatures === false) return { adiabaticFlameTemperatureK: null, flameProblem: "not computed" };
   try {
     const r = flameTemperature({
       fuel: g.fuel,
@@ -128,6 +155,9 @@ export function burnerShift(input: BurnerShiftInput): BurnerShift {
   };
 }
 
+/** The rules of thumb of `burnerRisks` (common practice, no source). */
+export const UNTUNED_RULES = Object.freeze({ coLambda: 1.05, leanBlowOffFactor: 1.2, heatInputPercent: 5 });
+
 export type BurnerRisk = "lean-blow-off" | "co-formation" | "sub-stoichiometric" | "derating" | "overfiring";
 
 /**
@@ -140,15 +170,16 @@ export function burnerRisks(shift: BurnerShift, setupLambda: number): { risk: Bu
   const u = shift.untuned;
   if (u.lambda < 1)
     out.push({ risk: "sub-stoichiometric", text: `λ ${u.lambda.toFixed(3)} < 1: sub-stoichiometric combustion, CO and unburnt fuel` });
-  else if (u.lambda < 1.05) out.push({ risk: "co-formation", text: `λ ${u.lambda.toFixed(3)} close to 1: CO formation likely` });
-  if (u.lambda > 1.2 * setupLambda)
+  else if (u.lambda < UNTUNED_RULES.coLambda)
+    out.push({ risk: "co-formation", text: `λ ${u.lambda.toFixed(3)} close to 1: CO formation likely` });
+  if (u.lambda > UNTUNED_RULES.leanBlowOffFactor * setupLambda)
     out.push({
       risk: "lean-blow-off",
       text: `λ ${u.lambda.toFixed(2)} is ${(100 * (u.lambda / setupLambda - 1)).toFixed(0)} % above its set-up value: lean blow-off and flame instability risk`,
     });
-  if (u.heatInputChangePercent !== null && u.heatInputChangePercent < -5)
+  if (u.heatInputChangePercent !== null && u.heatInputChangePercent < -UNTUNED_RULES.heatInputPercent)
     out.push({ risk: "derating", text: `heat input ${u.heatInputChangePercent.toFixed(1)} %: the unit is derated until retuned` });
-  if (u.heatInputChangePercent !== null && u.heatInputChangePercent > 5)
+  if (u.heatInputChangePercent !== null && u.heatInputChangePercent > UNTUNED_RULES.heatInputPercent)
     out.push({ risk: "overfiring", text: `heat input +${u.heatInputChangePercent.toFixed(1)} %: the unit is overfired until retuned` });
   return out;
 }

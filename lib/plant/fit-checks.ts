@@ -26,6 +26,13 @@ export const FIT_CHECK_IDS = [
   "fuel-supply",
   "stack-dew-point",
   "hydrogen-share",
+  "gas-pressure",
+  "liquid-flow",
+  "liquid-viscosity",
+  "untuned-burner",
+  "flashback",
+  "nox-permit",
+  "so2-permit",
 ] as const;
 export type FitCheckId = (typeof FIT_CHECK_IDS)[number];
 
@@ -38,6 +45,13 @@ export const FIT_CHECK_LABELS: Record<FitCheckId, string> = {
   "fuel-supply": "Fuel volume flow vs supply capacity",
   "stack-dew-point": "Stack temperature vs dew point (water; acid for sulfur fuels)",
   "hydrogen-share": "Hydrogen share vs burner maker's limit",
+  "gas-pressure": "Gas pressure needed at the burner vs supply pressure",
+  "liquid-flow": "Liquid flow vs liquid-train capacity",
+  "liquid-viscosity": "Viscosity at the atomiser vs its range",
+  "untuned-burner": "Untuned burner on the day the fuel changes",
+  flashback: "Flashback: burning velocity vs baseline (screening estimate)",
+  "nox-permit": "NOx vs permit (screening estimate)",
+  "so2-permit": "SO2 vs permit (from fuel sulfur)",
 };
 
 export interface FitCheck {
@@ -81,7 +95,7 @@ export function worstStatus(statuses: readonly CheckStatus[]): CheckStatus {
 const AT_LIMIT_TOLERANCE = 1e-9;
 
 /** Status of a one-sided "at most" limit. */
-function atMost(value: number, limit: number, warnAt: number): { status: CheckStatus; usage: number } {
+export function atMost(value: number, limit: number, warnAt: number): { status: CheckStatus; usage: number } {
   const usage = limit > 0 ? value / limit : value > AT_LIMIT_TOLERANCE ? Infinity : 0;
   return {
     status:
@@ -113,6 +127,11 @@ const refLabel = meteringLabel;
 export interface FitCheckOptions {
   /** Build the message sentences (default true); sweeps that need only statuses and numbers skip them. */
   messages?: boolean;
+  /**
+   * The fuel whose flame a candidate's flame temperature is judged against when it is not the
+   * baseline's: the reference liquid of a dual-fuel plant's liquid train for liquid candidates.
+   */
+  flameReference?: { fip: FuelInPlant; label: string };
 }
 
 export function fitChecks(plant: Plant, baseline: FuelInPlant, cand: FuelInPlant, options: FitCheckOptions = {}): FitCheck[] {
@@ -225,8 +244,10 @@ export function fitChecks(plant: Plant, baseline: FuelInPlant, cand: FuelInPlant
 
   // --- Flame temperature -------------------------------------------------------------------
   {
+    const ref = options.flameReference;
     const cf = cand.perf.flame;
-    const bf = baseline.perf.flame;
+    const bf = ref ? ref.fip.perf.flame : baseline.perf.flame;
+    const refName = ref ? `the liquid train's reference (${ref.label})` : "baseline";
     const lim = plant.maxFlameTempRiseK ?? null;
     const op = cand.perf.operatingPoint;
     if (!cf || !bf) {
@@ -247,7 +268,7 @@ export function fitChecks(plant: Plant, baseline: FuelInPlant, cand: FuelInPlant
         : `adiabatic flame temperature, chemical equilibrium (NASA RP-1311 method), at ${fmt(op.flueO2DryPercent, 1)} % O2 dry and ${op.combustionAirC} °C combustion air, fuel at 25 °C, 101.325 kPa`;
       const text = !T
         ? ""
-        : `flame ${fmt(cf.temperatureC, 0)} °C, ${rise >= 0 ? "+" : ""}${fmt(rise, 0)} K versus baseline ${fmt(bf.temperatureC, 0)} °C`;
+        : `flame ${fmt(cf.temperatureC, 0)} °C, ${rise >= 0 ? "+" : ""}${fmt(rise, 0)} K versus ${refName} ${fmt(bf.temperatureC, 0)} °C`;
       if (lim === null)
         push({
           id: "flame-temperature-rise",
@@ -347,7 +368,20 @@ export function fitChecks(plant: Plant, baseline: FuelInPlant, cand: FuelInPlant
     const bv = baseline.flows.fuelVolume_per_h;
     const candKind = cand.ctx.fuel.kind;
     const baseKind = baseline.ctx.fuel.kind;
-    if (candKind !== baseKind) {
+    const train = plant.liquidTrain ?? null;
+    if (candKind === "liquid" && train) {
+      push({
+        id: "fuel-supply",
+        status: "not-applicable",
+        value: null,
+        limit: null,
+        unit: "m³/h",
+        usage: null,
+        basis: "",
+        message: "fired on the liquid train: its capacity is the liquid-flow check",
+      });
+      liquidTrainChecks(train, cand, push, warnAt, T);
+    } else if (candKind !== baseKind) {
       push({
         id: "fuel-supply",
         status: "warn",
@@ -401,6 +435,29 @@ export function fitChecks(plant: Plant, baseline: FuelInPlant, cand: FuelInPlant
         });
       }
     }
+  }
+
+  if (!(cand.ctx.fuel.kind === "liquid" && plant.liquidTrain)) {
+    push({
+      id: "liquid-flow",
+      status: "not-applicable",
+      value: null,
+      limit: null,
+      unit: plant.liquidTrain?.flowUnit ?? "L/h",
+      usage: null,
+      basis: "",
+      message: plant.liquidTrain ? "not a liquid fuel: the liquid train does not apply" : "the plant has no liquid train",
+    });
+    push({
+      id: "liquid-viscosity",
+      status: "not-applicable",
+      value: null,
+      limit: null,
+      unit: "mm²/s",
+      usage: null,
+      basis: "",
+      message: plant.liquidTrain ? "not a liquid fuel" : "the plant has no liquid train",
+    });
   }
 
   // --- Stack vs dew point --------------------------------------------------------------------
@@ -534,4 +591,111 @@ export function fitChecks(plant: Plant, baseline: FuelInPlant, cand: FuelInPlant
     }
   }
   return out;
+}
+
+/**
+ * Kinematic viscosity at a temperature from one or two stated points: ASTM D341 (Walther),
+ * log10 log10(ν + 0.7) = A − B log10 T, through two points; one point serves only within 1 K of it.
+ */
+export function viscosityAt(
+  points: readonly { temperatureC: number; mm2_per_s: number }[] | undefined,
+  temperatureC: number,
+): number | null {
+  if (!points || points.length === 0) return null;
+  if (points.length === 1 || points[0].temperatureC === points[1].temperatureC)
+    return Math.abs(points[0].temperatureC - temperatureC) <= 1 ? points[0].mm2_per_s : null;
+  const ll = (v: number) => Math.log10(Math.log10(v + 0.7));
+  const [a, b] = points;
+  const ta = Math.log10(a.temperatureC + 273.15);
+  const tb = Math.log10(b.temperatureC + 273.15);
+  const B = (ll(a.mm2_per_s) - ll(b.mm2_per_s)) / (tb - ta);
+  const A = ll(a.mm2_per_s) + B * ta;
+  return 10 ** (10 ** (A - B * Math.log10(temperatureC + 273.15))) - 0.7;
+}
+
+/** The liquid train's flow and atomiser checks of a liquid candidate. */
+function liquidTrainChecks(
+  train: NonNullable<Plant["liquidTrain"]>,
+  cand: FuelInPlant,
+  push: (c: Omit<FitCheck, "label">) => void,
+  warnAt: number,
+  T: boolean,
+): void {
+  const kg = cand.flows.fuel_kg_per_h;
+  const rho = cand.ctx.fuel.density_kg_per_m3;
+  const flow = train.flowUnit === "kg/h" ? kg : rho ? (1000 * kg) / rho : null;
+  const flowBasis =
+    train.flowUnit === "kg/h" ? "fuel mass flow at rated duty" : "liquid volume flow at rated duty at the fuel's density at 15 °C";
+  if (flow === null) {
+    push({
+      id: "liquid-flow",
+      status: "not-checked",
+      value: null,
+      limit: train.flowCapacity,
+      unit: train.flowUnit,
+      usage: null,
+      basis: flowBasis,
+      message: T ? `fuel ${fmt(kg, 0)} kg/h; the fuel states no density, so its flow in L/h is unknown` : "",
+    });
+  } else {
+    const r = atMost(flow, train.flowCapacity, warnAt);
+    push({
+      id: "liquid-flow",
+      status: r.status,
+      value: flow,
+      limit: train.flowCapacity,
+      unit: train.flowUnit,
+      usage: r.usage,
+      basis: flowBasis,
+      message: T
+        ? `liquid ${fmt(flow, 0)} ${train.flowUnit} at rated duty; liquid-train capacity ${fmt(train.flowCapacity, 0)} ${train.flowUnit}`
+        : "",
+    });
+  }
+  const lo = train.viscosityMin_mm2_per_s ?? null;
+  const hi = train.viscosityMax_mm2_per_s ?? null;
+  const def = cand.ctx.fuel.kinematicViscosity;
+  const nu = viscosityAt(def, train.firingTemperatureC);
+  const basis = `kinematic viscosity at the atomiser (${train.firingTemperatureC} °C), ASTM D341 between the fuel's stated points`;
+  if (lo === null && hi === null) {
+    push({
+      id: "liquid-viscosity",
+      status: "not-checked",
+      value: nu,
+      limit: null,
+      unit: "mm²/s",
+      usage: null,
+      basis,
+      message: "no viscosity range entered for the atomiser",
+    });
+  } else if (nu === null) {
+    push({
+      id: "liquid-viscosity",
+      status: "not-checked",
+      value: null,
+      limit: lo ?? hi,
+      unit: "mm²/s",
+      usage: null,
+      basis,
+      message: T
+        ? `the fuel states ${def?.length ? "its viscosity at one temperature only" : "no viscosity"}: give it at two temperatures to check the atomiser range ${lo ?? "–"}–${hi ?? "–"} mm²/s`
+        : "",
+    });
+  } else {
+    const below = lo !== null && nu < lo;
+    const above = hi !== null && nu > hi;
+    const nearHi = hi !== null && nu >= warnAt * hi;
+    const nearLo = lo !== null && lo >= warnAt * nu;
+    const status: CheckStatus = below || above ? "fail" : nearHi || nearLo ? "warn" : "pass";
+    push({
+      id: "liquid-viscosity",
+      status,
+      value: nu,
+      limit: above || (!below && hi !== null && nu > (lo ?? 0) + (hi - (lo ?? 0)) / 2) ? hi : (lo ?? hi),
+      unit: "mm²/s",
+      usage: hi !== null ? nu / hi : null,
+      basis,
+      message: T ? `${fmt(nu, 2)} mm²/s at ${train.firingTemperatureC} °C; atomiser range ${lo ?? "–"}–${hi ?? "–"} mm²/s` : "",
+    });
+  }
 }

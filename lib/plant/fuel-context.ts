@@ -50,6 +50,7 @@ export function fuelStateKey(f: ResolvedFuel): string {
     fmt(f.biogenicCarbonShare),
     f.upstreamCo2e_kg_per_GJ === undefined ? "-" : fmt(f.upstreamCo2e_kg_per_GJ),
     f.density_kg_per_m3 === undefined ? "-" : fmt(f.density_kg_per_m3),
+    f.kinematicViscosity ? f.kinematicViscosity.map((p) => `${fmt(p.temperatureC)}:${fmt(p.mm2_per_s)}`).join(";") : "-",
   ].join("|");
   if (f.kind === "gas" && f.gasComposition) {
     let comp = "";

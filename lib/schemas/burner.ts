@@ -4,6 +4,7 @@
  * computes what a new gas does in such a burner.
  */
 import { z } from "zod";
+import { fuelDefinitionSchema } from "./fuel";
 
 export const BURNER_TYPES = ["premixed", "partially-premixed", "nozzle-mix"] as const;
 export type BurnerType = (typeof BURNER_TYPES)[number];
@@ -45,3 +46,66 @@ export const burnerSchema = z
     message: "must be at least the warning ratio",
   });
 export type Burner = z.output<typeof burnerSchema>;
+
+const pressure = (what: string) =>
+  z.number({ error: "must be a number" }).finite("must be a number").positive(`${what} must be > 0`).max(100_000, "must be ≤ 100 000 kPa");
+
+/**
+ * The gas train's pressures (gauge, kPa): what the burner needs at rated input on the baseline gas,
+ * and the most the supply can deliver ahead of the burner. A gas of lower Wobbe index needs
+ * (W_baseline/W_candidate)² of the burner pressure to fire the same heat through the same orifice.
+ */
+export const gasTrainShape = {
+  gasBurnerPressure_kPa: pressure("the burner pressure").nullish(),
+  gasSupplyPressure_kPa: pressure("the supply pressure").nullish(),
+};
+
+export const LIQUID_FLOW_UNITS = ["L/h", "kg/h"] as const;
+export type LiquidFlowUnit = (typeof LIQUID_FLOW_UNITS)[number];
+
+/**
+ * The liquid train of a dual-fuel plant: pump/meter capacity, the viscosity range its atomiser takes
+ * at the firing temperature, the flue O2 it is set to, and the liquid fuel it was set up on (its
+ * reference flame).
+ */
+export const liquidTrainSchema = z
+  .object({
+    flowCapacity: z.number({ error: "must be a number" }).finite("must be a number").positive("must be > 0").max(1e8, "must be ≤ 10^8"),
+    flowUnit: z.enum(LIQUID_FLOW_UNITS, { error: 'must be "L/h" or "kg/h"' }),
+    viscosityMin_mm2_per_s: z
+      .number({ error: "must be a number" })
+      .finite("must be a number")
+      .positive("must be > 0")
+      .max(10_000, "must be ≤ 10 000 mm²/s")
+      .nullish(),
+    viscosityMax_mm2_per_s: z
+      .number({ error: "must be a number" })
+      .finite("must be a number")
+      .positive("must be > 0")
+      .max(10_000, "must be ≤ 10 000 mm²/s")
+      .nullish(),
+    /** Temperature of the liquid at the atomiser, °C. */
+    firingTemperatureC: z
+      .number({ error: "must be a number" })
+      .finite("must be a number")
+      .min(-40, "must be ≥ −40 °C")
+      .max(250, "must be ≤ 250 °C")
+      .default(20),
+    /** Flue O2 (dry, vol %) the liquid train is set to; absent = the plant's. */
+    flueO2DryPercent: z
+      .number({ error: "must be a number" })
+      .finite("must be a number")
+      .min(0, "must be ≥ 0 %")
+      .max(18, "must be ≤ 18 %")
+      .nullish(),
+    /** The liquid fuel the train is set up on (its flame is the liquid candidates' reference). */
+    referenceFuel: z.lazy(() => fuelDefinitionSchema),
+  })
+  .strict()
+  .superRefine((t, ctx) => {
+    const lo = t.viscosityMin_mm2_per_s ?? null;
+    const hi = t.viscosityMax_mm2_per_s ?? null;
+    if (lo !== null && hi !== null && !(hi > lo))
+      ctx.addIssue({ code: "custom", path: ["viscosityMax_mm2_per_s"], message: "must be greater than the lowest viscosity" });
+  });
+export type LiquidTrain = z.output<typeof liquidTrainSchema>;

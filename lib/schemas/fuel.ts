@@ -22,6 +22,22 @@ const fuelAttributes = {
   /** Optional upstream (well-to-tank) emissions, kg CO2e per GJ of fuel (net basis). */
   upstreamCo2e_kg_per_GJ: z.number().finite().min(0, "must be ≥ 0").max(500, "must be ≤ 500").optional(),
   name: z.string().max(120).optional(),
+  /**
+   * Kinematic viscosity of a liquid, mm²/s, at one or two temperatures (°C); with two, ASTM D341
+   * gives it at any temperature between and near them (the liquid train's atomiser check).
+   */
+  kinematicViscosity: z
+    .array(
+      z
+        .object({
+          temperatureC: z.number().finite().min(-40, "must be ≥ −40 °C").max(300, "must be ≤ 300 °C"),
+          mm2_per_s: z.number().finite().positive("must be > 0").max(100_000, "must be ≤ 100 000 mm²/s"),
+        })
+        .strict(),
+    )
+    .min(1, "give at least one point")
+    .max(2, "give one or two points")
+    .optional(),
 };
 
 export const gasCompositionSchema = z
@@ -97,6 +113,7 @@ export interface BlendFuelDefinition {
   biogenicCarbonShare?: number;
   upstreamCo2e_kg_per_GJ?: number;
   name?: string;
+  kinematicViscosity?: { temperatureC: number; mm2_per_s: number }[];
 }
 
 /**

@@ -6,6 +6,7 @@
 import { z } from "zod";
 import { METERING_REFERENCE_KEYS, METERING_REFERENCES, type MeteringReferenceKey } from "../units/metering";
 import { nameSchema } from "./names";
+import { burnerSchema, gasTrainShape, liquidTrainSchema } from "./burner";
 
 export const EQUIPMENT_TYPES = ["steam-boiler", "hot-water-boiler", "thermal-oil-heater", "process-furnace", "kiln", "dryer"] as const;
 export type EquipmentType = (typeof EQUIPMENT_TYPES)[number];
@@ -107,6 +108,17 @@ export const plantLimitsShape = {
   warnAtFractionOfLimit: num().min(0.5, "must be ≥ 0.5").max(1, "must be ≤ 1").default(0.9),
   /** A stack less than this far above the water dew point warns (non-condensing units), K. */
   dewPointMarginK: num().min(0, "must be ≥ 0 K").max(100, "must be ≤ 100 K").default(10),
+  /** Permit limit of NOx (as NO2), mg/m³ dry at 0 °C, 101.325 kPa and the reference O2 below. */
+  noxLimit_mg_per_m3: num().positive("must be > 0").max(10_000, "must be ≤ 10 000 mg/m³").nullish(),
+  /** Reference O2 of the permit limits, % dry; absent = the reference for the fuel type (3 % gases and liquids, 6 % solids). */
+  noxReferenceO2Percent: num().min(0, "must be ≥ 0 %").max(20, "must be ≤ 20 %").nullish(),
+  /** NOx measured on the baseline fuel, mg/m³ dry at the reference O2: the candidates' figures are scaled from it. */
+  noxMeasuredBaseline_mg_per_m3: num().positive("must be > 0").max(10_000, "must be ≤ 10 000 mg/m³").nullish(),
+  /** Permit limit of SO2, mg/m³ dry at the same reference O2. */
+  so2Limit_mg_per_m3: num().positive("must be > 0").max(50_000, "must be ≤ 50 000 mg/m³").nullish(),
+  /** The burner: type, air-ratio control, flashback thresholds, supply regulation (absent = not described). */
+  burner: burnerSchema.nullish(),
+  ...gasTrainShape,
 };
 
 export const plantSchema = z
@@ -129,6 +141,8 @@ export const plantSchema = z
       unburntCarbonInAshPercent: operatingPointShape.unburntCarbonInAshPercent.default(0),
       ambientAir: ambientAirSchema.default({ temperatureC: 15, relativeHumidityPercent: 60 }),
       ...plantLimitsShape,
+      /** A second, liquid fuel train (dual-fuel plants): its own limits and reference fuel. */
+      liquidTrain: liquidTrainSchema.nullish(),
       notes: z.string().max(5000).default(""),
     },
     { error: (iss) => (iss.input === undefined ? "required: the plant (an object)" : "must be an object describing the plant") },
@@ -181,6 +195,11 @@ export const operatingOverridesSchema = z
     maxH2SharePercent: plantLimitsShape.maxH2SharePercent,
     maxFlameTempRiseK: plantLimitsShape.maxFlameTempRiseK,
     wobbeTolerancePercent: plantLimitsShape.wobbeTolerancePercent,
+    burner: plantLimitsShape.burner,
+    noxLimit_mg_per_m3: plantLimitsShape.noxLimit_mg_per_m3,
+    noxReferenceO2Percent: plantLimitsShape.noxReferenceO2Percent,
+    noxMeasuredBaseline_mg_per_m3: plantLimitsShape.noxMeasuredBaseline_mg_per_m3,
+    so2Limit_mg_per_m3: plantLimitsShape.so2Limit_mg_per_m3,
     stackTemperatureC: operatingPointShape.stackTemperatureC.optional(),
     flueO2DryPercent: operatingPointShape.flueO2DryPercent.optional(),
     combustionAirC: operatingPointShape.combustionAirC.optional(),
@@ -214,6 +233,11 @@ export function plantWithOverrides(plant: Plant, overrides: OperatingOverrides =
   if (overrides.maxH2SharePercent !== undefined) out.maxH2SharePercent = overrides.maxH2SharePercent;
   if (overrides.maxFlameTempRiseK !== undefined) out.maxFlameTempRiseK = overrides.maxFlameTempRiseK;
   if (overrides.wobbeTolerancePercent !== undefined) out.wobbeTolerancePercent = overrides.wobbeTolerancePercent;
+  if (overrides.burner !== undefined) out.burner = overrides.burner;
+  if (overrides.noxLimit_mg_per_m3 !== undefined) out.noxLimit_mg_per_m3 = overrides.noxLimit_mg_per_m3;
+  if (overrides.noxReferenceO2Percent !== undefined) out.noxReferenceO2Percent = overrides.noxReferenceO2Percent;
+  if (overrides.noxMeasuredBaseline_mg_per_m3 !== undefined) out.noxMeasuredBaseline_mg_per_m3 = overrides.noxMeasuredBaseline_mg_per_m3;
+  if (overrides.so2Limit_mg_per_m3 !== undefined) out.so2Limit_mg_per_m3 = overrides.so2Limit_mg_per_m3;
   return out;
 }
 

@@ -116,6 +116,8 @@ export const hydrogenSweepSchema = z
     enabled: z.boolean({ error: "must be true or false" }).default(true),
     /** Step of the hydrogen share, vol %. */
     stepPercent: num().min(0.5, "must be ≥ 0.5 %").max(25, "must be ≤ 25 %").default(1),
+    /** Step of the flame solves (burning velocity, NOx) along the sweep, vol %; between them the first crossings are interpolated. */
+    flameStepPercent: num().min(5, "must be ≥ 5 %").max(50, "must be ≤ 50 %").default(10),
     /** The hydrogen to blend in (pure H2 by default). */
     hydrogen: fuelDefinitionSchema.default({ compound: "H2", phase: "gas" } as FuelDefinition),
     /** Delivered hydrogen price; without one the sweep has no cost line (unless a scenario burns pure hydrogen with a price). */
@@ -277,6 +279,7 @@ export const studySchema = z
       hydrogenSweep: hydrogenSweepSchema.default({
         enabled: true,
         stepPercent: 1,
+        flameStepPercent: 10,
         hydrogen: { compound: "H2", phase: "gas" } as FuelDefinition,
       }),
       plant: plantSchema,

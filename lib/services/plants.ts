@@ -50,6 +50,16 @@ async function parsePlant(tx: DbOrTx, raw: unknown): Promise<Result<{ plant: Pla
     return problem("invalid", "The plant must be an object.", { _: "expected an object" });
   const { baselineFuelId, isDemo: _ignored, ...rest } = raw as Record<string, unknown>;
   const errs: FieldErrors = {};
+  // The forms name the liquid train's reference fuel by its library id: its definition is stored with the plant.
+  const lt = rest.liquidTrain as Record<string, unknown> | null | undefined;
+  if (lt && typeof lt === "object" && "referenceFuelId" in lt) {
+    const { referenceFuelId, ...train } = lt;
+    const f = typeof referenceFuelId === "number" ? await findFuel(tx, referenceFuelId) : null;
+    if (!f) errs["liquidTrain.referenceFuel"] = "choose the liquid the train is set up on";
+    else if (f.kind !== "liquid") errs["liquidTrain.referenceFuel"] = `${f.name} is not a liquid`;
+    else rest.liquidTrain = { ...train, referenceFuel: { ...effectiveDefinition(f), name: f.name } };
+    if (!f || f.kind !== "liquid") rest.liquidTrain = { ...train, referenceFuel: { compound: "C16H34", phase: "liquid" } };
+  }
   const parsed = plantSchema.safeParse(rest);
   if (!parsed.success) Object.assign(errs, fieldErrors(parsed.error));
   let fuelId: number | null = null;

@@ -24,10 +24,15 @@ import {
   type ViewSettings,
 } from "./studies";
 import { ok, problem, problemFromError, type Result } from "./result";
+import { flameLookup } from "./flames";
+import type { FlameLookup } from "../plant/burner-flame";
 
-/** How a revision is evaluated, at issue and whenever it is shown again: as `stoke evaluate` does. */
-export function evaluateFrozen(study: Study): StudyResult {
-  return evaluateStudy(study, { sweep: study.hydrogenSweep.enabled, tornado: true, caches: createEvaluationCaches() });
+/**
+ * How a revision is evaluated, at issue and whenever it is shown again: as `stoke evaluate` does,
+ * with the stored flame solves (content-keyed, so the same figures whenever they are read).
+ */
+export function evaluateFrozen(study: Study, flames?: FlameLookup): StudyResult {
+  return evaluateStudy(study, { sweep: study.hydrogenSweep.enabled, tornado: true, caches: createEvaluationCaches(), flames });
 }
 
 /** The study file of a bundle, with its format tag, as stored in a revision. */
@@ -70,7 +75,7 @@ export async function issueRevision(db: Db, studyId: number): Promise<Result<{ r
   let result: StudyResult;
   try {
     // Evaluate the stored document itself (canonical key order), exactly as it will be read again.
-    result = evaluateFrozen(studySchema.parse(JSON.parse(inputs)));
+    result = evaluateFrozen(studySchema.parse(JSON.parse(inputs)), await flameLookup(db));
   } catch (e) {
     return problemFromError(e, {
       kind: "unprocessable",
@@ -126,7 +131,7 @@ export async function getRevision(db: Db, studyId: number, number: number): Prom
 export async function studyReportData(
   db: Db,
   id: number,
-  opts: ViewSettings & { revision?: number; sweep?: EvaluateStoredOptions["sweep"]; tornado?: boolean } = {},
+  opts: ViewSettings & { revision?: number; sweep?: EvaluateStoredOptions["sweep"]; tornado?: boolean; solveFlames?: boolean } = {},
 ): Promise<Evaluated> {
   if (opts.revision === undefined) return evaluateStoredStudy(db, id, opts);
   const row = await findRevisionRow(db, id, opts.revision);
@@ -140,7 +145,7 @@ export async function studyReportData(
   };
   const stored = JSON.parse(row.meta) as StoredMeta;
   try {
-    const result = evaluateFrozen(study);
+    const result = evaluateFrozen(study, await flameLookup(db));
     return {
       ok: true,
       bundle: {

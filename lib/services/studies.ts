@@ -40,6 +40,7 @@ import { studyRecordSchema, type ScenarioRecord, type StudyRecord, type StudyRec
 import type { SensitivityRanges } from "../economics/sensitivity";
 import { evaluateStudy, type StudyResult } from "../study/evaluate";
 import { resolveFuel } from "../fuels/resolve";
+import { ensureFlameSolves, flameJobStatus, flameLookup, type FlameJobStatus } from "./flames";
 import { listRates, rateJson } from "../db/exchange-rate-rows";
 import { countRevisions } from "../db/revision-rows";
 import { rateInForce } from "../economics/currency";
@@ -453,6 +454,8 @@ export interface EvaluateStoredOptions extends ViewSettings {
    */
   sweep?: boolean | "if-chosen";
   tornado?: boolean;
+  /** Queue the flame solves still missing (default false; pages ask for it; a background job, never awaited). */
+  solveFlames?: boolean;
 }
 
 /** The problem of a sweep asked for on a study that names no hydrogen. */
@@ -474,10 +477,16 @@ export async function evaluateStoredStudy(db: Db, id: number, opts: EvaluateStor
   try {
     const options = { sweep: opts.sweep === true || (opts.sweep === "if-chosen" && chosen), tornado: opts.tornado ?? true };
     // Keyed by everything the evaluation reads: the self-contained study object and the options.
+    // A result still waiting for flame solves is not kept (the next look-up may have them); a
+    // complete one stays valid, as a stored solve never changes.
     const key = contentKey("study-result", loaded.bundle.inputKey ?? loaded.bundle.study, options);
-    const result = resultCache<StudyResult>().getOrCompute(key, () =>
-      evaluateStudy(loaded.bundle.study, { ...options, caches: sharedCaches() }),
-    );
+    const cache = resultCache<StudyResult>();
+    let result = cache.get(key);
+    if (!result) {
+      result = evaluateStudy(loaded.bundle.study, { ...options, caches: sharedCaches(), flames: await flameLookup(db) });
+      if (result.flameSolves.pending === 0) cache.set(key, result);
+    }
+    if (result.flameSolves.pending > 0 && opts.solveFlames === true) ensureFlameSolves(db, result.flameSolves.needed);
     return { ok: true, bundle: loaded.bundle, result };
   } catch (e) {
     return problemFromError(e, {
@@ -485,6 +494,25 @@ export async function evaluateStoredStudy(db: Db, id: number, opts: EvaluateStor
       message: (s, field) => `The study cannot be evaluated: ${field ? `${field}: ` : ""}${s}. Edit the study or the fuel to fix it.`,
     });
   }
+}
+
+export interface FlameProgress {
+  needed: number;
+  solved: number;
+  failed: number;
+  pending: number;
+  job: FlameJobStatus;
+}
+
+/**
+ * How far the flame solves of a study (its scenarios and hydrogen sweep) have come; queues the
+ * missing ones (what the pages poll while they fill in).
+ */
+export async function studyFlameProgress(db: Db, id: number, opts: { sweep?: boolean } = {}): Promise<Result<FlameProgress>> {
+  const ev = await evaluateStoredStudy(db, id, { sweep: opts.sweep ?? true, tornado: false, solveFlames: true });
+  if (!ev.ok) return ev;
+  const f = ev.result.flameSolves;
+  return { ok: true, value: { needed: f.needed.length, solved: f.solved, failed: f.failed, pending: f.pending, job: flameJobStatus() } };
 }
 
 /* ---------------------------------------------------------------- lists and records */

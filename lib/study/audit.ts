@@ -98,6 +98,29 @@ export const STUDY_METHODS: readonly AuditMethod[] = [
       "end-of-year discounted cash flows; levelised abatement cost = present cost without carbon price ÷ present tonnes avoided; break-even by the exact linearity of cost in price; one-at-a-time sensitivity",
     source: "engineering-economics practice (common practice, no source)",
   },
+  {
+    quantity: "untuned burner (heat input and air factor before retuning)",
+    method:
+      "fixed orifice at a regulated pressure: heat input follows the net Wobbe index (liquids: LHV per litre / √density); air factor from the stoichiometric air per m³ and the air-ratio control (fixed linkage keeps the air flow, pneumatic ratio the volume ratio, O2 trim the flue O2)",
+    source: "orifice equation and stoichiometry (common practice, no source)",
+  },
+  {
+    quantity: "laminar burning velocity (flashback screening)",
+    method:
+      "freely propagating adiabatic 1D premixed flame, mixture-averaged transport, adaptive grid; at the lower of the untuned and retuned air factors, as a ratio to the reference fuel",
+    source: "GRI-Mech 3.0 (Smith et al. 1999); PREMIX equations (Kee et al. 1985, SAND85-8240)",
+  },
+  {
+    quantity: "NOx indicator and SO2",
+    method:
+      "post-flame NO + NO2 of the flame's burnt gas after 20 ms (adiabatic plug flow), scaled from a measured baseline NOx when entered; SO2 from all fuel sulfur; mg/m³ dry at 0 °C, 101.325 kPa and the reference O2",
+    source: "GRI-Mech 3.0; reference conditions and O2 correction of Directive 2010/75/EU, Annexes V and VI",
+  },
+  {
+    quantity: "liquid viscosity at the atomiser",
+    method: "Walther equation through two stated points",
+    source: "ASTM D341",
+  },
 ];
 
 export function studyAssumptions(): string[] {

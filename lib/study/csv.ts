@@ -65,6 +65,15 @@ function scenarioRow(r: ScenarioResult): unknown[] {
     r.flowChangePercent.fuelVolume,
     r.efficiency.dewPointC,
     r.checks.map((x) => `${x.id}:${x.status}`).join(" "),
+    r.burner.untuned?.lambda,
+    r.burner.untuned?.flueO2DryPercent,
+    r.burner.untuned?.heatInputChangePercent,
+    r.burner.retuned?.lambda,
+    r.burner.burningVelocity_cm_per_s,
+    r.burner.burningVelocityRatio,
+    r.burner.nox.estimate_mg_per_m3,
+    r.burner.nox.ratioToBaseline,
+    r.burner.so2.mg_per_m3_dry_at_ref_O2,
   ];
 }
 
@@ -112,6 +121,15 @@ export function studyResultToCsv(result: StudyResult, which: CsvTable = "scenari
         "fuel volume change %",
         "water dew point °C",
         "fit checks",
+        "untuned lambda",
+        "untuned flue O2 % dry",
+        "untuned heat input change %",
+        "retuned lambda",
+        "burning velocity cm/s (screening)",
+        "burning velocity / baseline",
+        `NOx mg/m3 dry at ${result.baseline.burner.nox.referenceO2Percent} % O2 (screening)`,
+        "NOx / baseline",
+        `SO2 mg/m3 dry at ${result.baseline.burner.so2.referenceO2Percent} % O2`,
       ],
       rows.map(scenarioRow),
     );
@@ -143,6 +161,11 @@ export function studyResultToCsv(result: StudyResult, which: CsvTable = "scenari
       "air m3/h",
       `cost ${cur}/MWh useful`,
       "worst check",
+      "untuned lambda",
+      "untuned heat input change %",
+      "burning velocity / baseline (flame shares)",
+      "NOx mg/m3 (screening, flame shares)",
+      "NOx / baseline",
     ],
     sw.points.map((p) => [
       p.h2Percent,
@@ -161,6 +184,11 @@ export function studyResultToCsv(result: StudyResult, which: CsvTable = "scenari
       p.air_m3_per_h,
       p.costPerUsefulMWh,
       p.worst,
+      p.untunedLambda,
+      p.untunedHeatInputChangePercent,
+      p.burningVelocityRatio,
+      p.nox_mg_per_m3,
+      p.noxRatio,
     ]),
   );
 }

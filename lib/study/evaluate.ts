@@ -46,6 +46,9 @@ import { hydrogenSweep, type HydrogenSweepResult } from "./hydrogen-sweep";
 import { StudyInputError } from "./errors";
 import { pathEconomicsOf, studyPricePaths } from "./price-paths";
 import { kg_per_t, MJ_per_GJ, MJ_per_MWh } from "../units/energy";
+import type { FlameLookup } from "../plant/burner-flame";
+import type { FlameSpeedInput } from "../schemas/flame-speed";
+import { BURNER_CAUTIONS, BURNER_SCREENING_NOTE, burnerChecks, burnerResult, type BurnerResult } from "../plant/burner-checks";
 
 export { normaliseStudyPrice } from "./pricing";
 export { StudyInputError } from "./errors";
@@ -59,6 +62,20 @@ export interface EvaluationOptions {
   tornado?: boolean;
   /** Caches to reuse across evaluations (e.g. a page re-ranking the same study). */
   caches?: EvaluationCaches;
+  /**
+   * Flame solves found so far (by request key). Absent or missing a key: the burning velocity and
+   * NOx figures that need it are unknown (null) and the result lists the solve under
+   * `flameSolves.pending`.
+   */
+  flames?: FlameLookup;
+}
+
+/** One flame solve a study needs, in the order a solver should run them (sweep points in share order, for warm starts). */
+export interface FlameSolveNeed {
+  key: string;
+  request: FlameSpeedInput;
+  /** Where it is used: "baseline", "scenarios.2", "hydrogenSweep.30". */
+  usedBy: string[];
 }
 
 export type ScenarioStatus = "feasible" | "feasible-with-warnings" | "infeasible";
@@ -142,6 +159,8 @@ export interface ScenarioResult {
   comparison: Comparison | null;
   tornado: Tornado | null;
   checks: FitCheck[];
+  /** The burner: untuned and retuned, flashback margin, NOx and SO2 (screening estimates). */
+  burner: BurnerResult;
   status: ScenarioStatus;
   worstCheck: CheckStatus;
   metricValue: number | null;
@@ -191,6 +210,10 @@ export interface StudyResult {
   hydrogenSweep: HydrogenSweepResult | null;
   /** Screening-tool statement and the cautions that apply to the fuels of this study. */
   cautions: { screening: string; items: Caution[] };
+  /** The burner section's screening statement and cautions. */
+  burner: { screening: string; cautions: string[] };
+  /** Flame solves the study needs: all of them (deduplicated), and how many are solved, pending or failed. */
+  flameSolves: { needed: FlameSolveNeed[]; solved: number; pending: number; failed: number };
   audit: AuditTrail;
   stats: { fuelStates: number; performanceStates: number; performanceCacheHits: number };
 }
@@ -219,9 +242,20 @@ const OPERATING_POINT_FIELDS = new Set([
   "flueO2DryPercent",
 ]);
 
+/**
+ * The operating point of a fuel: the plant's with the scenario's overrides; a liquid fired on the
+ * liquid train of a dual-fuel plant at that train's flue O2 unless the scenario states its own.
+ */
+function operatingPointFor(plant: Plant, sc: Pick<Scenario, "overrides">, kind: string): OperatingPoint {
+  const op = operatingPointOf(plant, sc.overrides);
+  const trainO2 = plant.liquidTrain?.flueO2DryPercent ?? null;
+  if (kind === "liquid" && trainO2 !== null && sc.overrides?.flueO2DryPercent === undefined) op.flueO2DryPercent = trainO2;
+  return op;
+}
+
 function prepare(sc: Scenario, index: number, field: string, plant: Plant, caches: EvaluationCaches): Prepared {
   const ctx = caches.fuels.fromDefinition(sc.fuel, `${field}.fuel`);
-  const op = operatingPointOf(plant, sc.overrides);
+  const op = operatingPointFor(plant, sc, ctx.fuel.kind);
   if (op.condensing && op.returnWaterC === null)
     throw new StudyInputError(`${field}.overrides.returnWaterC`, "a condensing unit needs its return-water temperature");
   const opField = (k: string) => (sc.overrides && k in sc.overrides ? `${field}.overrides.${k}` : `plant.${k}`);
@@ -245,6 +279,23 @@ function atLoads(perf: Perf, duty: PlantDuty): { rated: EfficiencyResult; annual
     if (e instanceof InputError) throw new StudyInputError(`plant.${e.field}`, e.detail);
     throw e;
   }
+}
+
+/** The request behind a key (the key is its canonical JSON). */
+function flameRequestOf(key: string): FlameSpeedInput {
+  return JSON.parse(key) as FlameSpeedInput;
+}
+
+function flameSolveSummary(needed: FlameSolveNeed[], flames: FlameLookup | undefined): StudyResult["flameSolves"] {
+  let solved = 0;
+  let failed = 0;
+  for (const n of needed) {
+    const o = flames?.get(n.key);
+    if (o === undefined) continue;
+    if ("error" in o) failed++;
+    else solved++;
+  }
+  return { needed, solved, failed, pending: needed.length - solved - failed };
 }
 
 export function evaluateStudy(study: Study, options: EvaluationOptions = {}): StudyResult {
@@ -284,6 +335,46 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
     return { ctx: p.ctx, perf: p.perf, rated, flows: flowsForUseful(plant, p.ctx, p.perf, rated, duty.ratedUseful_kW) };
   };
   const baseFip = fip(base);
+
+  // The liquid train of a dual-fuel plant: its reference liquid is the burner set-up and the
+  // flame reference of every liquid candidate (when the baseline itself is not a liquid).
+  const train = plant.liquidTrain ?? null;
+  let liquidRef: { fip: FuelInPlant; label: string } | null = null;
+  if (train && base.ctx.fuel.kind !== "liquid" && cands.some((c) => c.ctx.fuel.kind === "liquid")) {
+    const refScenario: Scenario = { ...study.baseline, name: "liquid train reference", fuel: train.referenceFuel, overrides: {} };
+    const rp = prepare(refScenario, -2, "plant.liquidTrain.referenceFuel", plant, caches);
+    if (rp.ctx.fuel.kind !== "liquid") throw new StudyInputError("plant.liquidTrain.referenceFuel", "must be a liquid fuel");
+    liquidRef = { fip: fip(rp), label: train.referenceFuel.name ?? rp.ctx.label };
+  }
+
+  // Flame solves: every request the study needs, each once, in the order they are met.
+  const needs = new Map<string, FlameSolveNeed>();
+  const needFlame = (b: BurnerResult, usedBy: string) => {
+    if (!b.flame.key) return;
+    const n = needs.get(b.flame.key);
+    if (n) n.usedBy.push(usedBy);
+    else needs.set(b.flame.key, { key: b.flame.key, request: flameRequestOf(b.flame.key), usedBy: [usedBy] });
+  };
+  const baseBurner = burnerResult({
+    plant,
+    reference: baseFip,
+    referenceLabel: "the baseline fuel",
+    cand: baseFip,
+    baselineFlame: null,
+    flames: options.flames,
+  });
+  const baselineFlame = baseBurner.flame.figures;
+  const burnerOf = (p: Prepared, f: FuelInPlant, plantS: Plant) => {
+    const liquid = liquidRef !== null && p.ctx.fuel.kind === "liquid";
+    return burnerResult({
+      plant: plantS,
+      reference: liquid && liquidRef ? liquidRef.fip : baseFip,
+      referenceLabel: liquid && liquidRef ? `the liquid train's reference (${liquidRef.label})` : "the baseline fuel",
+      cand: f,
+      baselineFlame: liquid ? null : baselineFlame,
+      flames: options.flames,
+    });
+  };
 
   /** Upstream CO2e per GJ (net), or null when the fuel (or a blend component) states no factor: unknown, never 0. */
   const upstreamOf = (p: Prepared): number | null => p.ctx.co2.upstreamCo2e_kg_per_GJ_lhv ?? null;
@@ -333,7 +424,14 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
     const costs = ci ? scenarioCosts(ci) : null;
     const comparison = !isBaseline && ci && baseCI ? compare(baseCI, ci, fin) : null;
     const tor = !isBaseline && ci && baseCI && options.tornado !== false ? tornado(metric, baseCI, ci, fin, study.sensitivity) : null;
-    const checks = fitChecks(plantWithOverrides(plant, p.scenario.overrides), baseFip, f);
+    const plantS = plantWithOverrides(plant, p.scenario.overrides);
+    const liquidOnTrain = liquidRef !== null && ctx.fuel.kind === "liquid";
+    const burner = burnerOf(p, f, plantS);
+    needFlame(burner, p.field);
+    const checks = [
+      ...fitChecks(plantS, baseFip, f, liquidOnTrain && liquidRef ? { flameReference: liquidRef } : {}),
+      ...burnerChecks(plantS, liquidOnTrain && liquidRef ? liquidRef.fip : baseFip, f, burner),
+    ];
     const worst = worstStatus(checks.map((c) => c.status));
     const status: ScenarioStatus = worst === "fail" ? "infeasible" : worst === "warn" ? "feasible-with-warnings" : "feasible";
     const w = wobbeRef(ctx);
@@ -440,10 +538,11 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
         basis: `efficiency = useful heat ÷ fuel heat input at HHV (gross) or LHV (net), 25 °C reference; heat-loss method; at the average load (${(100 * duty.averageLoadFraction).toFixed(0)} % of rated input; radiation and casing loss a constant heat flow)`,
       },
       flame:
-        p.perf.flame && base.perf.flame
+        p.perf.flame && (liquidOnTrain && liquidRef ? liquidRef.fip.perf.flame : base.perf.flame)
           ? {
               temperatureC: p.perf.flame.temperatureC,
-              shiftK: p.perf.flame.temperatureK - base.perf.flame.temperatureK,
+              shiftK:
+                p.perf.flame.temperatureK - ((liquidOnTrain && liquidRef ? liquidRef.fip.perf.flame : base.perf.flame)?.temperatureK ?? 0),
               method: p.perf.flame.methodLabel,
             }
           : null,
@@ -492,6 +591,7 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
       comparison,
       tornado: tor,
       checks,
+      burner,
       status,
       worstCheck: worst,
       metricValue,
@@ -566,6 +666,9 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
       baseline: { definition: study.baseline.fuel, fip: baseFip, price: basePrice, costInputs: baseCI },
       scenarios: cands.map((c, i) => ({ ctx: c.ctx, price: scenarios[i].price })),
       fin,
+      flames: options.flames,
+      needFlame,
+      baselineFlame,
     });
   }
 
@@ -603,6 +706,8 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
     ranking: { metric, label: info.label, unit: info.unit.replace("currency", study.currency), better: info.better, entries },
     hydrogenSweep: sweep,
     cautions: { screening: DEFER, items: [...byHazard.values()] },
+    burner: { screening: BURNER_SCREENING_NOTE, cautions: BURNER_CAUTIONS },
+    flameSolves: flameSolveSummary([...needs.values()], options.flames),
     audit: { methods: [...STUDY_METHODS], assumptions: studyAssumptions(), notes },
     stats: {
       fuelStates: caches.fuels.size,

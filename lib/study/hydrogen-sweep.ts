@@ -27,6 +27,8 @@ import type { EvaluationCaches } from "./caches";
 import { StudyInputError } from "./errors";
 import { normaliseStudyPrice } from "./pricing";
 import { METERING_REFERENCES, meteringLabelWithPressure } from "../units/metering";
+import { burnerChecks, burnerResult, burnerSettingOf, type BurnerResult } from "../plant/burner-checks";
+import type { FlameFigures, FlameLookup } from "../plant/burner-flame";
 
 export interface SweepPoint {
   h2Percent: number;
@@ -50,6 +52,17 @@ export interface SweepPoint {
   flueGas_m3_per_h: number;
   air_m3_per_h: number;
   costPerUsefulMWh: number | null;
+  /** The untuned burner at this share (air control and supply of the plant's burner). */
+  untunedLambda: number | null;
+  untunedHeatInputChangePercent: number | null;
+  /** Flame figures: at the flame shares only (every `flameStepPercent`), null elsewhere and while unsolved. */
+  burningVelocityRatio: number | null;
+  burningVelocity_cm_per_s: number | null;
+  /** NOx estimate (the permit check's figure) and the indicator's ratio to the baseline gas. */
+  nox_mg_per_m3: number | null;
+  noxRatio: number | null;
+  /** A flame solve belongs to this share. */
+  flamePoint: boolean;
   statuses: Record<FitCheckId, CheckStatus>;
   worst: CheckStatus;
 }
@@ -62,6 +75,8 @@ export interface SweepCrossing {
   firstFailPercent: number | null;
   /** Status at 0 % hydrogen (a limit may already be exceeded by the baseline gas). */
   statusAtZero: CheckStatus;
+  /** Found by linear interpolation between the flame shares (flashback and NOx). */
+  interpolated?: boolean;
 }
 
 export interface SweepLimitLines {
@@ -72,6 +87,10 @@ export interface SweepLimitLines {
   airCapacity_m3_per_h: number | null;
   fuelSupplyCapacity_m3_per_h: number | null;
   maxH2SharePercent: number | null;
+  /** Flashback thresholds (premixed and partially premixed burners) and the NOx permit limit. */
+  flashbackWarnRatio: number | null;
+  flashbackFailRatio: number | null;
+  noxLimit_mg_per_m3: number | null;
 }
 
 export interface HydrogenSweepResult {
@@ -84,7 +103,9 @@ export interface HydrogenSweepResult {
   points: SweepPoint[];
   crossings: SweepCrossing[];
   limitLines: SweepLimitLines | null;
-  basis: { wobbe: string; flame: string; volumes: string; cost: string };
+  basis: { wobbe: string; flame: string; volumes: string; cost: string; burner: string };
+  /** Flame solves of the sweep: shares, and how many are solved. */
+  flames: { stepPercent: number; shares: number[]; solved: number };
   notes: string[];
 }
 
@@ -96,6 +117,11 @@ export interface SweepEnvironment {
   baseline: { definition: FuelDefinition; fip: FuelInPlant; price: NormalisedPrice | null; costInputs: CostInputs | null };
   scenarios: { ctx: FuelContext; price: NormalisedPrice | null }[];
   fin: FinanceAssumptions;
+  flames?: FlameLookup;
+  /** Registers a flame solve the sweep needs (key, where it is used). */
+  needFlame?: (b: BurnerResult, usedBy: string) => void;
+  /** The baseline gas's flame figures (ratios), null while unsolved. */
+  baselineFlame: FlameFigures | null;
 }
 
 export function sweepShares(stepPercent: number): number[] {
@@ -115,6 +141,7 @@ export function hydrogenSweep(env: SweepEnvironment): HydrogenSweepResult {
     flame: "adiabatic flame temperature, chemical equilibrium at the plant's flue O2 and combustion-air temperature",
     volumes: `at rated useful duty: fuel gas at ${meteringLabelWithPressure(METERING_REFERENCES[plant.fuelSupplyMeteringReference].temperatureC)} (real gas); flue gas and air on the fans' ${plant.flueGasCapacityBasis}/${plant.airCapacityBasis} basis`,
     cost: "fuel + carbon (+ upstream when included) per MWh of useful heat",
+    burner: `untuned burner: ${burnerSettingOf(plant).airControlLabel}; burning velocity and NOx indicator from flame solves every ${cfg.flameStepPercent} % hydrogen (first crossings between them interpolated linearly); screening estimates`,
   };
   const empty = (reason: string): HydrogenSweepResult => ({
     available: false,
@@ -126,6 +153,7 @@ export function hydrogenSweep(env: SweepEnvironment): HydrogenSweepResult {
     crossings: [],
     limitLines: null,
     basis,
+    flames: { stepPercent: cfg.flameStepPercent, shares: [], solved: 0 },
     notes: [],
   });
   if (baseCtx.fuel.kind !== "gas" || !baseCtx.fuel.molarMass_g_per_mol)
@@ -170,6 +198,8 @@ export function hydrogenSweep(env: SweepEnvironment): HydrogenSweepResult {
       base: resolveFuel(env.baseline.definition, "hydrogenSweep.blend.0.fuel"),
       hydrogen: resolveFuel(cfg.hydrogen, "hydrogenSweep.blend.1.fuel"),
     });
+  const flameShares = new Set(sweepShares(cfg.flameStepPercent));
+  let flamesSolved = 0;
   const points: SweepPoint[] = [];
   let warm: EquilibriumResult | undefined = baseFip.perf.equilibrium;
   for (const share of sweepShares(cfg.stepPercent)) {
@@ -195,7 +225,24 @@ export function hydrogenSweep(env: SweepEnvironment): HydrogenSweepResult {
     const rated = efficiencyAtUseful(perf, duty, duty.ratedUseful_kW);
     const annual = efficiencyAtUseful(perf, duty, duty.averageUseful_kW);
     const fip: FuelInPlant = { ctx, perf, rated, flows: flowsForUseful(plant, ctx, perf, rated, duty.ratedUseful_kW) };
-    const checks = fitChecks(plant, baseFip, fip, { messages: false });
+    const flamePoint = flameShares.has(share);
+    const burner = burnerResult({
+      plant,
+      reference: baseFip,
+      referenceLabel: "the baseline gas",
+      cand: fip,
+      baselineFlame: env.baselineFlame,
+      flames: flamePoint ? env.flames : undefined,
+      light: !flamePoint,
+    });
+    if (flamePoint) {
+      env.needFlame?.(burner, `hydrogenSweep.${share}`);
+      if (burner.flame.status === "solved") flamesSolved++;
+    }
+    const checks = [
+      ...fitChecks(plant, baseFip, fip, { messages: false }),
+      ...burnerChecks(plant, baseFip, fip, burner, { messages: false }),
+    ];
     const statuses = {} as Record<FitCheckId, CheckStatus>;
     for (const c of checks) statuses[c.id] = c.status;
     const w = ctx.wobbe(plant.wobbeCombustionReferenceC, tmW);
@@ -235,12 +282,39 @@ export function hydrogenSweep(env: SweepEnvironment): HydrogenSweepResult {
       flueGas_m3_per_h: plant.flueGasCapacityBasis === "actual" ? flows.flueGas_m3_per_h_actual : flows.flueGas_m3_per_h_normal,
       air_m3_per_h: plant.airCapacityBasis === "actual" ? flows.air_m3_per_h_actual : flows.air_m3_per_h_normal,
       costPerUsefulMWh: cost,
+      untunedLambda: burner.untuned?.lambda ?? null,
+      untunedHeatInputChangePercent: burner.untuned?.heatInputChangePercent ?? null,
+      burningVelocityRatio: flamePoint ? burner.burningVelocityRatio : null,
+      burningVelocity_cm_per_s: flamePoint ? burner.burningVelocity_cm_per_s : null,
+      nox_mg_per_m3: flamePoint ? burner.nox.estimate_mg_per_m3 : null,
+      noxRatio: flamePoint ? burner.nox.ratioToBaseline : null,
+      flamePoint,
       statuses,
       worst: worstStatus(checks.map((c) => c.status)),
     });
   }
 
+  const setting = burnerSettingOf(plant);
+  const flamePts = points.filter((p) => p.flamePoint);
+  const flashbackJudged = setting.type === "premixed" || setting.type === "partially-premixed";
+  const noxLimit = plant.noxLimit_mg_per_m3 ?? null;
+  const interpolatedCrossing = (id: FitCheckId): SweepCrossing | null => {
+    if (id === "flashback" && flashbackJudged)
+      return crossingOf(
+        id,
+        flamePts,
+        (p) => p.burningVelocityRatio,
+        setting.flashbackWarnRatio,
+        setting.flashbackFailRatio,
+        points[0].statuses[id],
+      );
+    if (id === "nox-permit" && noxLimit !== null)
+      return crossingOf(id, flamePts, (p) => p.nox_mg_per_m3, plant.warnAtFractionOfLimit * noxLimit, noxLimit, points[0].statuses[id]);
+    return null;
+  };
   const crossings: SweepCrossing[] = FIT_CHECK_IDS.map((id) => {
+    const interp = interpolatedCrossing(id);
+    if (interp) return interp;
     const warn = points.find((p) => p.statuses[id] === "warn" || p.statuses[id] === "fail");
     const fail = points.find((p) => p.statuses[id] === "fail");
     return {
@@ -266,6 +340,9 @@ export function hydrogenSweep(env: SweepEnvironment): HydrogenSweepResult {
     airCapacity_m3_per_h: plant.airCapacity_m3_per_h ?? null,
     fuelSupplyCapacity_m3_per_h: plant.fuelSupplyCapacity_m3_per_h ?? null,
     maxH2SharePercent: plant.maxH2SharePercent ?? null,
+    flashbackWarnRatio: flashbackJudged ? setting.flashbackWarnRatio : null,
+    flashbackFailRatio: flashbackJudged ? setting.flashbackFailRatio : null,
+    noxLimit_mg_per_m3: noxLimit,
   };
 
   return {
@@ -277,7 +354,46 @@ export function hydrogenSweep(env: SweepEnvironment): HydrogenSweepResult {
     crossings,
     limitLines,
     basis,
+    flames: { stepPercent: cfg.flameStepPercent, shares: flamePts.map((p) => p.h2Percent), solved: flamesSolved },
     notes,
+  };
+}
+
+/**
+ * First shares at which a rising figure reaches its warn and fail levels, by linear interpolation
+ * between the points where it is known (null: not reached, or not known on both sides).
+ */
+export function crossingOf(
+  id: FitCheckId,
+  pts: readonly SweepPoint[],
+  value: (p: SweepPoint) => number | null,
+  warnAt: number,
+  failAt: number,
+  statusAtZero: CheckStatus,
+): SweepCrossing {
+  const first = (level: number): number | null => {
+    let prev: { x: number; v: number } | null = null;
+    for (const p of pts) {
+      const v = value(p);
+      if (v === null) {
+        prev = null;
+        continue;
+      }
+      if (v >= level) {
+        if (!prev) return p.h2Percent;
+        return Math.round(10 * (prev.x + ((level - prev.v) / (v - prev.v)) * (p.h2Percent - prev.x))) / 10;
+      }
+      prev = { x: p.h2Percent, v };
+    }
+    return null;
+  };
+  return {
+    checkId: id,
+    label: FIT_CHECK_LABELS[id],
+    firstWarnPercent: first(warnAt),
+    firstFailPercent: first(failAt),
+    statusAtZero,
+    interpolated: true,
   };
 }
 

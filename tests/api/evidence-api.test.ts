@@ -280,7 +280,7 @@ describe("issued revisions", () => {
 
   it("evaluates its exported inputs with the command line to the same figures", async () => {
     const rev = await (await routes.revision.GET(req("/x"), rctx(id, 1))).json();
-    const out = runEvaluate(["--input", "-"], () => JSON.stringify(rev.inputs));
+    const out = runEvaluate(["--input", "-", "--no-flame-speed"], () => JSON.stringify(rev.inputs));
     expect(out.exitCode).toBe(0);
     const a = JSON.parse(out.stdout);
     const { jsonDifferences } = await import("../../lib/formats/canonical-json");

@@ -19,6 +19,7 @@ const BENCHES: Bench[] = [
   { name: "load", file: "./load.bench.ts", fn: "benchLoad" },
   { name: "cli", file: "./cli.bench.ts", fn: "benchCli" },
   { name: "flame", file: "./flame.bench.ts", fn: "benchFlame" },
+  { name: "study-flames", file: "./study-flames.bench.ts", fn: "benchStudyFlames" },
 ];
 
 function median(v: number[]): number {

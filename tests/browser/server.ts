@@ -9,6 +9,8 @@ import os from "node:os";
 import path from "node:path";
 import type { TestProject } from "vitest/node";
 import { projectRoot, startNextServer } from "../support/next-server";
+import { createClient } from "../../lib/db/client";
+import { seedFlameFixture } from "../support/flame-fixture";
 
 declare module "vitest" {
   export interface ProvidedContext {
@@ -39,6 +41,11 @@ export default async function setup(project: TestProject): Promise<() => Promise
     STOKE_UNCERTAINTY_PAUSE_MS: "20",
   });
   const baseURL = server.baseURL;
+  // The demo study's flame solves, precomputed (tests/fixtures/flames): no page waits for them, and
+  // only a study with other fuels starts a background solve.
+  const client = createClient(databaseUrl);
+  await seedFlameFixture(client);
+  await client.$disconnect();
   project.provide("baseURL", baseURL);
   project.provide("databaseUrl", databaseUrl);
   return async () => {

@@ -109,12 +109,36 @@ describe("schema matches the migrations", () => {
         maxH2SharePercent: 20,
         warnAtFractionOfLimit: 0.85,
         dewPointMarginK: 15,
+        burnerType: "premixed",
+        burnerAirControl: "o2-trim",
+        burnerFlashbackWarnRatio: 1.1,
+        burnerFlashbackFailRatio: 1.4,
+        burnerRegulatedSupply: false,
+        noxLimit_mg_per_m3: 100,
+        noxReferenceO2Percent: 3,
+        noxMeasuredBaseline_mg_per_m3: 70,
+        so2Limit_mg_per_m3: 35,
+        gasBurnerPressure_kPa: 2.2,
+        gasSupplyPressure_kPa: 3,
+        liquidTrain: '{"flowCapacity":1200}',
         notes: "n",
         isDemo: false,
       },
     });
     const readPlant = await db.plant.findUniqueOrThrow({ where: { id: plant.id } });
     expect(readPlant).toMatchObject({
+      burnerType: "premixed",
+      burnerAirControl: "o2-trim",
+      burnerFlashbackWarnRatio: 1.1,
+      burnerFlashbackFailRatio: 1.4,
+      burnerRegulatedSupply: false,
+      noxLimit_mg_per_m3: 100,
+      noxReferenceO2Percent: 3,
+      noxMeasuredBaseline_mg_per_m3: 70,
+      so2Limit_mg_per_m3: 35,
+      gasBurnerPressure_kPa: 2.2,
+      gasSupplyPressure_kPa: 3,
+      liquidTrain: '{"flowCapacity":1200}',
       wobbeMin_MJ_per_m3: 47.2,
       condensing: true,
       returnWaterC: 40,
@@ -387,5 +411,21 @@ describe("schema matches the migrations", () => {
     expect(await db.uncertaintyRun.count()).toBe(0);
     await db.fuel.delete({ where: { id: h2.id } });
     await db.plant.delete({ where: { id: plant.id } });
+  });
+
+  it("FlameSolve: one row per key, written once", async () => {
+    const row = await db.flameSolve.create({
+      data: { key: "k1", request: '{"phi":0.9}', result: '{"burningVelocity_cm_per_s":30}', cpuSeconds: 6.5 },
+    });
+    expect(await db.flameSolve.findUniqueOrThrow({ where: { key: "k1" } })).toMatchObject({
+      request: '{"phi":0.9}',
+      result: '{"burningVelocity_cm_per_s":30}',
+      error: null,
+      cpuSeconds: 6.5,
+    });
+    expect(row.createdAt).toBeInstanceOf(Date);
+    await db.flameSolve.create({ data: { key: "k2", request: "{}", error: "did not converge" } });
+    expect((await db.flameSolve.findUniqueOrThrow({ where: { key: "k2" } })).result).toBeNull();
+    await expect(db.flameSolve.create({ data: { key: "k1", request: "{}" } })).rejects.toThrow();
   });
 });

@@ -215,7 +215,7 @@ describe("evaluate over a folder of study files", () => {
     bad.plant.flueO2DryPercent = "x";
     writeFileSync(join(dir, "a-bad.json"), JSON.stringify(bad));
     writeFileSync(join(dir, "notes.txt"), "not a study");
-    const r = await run(["evaluate", "--input", dir, "--format", "csv"]);
+    const r = await run(["evaluate", "--input", dir, "--format", "csv", "--no-flame-speed"]);
     expect(r.exitCode).toBe(2);
     const [header, ...rows] = parse(r.stdout) as string[][];
     expect(header.slice(0, 4)).toEqual(["file", "error", "rank", "scenario"]);

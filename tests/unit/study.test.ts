@@ -274,22 +274,22 @@ describe("example study for the demo plant", () => {
   });
 
   it("evaluates from the command line (json and csv)", () => {
-    const json = runEvaluate(["--input", EXAMPLE_PATH], () => "");
+    const json = runEvaluate(["--no-flame-speed", "--input", EXAMPLE_PATH], () => "");
     expect(json.exitCode).toBe(0);
     const out = JSON.parse(json.stdout);
     expect(out.scenarios.length).toBe(example().scenarios.length);
     expect(out.hydrogenSweep.points.length).toBe(101);
-    const csv = runEvaluate(["--input", EXAMPLE_PATH, "--format", "csv"], () => "");
+    const csv = runEvaluate(["--no-flame-speed", "--input", EXAMPLE_PATH, "--format", "csv"], () => "");
     expect(csv.exitCode).toBe(0);
     const lines = csv.stdout.trim().split("\n");
     expect(lines.length).toBe(1 + 1 + example().scenarios.length);
     expect(lines[0]).toMatch(/^rank,scenario,baseline,fuel,status/);
-    const sweep = runEvaluate(["--input", EXAMPLE_PATH, "--format", "csv", "--table", "sweep"], () => "");
+    const sweep = runEvaluate(["--no-flame-speed", "--input", EXAMPLE_PATH, "--format", "csv", "--table", "sweep"], () => "");
     expect(sweep.stdout.trim().split("\n").length).toBe(102);
   });
 
   it("reads standard input with --input -", () => {
-    const r = runEvaluate(["--input", "-"], () => readFileSync(EXAMPLE_PATH, "utf8"));
+    const r = runEvaluate(["--no-flame-speed", "--input", "-"], () => readFileSync(EXAMPLE_PATH, "utf8"));
     expect(r.exitCode).toBe(0);
   });
 });
@@ -319,7 +319,7 @@ describe("bad input: exit 2, one line naming the field", () => {
     it(what, () => {
       const s: Doc = example();
       mutate(s);
-      const r = runEvaluate(["--input", "-"], () => JSON.stringify(s));
+      const r = runEvaluate(["--no-flame-speed", "--input", "-"], () => JSON.stringify(s));
       expect(r.exitCode).toBe(2);
       expect(r.stdout).toBe("");
       expect(r.stderr).toMatch(pattern);
@@ -327,8 +327,8 @@ describe("bad input: exit 2, one line naming the field", () => {
     });
   }
   it("not JSON, unknown format, missing --input", () => {
-    expect(runEvaluate(["--input", "-"], () => "{").exitCode).toBe(2);
-    expect(runEvaluate(["--input", EXAMPLE_PATH, "--format", "xml"], () => "").stderr).toMatch(/--format/);
+    expect(runEvaluate(["--no-flame-speed", "--input", "-"], () => "{").exitCode).toBe(2);
+    expect(runEvaluate(["--no-flame-speed", "--input", EXAMPLE_PATH, "--format", "xml"], () => "").stderr).toMatch(/--format/);
     expect(runEvaluate([], () => "").stderr).toMatch(/--input is required/);
   });
 });

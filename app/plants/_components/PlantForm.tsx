@@ -8,6 +8,14 @@ import { useState } from "react";
 import { ErrorSummary, Field, FieldError, invalid, toNumber, type Errors } from "../../fuels/_components/fields";
 import { CAPACITY_UNITS_KW, capacityToKW, type CapacityUnit } from "@/lib/units/number-entry";
 import { DEFAULT_CONDENSING_APPROACH_K } from "@/lib/schemas/plant";
+import {
+  AIR_CONTROL_LABELS,
+  AIR_CONTROLS,
+  BURNER_TYPE_LABELS,
+  BURNER_TYPES,
+  FLASHBACK_DEFAULTS,
+  LIQUID_FLOW_UNITS,
+} from "@/lib/schemas/burner";
 
 export interface PlantFormOptions {
   fuels: { id: number; name: string; kind: string }[];
@@ -44,6 +52,19 @@ const NUMBER_FIELDS = [
   "maxH2SharePercent",
   "warnAtFractionOfLimit",
   "dewPointMarginK",
+  "burner.flashbackWarnRatio",
+  "burner.flashbackFailRatio",
+  "noxLimit_mg_per_m3",
+  "noxReferenceO2Percent",
+  "noxMeasuredBaseline_mg_per_m3",
+  "so2Limit_mg_per_m3",
+  "gasBurnerPressure_kPa",
+  "gasSupplyPressure_kPa",
+  "liquidTrain.flowCapacity",
+  "liquidTrain.viscosityMin_mm2_per_s",
+  "liquidTrain.viscosityMax_mm2_per_s",
+  "liquidTrain.firingTemperatureC",
+  "liquidTrain.flueO2DryPercent",
 ] as const;
 type NumField = (typeof NUMBER_FIELDS)[number];
 
@@ -73,6 +94,19 @@ const NEW_DEFAULTS: Record<NumField, string> = {
   maxH2SharePercent: "",
   warnAtFractionOfLimit: "0.9",
   dewPointMarginK: "10",
+  "burner.flashbackWarnRatio": String(FLASHBACK_DEFAULTS.warnRatio),
+  "burner.flashbackFailRatio": String(FLASHBACK_DEFAULTS.failRatio),
+  noxLimit_mg_per_m3: "",
+  noxReferenceO2Percent: "",
+  noxMeasuredBaseline_mg_per_m3: "",
+  so2Limit_mg_per_m3: "",
+  gasBurnerPressure_kPa: "",
+  gasSupplyPressure_kPa: "",
+  "liquidTrain.flowCapacity": "",
+  "liquidTrain.viscosityMin_mm2_per_s": "",
+  "liquidTrain.viscosityMax_mm2_per_s": "",
+  "liquidTrain.firingTemperatureC": "20",
+  "liquidTrain.flueO2DryPercent": "",
 };
 
 function get(o: Record<string, unknown>, path: string): unknown {
@@ -86,6 +120,11 @@ export function PlantForm({ options, initial }: { options: PlantFormOptions; ini
     if (!initial) return { ...NEW_DEFAULTS };
     const o = {} as Record<NumField, string>;
     for (const k of NUMBER_FIELDS) o[k] = str(get(initial, k));
+    if (!initial.burner) {
+      o["burner.flashbackWarnRatio"] = NEW_DEFAULTS["burner.flashbackWarnRatio"];
+      o["burner.flashbackFailRatio"] = NEW_DEFAULTS["burner.flashbackFailRatio"];
+    }
+    if (!initial.liquidTrain) o["liquidTrain.firingTemperatureC"] = NEW_DEFAULTS["liquidTrain.firingTemperatureC"];
     return o;
   });
   const [text, setText] = useState({
@@ -100,7 +139,15 @@ export function PlantForm({ options, initial }: { options: PlantFormOptions; ini
     flueGasCapacityBasis: str(initial?.flueGasCapacityBasis ?? "actual"),
     airCapacityBasis: str(initial?.airCapacityBasis ?? "actual"),
     fuelSupplyMeteringReference: str(initial?.fuelSupplyMeteringReference ?? "0C"),
+    burnerType: str(get(initial ?? {}, "burner.type") ?? ""),
+    burnerAirControl: str(get(initial ?? {}, "burner.airControl") ?? "fixed-linkage"),
+    liquidFlowUnit: str(get(initial ?? {}, "liquidTrain.flowUnit") ?? "L/h"),
+    liquidReferenceFuelId: str(
+      options.fuels.find((f) => f.name === get(initial ?? {}, "liquidTrain.referenceFuel.name") && f.kind === "liquid")?.id ?? "",
+    ),
   });
+  const [regulatedSupply, setRegulatedSupply] = useState(get(initial ?? {}, "burner.regulatedSupply") !== false);
+  const [hasLiquidTrain, setHasLiquidTrain] = useState(Boolean(initial?.liquidTrain));
   const [condensing, setCondensing] = useState(Boolean(initial?.condensing));
   const [dutyMode, setDutyMode] = useState<"annual" | "hours">(initial && initial.annualUsefulHeat_MWh != null ? "annual" : "hours");
   const [wobbeMode, setWobbeMode] = useState<"band" | "range" | "none">(
@@ -143,7 +190,15 @@ export function PlantForm({ options, initial }: { options: PlantFormOptions; ini
   );
 
   const placed = (key: string) =>
-    [...NUMBER_FIELDS, ...Object.keys(text), "condensing", "ambientAir"].includes(key) || key.startsWith("ambientAir.");
+    [
+      ...NUMBER_FIELDS,
+      ...Object.keys(text),
+      "condensing",
+      "ambientAir",
+      "burner.type",
+      "burner.airControl",
+      "liquidTrain.referenceFuel",
+    ].includes(key) || key.startsWith("ambientAir.");
 
   /** The rated input in kW, converted from the unit the user chose; unparseable text goes to the server as is. */
   function ratedInputKW(): number | string | null {
@@ -187,6 +242,33 @@ export function PlantForm({ options, initial }: { options: PlantFormOptions; ini
       maxH2SharePercent: n("maxH2SharePercent"),
       warnAtFractionOfLimit: n("warnAtFractionOfLimit"),
       dewPointMarginK: n("dewPointMarginK"),
+      burner:
+        text.burnerType === ""
+          ? null
+          : {
+              type: text.burnerType,
+              airControl: text.burnerAirControl,
+              flashbackWarnRatio: n("burner.flashbackWarnRatio"),
+              flashbackFailRatio: n("burner.flashbackFailRatio"),
+              regulatedSupply,
+            },
+      noxLimit_mg_per_m3: n("noxLimit_mg_per_m3"),
+      noxReferenceO2Percent: n("noxReferenceO2Percent"),
+      noxMeasuredBaseline_mg_per_m3: n("noxMeasuredBaseline_mg_per_m3"),
+      so2Limit_mg_per_m3: n("so2Limit_mg_per_m3"),
+      gasBurnerPressure_kPa: n("gasBurnerPressure_kPa"),
+      gasSupplyPressure_kPa: n("gasSupplyPressure_kPa"),
+      liquidTrain: hasLiquidTrain
+        ? {
+            flowCapacity: n("liquidTrain.flowCapacity"),
+            flowUnit: text.liquidFlowUnit,
+            viscosityMin_mm2_per_s: n("liquidTrain.viscosityMin_mm2_per_s"),
+            viscosityMax_mm2_per_s: n("liquidTrain.viscosityMax_mm2_per_s"),
+            firingTemperatureC: n("liquidTrain.firingTemperatureC"),
+            flueO2DryPercent: n("liquidTrain.flueO2DryPercent"),
+            referenceFuelId: text.liquidReferenceFuelId === "" ? null : Number(text.liquidReferenceFuelId),
+          }
+        : null,
       notes: text.notes,
       baselineFuelId: text.baselineFuelId === "" ? null : Number(text.baselineFuelId),
     };
@@ -388,6 +470,129 @@ export function PlantForm({ options, initial }: { options: PlantFormOptions; ini
           {numInput("warnAtFractionOfLimit", "Warn at this fraction of a limit", "0.9 = warn within 10 % of the limit")}
           {numInput("dewPointMarginK", "Dew-point margin, K", "a stack closer than this above the water dew point warns")}
         </div>
+      </fieldset>
+
+      <fieldset>
+        <legend>Burner and emission permit</legend>
+        <p className="basis">
+          What a new gas does to the burner before anyone retunes it, whether its flame may flash back, and NOx and SO2 against the permit.
+          Flashback and NOx figures are screening estimates; the burner maker and a measurement decide.
+        </p>
+        <div className="row">
+          <Field label="Burner type" name="burner.type" errors={errors}>
+            <select
+              id="f-burnerType"
+              name="burnerType"
+              value={text.burnerType}
+              onChange={setTxt("burnerType")}
+              {...invalid(errors, "burner.type")}
+            >
+              <option value="">— not described —</option>
+              {BURNER_TYPES.map((t) => (
+                <option key={t} value={t}>
+                  {BURNER_TYPE_LABELS[t]}
+                </option>
+              ))}
+            </select>
+          </Field>
+          {text.burnerType !== "" && (
+            <Field label="Air-ratio control" name="burner.airControl" errors={errors}>
+              <select id="f-burnerAirControl" name="burnerAirControl" value={text.burnerAirControl} onChange={setTxt("burnerAirControl")}>
+                {AIR_CONTROLS.map((t) => (
+                  <option key={t} value={t}>
+                    {AIR_CONTROL_LABELS[t]}
+                  </option>
+                ))}
+              </select>
+            </Field>
+          )}
+          {text.burnerType !== "" && (
+            <div className="field">
+              <span className="label">Gas supply</span>
+              <label style={{ fontWeight: 400 }}>
+                <input
+                  type="checkbox"
+                  name="regulatedSupply"
+                  checked={regulatedSupply}
+                  onChange={(e) => setRegulatedSupply(e.target.checked)}
+                />{" "}
+                pressure held by a regulator
+              </label>
+            </div>
+          )}
+        </div>
+        {text.burnerType !== "" && (
+          <div className="row">
+            {numInput(
+              "burner.flashbackWarnRatio",
+              "Flashback: warn from burning velocity × baseline",
+              `rule of thumb ${FLASHBACK_DEFAULTS.warnRatio} (common practice, no source); premixed and partially premixed burners`,
+            )}
+            {numInput(
+              "burner.flashbackFailRatio",
+              "Flashback: fail from burning velocity × baseline",
+              `rule of thumb ${FLASHBACK_DEFAULTS.failRatio}`,
+            )}
+          </div>
+        )}
+        <div className="row">
+          {numInput("gasBurnerPressure_kPa", "Gas pressure at the burner on the baseline, kPa", "at rated input")}
+          {numInput("gasSupplyPressure_kPa", "Gas supply pressure available, kPa", "most the supply delivers ahead of the burner")}
+        </div>
+        <div className="row">
+          {numInput("noxLimit_mg_per_m3", "NOx permit limit, mg/m³", "as NO2, dry, 0 °C, 101.325 kPa")}
+          {numInput("so2Limit_mg_per_m3", "SO2 permit limit, mg/m³")}
+          {numInput("noxReferenceO2Percent", "Reference O2 of the permit, % dry", "empty: 3 % gases and liquids, 6 % solids")}
+          {numInput(
+            "noxMeasuredBaseline_mg_per_m3",
+            "NOx measured on the baseline fuel, mg/m³",
+            "at the reference O2; scales the estimates",
+          )}
+        </div>
+      </fieldset>
+
+      <fieldset>
+        <legend>Liquid fuel train (dual-fuel plants)</legend>
+        <label style={{ fontWeight: 400 }}>
+          <input type="checkbox" name="hasLiquidTrain" checked={hasLiquidTrain} onChange={(e) => setHasLiquidTrain(e.target.checked)} /> the
+          plant also fires a liquid on its own train (liquid candidates are judged against it)
+        </label>
+        {hasLiquidTrain && (
+          <>
+            <div className="row">
+              {numInput("liquidTrain.flowCapacity", "Liquid-train capacity")}
+              {select(
+                "liquidFlowUnit",
+                "Unit of the capacity",
+                LIQUID_FLOW_UNITS.map((u) => ({ value: u, label: u })),
+              )}
+              <Field label="Liquid the train is set up on" name="liquidTrain.referenceFuel" errors={errors}>
+                <select
+                  id="f-liquidReferenceFuelId"
+                  name="liquidReferenceFuelId"
+                  value={text.liquidReferenceFuelId}
+                  onChange={setTxt("liquidReferenceFuelId")}
+                  {...invalid(errors, "liquidTrain.referenceFuel")}
+                >
+                  <option value="">— choose a liquid —</option>
+                  {options.fuels
+                    .filter((f) => f.kind === "liquid")
+                    .map((f) => (
+                      <option key={f.id} value={f.id}>
+                        {f.name}
+                      </option>
+                    ))}
+                </select>
+              </Field>
+            </div>
+            <div className="row">
+              {numInput("liquidTrain.viscosityMin_mm2_per_s", "Atomiser: lowest viscosity, mm²/s")}
+              {numInput("liquidTrain.viscosityMax_mm2_per_s", "Atomiser: highest viscosity, mm²/s")}
+              {numInput("liquidTrain.firingTemperatureC", "Liquid temperature at the atomiser, °C")}
+              {numInput("liquidTrain.flueO2DryPercent", "Flue O2 on the liquid, % dry", "empty: the plant's")}
+            </div>
+          </>
+        )}
       </fieldset>
 
       <fieldset>

@@ -12,6 +12,8 @@ import { makeDisplay, savingText, signed } from "../_components/display";
 import { UnitSwitch } from "../_components/UnitSwitch";
 import { Cautions } from "../_components/Cautions";
 import { CheckMatrix, RankCards, RankTable, RankTableNotes } from "../_components/Tables";
+import { BurnerSection } from "../_components/Burner";
+import { FlameProgress } from "../_components/FlameProgress";
 import { co2Rows, costRows, failingChecks, headline, metricText, ranked, scatterPoints } from "../_components/results";
 import { METRIC_SHORT, RANKING_METRICS, viewChoice, viewQuery, type SearchParams } from "../_components/settings";
 import { EvaluationProblem } from "../_components/EvaluationProblem";
@@ -33,7 +35,7 @@ export default async function ComparisonPage({ params, searchParams }: Props) {
   if (!Number.isInteger(id) || id <= 0) notFound();
   const view = viewChoice(await searchParams);
   const [ev, units] = await Promise.all([
-    evaluateStoredStudy(db(), id, { metric: view.metric, includeUpstream: view.includeUpstream }),
+    evaluateStoredStudy(db(), id, { metric: view.metric, includeUpstream: view.includeUpstream, solveFlames: true }),
     displayUnits(),
   ]);
   if (!ev.ok) {
@@ -275,6 +277,9 @@ export default async function ComparisonPage({ params, searchParams }: Props) {
         {fmt(result.plant.warnAtFractionOfLimit * 100, 0)} % of a limit. Hover a cell for the explanation; the report lists them in full.
       </p>
       <CheckMatrix list={list} d={d} />
+
+      <FlameProgress id={id} sweep={false} initial={{ ...result.flameSolves, needed: result.flameSolves.needed.length }} />
+      <BurnerSection result={result} d={d} />
 
       {candidates.length === 0 && (
         <p className="note">

@@ -22,18 +22,30 @@ export function CrossingTable({ crossings, testId }: { crossings: readonly Sweep
           </tr>
         </thead>
         <tbody>
-          {crossings.map((c) => (
-            <tr key={c.checkId}>
-              <td>{c.label}</td>
-              <td>
-                <Status status={c.statusAtZero} />
-              </td>
-              <td className="num">
-                {c.statusAtZero === "not-checked" ? <span className="na">no limit entered</span> : shareText(c.firstWarnPercent)}
-              </td>
-              <td className="num">{c.statusAtZero === "not-checked" ? <span className="na">–</span> : shareText(c.firstFailPercent)}</td>
-            </tr>
-          ))}
+          {/* Checks that do not apply to a hydrogen blend anywhere (the liquid train's) are left out. */}
+          {crossings
+            .filter((c) => !(c.statusAtZero === "not-applicable" && c.firstWarnPercent === null && c.firstFailPercent === null))
+            .map((c) => (
+              <tr key={c.checkId}>
+                <td>
+                  {c.label}
+                  {c.interpolated && <div className="unit">interpolated between the flame solves</div>}
+                </td>
+                <td>
+                  <Status status={c.statusAtZero} />
+                </td>
+                <td className="num">
+                  {c.statusAtZero === "not-checked" ? (
+                    <span className="na">
+                      {c.checkId === "flashback" || c.checkId === "nox-permit" ? "not judged" : "no limit entered"}
+                    </span>
+                  ) : (
+                    shareText(c.firstWarnPercent)
+                  )}
+                </td>
+                <td className="num">{c.statusAtZero === "not-checked" ? <span className="na">–</span> : shareText(c.firstFailPercent)}</td>
+              </tr>
+            ))}
         </tbody>
       </table>
     </div>

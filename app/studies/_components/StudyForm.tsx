@@ -17,6 +17,7 @@ import { SENSITIVITY_DEFAULTS, type SensitivityRanges } from "@/lib/schemas/stud
 import { scenarioRecordSchema, studyRecordSchema, type ScenarioRecordInput, type StudyRecordInput } from "@/lib/schemas/study-record";
 import { operatingOverridesSchema, type OperatingOverrides } from "@/lib/schemas/plant";
 import { capitalised, fieldLabel } from "@/lib/schemas/labels";
+import { AIR_CONTROL_LABELS, AIR_CONTROLS, BURNER_TYPE_LABELS, BURNER_TYPES } from "@/lib/schemas/burner";
 
 /** What the form starts from: a stored study as the API returns it (the record schema's input), with its id. */
 export type StudyFormInitial = StudyRecordInput & { id?: number };
@@ -30,9 +31,15 @@ type OverrideKey = keyof OperatingOverrides;
 /** Every per-scenario field the schema knows, in its order; the limits a new burner changes first. */
 const ALL_OVERRIDE_KEYS = Object.keys(operatingOverridesSchema.shape) as OverrideKey[];
 /** Limits a scenario may set, or remove (null: no limit in this scenario). */
-const LIMIT_KEYS = ["maxH2SharePercent", "wobbeTolerancePercent", "maxFlameTempRiseK"] as const satisfies readonly OverrideKey[];
-type NumberOverrideKey = Exclude<OverrideKey, "condensing">;
-const NUMBER_OVERRIDE_KEYS = ALL_OVERRIDE_KEYS.filter((k): k is NumberOverrideKey => k !== "condensing");
+const LIMIT_KEYS = [
+  "maxH2SharePercent",
+  "wobbeTolerancePercent",
+  "maxFlameTempRiseK",
+  "noxLimit_mg_per_m3",
+  "so2Limit_mg_per_m3",
+] as const satisfies readonly OverrideKey[];
+type NumberOverrideKey = Exclude<OverrideKey, "condensing" | "burner">;
+const NUMBER_OVERRIDE_KEYS = ALL_OVERRIDE_KEYS.filter((k): k is NumberOverrideKey => k !== "condensing" && k !== "burner");
 const OPERATING_KEYS = NUMBER_OVERRIDE_KEYS.filter((k) => !(LIMIT_KEYS as readonly string[]).includes(k));
 const isLimit = (k: OverrideKey) => (LIMIT_KEYS as readonly string[]).includes(k);
 
@@ -70,6 +77,11 @@ interface ScenarioState {
   fixedOpexChange: NumText;
   overrides: Record<NumberOverrideKey, NumText>;
   condensing: "" | "yes" | "no";
+  /** Burner override: "" = the plant's burner; else a burner type (a new burner), with its air control. */
+  burnerType: string;
+  burnerAirControl: string;
+  /** The stored burner override, sent back as it was while the two selects are untouched. */
+  burnerStored: unknown;
 }
 
 const s = (v: unknown) => (v === null || v === undefined ? "" : String(v));
@@ -99,6 +111,9 @@ function scenarioState(key: number, init?: ScenarioInitial): ScenarioState {
     fixedOpexChange: numText(init?.fixedOpexChange ?? 0),
     overrides,
     condensing: o.condensing === true ? "yes" : o.condensing === false ? "no" : "",
+    burnerType: s((o.burner as { type?: string } | null | undefined)?.type ?? ""),
+    burnerAirControl: s((o.burner as { airControl?: string } | null | undefined)?.airControl ?? "fixed-linkage"),
+    burnerStored: o.burner,
   };
 }
 
@@ -229,6 +244,12 @@ export function StudyForm({
     for (const k of ALL_OVERRIDE_KEYS) {
       if (k === "condensing") {
         if (x.condensing) overrides.condensing = x.condensing === "yes";
+        continue;
+      }
+      if (k === "burner") {
+        const stored = x.burnerStored as { type?: string; airControl?: string } | null | undefined;
+        if (stored && stored.type === x.burnerType && stored.airControl === x.burnerAirControl) overrides.burner = stored;
+        else if (x.burnerType !== "") overrides.burner = { type: x.burnerType, airControl: x.burnerAirControl };
         continue;
       }
       const n = x.overrides[k];
@@ -504,6 +525,47 @@ export function StudyForm({
                 <option value="no">not condensing</option>
               </select>
             </Field>
+          </div>
+          <div className="row">
+            <Field
+              label="Burner in this scenario"
+              name={`${p}.overrides.burner`}
+              errors={errors}
+              htmlFor={dash(`${p}.overrides.burner.type`)}
+            >
+              <select
+                id={dash(`${p}.overrides.burner.type`)}
+                value={x.burnerType}
+                onChange={(e) => update(which, { burnerType: e.target.value })}
+              >
+                <option value="">the plant&apos;s burner</option>
+                {BURNER_TYPES.map((t) => (
+                  <option key={t} value={t}>
+                    new: {BURNER_TYPE_LABELS[t]}
+                  </option>
+                ))}
+              </select>
+            </Field>
+            {x.burnerType !== "" && (
+              <Field
+                label="Its air-ratio control"
+                name={`${p}.overrides.burner.airControl`}
+                errors={errors}
+                htmlFor={dash(`${p}.overrides.burner.airControl`)}
+              >
+                <select
+                  id={dash(`${p}.overrides.burner.airControl`)}
+                  value={x.burnerAirControl}
+                  onChange={(e) => update(which, { burnerAirControl: e.target.value })}
+                >
+                  {AIR_CONTROLS.map((t) => (
+                    <option key={t} value={t}>
+                      {AIR_CONTROL_LABELS[t]}
+                    </option>
+                  ))}
+                </select>
+              </Field>
+            )}
           </div>
           {errors[`${p}.overrides`] && <span className="field-error">{errors[`${p}.overrides`]}</span>}
         </details>

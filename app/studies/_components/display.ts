@@ -52,6 +52,9 @@ export interface Display {
   check(c: Pick<FitCheck, "value" | "limit" | "unit"> & { id?: FitCheck["id"] }): { value: string; limit: string; unit: string };
 }
 
+/** Decimals of check figures by unit (burning-velocity ratio, air factor, concentrations, pressures, viscosity, liquid flows). */
+const UNIT_DECIMALS: Record<string, number> = { "×": 2, λ: 3, "mg/m³": 0, kPa: 2, "mm²/s": 2, "L/h": 0, "kg/h": 0 };
+
 const ok = (v: number | null | undefined): v is number => v !== null && v !== undefined && Number.isFinite(v);
 
 export function makeDisplay(units: DisplayUnits, currency: string): Display {
@@ -101,7 +104,10 @@ export function makeDisplay(units: DisplayUnits, currency: string): Display {
           // A ± band (the Wobbe band) reads "±5.0 %" for every scenario, the shift with its sign.
           if (c.id === "wobbe-band")
             return { value: signed(c.value, 1), limit: c.limit === null ? "–" : `±${fmt(Math.abs(c.limit), 1)}`, unit: c.unit };
-          return { value: fmt(c.value, 1), limit: fmt(c.limit, 1), unit: c.unit };
+          {
+            const dec = UNIT_DECIMALS[c.unit] ?? 1;
+            return { value: fmt(c.value, dec), limit: fmt(c.limit, dec), unit: c.unit };
+          }
       }
     },
   };

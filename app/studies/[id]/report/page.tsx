@@ -13,6 +13,7 @@ import { makeDisplay, savingText, signed } from "../../_components/display";
 import { Cautions } from "../../_components/Cautions";
 import { Status } from "../../_components/Checks";
 import { CrossingTable } from "../../_components/Crossings";
+import { BurnerSection } from "../../_components/Burner";
 import { sweepVerdict } from "@/lib/study/hydrogen-sweep";
 import { CheckMatrix, RankTable, RankTableNotes } from "../../_components/Tables";
 import { EvaluationProblem } from "../../_components/EvaluationProblem";
@@ -123,7 +124,14 @@ export default async function ReportPage({ params, searchParams }: Props) {
   const orientation = sp.orient === "landscape" ? "landscape" : "portrait";
   const revision = typeof sp.revision === "string" && /^[1-9]\d{0,8}$/.test(sp.revision) ? Number(sp.revision) : undefined;
   const [ev, units] = await Promise.all([
-    studyReportData(db(), id, { revision, metric: view.metric, includeUpstream: view.includeUpstream, sweep: "if-chosen", tornado: false }),
+    studyReportData(db(), id, {
+      revision,
+      metric: view.metric,
+      includeUpstream: view.includeUpstream,
+      sweep: "if-chosen",
+      tornado: false,
+      solveFlames: true,
+    }),
     displayUnits(),
   ]);
   if (!ev.ok) {
@@ -499,6 +507,14 @@ export default async function ReportPage({ params, searchParams }: Props) {
             </p>
           )}
         </section>
+
+        <BurnerSection result={result} d={d} />
+        {result.flameSolves.pending > 0 && (
+          <p className="note" data-testid="report-flames-pending">
+            {result.flameSolves.pending} of {result.flameSolves.needed.length} flame solves are still running: their burning velocity,
+            flashback and NOx figures read “pending”. Open the report again when they are done.
+          </p>
+        )}
 
         <section className="keep">
           <h2>Efficiency and flue gas</h2>

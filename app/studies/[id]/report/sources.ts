@@ -88,6 +88,21 @@ const CITATIONS: readonly (Citation & { match: RegExp })[] = [
     match: /Verhoff/,
     text: "Verhoff, F. H., Banchero, J. T. Predicting dew points of flue gases. Chemical Engineering Progress 70 (8), 1974, 71–72.",
   },
+  {
+    key: "premix",
+    match: /SAND85-8240/,
+    text: "Kee, R. J., Grcar, J. F., Smooke, M. D., Miller, J. A. A Fortran Program for Modeling Steady Laminar One-Dimensional Premixed Flames. Report SAND85-8240, Sandia National Laboratories, 1985.",
+  },
+  {
+    key: "astm-d341",
+    match: /ASTM D341/,
+    text: "ASTM D341. Standard Practice for Viscosity-Temperature Equations and Charts for Liquid Petroleum or Hydrocarbon Products. ASTM International, West Conshohocken.",
+  },
+  {
+    key: "ied",
+    match: /2010\/75\/EU/,
+    text: "Directive 2010/75/EU of the European Parliament and of the Council of 24 November 2010 on industrial emissions (integrated pollution prevention and control). Official Journal of the European Union L 334, 17.12.2010.",
+  },
 ];
 
 /** The full citations that these texts refer to, in the order of first mention. */

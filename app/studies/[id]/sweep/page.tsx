@@ -18,6 +18,7 @@ import { viewChoice, type SearchParams } from "../../_components/settings";
 import { METERING_REFERENCES, meteringLabelWithPressure } from "@/lib/units/metering";
 import { sweepAgreement } from "@/lib/study/sweep-agreement";
 import { hydrogenPriceLabel } from "../../_components/price-labels";
+import { FlameProgress } from "../../_components/FlameProgress";
 
 export const dynamic = "force-dynamic";
 export const metadata: Metadata = { title: "Hydrogen-share sweep" };
@@ -48,7 +49,13 @@ export default async function SweepPage({ params, searchParams }: Props) {
   if (!Number.isInteger(id) || id <= 0) notFound();
   const view = viewChoice(await searchParams);
   const [ev, units] = await Promise.all([
-    evaluateStoredStudy(db(), id, { metric: view.metric, includeUpstream: view.includeUpstream, sweep: true, tornado: false }),
+    evaluateStoredStudy(db(), id, {
+      metric: view.metric,
+      includeUpstream: view.includeUpstream,
+      sweep: true,
+      tornado: false,
+      solveFlames: true,
+    }),
     displayUnits(),
   ]);
   if (!ev.ok) {
@@ -86,6 +93,7 @@ export default async function SweepPage({ params, searchParams }: Props) {
   const p0 = pts[0];
 
   const series = (f: (p: SweepPoint) => number | null) => pts.map((p) => ({ x: p.h2Percent, y: f(p) }));
+  const flameSeries = (f: (p: SweepPoint) => number | null) => pts.filter((p) => p.flamePoint).map((p) => ({ x: p.h2Percent, y: f(p) }));
   const wobbeBand = lim.wobbeBand_MJ_per_m3 ?? lim.wobbeRange_MJ_per_m3;
 
   return (
@@ -106,6 +114,7 @@ export default async function SweepPage({ params, searchParams }: Props) {
         </div>
       </div>
       <UnitSwitch units={units} />
+      <FlameProgress id={id} initial={{ ...result.flameSolves, needed: result.flameSolves.needed.length }} />
 
       <section className="verdict" aria-label="Answer" style={{ marginTop: "0.75rem" }}>
         <div className={`card ${firstFail ? "bad" : "ok"}`} data-testid="sweep-limit">
@@ -282,6 +291,66 @@ export default async function SweepPage({ params, searchParams }: Props) {
             {plant.airCapacityBasis === "actual" ? "actual volume at the air temperature" : "normal m³ (0 °C)"}.
           </p>
         </section>
+        <section className="panel" data-testid="chart-burning-velocity">
+          <SweepChart
+            title="Burning velocity ÷ baseline gas (flashback)"
+            yUnit="×"
+            decimals={2}
+            data={flameSeries((p) => p.burningVelocityRatio)}
+            limits={[
+              ...(lim.flashbackWarnRatio !== null
+                ? [{ y: lim.flashbackWarnRatio, label: `warn ${fmt(lim.flashbackWarnRatio, 2)} ×`, labelAt: "insideTopLeft" as const }]
+                : []),
+              ...(lim.flashbackFailRatio !== null
+                ? [{ y: lim.flashbackFailRatio, label: `fail ${fmt(lim.flashbackFailRatio, 2)} ×` }]
+                : []),
+            ]}
+            vLines={vLines}
+          />
+          <p className="basis">
+            {sw.basis.burner}.{" "}
+            {lim.flashbackFailRatio === null
+              ? "The burner is not premixed or partially premixed (or not described): the ratio is shown, not judged."
+              : ""}
+          </p>
+        </section>
+        <section className="panel" data-testid="chart-nox">
+          <SweepChart
+            title="NOx, screening estimate"
+            yUnit="mg/m³"
+            decimals={0}
+            data={flameSeries((p) => p.nox_mg_per_m3)}
+            limits={
+              lim.noxLimit_mg_per_m3 !== null
+                ? [{ y: lim.noxLimit_mg_per_m3, label: `permit ${fmt(lim.noxLimit_mg_per_m3, 0)} mg/m³` }]
+                : []
+            }
+            vLines={vLines}
+          />
+          <p className="basis">
+            NOx as NO2, dry, 0 °C, 101.325 kPa, at the permit&apos;s reference O2;{" "}
+            {plant.noxMeasuredBaseline_mg_per_m3 != null
+              ? `scaled from the ${fmt(plant.noxMeasuredBaseline_mg_per_m3, 0)} mg/m³ measured on the baseline gas by the flame indicator's ratio`
+              : "the adiabatic post-flame indicator (an upper bound; enter a measured baseline NOx on the plant to scale from it)"}
+            . A screening estimate: a measurement decides.
+          </p>
+        </section>
+        <section className="panel" data-testid="chart-untuned-heat-input">
+          <SweepChart
+            title="Untuned burner: heat input change"
+            yUnit="%"
+            decimals={1}
+            data={series((p) => p.untunedHeatInputChangePercent)}
+            vLines={vLines}
+          />
+          <p className="basis">Before retuning, at a fixed gas orifice and regulated supply pressure: follows the net Wobbe index.</p>
+        </section>
+        <section className="panel" data-testid="chart-untuned-lambda">
+          <SweepChart title="Untuned burner: air factor λ" yUnit="λ" decimals={3} data={series((p) => p.untunedLambda)} vLines={vLines} />
+          <p className="basis">
+            Before retuning, with the plant&apos;s air-ratio control; retuned, the flue O2 is held at {fmt(plant.flueO2DryPercent, 1)} %.
+          </p>
+        </section>
         {pts.some((p) => p.costPerUsefulMWh !== null) && (
           <section className="panel">
             <SweepChart
@@ -318,6 +387,10 @@ export default async function SweepPage({ params, searchParams }: Props) {
                 <th className="num">Fuel {d.volUnit}/h</th>
                 <th className="num">Flue gas {d.volUnit}/h</th>
                 <th className="num">Cost {d.costPerEnergyUnit}</th>
+                <th className="num">Burning velocity ×</th>
+                <th className="num">NOx mg/m³</th>
+                <th className="num">Untuned λ</th>
+                <th className="num">Untuned heat input %</th>
                 <th>Worst check</th>
               </tr>
             </thead>
@@ -336,6 +409,10 @@ export default async function SweepPage({ params, searchParams }: Props) {
                     <td className="num">{d.vol(p.fuelVolume_m3_per_h)}</td>
                     <td className="num">{d.vol(p.flueGas_m3_per_h)}</td>
                     <td className="num">{d.costPerEnergy(p.costPerUsefulMWh)}</td>
+                    <td className="num">{fmt(p.burningVelocityRatio, 2)}</td>
+                    <td className="num">{fmt(p.nox_mg_per_m3, 0)}</td>
+                    <td className="num">{fmt(p.untunedLambda, 3)}</td>
+                    <td className="num">{signed(p.untunedHeatInputChangePercent, 1)}</td>
                     <td>
                       <Status status={p.worst} />
                     </td>
