@@ -48,7 +48,7 @@ function outcomeOfRow(r: { result: string | null; error: string | null }): Flame
 }
 
 /** The stored solves as a look-up (rows written since the last call are read first). */
-export async function flameLookup(db: Db): Promise<FlameLookup> {
+export async function flameLookup(db: Db): Promise<FlameLookup & { version: number }> {
   const s = state();
   const rows = await db.flameSolve.findMany({
     where: s.lastRead ? { createdAt: { gte: s.lastRead } } : {},
@@ -58,7 +58,8 @@ export async function flameLookup(db: Db): Promise<FlameLookup> {
     s.cache.set(r.request, outcomeOfRow(r));
     if (!s.lastRead || r.createdAt > s.lastRead) s.lastRead = r.createdAt;
   }
-  return { get: (key) => s.cache.get(key) };
+  // Outcomes are only ever added (a solve is written once): their count names the state.
+  return { get: (key) => s.cache.get(key), version: s.cache.size };
 }
 
 /** Stores one outcome (once; a second writer of the same key changes nothing). */

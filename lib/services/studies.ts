@@ -476,16 +476,13 @@ export async function evaluateStoredStudy(db: Db, id: number, opts: EvaluateStor
   if (opts.sweep === true && !chosen) return noHydrogenProblem(loaded.bundle.study.name);
   try {
     const options = { sweep: opts.sweep === true || (opts.sweep === "if-chosen" && chosen), tornado: opts.tornado ?? true };
-    // Keyed by everything the evaluation reads: the self-contained study object and the options.
-    // A result still waiting for flame solves is not kept (the next look-up may have them); a
-    // complete one stays valid, as a stored solve never changes.
-    const key = contentKey("study-result", loaded.bundle.inputKey ?? loaded.bundle.study, options);
-    const cache = resultCache<StudyResult>();
-    let result = cache.get(key);
-    if (!result) {
-      result = evaluateStudy(loaded.bundle.study, { ...options, caches: sharedCaches(), flames: await flameLookup(db) });
-      if (result.flameSolves.pending === 0) cache.set(key, result);
-    }
+    // Keyed by everything the evaluation reads: the self-contained study object, the options and the
+    // flame solves known so far (a solve arriving makes a new key; stored solves never change).
+    const flames = await flameLookup(db);
+    const key = contentKey("study-result", loaded.bundle.inputKey ?? loaded.bundle.study, options, flames.version);
+    const result = resultCache<StudyResult>().getOrCompute(key, () =>
+      evaluateStudy(loaded.bundle.study, { ...options, caches: sharedCaches(), flames }),
+    );
     if (result.flameSolves.pending > 0 && opts.solveFlames === true) ensureFlameSolves(db, result.flameSolves.needed);
     return { ok: true, bundle: loaded.bundle, result };
   } catch (e) {
