@@ -39,6 +39,8 @@ beforeAll(async () => {
       discountRatePercent: 8,
       horizonYears: 15,
       priceEscalationPercent: 0,
+      // the hydrogen the sweep blends in (a study without one has no sweep)
+      hydrogenFuelId: fuel("Hydrogen"),
       baseline: { name: "Natural gas (today)", fuelId: fuel("Pipeline natural gas") },
       scenarios: [
         { name: "30 % hydrogen", fuelId: fuel("Natural gas + 30 % H2") },
