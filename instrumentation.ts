@@ -5,14 +5,11 @@
  */
 export async function register(): Promise<void> {
   if (process.env.NEXT_RUNTIME !== "nodejs") return;
-  const { stokeMode, teamModeProblem, allowedHosts } = await import("./lib/services/mode");
+  const { stokeMode, teamModeProblem, allowedHosts, refuseTeamStart } = await import("./lib/services/mode");
   const team = stokeMode() === "team";
   if (team) {
     const problem = teamModeProblem();
-    if (problem) {
-      console.error(`Stoke: cannot start in team mode. ${problem}`);
-      process.exit(1);
-    }
+    if (problem) refuseTeamStart(problem);
     console.log(`Stoke: team mode (sign-in required); answering for hosts ${allowedHosts().join(", ")}.`);
   }
   const { migrate } = await import("./lib/db/migrate");

@@ -80,3 +80,13 @@ export function hostAllowed(hostHeader: string | null, allowed: string[] = allow
   if (!m) return false;
   return allowed.includes(h) || allowed.includes(`${m[1]}:*`);
 }
+
+/**
+ * Ends a server start that cannot go on in team mode (no usable session secret), saying why. Kept
+ * here, in a module only the Node.js runtime loads, so that the start-up hook itself stays free of
+ * Node-only calls.
+ */
+export function refuseTeamStart(problem: string): never {
+  console.error(`Stoke: cannot start in team mode. ${problem}`);
+  process.exit(1);
+}
