@@ -1,5 +1,5 @@
 /**
- * Global setup of the browser tests: starts `next start` on 127.0.0.1 (a free port) against a
+ * Global setup of the browser tests: starts the production server (dist/server/serve.mjs) on 127.0.0.1 (a free port) against a
  * fresh SQLite file in a temp folder; the server migrates and seeds it on start, as in
  * production. Stops the server (by its own process id) and removes the folder afterwards.
  */

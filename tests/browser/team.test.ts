@@ -1,5 +1,5 @@
 /**
- * Team mode in a real browser (a second `next start` with STOKE_MODE=team on its own SQLite file):
+ * Team mode in a real browser (a second production server with STOKE_MODE=team on its own SQLite file):
  * a page sends the visitor to sign-in, signing in lands on the page asked for with the user in the
  * header, a fuel deleted from its sheet waits in the trash, Restore brings it back, and its History
  * says who did both.

@@ -1,7 +1,7 @@
 import path from "node:path";
 import { defineConfig } from "vitest/config";
 
-// Real-browser tests: Debian's chromium through playwright-core against `next start` on a
+// Real-browser tests: Debian's chromium through playwright-core against the production server on a
 // fresh temp database. Needs a production build (`next build`; the setup builds when none exists).
 export default defineConfig({
   resolve: { alias: { "@": path.resolve(import.meta.dirname, "../..") } },

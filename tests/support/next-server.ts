@@ -1,6 +1,8 @@
 /**
- * Starting and stopping `next start` for tests and benchmarks: a free loopback port, a server
- * process of our own (so it can be stopped by its id), waiting until it answers.
+ * Starting and stopping the production server (`npm start`'s dist/server/serve.mjs: Next behind
+ * the response cache) for tests and benchmarks: the server bundle built afresh, a free loopback
+ * port, a server process of our own (so it can be stopped by its id), waiting until it answers.
+ * Needs a current `next build`.
  */
 import { spawn, type ChildProcess } from "node:child_process";
 import net from "node:net";
@@ -26,13 +28,23 @@ export interface NextServer {
   stop: () => Promise<void>;
 }
 
-/** Starts `next start` on 127.0.0.1 with the given environment and waits until `readyPath` answers. */
+let serverBuilt: Promise<string> | null = null;
+
+/** Bundles the server once per test process (app/_server/build.mjs). */
+function serverFile(): Promise<string> {
+  serverBuilt ??= import(path.join(projectRoot, "app", "_server", "build.mjs")).then((m: { buildServer: () => Promise<string> }) =>
+    m.buildServer(),
+  );
+  return serverBuilt;
+}
+
+/** Starts the production server on 127.0.0.1 with the given environment and waits until `readyPath` answers. */
 export async function startNextServer(env: Record<string, string>, readyPath = "/api/fuels", timeoutMs = 60_000): Promise<NextServer> {
-  const port = await freePort();
+  const [port, file] = await Promise.all([freePort(), serverFile()]);
   let output = "";
-  const child = spawn(path.join(projectRoot, "node_modules", ".bin", "next"), ["start", "-H", "127.0.0.1", "-p", String(port)], {
+  const child = spawn(process.execPath, [file], {
     cwd: projectRoot,
-    env: { ...process.env, NEXT_TELEMETRY_DISABLED: "1", ...env },
+    env: { ...process.env, NODE_ENV: "production", NEXT_TELEMETRY_DISABLED: "1", HOST: "127.0.0.1", PORT: String(port), ...env },
     stdio: ["ignore", "pipe", "pipe"],
   });
   child.stdout!.on("data", (d) => (output += d));
@@ -40,7 +52,7 @@ export async function startNextServer(env: Record<string, string>, readyPath = "
   const server: NextServer = { child, baseURL: `http://127.0.0.1:${port}`, output: () => output, stop: () => stopProcess(child) };
   const t0 = Date.now();
   while (Date.now() - t0 < timeoutMs) {
-    if (child.exitCode !== null) throw new Error(`next start exited with ${child.exitCode}:\n${output}`);
+    if (child.exitCode !== null) throw new Error(`the server exited with ${child.exitCode}:\n${output}`);
     try {
       if ((await fetch(server.baseURL + readyPath)).ok) return server;
     } catch {
@@ -49,7 +61,7 @@ export async function startNextServer(env: Record<string, string>, readyPath = "
     await new Promise((r) => setTimeout(r, 200));
   }
   await server.stop();
-  throw new Error(`next start did not answer ${readyPath} within ${timeoutMs} ms:\n${output}`);
+  throw new Error(`the server did not answer ${readyPath} within ${timeoutMs} ms:\n${output}`);
 }
 
 /** SIGTERM, then SIGKILL after 5 s. */

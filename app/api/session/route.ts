@@ -26,8 +26,8 @@ const personal = () => json({ error: "Personal mode has no sign-in: Stoke answer
 
 /**
  * The caller's address for the per-client throttle: the last X-Forwarded-For entry — the one the
- * nearest reverse proxy appended, or the socket's address that next start fills in when the header
- * is absent. A client reaching next start directly could send its own header, so this limit is a
+ * nearest reverse proxy appended, or the socket's address that the server fills in when the header
+ * is absent. A client reaching the server directly could send its own header, so this limit is a
  * second line only: the per-account (and per-unknown-e-mail) waits do not depend on it.
  */
 function clientOf(req: Request): string {
