@@ -79,6 +79,7 @@ declare global {
   var __stokeResultCache: ContentCache<unknown> | undefined;
   var __stokePropertyCache: ContentCache<unknown> | undefined;
   var __stokeParsedStudyCache: ContentCache<unknown> | undefined;
+  var __stokeFlameKeysAsked: ContentCache<string[]> | undefined;
 }
 
 export function sharedCaches(): EvaluationCaches {
@@ -97,6 +98,16 @@ export function resultCache<V>(): ContentCache<V> {
 export function parsedStudyCache<V>(): ContentCache<V> {
   globalThis.__stokeParsedStudyCache ??= new ContentCache<unknown>(RESULT_CACHE_ENTRIES);
   return globalThis.__stokeParsedStudyCache as ContentCache<V>;
+}
+
+/**
+ * The flame-solve keys an evaluation of a study input asked the look-up for, keyed like the result
+ * (input and options): the result cache's key adds the outcome of each of these solves, so a solve
+ * arriving for one study leaves every other study's cached result in place.
+ */
+export function flameKeysAsked(): ContentCache<string[]> {
+  globalThis.__stokeFlameKeysAsked ??= new ContentCache<string[]>(RESULT_CACHE_ENTRIES);
+  return globalThis.__stokeFlameKeysAsked;
 }
 
 export function propertyCache<V>(): ContentCache<V> {

@@ -48,7 +48,7 @@ function outcomeOfRow(r: { result: string | null; error: string | null }): Flame
 }
 
 /** The stored solves as a look-up (rows written since the last call are read first). */
-export async function flameLookup(db: Db): Promise<FlameLookup & { version: number }> {
+export async function flameLookup(db: Db): Promise<FlameLookup> {
   const s = state();
   const rows = await db.flameSolve.findMany({
     where: s.lastRead ? { createdAt: { gte: s.lastRead } } : {},
@@ -59,7 +59,7 @@ export async function flameLookup(db: Db): Promise<FlameLookup & { version: numb
     if (!s.lastRead || r.createdAt > s.lastRead) s.lastRead = r.createdAt;
   }
   // Outcomes are only ever added (a solve is written once): their count names the state.
-  return { get: (key) => s.cache.get(key), version: s.cache.size };
+  return { get: (key) => s.cache.get(key) };
 }
 
 /** Stores one outcome (once; a second writer of the same key changes nothing). */

@@ -45,7 +45,8 @@ import { listRates, rateJson } from "../db/exchange-rate-rows";
 import { countRevisions } from "../db/revision-rows";
 import { rateInForce } from "../economics/currency";
 import { day, inCurrency, latestVersion, quoteByRule, ruleText, type PriceSource, type PricingContext } from "./quote-choice";
-import { contentKey, parsedStudyCache, resultCache, sharedCaches } from "./eval-cache";
+import { isFlameFailure, type FlameLookup } from "../plant/burner-flame";
+import { contentKey, flameKeysAsked, parsedStudyCache, resultCache, sharedCaches } from "./eval-cache";
 import { ok, problem, problemFromError, type FieldErrors, type Problem, type Result } from "./result";
 import { currentActor } from "./actor";
 import { trashEnabled } from "./mode";
@@ -458,6 +459,17 @@ export interface EvaluateStoredOptions extends ViewSettings {
   solveFlames?: boolean;
 }
 
+/** A study result's cache key: its input's key and the outcome of every flame solve it asked for. */
+function resultKeyOf(inputKey: string, asked: string[], flames: FlameLookup): string {
+  return contentKey(
+    inputKey,
+    asked.map((k) => {
+      const o = flames.get(k);
+      return [k, o === undefined ? "pending" : isFlameFailure(o) ? "failed" : "solved"];
+    }),
+  );
+}
+
 /** The problem of a sweep asked for on a study that names no hydrogen. */
 export function noHydrogenProblem(name: string): Problem {
   return problem("invalid", `Study "${name}" has no hydrogen for its sweep: ${NO_HYDROGEN_CHOSEN}.`, {
@@ -477,12 +489,26 @@ export async function evaluateStoredStudy(db: Db, id: number, opts: EvaluateStor
   try {
     const options = { sweep: opts.sweep === true || (opts.sweep === "if-chosen" && chosen), tornado: opts.tornado ?? true };
     // Keyed by everything the evaluation reads: the self-contained study object, the options and the
-    // flame solves known so far (a solve arriving makes a new key; stored solves never change).
+    // outcome of each flame solve the evaluation asked for (stored solves never change; a solve
+    // arriving for this study makes a new key, one for another study does not).
     const flames = await flameLookup(db);
-    const key = contentKey("study-result", loaded.bundle.inputKey ?? loaded.bundle.study, options, flames.version);
-    const result = resultCache<StudyResult>().getOrCompute(key, () =>
-      evaluateStudy(loaded.bundle.study, { ...options, caches: sharedCaches(), flames }),
-    );
+    const inputKey = contentKey("study-result", loaded.bundle.inputKey ?? loaded.bundle.study, options);
+    const results = resultCache<StudyResult>();
+    const asked = flameKeysAsked().get(inputKey);
+    let result = asked ? results.get(resultKeyOf(inputKey, asked, flames)) : undefined;
+    if (!result) {
+      const seen = new Set<string>();
+      const recording: FlameLookup = {
+        get: (k) => {
+          seen.add(k);
+          return flames.get(k);
+        },
+      };
+      result = evaluateStudy(loaded.bundle.study, { ...options, caches: sharedCaches(), flames: recording });
+      const keys = [...seen];
+      flameKeysAsked().set(inputKey, keys);
+      results.set(resultKeyOf(inputKey, keys, flames), result);
+    }
     if (result.flameSolves.pending > 0 && opts.solveFlames === true) ensureFlameSolves(db, result.flameSolves.needed);
     return { ok: true, bundle: loaded.bundle, result };
   } catch (e) {

@@ -103,6 +103,27 @@ describe("evaluated studies cached by content", () => {
   });
 });
 
+describe("evaluated studies and their flame solves", () => {
+  it("a solve stored for another study keeps this study's cached result; one it asked for makes a new one", async () => {
+    const flames = await import("../../lib/services/flames");
+    const id = (await s.t.client.study.findFirstOrThrow({ where: { name: STUDY } })).id;
+    const first = await evaluated(id);
+    const needed = first.result.flameSolves.needed;
+    expect(needed.length).toBeGreaterThan(0);
+    expect(first.result.flameSolves.pending).toBe(needed.length); // none solved in this database yet
+    // A solve no part of this study asks for.
+    await flames.storeFlameOutcome(s.t.client, JSON.stringify({ unrelated: "flame request", at: 1 }), {
+      error: "a solve of another study",
+    });
+    expect((await evaluated(id)).result).toBe(first.result);
+    // One of its own: the result changes, counting it.
+    await flames.storeFlameOutcome(s.t.client, needed[0].key, { error: "stored for this test" });
+    const after = await evaluated(id);
+    expect(after.result).not.toBe(first.result);
+    expect(after.result.flameSolves.failed).toBe(first.result.flameSolves.failed + 1);
+  });
+});
+
 describe("fuel property sheets cached by content", () => {
   it("an edited fuel's figures change at once and equal those of a new fuel with the same definition", async () => {
     const created = await fuelsService.createFuel(s.t.client, { name: "Cache test gas", definition: { composition: { CH4: 1 } } });
