@@ -58,7 +58,7 @@ async function parsePlant(tx: DbOrTx, raw: unknown): Promise<Result<{ plant: Pla
     if (!f) errs["liquidTrain.referenceFuel"] = "choose the liquid the train is set up on";
     else if (f.kind !== "liquid") errs["liquidTrain.referenceFuel"] = `${f.name} is not a liquid`;
     else rest.liquidTrain = { ...train, referenceFuel: { ...effectiveDefinition(f), name: f.name } };
-    if (!f || f.kind !== "liquid") rest.liquidTrain = { ...train, referenceFuel: { compound: "C16H34", phase: "liquid" } };
+    if (f?.kind !== "liquid") rest.liquidTrain = { ...train, referenceFuel: { compound: "C16H34", phase: "liquid" } };
   }
   const parsed = plantSchema.safeParse(rest);
   if (!parsed.success) Object.assign(errs, fieldErrors(parsed.error));

@@ -17,7 +17,6 @@ import { flameZoneMoleFractions } from "../support/flame-mixture";
 export async function benchTransport(): Promise<BenchResult[]> {
   const mech = loadMechanism();
   const tr = createMixtureTransport(mech);
-  const nS = mech.nSpecies;
   const X = flameZoneMoleFractions(mech);
   const out = tr.newOutput();
   let sink = 0;

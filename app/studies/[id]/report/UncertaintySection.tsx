@@ -3,6 +3,7 @@ import type { PathAssumptions } from "@/lib/study/price-paths";
 import type { StoredRun } from "@/lib/services/uncertainty-runs";
 import { fmt, money } from "../../../_ui/format";
 import { METRIC_SHORT } from "../../_components/settings";
+import { band, byChanceFirst, metricFormat, OptionName, pFirstText, pNpvText } from "../../_components/uncertainty-format";
 
 /** Years a report prints of a path: 1, 5, 10, … and the last. */
 function shownYears(n: number): number[] {
@@ -81,10 +82,8 @@ export function UncertaintySection({ run, revision }: { run: StoredRun | null; r
     );
   }
   const r = run.result;
-  const cur = r.currency;
-  const pct = (p: number) => fmt(100 * p, 1);
-  const metricNum = r.metric === "npv" ? (v: number) => money(v, cur, 0) : (v: number) => fmt(v, Math.abs(v) >= 1000 ? 0 : 2);
-  const rows = [...r.scenarios].sort((a, b) => b.pFirst - a.pFirst || a.index - b.index);
+  const metricNum = metricFormat(r);
+  const rows = byChanceFirst(r.scenarios);
   const st = run.settings;
   return (
     <section className="keep" data-testid="report-uncertainty">
@@ -117,16 +116,10 @@ export function UncertaintySection({ run, revision }: { run: StoredRun | null; r
           <tbody>
             {rows.map((s) => (
               <tr key={s.name}>
-                <td>
-                  {s.name}
-                  {s.isBaseline ? " (baseline)" : ""}
-                  {s.excludedReason && <div className="unit">not ranked: {s.excludedReason}</div>}
-                </td>
-                <td className="num">{s.ranked ? `${pct(s.pFirst)} ± ${pct(s.pFirstSE)}` : "–"}</td>
-                <td className="num">
-                  {s.metric ? `${metricNum(s.metric.p10)} / ${metricNum(s.metric.p50)} / ${metricNum(s.metric.p90)}` : "–"}
-                </td>
-                <td className="num">{s.pNpvPositive === null ? "–" : `${pct(s.pNpvPositive)} ± ${pct(s.pNpvPositiveSE ?? 0)}`}</td>
+                <OptionName s={s} />
+                <td className="num">{pFirstText(s)}</td>
+                <td className="num">{band(s.metric, metricNum)}</td>
+                <td className="num">{pNpvText(s)}</td>
               </tr>
             ))}
           </tbody>

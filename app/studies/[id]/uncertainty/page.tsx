@@ -7,21 +7,17 @@ import { getUncertaintyRun, runForReport } from "@/lib/services/uncertainty-runs
 import { RunControl } from "./RunControl";
 import { OPERATING_HOURS_DEFAULT_PERCENT } from "@/lib/schemas/study";
 import { RANGES, uncertaintyParams } from "./params";
-import type { Percentiles } from "@/lib/study/uncertainty";
 import { fmt, money } from "../../../_ui/format";
 import { CdfChart, FirstChanceChart, IntervalChart } from "../../../_charts/UncertaintyCharts";
 import { Status } from "../../_components/Checks";
 import { EvaluationProblem } from "../../_components/EvaluationProblem";
+import { band, byChanceFirst, metricFormat, OptionName, pct, pFirstText, pNpvText } from "../../_components/uncertainty-format";
 import { intParam, METRIC_SHORT, RANKING_METRICS, viewChoice, viewQuery, type SearchParams } from "../../_components/settings";
 
 export const dynamic = "force-dynamic";
 export const metadata: Metadata = { title: "How sure is the ranking?" };
 
 type Props = { params: Promise<{ id: string }>; searchParams: Promise<SearchParams> };
-
-function band(p: Percentiles | null, f: (v: number) => string): string {
-  return p ? `${f(p.p10)} / ${f(p.p50)} / ${f(p.p90)}` : "–";
-}
 
 export default async function UncertaintyPage({ params, searchParams }: Props) {
   const id = Number((await params).id);
@@ -126,9 +122,8 @@ export default async function UncertaintyPage({ params, searchParams }: Props) {
   const study = loaded.bundle.study;
   const cur = r.currency;
   const num = (v: number) => fmt(v, Math.abs(v) >= 1000 ? 0 : 2);
-  const metricNum = r.metric === "npv" ? (v: number) => money(v, cur, 0) : num;
-  const pct = (p: number) => fmt(100 * p, 1);
-  const byFirst = [...r.scenarios].sort((a, b) => b.pFirst - a.pFirst || a.index - b.index);
+  const metricNum = metricFormat(r);
+  const byFirst = byChanceFirst(r.scenarios);
   const withMetric = byFirst.filter((s) => s.metric);
   const cdf = byFirst.filter((s) => s.cdf).map((s) => ({ label: s.name, values: s.cdf! }));
   const st = run.settings;
@@ -242,20 +237,16 @@ export default async function UncertaintyPage({ params, searchParams }: Props) {
           <tbody>
             {byFirst.map((s) => (
               <tr key={s.name}>
-                <td>
-                  {s.name}
-                  {s.isBaseline ? " (baseline)" : ""}
-                  {s.excludedReason && <div className="unit">not ranked: {s.excludedReason}</div>}
-                </td>
+                <OptionName s={s} />
                 <td>
                   <Status status={s.status} />
                 </td>
-                <td className="num">{s.ranked ? `${pct(s.pFirst)} ± ${pct(s.pFirstSE)}` : "–"}</td>
+                <td className="num">{pFirstText(s)}</td>
                 <td className="num">{s.deterministicValue === null ? "–" : metricNum(s.deterministicValue)}</td>
                 <td className="num">{band(s.metric, metricNum)}</td>
                 <td className="num">{band(s.costPerUsefulMWh, num)}</td>
                 <td className="num">{band(s.npv, (v) => fmt(v, 0))}</td>
-                <td className="num">{s.pNpvPositive === null ? "–" : `${pct(s.pNpvPositive)} ± ${pct(s.pNpvPositiveSE ?? 0)}`}</td>
+                <td className="num">{pNpvText(s)}</td>
                 <td className="num">
                   {band(s.abatementCost_per_t, (v) => fmt(v, 0))}
                   {s.abatementCost_per_t && s.abatementCost_per_t.defined < r.draws && (
