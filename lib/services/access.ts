@@ -8,7 +8,7 @@
  */
 import type { DbOrTx } from "../db/client";
 import { roleAtLeast, type Role } from "../schemas/accounts";
-import { sessionActor, tokenActor } from "./accounts";
+import { sessionActor, tokenActor, utcMinute } from "./accounts";
 import { LOCAL_USER, type Actor } from "./actor";
 import type { Mode } from "./mode";
 
@@ -50,16 +50,23 @@ export interface Credentials {
 export type Decision = { ok: true; actor: Actor } | { ok: false; status: 401 | 403; message: string; need: Need };
 
 /** Says whether the request may go on, and as whom. A bearer token, when sent, is the only credential looked at. */
-export async function authorize(db: DbOrTx, mode: Mode, need: Need, creds: Credentials): Promise<Decision> {
+export async function authorize(db: DbOrTx, mode: Mode, need: Need, creds: Credentials, now: Date = new Date()): Promise<Decision> {
   if (mode === "personal") return { ok: true, actor: LOCAL_USER };
   if (need === "public") return { ok: true, actor: { name: "anonymous", accountId: null, role: "viewer", via: "session" } };
   let actor: Actor | null = null;
   if (creds.bearer !== null) {
-    actor = await tokenActor(db, creds.bearer);
-    if (!actor)
-      return { ok: false, status: 401, message: "The API token is not valid (unknown, revoked, or its account is disabled).", need };
+    const t = await tokenActor(db, creds.bearer, now);
+    if (t && "expiredAt" in t)
+      return {
+        ok: false,
+        status: 401,
+        message: `The API token expired on ${utcMinute(t.expiredAt)}; an admin can issue a new one on the Accounts page.`,
+        need,
+      };
+    if (!t) return { ok: false, status: 401, message: "The API token is not valid (unknown, revoked, or its account is disabled).", need };
+    actor = t;
   } else if (creds.sessionKey) {
-    actor = await sessionActor(db, creds.sessionKey);
+    actor = await sessionActor(db, creds.sessionKey, now);
   }
   if (!actor) return { ok: false, status: 401, message: "Sign in first (or send an API token as Authorization: Bearer …).", need };
   if (need === "signed-in" || roleAtLeast(actor.role, need)) return { ok: true, actor };
