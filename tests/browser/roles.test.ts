@@ -2,7 +2,7 @@
  * Team mode in a real browser, by role (a second `next start` with STOKE_MODE=team on its own
  * seeded SQLite file): a viewer sees no button, link or form that changes anything on the fuel
  * list, a fuel sheet, a plant page and a study page — and the form pages still answer 403 — while
- * an editor sees each of them.
+ * an editor sees each of them; an admin issues API tokens with a lifetime on the Accounts page.
  */
 import fs from "node:fs";
 import os from "node:os";
@@ -18,6 +18,7 @@ import { createAccount } from "../../lib/services/accounts";
 
 let server: NextServer;
 let dir: string;
+let dbUrl: string;
 let page: Page;
 let close: () => Promise<void>;
 const PASSWORD = "a long enough passphrase";
@@ -26,9 +27,10 @@ const ids = { fuel: 0, plant: 0, study: 0 };
 beforeAll(async () => {
   dir = fs.mkdtempSync(path.join(os.tmpdir(), "stoke-roles-"));
   const url = `file:${path.join(dir, "roles.db")}`;
+  dbUrl = url;
   migrateSqlite({ databaseUrl: url });
   const client = createClient(url);
-  for (const role of ["viewer", "editor"] as const) {
+  for (const role of ["viewer", "editor", "admin"] as const) {
     const a = await createAccount(client, { email: `${role}@example.org`, role, password: PASSWORD });
     if (!a.ok) throw new Error(a.message);
   }
@@ -127,5 +129,32 @@ describe("team mode in the browser: what each role sees", () => {
     await page.goto(`${server.baseURL}/fuels/transfer`);
     await page.getByRole("form", { name: "Import a library file" }).waitFor();
     expect((await page.goto(`${server.baseURL}/fuels/new`))?.status()).toBe(200);
+  });
+
+  it("an admin issues a token with a lifetime: a bad one is refused naming the field, the list shows the expiry and marks an expired token", async () => {
+    await signInAs("admin@example.org");
+    await page.goto(`${server.baseURL}/accounts`);
+    const form = page.locator("form", { has: page.getByRole("button", { name: "Issue a token" }) });
+    await form.getByLabel("What it is for").fill("reporting script");
+    await form.getByLabel(/Valid for/).fill("400");
+    await form.getByRole("button", { name: "Issue a token" }).click();
+    await page.getByRole("alert").filter({ hasText: "lifetimeDays: must be at most 365 days" }).waitFor();
+    await form.getByLabel(/Valid for/).fill("30");
+    await form.getByRole("button", { name: "Issue a token" }).click();
+    await page.getByTestId("new-token").waitFor();
+    const client = createClient(dbUrl);
+    const tokens = await client.apiToken.findMany();
+    expect(tokens.length).toBe(1);
+    const t = tokens[0];
+    const days = (t.expiresAt.getTime() - t.createdAt.getTime()) / (24 * 3600 * 1000);
+    expect(days).toBeCloseTo(30, 6);
+    const row = page.getByTestId(`token-${t.id}`);
+    await row.getByText(t.expiresAt.toISOString().slice(0, 16).replace("T", " ")).waitFor();
+    expect(await row.getByText("expired").count()).toBe(0);
+    await client.apiToken.update({ where: { id: t.id }, data: { expiresAt: new Date("2026-01-05T08:30:00Z") } });
+    await client.$disconnect();
+    await page.reload();
+    await row.getByText("2026-01-05 08:30").waitFor();
+    await row.getByText("expired", { exact: true }).waitFor();
   });
 });
