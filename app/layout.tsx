@@ -30,7 +30,7 @@ export default async function RootLayout({ children }: { children: React.ReactNo
                 Fuel library
               </NavLink>
               <NavLink href="/fuels/transfer" exact>
-                Import / export
+                {can && !can.importLibrary ? "Export" : "Import / export"}
               </NavLink>
               {trashEnabled() && (!team || user) && <NavLink href="/trash">Trash</NavLink>}
               {user && can?.manageAccounts && <NavLink href="/accounts">Accounts</NavLink>}
