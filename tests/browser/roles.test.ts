@@ -108,7 +108,8 @@ describe("team mode in the browser: what each role sees", () => {
     );
     // Reading and exporting stay: the library's export link, the study's downloads, the tabs.
     await page.goto(`${server.baseURL}/fuels`);
-    await page.getByRole("link", { name: "Export", exact: true }).waitFor();
+    await page.locator("main").getByRole("link", { name: "Export", exact: true }).waitFor();
+    await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Export", exact: true }).waitFor();
     await page.goto(`${server.baseURL}/studies/${ids.study}`);
     await page.getByRole("link", { name: "CSV", exact: true }).waitFor();
     await page.getByRole("link", { name: "Report", exact: true }).first().waitFor();
