@@ -3,10 +3,9 @@ import Link from "next/link";
 import "./globals.css";
 import "./studies/decision.css";
 import { NavLink } from "./_ui/NavLink";
-import { pageUser } from "./_auth/page-user";
+import { pageActions, pageUser } from "./_auth/page-user";
 import { SignOutButton } from "./_auth/SignOutButton";
 import { stokeMode, trashEnabled } from "@/lib/services/mode";
-import { roleAtLeast } from "@/lib/schemas/accounts";
 
 export const metadata: Metadata = {
   title: { default: "Stoke", template: "%s · Stoke" },
@@ -15,7 +14,7 @@ export const metadata: Metadata = {
 
 export default async function RootLayout({ children }: { children: React.ReactNode }) {
   const team = stokeMode() === "team";
-  const user = team ? await pageUser() : null;
+  const [user, can] = team ? await Promise.all([pageUser(), pageActions()]) : [null, null];
   return (
     <html lang="en">
       <body>
@@ -31,10 +30,10 @@ export default async function RootLayout({ children }: { children: React.ReactNo
                 Fuel library
               </NavLink>
               <NavLink href="/fuels/transfer" exact>
-                Import / export
+                {can && !can.importLibrary ? "Export" : "Import / export"}
               </NavLink>
               {trashEnabled() && (!team || user) && <NavLink href="/trash">Trash</NavLink>}
-              {user && roleAtLeast(user.role, "admin") && <NavLink href="/accounts">Accounts</NavLink>}
+              {user && can?.manageAccounts && <NavLink href="/accounts">Accounts</NavLink>}
             </nav>
             {user ? (
               <span className="account" data-testid="signed-in">

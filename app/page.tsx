@@ -7,14 +7,16 @@ import { countPlants } from "@/lib/services/plants";
 const HOME_PLANTS = 20;
 import { EQUIPMENT_TYPE_LABELS, type EquipmentType } from "@/lib/schemas/plant";
 import { fmt } from "./_ui/format";
+import { pageActions } from "./_auth/page-user";
 
 export const dynamic = "force-dynamic";
 
 export default async function HomePage() {
-  const [{ fuels: fuelCount, quotes: quoteCount }, plants, plantCount] = await Promise.all([
+  const [{ fuels: fuelCount, quotes: quoteCount }, plants, plantCount, can] = await Promise.all([
     countFuelsAndQuotes(db()),
     plantsOverview(db(), HOME_PLANTS),
     countPlants(db()),
+    pageActions(),
   ]);
   return (
     <>
@@ -36,9 +38,11 @@ export default async function HomePage() {
             <Link className="button" href="/fuels">
               Open the fuel library
             </Link>
-            <Link className="button secondary" href="/fuels/new">
-              Add a fuel
-            </Link>
+            {can.createFuel && (
+              <Link className="button secondary" href="/fuels/new">
+                Add a fuel
+              </Link>
+            )}
           </p>
         </section>
         <section className="panel">

@@ -8,7 +8,19 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 
 type Account = { id: number; email: string; displayName: string; role: string; disabled: boolean; lastSignInAt: string | null };
-type Token = { id: number; email: string; name: string; prefix: string; createdAt: string; lastUsedAt: string | null };
+type Token = {
+  id: number;
+  email: string;
+  name: string;
+  prefix: string;
+  createdAt: string;
+  expiresAt: string;
+  expired: boolean;
+  lastUsedAt: string | null;
+};
+/** API token lifetimes, days: the default and the longest allowed. */
+type Lifetime = { defaultDays: number; maxDays: number };
+const minute = (iso: string) => iso.slice(0, 16).replace("T", " ");
 
 const ROLES = ["viewer", "editor", "admin"];
 
@@ -28,7 +40,17 @@ const messageOf = (b: Record<string, unknown>) => {
   return [String(b.error ?? "Refused."), ...fields].join(" — ");
 };
 
-export function AccountsAdmin({ accounts, tokens, selfId }: { accounts: Account[]; tokens: Token[]; selfId: number | null }) {
+export function AccountsAdmin({
+  accounts,
+  tokens,
+  selfId,
+  lifetime,
+}: {
+  accounts: Account[];
+  tokens: Token[];
+  selfId: number | null;
+  lifetime: Lifetime;
+}) {
   const router = useRouter();
   const [message, setMessage] = useState<{ ok: boolean; text: string } | null>(null);
   const [newToken, setNewToken] = useState<string | null>(null);
@@ -60,7 +82,12 @@ export function AccountsAdmin({ accounts, tokens, selfId }: { accounts: Account[
     e.preventDefault();
     const f = new FormData(e.currentTarget);
     const r = await run(
-      send("/api/tokens", "POST", { accountId: Number(f.get("accountId")), tokenName: f.get("tokenName") }),
+      send("/api/tokens", "POST", {
+        accountId: Number(f.get("accountId")),
+        tokenName: f.get("tokenName"),
+        // Left empty: the server's default lifetime. Anything else goes as a number (NaN as null), for the server to judge.
+        ...(String(f.get("lifetimeDays") ?? "").trim() === "" ? {} : { lifetimeDays: Number(f.get("lifetimeDays")) }),
+      }),
       "Token issued.",
     );
     setNewToken(r.ok ? String(r.body.token) : null);
@@ -185,7 +212,8 @@ export function AccountsAdmin({ accounts, tokens, selfId }: { accounts: Account[
       <h2>API tokens</h2>
       <p className="lede">
         A token lets a script use the API as an account (with that account&apos;s role), sent as <code>Authorization: Bearer …</code>. It is
-        shown once; Stoke keeps only its hash.
+        shown once; Stoke keeps only its hash. It is refused after its expiry ({lifetime.defaultDays} days unless you choose fewer, at most{" "}
+        {lifetime.maxDays}); issue a new one before then.
       </p>
       {newToken && (
         <p className="form-ok">
@@ -201,20 +229,24 @@ export function AccountsAdmin({ accounts, tokens, selfId }: { accounts: Account[
                 <th scope="col">For</th>
                 <th scope="col">Account</th>
                 <th scope="col">Issued (UTC)</th>
+                <th scope="col">Expires (UTC)</th>
                 <th scope="col">Last used</th>
                 <th scope="col" />
               </tr>
             </thead>
             <tbody>
               {tokens.map((t) => (
-                <tr key={t.id}>
+                <tr key={t.id} data-testid={`token-${t.id}`}>
                   <td>
                     <code>{t.prefix}…</code>
                   </td>
                   <td>{t.name}</td>
                   <td>{t.email}</td>
-                  <td>{t.createdAt.slice(0, 16).replace("T", " ")}</td>
-                  <td>{t.lastUsedAt ? t.lastUsedAt.slice(0, 16).replace("T", " ") : "never"}</td>
+                  <td>{minute(t.createdAt)}</td>
+                  <td>
+                    {minute(t.expiresAt)} {t.expired && <span className="badge">expired</span>}
+                  </td>
+                  <td>{t.lastUsedAt ? minute(t.lastUsedAt) : "never"}</td>
                   <td>
                     <button type="button" className="danger" onClick={() => run(send(`/api/tokens/${t.id}`, "DELETE"), "Token revoked.")}>
                       Revoke
@@ -242,6 +274,10 @@ export function AccountsAdmin({ accounts, tokens, selfId }: { accounts: Account[
         <label className="field">
           <span>What it is for</span>
           <input name="tokenName" required maxLength={80} />
+        </label>
+        <label className="field">
+          <span>Valid for (days, 1–{lifetime.maxDays})</span>
+          <input name="lifetimeDays" inputMode="numeric" defaultValue={String(lifetime.defaultDays)} style={{ width: "7rem" }} />
         </label>
         <div style={{ alignSelf: "end" }}>
           <button type="submit">Issue a token</button>

@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import { db } from "@/lib/db/client";
-import { ROLE_DUTIES, ROLES } from "@/lib/schemas/accounts";
+import { ROLE_DUTIES, ROLES, TOKEN_LIFETIME_DEFAULT_DAYS, TOKEN_LIFETIME_MAX_DAYS } from "@/lib/schemas/accounts";
 import { listAccounts, listTokens } from "@/lib/services/accounts";
 import { stokeMode } from "@/lib/services/mode";
 import { pageUser } from "../_auth/page-user";
@@ -31,7 +31,12 @@ export default async function AccountsPage() {
         ))}
       </ul>
       <p className="muted">A role change, disabling or a new password ends every session of the account at once.</p>
-      <AccountsAdmin accounts={accounts} tokens={tokens} selfId={user?.accountId ?? null} />
+      <AccountsAdmin
+        accounts={accounts}
+        tokens={tokens}
+        selfId={user?.accountId ?? null}
+        lifetime={{ defaultDays: TOKEN_LIFETIME_DEFAULT_DAYS, maxDays: TOKEN_LIFETIME_MAX_DAYS }}
+      />
       <History type="account" title="Changes to accounts and tokens" limit={30} />
     </>
   );

@@ -4,6 +4,7 @@ import { db } from "@/lib/db/client";
 import { countFuels, fuelList, type FuelListItem } from "@/lib/services/fuel-views";
 import { uiPage, UI_PAGE_SIZE } from "@/lib/services/paging";
 import { Pager } from "../_ui/Pager";
+import { pageActions } from "../_auth/page-user";
 import { FUEL_KINDS } from "@/lib/schemas/library";
 import { fmt, fmtUpTo, money } from "../_ui/format";
 
@@ -45,9 +46,10 @@ export default async function FuelListPage({ searchParams }: { searchParams: Pro
   const sp = await searchParams;
   const kindParam = typeof sp.kind === "string" && (FUEL_KINDS as readonly string[]).includes(sp.kind) ? sp.kind : null;
   const page = uiPage(sp.page);
-  const [fuels, total] = await Promise.all([
+  const [fuels, total, can] = await Promise.all([
     fuelList(db(), { kind: kindParam ?? undefined, page }),
     countFuels(db(), kindParam ?? undefined),
+    pageActions(),
   ]);
   const pager = (
     <Pager path="/fuels" query={kindParam ? { kind: kindParam } : {}} page={page.number} pageSize={UI_PAGE_SIZE} total={total} />
@@ -65,11 +67,13 @@ export default async function FuelListPage({ searchParams }: { searchParams: Pro
           </p>
         </div>
         <div className="actions">
-          <Link className="button" href="/fuels/new">
-            New fuel or blend
-          </Link>
+          {can.createFuel && (
+            <Link className="button" href="/fuels/new">
+              New fuel or blend
+            </Link>
+          )}
           <Link className="button secondary" href="/fuels/transfer">
-            Import / export
+            {can.importLibrary ? "Import / export" : "Export"}
           </Link>
         </div>
       </div>
@@ -95,8 +99,14 @@ export default async function FuelListPage({ searchParams }: { searchParams: Pro
 
       {fuels.length === 0 ? (
         <p className="note">
-          No fuels {kindParam ? `of kind “${kindParam}” ` : ""}yet. <Link href="/fuels/new">Add one</Link> or{" "}
-          <Link href="/fuels/transfer">import a library file</Link>.
+          No fuels {kindParam ? `of kind “${kindParam}” ` : ""}yet.{" "}
+          {can.createFuel && can.importLibrary ? (
+            <>
+              <Link href="/fuels/new">Add one</Link> or <Link href="/fuels/transfer">import a library file</Link>.
+            </>
+          ) : (
+            "An editor can add fuels or import a library file."
+          )}
         </p>
       ) : (
         <div className="table-wrap">

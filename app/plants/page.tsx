@@ -4,6 +4,7 @@ import { db } from "@/lib/db/client";
 import { countPlants, listPlants } from "@/lib/services/plants";
 import { uiPage, UI_PAGE_SIZE } from "@/lib/services/paging";
 import { Pager } from "../_ui/Pager";
+import { pageActions } from "../_auth/page-user";
 import { EQUIPMENT_TYPE_LABELS } from "@/lib/schemas/plant";
 import { fmt } from "../_ui/format";
 import { displayUnits } from "../studies/_components/units-server";
@@ -15,7 +16,7 @@ export const metadata: Metadata = { title: "Plants" };
 
 export default async function PlantsPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const page = uiPage((await searchParams).page);
-  const [plants, total, units] = await Promise.all([listPlants(db(), page), countPlants(db()), displayUnits()]);
+  const [plants, total, units, can] = await Promise.all([listPlants(db(), page), countPlants(db()), displayUnits(), pageActions()]);
   const d = makeDisplay(units, "");
   return (
     <>
@@ -28,15 +29,18 @@ export default async function PlantsPage({ searchParams }: { searchParams: Promi
           </p>
         </div>
         <div className="actions">
-          <Link className="button" href="/plants/new">
-            New plant
-          </Link>
+          {can.createPlant && (
+            <Link className="button" href="/plants/new">
+              New plant
+            </Link>
+          )}
         </div>
       </div>
       <UnitSwitch units={units} groups={["temperature"]} />
       {plants.length === 0 ? (
         <p className="note">
-          No plants yet. <Link href="/plants/new">Describe your first plant</Link>.
+          No plants yet.{" "}
+          {can.createPlant ? <Link href="/plants/new">Describe your first plant</Link> : "An editor can describe the first plant"}.
         </p>
       ) : (
         <div className="table-wrap" style={{ marginTop: "0.75rem" }}>
@@ -80,7 +84,11 @@ export default async function PlantsPage({ searchParams }: { searchParams: Promi
                   </td>
                   <td>
                     {p.studies.length === 0 ? (
-                      <Link href={`/studies/new?plant=${p.id}`}>start a study</Link>
+                      can.createStudy ? (
+                        <Link href={`/studies/new?plant=${p.id}`}>start a study</Link>
+                      ) : (
+                        <span className="muted">none yet</span>
+                      )
                     ) : (
                       p.studies.map((s, i) => (
                         <span key={s.id}>

@@ -4,6 +4,7 @@ import { db } from "@/lib/db/client";
 import { countStudies, listStudies } from "@/lib/services/studies";
 import { uiPage, UI_PAGE_SIZE } from "@/lib/services/paging";
 import { Pager } from "../_ui/Pager";
+import { pageActions } from "../_auth/page-user";
 import { METRIC_SHORT } from "./_components/settings";
 import type { RankingMetric } from "@/lib/economics/sensitivity";
 
@@ -12,7 +13,7 @@ export const metadata: Metadata = { title: "Studies" };
 
 export default async function StudiesPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const page = uiPage((await searchParams).page);
-  const [studies, total] = await Promise.all([listStudies(db(), {}, page), countStudies(db())]);
+  const [studies, total, can] = await Promise.all([listStudies(db(), {}, page), countStudies(db()), pageActions()]);
   return (
     <>
       <div className="page-head">
@@ -24,15 +25,17 @@ export default async function StudiesPage({ searchParams }: { searchParams: Prom
           </p>
         </div>
         <div className="actions">
-          <Link className="button" href="/studies/new">
-            New study
-          </Link>
+          {can.createStudy && (
+            <Link className="button" href="/studies/new">
+              New study
+            </Link>
+          )}
         </div>
       </div>
       {studies.length === 0 ? (
         <p className="note">
-          No studies yet. <Link href="/studies/new">Start one</Link> — you need a <Link href="/plants">plant</Link> and the fuels in the{" "}
-          <Link href="/fuels">library</Link>.
+          No studies yet. {can.createStudy ? <Link href="/studies/new">Start one</Link> : "An editor can start one"} — it needs a{" "}
+          <Link href="/plants">plant</Link> and the fuels in the <Link href="/fuels">library</Link>.
         </p>
       ) : (
         <div className="table-wrap">

@@ -1,9 +1,8 @@
 import type { Metadata } from "next";
 import { db } from "@/lib/db/client";
-import { roleAtLeast } from "@/lib/schemas/accounts";
 import { trashEnabled } from "@/lib/services/mode";
 import { listTrash } from "@/lib/services/trash";
-import { pageUser } from "../_auth/page-user";
+import { pageActions } from "../_auth/page-user";
 import { TrashActions } from "./TrashActions";
 
 export const dynamic = "force-dynamic";
@@ -12,8 +11,7 @@ export const metadata: Metadata = { title: "Trash" };
 const KIND_WORDS = { fuel: "Fuel", plant: "Plant", study: "Study" } as const;
 
 export default async function TrashPage() {
-  const [items, user] = await Promise.all([listTrash(db()), pageUser()]);
-  const role = user?.role ?? "viewer";
+  const [items, can] = await Promise.all([listTrash(db()), pageActions()]);
   return (
     <>
       <h1>Trash</h1>
@@ -47,13 +45,7 @@ export default async function TrashPage() {
                   <td style={{ whiteSpace: "nowrap" }}>{i.deletedAt.slice(0, 16).replace("T", " ")}</td>
                   <td>{i.deletedBy}</td>
                   <td>
-                    <TrashActions
-                      kind={i.kind}
-                      id={i.id}
-                      name={i.name}
-                      canRestore={roleAtLeast(role, "editor")}
-                      canPurge={roleAtLeast(role, "admin")}
-                    />
+                    <TrashActions kind={i.kind} id={i.id} name={i.name} canRestore={can.restoreFromTrash} canPurge={can.purgeFromTrash} />
                   </td>
                 </tr>
               ))}

@@ -90,7 +90,7 @@ export function deleteExpiredSessions(tx: DbOrTx, now: Date): Promise<{ count: n
 
 export function insertApiToken(
   tx: DbOrTx,
-  data: { accountId: number; name: string; tokenHash: string; prefix: string },
+  data: { accountId: number; name: string; tokenHash: string; prefix: string; createdAt: Date; expiresAt: Date },
 ): Promise<ApiToken> {
   return tx.apiToken.create({ data });
 }

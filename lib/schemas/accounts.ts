@@ -71,6 +71,17 @@ export const ownPasswordSchema = z.strictObject({
   newPassword: passwordSchema,
 });
 
+/** How long an API token lasts when its issuer does not say (days). */
+export const TOKEN_LIFETIME_DEFAULT_DAYS = 90;
+/** The longest lifetime an API token may be given (days). */
+export const TOKEN_LIFETIME_MAX_DAYS = 365;
+
+export const tokenLifetimeSchema = z
+  .number({ error: `must be a whole number of days from 1 to ${TOKEN_LIFETIME_MAX_DAYS}` })
+  .int(`must be a whole number of days from 1 to ${TOKEN_LIFETIME_MAX_DAYS}`)
+  .min(1, "must be at least 1 day")
+  .max(TOKEN_LIFETIME_MAX_DAYS, `must be at most ${TOKEN_LIFETIME_MAX_DAYS} days`);
+
 export const apiTokenInputSchema = z.strictObject({
   accountId: z
     .number({ error: "must be the id of an account" })
@@ -78,4 +89,7 @@ export const apiTokenInputSchema = z.strictObject({
     .positive()
     .max(2 ** 31 - 1),
   tokenName: nameSchema(80, "say what the token is for"),
+  /** Days from issue until the token is refused; `TOKEN_LIFETIME_DEFAULT_DAYS` when left out. */
+  lifetimeDays: tokenLifetimeSchema.default(TOKEN_LIFETIME_DEFAULT_DAYS),
 });
+export type ApiTokenInput = z.infer<typeof apiTokenInputSchema>;

@@ -11,7 +11,8 @@
  *   doubling with each further failure up to 15 min; a client that fails `CLIENT_FAILURES` times
  *   within 10 min (any e-mail) waits out the window. Unknown e-mails take as long as known ones.
  * - API tokens (`stk_…`, 256 random bits) are shown once and stored as SHA-256; they act with the
- *   account's current role and stop with it when it is disabled.
+ *   account's current role and stop with it when it is disabled, or when they expire: each has a
+ *   lifetime chosen at issue (`TOKEN_LIFETIME_DEFAULT_DAYS`, at most `TOKEN_LIFETIME_MAX_DAYS`).
  */
 import { createHash, randomBytes } from "node:crypto";
 import { hash as argonHash, verify as argonVerify } from "@node-rs/argon2";
@@ -43,6 +44,7 @@ import {
   accountInputSchema,
   apiTokenInputSchema,
   ownPasswordSchema,
+  type ApiTokenInput,
   signInSchema,
   type AccountInput,
   type Role,
@@ -331,7 +333,25 @@ export async function signOut(db: DbOrTx, key: string): Promise<void> {
 
 export const TOKEN_PREFIX = "stk_";
 
-export async function listTokens(db: DbOrTx) {
+const DAY_MS = 24 * 3600 * 1000;
+
+/** An instant as the token messages and lists show it: `2027-03-02 11:51 UTC`. */
+export const utcMinute = (d: Date) => `${d.toISOString().slice(0, 16).replace("T", " ")} UTC`;
+
+export interface TokenJson {
+  id: number;
+  accountId: number;
+  email: string;
+  name: string;
+  prefix: string;
+  createdAt: string;
+  expiresAt: string;
+  /** Whether `expiresAt` has passed (the token is refused). */
+  expired: boolean;
+  lastUsedAt: string | null;
+}
+
+export async function listTokens(db: DbOrTx, now: Date = new Date()): Promise<TokenJson[]> {
   return (await listApiTokens(db)).map((t) => ({
     id: t.id,
     accountId: t.accountId,
@@ -339,29 +359,51 @@ export async function listTokens(db: DbOrTx) {
     name: t.name,
     prefix: t.prefix,
     createdAt: t.createdAt.toISOString(),
+    expiresAt: t.expiresAt.toISOString(),
+    expired: t.expiresAt.getTime() <= now.getTime(),
     lastUsedAt: t.lastUsedAt?.toISOString() ?? null,
   }));
 }
 
-/** Issues a token for an account; the token itself is in the answer once and never again. */
-export async function issueToken(db: Db, raw: unknown): Promise<Result<{ id: number; token: string; prefix: string; accountId: number }>> {
-  const input = parse<{ accountId: number; tokenName: string }>(apiTokenInputSchema as never, raw, "token");
+export interface IssuedToken {
+  id: number;
+  token: string;
+  prefix: string;
+  accountId: number;
+  expiresAt: string;
+}
+
+/**
+ * Issues a token for an account, valid for `lifetimeDays` from `now`; the token itself is in the
+ * answer once and never again.
+ */
+export async function issueToken(db: Db, raw: unknown, now: Date = new Date()): Promise<Result<IssuedToken>> {
+  const input = parse<ApiTokenInput>(apiTokenInputSchema as never, raw, "token");
   if (!input.ok) return input;
   const token = `${TOKEN_PREFIX}${randomKey()}`;
   const prefix = token.slice(0, TOKEN_PREFIX.length + 6);
-  return inTransaction(db, async (tx: Tx) => {
+  const expiresAt = new Date(now.getTime() + input.value.lifetimeDays * DAY_MS);
+  return inTransaction(db, async (tx: Tx): Promise<Result<IssuedToken>> => {
     const account = await findAccount(tx, input.value.accountId);
     if (!account) return problem("invalid", "No such account.", { accountId: `no account with id ${input.value.accountId}` });
-    const row = await insertApiToken(tx, { accountId: account.id, name: input.value.tokenName, tokenHash: sha256(token), prefix });
+    const row = await insertApiToken(tx, {
+      accountId: account.id,
+      name: input.value.tokenName,
+      tokenHash: sha256(token),
+      prefix,
+      createdAt: now,
+      expiresAt,
+    });
+    const after = { id: row.id, name: row.name, prefix, expiresAt: expiresAt.toISOString() };
     await recordChange(tx, {
       subject: { type: "account", id: account.id },
       entity: "token",
       entityId: row.id,
       action: "create",
-      summary: `API token "${row.name}" (${prefix}…) issued`,
-      after: { id: row.id, name: row.name, prefix },
+      summary: `API token "${row.name}" (${prefix}…) issued, valid ${input.value.lifetimeDays} days until ${utcMinute(expiresAt)}`,
+      after,
     });
-    return ok({ id: row.id, token, prefix, accountId: account.id });
+    return ok({ id: row.id, token, prefix, accountId: account.id, expiresAt: expiresAt.toISOString() });
   });
 }
 
@@ -382,11 +424,15 @@ export async function revokeToken(db: Db, id: number): Promise<Result<{ id: numb
   });
 }
 
-/** The account a bearer token acts for; null for an unknown token or a disabled account. */
-export async function tokenActor(db: DbOrTx, token: string, now: Date = new Date()): Promise<Actor | null> {
+/**
+ * The account a bearer token acts for; `expired` (with the instant) for a token past its expiry;
+ * null for an unknown token or a disabled account. `now` is the clock (tests pass their own).
+ */
+export async function tokenActor(db: DbOrTx, token: string, now: Date = new Date()): Promise<Actor | { expiredAt: Date } | null> {
   if (!token.startsWith(TOKEN_PREFIX) || token.length > 200) return null;
   const t = await findApiTokenWithAccount(db, sha256(token));
   if (!t || t.account.disabledAt !== null) return null;
+  if (t.expiresAt.getTime() <= now.getTime()) return { expiredAt: t.expiresAt };
   // Note the use at most once a minute, so that reads do not turn into writes.
   if (!t.lastUsedAt || now.getTime() - t.lastUsedAt.getTime() > 60_000) await touchApiToken(db, t.id, now);
   return actorOf(t.account, "token");

@@ -3,7 +3,7 @@ import os from "node:os";
 import path from "node:path";
 import Database from "better-sqlite3";
 import { afterAll, describe, expect, it } from "vitest";
-import { migrateSqlite, readMigrations, sha256Hex } from "../../lib/db/migrate";
+import { defaultMigrationsDir, migrateSqlite, readMigrations, sha256Hex } from "../../lib/db/migrate";
 import { databaseTarget } from "../../lib/db/paths";
 import { createClient } from "../../lib/db/client";
 
@@ -78,5 +78,40 @@ describe("migration runner", () => {
     expect(() => databaseTarget("mysql://x")).toThrow(/neither/);
     // A PostgreSQL URL gives a client on the pg adapter; it connects only when first used.
     expect(typeof createClient("postgresql://u@h/db").fuel.findMany).toBe("function");
+  });
+});
+
+describe("migration 20261202120000_api_token_expiry", () => {
+  it("gives the API tokens issued before it the default lifetime of 90 days from the migration, readable by the client", async () => {
+    const NAME = "20261202120000_api_token_expiry";
+    const before = path.join(tmp(), "migrations");
+    fs.cpSync(defaultMigrationsDir("sqlite"), before, { recursive: true });
+    const all = readMigrations().map((m) => m.name);
+    for (const later of all.slice(all.indexOf(NAME))) fs.rmSync(path.join(before, later), { recursive: true });
+    const file = path.join(tmp(), "tokens.db");
+    migrateSqlite({ databaseUrl: `file:${file}`, migrationsDir: before });
+    const raw = new Database(file);
+    raw
+      .prepare(
+        `INSERT INTO "Account" ("email", "displayName", "role", "passwordHash", "updatedAt") VALUES ('a@example.org', '', 'admin', 'h', '2026-11-01T09:00:00.000+00:00')`,
+      )
+      .run();
+    raw
+      .prepare(
+        `INSERT INTO "ApiToken" ("accountId", "name", "tokenHash", "prefix", "createdAt", "lastUsedAt") VALUES (1, 'old', 'hash1', 'stk_abcdef', '2026-11-01T10:00:00.000+00:00', NULL)`,
+      )
+      .run();
+    raw.close();
+    const t0 = Date.now();
+    expect(migrateSqlite({ databaseUrl: `file:${file}` }).applied).toContain(NAME);
+    const t1 = Date.now();
+    const client = createClient(`file:${file}`);
+    const row = await client.apiToken.findFirstOrThrow();
+    await client.$disconnect();
+    expect(row.createdAt.toISOString()).toBe("2026-11-01T10:00:00.000Z");
+    // 90 days: the default lifetime when the migration was written (TOKEN_LIFETIME_DEFAULT_DAYS).
+    const DAYS_90_MS = 90 * 24 * 3600 * 1000;
+    expect(row.expiresAt.getTime()).toBeGreaterThanOrEqual(Math.floor(t0 / 1000) * 1000 + DAYS_90_MS);
+    expect(row.expiresAt.getTime()).toBeLessThanOrEqual(t1 + DAYS_90_MS);
   });
 });

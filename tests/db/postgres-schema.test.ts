@@ -11,6 +11,7 @@ import { describe, expect, it } from "vitest";
 import { derivePostgresSchema, POSTGRES_SCHEMA_PATH, SQLITE_SCHEMA_PATH } from "../../lib/db/postgres-schema";
 import { defaultMigrationsDir, migratePostgres, readMigrations, sha256Hex } from "../../lib/db/migrate";
 import { createPostgresDatabase, testPostgresServer } from "./temp-db";
+import { createClient } from "../../lib/db/client";
 
 describe("PostgreSQL schema and migrations", () => {
   it("prisma/postgres/schema.prisma is what prisma/schema.prisma derives to (run npm run generate when not)", () => {
@@ -100,6 +101,40 @@ describe.skipIf(!testPostgresServer)("PostgreSQL migration runner (STOKE_TEST_PG
       await c.end();
       expect(names).not.toContain("99990101000000_broken");
       expect(x.rows[0].t).toBeNull();
+    } finally {
+      fs.rmSync(dir, { recursive: true, force: true });
+      await drop();
+    }
+  });
+
+  it("20261202120000_api_token_expiry gives earlier tokens 90 days from the migration, in UTC whatever the session's time zone", async () => {
+    const { url, drop } = await createPostgresDatabase(testPostgresServer!);
+    const NAME = "20261202120000_api_token_expiry";
+    const dir = fs.mkdtempSync(path.join(process.env.TMPDIR ?? "/tmp", "stoke-pgmig-"));
+    try {
+      fs.cpSync(defaultMigrationsDir("postgresql"), dir, { recursive: true });
+      const names = readMigrations(dir, "postgresql").map((m) => m.name);
+      for (const later of names.slice(names.indexOf(NAME))) fs.rmSync(path.join(dir, later), { recursive: true });
+      await migratePostgres({ databaseUrl: url, migrationsDir: dir });
+      const c = new pg.Client({ connectionString: url });
+      await c.connect();
+      await c.query(
+        `INSERT INTO "Account" ("email", "displayName", "role", "passwordHash", "updatedAt") VALUES ('a@example.org', '', 'admin', 'h', '2026-11-01 09:00:00')`,
+      );
+      await c.query(`INSERT INTO "ApiToken" ("accountId", "name", "tokenHash", "prefix") VALUES (1, 'old', 'hash1', 'stk_abcdef')`);
+      await c.end();
+      // A server whose sessions run in another time zone than UTC.
+      const zoned = `${url}${url.includes("?") ? "&" : "?"}options=${encodeURIComponent("-c TimeZone=America/New_York")}`;
+      const t0 = Date.now();
+      expect((await migratePostgres({ databaseUrl: zoned })).applied).toEqual([NAME]);
+      const t1 = Date.now();
+      const client = createClient(url);
+      const row = await client.apiToken.findFirstOrThrow();
+      await client.$disconnect();
+      // 90 days: the default lifetime when the migration was written (TOKEN_LIFETIME_DEFAULT_DAYS).
+      const DAYS_90_MS = 90 * 24 * 3600 * 1000;
+      expect(row.expiresAt.getTime()).toBeGreaterThanOrEqual(t0 - 1000 + DAYS_90_MS);
+      expect(row.expiresAt.getTime()).toBeLessThanOrEqual(t1 + 1000 + DAYS_90_MS);
     } finally {
       fs.rmSync(dir, { recursive: true, force: true });
       await drop();

@@ -344,8 +344,9 @@ describe("schema matches the migrations", () => {
     const sess = await db.session.create({ data: { keyHash: "k1", accountId: a.id, accountVersion: 2, expiresAt: when } });
     expect(sess.createdAt).toBeInstanceOf(Date);
     await expect(db.session.create({ data: { keyHash: "k1", accountId: a.id, accountVersion: 2, expiresAt: when } })).rejects.toThrow();
-    const tok = await db.apiToken.create({ data: { accountId: a.id, name: "ci", tokenHash: "t1", prefix: "stk_ab" } });
+    const tok = await db.apiToken.create({ data: { accountId: a.id, name: "ci", tokenHash: "t1", prefix: "stk_ab", expiresAt: when } });
     expect(tok.lastUsedAt).toBeNull();
+    expect(tok.expiresAt).toEqual(when);
     await db.apiToken.update({ where: { id: tok.id }, data: { lastUsedAt: when } });
     const log = await db.changeLog.create({
       data: {

@@ -1,6 +1,8 @@
 /**
- * GET /api/tokens: the API tokens (admin; never the tokens themselves). POST {accountId, tokenName}:
- * issues one; the answer holds the token once — it is stored only as a hash.
+ * GET /api/tokens: the API tokens with their expiry (admin; never the tokens themselves).
+ * POST {accountId, tokenName, lifetimeDays?}: issues one valid for `lifetimeDays` (the default and
+ * the maximum are in lib/schemas/accounts.ts); the answer holds the token once — it is stored only
+ * as a hash.
  */
 import { db } from "@/lib/db/client";
 import { issueToken, listTokens } from "@/lib/services/accounts";

@@ -13,6 +13,7 @@ import { kelvinToCelsius } from "@/lib/units/constants";
 import { fmt, fmtUpTo, pct } from "../../_ui/format";
 import { DeleteButton } from "@/app/_ui/DeleteButton";
 import { PriceHistory } from "../_components/PriceHistory";
+import { pageActions } from "@/app/_auth/page-user";
 import { QuoteComparison } from "../_components/QuoteComparison";
 import { meteringLabel, meteringReferenceAtC } from "@/lib/units/metering";
 
@@ -179,7 +180,7 @@ export default async function FuelSheetPage({ params, searchParams }: Props) {
   const sp = await searchParams;
   const tc = pickRef(sp.tc, COMBUSTION_REFERENCES_C, 25);
   const tm = pickRef(sp.tm, METERING_REFERENCES_C, 15);
-  const sheet = await fuelSheet(db(), id, { combustionReferenceC: tc, meteringReferenceC: tm });
+  const [sheet, can] = await Promise.all([fuelSheet(db(), id, { combustionReferenceC: tc, meteringReferenceC: tm }), pageActions()]);
   if (!sheet) notFound();
   const { fuel, properties: p } = sheet;
   const gas = fuel.kind === "gas";
@@ -200,17 +201,21 @@ export default async function FuelSheetPage({ params, searchParams }: Props) {
           {fuel.source && <p className="basis">Source: {fuel.source}</p>}
         </div>
         <div className="actions no-print">
-          <Link className="button secondary" href={`/fuels/${fuel.id}/edit`}>
-            Edit fuel
-          </Link>
-          <DeleteButton
-            url={`/api/fuels/${fuel.id}`}
-            after="/fuels"
-            label="Delete fuel"
-            confirmText={
-              trashEnabled() ? `Move “${fuel.name}” to the trash?` : `Delete “${fuel.name}” and its price history? This cannot be undone.`
-            }
-          />
+          {can.editFuel && (
+            <Link className="button secondary" href={`/fuels/${fuel.id}/edit`}>
+              Edit fuel
+            </Link>
+          )}
+          {can.deleteFuel && (
+            <DeleteButton
+              url={`/api/fuels/${fuel.id}`}
+              after="/fuels"
+              label="Delete fuel"
+              confirmText={
+                trashEnabled() ? `Move “${fuel.name}” to the trash?` : `Delete “${fuel.name}” and its price history? This cannot be undone.`
+              }
+            />
+          )}
         </div>
       </div>
 
@@ -535,7 +540,7 @@ export default async function FuelSheetPage({ params, searchParams }: Props) {
         currency={typeof sp.currency === "string" ? sp.currency : undefined}
       />
       <h3>Price history</h3>
-      <PriceHistory fuelId={fuel.id} fuelKind={fuel.kind} prices={sheet.prices} />
+      <PriceHistory fuelId={fuel.id} fuelKind={fuel.kind} prices={sheet.prices} canEdit={can.editQuotes} />
 
       <History type="fuel" id={fuel.id} />
 

@@ -85,7 +85,18 @@ const PLACED = new Set([
   "isInvented",
 ]);
 
-export function PriceHistory({ fuelId, fuelKind, prices }: { fuelId: number; fuelKind: string; prices: PriceView[] }) {
+/** `canEdit`: whether the account may add, correct, withdraw and delete quotes (else the history is shown only). */
+export function PriceHistory({
+  fuelId,
+  fuelKind,
+  prices,
+  canEdit,
+}: {
+  fuelId: number;
+  fuelKind: string;
+  prices: PriceView[];
+  canEdit: boolean;
+}) {
   const router = useRouter();
   const lastCurrency = prices[0]?.quote.currency ?? "EUR";
   const [draft, setDraft] = useState<Draft>(() => emptyDraft(lastCurrency, fuelKind));
@@ -250,9 +261,11 @@ export function PriceHistory({ fuelId, fuelKind, prices }: { fuelId: number; fue
                   <span className="unit block">per kg</span>
                 </th>
                 <th>Source</th>
-                <th className="no-print">
-                  <span className="sr-only">Actions</span>
-                </th>
+                {canEdit && (
+                  <th className="no-print">
+                    <span className="sr-only">Actions</span>
+                  </th>
+                )}
               </tr>
             </thead>
             <tbody>
@@ -314,21 +327,23 @@ export function PriceHistory({ fuelId, fuelKind, prices }: { fuelId: number; fue
                         {q.isInvented && <span className="badge invented">invented</span>} {q.sourceNote}
                       </small>
                     </td>
-                    <td className="no-print" style={{ whiteSpace: "nowrap" }}>
-                      {p.supersededBy === null && !p.withdrawn && (
-                        <>
-                          <button type="button" className="secondary small" onClick={() => startEdit(p)}>
-                            Correct
-                          </button>{" "}
-                          <button type="button" className="secondary small" onClick={() => withdraw(p)}>
-                            Withdraw
-                          </button>{" "}
-                        </>
-                      )}
-                      <button type="button" className="danger small" onClick={() => remove(p)}>
-                        Delete
-                      </button>
-                    </td>
+                    {canEdit && (
+                      <td className="no-print" style={{ whiteSpace: "nowrap" }}>
+                        {p.supersededBy === null && !p.withdrawn && (
+                          <>
+                            <button type="button" className="secondary small" onClick={() => startEdit(p)}>
+                              Correct
+                            </button>{" "}
+                            <button type="button" className="secondary small" onClick={() => withdraw(p)}>
+                              Withdraw
+                            </button>{" "}
+                          </>
+                        )}
+                        <button type="button" className="danger small" onClick={() => remove(p)}>
+                          Delete
+                        </button>
+                      </td>
+                    )}
                   </tr>
                 );
               })}
@@ -342,7 +357,7 @@ export function PriceHistory({ fuelId, fuelKind, prices }: { fuelId: number; fue
         <p className="note">No quote is in force today (all are dated in the future).</p>
       )}
 
-      {!formOpen ? (
+      {!canEdit ? null : !formOpen ? (
         <p className="no-print" style={{ marginTop: "0.75rem" }}>
           <button type="button" onClick={() => setFormOpen(true)}>
             Add a price quote

@@ -6,12 +6,13 @@ import { ImportForm } from "../_components/ImportForm";
 import { QuoteImportForm } from "../_components/QuoteImportForm";
 import { ExchangeRateForm } from "../_components/ExchangeRateForm";
 import { listExchangeRates } from "@/lib/services/exchange-rates";
+import { pageActions } from "../../_auth/page-user";
 
 export const dynamic = "force-dynamic";
 export const metadata: Metadata = { title: "Import and export" };
 
 export default async function TransferPage() {
-  const [{ fuels, quotes }, rates] = await Promise.all([countFuelsAndQuotes(db()), listExchangeRates(db())]);
+  const [{ fuels, quotes }, rates, can] = await Promise.all([countFuelsAndQuotes(db()), listExchangeRates(db()), pageActions()]);
   return (
     <>
       <div className="crumbs">
@@ -40,11 +41,20 @@ export default async function TransferPage() {
         are JSON text inside their cells, so that nothing is lost.
       </p>
 
-      <h2>Import</h2>
-      <ImportForm />
+      {can.importLibrary && (
+        <>
+          <h2>Import</h2>
+          <ImportForm />
+        </>
+      )}
 
-      <h2>Price quotes in bulk</h2>
-      <QuoteImportForm />
+      {can.importQuotes && (
+        <>
+          <h2>Price quotes in bulk</h2>
+          <QuoteImportForm />
+        </>
+      )}
+      {!can.importLibrary && <p className="note">Importing fuels, quotes and exchange rates is for editors.</p>}
 
       <h2 id="exchange-rates">Exchange rates</h2>
       <p>
@@ -80,7 +90,7 @@ export default async function TransferPage() {
           </table>
         </div>
       )}
-      <ExchangeRateForm />
+      {can.addExchangeRate && <ExchangeRateForm />}
     </>
   );
 }

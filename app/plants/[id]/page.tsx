@@ -17,6 +17,7 @@ import { CheckTable } from "../../studies/_components/Checks";
 import { Cautions } from "../../studies/_components/Cautions";
 import { DeleteButton } from "@/app/_ui/DeleteButton";
 import { PlantLimitsTable } from "../_components/PlantLimits";
+import { pageActions } from "@/app/_auth/page-user";
 
 export const dynamic = "force-dynamic";
 
@@ -32,10 +33,11 @@ export default async function PlantPage({ params }: Props) {
   const id = Number((await params).id);
   const rec = Number.isInteger(id) && id > 0 ? await getPlant(db(), id) : null;
   if (!rec) notFound();
-  const [units, base, fuelRow] = await Promise.all([
+  const [units, base, fuelRow, can] = await Promise.all([
     displayUnits(),
     plantBaseline(db(), id),
     rec.baselineFuelId ? findFuel(db(), rec.baselineFuelId) : null,
+    pageActions(),
   ]);
   const d = makeDisplay(units, "");
   const p = rec.plant;
@@ -59,20 +61,26 @@ export default async function PlantPage({ params }: Props) {
           {p.notes && <p style={{ maxWidth: "80ch" }}>{p.notes}</p>}
         </div>
         <div className="actions">
-          <Link className="button" href={`/studies/new?plant=${rec.id}`}>
-            New study for this plant
-          </Link>
-          <Link className="button secondary" href={`/plants/${rec.id}/edit`}>
-            Edit plant
-          </Link>
-          <DeleteButton
-            url={`/api/plants/${rec.id}`}
-            after="/plants"
-            label="Delete plant"
-            confirmText={
-              trashEnabled() ? `Move the plant “${p.name}” to the trash?` : `Delete the plant “${p.name}”? This cannot be undone.`
-            }
-          />
+          {can.createStudy && (
+            <Link className="button" href={`/studies/new?plant=${rec.id}`}>
+              New study for this plant
+            </Link>
+          )}
+          {can.editPlant && (
+            <Link className="button secondary" href={`/plants/${rec.id}/edit`}>
+              Edit plant
+            </Link>
+          )}
+          {can.deletePlant && (
+            <DeleteButton
+              url={`/api/plants/${rec.id}`}
+              after="/plants"
+              label="Delete plant"
+              confirmText={
+                trashEnabled() ? `Move the plant “${p.name}” to the trash?` : `Delete the plant “${p.name}”? This cannot be undone.`
+              }
+            />
+          )}
         </div>
       </div>
       <UnitSwitch units={units} />
@@ -222,7 +230,14 @@ export default async function PlantPage({ params }: Props) {
       <h2>Studies</h2>
       {rec.studies.length === 0 ? (
         <p>
-          No study yet. <Link href={`/studies/new?plant=${rec.id}`}>Start one</Link> to compare candidate fuels for this plant.
+          No study yet.{" "}
+          {can.createStudy ? (
+            <>
+              <Link href={`/studies/new?plant=${rec.id}`}>Start one</Link> to compare candidate fuels for this plant.
+            </>
+          ) : (
+            "An editor can start one to compare candidate fuels for this plant."
+          )}
         </p>
       ) : (
         <ul>

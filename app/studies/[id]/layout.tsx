@@ -6,12 +6,13 @@ import { studyHeader } from "@/lib/services/lookups";
 import { StudyTabs } from "../_components/StudyTabs";
 import { DuplicateButton } from "../_components/DuplicateButton";
 import { DeleteButton } from "@/app/_ui/DeleteButton";
+import { pageActions } from "@/app/_auth/page-user";
 
 export const dynamic = "force-dynamic";
 
 export default async function StudyLayout({ children, params }: { children: React.ReactNode; params: Promise<{ id: string }> }) {
   const id = Number((await params).id);
-  const study = Number.isInteger(id) && id > 0 ? await studyHeader(db(), id) : null;
+  const [study, can] = await Promise.all([Number.isInteger(id) && id > 0 ? studyHeader(db(), id) : null, pageActions()]);
   if (!study) notFound();
   return (
     <>
@@ -36,20 +37,22 @@ export default async function StudyLayout({ children, params }: { children: Reac
           <a className="button secondary" href={`/api/studies/${study.id}/export?format=json`} download>
             JSON
           </a>
-          <DuplicateButton id={study.id} />
-          <DeleteButton
-            url={`/api/studies/${study.id}`}
-            after="/studies"
-            label="Delete"
-            confirmText={
-              trashEnabled()
-                ? `Move the study “${study.name}” to the trash?`
-                : `Delete the study “${study.name}” and its scenarios? This cannot be undone.`
-            }
-          />
+          {can.duplicateStudy && <DuplicateButton id={study.id} />}
+          {can.deleteStudy && (
+            <DeleteButton
+              url={`/api/studies/${study.id}`}
+              after="/studies"
+              label="Delete"
+              confirmText={
+                trashEnabled()
+                  ? `Move the study “${study.name}” to the trash?`
+                  : `Delete the study “${study.name}” and its scenarios? This cannot be undone.`
+              }
+            />
+          )}
         </div>
       </div>
-      <StudyTabs id={study.id} />
+      <StudyTabs id={study.id} canEdit={can.editStudy} />
       {children}
     </>
   );

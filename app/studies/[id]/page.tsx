@@ -19,6 +19,7 @@ import { METRIC_SHORT, RANKING_METRICS, viewChoice, viewQuery, type SearchParams
 import { EvaluationProblem } from "../_components/EvaluationProblem";
 import { priceSourceLabel } from "../_components/price-labels";
 import { Revisions } from "../_components/Revisions";
+import { pageActions } from "@/app/_auth/page-user";
 
 export const dynamic = "force-dynamic";
 
@@ -34,9 +35,10 @@ export default async function ComparisonPage({ params, searchParams }: Props) {
   const id = Number((await params).id);
   if (!Number.isInteger(id) || id <= 0) notFound();
   const view = viewChoice(await searchParams);
-  const [ev, units] = await Promise.all([
+  const [ev, units, can] = await Promise.all([
     evaluateStoredStudy(db(), id, { metric: view.metric, includeUpstream: view.includeUpstream, solveFlames: true }),
     displayUnits(),
+    pageActions(),
   ]);
   if (!ev.ok) {
     if (ev.kind === "not-found") notFound();
@@ -283,7 +285,14 @@ export default async function ComparisonPage({ params, searchParams }: Props) {
 
       {candidates.length === 0 && (
         <p className="note">
-          This study has only its baseline. <Link href={`/studies/${id}/edit`}>Add candidate scenarios</Link> to compare.
+          This study has only its baseline.{" "}
+          {can.editStudy ? (
+            <>
+              <Link href={`/studies/${id}/edit`}>Add candidate scenarios</Link> to compare.
+            </>
+          ) : (
+            "An editor can add candidate scenarios to compare."
+          )}
         </p>
       )}
 

@@ -7,6 +7,7 @@ import { db } from "@/lib/db/client";
 import { listRevisions, revisionStatus } from "@/lib/services/revisions";
 import { capitalised } from "@/lib/schemas/labels";
 import { IssueRevisionButton } from "./IssueRevisionButton";
+import { pageActions } from "@/app/_auth/page-user";
 
 const shown = (v: unknown): string => {
   if (v === null || v === undefined) return "—";
@@ -15,15 +16,17 @@ const shown = (v: unknown): string => {
 };
 
 export async function Revisions({ id }: { id: number }) {
-  const [list, status] = await Promise.all([listRevisions(db(), id), revisionStatus(db(), id)]);
+  const [list, status, can] = await Promise.all([listRevisions(db(), id), revisionStatus(db(), id), pageActions()]);
   const revisions = list.ok ? list.value : [];
   const latest = status.latest;
   return (
     <section className="revisions" aria-label="Revisions">
       <h2>Revisions</h2>
-      <p>
-        <IssueRevisionButton id={id} />
-      </p>
+      {can.issueRevision && (
+        <p>
+          <IssueRevisionButton id={id} />
+        </p>
+      )}
       {latest && status.differences.length > 0 && (
         <div className="banner warn" role="status" data-testid="revision-differs">
           <b>

@@ -14,7 +14,8 @@ const TABS = [
   { path: "/edit", label: "Edit" },
 ];
 
-export function StudyTabs({ id }: { id: number }) {
+/** `canEdit`: whether the Edit tab shows (the account may edit the study). */
+export function StudyTabs({ id, canEdit }: { id: number; canEdit: boolean }) {
   const pathname = usePathname();
   const sp = useSearchParams();
   const keep = new URLSearchParams();
@@ -26,7 +27,7 @@ export function StudyTabs({ id }: { id: number }) {
   const base = `/studies/${id}`;
   return (
     <nav className="study-tabs no-print" aria-label="Study pages">
-      {TABS.map((t) => {
+      {TABS.filter((t) => canEdit || t.path !== "/edit").map((t) => {
         const href = base + t.path;
         return (
           <Link

@@ -11,6 +11,7 @@ import { makeDisplay, signed, type Display } from "../../_components/display";
 import { UnitSwitch } from "../../_components/UnitSwitch";
 import { Status } from "../../_components/Checks";
 import { EvaluationProblem } from "../../_components/EvaluationProblem";
+import { pageActions } from "@/app/_auth/page-user";
 import { metricText } from "../../_components/results";
 import { intParam, METRIC_SHORT, numParam, RANKING_METRICS, viewChoice, viewQuery, type SearchParams } from "../../_components/settings";
 import type { RankingMetric } from "@/lib/economics/sensitivity";
@@ -83,7 +84,9 @@ export default async function SensitivityPage({ params, searchParams }: Props) {
   if (!cands.length) {
     return (
       <p className="note">
-        Sensitivity compares a candidate with the baseline: <Link href={`/studies/${id}/edit`}>add a candidate</Link> first.
+        Sensitivity compares a candidate with the baseline:{" "}
+        {(await pageActions()).editStudy ? <Link href={`/studies/${id}/edit`}>add a candidate</Link> : "an editor can add a candidate"}{" "}
+        first.
       </p>
     );
   }

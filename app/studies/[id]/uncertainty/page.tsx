@@ -5,6 +5,7 @@ import { db } from "@/lib/db/client";
 import { studyBundle } from "@/lib/services/studies";
 import { getUncertaintyRun, runForReport } from "@/lib/services/uncertainty-runs";
 import { RunControl } from "./RunControl";
+import { pageActions } from "@/app/_auth/page-user";
 import { OPERATING_HOURS_DEFAULT_PERCENT } from "@/lib/schemas/study";
 import { RANGES, uncertaintyParams } from "./params";
 import { fmt, money } from "../../../_ui/format";
@@ -27,9 +28,10 @@ export default async function UncertaintyPage({ params, searchParams }: Props) {
   const { request, ranges, shape, rho, ignored } = uncertaintyParams(sp);
   const { draws, seed } = request;
   const runAsked = intParam(sp, "run");
-  const [loaded, stored] = await Promise.all([
+  const [loaded, stored, can] = await Promise.all([
     studyBundle(db(), id),
     runAsked !== null && runAsked > 0 ? getUncertaintyRun(db(), id, runAsked) : runForReport(db(), id),
+    pageActions(),
   ]);
   if (!loaded.ok) {
     if (loaded.kind === "not-found") notFound();
@@ -38,7 +40,11 @@ export default async function UncertaintyPage({ params, searchParams }: Props) {
   const run = stored === null ? null : "ok" in stored ? (stored.ok ? stored.value : null) : stored;
   const sens = loaded.bundle.study.sensitivity;
   const formId = "uncertainty-form";
-  const form = (
+  const form = !can.runUncertainty ? (
+    <p className="note" data-testid="runs-by-editors">
+      Runs are started and stored by an editor; the latest stored run shows here.
+    </p>
+  ) : (
     <>
       <form
         id={formId}
@@ -113,7 +119,9 @@ export default async function UncertaintyPage({ params, searchParams }: Props) {
         <p className="note" data-testid="no-run">
           {runAsked !== null
             ? `This study has no stored run ${runAsked}.`
-            : "No stored run yet: state the ranges and press “Run and store”."}
+            : can.runUncertainty
+              ? "No stored run yet: state the ranges and press “Run and store”."
+              : "No stored run yet."}
         </p>
       </>
     );
