@@ -126,7 +126,8 @@ describe.skipIf(!testPostgresServer)("PostgreSQL migration runner (STOKE_TEST_PG
       // A server whose sessions run in another time zone than UTC.
       const zoned = `${url}${url.includes("?") ? "&" : "?"}options=${encodeURIComponent("-c TimeZone=America/New_York")}`;
       const t0 = Date.now();
-      expect((await migratePostgres({ databaseUrl: zoned })).applied).toEqual([NAME]);
+      const applied = (await migratePostgres({ databaseUrl: zoned })).applied;
+      expect(applied).toEqual(names.slice(names.indexOf(NAME)));
       const t1 = Date.now();
       const client = createClient(url);
       const row = await client.apiToken.findFirstOrThrow();
