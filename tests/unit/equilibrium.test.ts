@@ -240,6 +240,71 @@ describe("equilibrium compositions against published values", () => {
     for (const [k, v] of minors) expect(Math.abs(x[k] / v - 1), k).toBeLessThan(0.1);
   });
 
+  // NASA's published sample problem "Example 1" for its equilibrium program (B. J. McBride & S. Gordon,
+  // Computer Program for Calculation of Complex Chemical Equilibrium Compositions and Applications,
+  // II. Users Manual and Program Description, NASA RP-1311 Part II, 1996, example problems): H2 with air
+  // at r,eq.ratio = 1 and 1.5, assigned T = 3000 and 2000 K at p = 1, 0.1 and 0.01 atm. The mole
+  // fractions below are those printed for it by the program as distributed by NASA Glenn (CEA2, May 2004,
+  // thermodynamic data of 9/2004, i.e. the NASA Glenn database of McBride, Zehe & Gordon 2002), read in a
+  // copy of the distributed output; the element amounts b0i (kmol per kg of mixture) are from the same
+  // output. NASA's product list adds N, HO2, HNO, HNO2, HNO3, NH, N2O3 and O3, each below 3e-5 there.
+  // Printed to five decimals: species of 0.001 and more are compared within 1 % (0.5 % rounding plus the
+  // 7-coefficient fit of the data).
+  const CEA_EXAMPLE_1: { phi: number; b0: Record<string, number>; x: Record<string, number[]> }[] = [
+    {
+      phi: 1,
+      b0: { H: 0.02810846, N: 0.052388364, O: 0.014075632, Ar: 0.00031415977, C: 0.000010701224 },
+      x: {
+        Ar: [0.0071, 0.00773, 0.00625, 0.00771, 0.00511, 0.00767],
+        H: [0.04075, 0.00009, 0.14289, 0.00041, 0.31894, 0.00186],
+        H2: [0.06728, 0.00306, 0.08272, 0.00638, 0.04121, 0.01319],
+        H2O: [0.2073, 0.34207, 0.09579, 0.33714, 0.01176, 0.32637],
+        NO: [0.0123, 0.00048, 0.01371, 0.00072, 0.00967, 0.00107],
+        N2: [0.58568, 0.64414, 0.51448, 0.64255, 0.42158, 0.63891],
+        O: [0.0154, 0.00002, 0.05787, 0.0001, 0.14261, 0.00047],
+        OH: [0.04517, 0.00113, 0.05953, 0.00244, 0.03275, 0.00519],
+        O2: [0.01876, 0.00102, 0.0265, 0.00228, 0.0161, 0.00502],
+      },
+    },
+    {
+      phi: 1.5,
+      b0: { H: 0.041593982, N: 0.051655507, O: 0.013878729, Ar: 0.00030976501, C: 0.000010551526 },
+      x: {
+        H: [0.06025, 0.00062, 0.18236, 0.00196, 0.39312, 0.00616],
+        H2: [0.14706, 0.14737, 0.13472, 0.14676, 0.06261, 0.1449],
+        H2O: [0.22224, 0.29508, 0.11131, 0.2945, 0.01465, 0.29261],
+        NO: [0.00565, 0.00001, 0.00912, 0.00003, 0.00729, 0.00008],
+        N2: [0.51356, 0.54995, 0.44786, 0.54948, 0.35692, 0.54799],
+        O: [0.00755, 0, 0.04129, 0, 0.11694, 0.00004],
+        OH: [0.03276, 0.00014, 0.05421, 0.00044, 0.0331, 0.0014],
+        O2: [0.00451, 0, 0.01349, 0, 0.01082, 0.00003],
+      },
+    },
+  ];
+  const CEA_STATES: [number, number][] = [
+    [1, 3000],
+    [1, 2000],
+    [0.1, 3000],
+    [0.1, 2000],
+    [0.01, 3000],
+    [0.01, 2000],
+  ];
+  for (const { phi, b0, x } of CEA_EXAMPLE_1) {
+    it(`H2–air at φ = ${phi}, 3000/2000 K, 1/0.1/0.01 atm: mole fractions of NASA's Example 1 within 1 %`, () => {
+      CEA_STATES.forEach(([pAtm, T], i) => {
+        const r = solveEquilibriumTP({
+          elementMoles: { C: b0.C, H: b0.H, O: b0.O, N: b0.N, S: 0, Ar: b0.Ar },
+          pressurePa: pAtm * atmospherePa,
+          temperatureK: T,
+        });
+        for (const [k, ref] of Object.entries(x)) {
+          if (ref[i] < 0.001) continue;
+          expect(Math.abs(r.moleFractions[k] / ref[i] - 1), `${k} at ${T} K, ${pAtm} atm`).toBeLessThan(0.01);
+        }
+      });
+    });
+  }
+
   // AB ⇌ A + ½ O2 from 1 mol AB at temperature T and 1 atm, with K° from the NIST-JANAF Thermochemical
   // Tables, 4th ed. (Chase 1998), standard Gibbs energies of formation Δf G°(T): table C-093 (CO),
   // C-095 (CO2), H-064 (H2O, gas). By hand: α mol dissociate, AB 1 − α, A α, O2 α/2, total 1 + α/2;
