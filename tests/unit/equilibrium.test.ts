@@ -305,6 +305,75 @@ describe("equilibrium compositions against published values", () => {
     });
   }
 
+  // NASA's sample problem "Example 3" (same manual and program output as Example 1 above): adiabatic
+  // (hp) combustion of liquid toluene 40 % and n-octane 60 % by mass at 298.15 K with air at 700 K,
+  // oxidant/fuel 17 by mass (φ = 0.8518), at 100, 10 and 1 bar. From the output: element amounts b0i
+  // (kmol per kg of mixture), mixture enthalpy h0/R = 38.226854 kmol·K/kg with the program's
+  // R = 8.31451 J/(mol·K) (H = 317.84 kJ/kg as printed), T = 2418.66, 2390.59, 2338.84 K, and the
+  // mole fractions below. NASA's products add NO2 (2.3e-5 at most), HO2, N2O, HNO2 and others below
+  // 1e-5 that Stoke does not carry. T within 1 K, species of 1e-4 and more within 1 %.
+  it("toluene/n-octane with 700 K air at 100, 10, 1 bar (hp): T and mole fractions of NASA's Example 3", () => {
+    const elementMoles = { C: 4.0331842, H: 7.1820928, O: 13.681266, N: 50.920563, S: 0, Ar: 0.30535774 }; // mol per kg
+    const enthalpyJ = 38.226854 * 8.31451 * 1000; // J per kg
+    const published: [number, number, Record<string, number>][] = [
+      [
+        100,
+        2418.66,
+        {
+          CO: 1.6773e-3,
+          CO2: 0.11537,
+          H2: 2.5064e-4,
+          H2O: 0.10277,
+          NO: 6.7762e-3,
+          N2: 0.73547,
+          O: 1.5506e-4,
+          OH: 2.3483e-3,
+          O2: 0.026252,
+          Ar: 8.8617e-3,
+        },
+      ],
+      [
+        10,
+        2390.59,
+        {
+          CO: 4.312e-3,
+          CO2: 0.11249,
+          H: 1.2385e-4,
+          H2: 6.6103e-4,
+          H2O: 0.10136,
+          NO: 6.5527e-3,
+          N2: 0.73403,
+          O: 4.3112e-4,
+          OH: 3.816e-3,
+          O2: 0.027365,
+          Ar: 8.843e-3,
+        },
+      ],
+      [
+        1,
+        2338.84,
+        {
+          CO: 9.186e-3,
+          CO2: 0.10716,
+          H: 4.5515e-4,
+          H2: 1.4836e-3,
+          H2O: 0.099015,
+          NO: 6.1447e-3,
+          N2: 0.73136,
+          O: 1.0664e-3,
+          OH: 5.7214e-3,
+          O2: 0.029599,
+          Ar: 8.8084e-3,
+        },
+      ],
+    ];
+    for (const [bar, T, x] of published) {
+      const r = solveEquilibriumHP({ elementMoles, enthalpyJ, pressurePa: bar * 1e5 });
+      expect(Math.abs(r.temperatureK - T), `T at ${bar} bar`).toBeLessThan(1);
+      for (const [k, v] of Object.entries(x)) expect(Math.abs(r.moleFractions[k] / v - 1), `${k} at ${bar} bar`).toBeLessThan(0.01);
+    }
+  });
+
   // AB ⇌ A + ½ O2 from 1 mol AB at temperature T and 1 atm, with K° from the NIST-JANAF Thermochemical
   // Tables, 4th ed. (Chase 1998), standard Gibbs energies of formation Δf G°(T): table C-093 (CO),
   // C-095 (CO2), H-064 (H2O, gas). By hand: α mol dissociate, AB 1 − α, A α, O2 α/2, total 1 + α/2;
