@@ -45,7 +45,7 @@ export const LIQUID_COMPOUNDS: Record<string, LiquidCompound> = {
     vaporizationEnthalpy_J_per_mol: 35.2e3,
     role: "pure compound",
     source:
-      "ΔfH°(l) −239.2 kJ/mol, cp(l) 81.1 J/(mol·K): NIST Chemistry WebBook, methanol (value from memory); density: common practice, no source; Tb 337.8 K, ΔvapH(Tb) 35.2 kJ/mol: NIST Chemistry WebBook, methanol (value from memory)",
+      "ΔfH°(l) −239.2 kJ/mol (value from memory), within the NIST Chemistry WebBook's determinations for liquid methanol, −238.4 to −239.5 kJ/mol (Chao & Rossini 1965: −239.5 ± 0.2; Green 1960: −238.9; Baroody & Carpenter 1972: −238.4); cp(l) 81.1 J/(mol·K): NIST Chemistry WebBook, methanol (value from memory); density: common practice, no source; Tb 337.8 K, ΔvapH(Tb) 35.2 kJ/mol: NIST Chemistry WebBook, methanol (value from memory)",
   },
   C2H5OH: {
     key: "C2H5OH",

@@ -9,7 +9,8 @@
  *   Properties of Individual Species", NASA TM-4513 (1993). Records with the range 200–1000–6000 K
  *   carry the later NASA Glenn data (McBride, Zehe & Gordon, NASA/TP-2002-211556): their enthalpies
  *   and entropies agree with that database's 9-coefficient records (checked in the unit test for
- *   N2, O2, CO2, H2O; methane's ΔfH° is the Glenn value −74.60 kJ/mol). Records with 300–1000–5000 K
+ *   N2, O2, CO2, H2O and OH; methane's ΔfH° is the Glenn value −74.60 kJ/mol). The OH record is the
+ *   exception: it carried an older ΔfH°, moved here to the Glenn value (see the record). Records with 300–1000–5000 K
  *   or 298.15–1000–5000 K (H2S, SO2, n-pentane) are older fits of the same data set.
  *   Coefficients are copied digit for digit. Standard state 1 bar; enthalpies include the enthalpy of
  *   formation at 298.15 K (NASA convention), so h(298.15 K) = ΔfH°(298.15 K).
@@ -266,10 +267,16 @@ const species: Nasa7Species[] = [
     elements: { O: 1, H: 1 },
     phase: "gas",
     rangesK: [200.0, 1000.0, 6000.0],
-    lowCoeffs: [3.99201543, -2.40131752e-3, 4.61793841e-6, -3.88113333e-9, 1.3641147e-12, 3615.08056, -0.103925458],
-    highCoeffs: [2.83864607, 1.10725586e-3, -2.93914978e-7, 4.20524247e-11, -2.42169092e-15, 3943.95852, 5.84452662],
+    // The data-file record carries ΔfH°(298.15 K) = 39.347 kJ/mol, an older value; the NASA Glenn
+    // database (McBride, Zehe & Gordon 2002; record "OH", g 4/02, after Ruscic et al. 2002) gives
+    // 37.278206 kJ/mol, and its cp, H − H298 and S° agree with this record within 0.3 %, 34 J/mol and
+    // 0.03 J/(mol·K) over 300–6000 K. So a6 is lowered in both ranges by (39346.882 − 37278.206) / R
+    // = 248.804 K, which moves only ΔfH°. Without it equilibrium OH came out 7–11 % below NASA's
+    // published example (tests/unit/equilibrium.test.ts).
+    lowCoeffs: [3.99201543, -2.40131752e-3, 4.61793841e-6, -3.88113333e-9, 1.3641147e-12, 3366.27652, -0.103925458],
+    highCoeffs: [2.83864607, 1.10725586e-3, -2.93914978e-7, 4.20524247e-11, -2.42169092e-15, 3695.15448, 5.84452662],
     standardPressurePa,
-    source: nasaGas("OH"),
+    source: `${nasaGas("OH")}; ΔfH° moved to the NASA Glenn value 37.278 kJ/mol (McBride, Zehe & Gordon, NASA/TP-2002-211556, record "OH" after Ruscic et al. 2002)`,
   },
   {
     key: "H",

@@ -32,20 +32,23 @@ describe("methane/air flames at 298 K, 1 atm", () => {
     r1 = computeFlameSpeed({ fuel: CH4, phi: 1, unburntTemperatureK: 298.15, grid: GRID });
   }, T);
 
-  it("burns at φ = 1 within 12 % of the measured 36 cm/s", () => {
-    // Bosschaart & de Goey, Combust. Flame 136 (2004) 261–269, heat-flux burner: ≈ 36 cm/s at φ = 1;
-    // Vagelopoulos & Egolfopoulos, Proc. Combust. Inst. 27 (1998) 513–519: ≈ 35.5 cm/s (values from memory)
-    within(r1.burningVelocity_cm_per_s, 36, 0.12);
+  // Measured CH4/air burning velocities at 298 K, 1 atm: Vagelopoulos & Egolfopoulos, Proc. Combust. Inst.
+  // 27 (1998) 513–519 (counterflow, near-zero strain), their points as re-plotted in figure SL_CH4 of the
+  // CaltechMech validation report report_SL_CH4 (G. Blanquart et al., California Institute of Technology,
+  // 2015), read from the figure's vector data (about ±0.05 cm/s): 24.08 cm/s at φ = 0.803, 36.44 at
+  // φ = 0.998, 31.68 at φ = 1.202. The same figure gives Bosschaart & de Goey, Combust. Flame 136 (2004) 261–269
+  // (heat-flux burner): 23.83 at φ = 0.80, 34.08 at φ = 0.949, 37.17 at φ = 1.049, 34.16 at φ = 1.199.
+  it("burns at φ = 1 within 12 % of the measured 36.4 cm/s", () => {
+    within(r1.burningVelocity_cm_per_s, 36.44, 0.12);
   });
 
   it(
-    "burns at φ = 0.8 and 1.2 within 12 % of the measured 26 and 31.5 cm/s",
+    "burns at φ = 0.803 and 1.202 within 12 % of the measured 24.1 and 31.7 cm/s",
     () => {
-      // Bosschaart & de Goey (2004), heat-flux burner: ≈ 26 cm/s at φ = 0.8, ≈ 31.5 cm/s at φ = 1.2 (values from memory)
-      const lean = computeFlameSpeed({ fuel: CH4, phi: 0.8, grid: GRID });
-      const rich = computeFlameSpeed({ fuel: CH4, phi: 1.2, grid: GRID });
-      within(lean.burningVelocity_cm_per_s, 26, 0.12);
-      within(rich.burningVelocity_cm_per_s, 31.5, 0.12);
+      const lean = computeFlameSpeed({ fuel: CH4, phi: 0.803, grid: GRID });
+      const rich = computeFlameSpeed({ fuel: CH4, phi: 1.202, grid: GRID });
+      within(lean.burningVelocity_cm_per_s, 24.08, 0.12);
+      within(rich.burningVelocity_cm_per_s, 31.68, 0.12);
     },
     T,
   );
@@ -91,13 +94,15 @@ describe("methane/air flames at 298 K, 1 atm", () => {
   );
 
   it(
-    "falls with pressure like (p/1 atm)^β with β within −0.55 … −0.25",
+    "falls with pressure: at 5 atm within 12 % of the measured 18.5 cm/s",
     () => {
-      // Gu, Haq, Lawes & Woolley (2000): β = −0.374 at φ = 1, 1–10 bar (value from memory)
+      // Rozenchan, Zhu, Law & Tse, Proc. Combust. Inst. 29 (2002) 1461–1469 (outwardly propagating
+      // spherical flames), as re-plotted in figure SL_CH4 of the CaltechMech report report_SL_CH4
+      // (Blanquart et al., Caltech, 2015): 18.46 cm/s at φ = 0.999, 5 atm, 298 K; 35.70 cm/s at 1 atm
+      // (so S_L ∝ (p/p0)^β with β = −0.41 between them).
       const p5 = computeFlameSpeed({ fuel: CH4, phi: 1, pressurePa: 5 * 101325, grid: GRID });
-      const beta = Math.log(p5.burningVelocity_cm_per_s / r1.burningVelocity_cm_per_s) / Math.log(5);
-      expect(beta).toBeGreaterThan(-0.55);
-      expect(beta).toBeLessThan(-0.25);
+      within(p5.burningVelocity_cm_per_s, 18.46, 0.12);
+      expect(p5.burningVelocity_cm_per_s).toBeLessThan(r1.burningVelocity_cm_per_s * 0.6);
     },
     T,
   );
@@ -152,14 +157,17 @@ describe("other fuels at φ = 1, 298 K, 1 atm", () => {
   );
 
   it(
-    "propane/air comes out 5–35 % above the measured 39 cm/s, as the mechanism is known to",
+    "propane/air comes out 5–35 % above the measured 39.5 cm/s, as the mechanism is known to",
     () => {
-      // Vagelopoulos, Egolfopoulos & Law, Proc. Combust. Inst. 25 (1994) 1341–1347, and Jomaas, Zheng,
-      // Zhu & Law, Proc. Combust. Inst. 30 (2005) 193–200: ≈ 38–40 cm/s at φ = 1 (values from memory);
+      // Bosschaart & de Goey, Combust. Flame 136 (2004) 261–269 (heat-flux burner): 39.52 cm/s at φ = 1.001;
+      // Vagelopoulos, Egolfopoulos & Law, Proc. Combust. Inst. 25 (1994) 1341–1347: 39.60 cm/s at φ = 1.0;
+      // Jomaas, Zheng, Zhu & Law, Proc. Combust. Inst. 30 (2005) 193–200: 41.45 cm/s at φ = 0.999 — all at
+      // 298 K, 1 bar, as re-plotted in figure SL_C3H8 of the CaltechMech report report_SL_C3H8 (Blanquart
+      // et al., Caltech, 2015), read from the figure's vector data;
       // GRI-Mech 3.0's propane burning velocities are about a fifth above measurements (its data notes)
       const r = computeFlameSpeed({ fuel: { composition: { C3H8: 1 } }, phi: 1, grid: GRID });
-      expect(r.burningVelocity_cm_per_s).toBeGreaterThan(39 * 1.05);
-      expect(r.burningVelocity_cm_per_s).toBeLessThan(39 * 1.35);
+      expect(r.burningVelocity_cm_per_s).toBeGreaterThan(39.52 * 1.05);
+      expect(r.burningVelocity_cm_per_s).toBeLessThan(39.52 * 1.35);
     },
     T,
   );
