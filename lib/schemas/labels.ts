@@ -124,6 +124,7 @@ export const FIELD_LABELS: Readonly<Record<string, string>> = Object.freeze({
   disabled: "disabled",
   accountId: "account",
   tokenName: "token name",
+  lifetimeDays: "token lifetime (days)",
   deletedAt: "moved to the trash on",
   deletedBy: "moved to the trash by",
   stackTemperatureK: "stack temperature after the change, ± K",
