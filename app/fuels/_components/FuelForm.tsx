@@ -4,7 +4,7 @@ import Link from "next/link";
 import { saveAndOpen } from "@/app/_ui/save";
 import { useRouter } from "next/navigation";
 import { useMemo, useState } from "react";
-import { ErrorSummary, Field, FieldError, invalid, toNumber, type Errors } from "./fields";
+import { ErrorSummary, Field, NumberField, FieldError, invalid, toNumber, type Errors } from "./fields";
 import {
   COMPOSITION_SCALES,
   NORMALISE_TOLERANCE_PERCENT,
@@ -593,26 +593,22 @@ export function FuelForm({ options, initial }: { options: FuelFormOptions; initi
                 />
               </Field>
             )}
-            <Field label="Biogenic carbon share (0–1)" name="biogenicCarbonShare" errors={errors} hint="1 = all carbon from biomass">
-              <input
-                id="f-biogenicCarbonShare"
-                inputMode="decimal"
-                className="num"
-                value={biogenic}
-                onChange={(e) => setBiogenic(e.target.value)}
-                {...invalid(errors, "biogenicCarbonShare")}
-              />
-            </Field>
-            <Field label="Upstream CO2e, kg/GJ (net)" name="upstreamCo2e_kg_per_GJ" errors={errors} hint="optional well-to-tank factor">
-              <input
-                id="f-upstreamCo2e_kg_per_GJ"
-                inputMode="decimal"
-                className="num"
-                value={upstream}
-                onChange={(e) => setUpstream(e.target.value)}
-                {...invalid(errors, "upstreamCo2e_kg_per_GJ")}
-              />
-            </Field>
+            <NumberField
+              label="Biogenic carbon share (0–1)"
+              name="biogenicCarbonShare"
+              errors={errors}
+              hint="1 = all carbon from biomass"
+              value={biogenic}
+              onChange={(e) => setBiogenic(e.target.value)}
+            />
+            <NumberField
+              label="Upstream CO2e, kg/GJ (net)"
+              name="upstreamCo2e_kg_per_GJ"
+              errors={errors}
+              hint="optional well-to-tank factor"
+              value={upstream}
+              onChange={(e) => setUpstream(e.target.value)}
+            />
           </div>
         </fieldset>
       )}

@@ -4,7 +4,7 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import type { PriceView } from "@/lib/services/fuel-views";
 import { fmtUpTo, money } from "../../_ui/format";
-import { ErrorSummary, Field, invalid, toNumber, type Errors } from "./fields";
+import { ErrorSummary, Field, NumberField, invalid, toNumber, type Errors } from "./fields";
 import { METERING_REFERENCE_KEYS, METERING_REFERENCES } from "@/lib/units/metering";
 
 const ENERGY_UNITS = ["MWh", "GJ", "kWh", "MMBtu", "therm"];
@@ -379,17 +379,14 @@ export function PriceHistory({
               </div>
             )}
             <div className="row" style={{ marginTop: "0.5rem" }}>
-              <Field label="Price" name="amount" errors={errors} hint="commodity price per unit">
-                <input
-                  id="f-amount"
-                  name="amount"
-                  inputMode="decimal"
-                  className="num"
-                  value={draft.amount}
-                  onChange={set("amount")}
-                  {...invalid(errors, "amount")}
-                />
-              </Field>
+              <NumberField
+                label="Price"
+                name="amount"
+                errors={errors}
+                hint="commodity price per unit"
+                value={draft.amount}
+                onChange={set("amount")}
+              />
               <Field
                 label="Currency"
                 name="currency"
@@ -454,28 +451,22 @@ export function PriceHistory({
               )}
             </div>
             <div className="row">
-              <Field label="Transport / network adder" name="transportAdder" errors={errors} hint="same currency and unit as the price">
-                <input
-                  id="f-transportAdder"
-                  name="transportAdder"
-                  inputMode="decimal"
-                  className="num"
-                  value={draft.transportAdder}
-                  onChange={set("transportAdder")}
-                  {...invalid(errors, "transportAdder")}
-                />
-              </Field>
-              <Field label="Handling / storage adder" name="handlingAdder" errors={errors} hint="same currency and unit as the price">
-                <input
-                  id="f-handlingAdder"
-                  name="handlingAdder"
-                  inputMode="decimal"
-                  className="num"
-                  value={draft.handlingAdder}
-                  onChange={set("handlingAdder")}
-                  {...invalid(errors, "handlingAdder")}
-                />
-              </Field>
+              <NumberField
+                label="Transport / network adder"
+                name="transportAdder"
+                errors={errors}
+                hint="same currency and unit as the price"
+                value={draft.transportAdder}
+                onChange={set("transportAdder")}
+              />
+              <NumberField
+                label="Handling / storage adder"
+                name="handlingAdder"
+                errors={errors}
+                hint="same currency and unit as the price"
+                value={draft.handlingAdder}
+                onChange={set("handlingAdder")}
+              />
               <Field label="Valid from" name="validFrom" errors={errors}>
                 <input
                   id="f-validFrom"

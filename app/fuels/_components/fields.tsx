@@ -1,7 +1,7 @@
 "use client";
 
 /** Form pieces shared by the fuel and price forms: labelled fields with their error message. */
-import type { ReactNode } from "react";
+import type { ChangeEvent, CSSProperties, ReactNode } from "react";
 import { capitalised, labelOfPath } from "@/lib/schemas/labels";
 import { decimalSeparatorOf, parseNumberEntry, type DecimalSeparator } from "@/lib/units/number-entry";
 
@@ -39,6 +39,48 @@ export function Field({
       {hint && <span className="hint">{hint}</span>}
       <FieldError errors={errors} name={name} />
     </div>
+  );
+}
+
+/**
+ * A labelled number entry (text input, numeric keyboard, id `f-NAME`, name NAME) tied to its message; the
+ * text is read by `toNumber` when the form is sent.
+ */
+export function NumberField({
+  label,
+  name,
+  errors,
+  hint,
+  value,
+  onChange,
+  integer,
+  placeholder,
+  style,
+}: {
+  label: ReactNode;
+  name: string;
+  errors: Errors;
+  hint?: ReactNode;
+  value: string;
+  onChange: (e: ChangeEvent<HTMLInputElement>) => void;
+  integer?: boolean;
+  placeholder?: string;
+  style?: CSSProperties;
+}) {
+  return (
+    <Field label={label} name={name} errors={errors} hint={hint}>
+      <input
+        id={`f-${name}`}
+        name={name}
+        className="num"
+        inputMode={integer ? "numeric" : "decimal"}
+        value={value}
+        onChange={onChange}
+        placeholder={placeholder}
+        style={style}
+        {...invalid(errors, name)}
+      />
+    </Field>
   );
 }
 

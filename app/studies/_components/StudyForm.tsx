@@ -10,7 +10,7 @@ import Link from "next/link";
 import { saveAndOpen } from "@/app/_ui/save";
 import { useRouter } from "next/navigation";
 import { useMemo, useRef, useState } from "react";
-import { ErrorSummary, Field, invalid, toNumber, type Errors } from "../../fuels/_components/fields";
+import { ErrorSummary, Field, NumberField, invalid, toNumber, type Errors } from "../../fuels/_components/fields";
 import type { QuoteChoice, StudyFormOptions } from "@/lib/services/studies";
 import { quoteChoiceLabel } from "./price-labels";
 import { SENSITIVITY_DEFAULTS, type SensitivityRanges } from "@/lib/schemas/study";
@@ -618,46 +618,35 @@ export function StudyForm({
               {...invalid(errors, "currency")}
             />
           </Field>
-          <Field label="Carbon price, per t CO2" name="carbonPrice_per_t" errors={errors}>
-            <input
-              id="f-carbonPrice_per_t"
-              className="num"
-              inputMode="decimal"
-              value={head.carbonPrice_per_t}
-              onChange={setH("carbonPrice_per_t")}
-              {...invalid(errors, "carbonPrice_per_t")}
-            />
-          </Field>
-          <Field label="Discount rate, %" name="discountRatePercent" errors={errors}>
-            <input
-              id="f-discountRatePercent"
-              className="num"
-              inputMode="decimal"
-              value={head.discountRatePercent}
-              onChange={setH("discountRatePercent")}
-              {...invalid(errors, "discountRatePercent")}
-            />
-          </Field>
-          <Field label="Horizon, years" name="horizonYears" errors={errors}>
-            <input
-              id="f-horizonYears"
-              className="num"
-              inputMode="numeric"
-              value={head.horizonYears}
-              onChange={setH("horizonYears")}
-              {...invalid(errors, "horizonYears")}
-            />
-          </Field>
-          <Field label="Price escalation, %/yr" name="priceEscalationPercent" errors={errors}>
-            <input
-              id="f-priceEscalationPercent"
-              className="num"
-              inputMode="decimal"
-              value={head.priceEscalationPercent}
-              onChange={setH("priceEscalationPercent")}
-              {...invalid(errors, "priceEscalationPercent")}
-            />
-          </Field>
+          <NumberField
+            label="Carbon price, per t CO2"
+            name="carbonPrice_per_t"
+            errors={errors}
+            value={head.carbonPrice_per_t}
+            onChange={setH("carbonPrice_per_t")}
+          />
+          <NumberField
+            label="Discount rate, %"
+            name="discountRatePercent"
+            errors={errors}
+            value={head.discountRatePercent}
+            onChange={setH("discountRatePercent")}
+          />
+          <NumberField
+            label="Horizon, years"
+            name="horizonYears"
+            errors={errors}
+            value={head.horizonYears}
+            onChange={setH("horizonYears")}
+            integer
+          />
+          <NumberField
+            label="Price escalation, %/yr"
+            name="priceEscalationPercent"
+            errors={errors}
+            value={head.priceEscalationPercent}
+            onChange={setH("priceEscalationPercent")}
+          />
         </div>
         <div className="row">
           <Field label="Rank scenarios by" name="rankingMetric" errors={errors} hint="the comparison page can switch it at any time">
