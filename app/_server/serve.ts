@@ -50,7 +50,10 @@ const asBuffer = (chunk: unknown, encoding?: unknown): Buffer | null => {
   return null;
 };
 
-/** Lets Next answer `req` while keeping a copy of the bytes; the stored form once it has finished, or null. */
+/**
+ * Lets Next answer `req` while keeping a copy of the bytes; the stored form once it has finished,
+ * null when it may not be stored or the client went away, a rejection when Next's handler failed.
+ */
 function makeWhileCopying(handle: Handler, req: http.IncomingMessage, res: http.ServerResponse): Promise<StoredResponse | null> {
   const chunks: Buffer[] = [];
   let copying = true;
@@ -67,7 +70,7 @@ function makeWhileCopying(handle: Handler, req: http.IncomingMessage, res: http.
     return end(chunk, encoding, cb);
   }) as typeof res.end;
   res.setHeader("x-stoke-cache", "miss");
-  return new Promise((resolve) => {
+  return new Promise((resolve, reject) => {
     res.once("finish", () => {
       copying = false;
       const headers = res.getHeaders() as Record<string, unknown>;
@@ -76,7 +79,7 @@ function makeWhileCopying(handle: Handler, req: http.IncomingMessage, res: http.
       );
     });
     res.once("close", () => resolve(null));
-    handle(req, res).catch(() => resolve(null));
+    handle(req, res).catch(reject);
   });
 }
 
@@ -107,7 +110,8 @@ export function cachingHandler(handle: Handler, cache: ResponseCache): Handler {
     }
     const pending = cache.pending(key);
     if (pending) {
-      const shared = await pending;
+      // A failed or unstorable making leaves this request to be made on its own.
+      const shared = await pending.catch(() => null);
       if (shared) {
         cache.hits++;
         return send(res, shared, "shared");
