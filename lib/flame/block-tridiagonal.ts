@@ -9,13 +9,15 @@
  * x_j = y_j − G_j x_{j+1}. Cost ≈ N·(7/3)n³ flops to factorise, N·4n² to solve; one factorisation
  * serves many right-hand sides (the modified Newton iteration reuses it).
  *
- * All storage is allocated once per (N, n) and reused; nothing is allocated in factor() or solve().
+ * All storage is allocated once (for up to `capacity` points) and reused, also for another N up to
+ * the capacity (`reshape`); nothing is allocated in factor() or solve().
  * The blocks are dense, row-major, at [(j·n + row)·n + col] of `lower` (A), `diag` (B), `upper` (C).
  */
 
 export class BlockTridiagonal {
-  readonly nPoints: number;
   readonly blockSize: number;
+  /** Points the storage holds; `reshape` may use any number up to this. */
+  readonly capacity: number;
   /** A_j: coupling of point j's equations to point j−1's unknowns. */
   readonly lower: Float64Array;
   /** B_j: coupling within point j. */
@@ -26,17 +28,37 @@ export class BlockTridiagonal {
   private readonly piv: Int32Array;
   private readonly g: Float64Array;
   private factored = false;
+  private points: number;
 
-  constructor(nPoints: number, blockSize: number) {
-    this.nPoints = nPoints;
+  /** Storage for `capacity` points (default nPoints), of which the first nPoints are in use. */
+  constructor(nPoints: number, blockSize: number, capacity = nPoints) {
+    if (!(capacity >= nPoints)) throw new Error("BlockTridiagonal: capacity below the number of points");
+    this.points = nPoints;
     this.blockSize = blockSize;
+    this.capacity = capacity;
     const nn = blockSize * blockSize;
-    this.lower = new Float64Array(nPoints * nn);
-    this.diag = new Float64Array(nPoints * nn);
-    this.upper = new Float64Array(nPoints * nn);
-    this.lu = new Float64Array(nPoints * nn);
-    this.piv = new Int32Array(nPoints * blockSize);
-    this.g = new Float64Array(nPoints * nn);
+    this.lower = new Float64Array(capacity * nn);
+    this.diag = new Float64Array(capacity * nn);
+    this.upper = new Float64Array(capacity * nn);
+    this.lu = new Float64Array(capacity * nn);
+    this.piv = new Int32Array(capacity * blockSize);
+    this.g = new Float64Array(capacity * nn);
+  }
+
+  /** Points in use N. */
+  get nPoints(): number {
+    return this.points;
+  }
+
+  /**
+   * Takes the storage for a system of nPoints points (the contents are discarded: unfactorised
+   * until refilled and factor()ed). False when nPoints exceeds the capacity.
+   */
+  reshape(nPoints: number): boolean {
+    if (!(nPoints >= 1 && nPoints <= this.capacity)) return false;
+    this.points = nPoints;
+    this.factored = false;
+    return true;
   }
 
   /** Whether factor() succeeded since the bands were last cleared. */
@@ -46,9 +68,10 @@ export class BlockTridiagonal {
 
   /** Sets all three block bands to zero. */
   clear(): void {
-    this.lower.fill(0);
-    this.diag.fill(0);
-    this.upper.fill(0);
+    const used = this.points * this.blockSize * this.blockSize;
+    this.lower.fill(0, 0, used);
+    this.diag.fill(0, 0, used);
+    this.upper.fill(0, 0, used);
     this.factored = false;
   }
 

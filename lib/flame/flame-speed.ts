@@ -34,7 +34,16 @@ import {
   type ProgressInfo,
   type SolveStats,
 } from "./premixed";
-import { coldStart, massFractionsFromMoles, thinSolution, warmStart } from "./start";
+import {
+  coldStart,
+  extrapolateWarmStart,
+  inletVector,
+  massFractionsFromMoles,
+  thinSolution,
+  warmCorrection,
+  warmStart,
+  type WarmCorrection,
+} from "./start";
 import { speciesThermoInto } from "./thermo";
 import { createMixtureTransport, type MixtureTransport } from "./transport";
 
@@ -92,6 +101,9 @@ export interface FlameSpeedState {
   /** The equilibrium estimate of its burnt state (the start's end state). */
   burntEstimate: { temperatureK: number; Y: Float64Array };
   mechanism: string;
+  pressurePa: number;
+  /** When this solution was warm-started: what the solve changed beyond its estimate (for the next step's predictor). */
+  correction?: WarmCorrection;
 }
 
 export interface FlameSpeedResult {
@@ -247,8 +259,19 @@ export function computeFlameSpeed(input: FlameSpeedInput, opts: FlameSpeedOption
     solvePremixed(prob, start, { criteria, onProgress: opts.onProgress, signal: opts.signal, firstGridSettings, startJacobian });
   let run: ReturnType<typeof solvePremixed>;
   const ws = opts.warmStart;
+  let correctionBase: { estimate: FlameSolution; inletChange: Float64Array } | undefined;
   if (ws && ws.mechanism === mech.name) {
-    const guess = warmStart(prob, ws.flame, ws.unburntTemperatureK, ws.inletY, ws.burntEstimate, ws.inletDensity_kg_per_m3, rhoU, burnt);
+    const estimate = warmStart(prob, ws.flame, ws.unburntTemperatureK, ws.inletY, ws.burntEstimate, ws.inletDensity_kg_per_m3, rhoU, burnt);
+    const inletChange = inletVector(inletY, Tu, p);
+    const before = inletVector(ws.inletY, ws.unburntTemperatureK, ws.pressurePa);
+    for (let i = 0; i < inletChange.length; i++) inletChange[i] -= before[i];
+    // along a sweep: add the previous step's correction, scaled to this step (secant predictor)
+    let guess = estimate;
+    if (ws.correction) {
+      const extrapolated = { ...estimate, x: Float64Array.from(estimate.x) };
+      if (extrapolateWarmStart(extrapolated, ws.correction, inletChange) > 0) guess = extrapolated;
+    }
+    correctionBase = { estimate, inletChange };
     const retryable = (e: unknown) => e instanceof NotConvergedError && !e.diagnostics.cancelled;
     try {
       // a near neighbour: Newton on its grid, at most one round of pseudo-time steps
@@ -269,6 +292,7 @@ export function computeFlameSpeed(input: FlameSpeedInput, opts: FlameSpeedOption
   }
   const sol = run.solution;
   keepLastJacobian(sol, run.jacobian);
+  const correction = correctionBase ? warmCorrection(sol, correctionBase.estimate, correctionBase.inletChange) : undefined;
   const N = sol.z.length;
   const x = sol.x;
   const mdot = x[K + 1];
@@ -372,7 +396,16 @@ export function computeFlameSpeed(input: FlameSpeedInput, opts: FlameSpeedOption
         burningVelocity_cm_per_s: 100 * h.burningVelocity_m_per_s,
       })),
     },
-    solution: { flame: sol, unburntTemperatureK: Tu, inletDensity_kg_per_m3: rhoU, inletY, burntEstimate: burnt, mechanism: mech.name },
+    solution: {
+      flame: sol,
+      unburntTemperatureK: Tu,
+      inletDensity_kg_per_m3: rhoU,
+      inletY,
+      burntEstimate: burnt,
+      mechanism: mech.name,
+      pressurePa: p,
+      ...(correction ? { correction } : {}),
+    },
     diagnostics: { ...run.stats, refinementPasses: run.refinementPasses, ...(cpu ? { cpuSeconds: (cpu.user + cpu.system) / 1e6 } : {}) },
     notes: [...FLAME_SPEED_NOTES, ...mix.notes],
   };

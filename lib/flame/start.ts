@@ -6,6 +6,7 @@
  */
 import { R_J_per_molK } from "../units/constants";
 import type { Mechanism } from "./mechanism";
+import { interpolateField } from "./grid";
 import type { FlameSolution, PremixedProblem } from "./premixed";
 
 /** Fractions of the domain length at which the starting grid has its points. */
@@ -144,4 +145,82 @@ export function thinSolution(sol: FlameSolution, targetPoints: number): FlameSol
   const x = new Float64Array(keep.length * n);
   for (let i = 0; i < keep.length; i++) x.set(sol.x.subarray(keep[i] * n, (keep[i] + 1) * n), i * n);
   return { ...sol, z, x };
+}
+
+/**
+ * What a warm-started solve changed beyond its estimate: the solution minus the estimate it was
+ * started from (on the solution's grid; the mass flux as a ratio), and the inlet change that
+ * estimate was made for. The next warm start along the same path extrapolates it (secant
+ * predictor).
+ */
+export interface WarmCorrection {
+  /** Solution minus estimate (T, Y); ln(ṁ/ṁ_estimate) in the ṁ slot; point-major on the solution's grid. */
+  delta: Float64Array;
+  /** Inlet change of that step: mass fractions, then ΔT_u/1000 K, then Δ ln p. */
+  inletChange: Float64Array;
+}
+
+/** Inlet state as one vector for the secant predictor: mass fractions, T_u/1000 K, ln p. */
+export function inletVector(inletY: Float64Array, unburntK: number, pressurePa: number): Float64Array {
+  const v = new Float64Array(inletY.length + 2);
+  v.set(inletY);
+  v[inletY.length] = unburntK / 1000;
+  v[inletY.length + 1] = Math.log(pressurePa);
+  return v;
+}
+
+/** The correction a solve made to its estimate (see WarmCorrection). */
+export function warmCorrection(solution: FlameSolution, estimate: FlameSolution, inletChange: Float64Array): WarmCorrection {
+  const K = solution.nSpecies;
+  const n = K + 2;
+  const N = solution.z.length;
+  const est = interpolateField(estimate.z, estimate.x, n, solution.z);
+  const delta = new Float64Array(N * n);
+  for (let j = 0; j < N; j++) {
+    const o = j * n;
+    for (let v = 0; v <= K; v++) delta[o + v] = solution.x[o + v] - est[o + v];
+    delta[o + K + 1] = Math.log(solution.x[o + K + 1] / est[o + K + 1]);
+  }
+  return { delta, inletChange };
+}
+
+/** Smallest cosine between this step's inlet change and the last one's for the secant predictor. */
+const PREDICTOR_MIN_COSINE = 0.9;
+/** Largest extrapolation factor of the secant predictor. */
+const PREDICTOR_MAX_FACTOR = 2;
+
+/**
+ * Secant predictor for a sweep: when the inlet changes along (nearly) the same direction as in the
+ * step that produced `from`, the correction that step needed beyond its estimate is added to the
+ * new estimate, scaled by the ratio of the steps (α = d₂·d₁/d₁·d₁, at most 2): temperatures and
+ * mass fractions additively (mass fractions kept ≥ 0), the mass flux as a factor. `guess` is the
+ * warm-start estimate on the grid of `from` (that of `correction`); it is changed in place.
+ * Returns α (0: no extrapolation).
+ */
+export function extrapolateWarmStart(guess: FlameSolution, correction: WarmCorrection, inletChange: Float64Array): number {
+  const d1 = correction.inletChange;
+  const d2 = inletChange;
+  if (d1.length !== d2.length || correction.delta.length !== guess.x.length) return 0;
+  let d11 = 0;
+  let d22 = 0;
+  let d12 = 0;
+  for (let i = 0; i < d1.length; i++) {
+    d11 += d1[i] * d1[i];
+    d22 += d2[i] * d2[i];
+    d12 += d1[i] * d2[i];
+  }
+  if (!(d11 > 0 && d22 > 0) || d12 < PREDICTOR_MIN_COSINE * Math.sqrt(d11 * d22)) return 0;
+  const alpha = Math.min(PREDICTOR_MAX_FACTOR, d12 / d11);
+  const K = guess.nSpecies;
+  const n = K + 2;
+  const N = guess.z.length;
+  const x = guess.x;
+  const dl = correction.delta;
+  for (let j = 0; j < N; j++) {
+    const o = j * n;
+    x[o] += alpha * dl[o];
+    for (let k = 1; k <= K; k++) x[o + k] = Math.max(0, x[o + k] + alpha * dl[o + k]);
+    x[o + K + 1] *= Math.exp(alpha * dl[o + K + 1]);
+  }
+  return alpha;
 }

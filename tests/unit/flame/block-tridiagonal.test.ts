@@ -90,6 +90,33 @@ describe("block-tridiagonal LU", () => {
     }
   });
 
+  it("reuses its storage for a smaller system (reshape within the capacity), solving it like a fresh matrix", () => {
+    // first a larger system in storage for 20 points, factorised and solved, so the arrays hold stale data
+    const m = new BlockTridiagonal(16, 4, 20);
+    const big = randomSystem(16, 4, 9);
+    m.lower.set(big.lower);
+    m.diag.set(big.diag);
+    m.upper.set(big.upper);
+    expect(m.factor()).toBe(-1);
+    expect(m.reshape(21)).toBe(false);
+    expect(m.reshape(10)).toBe(true);
+    expect(m.nPoints).toBe(10);
+    expect(m.isFactored).toBe(false);
+    // then a 10-point system written over the same storage
+    const small = randomSystem(10, 4, 13);
+    m.clear();
+    m.lower.set(small.lower);
+    m.diag.set(small.diag);
+    m.upper.set(small.upper);
+    const r = rng(17);
+    const b = new Float64Array(40).map(() => r());
+    const ref = denseSolve(dense(small), b);
+    expect(m.factor()).toBe(-1);
+    const x = Float64Array.from(b);
+    m.solve(x);
+    for (let i = 0; i < x.length; i++) expect(Math.abs(x[i] - ref[i])).toBeLessThan(1e-10);
+  });
+
   it("reports the first point whose pivot block is singular", () => {
     const m = randomSystem(4, 3, 5);
     for (let i = 0; i < 9; i++) m.diag[2 * 9 + i] = 0;
