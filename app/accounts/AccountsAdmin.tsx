@@ -6,18 +6,10 @@
  */
 import { useRouter } from "next/navigation";
 import { useState } from "react";
+import type { AccountJson, TokenJson } from "@/lib/services/accounts";
 
-type Account = { id: number; email: string; displayName: string; role: string; disabled: boolean; lastSignInAt: string | null };
-type Token = {
-  id: number;
-  email: string;
-  name: string;
-  prefix: string;
-  createdAt: string;
-  expiresAt: string;
-  expired: boolean;
-  lastUsedAt: string | null;
-};
+type Account = AccountJson;
+type Token = TokenJson;
 /** API token lifetimes, days: the default and the longest allowed. */
 type Lifetime = { defaultDays: number; maxDays: number };
 const minute = (iso: string) => iso.slice(0, 16).replace("T", " ");

@@ -5,6 +5,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { tempDb, type TempDb } from "../db/temp-db";
+import { teamRequest, type TeamRequestOptions } from "./team-request";
 
 let t: TempDb;
 const saved = { ...process.env };
@@ -76,20 +77,7 @@ const ctx = (p: Record<string, string | number>) => ({
   params: Promise.resolve(Object.fromEntries(Object.entries(p).map(([k, v]) => [k, String(v)]))),
 });
 
-function req(
-  path: string,
-  opts: { method?: string; body?: unknown; cookie?: string; bearer?: string; headers?: Record<string, string> } = {},
-) {
-  const headers: Record<string, string> = { ...opts.headers };
-  if (opts.body !== undefined) headers["content-type"] = "application/json";
-  if (opts.cookie) headers.cookie = opts.cookie;
-  if (opts.bearer) headers.authorization = `Bearer ${opts.bearer}`;
-  return new Request(`${base}${path}`, {
-    method: opts.method ?? "GET",
-    body: opts.body === undefined ? undefined : JSON.stringify(opts.body),
-    headers,
-  });
-}
+const req = (path: string, opts: TeamRequestOptions = {}) => teamRequest(base, path, opts);
 
 /** Signs in and answers the Cookie header to send (name=sealed value). */
 async function signIn(email: string, password = PASSWORD): Promise<string> {

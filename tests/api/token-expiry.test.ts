@@ -7,6 +7,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { tempDb, type TempDb } from "../db/temp-db";
 import { TOKEN_LIFETIME_DEFAULT_DAYS, TOKEN_LIFETIME_MAX_DAYS } from "../../lib/schemas/accounts";
+import { teamRequest, type TeamRequestOptions } from "./team-request";
 
 let t: TempDb;
 const saved = { ...process.env };
@@ -18,17 +19,7 @@ const DAY_MS = 24 * 3600 * 1000;
 let admin = "";
 let editorId = 0;
 
-function req(path: string, opts: { method?: string; body?: unknown; cookie?: string; bearer?: string } = {}) {
-  const headers: Record<string, string> = {};
-  if (opts.body !== undefined) headers["content-type"] = "application/json";
-  if (opts.cookie) headers.cookie = opts.cookie;
-  if (opts.bearer) headers.authorization = `Bearer ${opts.bearer}`;
-  return new Request(`${base}${path}`, {
-    method: opts.method ?? "GET",
-    body: opts.body === undefined ? undefined : JSON.stringify(opts.body),
-    headers,
-  });
-}
+const req = (path: string, opts: TeamRequestOptions = {}) => teamRequest(base, path, opts);
 
 beforeAll(async () => {
   t = await tempDb();
