@@ -11,7 +11,7 @@
  *          101.325 kPa, after T. R. Marrero & E. A. Mason, J. Phys. Chem. Ref. Data 1 (1972) 3.
  *  [LJ04]  E. W. Lemmon & R. T. Jacobsen, Int. J. Thermophys. 25 (2004) 21, dilute-gas viscosity
  *          η0 = 0.0266958 √(M T) / (σ² Ω(T*)), ln Ω = Σ b_i (ln T*)^i (their eqs. 2–3, Table I):
- *          b = 0.431, −0.4623, 0.08406, 0.005341, −0.00331 (confirmed in a faithful transcription of
+ *          b = 0.431, −0.4623, 0.08406, 0.005341, −0.00331 (confirmed in a faithful copy of
  *          the paper's equations, not in the paper itself); the formula reproduces [CRC-V] N2 17.9 µPa·s
  *          at 300 K.
  *  [MM61]  L. Monchick & E. A. Mason, J. Chem. Phys. 35 (1961) 1676 — the collision-integral tables.
