@@ -7,7 +7,7 @@
  */
 import { Bar, BarChart, CartesianGrid, Legend, Line, LineChart, Tooltip, XAxis, YAxis } from "recharts";
 import { CHART_COLOURS, axisTick, shortNumber, useChartAnimation } from "./animation";
-import { niceAxisFor } from "./ticks";
+import { axisTitle, niceAxisFor } from "./ticks";
 
 export interface FirstRow {
   label: string;
@@ -93,7 +93,7 @@ export function IntervalChart({ rows, unit, isStatic }: { rows: IntervalRow[]; u
           tick={axisTick}
           allowDataOverflow
           label={{
-            value: `${unit}${axis.scaleSuffix ? ` (${axis.scaleSuffix})` : ""}`,
+            value: axisTitle(unit, axis),
             position: "insideBottom",
             offset: -14,
             fontSize: 12,
@@ -144,7 +144,7 @@ export function CdfChart({ series, unit, isStatic }: { series: CdfSeries[]; unit
           tick={axisTick}
           allowDataOverflow
           label={{
-            value: `${unit}${axis.scaleSuffix ? ` (${axis.scaleSuffix})` : ""}`,
+            value: axisTitle(unit, axis),
             position: "insideBottom",
             offset: -16,
             fontSize: 12,

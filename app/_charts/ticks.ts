@@ -66,3 +66,6 @@ function roundTo(v: number, step: number): number {
 function cleanZero(v: number): number {
   return Object.is(v, -0) ? 0 : v;
 }
+
+/** An axis title: the unit, with the axis's thousands scale when its labels carry one. */
+export const axisTitle = (unit: string, axis: NiceAxis) => `${unit}${axis.scaleSuffix ? ` (${axis.scaleSuffix})` : ""}`;

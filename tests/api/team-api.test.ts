@@ -79,6 +79,21 @@ const ctx = (p: Record<string, string | number>) => ({
 
 const req = (path: string, opts: TeamRequestOptions = {}) => teamRequest(base, path, opts);
 
+/** A plain steam boiler burning fuel `fuelId` (the plant form's fields; invented figures). */
+const boiler = (name: string, fuelId: number) => ({
+  name,
+  equipmentType: "steam-boiler",
+  ratedInput_kW: 1000,
+  operatingHours: 6000,
+  averageLoadFraction: 0.7,
+  stackTemperatureC: 160,
+  flueO2DryPercent: 3,
+  combustionAirC: 20,
+  radiationLossPercent: 1,
+  condensing: false,
+  baselineFuelId: fuelId,
+});
+
 /** Signs in and answers the Cookie header to send (name=sealed value). */
 async function signIn(email: string, password = PASSWORD): Promise<string> {
   const res = await r.session.POST(req("/api/session", { method: "POST", body: { email, password } }));
@@ -211,19 +226,7 @@ describe("team mode: roles", () => {
   it("the existing delete rule stays: a fuel a plant burns is refused (409), also while that plant is in the trash", async () => {
     const editor = await signIn("editor@example.org");
     const f = await (await r.fuels.POST(req("/api/fuels", { method: "POST", body: gas("Plant gas"), cookie: editor }))).json();
-    const plant = {
-      name: "Trash boiler",
-      equipmentType: "steam-boiler",
-      ratedInput_kW: 1000,
-      operatingHours: 6000,
-      averageLoadFraction: 0.7,
-      stackTemperatureC: 160,
-      flueO2DryPercent: 3,
-      combustionAirC: 20,
-      radiationLossPercent: 1,
-      condensing: false,
-      baselineFuelId: f.id,
-    };
+    const plant = boiler("Trash boiler", f.id);
     const p = await r.plants.POST(req("/api/plants", { method: "POST", body: plant, cookie: editor }));
     expect(p.status, await p.clone().text()).toBe(201);
     const plantId = (await p.json()).id;
@@ -475,19 +478,7 @@ describe("team mode: the trash for plants and studies", () => {
       req("/api/plants", {
         method: "POST",
         cookie: editor,
-        body: {
-          name: "Study boiler",
-          equipmentType: "steam-boiler",
-          ratedInput_kW: 1000,
-          operatingHours: 6000,
-          averageLoadFraction: 0.7,
-          stackTemperatureC: 160,
-          flueO2DryPercent: 3,
-          combustionAirC: 20,
-          radiationLossPercent: 1,
-          condensing: false,
-          baselineFuelId: f.id,
-        },
+        body: boiler("Study boiler", f.id),
       }),
     );
     const plantId = (await p.json()).id;

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { niceAxis, niceNumber } from "../../../app/_charts/ticks";
+import { axisTitle, niceAxis, niceNumber } from "../../../app/_charts/ticks";
 
 describe("nice-number axis ticks", () => {
   // Heckbert, "Nice numbers for graph labels", Graphics Gems (1990): nice numbers are 1, 2, 5 × 10^k.
@@ -35,5 +35,11 @@ describe("nice-number axis ticks", () => {
     expect(a.domain[0]).toBeLessThan(50);
     expect(a.domain[1]).toBeGreaterThan(50);
     expect(niceAxis(Number.NaN, 3).ticks.length).toBeGreaterThan(1);
+  });
+
+  it("titles an axis with its unit and, when the labels are in thousands or millions, that scale", () => {
+    expect(axisTitle("EUR", niceAxis(0, 80))).toBe("EUR");
+    expect(axisTitle("EUR", niceAxis(0, 80_000))).toBe("EUR (k)");
+    expect(axisTitle("EUR", niceAxis(0, 8_000_000))).toBe("EUR (M)");
   });
 });
