@@ -28,6 +28,9 @@ import {
 import { decide, hostRefusal } from "../_auth/gate";
 import { SESSION_COOKIE } from "../_auth/session-cookie";
 
+/** A server setting that cannot be used. */
+class SettingError extends Error {}
+
 type Handler = (req: http.IncomingMessage, res: http.ServerResponse) => Promise<void>;
 
 function webRequest(req: http.IncomingMessage): Request {
@@ -125,11 +128,19 @@ export function cachingHandler(handle: Handler, cache: ResponseCache): Handler {
 async function main(): Promise<void> {
   const hostname = process.env.HOST || "127.0.0.1";
   const port = Number(process.env.PORT || 3000);
+  if (!Number.isInteger(port) || port < 1 || port > 65535)
+    throw new SettingError(`PORT must be a whole number from 1 to 65535, not "${process.env.PORT}".`);
+  let bytes: number;
+  try {
+    bytes = responseCacheBytes();
+  } catch (e) {
+    throw new SettingError((e as Error).message);
+  }
   const dir = path.resolve(path.dirname(new URL(import.meta.url).pathname), "..", "..");
   const app = next({ dev: false, dir, hostname, port });
   await app.prepare();
   const handle = app.getRequestHandler() as Handler;
-  const cache = new ResponseCache(responseCacheBytes());
+  const cache = new ResponseCache(bytes);
   const serve = cachingHandler(handle, cache);
   const server = http.createServer((req, res) => {
     serve(req, res).catch((e: unknown) => {
@@ -150,7 +161,8 @@ async function main(): Promise<void> {
 
 if (process.argv[1] && /serve\.m?[jt]s$/.test(process.argv[1])) {
   main().catch((e: unknown) => {
-    console.error(e);
+    // A setting refused by name (e.g. STOKE_RESPONSE_CACHE_MB) is said in one line; anything else with its stack.
+    console.error(e instanceof SettingError ? `Stoke: ${e.message}` : e);
     process.exit(1);
   });
 }

@@ -4,7 +4,10 @@
  * to a fuel of the demo study changes its comparison page at once; cookies and navigation headers
  * get their own answers; exports are never cached.
  */
+import { spawnSync } from "node:child_process";
+import path from "node:path";
 import { describe, expect, inject, it } from "vitest";
+import { projectRoot } from "../support/next-server";
 
 const base = inject("baseURL");
 const DEMO_STUDY = "Hydrogen blending and biomethane"; // seed/demo.ts
@@ -94,5 +97,22 @@ describe("response cache", () => {
   it("never caches exports", async () => {
     expect((await get("/api/fuels/export")).cache).toBe("pass");
     expect((await get("/api/fuels/export")).cache).toBe("pass");
+  });
+
+  it("a server with an unusable cache size or port refuses to start and names the setting", () => {
+    const file = path.join(projectRoot, "dist", "server", "serve.mjs"); // built by the global set-up
+    for (const [name, value] of [
+      ["STOKE_RESPONSE_CACHE_MB", "lots"],
+      ["PORT", "99999"],
+    ]) {
+      const r = spawnSync(process.execPath, [file], {
+        env: { ...process.env, NODE_ENV: "production", DATABASE_URL: "file:/nonexistent/never-opened.db", [name]: value },
+        encoding: "utf8",
+        timeout: 20_000,
+      });
+      expect(r.status).toBe(1);
+      expect(r.stderr).toContain(name);
+      expect(r.stderr).not.toMatch(/\n\s+at /); // one line, no stack
+    }
   });
 });
