@@ -255,8 +255,15 @@ export function computeFlameSpeed(input: FlameSpeedInput, opts: FlameSpeedOption
   const xH2 = mix.fuel.h2MoleFraction ?? 0;
   const cold = () => coldStart(prob, burnt, 0.4 + 1.6 * xH2 * xH2);
   const cpu0 = typeof process !== "undefined" && process.cpuUsage ? process.cpuUsage() : undefined;
-  const runFrom = (start: FlameSolution, firstGridSettings?: SolverSettings, startJacobian?: BlockTridiagonal) =>
-    solvePremixed(prob, start, { criteria, onProgress: opts.onProgress, signal: opts.signal, firstGridSettings, startJacobian });
+  const runFrom = (start: FlameSolution, firstGridSettings?: SolverSettings, startJacobian?: BlockTridiagonal, inheritedGrid?: boolean) =>
+    solvePremixed(prob, start, {
+      criteria,
+      onProgress: opts.onProgress,
+      signal: opts.signal,
+      firstGridSettings,
+      startJacobian,
+      inheritedGrid,
+    });
   let run: ReturnType<typeof solvePremixed>;
   const ws = opts.warmStart;
   let correctionBase: { estimate: FlameSolution; inletChange: Float64Array } | undefined;
@@ -275,7 +282,7 @@ export function computeFlameSpeed(input: FlameSpeedInput, opts: FlameSpeedOption
     const retryable = (e: unknown) => e instanceof NotConvergedError && !e.diagnostics.cancelled;
     try {
       // a near neighbour: Newton on its grid, at most one round of pseudo-time steps
-      run = runFrom(guess, WARM_FIRST_GRID, takeLastJacobian(ws.flame));
+      run = runFrom(guess, WARM_FIRST_GRID, takeLastJacobian(ws.flame), true);
     } catch (e) {
       if (!retryable(e)) throw e;
       try {

@@ -80,16 +80,93 @@ export function markIntervals(
 }
 
 /**
- * New grid with the marked intervals halved, at most `maxPoints` points (when the budget is short,
- * the marked intervals are split from the longest down). Returns null when nothing is marked.
+ * Points that a grid no longer needs (pruning, for a grid inherited from a neighbouring solution
+ * whose flame was wider or elsewhere): point j is removable when the interval [z_{j−1}, z_{j+1}]
+ * left without it meets the slope and curve criteria with room to spare (`margin` times their
+ * limits, so that the next refinement does not put the point back at once) and the ratio
+ * criterion against the intervals beside it. Never removed: the ends, the points listed in
+ * `keep`, the points next to an interval marked for splitting (`mark`, from markIntervals on the
+ * same grid) or next to another removed point (at most one point of three goes, so each check
+ * sees the neighbours that stay).
  */
-export function splitIntervals(z: ArrayLike<number>, mark: Uint8Array, maxPoints: number): Float64Array | null {
+export function removablePoints(
+  z: ArrayLike<number>,
+  nComponents: number,
+  values: (c: number, j: number) => number,
+  criteria: GridCriteria,
+  mark: Uint8Array,
+  keep: readonly number[],
+  margin: number,
+): Uint8Array {
+  const N = z.length;
+  const remove = new Uint8Array(N);
+  if (N < 5) return remove;
+  // candidates: j = 2 … N − 3 (both neighbours and the next ones exist), with no marked interval
+  // among the four around j
+  const ok = new Uint8Array(N);
+  for (let j = 2; j <= N - 3; j++) ok[j] = mark[j - 2] || mark[j - 1] || mark[j] || mark[j + 1] ? 0 : 1;
+  for (const k of keep) if (k >= 0 && k < N) ok[k] = 0;
+  // ratio: the merged interval against the intervals beside it
+  for (let j = 2; j <= N - 3; j++) {
+    if (!ok[j]) continue;
+    const h = z[j + 1] - z[j - 1];
+    if (h > criteria.ratio * (z[j - 1] - z[j - 2]) || h > criteria.ratio * (z[j + 2] - z[j + 1])) ok[j] = 0;
+  }
+  for (let c = 0; c < nComponents; c++) {
+    let vmin = Infinity;
+    let vmax = -Infinity;
+    for (let j = 0; j < N; j++) {
+      const v = values(c, j);
+      if (v < vmin) vmin = v;
+      if (v > vmax) vmax = v;
+    }
+    const range = vmax - vmin;
+    if (!(range > criteria.threshold)) continue;
+    let smin = Infinity;
+    let smax = -Infinity;
+    for (let j = 0; j < N - 1; j++) {
+      const s = (values(c, j + 1) - values(c, j)) / (z[j + 1] - z[j]);
+      if (s < smin) smin = s;
+      if (s > smax) smax = s;
+    }
+    const slopeLimit = margin * criteria.slope * range;
+    const curveLimit = margin * criteria.curve * (smax - smin);
+    for (let j = 2; j <= N - 3; j++) {
+      if (!ok[j]) continue;
+      const vl = values(c, j - 1);
+      const vr = values(c, j + 1);
+      if (Math.abs(vr - vl) > slopeLimit) {
+        ok[j] = 0;
+        continue;
+      }
+      const sm = (vr - vl) / (z[j + 1] - z[j - 1]);
+      const sl = (vl - values(c, j - 2)) / (z[j - 1] - z[j - 2]);
+      const sr = (values(c, j + 2) - vr) / (z[j + 2] - z[j + 1]);
+      if (Math.abs(sm - sl) > curveLimit || Math.abs(sr - sm) > curveLimit) ok[j] = 0;
+    }
+  }
+  for (let j = 2; j <= N - 3; j++) {
+    if (!ok[j]) continue;
+    remove[j] = 1;
+    j += 2; // the next two points stay
+  }
+  return remove;
+}
+
+/**
+ * New grid with the marked intervals halved and the points flagged in `remove` (see
+ * removablePoints) left out, at most `maxPoints` points (when the budget is short, the marked
+ * intervals are split from the longest down). Returns null when nothing is marked or removed.
+ */
+export function splitIntervals(z: ArrayLike<number>, mark: Uint8Array, maxPoints: number, remove?: Uint8Array): Float64Array | null {
   const N = z.length;
   let count = 0;
   for (let j = 0; j < mark.length; j++) count += mark[j];
-  if (count === 0) return null;
-  const budget = Math.max(0, maxPoints - N);
-  if (budget === 0) return null;
+  let removed = 0;
+  if (remove) for (let j = 0; j < N; j++) removed += remove[j];
+  if (count === 0 && removed === 0) return null;
+  const budget = Math.max(0, maxPoints - (N - removed));
+  if (budget === 0 && removed === 0) return null;
   const use = Uint8Array.from(mark);
   if (count > budget) {
     const idx: number[] = [];
@@ -99,10 +176,10 @@ export function splitIntervals(z: ArrayLike<number>, mark: Uint8Array, maxPoints
     for (let i = 0; i < budget; i++) use[idx[i]] = 1;
     count = budget;
   }
-  const out = new Float64Array(N + count);
+  const out = new Float64Array(N - removed + count);
   let k = 0;
   for (let j = 0; j < N; j++) {
-    out[k++] = z[j];
+    if (!remove?.[j]) out[k++] = z[j];
     if (j < N - 1 && use[j]) out[k++] = 0.5 * (z[j] + z[j + 1]);
   }
   return out;

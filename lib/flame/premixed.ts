@@ -34,7 +34,7 @@
 import { NotConvergedError } from "../errors";
 import { R_J_per_molK } from "../units/constants";
 import { BlockTridiagonal } from "./block-tridiagonal";
-import { interpolateField, markIntervals, splitIntervals, type GridCriteria } from "./grid";
+import { interpolateField, markIntervals, removablePoints, splitIntervals, type GridCriteria } from "./grid";
 import type { Mechanism } from "./mechanism";
 import { speciesThermoInto } from "./thermo";
 
@@ -232,6 +232,13 @@ export class FlameGridSolver {
   };
   settings: SolverSettings;
   signal?: AbortSignal;
+  /**
+   * Steady Newton: once the next correction is below `tolerance` (weighted norm), `stop()` is
+   * asked whether to end the solve before convergence (the driver's early refinement decision).
+   */
+  earlyStop?: { tolerance: number; stop: () => boolean };
+  /** The last solve() ended early by `earlyStop`: x is nearly, not fully, converged. */
+  stoppedEarly = false;
   /** Use the kinetics' analytic Jacobian for the source terms (when it has one). */
   analyticKinetics: boolean;
 
@@ -761,6 +768,10 @@ export class FlameGridSolver {
         dx.set(dx1);
         if (!qn || !this.quasiNewtonStep()) this.qnSteps = 0;
         this.updateWeights();
+        if (this.rdt === 0 && this.earlyStop && s1 < this.earlyStop.tolerance && this.earlyStop.stop()) {
+          this.stoppedEarly = true;
+          return true;
+        }
         if (lam === 1 && s1 < 1) {
           // converged: take the last (small) correction too
           // (the properties are not re-evaluated here: every newton() begins with the residual at x)
@@ -924,6 +935,8 @@ export interface PremixedRunOptions {
    * start's): the first Newton steps use it instead of evaluating and factorising a new one.
    */
   startJacobian?: BlockTridiagonal;
+  /** The starting grid is a neighbour's (a warm start, as along a sweep); see solvePremixed. */
+  inheritedGrid?: boolean;
 }
 
 export interface PremixedRunResult {
@@ -944,6 +957,30 @@ export function inletDensity(prob: PremixedProblem): number {
   return prob.pressurePa / (s * R_J_per_molK * prob.unburntTemperatureK);
 }
 
+/**
+ * Grid handling of a warm start (`inheritedGrid`), chosen on the benchmark's hydrogen sweep
+ * (11 steps, 0–100 % H2 at φ = 0.8), counted in point-weighted residuals, Jacobians,
+ * factorisations and back-substitutions: the ten warm steps cost 18 % less than with the plain
+ * refinement, and their grids hold 2 698 points in all instead of 2 553.
+ *
+ * - The Newton iteration on the inherited grid stops as soon as its correction is below
+ *   EARLY_REFINEMENT_TOLERANCE (weighted norm; 1 is converged) and the grid criteria already ask
+ *   for points: that grid's solution serves only to place them, and the criteria (changes of
+ *   6–12 % of a range) do not move with what is left to converge.
+ * - A grid that needs points is refined ahead, to REFINE_AHEAD times the slope and curve limits,
+ *   so that a sweep's next steps, whose flames are thinner, find a grid that already meets them:
+ *   every second step then needs no refinement pass and no Jacobian on a new grid.
+ * - The inherited grid is pruned (removablePoints in grid.ts, margin PRUNE_MARGIN of the limits)
+ *   where the new flame no longer needs the neighbour's points: with the refinement it needs anyway,
+ *   or alone when at least PRUNE_ALONE_FRACTION of its points can go.
+ * The final grid meets the same criteria as a cold start's, and the velocity stays within the
+ * discretisation error of the plain refinement (largest difference along the sweep 0.2 %).
+ */
+const EARLY_REFINEMENT_TOLERANCE = 100;
+const REFINE_AHEAD = 0.8;
+const PRUNE_MARGIN = 0.6;
+const PRUNE_ALONE_FRACTION = 0.1;
+
 function nearestIndex(z: ArrayLike<number>, zf: number): number {
   let best = 0;
   for (let j = 1; j < z.length; j++) if (Math.abs(z[j] - zf) < Math.abs(z[best] - zf)) best = j;
@@ -952,8 +989,10 @@ function nearestIndex(z: ArrayLike<number>, zf: number): number {
 
 /**
  * Solves on the starting grid, then refines (slope, curve, ratio) and re-solves until the criteria
- * add no point. Throws NotConvergedError (with diagnostics) if any solve fails or the grid budget is
- * exhausted before the criteria are met.
+ * add no point. With `inheritedGrid` (a warm start on a neighbour's grid) the first grid's solve may
+ * stop early for its refinement, grids are refined ahead and the first one is pruned (see
+ * EARLY_REFINEMENT_TOLERANCE). Throws NotConvergedError (with diagnostics) if any solve fails or
+ * the grid budget is exhausted before the criteria are met.
  */
 export function solvePremixed(prob: PremixedProblem, start: FlameSolution, opts: PremixedRunOptions): PremixedRunResult {
   const K = prob.mech.nSpecies;
@@ -986,15 +1025,39 @@ export function solvePremixed(prob: PremixedProblem, start: FlameSolution, opts:
       fraction: Math.min(0.95, z.length / criteria.maxPoints),
       gridPoints: z.length,
     });
+    if (opts.inheritedGrid && pass === 0) {
+      const gridZ = z;
+      solver.earlyStop = {
+        tolerance: EARLY_REFINEMENT_TOLERANCE,
+        stop: () => markIntervals(gridZ, K + 1, (c, j) => solver.x[j * n + c], criteria).some((m) => m === 1),
+      };
+    }
     try {
       solver.solve();
     } finally {
       for (const key of Object.keys(stats) as (keyof SolveStats)[]) stats[key] += solver.stats[key];
     }
     x = solver.x;
-    history.push({ gridPoints: z.length, burningVelocity_m_per_s: x[K + 1] / rhoU });
-    const mark = markIntervals(z, K + 1, (c, j) => x[j * n + c], criteria);
-    const zNew = splitIntervals(z, mark, criteria.maxPoints);
+    // (a solve stopped early for refinement has no converged velocity of its own)
+    if (!solver.stoppedEarly) history.push({ gridPoints: z.length, burningVelocity_m_per_s: x[K + 1] / rhoU });
+    const values = (c: number, j: number) => x[j * n + c];
+    let mark = markIntervals(z, K + 1, values, criteria);
+    let remove: Uint8Array | undefined;
+    if (opts.inheritedGrid) {
+      let marked = 0;
+      for (let j = 0; j < mark.length; j++) marked += mark[j];
+      if (marked > 0) {
+        mark = markIntervals(z, K + 1, values, { ...criteria, slope: REFINE_AHEAD * criteria.slope, curve: REFINE_AHEAD * criteria.curve });
+      }
+      if (pass === 0) {
+        remove = removablePoints(z, K + 1, values, criteria, mark, [jFix], PRUNE_MARGIN);
+        let removed = 0;
+        for (let j = 0; j < remove.length; j++) removed += remove[j];
+        // pruning alone is worth another pass only when it removes many points
+        if (marked === 0 && removed < PRUNE_ALONE_FRACTION * z.length) remove = undefined;
+      }
+    }
+    const zNew = splitIntervals(z, mark, criteria.maxPoints, remove);
     if (!zNew) {
       let any = false;
       for (let i = 0; i < mark.length; i++) if (mark[i]) any = true;
