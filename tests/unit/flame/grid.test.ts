@@ -77,15 +77,15 @@ describe("grid refinement criteria", () => {
 describe("grid pruning (a warm start on a neighbour's grid)", () => {
   const c = { ratio: 3, slope: 0.06, curve: 0.12, maxPoints: 2000, threshold: 1e-8 };
   // a front that moved and got thinner, as a sweep's next flame does (profiles: common practice, no source)
-  const before = (z: number) => front(z, 0.01, 4e-4);
-  const after = (z: number) => front(z, 0.012, 2e-4);
+  const oldFront = (z: number) => front(z, 0.01, 4e-4);
+  const newFront = (z: number) => front(z, 0.012, 2e-4);
 
   it("removes only interior points away from marked intervals, never two neighbours, and keeps what it is told to", () => {
-    const { z } = refineUntilDone([before], c);
+    const { z } = refineUntilDone([oldFront], c);
     const N = z.length;
-    const mark = markIntervals(z, 1, (_c, j) => after(z[j]), c);
+    const mark = markIntervals(z, 1, (_c, j) => newFront(z[j]), c);
     const keep = [Math.floor(N / 2)];
-    const remove = removablePoints(z, 1, (_c, j) => after(z[j]), c, mark, keep, 0.6);
+    const remove = removablePoints(z, 1, (_c, j) => newFront(z[j]), c, mark, keep, 0.6);
     expect(remove.reduce((a, b) => a + b, 0)).toBeGreaterThan(0);
     expect(remove[0]).toBe(0);
     expect(remove[N - 1]).toBe(0);
@@ -98,18 +98,18 @@ describe("grid pruning (a warm start on a neighbour's grid)", () => {
   });
 
   it("prunes and refines the old grid to one that meets every criterion for the new profile, with fewer points than without pruning", () => {
-    const { z: old } = refineUntilDone([before], c);
-    const values = (zz: Float64Array) => (_c: number, j: number) => after(zz[j]);
+    const { z: old } = refineUntilDone([oldFront], c);
+    const values = (zz: Float64Array) => (_c: number, j: number) => newFront(zz[j]);
     // without pruning: refinement of the old grid until done
-    const { z: plain } = refineUntilDone([after], c, old);
+    const { z: plain } = refineUntilDone([newFront], c, old);
     // with pruning on the first pass, as a warm start does
     const mark = markIntervals(old, 1, values(old), c);
     const remove = removablePoints(old, 1, values(old), c, mark, [], 0.6);
     const first = splitIntervals(old, mark, c.maxPoints, remove) ?? old;
-    const { z: pruned } = refineUntilDone([after], c, first);
+    const { z: pruned } = refineUntilDone([newFront], c, first);
     expect(pruned.length).toBeLessThan(plain.length);
     expect(markIntervals(pruned, 1, values(pruned), c).every((m) => m === 0)).toBe(true);
-    const v = Array.from(pruned, (x) => after(x));
+    const v = Array.from(pruned, (x) => newFront(x));
     const range = Math.max(...v) - Math.min(...v);
     for (let j = 0; j < pruned.length - 1; j++) expect(Math.abs(v[j + 1] - v[j])).toBeLessThanOrEqual(0.06 * range + 1e-15);
     for (let j = 1; j < pruned.length - 1; j++) {
