@@ -27,6 +27,31 @@ export interface GridCriteria {
 /** Settings of a converged production solve (the issue's reference settings). */
 export const DEFAULT_GRID_CRITERIA: GridCriteria = { ratio: 3, slope: 0.06, curve: 0.12, maxPoints: 600, threshold: 1e-8 };
 
+/** Range (max − min) of component c over the N points. */
+function valueRange(N: number, c: number, values: (c: number, j: number) => number): number {
+  let vmin = Infinity;
+  let vmax = -Infinity;
+  for (let j = 0; j < N; j++) {
+    const v = values(c, j);
+    if (v < vmin) vmin = v;
+    if (v > vmax) vmax = v;
+  }
+  return vmax - vmin;
+}
+
+/** Slopes of component c on the intervals of z into `out`; returns their range (max − min). */
+function intervalSlopes(z: ArrayLike<number>, c: number, values: (c: number, j: number) => number, out: Float64Array): number {
+  let smin = Infinity;
+  let smax = -Infinity;
+  for (let j = 0; j < z.length - 1; j++) {
+    const s = (values(c, j + 1) - values(c, j)) / (z[j + 1] - z[j]);
+    out[j] = s;
+    if (s < smin) smin = s;
+    if (s > smax) smax = s;
+  }
+  return smax - smin;
+}
+
 /**
  * Marks the intervals to split. `values(c, j)` gives component c at point j; components are
  * 0 … nComponents−1. Returns a flag per interval (length N−1); none set means the grid is fine.
@@ -41,26 +66,10 @@ export function markIntervals(
   const mark = new Uint8Array(Math.max(0, N - 1));
   const slopes = new Float64Array(Math.max(0, N - 1));
   for (let c = 0; c < nComponents; c++) {
-    let vmin = Infinity;
-    let vmax = -Infinity;
-    for (let j = 0; j < N; j++) {
-      const v = values(c, j);
-      if (v < vmin) vmin = v;
-      if (v > vmax) vmax = v;
-    }
-    const range = vmax - vmin;
+    const range = valueRange(N, c, values);
     if (!(range > criteria.threshold)) continue;
-    let smin = Infinity;
-    let smax = -Infinity;
-    for (let j = 0; j < N - 1; j++) {
-      const dv = values(c, j + 1) - values(c, j);
-      if (Math.abs(dv) > criteria.slope * range) mark[j] = 1;
-      const s = dv / (z[j + 1] - z[j]);
-      slopes[j] = s;
-      if (s < smin) smin = s;
-      if (s > smax) smax = s;
-    }
-    const srange = smax - smin;
+    for (let j = 0; j < N - 1; j++) if (Math.abs(values(c, j + 1) - values(c, j)) > criteria.slope * range) mark[j] = 1;
+    const srange = intervalSlopes(z, c, values, slopes);
     if (srange > 0) {
       for (let j = 0; j < N - 2; j++) {
         if (Math.abs(slopes[j + 1] - slopes[j]) > criteria.curve * srange) {
@@ -112,25 +121,12 @@ export function removablePoints(
     const h = z[j + 1] - z[j - 1];
     if (h > criteria.ratio * (z[j - 1] - z[j - 2]) || h > criteria.ratio * (z[j + 2] - z[j + 1])) ok[j] = 0;
   }
+  const slopes = new Float64Array(N - 1);
   for (let c = 0; c < nComponents; c++) {
-    let vmin = Infinity;
-    let vmax = -Infinity;
-    for (let j = 0; j < N; j++) {
-      const v = values(c, j);
-      if (v < vmin) vmin = v;
-      if (v > vmax) vmax = v;
-    }
-    const range = vmax - vmin;
+    const range = valueRange(N, c, values);
     if (!(range > criteria.threshold)) continue;
-    let smin = Infinity;
-    let smax = -Infinity;
-    for (let j = 0; j < N - 1; j++) {
-      const s = (values(c, j + 1) - values(c, j)) / (z[j + 1] - z[j]);
-      if (s < smin) smin = s;
-      if (s > smax) smax = s;
-    }
     const slopeLimit = margin * criteria.slope * range;
-    const curveLimit = margin * criteria.curve * (smax - smin);
+    const curveLimit = margin * criteria.curve * intervalSlopes(z, c, values, slopes);
     for (let j = 2; j <= N - 3; j++) {
       if (!ok[j]) continue;
       const vl = values(c, j - 1);
