@@ -5,7 +5,8 @@
  * An action a role is shown must never be refused; one it is not shown must be refused (403).
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { tempDb, type TempDb } from "../db/temp-db";
+import type { TempDb } from "../db/temp-db";
+import { teamServerDatabase } from "./team-request";
 import { allowedActions, PAGE_ACTIONS, type PageAction } from "../../lib/services/access";
 import { ROLES, type Role } from "../../lib/schemas/accounts";
 
@@ -26,13 +27,7 @@ async function routeModule(pattern: string): Promise<Record<string, H> | null> {
 }
 
 beforeAll(async () => {
-  t = await tempDb();
-  process.env.DATABASE_URL = t.url;
-  process.env.STOKE_MODE = "team";
-  process.env.STOKE_SESSION_SECRET = "a test secret of at least thirty-two characters";
-  delete process.env.PORT;
-  delete process.env.STOKE_ALLOWED_HOSTS;
-  delete process.env.STOKE_TRASH;
+  t = await teamServerDatabase();
   const { createAccount } = await import("../../lib/services/accounts");
   const session = (await import("../../app/api/session/route")) as unknown as Record<string, H>;
   for (const role of ROLES) {

@@ -4,8 +4,8 @@
  * Host list, the change log's before and after, and the trash (restore, purge).
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { tempDb, type TempDb } from "../db/temp-db";
-import { teamRequest, type TeamRequestOptions } from "./team-request";
+import type { TempDb } from "../db/temp-db";
+import { teamRequest, teamServerDatabase, type TeamRequestOptions } from "./team-request";
 
 let t: TempDb;
 const saved = { ...process.env };
@@ -34,13 +34,7 @@ const PASSWORD = "correct horse battery staple";
 const ids: Record<string, number> = {};
 
 beforeAll(async () => {
-  t = await tempDb();
-  process.env.DATABASE_URL = t.url;
-  process.env.STOKE_MODE = "team";
-  process.env.STOKE_SESSION_SECRET = "a test secret of at least thirty-two characters";
-  delete process.env.PORT;
-  delete process.env.STOKE_ALLOWED_HOSTS;
-  delete process.env.STOKE_TRASH;
+  t = await teamServerDatabase();
   const routes = {
     session: await import("../../app/api/session/route"),
     fuels: await import("../../app/api/fuels/route"),

@@ -1,3 +1,4 @@
+import { tempDb, type TempDb } from "../db/temp-db";
 /** A request to a route handler as a team-mode client sends it: JSON body, session cookie or API token. */
 export interface TeamRequestOptions {
   method?: string;
@@ -17,4 +18,19 @@ export function teamRequest(base: string, path: string, opts: TeamRequestOptions
     body: opts.body === undefined ? undefined : JSON.stringify(opts.body),
     headers,
   });
+}
+
+/**
+ * A throw-away database and the environment of a team-mode server over it: a session secret, and
+ * none of the port, host allow-list or trash settings a developer's shell may carry.
+ */
+export async function teamServerDatabase(): Promise<TempDb> {
+  const t = await tempDb();
+  process.env.DATABASE_URL = t.url;
+  process.env.STOKE_MODE = "team";
+  process.env.STOKE_SESSION_SECRET = "a test secret of at least thirty-two characters";
+  delete process.env.PORT;
+  delete process.env.STOKE_ALLOWED_HOSTS;
+  delete process.env.STOKE_TRASH;
+  return t;
 }

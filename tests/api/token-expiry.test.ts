@@ -5,9 +5,9 @@
  * range answers 400 naming `lifetimeDays` and stores nothing.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { tempDb, type TempDb } from "../db/temp-db";
+import type { TempDb } from "../db/temp-db";
 import { TOKEN_LIFETIME_DEFAULT_DAYS, TOKEN_LIFETIME_MAX_DAYS } from "../../lib/schemas/accounts";
-import { teamRequest, type TeamRequestOptions } from "./team-request";
+import { teamRequest, teamServerDatabase, type TeamRequestOptions } from "./team-request";
 
 let t: TempDb;
 const saved = { ...process.env };
@@ -22,12 +22,7 @@ let editorId = 0;
 const req = (path: string, opts: TeamRequestOptions = {}) => teamRequest(base, path, opts);
 
 beforeAll(async () => {
-  t = await tempDb();
-  process.env.DATABASE_URL = t.url;
-  process.env.STOKE_MODE = "team";
-  process.env.STOKE_SESSION_SECRET = "a test secret of at least thirty-two characters";
-  delete process.env.PORT;
-  delete process.env.STOKE_ALLOWED_HOSTS;
+  t = await teamServerDatabase();
   r = {
     session: await import("../../app/api/session/route"),
     tokens: await import("../../app/api/tokens/route"),
