@@ -34,3 +34,13 @@ export async function openBrowser(): Promise<{ context: BrowserContext; page: Pa
     },
   };
 }
+
+/**
+ * Waits until a streamed page shows everything it sent: no loading state left, and no part that
+ * the server already rendered still held in the renderer's hidden container (streamed parts are
+ * revealed in batches, which may come after the load event). Counting what a page offers before
+ * that can miss what is still hidden.
+ */
+export async function pageSettled(page: Page): Promise<void> {
+  await page.waitForFunction(() => !document.querySelector(".loading-state") && !document.querySelector('[hidden][id^="S:"]'));
+}

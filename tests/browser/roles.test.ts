@@ -9,7 +9,7 @@ import os from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
-import { openBrowser } from "./browser";
+import { openBrowser, pageSettled } from "./browser";
 import { startNextServer, type NextServer } from "../support/next-server";
 import { seedFlameFixture } from "../support/flame-fixture";
 import { migrateSqlite } from "../../lib/db/migrate";
@@ -92,6 +92,7 @@ async function countActions(): Promise<number[]> {
       const res = await page.goto(url);
       expect(res?.status(), url).toBe(200);
       await page.getByRole("heading", { level: 1 }).first().waitFor();
+      await pageSettled(page);
       at = url;
     }
     counts.push(await page.getByRole(role, { name, exact: typeof name === "string" }).count());
