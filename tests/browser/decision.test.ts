@@ -107,8 +107,8 @@ describe("decision pages in the browser", () => {
     expect((await rankedNames()).sort()).toEqual(
       ["Biomethane", "Natural gas + 10 % H2", "Natural gas + 30 % H2", "Pipeline natural gas (today)"].sort(),
     );
-    // Charts rendered (recharts draws SVG).
-    expect(await page.locator("figure.chart svg.recharts-surface").count()).toBeGreaterThanOrEqual(3);
+    // Charts rendered (recharts draws SVG in the browser, after the page has loaded).
+    await page.waitForFunction(() => document.querySelectorAll("figure.chart svg.recharts-surface").length >= 3);
   });
 
   it("shows a field error and stores nothing for a study with a bad capex", async () => {

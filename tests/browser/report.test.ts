@@ -391,15 +391,13 @@ describe("chart labels", () => {
   it("the hydrogen sweep's labels overlap neither each other nor the ticks", async () => {
     await page.setViewportSize({ width: 1360, height: 900 });
     await page.goto(`${base}/studies/${demoStudyId}/sweep`);
-    await page.locator("svg.recharts-surface").first().waitFor();
-    expect(await page.locator("svg.recharts-surface text").count()).toBeGreaterThan(20);
+    await page.waitForFunction(() => document.querySelectorAll("svg.recharts-surface text").length > 20);
     expect(await chartCollisions()).toEqual([]);
   });
 
   it("the comparison charts' labels overlap neither each other nor the ticks", async () => {
     await page.goto(`${base}/studies/${bigStudyId}`);
-    await page.locator("svg.recharts-surface").first().waitFor();
-    expect(await page.locator("svg.recharts-surface").count()).toBeGreaterThanOrEqual(3);
+    await page.waitForFunction(() => document.querySelectorAll("svg.recharts-surface").length >= 3);
     expect(await chartCollisions()).toEqual([]);
   });
 });
