@@ -35,6 +35,7 @@ import {
   type SolveStats,
 } from "./premixed";
 import {
+  burningVelocityGuess_m_per_s,
   coldStart,
   extrapolateWarmStart,
   inletVector,
@@ -48,6 +49,15 @@ import { speciesThermoInto } from "./thermo";
 import { createMixtureTransport, type MixtureTransport } from "./transport";
 
 export const FLAME_SPEED_MECHANISM = "gri30" as const;
+/**
+ * Revision of the engine's answers: raised whenever a change of the numerics changes what a solve
+ * returns for the same request (start, solver, grid criteria, discretisation), so that stores keyed
+ * by request (lib/plant/burner-flame.ts) do not serve an older engine's figures or failures.
+ * 2: the start's mass flux follows the burnt temperature; C·|C| in the rates; negative mass
+ * fractions cleared from a refined grid's start and after pseudo-time steps; the curvature criterion
+ * only for components whose range exceeds 1e-6.
+ */
+export const FLAME_ENGINE_REVISION = 2;
 
 /** Warm start, first try: the neighbour's grid with at most one round of pseudo-time steps. */
 const WARM_FIRST_GRID: SolverSettings = { ...DEFAULT_SOLVER_SETTINGS, maxTimeStepAttempts: 1 };
@@ -253,7 +263,7 @@ export function computeFlameSpeed(input: FlameSpeedInput, opts: FlameSpeedOption
   const criteria: GridCriteria = { ...DEFAULT_GRID_CRITERIA, ...(req.grid ?? {}), ...(opts.grid ?? {}) };
   const burnt = { temperatureK: eq.temperatureK, Y: burntY };
   const xH2 = mix.fuel.h2MoleFraction ?? 0;
-  const cold = () => coldStart(prob, burnt, 0.4 + 1.6 * xH2 * xH2);
+  const cold = () => coldStart(prob, burnt, burningVelocityGuess_m_per_s(xH2, eq.temperatureK, Tu, p));
   const cpu0 = typeof process !== "undefined" && process.cpuUsage ? process.cpuUsage() : undefined;
   const runFrom = (start: FlameSolution, firstGridSettings?: SolverSettings, startJacobian?: BlockTridiagonal, inheritedGrid?: boolean) =>
     solvePremixed(prob, start, {

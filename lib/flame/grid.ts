@@ -8,7 +8,14 @@
  * - ratio:  neighbouring intervals differ in length by at most `ratio`.
  *
  * An interval that violates a criterion is halved (curvature violations halve both intervals
- * around the point). Components whose range is below `threshold` are not used (trace species).
+ * around the point). Components whose range is below `threshold` are not used (trace species); the
+ * curvature criterion applies only to components whose range exceeds `curveThreshold`. Below that,
+ * the slopes of a trace species in the burnt gas carry the first-order upwind scheme's local error
+ * where the interval length changes (its convective difference spans the upwind interval, its cell
+ * the half-intervals on both sides), and halving intervals only moves those jumps: the curvature
+ * criterion then fills the whole burnt gas with points (trace NO2 took a hydrogen flame with 600 K
+ * air to 911 points; with the curvature of components below 1e-6 left out it takes 221, and its
+ * burning velocity and NO move by less than 0.05 %).
  */
 
 export interface GridCriteria {
@@ -22,10 +29,19 @@ export interface GridCriteria {
   maxPoints: number;
   /** Components with (max − min) below this are ignored. */
   threshold: number;
+  /** The curvature criterion applies to components with (max − min) above this only. */
+  curveThreshold: number;
 }
 
 /** Settings of a converged production solve (the issue's reference settings). */
-export const DEFAULT_GRID_CRITERIA: GridCriteria = { ratio: 3, slope: 0.06, curve: 0.12, maxPoints: 600, threshold: 1e-8 };
+export const DEFAULT_GRID_CRITERIA: GridCriteria = {
+  ratio: 3,
+  slope: 0.06,
+  curve: 0.12,
+  maxPoints: 600,
+  threshold: 1e-8,
+  curveThreshold: 1e-6,
+};
 
 /** Range (max − min) of component c over the N points. */
 function valueRange(N: number, c: number, values: (c: number, j: number) => number): number {
@@ -69,7 +85,7 @@ export function markIntervals(
     const range = valueRange(N, c, values);
     if (!(range > criteria.threshold)) continue;
     for (let j = 0; j < N - 1; j++) if (Math.abs(values(c, j + 1) - values(c, j)) > criteria.slope * range) mark[j] = 1;
-    const srange = intervalSlopes(z, c, values, slopes);
+    const srange = range > criteria.curveThreshold ? intervalSlopes(z, c, values, slopes) : 0;
     if (srange > 0) {
       for (let j = 0; j < N - 2; j++) {
         if (Math.abs(slopes[j + 1] - slopes[j]) > criteria.curve * srange) {
@@ -126,7 +142,7 @@ export function removablePoints(
     const range = valueRange(N, c, values);
     if (!(range > criteria.threshold)) continue;
     const slopeLimit = margin * criteria.slope * range;
-    const curveLimit = margin * criteria.curve * intervalSlopes(z, c, values, slopes);
+    const curveLimit = range > criteria.curveThreshold ? margin * criteria.curve * intervalSlopes(z, c, values, slopes) : Infinity;
     for (let j = 2; j <= N - 3; j++) {
       if (!ok[j]) continue;
       const vl = values(c, j - 1);

@@ -53,17 +53,23 @@ const LN10 = Math.LN10;
 /** Floor for P_r in log10 (P_r = 0 when [M] = 0): the fall-off factor tends to its low-pressure limit smoothly. */
 const PR_FLOOR = 1e-300;
 
-/** C^o for the orders in use: exact products for 1, 2, 3 (any sign of C), a power of max(C, 0) otherwise. */
+/**
+ * C^o for the orders in use: C, C·|C| and C³ for orders 1, 2, 3, a power of max(C, 0) otherwise. The
+ * same as C^o for C ≥ 0; a Newton or time step can leave a minor species slightly negative, and
+ * C·|C| keeps the sign there, so a self-reaction (2 HO2 → H2O2 + O2) runs backwards and restores the
+ * species instead of destroying it further (C² drove HO2 in lean hydrogen flames and HCCOH at 10 bar to
+ * −1e-2 and the solve to failure).
+ */
 function powOrder(c: number, o: number): number {
   if (o === 1) return c;
-  if (o === 2) return c * c;
+  if (o === 2) return c * Math.abs(c);
   if (o === 3) return c * c * c;
   return c > 0 ? c ** o : 0;
 }
 /** d(C^o)/dC consistent with powOrder. */
 function dPowOrder(c: number, o: number): number {
   if (o === 1) return 1;
-  if (o === 2) return 2 * c;
+  if (o === 2) return 2 * Math.abs(c);
   if (o === 3) return 3 * c * c;
   return c > 0 ? o * c ** (o - 1) : 0;
 }

@@ -36,6 +36,32 @@ export function massFractionsFromMoles(mech: Mechanism, X: Record<string, number
   return Y;
 }
 
+/**
+ * Starting guess of the burning velocity (sets the cold start's mass flux; the solve finds the
+ * eigenvalue). Common practice, no source: a reference velocity of the fuel at φ = 1, 298 K, 1 atm
+ * (methane 0.4 m/s rising to hydrogen 2 m/s with the square of the hydrogen share), scaled
+ *   - with the burnt temperature as a one-step flame, S ∝ exp(−T_a / 2T_b), T_a = GUESS_ACTIVATION_K,
+ *     against the reference fuel's adiabatic temperature (2225 K methane … 2390 K hydrogen),
+ *   - with T_u/298.15 K (the rest of the rise with preheat) and with (p/1 atm)^−0.4.
+ * Over 72 solved flames (eight fuels from methane to hydrogen, syngas and biogas; φ 0.6–1.4,
+ * 298–600 K, 1–20 bar) it lies within 0.45–1.9 × the solved velocity (2.95 × for biogas at φ 1.4).
+ * The former guess (the fuel's φ = 1 reference alone) started lean hydrogen at over twice its
+ * velocity, and those solves failed.
+ */
+const GUESS_ACTIVATION_K = 16000;
+export function burningVelocityGuess_m_per_s(
+  h2MoleFraction: number,
+  burntTemperatureK: number,
+  unburntTemperatureK: number,
+  pressurePa: number,
+): number {
+  const x = Math.min(1, Math.max(0, h2MoleFraction));
+  const reference_m_per_s = 0.4 + 1.6 * x * x;
+  const referenceBurntK = 2225 + 165 * x;
+  const burnt = Math.exp(-(GUESS_ACTIVATION_K / 2) * (1 / burntTemperatureK - 1 / referenceBurntK));
+  return reference_m_per_s * burnt * (unburntTemperatureK / 298.15) * (pressurePa / 101325) ** -0.4;
+}
+
 export interface BurntState {
   temperatureK: number;
   /** Mass fractions in the mechanism's species order. */

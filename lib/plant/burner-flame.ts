@@ -1,6 +1,7 @@
 /**
  * The flame solves a study needs, by content: each request (fuel gas, air factor, unburnt
- * temperature, oxidiser, grid) has a key — its canonical JSON — so a solve is computed once and
+ * temperature, oxidiser, grid) has a key — its canonical JSON, with the flame engine's revision
+ * (FLAME_ENGINE_REVISION) — so a solve is computed once and
  * found again by whoever asks for the same flame (a scenario, a sweep point, another study). The
  * figures kept of a solve are compact (`FlameFigures`); the store that holds them is the caller's:
  * a Map in the command line, the database in the app (lib/services/flames.ts).
@@ -14,7 +15,7 @@ import { canonicalJson } from "../formats/canonical-json";
 import type { ResolvedFuel } from "../fuels/resolve";
 import type { Oxidizer } from "../combustion/stoichiometry";
 import type { FlameSpeedInput } from "../schemas/flame-speed";
-import type { FlameSpeedResult } from "../flame/flame-speed";
+import { FLAME_ENGINE_REVISION, FLAME_SPEED_MECHANISM, type FlameSpeedResult } from "../flame/flame-speed";
 import { atReferenceO2, ppmToMg_per_m3Normal } from "../units/emissions";
 import { MOLAR_MASS_g_per_mol } from "../thermo/species-data";
 
@@ -125,7 +126,19 @@ export function flameRequestFor(
     : [];
   if (Tu !== unburntTemperatureK)
     notes.push(`flame solve: unburnt mixture taken at ${Tu.toFixed(0)} K, the nearest the flame engine accepts`);
-  return { key: canonicalJson(request), request, notes };
+  return { key: flameKeyOf(request), request, notes };
+}
+
+/** The engine's revision is part of the key: a changed engine solves again instead of reusing old figures. */
+const FLAME_KEY_ENGINE = `${FLAME_SPEED_MECHANISM} r${FLAME_ENGINE_REVISION}`;
+
+function flameKeyOf(request: FlameSpeedInput): string {
+  return canonicalJson({ engine: FLAME_KEY_ENGINE, request });
+}
+
+/** The request behind a key of flameRequestFor. */
+export function flameRequestOfKey(key: string): FlameSpeedInput {
+  return (JSON.parse(key) as { request: FlameSpeedInput }).request;
 }
 
 /** The compact figures of a solve. */

@@ -1,7 +1,8 @@
 /**
  * Flame solves off the request path, cached in the database by content.
  *
- * - A solve is keyed by its request's canonical JSON (lib/plant/burner-flame.ts); the row's key is
+ * - A solve is keyed by its request's canonical JSON with the engine's revision
+ *   (lib/plant/burner-flame.ts), so a changed engine solves again; the row's key is
  *   the SHA-256 of that text. A row is written once and never changed; every study that needs the
  *   same flame finds it.
  * - `flameLookup(db)` brings this process's in-memory copy up to date (rows newer than the last

@@ -46,7 +46,7 @@ import { hydrogenSweep, type HydrogenSweepResult } from "./hydrogen-sweep";
 import { StudyInputError } from "./errors";
 import { pathEconomicsOf, studyPricePaths } from "./price-paths";
 import { kg_per_t, MJ_per_GJ, MJ_per_MWh } from "../units/energy";
-import type { FlameLookup } from "../plant/burner-flame";
+import { flameRequestOfKey, type FlameLookup } from "../plant/burner-flame";
 import type { FlameSpeedInput } from "../schemas/flame-speed";
 import { BURNER_CAUTIONS, BURNER_SCREENING_NOTE, burnerChecks, burnerResult, type BurnerResult } from "../plant/burner-checks";
 
@@ -281,11 +281,6 @@ function atLoads(perf: Perf, duty: PlantDuty): { rated: EfficiencyResult; annual
   }
 }
 
-/** The request behind a key (the key is its canonical JSON). */
-function flameRequestOf(key: string): FlameSpeedInput {
-  return JSON.parse(key) as FlameSpeedInput;
-}
-
 function flameSolveSummary(needed: FlameSolveNeed[], flames: FlameLookup | undefined): StudyResult["flameSolves"] {
   let solved = 0;
   let failed = 0;
@@ -353,7 +348,7 @@ export function evaluateStudy(study: Study, options: EvaluationOptions = {}): St
     if (!b.flame.key) return;
     const n = needs.get(b.flame.key);
     if (n) n.usedBy.push(usedBy);
-    else needs.set(b.flame.key, { key: b.flame.key, request: flameRequestOf(b.flame.key), usedBy: [usedBy] });
+    else needs.set(b.flame.key, { key: b.flame.key, request: flameRequestOfKey(b.flame.key), usedBy: [usedBy] });
   };
   const baseBurner = burnerResult({
     plant,

@@ -19,7 +19,7 @@ function refineUntilDone(fns: ((z: number) => number)[], criteria = DEFAULT_GRID
 
 describe("grid refinement criteria", () => {
   it("refines a tanh front until every interval meets the slope, curve and ratio criteria", () => {
-    const c = { ratio: 3, slope: 0.06, curve: 0.12, maxPoints: 1000, threshold: 1e-8 };
+    const c = { ratio: 3, slope: 0.06, curve: 0.12, maxPoints: 1000, threshold: 1e-8, curveThreshold: 0 };
     const { z } = refineUntilDone([front], c);
     const N = z.length;
     const v = Array.from(z, (x) => front(x));
@@ -53,6 +53,18 @@ describe("grid refinement criteria", () => {
     expect(Array.from(m)).toEqual([0, 0, 0]);
   });
 
+  it("applies the curvature criterion only to components whose range exceeds curveThreshold", () => {
+    // a kink: flat, then rising at 0.05 per unit length; each interval changes it by 5 % of its range (slope criterion met)
+    const z = Float64Array.from({ length: 41 }, (_, i) => i * 0.025);
+    const kink = (scale: number) => (_c: number, j: number) => scale * Math.max(0, z[j] - 0.5) * 0.05;
+    const marked = (m: Uint8Array) => Array.from(m).reduce((a, b) => a + b, 0);
+    // above the curvature threshold: the two intervals around the kink are split
+    expect(marked(markIntervals(z, 1, kink(1), DEFAULT_GRID_CRITERIA))).toBe(2);
+    // a trace component of the same shape (range 2.5e-7): slope criterion only, nothing to split
+    expect(marked(markIntervals(z, 1, kink(1e-5), DEFAULT_GRID_CRITERIA))).toBe(0);
+    expect(marked(markIntervals(z, 1, kink(1e-5), { ...DEFAULT_GRID_CRITERIA, curveThreshold: 0 }))).toBe(2);
+  });
+
   it("splits only as many intervals as the point budget allows, longest first", () => {
     const z = new Float64Array([0, 1, 3, 4]);
     const next = splitIntervals(z, new Uint8Array([1, 1, 1]), 5);
@@ -75,7 +87,7 @@ describe("grid refinement criteria", () => {
 });
 
 describe("grid pruning (a warm start on a neighbour's grid)", () => {
-  const c = { ratio: 3, slope: 0.06, curve: 0.12, maxPoints: 2000, threshold: 1e-8 };
+  const c = { ratio: 3, slope: 0.06, curve: 0.12, maxPoints: 2000, threshold: 1e-8, curveThreshold: 0 };
   // a front that moved and got thinner, as a sweep's next flame does (profiles: common practice, no source)
   const oldFront = (z: number) => front(z, 0.01, 4e-4);
   const newFront = (z: number) => front(z, 0.012, 2e-4);

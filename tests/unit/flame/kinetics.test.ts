@@ -194,6 +194,32 @@ describe("GRI-Mech 3.0 kinetics", () => {
     expect(Math.abs(w[idx("HO2")] / (k_cm3 * 1e-6 * 1e-3 * 2e-3) - 1)).toBeLessThan(1e-6);
   });
 
+  it("a negative concentration reverses a species' self-reaction instead of feeding it (C·|C| for a squared concentration)", () => {
+    // HO2 + HO2 <=> O2 + H2O2 (GRI-Mech 3.0 reactions 115 and 116, DUPLICATE): with HO2 alone (and N2),
+    // the forward rate k[HO2]² would destroy HO2 at a negative concentration too and drive it further
+    // below zero (a Newton or time step can leave a minor species slightly negative); as k[HO2]|[HO2]|
+    // it runs backwards and restores it. At a positive concentration both are the law of mass action:
+    // production −2(k115 + k116)[HO2]² (A = 1.3e11 and 4.2e14 cm3/(mol s), Ea = −1630 and 12000 cal/mol).
+    // At 700 K the other path open to HO2 alone, HO2 + M → H + O2 + M, adds about 4e-7 of this (1e-4 allowed).
+    const T = 700;
+    const RT_cal = (R_J_per_molK / CAL) * T;
+    const k_m3 = (1.3e11 * Math.exp(1630 / RT_cal) + 4.2e14 * Math.exp(-12000 / RT_cal)) * 1e-6;
+    const w = new Float64Array(nS);
+    const C = new Float64Array(nS);
+    C[idx("N2")] = 8;
+    C[idx("HO2")] = 1e-4;
+    kin.netProductionRates(T, C, w);
+    expect(Math.abs(w[idx("HO2")] / (-2 * k_m3 * 1e-8) - 1)).toBeLessThan(1e-4);
+    C[idx("HO2")] = -1e-4;
+    kin.netProductionRates(T, C, w);
+    expect(Math.abs(w[idx("HO2")] / (2 * k_m3 * 1e-8) - 1)).toBeLessThan(1e-4);
+    // and the derivative stays consistent: ∂ω̇_HO2/∂[HO2] = −4k|[HO2]|
+    const J = new Float64Array(nS * nS),
+      dT = new Float64Array(nS);
+    kin.jacobian(T, C, J, dT);
+    expect(Math.abs(J[idx("HO2") * nS + idx("HO2")] / (-4 * k_m3 * 1e-4) - 1)).toBeLessThan(1e-4);
+  });
+
   it("ω̇ conserves every element (Σ_k a_ek ω̇_k = 0) in a reacting methane-air mixture", () => {
     const C = reactingState();
     const w = new Float64Array(nS);
