@@ -7,7 +7,8 @@
  *   before timing (a warm-up solve on a coarse grid, and a warm-started one from it, so that neither
  *   figure includes the first compilation of the code it runs).
  * - flame_speed_h2_sweep_s: 0, 10, …, 100 vol % H2 in CH4 at φ = 0.8 (11 solves, same settings),
- *   each warm-started from the previous one, the first from the starting estimate.
+ *   each warm-started from the previous one, the first from the starting estimate; three sweeps, so
+ *   that the median of each figure is compared (the machine's noise moves single runs by ±15 %).
  * - flame_speed_peak_rss_MB: the process's peak resident memory after those solves.
  */
 import { computeFlameSpeed, type FlameSpeedResult } from "../../lib/flame/flame-speed";
@@ -26,18 +27,22 @@ export async function benchFlame(): Promise<BenchResult[]> {
   computeFlameSpeed({ fuel: { composition: { CH4: 0.9, H2: 0.1 } }, phi: 1, grid: coarse }, { warmStart: warmUp.solution });
   const cold: number[] = [];
   for (let i = 0; i < 3; i++) cold.push(cpuSeconds(() => computeFlameSpeed({ fuel: { composition: { CH4: 1 } }, phi: 1 }))[1]);
-  const [, sweep] = cpuSeconds(() => {
-    let prev: FlameSpeedResult | undefined;
-    for (let i = 0; i <= 10; i++) {
-      const h2 = i / 10;
-      const composition: Record<string, number> = h2 === 0 ? { CH4: 1 } : h2 === 1 ? { H2: 1 } : { CH4: 1 - h2, H2: h2 };
-      prev = computeFlameSpeed({ fuel: { composition }, phi: 0.8 }, { warmStart: prev?.solution });
-    }
-  });
+  const sweep: number[] = [];
+  for (let s = 0; s < 3; s++)
+    sweep.push(
+      cpuSeconds(() => {
+        let prev: FlameSpeedResult | undefined;
+        for (let i = 0; i <= 10; i++) {
+          const h2 = i / 10;
+          const composition: Record<string, number> = h2 === 0 ? { CH4: 1 } : h2 === 1 ? { H2: 1 } : { CH4: 1 - h2, H2: h2 };
+          prev = computeFlameSpeed({ fuel: { composition }, phi: 0.8 }, { warmStart: prev?.solution });
+        }
+      })[1],
+    );
   const peak = process.resourceUsage().maxRSS / 1024;
   return [
     { name: "flame_speed_cold_s", unit: "s", samples: cold },
-    { name: "flame_speed_h2_sweep_s", unit: "s", samples: [sweep] },
+    { name: "flame_speed_h2_sweep_s", unit: "s", samples: sweep },
     { name: "flame_speed_peak_rss_MB", unit: "MB", samples: [peak] },
   ];
 }
