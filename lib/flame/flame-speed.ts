@@ -97,7 +97,7 @@ export interface FlameSpeedOptions {
   signal?: AbortSignal;
   /** A neighbouring solution (the `solution` of an earlier result) to start from. */
   warmStart?: FlameSpeedState;
-  /** Refinement criteria (default: ratio 3, slope 0.06, curve 0.12, ≤ 600 points). */
+  /** Refinement criteria (default: DEFAULT_FLAME_GRID, ratio 3, slope 0.06, curve 0.12, ≤ 1500 points). */
   grid?: Partial<GridCriteria>;
 }
 

@@ -18,6 +18,8 @@
  * burning velocity and NO move by less than 0.05 %).
  */
 
+import { DEFAULT_FLAME_GRID } from "../schemas/flame-speed";
+
 export interface GridCriteria {
   /** Largest length ratio of neighbouring intervals (≥ 2). */
   ratio: number;
@@ -33,15 +35,8 @@ export interface GridCriteria {
   curveThreshold: number;
 }
 
-/** Settings of a converged production solve (the reference settings). */
-export const DEFAULT_GRID_CRITERIA: GridCriteria = {
-  ratio: 3,
-  slope: 0.06,
-  curve: 0.12,
-  maxPoints: 600,
-  threshold: 1e-8,
-  curveThreshold: 1e-6,
-};
+/** Settings of a converged production solve (DEFAULT_FLAME_GRID of the request schema, and the thresholds). */
+export const DEFAULT_GRID_CRITERIA: GridCriteria = { ...DEFAULT_FLAME_GRID, threshold: 1e-8, curveThreshold: 1e-6 };
 
 /** Range (max − min) of component c over the N points. */
 function valueRange(N: number, c: number, values: (c: number, j: number) => number): number {
