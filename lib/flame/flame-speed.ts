@@ -218,6 +218,26 @@ export function flameMixture(
 
 // ---- the computation ------------------------------------------------------------------------------
 
+/**
+ * A flame without any hydrogen atom in fuel or oxidiser (dry CO in dry air) has no OH chemistry to
+ * carry it: the solve does not converge. Its not-converged error then says so and what to give.
+ */
+function withoutHydrogenHint(e: unknown, mech: Mechanism, inletY: Float64Array): unknown {
+  if (!(e instanceof NotConvergedError) || e.diagnostics.cancelled) return e;
+  const h = mech.elementNames.indexOf("H");
+  if (h < 0) return e;
+  let hydrogen = 0;
+  for (let k = 0; k < mech.nSpecies; k++)
+    hydrogen += (mech.elementMatrix[h * mech.nSpecies + k] * inletY[k]) / mech.molarMass_kg_per_mol[k];
+  if (hydrogen > 0) return e;
+  return new NotConvergedError(
+    e.solver,
+    `${e.detail}; the mixture holds no hydrogen (neither the fuel nor the oxidiser): a dry CO flame has no OH chemistry to carry it — give the air's moisture (oxidizer H2O)`,
+    e.diagnostics,
+    e.field,
+  );
+}
+
 /** Laminar burning velocity and the flame's figures; throws InputError / NotConvergedError. */
 export function computeFlameSpeed(input: FlameSpeedInput, opts: FlameSpeedOptions = {}): FlameSpeedResult {
   const parsed = flameSpeedRequestSchema.safeParse(input);
@@ -277,35 +297,48 @@ export function computeFlameSpeed(input: FlameSpeedInput, opts: FlameSpeedOption
   let run: ReturnType<typeof solvePremixed>;
   const ws = opts.warmStart;
   let correctionBase: { estimate: FlameSolution; inletChange: Float64Array } | undefined;
-  if (ws && ws.mechanism === mech.name) {
-    const estimate = warmStart(prob, ws.flame, ws.unburntTemperatureK, ws.inletY, ws.burntEstimate, ws.inletDensity_kg_per_m3, rhoU, burnt);
-    const inletChange = inletVector(inletY, Tu, p);
-    const before = inletVector(ws.inletY, ws.unburntTemperatureK, ws.pressurePa);
-    for (let i = 0; i < inletChange.length; i++) inletChange[i] -= before[i];
-    // along a sweep: add the previous step's correction, scaled to this step (secant predictor)
-    let guess = estimate;
-    if (ws.correction) {
-      const extrapolated = { ...estimate, x: Float64Array.from(estimate.x) };
-      if (extrapolateWarmStart(extrapolated, ws.correction, inletChange) > 0) guess = extrapolated;
-    }
-    correctionBase = { estimate, inletChange };
-    const retryable = (e: unknown) => e instanceof NotConvergedError && !e.diagnostics.cancelled;
-    try {
-      // a near neighbour: Newton on its grid, at most one round of pseudo-time steps
-      run = runFrom(guess, WARM_FIRST_GRID, takeLastJacobian(ws.flame), true);
-    } catch (e) {
-      if (!retryable(e)) throw e;
-      try {
-        // further away: pseudo-time steps on a coarse copy of its grid, then refinement
-        run = runFrom(thinSolution(guess, WARM_COARSE_POINTS));
-      } catch (e2) {
-        // too far: start again from the equilibrium-based estimate
-        if (!retryable(e2)) throw e2;
-        run = runFrom(cold());
+  try {
+    if (ws && ws.mechanism === mech.name) {
+      const estimate = warmStart(
+        prob,
+        ws.flame,
+        ws.unburntTemperatureK,
+        ws.inletY,
+        ws.burntEstimate,
+        ws.inletDensity_kg_per_m3,
+        rhoU,
+        burnt,
+      );
+      const inletChange = inletVector(inletY, Tu, p);
+      const before = inletVector(ws.inletY, ws.unburntTemperatureK, ws.pressurePa);
+      for (let i = 0; i < inletChange.length; i++) inletChange[i] -= before[i];
+      // along a sweep: add the previous step's correction, scaled to this step (secant predictor)
+      let guess = estimate;
+      if (ws.correction) {
+        const extrapolated = { ...estimate, x: Float64Array.from(estimate.x) };
+        if (extrapolateWarmStart(extrapolated, ws.correction, inletChange) > 0) guess = extrapolated;
       }
+      correctionBase = { estimate, inletChange };
+      const retryable = (e: unknown) => e instanceof NotConvergedError && !e.diagnostics.cancelled;
+      try {
+        // a near neighbour: Newton on its grid, at most one round of pseudo-time steps
+        run = runFrom(guess, WARM_FIRST_GRID, takeLastJacobian(ws.flame), true);
+      } catch (e) {
+        if (!retryable(e)) throw e;
+        try {
+          // further away: pseudo-time steps on a coarse copy of its grid, then refinement
+          run = runFrom(thinSolution(guess, WARM_COARSE_POINTS));
+        } catch (e2) {
+          // too far: start again from the equilibrium-based estimate
+          if (!retryable(e2)) throw e2;
+          run = runFrom(cold());
+        }
+      }
+    } else {
+      run = runFrom(cold());
     }
-  } else {
-    run = runFrom(cold());
+  } catch (e) {
+    throw withoutHydrogenHint(e, mech, inletY);
   }
   const sol = run.solution;
   keepLastJacobian(sol, run.jacobian);

@@ -243,6 +243,21 @@ describe("what the flame engine refuses, flags and reports", () => {
     expect(() => flameMixture({ fuel: { compound: "C2H5OH", phase: "liquid" } }, mech)).toThrow(InputError);
   });
 
+  it(
+    "says why a dry CO flame does not converge (no hydrogen in fuel or air) and what to give",
+    () => {
+      let error: unknown;
+      try {
+        computeFlameSpeed({ fuel: { composition: { CO: 1 } }, phi: 1, grid: { slope: 0.3, curve: 0.6 } });
+      } catch (e) {
+        error = e;
+      }
+      expect(error).toBeInstanceOf(NotConvergedError);
+      expect((error as NotConvergedError).detail).toMatch(/no hydrogen.*oxidizer H2O/);
+    },
+    T,
+  );
+
   it("flags ammonia as outside the mechanism's validation", () => {
     const m = flameMixture({ fuel: { composition: { NH3: 1 } }, phi: 1 }, mech);
     expect(m.notes.join(" ")).toMatch(/not validated for ammonia/);
