@@ -9,8 +9,8 @@ import { ONE_SUPPLY_ISSUE, atMostOneSupply, flameRequestSchema } from "./combust
 const flameFields = flameRequestSchema.shape;
 
 /**
- * The flame's grid criteria by default (the issue's reference settings: ratio 3, slope 0.06, curve
- * 0.12). `maxPoints` only guards against a refinement that runs away: most flames need 150–250
+ * The flame's grid criteria by default (the reference settings of the speed target: ratio 3, slope
+ * 0.06, curve 0.12). `maxPoints` only guards against a refinement that runs away: most flames need 150–250
  * points, the fastest hydrogen flames (hydrogen/air at 900 K, hydrogen with 30 % O2 air) 650–1 250.
  */
 export const DEFAULT_FLAME_GRID = Object.freeze({ ratio: 3, slope: 0.06, curve: 0.12, maxPoints: 1500 });
