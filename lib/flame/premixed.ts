@@ -113,6 +113,7 @@ export const DEFAULT_SOLVER_SETTINGS: SolverSettings = {
 
 export interface ProgressInfo {
   stage: string;
+  /** Share of the point budget (`maxPoints`) the current grid uses, at most 0.95 before the end: a rough indicator of progress, not a forecast. */
   fraction: number;
   gridPoints: number;
 }
